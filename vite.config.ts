@@ -1,0 +1,59 @@
+import { fileURLToPath, URL } from 'node:url';
+import { defineConfig } from 'vitest/config';
+import vue from '@vitejs/plugin-vue';
+
+const apiPort = process.env.PORT ?? '3000';
+
+export default defineConfig({
+  root: fileURLToPath(new URL('./client', import.meta.url)),
+  plugins: [vue()],
+  resolve: {
+    alias: {
+      '@': fileURLToPath(new URL('./client/src', import.meta.url)),
+      '@engine': fileURLToPath(new URL('./engine', import.meta.url)),
+      '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
+    },
+  },
+  build: {
+    outDir: fileURLToPath(new URL('./dist/client', import.meta.url)),
+    emptyOutDir: true,
+    chunkSizeWarningLimit: 1500,
+  },
+  server: {
+    host: '127.0.0.1',
+    proxy: { '/api': `http://127.0.0.1:${apiPort}` },
+  },
+  test: {
+    root: fileURLToPath(new URL('.', import.meta.url)),
+    projects: [
+      {
+        extends: true,
+        test: { name: 'engine', include: ['tests/engine/**/*.test.ts'], environment: 'node' },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'api',
+          include: ['tests/api/**/*.test.ts'],
+          environment: 'node',
+          globalSetup: ['tests/helpers/globalSetup.ts'],
+          fileParallelism: false,
+          testTimeout: 20000,
+          hookTimeout: 60000,
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'e2e',
+          include: ['tests/e2e/**/*.e2e.ts'],
+          environment: 'node',
+          globalSetup: ['tests/helpers/globalSetup.ts', 'tests/helpers/e2eSetup.ts'],
+          fileParallelism: false,
+          testTimeout: 60000,
+          hookTimeout: 120000,
+        },
+      },
+    ],
+  },
+});
