@@ -1,0 +1,70 @@
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import fs from 'node:fs';
+import path from 'node:path';
+import { config } from './config/index';
+import { adminRouter } from './features/admin/admin.router';
+import { authRouter } from './features/auth/auth.router';
+import { devRouter } from './features/dev/dev.router';
+import { healthRouter } from './features/health/health.router';
+import { profileRouter } from './features/profile/profile.router';
+import { mailCaptureEnabled } from './lib/mailer';
+import { passportInitialize } from './middleware/auth';
+import { errorHandler, notFound } from './middleware/errorHandler';
+
+/** Builds the Express app: the API under /api and, when built, the client. Listening is index.ts's job. */
+export function createApp(): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        useDefaults: true,
+        directives: {
+          'default-src': ["'self'"],
+          'script-src': ["'self'"],
+          'style-src': ["'self'", "'unsafe-inline'"],
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'font-src': ["'self'", 'data:'],
+          'connect-src': ["'self'"],
+          'object-src': ["'none'"],
+          'frame-ancestors': ["'none'"],
+          'upgrade-insecure-requests': null,
+        },
+      },
+      strictTransportSecurity: config.NODE_ENV === 'production',
+    }),
+  );
+  app.use(passportInitialize);
+
+  const api = express.Router();
+  api.use(express.json({ limit: config.BODY_LIMIT }));
+  api.use('/health', healthRouter);
+  api.use('/auth', authRouter);
+  api.use('/profile', profileRouter);
+  api.use('/admin', adminRouter);
+  if (mailCaptureEnabled) api.use('/dev', devRouter);
+  api.use(notFound);
+  api.use(errorHandler);
+  app.use('/api', api);
+
+  const dist = path.resolve(config.CLIENT_DIST);
+  const indexHtml = path.join(dist, 'index.html');
+  if (fs.existsSync(indexHtml)) {
+    app.use(express.static(dist, { index: false, maxAge: '1h', setHeaders: (res, file) => {
+      if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+    } }));
+    app.get(/^(?!\/api\/).*/, (_req, res) => {
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(indexHtml);
+    });
+  } else {
+    app.get('/', (_req, res) => {
+      res.type('text/plain').send('Lanewright API is running. The client is not built: run `npm run build` (npm start does this).');
+    });
+  }
+  app.use(notFound);
+  app.use(errorHandler);
+  return app;
+}

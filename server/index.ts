@@ -1,0 +1,40 @@
+import type { Socket } from 'node:net';
+import { createApp } from './app';
+import { config } from './config/index';
+import { closeMailer } from './lib/mailer';
+import { logger } from './lib/logger';
+import { sequelize } from './models/index';
+
+const app = createApp();
+const server = app.listen(config.PORT, config.HOST, () => {
+  const addr = server.address();
+  const port = typeof addr === 'object' && addr ? addr.port : config.PORT;
+  logger.info({ url: `http://${config.HOST}:${port}` }, 'Lanewright is listening');
+  process.send?.({ type: 'listening', port });
+});
+server.keepAliveTimeout = 5000;
+
+const sockets = new Set<Socket>();
+server.on('connection', (s) => {
+  sockets.add(s);
+  s.on('close', () => sockets.delete(s));
+});
+
+let stopping = false;
+/** Graceful shutdown: stop accepting, let in-flight requests finish (10 s at most), close the pool. */
+async function shutdown(signal: string): Promise<void> {
+  if (stopping) return;
+  stopping = true;
+  logger.info({ signal }, 'shutting down');
+  const force = setTimeout(() => {
+    for (const s of sockets) s.destroy();
+  }, 10000);
+  force.unref();
+  server.closeIdleConnections();
+  await new Promise<void>((resolve) => server.close(() => resolve()));
+  await Promise.allSettled([sequelize.close(), closeMailer()]);
+  clearTimeout(force);
+  process.exit(0);
+}
+process.on('SIGTERM', () => void shutdown('SIGTERM'));
+process.on('SIGINT', () => void shutdown('SIGINT'));

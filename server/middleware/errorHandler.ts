@@ -1,0 +1,54 @@
+import type { NextFunction, Request, Response } from 'express';
+import { AppError } from '../lib/AppError';
+import { logger } from '../lib/logger';
+
+interface HttpishError {
+  status?: number;
+  statusCode?: number;
+  type?: string;
+  expose?: boolean;
+  message?: string;
+}
+
+function isDbUnavailable(err: unknown): boolean {
+  const name = (err as { name?: string })?.name ?? '';
+  return /Sequelize(Connection\w*Error|HostNotReachableError|AccessDeniedError)|ConnectionAcquireTimeoutError/.test(name);
+}
+
+/** The one error handler: AppError → its status; body-parser errors → 400/413; database down → 503; anything else → a logged 500 with a generic message. */
+export function errorHandler(err: unknown, req: Request, res: Response, next: NextFunction): void {
+  if (res.headersSent) {
+    next(err);
+    return;
+  }
+  if (err instanceof AppError) {
+    res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
+    return;
+  }
+  const e = err as HttpishError;
+  const status = e?.status ?? e?.statusCode;
+  if (e?.type === 'entity.too.large' || status === 413) {
+    res.status(413).json({ error: { code: 'payload_too_large', message: 'The request body is too large' } });
+    return;
+  }
+  if (e?.type === 'entity.parse.failed') {
+    res.status(400).json({ error: { code: 'malformed_json', message: 'The request body is not valid JSON' } });
+    return;
+  }
+  if (typeof status === 'number' && status >= 400 && status < 500 && e.expose !== false) {
+    res.status(status).json({ error: { code: e.type?.replace(/\./g, '_') ?? 'bad_request', message: 'The request could not be processed' } });
+    return;
+  }
+  if (isDbUnavailable(err)) {
+    logger.warn({ err, path: req.path }, 'database unavailable');
+    res.status(503).json({ error: { code: 'service_unavailable', message: 'The service is temporarily unavailable; try again shortly' } });
+    return;
+  }
+  logger.error({ err, method: req.method, path: req.path }, 'unhandled error');
+  res.status(500).json({ error: { code: 'internal_error', message: 'Something went wrong on our side' } });
+}
+
+/** Unknown API routes answer 404 in the error shape. */
+export function notFound(req: Request, res: Response): void {
+  res.status(404).json({ error: { code: 'not_found', message: `No route for ${req.method} ${req.originalUrl.split("?")[0]}` } });
+}

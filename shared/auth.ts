@@ -1,0 +1,82 @@
+import { z } from 'zod';
+
+export const ROLES = ['bowler', 'coach', 'proprietor', 'admin'] as const;
+export const RoleSchema = z.enum(ROLES);
+export type Role = z.infer<typeof RoleSchema>;
+
+export const PASSWORD_MIN_LENGTH = 10;
+
+export const EmailSchema = z
+  .string({ error: 'E-mail is required' })
+  .trim()
+  .toLowerCase()
+  .max(254, 'E-mail is too long')
+  .pipe(z.email({ error: 'Enter a valid e-mail address' }));
+
+export const RegisterSchema = z.object({
+  email: EmailSchema,
+  password: z
+    .string({ error: 'Password is required' })
+    .min(PASSWORD_MIN_LENGTH, `Password must be at least ${PASSWORD_MIN_LENGTH} characters`)
+    .max(128, 'Password must be at most 128 characters'),
+  displayName: z
+    .string({ error: 'Display name is required' })
+    .trim()
+    .min(1, 'Display name is required')
+    .max(80, 'Display name must be at most 80 characters'),
+});
+export type RegisterInput = z.infer<typeof RegisterSchema>;
+
+export const LoginSchema = z.object({
+  email: EmailSchema,
+  password: z.string({ error: 'Password is required' }).min(1, 'Password is required').max(128),
+});
+export type LoginInput = z.infer<typeof LoginSchema>;
+
+export const UserSchema = z.object({
+  id: z.number().int(),
+  email: z.string(),
+  displayName: z.string(),
+  role: RoleSchema,
+  createdAt: z.string(),
+});
+export type User = z.infer<typeof UserSchema>;
+
+export const AuthResponseSchema = z.object({ token: z.string(), user: UserSchema });
+export type AuthResponse = z.infer<typeof AuthResponseSchema>;
+
+export const RoleChangeSchema = z.object({ role: RoleSchema });
+export type RoleChange = z.infer<typeof RoleChangeSchema>;
+
+export const IdParamSchema = z.object({
+  id: z.coerce.number({ error: 'Must be a number' }).int('Must be a whole number').positive('Must be positive').max(2147483647),
+});
+
+export const PageQuerySchema = z.object({
+  page: z.coerce.number().int().min(1).max(100000).default(1),
+  pageSize: z.coerce.number().int().min(1).max(100).default(20),
+});
+
+export const UserListQuerySchema = PageQuerySchema.extend({
+  q: z.string().trim().max(100).optional(),
+  role: RoleSchema.optional(),
+  sort: z.enum(['email', 'displayName', 'role', 'createdAt']).default('createdAt'),
+  order: z.enum(['asc', 'desc']).default('asc'),
+});
+export type UserListQuery = z.infer<typeof UserListQuerySchema>;
+
+export interface Page<T> {
+  items: T[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
+export const ForgotSchema = z.object({ email: EmailSchema });
+export type ForgotInput = z.infer<typeof ForgotSchema>;
+
+export const ResetSchema = z.object({
+  token: z.string({ error: 'The reset token is missing' }).min(20, 'The reset token is not valid').max(200, 'The reset token is not valid'),
+  password: RegisterSchema.shape.password,
+});
+export type ResetInput = z.infer<typeof ResetSchema>;

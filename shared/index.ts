@@ -1,0 +1,3 @@
+export * from './errors';
+export * from './auth';
+export * from './profile';

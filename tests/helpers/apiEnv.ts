@@ -1,0 +1,7 @@
+import { inject } from 'vitest';
+
+// Runs in each test worker before a test file imports the server: point its config at the test database.
+process.env.DATABASE_URL = inject('databaseUrl');
+process.env.NODE_ENV = 'test';
+process.env.RATE_LIMIT_AUTH ??= '40';
+process.env.JWT_SECRET ??= 'lanewright-test-secret-0123456789';
