@@ -1,0 +1,24 @@
+import type { Role } from '@shared/auth';
+import type { AppRouteName } from '@/router/routes';
+
+export interface AppLayoutNavItem {
+  name: AppRouteName;
+  label: string;
+  /** Roles that see the entry; absent = every signed-in user. */
+  roles?: readonly Role[];
+}
+
+/**
+ * Top-level navigation. Coach ("Coach", for coaches and admins) and proprietor ("Center admin") entries
+ * join here when those screens exist; until then they are left out rather than linking to nothing.
+ */
+export const NAV_ITEMS: readonly AppLayoutNavItem[] = [
+  { name: 'home', label: 'Home' },
+  { name: 'profile', label: 'Profile' },
+  { name: 'admin-users', label: 'Admin', roles: ['admin'] },
+];
+
+export function navItemsFor(role: Role | null): AppLayoutNavItem[] {
+  if (!role) return [];
+  return NAV_ITEMS.filter((item) => !item.roles || item.roles.includes(role));
+}

@@ -1,0 +1,37 @@
+import { createApp } from 'vue';
+import { createPinia } from 'pinia';
+import ElementPlus from 'element-plus';
+import 'element-plus/dist/index.css';
+import '@fontsource/source-sans-3/400.css';
+import '@fontsource/source-sans-3/600.css';
+import '@fontsource/source-sans-3/700.css';
+import './styles/theme.css';
+import './styles/base.css';
+
+import App from './App.vue';
+import { configureApiClient } from './api/client';
+import { router, routerReplace } from './router';
+import { useAuthStore } from './stores/auth';
+
+const app = createApp(App);
+const pinia = createPinia();
+app.use(pinia);
+
+const auth = useAuthStore(pinia);
+
+// The one 401 policy: any 401 from any route ends the session and returns to sign-in,
+// remembering the page to come back to.
+configureApiClient({
+  getToken: () => auth.token,
+  onUnauthorized: () => {
+    const current = router.currentRoute.value;
+    auth.clearSession();
+    if (!current.meta.public) {
+      void routerReplace('sign-in', { query: { redirect: current.fullPath, reason: 'expired' } });
+    }
+  },
+});
+
+app.use(router);
+app.use(ElementPlus);
+app.mount('#app');

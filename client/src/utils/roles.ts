@@ -1,0 +1,22 @@
+import type { Role } from '@shared/auth';
+
+export const ROLE_LABELS: Readonly<Record<Role, string>> = {
+  bowler: 'Bowler',
+  coach: 'Coach',
+  proprietor: 'Proprietor',
+  admin: 'Admin',
+};
+
+/** What each role can do, in a sentence (shown on Home and in the role dialog). */
+export const ROLE_SUMMARIES: Readonly<Record<Role, string>> = {
+  bowler: 'Keep your release profile and, soon, your arsenal, shot logs and matchups.',
+  coach: 'Everything a bowler can do, plus working with the students who accept your invitation.',
+  proprietor: 'Run your centers: lanes, price list, oil patterns and the published house condition.',
+  admin: 'Grant roles, look after the shared ball catalogue and read the audit log.',
+};
+
+/** "a bowler", "an admin" */
+export function withArticle(role: Role): string {
+  const label = ROLE_LABELS[role].toLowerCase();
+  return /^[aeiou]/.test(label) ? `an ${label}` : `a ${label}`;
+}

@@ -1,0 +1,102 @@
+import { z } from 'zod';
+import { ProfileSchema, type Profile } from '@shared/profile';
+
+/**
+ * Unit conversion at the edge of the UI. Profiles are stored in the trade's units (mph, inches);
+ * a bowler who chooses metric sees and types km/h and centimetres.
+ */
+export const KMH_PER_MPH = 1.609344;
+export const CM_PER_IN = 2.54;
+
+export type Units = Profile['units'];
+
+/** The profile as the form shows it: same keys as `Profile`, speed and PAP in the chosen units. */
+export interface ProfileForm {
+  hand: Profile['hand'];
+  speedMph: number | null;
+  revRpm: number | null;
+  axisRotationDeg: number | null;
+  axisTiltDeg: number | null;
+  papRightIn: number | null;
+  papUpIn: number | null;
+  units: Units;
+}
+
+export const UNIT_LABELS: Readonly<Record<Units, { speed: string; length: string }>> = {
+  imperial: { speed: 'mph', length: 'in' },
+  metric: { speed: 'km/h', length: 'cm' },
+};
+
+function round(value: number, decimals: number): number {
+  const f = 10 ** decimals;
+  return Math.round(value * f) / f;
+}
+
+function convert(value: number | null, factor: number, decimals: number): number | null {
+  return value === null ? null : round(value * factor, decimals);
+}
+
+/** Display value → stored value and back, for one of the converted fields. */
+function factorFor(field: 'speed' | 'length', from: Units, to: Units): number {
+  if (from === to) return 1;
+  const k = field === 'speed' ? KMH_PER_MPH : CM_PER_IN;
+  return from === 'imperial' ? k : 1 / k;
+}
+
+export function toForm(profile: Profile): ProfileForm {
+  const f = (field: 'speed' | 'length') => factorFor(field, 'imperial', profile.units);
+  return {
+    ...profile,
+    speedMph: convert(profile.speedMph, f('speed'), 1),
+    papRightIn: convert(profile.papRightIn, f('length'), 1),
+    papUpIn: convert(profile.papUpIn, f('length'), 1),
+  };
+}
+
+/** Convert the displayed speed and PAP when the bowler switches units in the form. */
+export function switchUnits(form: ProfileForm, from: Units, to: Units): void {
+  form.speedMph = convert(form.speedMph, factorFor('speed', from, to), 1);
+  form.papRightIn = convert(form.papRightIn, factorFor('length', from, to), 1);
+  form.papUpIn = convert(form.papUpIn, factorFor('length', from, to), 1);
+}
+
+/** A validated form → the stored profile (trade units). */
+export function fromForm(form: Profile): Profile {
+  const f = (field: 'speed' | 'length') => factorFor(field, form.units, 'imperial');
+  return {
+    ...form,
+    speedMph: round(form.speedMph * f('speed'), 2),
+    papRightIn: convert(form.papRightIn, f('length'), 2),
+    papUpIn: convert(form.papUpIn, f('length'), 2),
+  };
+}
+
+function bounds(schema: z.ZodNumber): { min: number; max: number } {
+  return { min: schema.minValue ?? -Infinity, max: schema.maxValue ?? Infinity };
+}
+
+/** A number rule in display units whose limits are the shared schema's limits converted (kept inside them). */
+function metricNumber(schema: z.ZodNumber, factor: number, unit: string) {
+  const { min, max } = bounds(schema);
+  const lo = Math.ceil(min * factor * 10) / 10;
+  const hi = Math.floor(max * factor * 10) / 10;
+  const fmt = (v: number) => String(v).replace('-', '−');
+  return z
+    .number({ error: 'Must be a number' })
+    .min(lo, `At least ${fmt(lo)} ${unit}`)
+    .max(hi, `At most ${fmt(hi)} ${unit}`);
+}
+
+/**
+ * The schema the form is checked with before saving: the shared `ProfileSchema` itself for imperial,
+ * or the same rules with speed and PAP limits converted for metric.
+ */
+export function profileFormSchema(units: Units) {
+  if (units === 'imperial') return ProfileSchema;
+  const shape = ProfileSchema.shape;
+  return ProfileSchema.extend({
+    speedMph: metricNumber(shape.speedMph, KMH_PER_MPH, 'km/h'),
+    papRightIn: metricNumber(shape.papRightIn.unwrap(), CM_PER_IN, 'cm').nullable(),
+    papUpIn: metricNumber(shape.papUpIn.unwrap(), CM_PER_IN, 'cm').nullable(),
+  });
+}
