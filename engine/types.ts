@@ -68,3 +68,168 @@ export interface OilPattern {
   name: string;
   sweeps: Sweep[];
 }
+
+// ---------------------------------------------------------------------------------------------
+// Result types of the public functions (added with the first engine layer).
+
+/** Result of scoreGame: running total after each of the ten frames, and the game's total. */
+export interface GameScore {
+  frames: number[];
+  total: number;
+}
+
+/** One broken limit found by checkLegality. */
+export interface LegalityViolation {
+  /** The BallSpec field, e.g. 'weightLb'. */
+  field: string;
+  /** The limit in words, e.g. '≤ 16 lb'. */
+  limit: string;
+  /** Where the limit comes from. */
+  source: string;
+}
+
+/** A limit checkLegality could not check, and why. */
+export interface LegalityGap {
+  field: string;
+  reason: string;
+}
+
+/** Result of checkLegality. `legal` is true when no checked limit is broken. */
+export interface LegalityResult {
+  legal: boolean;
+  violations: LegalityViolation[];
+  /** Limits that were not checked (no value given, no limit known, or a lighter ball). */
+  unchecked: LegalityGap[];
+}
+
+export type LengthClass = 'short' | 'medium' | 'long';
+export type VolumeClass = 'light' | 'medium' | 'heavy';
+export type RatioClass = 'sport' | 'challenge' | 'recreation';
+
+/** Result of analyzePattern. Lengths in ft, volumes in mL. */
+export interface PatternAnalysis {
+  lengthFt: number;
+  volumeMl: number;
+  forwardMl: number;
+  reverseMl: number;
+  ratio: number;
+  lengthClass: LengthClass;
+  volumeClass: VolumeClass;
+  ratioClass: RatioClass;
+}
+
+/** Sampling options of oilGrid. */
+export interface OilGridOptions {
+  /** Step between sampled boards, boards; default 1. */
+  boardStep?: number;
+  /** Step between sampled distances, ft; default 1. */
+  ftStep?: number;
+  /** Last sampled distance, ft; default 60 (the headpin). */
+  maxFt?: number;
+}
+
+/** Oil sampled on a grid: values[i][j] is the oil on boards[i] at ft[j], µL per board per foot. */
+export interface OilGrid {
+  boards: number[];
+  ft: number[];
+  values: number[][];
+}
+
+/** One rule of thumb's contribution to a ball's score. */
+export interface RuleResult {
+  /** Stable identifier of the rule, e.g. 'cover-vs-oil'. */
+  rule: string;
+  /** Points added to (or taken from) the ball's score. */
+  effect: number;
+  /** One sentence a bowler understands. */
+  text: string;
+  /** Where the rule comes from: a TRADE.md entry, a standard, or "common practice". */
+  source: string;
+}
+
+export type SuggestionKind = 'surface' | 'layout' | 'release' | 'line';
+
+/** Something to change, and which way. `change` holds the new values, e.g. { surfaceGrit: 3000 }. */
+export interface Suggestion {
+  kind: SuggestionKind;
+  text: string;
+  change?: Record<string, unknown>;
+}
+
+/** A ball of an arsenal: its spec plus the caller's identifier. */
+export type ArsenalBall = BallSpec & { id: string };
+
+/** Input of rankArsenal. */
+export interface RankArsenalInput {
+  balls: ArsenalBall[];
+  bowler: BowlerProfile;
+  pattern: OilPattern;
+  /** Games already bowled on the pattern (pattern breakdown); default 0. */
+  gamesBowled?: number;
+}
+
+/** One layer's opinion of a ball: a 0–100 score with its reasons and suggestions. */
+export interface LayerResult {
+  score: number;
+  reasons: RuleResult[];
+  suggestions: Suggestion[];
+}
+
+/** A ranked ball in the result of rankArsenal. */
+export interface RankedBall {
+  id: string;
+  /** 0–100, higher is a better match. */
+  score: number;
+  reasons: RuleResult[];
+  suggestions: Suggestion[];
+}
+
+/**
+ * What the rules layer knows about a matchup before looking at any ball: the pattern's numbers,
+ * how much ball the pattern and the bowler call for, and how far the pattern has broken down.
+ * All demands are 0 (least ball) … 1 (most ball).
+ */
+export interface MatchupContext {
+  bowler: BowlerProfile;
+  pattern: OilPattern;
+  analysis: PatternAnalysis;
+  gamesBowled: number;
+  /** From the pattern's volume: 0 at 15 mL or less, 1 at 30 mL or more. */
+  volumeDemand: number;
+  /** From the pattern's length: 0 at 33 ft or less, 1 at 48 ft or more. */
+  lengthDemand: number;
+  /** Combined pattern demand: 0.55 × volumeDemand + 0.45 × lengthDemand. */
+  oilDemand: number;
+  /** From the bowler's speed and rev rate: 0 = needs little ball (high revs, low speed), 1 = needs a lot. */
+  bowlerNeed: number;
+  /** 0 on a fresh pattern, rising toward 1 as games are bowled: g / (g + 6). */
+  breakdown: number;
+  /** The ball strength the matchup calls for (0–1), from oilDemand, bowlerNeed and breakdown. */
+  targetStrength: number;
+}
+
+/** A ball's properties on the rules layer's 0–1 scales. */
+export interface BallFeatures {
+  /** COVER_READ of the cover type (see ballFeatures). */
+  coverRead: number;
+  /** COVER_SURFACE_RESPONSE of the cover type. */
+  surfaceResponse: number;
+  /** surfaceSmoothness of grit and polish: 0 rough … 1 polished 4000. */
+  smoothness: number;
+  /** 1 at the lowest legal RG (2.46 in, earliest roll) … 0 at the highest (2.80 in). */
+  rgLowness: number;
+  /** Differential as a share of the legal maximum 0.060 in, 0–1. */
+  differentialShare: number;
+  /** Intermediate differential ÷ FULL_ASYMMETRY_IN, 0–1 (0 = symmetric core). */
+  asymmetry: number;
+  /** flareShare of the layout, or null when the ball has no layout. */
+  layoutShare: number | null;
+  /** Flare potential: differentialShare × (layoutShare, or 1 without a layout). */
+  flare: number;
+}
+
+/**
+ * One rule of thumb of the rules layer: a small pure function of a ball (with its features) and the
+ * matchup, returning its contribution, or null when it does not apply to this ball.
+ */
+export type MatchupRule = (ball: BallSpec, features: BallFeatures, ctx: MatchupContext) => RuleResult | null;

@@ -1,0 +1,54 @@
+import type { LayerResult, Suggestion } from './types';
+import { clamp, finite } from './internal/checks';
+
+/** One scoring layer's result for a ball and its weight in the combined score. */
+export interface WeightedLayer {
+  /** e.g. 'rules' or 'motion'. */
+  name: string;
+  /** Weight of this layer's score, > 0. */
+  weight: number;
+  result: LayerResult;
+}
+
+/**
+ * Combines the scoring layers of one ball into its final score, reasons and suggestions.
+ *
+ * Definition: score = Σ weight × score ÷ Σ weight, clamped to 0–100 and rounded to 0.1; reasons
+ * are concatenated in layer order; suggestions are concatenated with exact repeats (same kind and
+ * text) removed. With a single layer the result is that layer's.
+ * Source: Lanewright's choice (PRODUCT.md: the ranking combines the rules layer and the
+ * ball-motion model).
+ *
+ * @param layers at least one layer.
+ * @throws RangeError for no layers or a weight ≤ 0.
+ * @example
+ * combineLayers([{ name: 'rules', weight: 1, result }]).score === result.score; // => true
+ */
+export function combineLayers(layers: WeightedLayer[]): LayerResult {
+  const fn = 'combineLayers';
+  if (!Array.isArray(layers) || layers.length === 0) throw new RangeError(`${fn}: at least one layer is needed`);
+  let wSum = 0;
+  let sSum = 0;
+  for (const l of layers) {
+    const w = finite(fn, `weight of layer ${l.name}`, l.weight);
+    if (w <= 0) throw new RangeError(`${fn}: weight of layer ${l.name} must be greater than 0, got ${w}`);
+    wSum += w;
+    sSum += w * l.result.score;
+  }
+  const seen = new Set<string>();
+  const suggestions: Suggestion[] = [];
+  for (const l of layers) {
+    for (const s of l.result.suggestions) {
+      const key = `${s.kind}\u0000${s.text}`;
+      if (!seen.has(key)) {
+        seen.add(key);
+        suggestions.push(s);
+      }
+    }
+  }
+  return {
+    score: Math.round(clamp(sSum / wSum, 0, 100) * 10) / 10,
+    reasons: layers.flatMap((l) => l.result.reasons),
+    suggestions,
+  };
+}

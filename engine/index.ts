@@ -1,0 +1,57 @@
+/**
+ * Lanewright engine: the public entry. This file only re-exports; see README.md.
+ */
+export type * from './types';
+
+export { scoreGame } from './scoreGame';
+export { isSplit } from './isSplit';
+export { checkLegality, USBC_BALL_LIMITS } from './checkLegality';
+export { pinToPapAngleDeg } from './pinToPapAngleDeg';
+export { pinToPapInForAngle } from './pinToPapInForAngle';
+export { flareShare } from './flareShare';
+export { analyzePattern, RATIO_BOARDS } from './analyzePattern';
+export { oilAt } from './oilAt';
+export { oilGrid, OIL_GRID_MAX_CELLS } from './oilGrid';
+export { ruleOf31 } from './ruleOf31';
+export { lengthClass, LENGTH_CLASS_FT } from './lengthClass';
+export { volumeClass, VOLUME_CLASS_ML } from './volumeClass';
+export { ratioClass, RATIO_CLASS } from './ratioClass';
+export { validateBallSpec, COVER_TYPES } from './validateBallSpec';
+export { validateBowlerProfile, BOWLER_BOUNDS } from './validateBowlerProfile';
+export { validatePattern } from './validatePattern';
+export { surfaceSmoothness, SMOOTHNESS_SCALE } from './surfaceSmoothness';
+export { ballFeatures, COVER_READ, COVER_SURFACE_RESPONSE, FULL_ASYMMETRY_IN } from './ballFeatures';
+export { ballStrength, STRENGTH_WEIGHTS } from './ballStrength';
+export { matchupContext, DEMAND_SCALE } from './matchupContext';
+export { MATCHUP_RULES } from './matchupRules';
+export { suggestChanges, SURFACE_STEPS } from './suggestChanges';
+export { rulesLayer, RULES_BASE_SCORE } from './rulesLayer';
+export { scoreByRules } from './scoreByRules';
+export { combineLayers } from './combineLayers';
+export type { WeightedLayer } from './combineLayers';
+export { rankArsenal } from './rankArsenal';
+export {
+  BOARD_COUNT,
+  LANE_WIDTH_IN,
+  BOARD_WIDTH_IN,
+  HEADPIN_FT,
+  ARROWS_FT,
+  ARROW_BOARDS,
+  POCKET_BOARD,
+  IDEAL_ENTRY_ANGLE_DEG,
+  DEFAULT_BALL_DIAMETER_IN,
+  MICROLITERS_PER_ML,
+} from './constants';
+
+// Rules of thumb, one per file under rules/.
+export { coverVsOil, COVER_IDEAL_DEMAND, COVER_VS_OIL_POINTS } from './rules/coverVsOil';
+export { surfaceVsOil, SURFACE_VS_OIL_POINTS } from './rules/surfaceVsOil';
+export { rgVsLength, RG_VS_LENGTH_POINTS } from './rules/rgVsLength';
+export { differentialVsOil, DIFFERENTIAL_VS_OIL_POINTS } from './rules/differentialVsOil';
+export { asymmetryVsOil, ASYMMETRY_VS_OIL_POINTS } from './rules/asymmetryVsOil';
+export { layoutFlare, LAYOUT_FLARE_POINTS, targetFlareShare } from './rules/layoutFlare';
+export { flareVsRatio, FLARE_VS_RATIO_POINTS } from './rules/flareVsRatio';
+export { bowlerSpeedRevs, BOWLER_SPEED_REVS_POINTS } from './rules/bowlerSpeedRevs';
+export { patternBreakdown, PATTERN_BREAKDOWN_POINTS, BREAKDOWN_NEUTRAL_STRENGTH } from './rules/patternBreakdown';
+export { plasticSpareBall, PLASTIC_STRIKE_PENALTY } from './rules/plasticSpareBall';
+export { usbcLegality, ILLEGAL_BALL_PENALTY } from './rules/usbcLegality';
