@@ -2,6 +2,7 @@ import type { Profile } from '@shared/profile';
 import { api } from './client';
 
 export const profileApi = {
-  get: () => api.get<{ profile: Profile }>('/profile'),
-  update: (profile: Profile) => api.put<{ profile: Profile }>('/profile', profile),
+  /** `saved: false` = the bowler never saved one; `profile` then holds the typical defaults. */
+  get: () => api.get<{ profile: Profile; saved: boolean }>('/profile'),
+  update: (profile: Profile) => api.put<{ profile: Profile; saved: boolean }>('/profile', profile),
 };

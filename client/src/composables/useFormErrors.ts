@@ -86,7 +86,8 @@ export function useFormErrors<Model extends object>(model: Model): FormErrors<Ex
     }
     errors.value = next;
     const mapped = Object.keys(next).length > 0;
-    formError.value = other.length > 0 ? other.join(' ') : mapped ? '' : err.message;
+    // Nothing landed on a field: the error's own message says what went wrong.
+    formError.value = mapped ? other.join(' ') : err.message;
     return true;
   }
 
