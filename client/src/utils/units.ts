@@ -43,21 +43,26 @@ function factorFor(field: 'speed' | 'length', from: Units, to: Units): number {
   return from === 'imperial' ? k : 1 / k;
 }
 
+/** Decimals shown for PAP: eighths of an inch need three; a millimetre is one decimal of a centimetre. */
+export const LENGTH_DECIMALS: Readonly<Record<Units, number>> = { imperial: 3, metric: 1 };
+
 export function toForm(profile: Profile): ProfileForm {
   const f = (field: 'speed' | 'length') => factorFor(field, 'imperial', profile.units);
+  const d = LENGTH_DECIMALS[profile.units];
   return {
     ...profile,
-    speedMph: convert(profile.speedMph, f('speed'), 1),
-    papRightIn: convert(profile.papRightIn, f('length'), 1),
-    papUpIn: convert(profile.papUpIn, f('length'), 1),
+    speedMph: profile.units === 'imperial' ? profile.speedMph : convert(profile.speedMph, f('speed'), 1),
+    papRightIn: profile.units === 'imperial' ? profile.papRightIn : convert(profile.papRightIn, f('length'), d),
+    papUpIn: profile.units === 'imperial' ? profile.papUpIn : convert(profile.papUpIn, f('length'), d),
   };
 }
 
 /** Convert the displayed speed and PAP when the bowler switches units in the form. */
 export function switchUnits(form: ProfileForm, from: Units, to: Units): void {
+  const d = LENGTH_DECIMALS[to];
   form.speedMph = convert(form.speedMph, factorFor('speed', from, to), 1);
-  form.papRightIn = convert(form.papRightIn, factorFor('length', from, to), 1);
-  form.papUpIn = convert(form.papUpIn, factorFor('length', from, to), 1);
+  form.papRightIn = convert(form.papRightIn, factorFor('length', from, to), d);
+  form.papUpIn = convert(form.papUpIn, factorFor('length', from, to), d);
 }
 
 /** A validated form → the stored profile (trade units). */
@@ -65,9 +70,9 @@ export function fromForm(form: Profile): Profile {
   const f = (field: 'speed' | 'length') => factorFor(field, form.units, 'imperial');
   return {
     ...form,
-    speedMph: round(form.speedMph * f('speed'), 2),
-    papRightIn: convert(form.papRightIn, f('length'), 2),
-    papUpIn: convert(form.papUpIn, f('length'), 2),
+    speedMph: form.units === 'imperial' ? form.speedMph : round(form.speedMph * f('speed'), 2),
+    papRightIn: form.units === 'imperial' ? form.papRightIn : convert(form.papRightIn, f('length'), 3),
+    papUpIn: form.units === 'imperial' ? form.papUpIn : convert(form.papUpIn, f('length'), 3),
   };
 }
 
