@@ -1,6 +1,18 @@
 import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser } from 'playwright-core';
-import { DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, uniqueEmail, type Session, type Viewport } from './browser';
+import {
+  DEMO,
+  DESKTOP,
+  MOBILE,
+  hasHorizontalScroll,
+  launchBrowser,
+  openSession,
+  screenshot,
+  signIn,
+  uniqueEmail,
+  type Session,
+  type Viewport,
+} from './browser';
 
 const baseUrl = inject('baseUrl');
 let browser: Browser;
@@ -205,7 +217,10 @@ describe('client shell: roles', () => {
     await screenshot(page, 'admin-role-confirm-desktop');
     await dialog.getByRole('button', { name: 'Yes, change the role' }).click();
     await page.getByText('Lee Marchetti is now a coach.').waitFor();
-    await page.getByRole('row', { name: /Lee Marchetti/ }).getByText('Coach', { exact: true }).waitFor();
+    await page
+      .getByRole('row', { name: /Lee Marchetti/ })
+      .getByText('Coach', { exact: true })
+      .waitFor();
   });
 
   it('admin page at 375 px: the table scrolls inside its card, the page itself does not', async () => {

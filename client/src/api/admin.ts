@@ -4,7 +4,6 @@ import { api } from './client';
 export type UserListParams = Partial<UserListQuery>;
 
 export const adminApi = {
-  listUsers: (params: UserListParams, signal?: AbortSignal) =>
-    api.get<Page<User>>('/admin/users', { query: { ...params }, signal }),
+  listUsers: (params: UserListParams, signal?: AbortSignal) => api.get<Page<User>>('/admin/users', { query: { ...params }, signal }),
   changeRole: (id: number, role: Role) => api.patch<{ user: User }>(`/admin/users/${id}/role`, { role }),
 };

@@ -47,9 +47,7 @@ export interface SortChange {
  * Paging, sorting and filtering for a server-side list. Stale answers are dropped (only the latest
  * request may update rows), errors land in `error` for the page to show inline.
  */
-export function useTable<Row, Filters extends object, SortKey extends string>(
-  options: UseTableOptions<Row, Filters, SortKey>,
-) {
+export function useTable<Row, Filters extends object, SortKey extends string>(options: UseTableOptions<Row, Filters, SortKey>) {
   const rows = shallowRef<Row[]>([]) as Ref<Row[]>;
   const total = ref(0);
   const page = ref(1);

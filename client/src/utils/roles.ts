@@ -7,6 +7,13 @@ export const ROLE_LABELS: Readonly<Record<Role, string>> = {
   admin: 'Admin',
 };
 
+export const ROLE_PLURALS: Readonly<Record<Role, string>> = {
+  bowler: 'bowlers',
+  coach: 'coaches',
+  proprietor: 'proprietors',
+  admin: 'admins',
+};
+
 /** What each role can do, in a sentence (shown on Home and in the role dialog). */
 export const ROLE_SUMMARIES: Readonly<Record<Role, string>> = {
   bowler: 'Keep your release profile and, soon, your arsenal, shot logs and matchups.',
