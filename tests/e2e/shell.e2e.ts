@@ -264,6 +264,23 @@ describe('client shell: small screens', () => {
     await page.getByRole('heading', { level: 1, name: 'Sign in' }).waitFor();
   });
 
+  it('keyboard: the skip link comes first and sign-in works with the keyboard alone', async () => {
+    const { page } = await open();
+    await page.goto('/sign-in');
+    await page.getByLabel('E-mail').waitFor();
+    await page.keyboard.press('Tab');
+    expect(await page.evaluate(() => document.activeElement?.textContent?.trim())).toBe('Skip to content');
+    await page.keyboard.press('Enter');
+    await page.keyboard.press('Tab');
+    expect(await page.evaluate(() => document.activeElement?.id)).toBe(await page.getByLabel('E-mail').getAttribute('id'));
+    await page.keyboard.type(DEMO.dana);
+    await page.keyboard.press('Tab');
+    expect(await page.evaluate(() => document.activeElement?.id)).toBe(await page.getByLabel('Password').getAttribute('id'));
+    await page.keyboard.type('lanewright-demo');
+    await page.keyboard.press('Enter');
+    await page.getByRole('heading', { level: 1, name: 'Welcome, Dana' }).waitFor();
+  });
+
   it('reset password: asking for a link confirms without saying whether the account exists', async () => {
     const { page } = await open(MOBILE);
     await page.goto('/sign-in');
