@@ -1,12 +1,57 @@
 // Loads the demo data into an empty database: `tsx seeders/index.ts` (npm start runs it).
-import { sequelize, User } from '../server/models/index';
+import { summarize } from '../server/features/patterns/patterns.service';
+import { Ball, BallModel, Pattern, SurfaceEvent, sequelize, User } from '../server/models/index';
+import { DEMO_ARSENALS } from './arsenals';
+import { DEMO_CATALOGUE } from './catalogue';
+import { DEMO_PATTERNS } from './patterns';
 import { DEMO_PASSWORD, DEMO_USERS, seedUsers } from './users';
+
+const DAY_MS = 24 * 60 * 60 * 1000;
 
 /** Seeds the demo scenario when there are no users yet; returns false when the database already had data. */
 export async function seedDemo(): Promise<boolean> {
   if ((await User.count()) > 0) return false;
   await sequelize.transaction(async (transaction) => {
-    await seedUsers(transaction);
+    const users = await seedUsers(transaction);
+    const models = await BallModel.bulkCreate(DEMO_CATALOGUE.map((m) => ({ ...m, hardnessD: m.hardnessD ?? null, releaseYear: m.releaseYear ?? null })), { transaction });
+    const byName = new Map(models.map((m) => [m.name, m]));
+
+    const owner = users.get('owner@copperline.example')!;
+    for (const p of DEMO_PATTERNS) {
+      const summary = summarize(p);
+      for (const k of ['lengthClass', 'volumeClass', 'ratioClass'] as const) {
+        if (summary[k] !== p.expect[k]) throw new Error(`demo pattern ${p.name}: ${k} is ${summary[k]}, designed as ${p.expect[k]}`);
+      }
+      await Pattern.create({ ownerId: owner.id, name: p.name, description: p.description, sweeps: p.sweeps, summary }, { transaction });
+    }
+
+    const now = Date.now();
+    for (const [email, balls] of Object.entries(DEMO_ARSENALS)) {
+      const user = users.get(email)!;
+      for (const d of balls) {
+        const m = byName.get(d.model);
+        if (!m) throw new Error(`demo arsenal of ${email}: no catalogue ball ${d.model}`);
+        const grit = d.surfaceGrit ?? m.factoryGrit;
+        const polished = d.polished ?? m.factoryPolished;
+        const ball = await Ball.create(
+          {
+            ownerId: user.id, ballModelId: m.id, name: m.name, maker: m.maker, nickname: d.nickname ?? null, weightLb: d.weightLb, rg: m.rg,
+            differential: m.differential, intermediateDifferential: m.intermediateDifferential, coverType: m.coverType, coreType: m.coreType,
+            hardnessD: m.hardnessD, surfaceGrit: grit, polished, layout: d.layout, gamesSinceResurface: d.games,
+          },
+          { transaction },
+        );
+        const history = d.history ?? [[m.factoryGrit, m.factoryPolished, 90, 'Out of the box']];
+        let prev: [number, boolean] | null = null;
+        for (const [g, pol, daysAgo, note] of history) {
+          await SurfaceEvent.create(
+            { ballId: ball.id, fromGrit: prev?.[0] ?? null, fromPolished: prev?.[1] ?? null, toGrit: g, toPolished: pol, at: new Date(now - daysAgo * DAY_MS), byUserId: user.id, note },
+            { transaction },
+          );
+          prev = [g, pol];
+        }
+      }
+    }
   });
   return true;
 }

@@ -1,6 +1,7 @@
 import type { Socket } from 'node:net';
 import { createApp } from './app';
 import { config } from './config/index';
+import { closeEnginePool } from './lib/enginePool';
 import { closeMailer } from './lib/mailer';
 import { logger } from './lib/logger';
 import { sequelize } from './models/index';
@@ -32,7 +33,7 @@ async function shutdown(signal: string): Promise<void> {
   force.unref();
   server.closeIdleConnections();
   await new Promise<void>((resolve) => server.close(() => resolve()));
-  await Promise.allSettled([sequelize.close(), closeMailer()]);
+  await Promise.allSettled([sequelize.close(), closeMailer(), closeEnginePool()]);
   clearTimeout(force);
   process.exit(0);
 }

@@ -2,10 +2,13 @@ import type { NextFunction, Request, Response } from 'express';
 import type { z } from 'zod';
 import { AppError } from '../lib/AppError';
 
+type SchemaOrPicker = z.ZodType | ((input: unknown) => z.ZodType);
+
 interface Schemas {
-  params?: z.ZodType;
-  query?: z.ZodType;
-  body?: z.ZodType;
+  params?: SchemaOrPicker;
+  query?: SchemaOrPicker;
+  /** A schema, or a function choosing one from the raw body (for bodies of two kinds). */
+  body?: SchemaOrPicker;
 }
 
 /** Turns zod issues into `{ "body.email": "message" }`, first message per field. */
@@ -29,7 +32,7 @@ export function validate(schemas: Schemas) {
       const schema = schemas[part];
       if (!schema) continue;
       const input: unknown = part === 'body' && req.body === undefined ? {} : req[part];
-      const result = schema.safeParse(input);
+      const result = (typeof schema === 'function' ? schema(input) : schema).safeParse(input);
       if (result.success) {
         // Express 5 exposes req.query as a getter; define the parsed value in its place.
         Object.defineProperty(req, part, { value: result.data, writable: true, configurable: true, enumerable: true });

@@ -1,0 +1,72 @@
+import { Op, type CreationAttributes, type Transaction, type WhereOptions } from 'sequelize';
+import type { ArsenalQuery, Ball as BallDto, SurfaceEvent as SurfaceEventDto } from '../../../shared/balls';
+import { Ball, SurfaceEvent } from '../../models/index';
+import { likeText } from '../catalogue/catalogue.repository';
+
+export function toSurfaceEventDto(e: SurfaceEvent): SurfaceEventDto {
+  return { id: e.id, fromGrit: e.fromGrit, fromPolished: e.fromPolished, toGrit: e.toGrit, toPolished: e.toPolished, at: e.at.toISOString(), byUserId: e.byUserId, note: e.note };
+}
+
+export function toBallDto(b: Ball): BallDto {
+  return {
+    id: b.id,
+    ballModelId: b.ballModelId,
+    maker: b.maker,
+    name: b.name,
+    nickname: b.nickname,
+    weightLb: b.weightLb,
+    rg: b.rg,
+    differential: b.differential,
+    intermediateDifferential: b.intermediateDifferential,
+    coverType: b.coverType,
+    coreType: b.coreType,
+    hardnessD: b.hardnessD,
+    surfaceGrit: b.surfaceGrit,
+    polished: b.polished,
+    layout: b.layout,
+    gamesSinceResurface: b.gamesSinceResurface,
+    status: b.status,
+    version: b.version,
+    createdAt: b.createdAt.toISOString(),
+    updatedAt: b.updatedAt.toISOString(),
+    ...(b.surfaceEvents ? { surfaceHistory: [...b.surfaceEvents].sort((x, y) => x.at.getTime() - y.at.getTime() || x.id - y.id).map(toSurfaceEventDto) } : {}),
+  };
+}
+
+type BallCreation = CreationAttributes<Ball>;
+
+export const arsenalRepository = {
+  list(ownerId: number, q: ArsenalQuery): Promise<{ rows: Ball[]; count: number }> {
+    const where: Record<string | symbol, unknown> = { ownerId };
+    if (q.coverType) where.coverType = q.coverType;
+    if (q.status) where.status = q.status;
+    if (q.q) where[Op.or] = [{ name: { [Op.iLike]: likeText(q.q) } }, { nickname: { [Op.iLike]: likeText(q.q) } }, { maker: { [Op.iLike]: likeText(q.q) } }];
+    return Ball.findAndCountAll({
+      where: where as WhereOptions<Ball>,
+      order: [[q.sort, q.order.toUpperCase()], ['id', 'ASC']],
+      limit: q.pageSize,
+      offset: (q.page - 1) * q.pageSize,
+    });
+  },
+  /** The owner's ball, or null (also for another owner's ball, so existence never leaks). */
+  findOwned(ownerId: number, id: number, opts: { withHistory?: boolean; transaction?: Transaction; paranoid?: boolean } = {}): Promise<Ball | null> {
+    return Ball.findOne({
+      where: { id, ownerId },
+      include: opts.withHistory ? [{ model: SurfaceEvent, as: 'surfaceEvents' }] : [],
+      transaction: opts.transaction,
+      paranoid: opts.paranoid ?? true,
+    });
+  },
+  findOwnedMany(ownerId: number, ids?: number[]): Promise<Ball[]> {
+    return Ball.findAll({ where: { ownerId, ...(ids ? { id: ids } : {}) }, order: [['id', 'ASC']] });
+  },
+  create(data: BallCreation, transaction?: Transaction): Promise<Ball> {
+    return Ball.create(data, { transaction });
+  },
+  bulkCreate(rows: BallCreation[], transaction: Transaction): Promise<Ball[]> {
+    return Ball.bulkCreate(rows, { transaction });
+  },
+  addSurfaceEvent(data: CreationAttributes<SurfaceEvent>, transaction?: Transaction): Promise<SurfaceEvent> {
+    return SurfaceEvent.create(data, { transaction });
+  },
+};

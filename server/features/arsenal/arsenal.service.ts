@@ -1,0 +1,150 @@
+import type { Page } from '../../../shared/auth';
+import {
+  BallByHandSchema,
+  type ArsenalQuery,
+  type Ball as BallDto,
+  type BallCreate,
+  type BallPatch,
+  type SurfaceChange,
+} from '../../../shared/balls';
+import { AppError } from '../../lib/AppError';
+import { cell, parseCsvRows } from '../../lib/upload';
+import { sequelize } from '../../models/index';
+import { catalogueRepository } from '../catalogue/catalogue.repository';
+import { arsenalRepository, toBallDto } from './arsenal.repository';
+
+/** Lanewright's arsenal CSV columns (header row required; order free). */
+export const ARSENAL_CSV_COLUMNS = [
+  'name', 'maker', 'nickname', 'weightLb', 'coverType', 'coreType', 'rg', 'differential', 'intermediateDifferential',
+  'hardnessD', 'surfaceGrit', 'polished', 'pinToPapIn', 'drillingAngleDeg', 'valAngleDeg', 'gamesSinceResurface',
+] as const;
+
+const notFound = () => AppError.notFound('Ball');
+
+export const arsenalService = {
+  async list(ownerId: number, q: ArsenalQuery): Promise<Page<BallDto>> {
+    const { rows, count } = await arsenalRepository.list(ownerId, q);
+    return { items: rows.map(toBallDto), total: count, page: q.page, pageSize: q.pageSize };
+  },
+
+  async get(ownerId: number, id: number): Promise<BallDto> {
+    const b = await arsenalRepository.findOwned(ownerId, id, { withHistory: true });
+    if (!b) throw notFound();
+    return toBallDto(b);
+  },
+
+  /** Adds a ball from the catalogue (its specs copied, factory surface unless given) or from hand-entered specs; the first surface event records the starting surface. */
+  async create(ownerId: number, input: BallCreate): Promise<BallDto> {
+    return sequelize.transaction(async (transaction) => {
+      let data: Parameters<typeof arsenalRepository.create>[0];
+      if ('ballModelId' in input) {
+        const m = await catalogueRepository.findById(input.ballModelId, transaction);
+        if (!m) throw new AppError(400, 'validation_failed', 'That catalogue ball does not exist', { 'body.ballModelId': 'Unknown catalogue ball' });
+        data = {
+          ownerId, ballModelId: m.id, name: m.name, maker: m.maker, nickname: input.nickname ?? null, weightLb: input.weightLb,
+          rg: m.rg, differential: m.differential, intermediateDifferential: m.intermediateDifferential, coverType: m.coverType, coreType: m.coreType,
+          hardnessD: m.hardnessD, surfaceGrit: input.surfaceGrit ?? m.factoryGrit, polished: input.polished ?? m.factoryPolished,
+          layout: input.layout ?? null, gamesSinceResurface: input.gamesSinceResurface, status: input.status,
+        };
+      } else {
+        data = {
+          ownerId, ballModelId: null, name: input.name, maker: null, nickname: input.nickname ?? null, weightLb: input.weightLb,
+          rg: input.rg, differential: input.differential, intermediateDifferential: input.intermediateDifferential, coverType: input.coverType,
+          coreType: input.coreType, hardnessD: input.hardnessD ?? null, surfaceGrit: input.surfaceGrit, polished: input.polished,
+          layout: input.layout ?? null, gamesSinceResurface: input.gamesSinceResurface, status: input.status,
+        };
+      }
+      const ball = await arsenalRepository.create(data, transaction);
+      await arsenalRepository.addSurfaceEvent(
+        { ballId: ball.id, fromGrit: null, fromPolished: null, toGrit: ball.surfaceGrit, toPolished: ball.polished, at: new Date(), byUserId: ownerId, note: 'Added to the arsenal' },
+        transaction,
+      );
+      return toBallDto(ball);
+    });
+  },
+
+  /** Edits a ball; `version` must be the one the editor read (else 409 stale_version). */
+  async update(ownerId: number, id: number, patch: BallPatch): Promise<BallDto> {
+    return sequelize.transaction(async (transaction) => {
+      const b = await arsenalRepository.findOwned(ownerId, id, { transaction });
+      if (!b) throw notFound();
+      if (b.version !== patch.version) throw AppError.conflict('stale_version', 'This ball was changed elsewhere; reload it and apply your edit again');
+      const { version: _v, ...fields } = patch;
+      b.set({ ...fields, layout: fields.layout === undefined ? b.layout : fields.layout });
+      await b.save({ transaction });
+      return toBallDto(b);
+    });
+  },
+
+  /** Soft delete: the ball leaves the arsenal and can be restored. */
+  async remove(ownerId: number, id: number): Promise<void> {
+    const b = await arsenalRepository.findOwned(ownerId, id);
+    if (!b) throw notFound();
+    await b.destroy();
+  },
+
+  async restore(ownerId: number, id: number): Promise<BallDto> {
+    const b = await arsenalRepository.findOwned(ownerId, id, { paranoid: false });
+    if (!b) throw notFound();
+    if (b.deletedAt) await b.restore();
+    return toBallDto(b);
+  },
+
+  /** A new surface (grit and polish): records a surface event and resets games since resurface. */
+  async changeSurface(ownerId: number, actorId: number, id: number, change: SurfaceChange): Promise<BallDto> {
+    return sequelize.transaction(async (transaction) => {
+      const b = await arsenalRepository.findOwned(ownerId, id, { transaction });
+      if (!b) throw notFound();
+      await arsenalRepository.addSurfaceEvent(
+        { ballId: b.id, fromGrit: b.surfaceGrit, fromPolished: b.polished, toGrit: change.surfaceGrit, toPolished: change.polished, at: change.at ? new Date(change.at) : new Date(), byUserId: actorId, note: change.note ?? null },
+        transaction,
+      );
+      b.set({ surfaceGrit: change.surfaceGrit, polished: change.polished, gamesSinceResurface: 0 });
+      await b.save({ transaction });
+      const withHistory = await arsenalRepository.findOwned(ownerId, id, { withHistory: true, transaction });
+      return toBallDto(withHistory!);
+    });
+  },
+
+  /** Imports hand-entered balls from CSV: all rows or none, errors by line. */
+  async importCsv(ownerId: number, buf: Buffer): Promise<{ imported: number; items: BallDto[] }> {
+    const rows = parseCsvRows(buf, BallByHandSchema, (r) => {
+      const pin = cell.num(r.pinToPapIn);
+      return {
+        name: cell.str(r.name),
+        nickname: cell.str(r.nickname) ?? null,
+        weightLb: cell.num(r.weightLb),
+        coverType: cell.str(r.coverType),
+        coreType: cell.str(r.coreType) ?? (Number(r.intermediateDifferential || 0) > 0 ? 'asymmetric' : 'symmetric'),
+        rg: cell.num(r.rg),
+        differential: cell.num(r.differential),
+        intermediateDifferential: cell.num(r.intermediateDifferential) ?? 0,
+        hardnessD: cell.num(r.hardnessD) ?? null,
+        surfaceGrit: cell.num(r.surfaceGrit),
+        polished: cell.bool(r.polished) ?? false,
+        layout: pin === undefined ? null : { pinToPapIn: pin, drillingAngleDeg: cell.num(r.drillingAngleDeg) ?? null, valAngleDeg: cell.num(r.valAngleDeg) ?? null },
+        gamesSinceResurface: cell.num(r.gamesSinceResurface) ?? 0,
+      };
+    }, 200);
+    return sequelize.transaction(async (transaction) => {
+      const items: BallDto[] = [];
+      for (const input of rows) {
+        const ball = await arsenalRepository.create(
+          {
+            ownerId, ballModelId: null, name: input.name, maker: null, nickname: input.nickname ?? null, weightLb: input.weightLb, rg: input.rg,
+            differential: input.differential, intermediateDifferential: input.intermediateDifferential, coverType: input.coverType, coreType: input.coreType,
+            hardnessD: input.hardnessD ?? null, surfaceGrit: input.surfaceGrit, polished: input.polished, layout: input.layout ?? null,
+            gamesSinceResurface: input.gamesSinceResurface, status: input.status,
+          },
+          transaction,
+        );
+        await arsenalRepository.addSurfaceEvent(
+          { ballId: ball.id, fromGrit: null, fromPolished: null, toGrit: ball.surfaceGrit, toPolished: ball.polished, at: new Date(), byUserId: ownerId, note: 'Imported from CSV' },
+          transaction,
+        );
+        items.push(toBallDto(ball));
+      }
+      return { imported: items.length, items };
+    });
+  },
+};

@@ -1,0 +1,101 @@
+import { z } from 'zod';
+import { LoginSchema, RegisterSchema, ForgotSchema, ResetSchema, IdParamSchema, RoleChangeSchema, UserListQuerySchema, PageQuerySchema } from '../../../shared/auth';
+import { ProfileUpdateSchema } from '../../../shared/profile';
+import { ArsenalQuerySchema, BallCreateSchema, BallModelInputSchema, BallModelPatchSchema, BallPatchSchema, CatalogueQuerySchema, SurfaceChangeSchema } from '../../../shared/balls';
+import { PatternInputSchema, PatternPatchSchema, PatternQuerySchema } from '../../../shared/patterns';
+import { MatchupRequestSchema } from '../../../shared/matchups';
+
+type Who = 'public' | 'signed-in' | 'coach, proprietor, admin' | 'admin';
+
+interface RouteDoc {
+  method: 'get' | 'post' | 'put' | 'patch' | 'delete';
+  path: string;
+  summary: string;
+  who: Who;
+  params?: z.ZodObject;
+  query?: z.ZodObject;
+  body?: z.ZodType;
+  upload?: boolean;
+}
+
+/** Every documented route, with the zod schemas that validate it (the single source of truth). */
+export const ROUTES: RouteDoc[] = [
+  { method: 'get', path: '/api/health', summary: 'Liveness and database reachability', who: 'public' },
+  { method: 'post', path: '/api/auth/register', summary: 'Create a bowler account', who: 'public', body: RegisterSchema },
+  { method: 'post', path: '/api/auth/login', summary: 'Sign in: a bearer token and the user', who: 'public', body: LoginSchema },
+  { method: 'get', path: '/api/auth/me', summary: 'The signed-in user with their role', who: 'signed-in' },
+  { method: 'post', path: '/api/auth/forgot', summary: 'Mail a password-reset link (answers the same for unknown e-mails)', who: 'public', body: ForgotSchema },
+  { method: 'post', path: '/api/auth/reset', summary: 'Set a new password from a reset token', who: 'public', body: ResetSchema },
+  { method: 'get', path: '/api/profile', summary: 'The bowler profile (typical values when never saved)', who: 'signed-in' },
+  { method: 'put', path: '/api/profile', summary: 'Save bowler parameters (any subset)', who: 'signed-in', body: ProfileUpdateSchema },
+  { method: 'get', path: '/api/admin/users', summary: 'Users, paged, searchable, filterable by role', who: 'admin', query: UserListQuerySchema },
+  { method: 'patch', path: '/api/admin/users/{id}/role', summary: 'Grant a role (audited)', who: 'admin', params: IdParamSchema, body: RoleChangeSchema },
+  { method: 'get', path: '/api/admin/audit', summary: 'The audit log, newest first', who: 'admin', query: PageQuerySchema },
+  { method: 'get', path: '/api/catalogue', summary: 'The shared ball catalogue, searchable and filterable', who: 'signed-in', query: CatalogueQuerySchema },
+  { method: 'get', path: '/api/catalogue/{id}', summary: 'One catalogue ball', who: 'signed-in', params: IdParamSchema },
+  { method: 'post', path: '/api/catalogue', summary: 'Add a catalogue ball', who: 'admin', body: BallModelInputSchema },
+  { method: 'patch', path: '/api/catalogue/{id}', summary: 'Edit a catalogue ball (version required)', who: 'admin', params: IdParamSchema, body: BallModelPatchSchema },
+  { method: 'post', path: '/api/catalogue/import', summary: 'Import catalogue balls from CSV (all rows or none)', who: 'admin', upload: true },
+  { method: 'get', path: '/api/arsenal', summary: 'Your balls', who: 'signed-in', query: ArsenalQuerySchema },
+  { method: 'post', path: '/api/arsenal', summary: 'Add a ball from the catalogue or by hand', who: 'signed-in', body: BallCreateSchema },
+  { method: 'get', path: '/api/arsenal/{id}', summary: 'One of your balls with its surface history', who: 'signed-in', params: IdParamSchema },
+  { method: 'patch', path: '/api/arsenal/{id}', summary: 'Edit a ball (stale version → 409)', who: 'signed-in', params: IdParamSchema, body: BallPatchSchema },
+  { method: 'delete', path: '/api/arsenal/{id}', summary: 'Remove a ball (restorable)', who: 'signed-in', params: IdParamSchema },
+  { method: 'post', path: '/api/arsenal/{id}/restore', summary: 'Undo a removal', who: 'signed-in', params: IdParamSchema },
+  { method: 'post', path: '/api/arsenal/{id}/surface', summary: 'Record a new surface; resets games since resurface', who: 'signed-in', params: IdParamSchema, body: SurfaceChangeSchema },
+  { method: 'post', path: '/api/arsenal/import', summary: 'Import hand-entered balls from CSV (all rows or none)', who: 'signed-in', upload: true },
+  { method: 'get', path: '/api/patterns', summary: 'Oil patterns with their computed summary', who: 'signed-in', query: PatternQuerySchema },
+  { method: 'get', path: '/api/patterns/{id}', summary: 'A pattern: sweeps, summary and oil grid', who: 'signed-in', params: IdParamSchema },
+  { method: 'post', path: '/api/patterns', summary: 'Create a pattern', who: 'coach, proprietor, admin', body: PatternInputSchema },
+  { method: 'patch', path: '/api/patterns/{id}', summary: 'Edit your pattern (version required)', who: 'coach, proprietor, admin', params: IdParamSchema, body: PatternPatchSchema },
+  { method: 'delete', path: '/api/patterns/{id}', summary: 'Delete your pattern', who: 'coach, proprietor, admin', params: IdParamSchema },
+  { method: 'post', path: '/api/matchups', summary: 'Rank your arsenal for a pattern', who: 'signed-in', body: MatchupRequestSchema },
+];
+
+const ErrorSchema = {
+  type: 'object',
+  required: ['error'],
+  properties: {
+    error: {
+      type: 'object',
+      required: ['code', 'message'],
+      properties: { code: { type: 'string' }, message: { type: 'string' }, fields: { type: 'object', additionalProperties: { type: 'string' } } },
+    },
+  },
+};
+
+const json = (s: z.ZodType) => z.toJSONSchema(s, { io: 'input', unrepresentable: 'any' });
+
+/** The OpenAPI 3.1 document, generated from the zod schemas. */
+export function openApiDocument(): Record<string, unknown> {
+  const paths: Record<string, Record<string, unknown>> = {};
+  for (const r of ROUTES) {
+    const parameters: unknown[] = [];
+    for (const [where, schema] of [['path', r.params], ['query', r.query]] as const) {
+      if (!schema) continue;
+      const js = json(schema) as { properties?: Record<string, unknown>; required?: string[] };
+      for (const [name, s] of Object.entries(js.properties ?? {})) parameters.push({ name, in: where, required: where === 'path' || (js.required ?? []).includes(name), schema: s });
+    }
+    const op: Record<string, unknown> = {
+      summary: r.summary,
+      description: `Who: ${r.who}.`,
+      ...(r.who === 'public' ? {} : { security: [{ bearer: [] }] }),
+      ...(parameters.length ? { parameters } : {}),
+      responses: {
+        '200': { description: 'OK' },
+        '400': { description: 'Invalid input, every bad field listed', content: { 'application/json': { schema: ErrorSchema } } },
+        ...(r.who === 'public' ? {} : { '401': { description: 'Not signed in' }, '403': { description: 'Role not allowed' } }),
+      },
+    };
+    if (r.body) op.requestBody = { required: true, content: { 'application/json': { schema: json(r.body) } } };
+    if (r.upload)
+      op.requestBody = { required: true, content: { 'multipart/form-data': { schema: { type: 'object', properties: { file: { type: 'string', format: 'binary' } }, required: ['file'] } } } };
+    (paths[r.path] ??= {})[r.method] = op;
+  }
+  return {
+    openapi: '3.1.0',
+    info: { title: 'Lanewright API', version: '0.1.0', description: 'Lane-condition and ball-matchup advice. Errors: { error: { code, message, fields? } }.' },
+    components: { securitySchemes: { bearer: { type: 'http', scheme: 'bearer', bearerFormat: 'JWT' } }, schemas: { Error: ErrorSchema } },
+    paths,
+  };
+}

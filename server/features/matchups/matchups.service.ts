@@ -1,0 +1,71 @@
+import type { BowlerProfile, RankedBall } from '../../../engine/types';
+import { ballToSpec, type Ball as BallDto } from '../../../shared/balls';
+import type { MatchupRequest } from '../../../shared/matchups';
+import type { PatternSummary } from '../../../shared/patterns';
+import { AppError } from '../../lib/AppError';
+import { rankInWorker } from '../../lib/enginePool';
+import type { AuthUser } from '../../middleware/auth';
+import { arsenalRepository, toBallDto } from '../arsenal/arsenal.repository';
+import { patternsService } from '../patterns/patterns.service';
+import { profileService } from '../profile/profile.service';
+
+export interface MatchupRanking extends RankedBall {
+  ballId: number;
+  ball: Pick<BallDto, 'id' | 'name' | 'nickname' | 'maker' | 'coverType' | 'coreType' | 'rg' | 'differential' | 'intermediateDifferential' | 'surfaceGrit' | 'polished' | 'layout' | 'weightLb'>;
+}
+
+export interface MatchupResult {
+  pattern: { id: number; name: string; summary: PatternSummary };
+  bowler: BowlerProfile;
+  gamesBowled: number;
+  rankings: MatchupRanking[];
+}
+
+export const matchupsService = {
+  /** Ranks the bowler's active balls (or the chosen ones) for a pattern with the engine, in a worker thread. */
+  async run(user: AuthUser, req: MatchupRequest): Promise<MatchupResult> {
+    if (req.studentId !== undefined && req.studentId !== user.id) {
+      // Coaching links arrive with the coaching feature; until then no other bowler's arsenal is reachable.
+      throw AppError.notFound('Student');
+    }
+    const { id, name, pattern, summary } = await patternsService.engineInput(req.patternId);
+    const { profile } = await profileService.get(user.id);
+    const bowler: BowlerProfile = {
+      hand: profile.hand,
+      speedMph: profile.speedMph,
+      revRpm: profile.revRpm,
+      axisRotationDeg: profile.axisRotationDeg,
+      axisTiltDeg: profile.axisTiltDeg,
+      ...(profile.papRightIn != null ? { papRightIn: profile.papRightIn } : {}),
+      ...(profile.papUpIn != null ? { papUpIn: profile.papUpIn } : {}),
+    };
+    const rows = await arsenalRepository.findOwnedMany(user.id, req.ballIds);
+    if (req.ballIds && rows.length !== new Set(req.ballIds).size) throw AppError.notFound('Ball');
+    const balls = rows.filter((b) => req.ballIds || b.status === 'active').map(toBallDto);
+    const byId = new Map(balls.map((b) => [String(b.id), b]));
+    let ranked: RankedBall[] = [];
+    try {
+      if (balls.length) ranked = await rankInWorker({ balls: balls.map((b) => ({ id: String(b.id), ...ballToSpec(b) })), bowler, pattern, gamesBowled: req.gamesBowled });
+    } catch (err) {
+      // The engine refuses input outside its documented ranges with RangeError/TypeError naming the value.
+      if (err instanceof Error && (err.name === 'RangeError' || err.name === 'TypeError') && /^[a-zA-Z]+: /.test(err.message)) throw new AppError(422, 'engine_rejected', err.message);
+      throw err;
+    }
+    return {
+      pattern: { id, name, summary },
+      bowler,
+      gamesBowled: req.gamesBowled,
+      rankings: ranked.map((r) => {
+        const b = byId.get(r.id)!;
+        return {
+          ...r,
+          ballId: b.id,
+          ball: {
+            id: b.id, name: b.name, nickname: b.nickname, maker: b.maker, coverType: b.coverType, coreType: b.coreType, rg: b.rg, differential: b.differential,
+            intermediateDifferential: b.intermediateDifferential, surfaceGrit: b.surfaceGrit, polished: b.polished, layout: b.layout, weightLb: b.weightLb,
+          },
+        };
+      }),
+    };
+  },
+};

@@ -1,0 +1,40 @@
+import { cpus } from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { Piscina } from 'piscina';
+import type { RankArsenalInput, RankedBall } from '../../engine/types';
+import { config } from '../config/index';
+import { logger } from './logger';
+
+const here = path.dirname(fileURLToPath(import.meta.url));
+const workerFile = path.join(here, 'engineWorker.mjs');
+
+/**
+ * Heavy engine work (ranking with the ball-motion model) runs in worker threads so a request never
+ * holds the event loop. engineWorker.mjs loads the TypeScript worker through tsx inside the thread.
+ */
+let pool: Piscina | null = null;
+
+function getPool(): Piscina {
+  pool ??= new Piscina({
+    filename: workerFile,
+    minThreads: 1,
+    maxThreads: Math.max(1, Math.min(config.ENGINE_WORKERS || cpus().length, 8)),
+    idleTimeout: 60000,
+  });
+  pool.on('error', (err: unknown) => logger.error({ err }, 'engine worker failed'));
+  return pool;
+}
+
+/** rankArsenal in a worker thread. */
+export function rankInWorker(input: RankArsenalInput): Promise<RankedBall[]> {
+  return getPool().run(input, { name: 'rank' }) as Promise<RankedBall[]>;
+}
+
+export async function closeEnginePool(): Promise<void> {
+  if (pool) {
+    const p = pool;
+    pool = null;
+    await p.destroy();
+  }
+}

@@ -1,0 +1,183 @@
+import { z } from 'zod';
+import type { BallSpec, CoverType } from '../engine/types';
+import { PageQuerySchema } from './auth';
+
+export const COVER_TYPES = ['plastic', 'urethane', 'reactive-pearl', 'reactive-hybrid', 'reactive-solid'] as const satisfies readonly CoverType[];
+export const CoverTypeSchema = z.enum(COVER_TYPES, { error: 'Choose a cover type' });
+export const CORE_TYPES = ['symmetric', 'asymmetric'] as const;
+export const CoreTypeSchema = z.enum(CORE_TYPES, { error: 'Choose symmetric or asymmetric' });
+export const BALL_STATUSES = ['active', 'retired', 'in-shop'] as const;
+
+const num = (label: string) => z.number({ error: `${label} must be a number` });
+
+/**
+ * Field ranges the forms accept. They are wider than the legal limits (TRADE.md 1.1) on purpose:
+ * an illegal ball can be kept in an arsenal and is flagged by the engine's legality check.
+ */
+export const CoreSpecSchema = z.object({
+  rg: num('RG').min(2.3, 'RG below 2.300 in is not a real ball').max(2.9, 'RG above 2.900 in is not a real ball'),
+  differential: num('Differential').min(0, 'At least 0').max(0.1, 'At most 0.100 in'),
+  intermediateDifferential: num('Intermediate differential').min(0, 'At least 0').max(0.05, 'At most 0.050 in'),
+  coverType: CoverTypeSchema,
+  hardnessD: num('Hardness').min(50, 'At least 50 D').max(100, 'At most 100 D').nullable().optional(),
+});
+
+export const SurfaceSchema = z.object({
+  surfaceGrit: num('Grit').int('Whole grit').min(100, 'At least 100 grit').max(10000, 'At most 10000 grit'),
+  polished: z.boolean({ error: 'Polished is yes or no' }),
+});
+export type Surface = z.infer<typeof SurfaceSchema>;
+
+export const LayoutSchema = z.object({
+  pinToPapIn: num('Pin-to-PAP').min(0, 'At least 0 in').max(6.7, 'At most 6.7 in (half the circumference)'),
+  drillingAngleDeg: num('Drilling angle').min(0).max(180).nullable().optional(),
+  valAngleDeg: num('VAL angle').min(0).max(180).nullable().optional(),
+});
+export type Layout = z.infer<typeof LayoutSchema>;
+
+// ---- catalogue -------------------------------------------------------------------------------------
+
+export const BallModelInputSchema = CoreSpecSchema.extend({
+  maker: z.string().trim().min(1, 'Maker is required').max(60),
+  name: z.string().trim().min(1, 'Name is required').max(80),
+  coreType: CoreTypeSchema,
+  factoryGrit: num('Factory grit').int().min(100).max(10000),
+  factoryPolished: z.boolean(),
+  releaseYear: num('Release year').int().min(1950).max(2100).nullable().optional(),
+});
+export type BallModelInput = z.infer<typeof BallModelInputSchema>;
+export const BallModelPatchSchema = BallModelInputSchema.partial().extend({ version: z.number().int().min(0) });
+
+export interface BallModel extends BallModelInput {
+  id: number;
+  hardnessD: number | null;
+  releaseYear: number | null;
+  version: number;
+}
+
+const rangeNum = z.coerce.number({ error: 'Must be a number' }).finite();
+export const CatalogueQuerySchema = PageQuerySchema.extend({
+  q: z.string().trim().max(100).optional(),
+  coverType: CoverTypeSchema.optional(),
+  coreType: CoreTypeSchema.optional(),
+  rgMin: rangeNum.optional(),
+  rgMax: rangeNum.optional(),
+  diffMin: rangeNum.optional(),
+  diffMax: rangeNum.optional(),
+  sort: z.enum(['maker', 'name', 'rg', 'differential', 'releaseYear', 'coverType']).default('maker'),
+  order: z.enum(['asc', 'desc']).default('asc'),
+});
+export type CatalogueQuery = z.infer<typeof CatalogueQuerySchema>;
+
+// ---- arsenal ---------------------------------------------------------------------------------------
+
+const ballBase = {
+  nickname: z.string().trim().max(60, 'At most 60 characters').nullable().optional(),
+  weightLb: num('Weight').min(6, 'At least 6 lb').max(16.5, 'At most 16.5 lb'),
+  layout: LayoutSchema.nullable().optional(),
+  gamesSinceResurface: num('Games').int().min(0).max(100000).default(0),
+  status: z.enum(BALL_STATUSES).default('active'),
+};
+
+/** A ball added from the catalogue: specs copied from the model; surface defaults to the factory finish. */
+export const BallFromModelSchema = z
+  .object({ ballModelId: z.number({ error: 'Choose a catalogue ball' }).int().positive(), ...ballBase, surfaceGrit: SurfaceSchema.shape.surfaceGrit.optional(), polished: z.boolean().optional() })
+  .strict();
+/** A ball entered by hand. */
+export const BallByHandSchema = CoreSpecSchema.extend({ name: z.string().trim().min(1, 'Name is required').max(80), coreType: CoreTypeSchema, ...ballBase, ...SurfaceSchema.shape }).strict();
+
+/** Either kind of new ball; a body with `ballModelId` is checked as a catalogue ball, any other as hand-entered (so field errors are specific). */
+export const BallCreateSchema = z.union([BallFromModelSchema, BallByHandSchema]);
+/** Picks the schema that reports field errors for this body. */
+export function ballCreateSchemaFor(body: unknown): typeof BallFromModelSchema | typeof BallByHandSchema {
+  return typeof body === 'object' && body !== null && 'ballModelId' in body ? BallFromModelSchema : BallByHandSchema;
+}
+export type BallCreate = z.infer<typeof BallCreateSchema>;
+
+export const BallPatchSchema = z
+  .object({
+    version: z.number({ error: 'The version you edited is required' }).int().min(0),
+    nickname: ballBase.nickname,
+    weightLb: ballBase.weightLb.optional(),
+    layout: ballBase.layout,
+    gamesSinceResurface: num('Games').int().min(0).max(100000).optional(),
+    status: z.enum(BALL_STATUSES).optional(),
+    name: z.string().trim().min(1).max(80).optional(),
+  })
+  .extend(CoreSpecSchema.partial().shape)
+  .strict();
+export type BallPatch = z.infer<typeof BallPatchSchema>;
+
+export const SurfaceChangeSchema = SurfaceSchema.extend({
+  note: z.string().trim().max(500).nullable().optional(),
+  at: z.iso.datetime({ error: 'Use an ISO date-time' }).optional(),
+}).strict();
+export type SurfaceChange = z.infer<typeof SurfaceChangeSchema>;
+
+export const ArsenalQuerySchema = PageQuerySchema.extend({
+  q: z.string().trim().max(100).optional(),
+  coverType: CoverTypeSchema.optional(),
+  status: z.enum(BALL_STATUSES).optional(),
+  sort: z.enum(['name', 'coverType', 'rg', 'differential', 'surfaceGrit', 'gamesSinceResurface', 'createdAt']).default('createdAt'),
+  order: z.enum(['asc', 'desc']).default('asc'),
+  pageSize: z.coerce.number().int().min(1).max(100).default(50),
+});
+export type ArsenalQuery = z.infer<typeof ArsenalQuerySchema>;
+
+export interface SurfaceEvent {
+  id: number;
+  fromGrit: number | null;
+  fromPolished: boolean | null;
+  toGrit: number;
+  toPolished: boolean;
+  at: string;
+  byUserId: number | null;
+  note: string | null;
+}
+
+export interface Ball {
+  id: number;
+  ballModelId: number | null;
+  maker: string | null;
+  name: string;
+  nickname: string | null;
+  weightLb: number;
+  rg: number;
+  differential: number;
+  intermediateDifferential: number;
+  coverType: CoverType;
+  coreType: 'symmetric' | 'asymmetric';
+  hardnessD: number | null;
+  surfaceGrit: number;
+  polished: boolean;
+  layout: Layout | null;
+  gamesSinceResurface: number;
+  status: (typeof BALL_STATUSES)[number];
+  version: number;
+  createdAt: string;
+  updatedAt: string;
+  surfaceHistory?: SurfaceEvent[];
+}
+
+/** The engine's view of a stored ball. */
+export function ballToSpec(b: Pick<Ball, 'weightLb' | 'rg' | 'differential' | 'intermediateDifferential' | 'coverType' | 'surfaceGrit' | 'polished' | 'hardnessD' | 'layout'>): BallSpec {
+  return {
+    weightLb: b.weightLb,
+    rg: b.rg,
+    differential: b.differential,
+    intermediateDifferential: b.intermediateDifferential,
+    coverType: b.coverType,
+    surfaceGrit: b.surfaceGrit,
+    polished: b.polished,
+    ...(b.hardnessD != null ? { hardnessD: b.hardnessD } : {}),
+    ...(b.layout
+      ? {
+          layout: {
+            pinToPapIn: b.layout.pinToPapIn,
+            ...(b.layout.drillingAngleDeg != null ? { drillingAngleDeg: b.layout.drillingAngleDeg } : {}),
+            ...(b.layout.valAngleDeg != null ? { valAngleDeg: b.layout.valAngleDeg } : {}),
+          },
+        }
+      : {}),
+  };
+}

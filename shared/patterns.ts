@@ -1,0 +1,64 @@
+import { z } from 'zod';
+import type { Sweep } from '../engine/types';
+import { PageQuerySchema } from './auth';
+
+/** One sweep as the pattern editor and the API accept it (boards 1–39, 0 ≤ startFt < endFt ≤ 70). */
+export const SweepSchema = z
+  .object({
+    direction: z.enum(['forward', 'reverse'], { error: 'Forward or reverse' }),
+    fromBoard: z.number({ error: 'Board must be a number' }).int('Whole board').min(1, 'Board 1 to 39').max(39, 'Board 1 to 39'),
+    toBoard: z.number({ error: 'Board must be a number' }).int('Whole board').min(1, 'Board 1 to 39').max(39, 'Board 1 to 39'),
+    startFt: z.number({ error: 'Must be a number' }).min(0, 'At least 0 ft').max(70, 'At most 70 ft'),
+    endFt: z.number({ error: 'Must be a number' }).min(0, 'At least 0 ft').max(70, 'At most 70 ft'),
+    crossings: z.number({ error: 'Must be a number' }).int('Whole crossings').min(1, 'At least 1').max(50, 'At most 50'),
+    microlitersPerBoard: z.number({ error: 'Must be a number' }).min(1, 'At least 1 µL').max(200, 'At most 200 µL per board'),
+  })
+  .strict()
+  .refine((s) => s.endFt > s.startFt, { path: ['endFt'], message: 'End must be after start' }) satisfies z.ZodType<Sweep>;
+
+export const PatternInputSchema = z
+  .object({
+    name: z.string().trim().min(1, 'Name is required').max(80),
+    description: z.string().trim().max(1000).nullable().optional(),
+    sweeps: z.array(SweepSchema).min(1, 'At least one sweep').max(200, 'At most 200 sweeps'),
+  })
+  .strict();
+export type PatternInput = z.infer<typeof PatternInputSchema>;
+export const PatternPatchSchema = PatternInputSchema.partial().extend({ version: z.number().int().min(0) }).strict();
+
+export const PatternQuerySchema = PageQuerySchema.extend({
+  q: z.string().trim().max(100).optional(),
+  lengthClass: z.enum(['short', 'medium', 'long']).optional(),
+  volumeClass: z.enum(['light', 'medium', 'heavy']).optional(),
+  ratioClass: z.enum(['sport', 'challenge', 'recreation']).optional(),
+  sort: z.enum(['name', 'createdAt', 'lengthFt', 'volumeMl']).default('name'),
+  order: z.enum(['asc', 'desc']).default('asc'),
+});
+export type PatternQuery = z.infer<typeof PatternQuerySchema>;
+
+export interface PatternSummary {
+  lengthFt: number;
+  volumeMl: number;
+  forwardMl: number;
+  reverseMl: number;
+  /** null when no oil reaches the outside boards (an unbounded ratio). */
+  ratio: number | null;
+  lengthClass: 'short' | 'medium' | 'long';
+  volumeClass: 'light' | 'medium' | 'heavy';
+  ratioClass: 'sport' | 'challenge' | 'recreation';
+}
+
+export interface PatternListItem {
+  id: number;
+  name: string;
+  description: string | null;
+  ownerId: number | null;
+  summary: PatternSummary;
+  version: number;
+  createdAt: string;
+}
+
+export interface PatternDetail extends PatternListItem {
+  sweeps: Sweep[];
+  grid: { boards: number[]; ft: number[]; values: number[][] };
+}
