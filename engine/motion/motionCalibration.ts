@@ -23,8 +23,14 @@ export interface CoverCalibration {
  */
 export const MOTION_CALIBRATION = Object.freeze({
   // ── Friction (PHYSICS.md §2.1, §5.1, §5.2) ───────────────────────────────────────────────
-  /** Sliding coefficient on a fully oiled lane. Source: PHYSICS.md §2.1 / TRADE.md §6.1 (attributed to Frohlich 2004, unverified, M). */
-  muOil: 0.04,
+  /**
+   * Sliding coefficient on a fully oiled lane. Anchor: ≈ 0.04, plausible range 0.01–0.06 (PHYSICS.md §2.1 /
+   * TRADE.md §6.1, attributed to Frohlich 2004, unverified, M); the viscous estimate of PHYSICS.md §5.1
+   * gives ≈ 0.02 (D). Calibrated to 0.025, inside that range: at 0.04 the pocket lines the solver finds for
+   * typical strokers on flat 40–44 ft patterns sit on boards 3–5 at the arrows, far outside where the
+   * trade plays them (second arrow, TRADE.md §7.1), because the ball already hooks in the oil.
+   */
+  muOil: 0.025,
   /** Sliding coefficient on a dry lane. Source: as muOil (M); bounded above by the USBC 0.32 limit (S, PHYSICS.md §2.5). */
   muDry: 0.2,
   /** Largest coefficient any cover may reach (USBC ball CoF limit, PHYSICS.md §2.5, S). */
@@ -82,7 +88,7 @@ export const MOTION_CALIBRATION = Object.freeze({
   /** First-ball (strike-line) deliveries per bowler per game (assumption: 10 frames, spares on other lines ignored). */
   strikeShotsPerBowlerPerGame: 10,
   /** Fraction of the oil under the track that one passing ball picks up (κ_pick, assumption). */
-  pickupFraction: 0.05,
+  pickupFraction: 0.02,
   /** Width of the oil track a ball leaves on the lane, boards (assumption: ≈ 1 in, the visible track). */
   trackWidthBoards: 1,
   /** Standard deviation of the bowlers' lines around the reference line, boards (assumption). */
@@ -91,6 +97,11 @@ export const MOTION_CALIBRATION = Object.freeze({
   carrydownFraction: 0.1,
   /** Length beyond the pattern end over which carrydown is spread, ft (assumption). */
   carrydownLengthFt: 12,
+  /** The invented mid-strength ball whose pocket line stands for the pair's track (assumption: the pair plays lines like the bowler's own). */
+  transitionReferenceBall: Object.freeze({
+    weightLb: 15, rg: 2.52, differential: 0.04, intermediateDifferential: 0, coverType: 'reactive-hybrid' as CoverType,
+    surfaceGrit: 2000, polished: false, layout: Object.freeze({ pinToPapIn: 4 }),
+  }),
 
   // ── Release and layout defaults ─────────────────────────────────────────────────────────
   /** Pin-to-PAP distance when the ball has no layout, in (common practice: 3.5–5 in layouts). */
@@ -99,8 +110,10 @@ export const MOTION_CALIBRATION = Object.freeze({
   defaultValAngleDeg: 45,
 
   // ── Pocket solver and ranking ───────────────────────────────────────────────────────────
-  /** Laydown − target (boards) the solver uses when neither is given: 5 boards over 15 ft ≈ 1.7° outward (PHYSICS.md §6: 1–3° typical, C). */
-  defaultLaunchBoards: 5,
+  /** Laydown − target (boards) the solver tries in turn when neither is given: 5 boards over 15 ft ≈ 1.7° outward (PHYSICS.md §6: 1–3° typical, C), wider for strong balls. */
+  solverLaunchBoards: Object.freeze([-3, -1, 1, 3, 5, 7, 9, 11, 13, 15, 17]) as readonly number[],
+  /** The launch the solver tries first, boards (must be one of solverLaunchBoards). */
+  solverFirstLaunchBoards: 5,
   /** Solver tolerance on the entry board. */
   solverTolBoards: 0.05,
   /** Half-width of the pocket window for miss room, boards (assumption: ±1 board still carries). */

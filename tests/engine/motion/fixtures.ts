@@ -29,3 +29,44 @@ export function linePsi(psiDeg: number): [number, number] {
   const dBoards = (Math.tan((psiDeg * Math.PI) / 180) * 15 * 304.8) / MM_PER_BOARD;
   return [20, 20 + dBoards];
 }
+
+import type { OilPattern, Sweep } from '../../../engine/types';
+
+function sweep(fromBoard: number, toBoard: number, endFt: number, crossings: number, ul = 60): Sweep {
+  return { direction: 'forward', fromBoard, toBoard, startFt: 0, endFt, crossings, microlitersPerBoard: ul };
+}
+
+/** An invented house-style pattern, 40 ft, ≈ 19 mL, heavy in the middle (names invented). */
+export function housePattern(scale = 1, lengthFt = 40): OilPattern {
+  const k = lengthFt / 40;
+  return {
+    name: 'Test House 40',
+    sweeps: [
+      sweep(2, 38, 40 * k, 2, 60 * scale), sweep(8, 32, 38 * k, 4, 60 * scale),
+      sweep(12, 28, 36 * k, 6, 60 * scale), sweep(15, 25, 32 * k, 4, 60 * scale),
+    ],
+  };
+}
+
+/** The same pattern with boards mirrored (b → 40 − b). */
+export function mirroredPattern(p: OilPattern): OilPattern {
+  return { name: `${p.name} mirrored`, sweeps: p.sweeps.map((s) => ({ ...s, fromBoard: 40 - s.toBoard, toBoard: 40 - s.fromBoard })) };
+}
+
+/** An invented flat (sport-like) pattern: the same oil on every board, 42 ft. */
+export function flatPattern(ulPerBoard = 50, crossings = 8, lengthFt = 42): OilPattern {
+  return { name: 'Test Flat 42', sweeps: [sweep(1, 39, lengthFt, crossings, ulPerBoard)] };
+}
+
+/** An invented strong asymmetric reactive solid for the bowler-level tests. */
+export function strongBall(extra: Partial<BallSpec> = {}): BallSpec {
+  return {
+    weightLb: 15, rg: 2.49, differential: 0.052, intermediateDifferential: 0.014, coverType: 'reactive-solid',
+    surfaceGrit: 2000, polished: false, layout: { pinToPapIn: 3.4, valAngleDeg: 45 }, ...extra,
+  };
+}
+
+/** A typical right-handed stroker (PHYSICS.md §6 / TRADE.md §7.3 typical values, C). */
+export function strokerBowler(extra: Partial<BowlerProfile> = {}): BowlerProfile {
+  return { hand: 'right', speedMph: 17.5, revRpm: 320, axisRotationDeg: 45, axisTiltDeg: 12, ...extra };
+}

@@ -1,0 +1,49 @@
+import type { BallSpec, BowlerProfile, OilPattern } from '../types';
+import { assertNumber } from './assertNumber';
+import { ballInertia, type BallInertia } from './ballInertia';
+import { conditionOilMap } from './conditionOilMap';
+import { coverFriction } from './coverFriction';
+import { oilFrictionField, uniformFrictionField, type FrictionField } from './frictionField';
+import { integrateDelivery, type DeliveryResult } from './integrateDelivery';
+import type { LaneOilMap } from './laneOilMap';
+import { handSign, releaseState } from './releaseState';
+
+/** A ball, a bowler and a lane made ready to throw many deliveries (the solver and miss room). */
+export interface PreparedShot {
+  hand: 1 | -1;
+  inertia: BallInertia;
+  field: FrictionField;
+  /** One delivery on the line (hand-side boards at the foul line and at the arrows). */
+  run: (laydownBoard: number, targetBoard: number) => DeliveryResult;
+}
+
+/**
+ * Validates a shot's inputs once and builds what every delivery of that ball on that lane shares:
+ * inertia (ballInertia), the friction field (uniform `frictionOverride`, or the oil map after
+ * `gamesBowled` — conditionOilMap — read through the ball's cover, oilFrictionField).
+ *
+ * Units: as simulateShot. Edge cases: `oilMap` (already conditioned) skips building the map, so a
+ * ranking shares one map among its balls; TypeError/RangeError name the function that rejected the value.
+ * Example: `prepareShot({ ball, bowler, pattern }).run(20, 12).entryBoard`.
+ */
+export function prepareShot(
+  input: { ball: BallSpec; bowler: BowlerProfile; pattern: OilPattern; gamesBowled?: number; frictionOverride?: number },
+  oilMap?: LaneOilMap,
+): PreparedShot {
+  const fn = 'prepareShot';
+  if (input === null || typeof input !== 'object') throw new TypeError(`${fn}: input must be an object, got ${String(input)}`);
+  const { ball, bowler } = input;
+  if (bowler === null || typeof bowler !== 'object') throw new TypeError(`${fn}: bowler must be an object, got ${String(bowler)}`);
+  const hand = handSign(bowler.hand);
+  const inertia = ballInertia(ball);
+  const cover = coverFriction(ball);
+  releaseState(ball, bowler, 20, 20); // validates the release once
+  let field: FrictionField;
+  if (input.frictionOverride !== undefined) {
+    field = uniformFrictionField(assertNumber(fn, 'frictionOverride', input.frictionOverride, 0, 1));
+  } else {
+    if (input.pattern === null || typeof input.pattern !== 'object') throw new TypeError(`${fn}: pattern must be an object, got ${String(input.pattern)}`);
+    field = oilFrictionField(oilMap ?? conditionOilMap(input.pattern, bowler, input.gamesBowled ?? 0), cover);
+  }
+  return { hand, inertia, field, run: (l, t) => integrateDelivery(releaseState(ball, bowler, l, t), inertia, field, { hand }) };
+}

@@ -1,0 +1,56 @@
+import { assertNumber } from './assertNumber';
+import type { DeliveryResult } from './integrateDelivery';
+import { prepareShot } from './prepareShot';
+import type { ShotPrediction, SimulateShotInput } from './shotPrediction';
+import { solvePocketLine } from './solvePocketLine';
+
+/** Converts an integration result on a line to the public prediction. */
+export function toShotPrediction(r: DeliveryResult, laydownBoard: number, targetBoard: number): ShotPrediction {
+  const path: ShotPrediction['path'] = [];
+  for (let i = 0; i < r.sampleCount; i++) path.push({ ft: r.sampleFt[i], board: r.sampleBoard[i], speedMph: r.sampleSpeedMph[i] });
+  return {
+    path, rollStartFt: r.rollStartFt, skidFt: r.skidFt,
+    breakpoint: { ft: r.breakpointFt, board: r.breakpointBoard },
+    entryBoard: r.entryBoard, entryAngleDeg: r.entryAngleDeg, timeToPinsS: r.timeToPinsS, speedAtPinsMph: r.speedAtPinsMph,
+    gutter: r.gutter, laydownBoard, targetBoard,
+  };
+}
+
+/**
+ * Predicts one delivery with the ball-motion model: skid, hook, roll, breakpoint and entry angle on
+ * the pattern's oil map (after `gamesBowled`), for a given line or for the line that reaches the pocket.
+ *
+ * Definition: rigid-body Newton–Euler with smoothed Coulomb friction, RK4 at 4 ms (integrateDelivery;
+ * PHYSICS.md §1, §4.1); friction from the oil film through the cover's roughness-aware law
+ * (coverFriction, PHYSICS.md §5.1–5.2) and the oil the ball carries on its track (§5.3); release from
+ * the BowlerProfile (releaseState, §1.11); the oil map after games (conditionOilMap, §5.4). When
+ * `laydownBoard` or `targetBoard` is omitted, solvePocketLine picks the line to board 17.5.
+ *
+ * Units: boards from the hand-side gutter, ft, mph, degrees, s. Edge cases: invalid input throws
+ * TypeError/RangeError naming the rejecting function and the value; a ball that cannot reach the pocket
+ * returns the closest line; a gutter ball's path ends at the gutter (`gutter` true) while
+ * entryBoard/angle are those of a lane that went on (so they stay continuous for solvers).
+ * Example: `simulateShot({ ball, bowler, pattern }).entryAngleDeg` → about 4–6° for a 300-rpm stroker.
+ */
+export function simulateShot(input: SimulateShotInput): ShotPrediction {
+  try {
+    return simulate(input);
+  } catch (e) {
+    // name the public function first, keep the inner function's message and the error type
+    if (e instanceof RangeError && !e.message.startsWith('simulateShot')) throw new RangeError(`simulateShot: ${e.message}`);
+    if (e instanceof TypeError && !e.message.startsWith('simulateShot')) throw new TypeError(`simulateShot: ${e.message}`);
+    throw e;
+  }
+}
+
+function simulate(input: SimulateShotInput): ShotPrediction {
+  const fn = 'simulateShot';
+  if (input === null || typeof input !== 'object') throw new TypeError(`${fn}: input must be an object, got ${String(input)}`);
+  const shot = prepareShot(input);
+  const { laydownBoard, targetBoard } = input;
+  if (laydownBoard !== undefined) assertNumber(fn, 'laydownBoard', laydownBoard, -5, 45);
+  if (targetBoard !== undefined) assertNumber(fn, 'targetBoard', targetBoard, -5, 45);
+  if (laydownBoard !== undefined && targetBoard !== undefined) return toShotPrediction(shot.run(laydownBoard, targetBoard), laydownBoard, targetBoard);
+  const line = solvePocketLine(shot.run, { laydownBoard, targetBoard });
+  return toShotPrediction(line.result, line.laydownBoard, line.targetBoard);
+}
