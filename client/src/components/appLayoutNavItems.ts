@@ -14,6 +14,9 @@ export interface AppLayoutNavItem {
  */
 export const NAV_ITEMS: readonly AppLayoutNavItem[] = [
   { name: 'home', label: 'Home' },
+  { name: 'arsenal', label: 'Arsenal' },
+  { name: 'catalogue', label: 'Catalogue' },
+  { name: 'matchup', label: 'Matchup' },
   { name: 'profile', label: 'Profile' },
   { name: 'admin-users', label: 'Admin', roles: ['admin'] },
 ];

@@ -1,7 +1,7 @@
 import type { RouteRecordRaw } from 'vue-router';
 
 /** Every named route of the app; `routerPush` and `appRoute` accept only these. */
-export const ROUTE_NAMES = ['sign-in', 'sign-up', 'reset-password', 'home', 'profile', 'admin-users', 'forbidden', 'not-found'] as const;
+export const ROUTE_NAMES = ['sign-in', 'sign-up', 'reset-password', 'home', 'profile', 'admin-users', 'arsenal', 'ball', 'catalogue', 'matchup', 'forbidden', 'not-found'] as const;
 export type AppRouteName = (typeof ROUTE_NAMES)[number];
 
 type AppRouteRecord = RouteRecordRaw & { name?: AppRouteName; children?: AppRouteRecord[] };
@@ -32,6 +32,10 @@ export const routes: AppRouteRecord[] = [
     children: [
       { path: '', name: 'home', component: () => import('@/views/HomeView.vue'), meta: { title: 'Home' } },
       { path: 'profile', name: 'profile', component: () => import('@/views/ProfileView.vue'), meta: { title: 'Profile' } },
+      { path: 'arsenal', name: 'arsenal', component: () => import('@/views/ArsenalView.vue'), meta: { title: 'Arsenal' } },
+      { path: 'arsenal/:id(\\d+)', name: 'ball', component: () => import('@/views/BallView.vue'), meta: { title: 'Ball' } },
+      { path: 'catalogue', name: 'catalogue', component: () => import('@/views/CatalogueView.vue'), meta: { title: 'Catalogue' } },
+      { path: 'matchup', name: 'matchup', component: () => import('@/views/MatchupView.vue'), meta: { title: 'Matchup' } },
       {
         path: 'admin/users',
         name: 'admin-users',
