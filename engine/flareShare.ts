@@ -18,7 +18,7 @@ import { inRange, positive } from './internal/checks';
  *
  * @example
  * flareShare(3.338); // => 1.0 (45°)
- * flareShare(5.0);   // => 0.86 (67°)
+ * flareShare(5.0);   // => 0.709 (67.4°: |sin 134.8°|)
  */
 export function flareShare(pinToPapIn: number, diameterIn: number = DEFAULT_BALL_DIAMETER_IN): number {
   const fn = 'flareShare';

@@ -4,7 +4,9 @@
 export type * from './types';
 
 export { scoreGame } from './scoreGame';
+export { scorePartialGame } from './scorePartialGame';
 export { isSplit } from './isSplit';
+export { leaveName } from './leaveName';
 export { checkLegality, USBC_BALL_LIMITS } from './checkLegality';
 export { pinToPapAngleDeg } from './pinToPapAngleDeg';
 export { pinToPapInForAngle } from './pinToPapInForAngle';

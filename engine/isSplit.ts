@@ -1,4 +1,4 @@
-import { integerInRange, list } from './internal/checks';
+import { standingSet } from './internal/pins';
 
 /**
  * Pin positions on the deck: `x` is the lateral position in half pin-spacings (6 in) from the
@@ -49,12 +49,7 @@ const PIN_POSITION: Readonly<Record<number, { x: number; row: number }>> = {
  */
 export function isSplit(standing: number[]): boolean {
   const fn = 'isSplit';
-  const pins = list(fn, 'standing', standing).map((p, i) => integerInRange(fn, `standing[${i}]`, p, 1, 10));
-  const up = new Set<number>();
-  for (const p of pins) {
-    if (up.has(p)) throw new RangeError(`${fn}: pin ${p} is listed twice`);
-    up.add(p);
-  }
+  const up = standingSet(fn, standing);
   if (up.has(1) || up.size < 2) return false;
 
   const down = [1, 2, 3, 4, 5, 6, 7, 8, 9, 10].filter((p) => !up.has(p));

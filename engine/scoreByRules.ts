@@ -18,7 +18,7 @@ import { validateBallSpec } from './validateBallSpec';
  *   cleaner balls (patternBreakdown).
  * @throws TypeError/RangeError for malformed input, naming 'scoreByRules'.
  * @example
- * scoreByRules(ball, bowler, pattern, 0); // => { score: 78.4, reasons: [...], suggestions: [...] }
+ * scoreByRules(ball, bowler, pattern, 0); // => { score: 0–100, reasons: [{ rule, effect, text, source }, …], suggestions: […] }
  */
 export function scoreByRules(ball: BallSpec, bowler: BowlerProfile, pattern: OilPattern, gamesBowled = 0): LayerResult {
   validateBallSpec(ball, 'scoreByRules');

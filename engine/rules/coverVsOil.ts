@@ -32,7 +32,7 @@ const WORDS: Record<Exclude<CoverType, 'plastic'>, string> = {
  * plasticSpareBall).
  *
  * @example
- * coverVsOil(solidBall, features, heavyLongContext); // => { rule: 'cover-vs-oil', effect: 14.6, … }
+ * coverVsOil(solidBall, features, heavyLongContext).effect > 0; // => true (a solid suits heavy, long oil)
  */
 export const coverVsOil: MatchupRule = (ball, _f, ctx) => {
   if (ball.coverType === 'plastic') return null;
