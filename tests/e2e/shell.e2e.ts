@@ -23,6 +23,23 @@ async function open(viewport: Viewport = DESKTOP): Promise<Session> {
   return session;
 }
 
+interface MailBox {
+  items: { to: string[]; subject: string; text: string }[];
+}
+
+/** The reset link mailed to `email`, read from the project's own test mailbox (`/api/dev/mail`). */
+async function waitForResetLink(email: string): Promise<string> {
+  for (let attempt = 0; attempt < 50; attempt += 1) {
+    const res = await fetch(`${baseUrl}/api/dev/mail`);
+    const box = (await res.json()) as MailBox;
+    const mail = box.items.find((m) => m.to.includes(email));
+    const link = mail?.text.match(/https?:\/\/\S+\/reset-password\?token=\S+/)?.[0];
+    if (link) return link;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error(`no reset mail for ${email}`);
+}
+
 beforeAll(async () => {
   browser = await launchBrowser();
 });
@@ -203,6 +220,16 @@ describe('client shell: roles', () => {
     await page.getByRole('cell', { name: DEMO.proprietor }).waitFor();
     await screenshot(page, 'admin-users-desktop');
 
+    // Element Plus keeps the combobox input of a non-filterable select visually hidden: open it by keyboard.
+    await page.getByRole('combobox', { name: 'Role' }).focus();
+    await page.keyboard.press('Enter');
+    await page.getByRole('option', { name: 'Proprietor' }).click();
+    await page.getByRole('cell', { name: DEMO.dana }).waitFor({ state: 'detached' });
+    await page.getByRole('cell', { name: DEMO.proprietor }).waitFor();
+    await page.getByRole('status').filter({ hasText: '1 user found.' }).waitFor();
+    await page.getByRole('button', { name: 'Clear filters' }).click();
+    await page.getByRole('cell', { name: DEMO.dana }).waitFor();
+
     await page.getByLabel('Search by name or e-mail').fill('marchetti');
     await page.getByRole('cell', { name: DEMO.dana }).waitFor({ state: 'detached' });
     await page.getByRole('cell', { name: DEMO.lee }).waitFor();
@@ -279,6 +306,47 @@ describe('client shell: small screens', () => {
     await page.keyboard.type('lanewright-demo');
     await page.keyboard.press('Enter');
     await page.getByRole('heading', { level: 1, name: 'Welcome, Dana' }).waitFor();
+  });
+
+  it('reset password: the link from the e-mail sets a new password that then signs in', async () => {
+    const email = uniqueEmail('resetter');
+    const register = await fetch(`${baseUrl}/api/auth/register`, {
+      method: 'POST',
+      headers: { 'Content-Type': 'application/json' },
+      body: JSON.stringify({ email, password: 'the-first-password', displayName: 'Quill Resetter' }),
+    });
+    expect(register.status).toBe(201);
+
+    const { page } = await open(MOBILE);
+    await page.goto('/reset-password');
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByRole('button', { name: 'Send reset link' }).click();
+    await page.getByText(`If an account exists for ${email}`).waitFor();
+
+    const link = await waitForResetLink(email);
+    await page.goto(link);
+    await page.getByRole('heading', { level: 1, name: 'Choose a new password' }).waitFor();
+    await page.getByLabel('New password', { exact: true }).fill('the-second-password');
+    await page.getByLabel('Repeat the new password').fill('not-the-same');
+    await page.getByRole('button', { name: 'Save new password' }).click();
+    await page.getByRole('alert').filter({ hasText: 'The two passwords do not match' }).waitFor();
+    await page.getByLabel('Repeat the new password').fill('the-second-password');
+    await page.getByRole('button', { name: 'Save new password' }).click();
+    await page.getByText('Your password has been changed.').waitFor();
+    await screenshot(page, 'reset-done-mobile');
+
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password').fill('the-second-password');
+    await page.getByRole('button', { name: 'Sign in', exact: true }).click();
+    await page.getByRole('heading', { level: 1, name: 'Welcome, Quill' }).waitFor();
+
+    // The same link does not work twice.
+    await page.goto(link);
+    await page.getByLabel('New password', { exact: true }).fill('the-third-password');
+    await page.getByLabel('Repeat the new password').fill('the-third-password');
+    await page.getByRole('button', { name: 'Save new password' }).click();
+    await page.getByRole('alert').filter({ hasText: 'invalid or has expired' }).waitFor();
+    await screenshot(page, 'reset-link-used-mobile');
   });
 
   it('reset password: asking for a link confirms without saying whether the account exists', async () => {

@@ -1,7 +1,20 @@
 import type { RouteRecordRaw } from 'vue-router';
 
 /** Every named route of the app; `routerPush` and `appRoute` accept only these. */
-export const ROUTE_NAMES = ['sign-in', 'sign-up', 'reset-password', 'home', 'profile', 'admin-users', 'arsenal', 'ball', 'catalogue', 'matchup', 'forbidden', 'not-found'] as const;
+export const ROUTE_NAMES = [
+  'sign-in',
+  'sign-up',
+  'reset-password',
+  'home',
+  'profile',
+  'admin-users',
+  'arsenal',
+  'ball',
+  'catalogue',
+  'matchup',
+  'forbidden',
+  'not-found',
+] as const;
 export type AppRouteName = (typeof ROUTE_NAMES)[number];
 
 type AppRouteRecord = RouteRecordRaw & { name?: AppRouteName; children?: AppRouteRecord[] };

@@ -1,0 +1,34 @@
+import type { Page } from '@shared/auth';
+import type { ArsenalQuery, Ball, BallCreate, BallPatch, SurfaceChange } from '@shared/balls';
+import { api } from './client';
+
+export type ArsenalParams = Partial<ArsenalQuery>;
+
+export interface ArsenalImportResult {
+  imported: number;
+  items: Ball[];
+}
+
+/** The signed-in bowler's own balls. */
+export const arsenalApi = {
+  list: (params: ArsenalParams, signal?: AbortSignal) => api.get<Page<Ball>>('/arsenal', { query: { ...params }, signal }),
+  get: (id: number, signal?: AbortSignal) => api.get<{ item: Ball }>(`/arsenal/${id}`, { signal }),
+  create: (body: BallCreate) => api.post<{ item: Ball }>('/arsenal', body),
+  /** `version` must be the one the editor read; a stale one answers 409 `stale_version`. */
+  update: (id: number, body: BallPatch) => api.patch<{ item: Ball }>(`/arsenal/${id}`, body),
+  /** Soft delete: `restore` undoes it. */
+  remove: (id: number) => api.delete<null>(`/arsenal/${id}`),
+  restore: (id: number) => api.post<{ item: Ball }>(`/arsenal/${id}/restore`),
+  changeSurface: (id: number, body: SurfaceChange) => api.post<{ item: Ball }>(`/arsenal/${id}/surface`, body),
+  /** CSV upload (all or nothing); a bad file answers 400 `csv_invalid_rows` with `fields` keyed `rows.<line>.<column>`. */
+  importCsv: (file: File) => {
+    const form = new FormData();
+    form.append('file', file, file.name);
+    return api.post<ArsenalImportResult>('/arsenal/import', form);
+  },
+};
+
+/** The name a bowler knows a ball by: its nickname, else its model name. */
+export function ballLabel(ball: Pick<Ball, 'name' | 'nickname'>): string {
+  return ball.nickname ? `${ball.nickname} (${ball.name})` : ball.name;
+}
