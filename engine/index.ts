@@ -31,6 +31,8 @@ export { rulesLayer, RULES_BASE_SCORE } from './rulesLayer';
 export { scoreByRules } from './scoreByRules';
 export { combineLayers } from './combineLayers';
 export type { WeightedLayer } from './combineLayers';
+export { SCORING_LAYERS } from './scoringLayers';
+export type { ScoringLayer } from './scoringLayers';
 export { rankArsenal } from './rankArsenal';
 export {
   BOARD_COUNT,

@@ -1,17 +1,17 @@
 import type { ArsenalBall, RankArsenalInput, RankedBall } from './types';
-import type { WeightedLayer } from './combineLayers';
 import { combineLayers } from './combineLayers';
 import { matchupContext } from './matchupContext';
-import { rulesLayer } from './rulesLayer';
+import { SCORING_LAYERS } from './scoringLayers';
 import { list, record } from './internal/checks';
 import { validateBallSpec } from './validateBallSpec';
 
 /**
  * Ranks a bowler's arsenal for a pattern, best first, with the reasons and what to change.
  *
- * Definition: the matchup is built once (matchupContext); each ball is scored by every layer and
- * the layers are combined (combineLayers). Today the only layer is the rules layer (rulesLayer,
- * weight 1); the ball-motion model joins as a second entry in `layers` below. Order: strike balls
+ * Definition: the matchup is built once (matchupContext); each ball is scored by every layer of
+ * SCORING_LAYERS and the layers are combined (combineLayers, a weighted mean). Today the only
+ * layer is the rules layer (rulesLayer, weight 1); the ball-motion model joins as a second entry
+ * of SCORING_LAYERS (scoringLayers.ts). Order: strike balls
  * by score (highest first), then plastic balls (a spare ball is never first for strikes, whatever
  * its score), ties by id.
  * Source: the rules of thumb in engine/rules/ (README.md table), each naming its source.
@@ -19,7 +19,8 @@ import { validateBallSpec } from './validateBallSpec';
  * @param input `balls` (each a BallSpec with a unique non-empty `id`), `bowler`, `pattern`,
  *   `gamesBowled` (games already bowled on the pattern, default 0).
  * @returns one RankedBall per ball: `id`, `score` 0–100, `reasons` (rule, effect, text, source),
- *   `suggestions` (surface, layout, release, line). An empty arsenal gives [].
+ *   `suggestions` (surface, layout, release, line) and `layers` (each layer's own score and
+ *   weight). An empty arsenal gives [].
  * @throws TypeError/RangeError for malformed input or duplicate ids, naming 'rankArsenal'.
  * @example
  * rankArsenal({ balls, bowler, pattern })[0].id; // => the best ball's id
@@ -38,10 +39,19 @@ export function rankArsenal(input: RankArsenalInput): RankedBall[] {
   });
   const ctx = matchupContext(input.bowler, input.pattern, input.gamesBowled ?? 0, fn);
 
+  const scorers = SCORING_LAYERS.map((layer) => ({ layer, score: layer.prepare(ctx) }));
+
   const ranked = (balls as ArsenalBall[]).map((ball) => {
-    const layers: WeightedLayer[] = [{ name: 'rules', weight: 1, result: rulesLayer(ball, ctx) }];
+    const layers = scorers.map(({ layer, score }) => ({ name: layer.name, weight: layer.weight, result: score(ball) }));
     const { score, reasons, suggestions } = combineLayers(layers);
-    return { ball, entry: { id: ball.id, score, reasons, suggestions } };
+    const entry: RankedBall = {
+      id: ball.id,
+      score,
+      reasons,
+      suggestions,
+      layers: layers.map((l) => ({ name: l.name, weight: l.weight, score: l.result.score })),
+    };
+    return { ball, entry };
   });
   ranked.sort((a, b) => {
     const pa = a.ball.coverType === 'plastic' ? 1 : 0;

@@ -195,6 +195,8 @@ export interface RankedBall {
   score: number;
   reasons: RuleResult[];
   suggestions: Suggestion[];
+  /** Each scoring layer's own score and weight (rankArsenal fills it; see SCORING_LAYERS). */
+  layers?: { name: string; weight: number; score: number }[];
 }
 
 /**

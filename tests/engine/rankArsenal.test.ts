@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { rankArsenal } from '../../engine/index';
+import { rankArsenal, SCORING_LAYERS } from '../../engine/index';
 import type { ArsenalBall, OilPattern } from '../../engine/index';
 import {
   fourBalls,
@@ -173,5 +173,17 @@ describe('rankArsenal: malformed input throws, naming rankArsenal', () => {
   });
   it('TypeError for balls that are not an array', () => {
     expect(() => rankArsenal({ balls: {} as ArsenalBall[], bowler: typicalBowler, pattern: houseShot })).toThrow(TypeError);
+  });
+});
+
+describe('rankArsenal: scoring layers', () => {
+  it('reports each layer’s own score; with the rules layer alone the ball’s score is the rules score', () => {
+    // engine/scoringLayers.ts: today one layer, 'rules', weight 1 (combineLayers: weighted mean).
+    const [r] = rankArsenal({ balls: [urethaneBall], bowler: typicalBowler, pattern: houseShot });
+    expect(r.layers).toEqual([{ name: 'rules', weight: 1, score: r.score }]);
+  });
+
+  it('SCORING_LAYERS lists the rules layer first', () => {
+    expect(SCORING_LAYERS.map((l) => l.name)[0]).toBe('rules');
   });
 });
