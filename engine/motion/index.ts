@@ -27,3 +27,7 @@ export { prepareShot } from './prepareShot';
 export type { PreparedShot } from './prepareShot';
 export { simulateShot, toShotPrediction } from './simulateShot';
 export type { ShotPrediction, SimulateShotInput } from './shotPrediction';
+export { missRoom } from './missRoom';
+export type { MissRoom } from './missRoom';
+export { motionLayer, MOTION_LAYER_POINTS } from './motionLayer';
+export type { MotionVerdict } from './motionLayer';

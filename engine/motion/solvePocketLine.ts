@@ -18,12 +18,13 @@ export interface PocketLine {
  * Definition: one free variable, the other held — `laydownBoard` given: solve the target; `targetBoard`
  * given: solve the laydown; neither: laydown = target + D and solve the target, starting at D = 5 boards
  * (≈ 1.7° outward over 15 ft, PHYSICS.md §6 typical 1–3°, C) and widening it 2 boards at a time (to 17)
- * for a ball that hooks past the pocket on every target, or narrowing it (to −3, an inward launch) for
- * one that never gets there — so the straightest line that reaches the pocket is used (the most angle). Each solve
- * scans the free variable at 5 points across boards 1–39 and refines the best sign change with the
- * Illinois (modified regula falsi) method (standard root finding, from memory). The lane beyond a gutter
- * is treated as continuing so the function stays continuous; a line whose ball drops in the gutter does
- * not count as reaching the pocket.
+ * for a ball that hooks past the pocket on every target tried, or narrowing it (to −3, an inward launch)
+ * for one that never gets there — so the straightest line found that reaches the pocket is used (the
+ * most angle). Each solve starts with a Newton step that uses the straight-line geometry (4 boards at the
+ * pins per board at the arrows), continues with secant steps and finishes with the Illinois method
+ * (modified regula falsi; standard root finding, from memory) once a sign change brackets the root. The
+ * lane beyond a gutter is treated as continuing so the function stays continuous; a line whose ball
+ * drops in the gutter does not count as reaching the pocket.
  *
  * Units: boards. Edge cases: if no line reaches 17.5 within the range, the closest line is returned with
  * `reached` false. Example: `solvePocketLine((l, t) => integrateDelivery(...), {})`.
@@ -33,8 +34,13 @@ export function solvePocketLine(
   given: { laydownBoard?: number; targetBoard?: number },
 ): PocketLine {
   const fixedL = given.laydownBoard, fixedT = given.targetBoard;
-  if (fixedL !== undefined && fixedT === undefined) return solveOne(run, (x) => [fixedL, x], 1, 39);
-  if (fixedT !== undefined && fixedL === undefined) return solveOne(run, (x) => [x, fixedT], 1, 39);
+  const arrowsToPins = C.headpinFt / C.arrowsFt; // a straight line moves 4 boards at the pins per board at the arrows
+  if (fixedL !== undefined && fixedT === undefined) {
+    return solveOne(run, (x) => [fixedL, x], 1, 39, Math.min(39, Math.max(1, fixedL - 5)), arrowsToPins);
+  }
+  if (fixedT !== undefined && fixedL === undefined) {
+    return solveOne(run, (x) => [x, fixedT], 1, 39, Math.min(39, Math.max(1, fixedT + 5)), 1 - arrowsToPins);
+  }
   // neither given: start at the typical launch; widen it for a ball that hooks past the pocket on every
   // target, narrow it (down to an inward launch) for one that never gets there
   const launches = K.solverLaunchBoards;
@@ -42,9 +48,11 @@ export function solvePocketLine(
   let best: (PocketLine & { miss: number }) | null = null;
   let evaluations = 0;
   let dir = 0;
+  let x0 = 20;
   while (i >= 0 && i < launches.length) {
     const D = launches[i];
-    const line = solveOne(run, (x) => [x + D, x], Math.max(1, 1 - D), Math.min(39, 39 - D));
+    const lo = Math.max(1, 1 - D), hi = Math.min(39, 39 - D);
+    const line = solveOne(run, (x) => [x + D, x], lo, hi, Math.min(hi, Math.max(lo, x0)), 1);
     evaluations += line.evaluations;
     if (best === null || (line.reached && !best.reached) || (line.reached === best.reached && line.miss < best.miss)) best = line;
     if (line.reached) break;
@@ -52,6 +60,9 @@ export function solvePocketLine(
     if (dir !== 0 && d !== dir) break;
     dir = d;
     i += d;
+    // next guess from the hook just seen: entry ≈ x − 3D + H (straight line plus hook H)
+    const hook = line.result.entryBoard - (line.targetBoard - (arrowsToPins - 1) * D);
+    if (i >= 0 && i < launches.length) x0 = C.pocketBoard + (arrowsToPins - 1) * launches[i] - hook;
   }
   const b = best as PocketLine;
   return { laydownBoard: b.laydownBoard, targetBoard: b.targetBoard, result: b.result, reached: b.reached, evaluations };
@@ -59,12 +70,19 @@ export function solvePocketLine(
 
 type Sample = { x: number; g: number; r: DeliveryResult };
 
-/** Scan the free variable at 5 points, then Illinois on the best bracket. */
+/**
+ * One free variable x on [lo, hi]: a Newton step with the straight-line slope `slope` (boards at the pins
+ * per board of x), then secant steps (falling back to that slope when the secant slope has the wrong sign),
+ * then Illinois once a sign change brackets the root. `side` > 0 when the ball ends past the pocket on
+ * every line tried (it hooks too much), < 0 when it never gets there.
+ */
 function solveOne(
   run: (laydownBoard: number, targetBoard: number) => DeliveryResult,
   lineOf: (x: number) => [number, number],
   lo: number,
   hi: number,
+  x0: number,
+  slope: number,
 ): PocketLine & { miss: number; side: number } {
   const pocket = C.pocketBoard, tol = K.solverTolBoards;
   const isOk = (r: DeliveryResult): boolean => r.reachedPins && !r.gutter;
@@ -79,32 +97,34 @@ function solveOne(
     if (best === null || score(e) < score(best)) best = e;
     return e;
   };
-  const n = 5;
-  const scan: Sample[] = [];
-  for (let k = 0; k < n; k++) scan.push(evalAt(lo + ((hi - lo) * k) / (n - 1)));
-  // prefer a bracket where the entry rises with the free variable and the ball stays on the lane
+  const clampX = (x: number): number => Math.min(hi, Math.max(lo, x));
+  const done = (): boolean => best !== null && Math.abs((best as Sample).g) <= tol && isOk((best as Sample).r);
+  let a = evalAt(clampX(x0));
   let bracket: [Sample, Sample] | null = null;
-  for (let k = 1; k < n; k++) {
-    const p = scan[k - 1], q = scan[k];
-    if (p.g * q.g > 0) continue;
-    const good = isOk(p.r) || isOk(q.r);
-    if (bracket === null || (good && !(isOk(bracket[0].r) || isOk(bracket[1].r)))) bracket = [p, q];
-    if (good) break;
+  if (!done()) {
+    let b = evalAt(clampX(a.x - a.g / slope));
+    for (let it = 0; it < 7 && !done(); it++) {
+      if (a.g * b.g <= 0 && a.x !== b.x) { bracket = [a, b]; break; }
+      let s = b.x !== a.x ? (b.g - a.g) / (b.x - a.x) : slope;
+      if (!(s * slope > 0) || Math.abs(s) < 0.2 * Math.abs(slope)) s = slope;
+      const x2 = clampX(b.x - b.g / s);
+      if (Math.abs(x2 - b.x) < 1e-9) break; // pinned at the end of the range
+      a = b; b = evalAt(x2);
+    }
   }
   let side = 0;
-  if (bracket !== null) {
+  if (bracket !== null && !done()) {
     let [p, q] = bracket;
     let gp = p.g, gq = q.g;
-    for (let it = 0; it < 16 && Math.abs((best as unknown as Sample).g) > tol && Math.abs(q.x - p.x) > 1e-4; it++) {
+    for (let it = 0; it < 16 && !done() && Math.abs(q.x - p.x) > 1e-4; it++) {
       const x = gq !== gp ? q.x - (gq * (q.x - p.x)) / (gq - gp) : (p.x + q.x) / 2;
       const c = evalAt(x);
       if (c.g * gq < 0) { p = q; gp = gq; } else { gp /= 2; }
       q = c; gq = c.g;
     }
-  } else {
-    side = scan.every((e) => e.g > 0) ? 1 : -1;
   }
   const b = best as unknown as Sample;
+  if (!done()) side = b.g > 0 ? 1 : -1;
   const [laydownBoard, targetBoard] = lineOf(b.x);
   return { laydownBoard, targetBoard, result: b.r, reached: Math.abs(b.g) <= tol && isOk(b.r), evaluations, miss: score(b), side };
 }

@@ -70,3 +70,25 @@ export function strongBall(extra: Partial<BallSpec> = {}): BallSpec {
 export function strokerBowler(extra: Partial<BowlerProfile> = {}): BowlerProfile {
   return { hand: 'right', speedMph: 17.5, revRpm: 320, axisRotationDeg: 45, axisTiltDeg: 12, ...extra };
 }
+
+/** Fifteen invented balls from strong to weak (no real products). */
+export function fifteenBalls(): (BallSpec & { id: string })[] {
+  const b = (id: string, o: Partial<BallSpec>): BallSpec & { id: string } => ({ ...strongBall(o), id });
+  return [
+    b('solid-500', { surfaceGrit: 500 }),
+    b('solid-1000', { surfaceGrit: 1000 }),
+    b('solid-2000', {}),
+    b('solid-3000', { surfaceGrit: 3000 }),
+    b('hybrid-2000', { coverType: 'reactive-hybrid', rg: 2.52, differential: 0.046, intermediateDifferential: 0.008 }),
+    b('hybrid-polished', { coverType: 'reactive-hybrid', rg: 2.52, differential: 0.046, intermediateDifferential: 0.008, surfaceGrit: 1500, polished: true }),
+    b('pearl-2000', { coverType: 'reactive-pearl', rg: 2.55, differential: 0.045, intermediateDifferential: 0 }),
+    b('pearl-polished', { coverType: 'reactive-pearl', rg: 2.55, differential: 0.045, intermediateDifferential: 0, surfaceGrit: 1500, polished: true }),
+    b('pearl-weak', { coverType: 'reactive-pearl', rg: 2.6, differential: 0.025, intermediateDifferential: 0, surfaceGrit: 3000, polished: true, layout: { pinToPapIn: 5.5 } }),
+    b('solid-symmetric', { rg: 2.54, differential: 0.048, intermediateDifferential: 0, surfaceGrit: 2000 }),
+    b('solid-lowdiff', { rg: 2.58, differential: 0.02, intermediateDifferential: 0, surfaceGrit: 3000 }),
+    b('urethane-1000', { coverType: 'urethane', rg: 2.6, differential: 0.02, intermediateDifferential: 0, surfaceGrit: 1000 }),
+    b('urethane-2000', { coverType: 'urethane', rg: 2.65, differential: 0.015, intermediateDifferential: 0, surfaceGrit: 2000 }),
+    b('hybrid-long', { coverType: 'reactive-hybrid', rg: 2.62, differential: 0.035, intermediateDifferential: 0, surfaceGrit: 4000, polished: true }),
+    b('plastic-spare', { coverType: 'plastic', rg: 2.7, differential: 0.008, intermediateDifferential: 0, surfaceGrit: 4000, polished: true, layout: { pinToPapIn: 1 } }),
+  ];
+}
