@@ -25,7 +25,7 @@ export function finite(fn: string, name: string, value: unknown): number {
 /** A finite number within [min, max] (either bound may be omitted). */
 export function inRange(fn: string, name: string, value: unknown, min?: number, max?: number, unit = ''): number {
   const v = finite(fn, name, value);
-  const u = unit ? ` ${unit}` : '';
+  const u = unit === '°' ? '°' : unit ? ` ${unit}` : '';
   if (min !== undefined && v < min) throw new RangeError(`${fn}: ${name} ${v}${u} is below the minimum ${min}${u}`);
   if (max !== undefined && v > max) throw new RangeError(`${fn}: ${name} ${v}${u} is above the maximum ${max}${u}`);
   return v;

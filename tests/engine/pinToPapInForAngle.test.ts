@@ -18,6 +18,6 @@ describe('pinToPapInForAngle', () => {
   });
 
   it('throws RangeError for an angle past 180°', () => {
-    expect(() => pinToPapInForAngle(181)).toThrow(/pinToPapInForAngle: angleDeg 181 ° is above the maximum 180 °/);
+    expect(() => pinToPapInForAngle(181)).toThrow(/pinToPapInForAngle: angleDeg 181° is above the maximum 180°/);
   });
 });
