@@ -1,6 +1,7 @@
 // Loads the demo data into an empty database: `tsx seeders/index.ts` (npm start runs it).
 import { summarize } from '../server/features/patterns/patterns.service';
-import { Ball, BallModel, Pattern, SurfaceEvent, sequelize, User } from '../server/models/index';
+import crypto from 'node:crypto';
+import { Ball, BallModel, Center, Condition, Follow, Lane, Pattern, SurfaceEvent, sequelize, User } from '../server/models/index';
 import { DEMO_ARSENALS } from './arsenals';
 import { DEMO_CATALOGUE } from './catalogue';
 import { DEMO_PATTERNS } from './patterns';
@@ -17,12 +18,30 @@ export async function seedDemo(): Promise<boolean> {
     const byName = new Map(models.map((m) => [m.name, m]));
 
     const owner = users.get('owner@copperline.example')!;
+    const patterns: Pattern[] = [];
     for (const p of DEMO_PATTERNS) {
       const summary = summarize(p);
       for (const k of ['lengthClass', 'volumeClass', 'ratioClass'] as const) {
         if (summary[k] !== p.expect[k]) throw new Error(`demo pattern ${p.name}: ${k} is ${summary[k]}, designed as ${p.expect[k]}`);
       }
-      await Pattern.create({ ownerId: owner.id, name: p.name, description: p.description, sweeps: p.sweeps, summary }, { transaction });
+      patterns.push(await Pattern.create({ ownerId: owner.id, name: p.name, description: p.description, sweeps: p.sweeps, summary }, { transaction }));
+    }
+
+    // Copperline Bowl, Harrow Bay: 24 lanes, the house shot in force on 1–20 and the sport pattern on 21–24.
+    const center = await Center.create({ name: 'Copperline Bowl', town: 'Harrow Bay', laneCount: 24, ownerId: owner.id }, { transaction });
+    await Lane.bulkCreate(Array.from({ length: 24 }, (_, i) => ({ centerId: center.id, number: i + 1, notes: null })), { transaction });
+    await Center.create({ name: 'Gullwing Lanes', town: 'Stonereach', laneCount: 16, ownerId: null }, { transaction });
+    const weekAgo = new Date(Date.now() - 7 * DAY_MS);
+    const house = patterns[0];
+    await Condition.create(
+      {
+        centerId: center.id, patternId: house.id, patternName: house.name, sweeps: house.sweeps, summary: house.summary, lanes: Array.from({ length: 24 }, (_, i) => i + 1),
+        validFrom: weekAgo.toISOString().slice(0, 10), validTo: null, notes: 'Lanes stripped and oiled every morning at 9. Approaches cleaned nightly.', publishedAt: weekAgo, publishedBy: owner.id,
+      },
+      { transaction },
+    );
+    for (const email of ['dana@copperline.example', 'lee@copperline.example', 'coach@copperline.example']) {
+      await Follow.create({ userId: users.get(email)!.id, centerId: center.id, unsubscribeToken: crypto.randomBytes(24).toString('base64url') }, { transaction });
     }
 
     const now = Date.now();

@@ -7,6 +7,7 @@ import { adminRouter } from './features/admin/admin.router';
 import { arsenalRouter } from './features/arsenal/arsenal.router';
 import { authRouter } from './features/auth/auth.router';
 import { catalogueRouter } from './features/catalogue/catalogue.router';
+import { centersRouter, followsRouter, unsubscribeRouter } from './features/centers/centers.router';
 import { docsRouter } from './features/docs/docs.router';
 import { matchupsRouter } from './features/matchups/matchups.router';
 import { patternsRouter } from './features/patterns/patterns.router';
@@ -53,6 +54,9 @@ export function createApp(): Express {
   api.use('/arsenal', arsenalRouter);
   api.use('/patterns', patternsRouter);
   api.use('/matchups', matchupsRouter);
+  api.use('/centers', centersRouter);
+  api.use('/follows', followsRouter);
+  api.use('/unsubscribe', unsubscribeRouter);
   api.use('/docs', docsRouter);
   if (mailCaptureEnabled) api.use('/dev', devRouter);
   api.use(notFound);

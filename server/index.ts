@@ -3,6 +3,7 @@ import { createApp } from './app';
 import { config } from './config/index';
 import { closeEnginePool } from './lib/enginePool';
 import { closeMailer } from './lib/mailer';
+import { startMailSender, stopMailSender } from './lib/outbox';
 import { logger } from './lib/logger';
 import { sequelize } from './models/index';
 
@@ -14,6 +15,7 @@ const server = app.listen(config.PORT, config.HOST, () => {
   process.send?.({ type: 'listening', port });
 });
 server.keepAliveTimeout = 5000;
+startMailSender();
 
 const sockets = new Set<Socket>();
 server.on('connection', (s) => {
@@ -33,6 +35,7 @@ async function shutdown(signal: string): Promise<void> {
   force.unref();
   server.closeIdleConnections();
   await new Promise<void>((resolve) => server.close(() => resolve()));
+  await stopMailSender();
   await Promise.allSettled([sequelize.close(), closeMailer(), closeEnginePool()]);
   clearTimeout(force);
   process.exit(0);

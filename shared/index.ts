@@ -4,3 +4,4 @@ export * from './profile';
 export * from './balls';
 export * from './patterns';
 export * from './matchups';
+export * from './centers';

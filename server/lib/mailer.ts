@@ -12,7 +12,8 @@ export interface CapturedMail {
   to: string[];
   subject: string;
   text: string;
-  receivedAt: string;
+  html: string | null;
+  date: string;
 }
 
 const captured: CapturedMail[] = [];
@@ -40,7 +41,8 @@ async function startDevSmtp(): Promise<number> {
             to,
             subject: mail.subject ?? '',
             text: mail.text ?? '',
-            receivedAt: new Date().toISOString(),
+            html: typeof mail.html === 'string' ? mail.html : null,
+            date: new Date().toISOString(),
           });
           if (captured.length > MAX_CAPTURED) captured.shift();
           callback();
@@ -69,10 +71,10 @@ async function getTransport(): Promise<Transporter> {
   return transporter;
 }
 
-/** Sends one plain-text e-mail through SMTP. */
-export async function sendMail(msg: { to: string; subject: string; text: string }): Promise<void> {
+/** Sends one e-mail through SMTP now (callers normally go through the outbox: enqueueMail). */
+export async function sendMail(msg: { to: string; subject: string; text: string; html?: string | null; headers?: Record<string, string> }): Promise<void> {
   const t = await getTransport();
-  await t.sendMail({ from: config.MAIL_FROM, ...msg });
+  await t.sendMail({ from: config.MAIL_FROM, to: msg.to, subject: msg.subject, text: msg.text, ...(msg.html ? { html: msg.html } : {}), ...(msg.headers ? { headers: msg.headers } : {}) });
 }
 
 /** Messages caught by the development SMTP server, newest first. */

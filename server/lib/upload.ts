@@ -19,16 +19,37 @@ const csvUpload = multer({
   },
 });
 
+const patternUpload = multer({
+  storage: multer.memoryStorage(),
+  limits: { fileSize: 256 * 1024, files: 1, fields: 10 },
+  fileFilter: (_req, file, cb) => {
+    if (!/\.(json|csv)$/i.test(file.originalname) || !(CSV_TYPES.has(file.mimetype) || file.mimetype === 'application/json')) {
+      cb(new AppError(400, 'unsupported_file', 'Upload a .json or .csv pattern file', { file: 'The file must be Lanewright JSON (.json) or CSV (.csv)' }));
+      return;
+    }
+    cb(null, true);
+  },
+});
+
 /** Accepts one multipart field "file" holding a CSV of at most 1 MiB; maps multer's errors onto the error shape. */
 export function csvFile(req: Request, res: Response, next: NextFunction): void {
-  csvUpload.single('file')(req, res, (err: unknown) => {
+  singleFile(csvUpload, req, res, next);
+}
+
+/** Accepts one multipart field "file" holding a pattern file (.json or .csv, at most 256 KiB). */
+export function patternFile(req: Request, res: Response, next: NextFunction): void {
+  singleFile(patternUpload, req, res, next);
+}
+
+function singleFile(upload: multer.Multer, req: Request, res: Response, next: NextFunction): void {
+  upload.single('file')(req, res, (err: unknown) => {
     if (!err) {
-      if (!req.file) return next(new AppError(400, 'file_required', 'Attach a CSV file in the field "file"', { file: 'A CSV file is required' }));
+      if (!req.file) return next(new AppError(400, 'file_required', 'Attach a file in the field "file"', { file: 'A file is required' }));
       return next();
     }
     if (err instanceof AppError) return next(err);
     if (err instanceof multer.MulterError) {
-      if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'payload_too_large', 'The file is larger than 1 MiB'));
+      if (err.code === 'LIMIT_FILE_SIZE') return next(new AppError(413, 'payload_too_large', 'The file is too large'));
       return next(new AppError(400, 'bad_upload', `The upload could not be read (${err.code})`, { file: err.message }));
     }
     return next(new AppError(400, 'bad_upload', 'The upload could not be read'));

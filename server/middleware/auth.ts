@@ -92,3 +92,13 @@ export function currentUser(req: Request): AuthUser {
   if (!req.user) throw AppError.unauthorized();
   return req.user;
 }
+
+/** Signs the user in when a valid bearer token is sent; public routes go on without one. */
+export function optionalAuth(req: Request, res: Response, next: NextFunction): void {
+  if (!req.headers.authorization) return next();
+  passport.authenticate('jwt', { session: false }, (err: unknown, user: AuthUser | false) => {
+    if (err) return next(err);
+    if (user) req.user = user;
+    return next();
+  })(req, res, next);
+}

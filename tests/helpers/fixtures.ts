@@ -1,7 +1,7 @@
 import type { Sweep } from '../../engine/types';
 import type { BallModelInput } from '../../shared/balls';
 import { summarize } from '../../server/features/patterns/patterns.service';
-import { Ball, BallModel, Pattern, SurfaceEvent } from '../../server/models/index';
+import { Ball, BallModel, Center, Lane, Pattern, SurfaceEvent } from '../../server/models/index';
 
 let n = 0;
 const uniq = () => `${process.pid}-${Date.now()}-${++n}`;
@@ -45,4 +45,11 @@ export const SHORT_LIGHT: Sweep[] = [sw('forward', 3, 37, 33, 2, 50), sw('forwar
 
 export async function createPattern(ownerId: number | null, sweeps: Sweep[] = LONG_HEAVY, name = `Test Pattern ${uniq()}`): Promise<Pattern> {
   return Pattern.create({ ownerId, name, description: null, sweeps, summary: summarize({ name, sweeps }) });
+}
+
+/** A center with its lanes, owned by `ownerId`. */
+export async function createCenter(ownerId: number | null, laneCount = 24): Promise<Center> {
+  const c = await Center.create({ name: `Test Lanes ${uniq()}`, town: 'Testford', laneCount, ownerId });
+  await Lane.bulkCreate(Array.from({ length: laneCount }, (_, i) => ({ centerId: c.id, number: i + 1, notes: null })));
+  return c;
 }

@@ -3,8 +3,7 @@ import crypto from 'node:crypto';
 import type { AuthResponse, LoginInput, RegisterInput, User as UserDto } from '../../../shared/auth';
 import { config } from '../../config/index';
 import { AppError } from '../../lib/AppError';
-import { logger } from '../../lib/logger';
-import { sendMail } from '../../lib/mailer';
+import { enqueueMail } from '../../lib/outbox';
 import { sequelize } from '../../models/index';
 import { signToken } from '../../middleware/auth';
 import { toUserDto, userRepository } from './user.repository';
@@ -57,11 +56,15 @@ export const authService = {
     const token = crypto.randomBytes(32).toString('base64url');
     await userRepository.createReset(user.id, sha256(token), new Date(Date.now() + RESET_TTL_MS));
     const link = `${config.PUBLIC_URL || origin}/reset-password?token=${token}`;
-    sendMail({
-      to: user.email,
-      subject: 'Reset your Lanewright password',
-      text: `Hello ${user.displayName},\n\nSomeone asked to reset the password of your Lanewright account. Open this link within an hour to choose a new one:\n\n${link}\n\nIf it was not you, ignore this message; your password stays as it is.\n`,
-    }).catch((err: unknown) => logger.error({ err }, 'reset mail failed'));
+    await enqueueMail([
+      {
+        to: user.email,
+        kind: 'password_reset',
+        ref: String(user.id),
+        subject: 'Reset your Lanewright password',
+        text: `Hello ${user.displayName},\n\nSomeone asked to reset the password of your Lanewright account. Open this link within an hour to choose a new one:\n\n${link}\n\nIf it was not you, ignore this message; your password stays as it is.\n`,
+      },
+    ]);
   },
 
   /** Sets a new password from a valid, unused, unexpired token; every older session ends. */

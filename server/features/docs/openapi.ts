@@ -4,6 +4,7 @@ import { ProfileUpdateSchema } from '../../../shared/profile';
 import { ArsenalQuerySchema, BallCreateSchema, BallModelInputSchema, BallModelPatchSchema, BallPatchSchema, CatalogueQuerySchema, SurfaceChangeSchema } from '../../../shared/balls';
 import { PatternInputSchema, PatternPatchSchema, PatternQuerySchema } from '../../../shared/patterns';
 import { MatchupRequestSchema } from '../../../shared/matchups';
+import { CenterInputSchema, CenterPatchSchema, PublishConditionSchema } from '../../../shared/centers';
 
 type Who = 'public' | 'signed-in' | 'coach, proprietor, admin' | 'admin';
 
@@ -50,6 +51,22 @@ export const ROUTES: RouteDoc[] = [
   { method: 'patch', path: '/api/patterns/{id}', summary: 'Edit your pattern (version required)', who: 'coach, proprietor, admin', params: IdParamSchema, body: PatternPatchSchema },
   { method: 'delete', path: '/api/patterns/{id}', summary: 'Delete your pattern', who: 'coach, proprietor, admin', params: IdParamSchema },
   { method: 'post', path: '/api/matchups', summary: 'Rank your arsenal for a pattern', who: 'signed-in', body: MatchupRequestSchema },
+  { method: 'post', path: '/api/patterns/{id}/duplicate', summary: 'Copy a pattern as your own', who: 'coach, proprietor, admin', params: IdParamSchema },
+  { method: 'get', path: '/api/patterns/{id}/export', summary: 'Download a pattern in Lanewright JSON or CSV (?format=json|csv)', who: 'signed-in', params: IdParamSchema },
+  { method: 'post', path: '/api/patterns/import', summary: 'Create a pattern from a Lanewright JSON or CSV file (errors by line)', who: 'coach, proprietor, admin', upload: true },
+  { method: 'get', path: '/api/centers', summary: 'Centers (with `following` when signed in)', who: 'public', query: PageQuerySchema },
+  { method: 'get', path: '/api/centers/mine', summary: 'The centers you operate (admin: all)', who: 'coach, proprietor, admin' },
+  { method: 'post', path: '/api/centers', summary: 'Create a center and assign its proprietor', who: 'admin', body: CenterInputSchema },
+  { method: 'get', path: '/api/centers/{id}', summary: 'One center', who: 'public', params: IdParamSchema },
+  { method: 'patch', path: '/api/centers/{id}', summary: 'Edit a center (owner: name and town; admin: all)', who: 'coach, proprietor, admin', params: IdParamSchema, body: CenterPatchSchema },
+  { method: 'get', path: '/api/centers/{id}/conditions/current', summary: 'The condition in force today', who: 'public', params: IdParamSchema },
+  { method: 'get', path: '/api/centers/{id}/conditions/current.pdf', summary: 'The printable sheet of the condition in force', who: 'public', params: IdParamSchema },
+  { method: 'get', path: '/api/centers/{id}/conditions', summary: 'Publication history, newest first', who: 'public', params: IdParamSchema, query: PageQuerySchema },
+  { method: 'post', path: '/api/centers/{id}/conditions', summary: 'Publish a condition (the center’s proprietor only); followers are e-mailed', who: 'coach, proprietor, admin', params: IdParamSchema, body: PublishConditionSchema },
+  { method: 'post', path: '/api/centers/{id}/follow', summary: 'Follow a center', who: 'signed-in', params: IdParamSchema },
+  { method: 'delete', path: '/api/centers/{id}/follow', summary: 'Stop following a center', who: 'signed-in', params: IdParamSchema },
+  { method: 'get', path: '/api/follows', summary: 'Centers you follow with their current condition', who: 'signed-in' },
+  { method: 'get', path: '/api/unsubscribe', summary: 'Unsubscribe link of a follower e-mail (no sign-in)', who: 'public' },
 ];
 
 const ErrorSchema = {

@@ -6,6 +6,7 @@ import type { AuthUser } from '../../middleware/auth';
 import { AppError } from '../../lib/AppError';
 import { sequelize } from '../../models/index';
 import type { Pattern } from '../../models/Pattern';
+import { patternToCsv, patternToJson, parsePatternFile } from './patternFiles';
 import { patternsRepository, toPatternListItem } from './patterns.repository';
 
 /** The engine's summary of a pattern, JSON-safe (an unbounded ratio becomes null). */
@@ -65,6 +66,23 @@ export const patternsService = {
       await p.save({ transaction });
       return toDetail(p);
     });
+  },
+  /** A copy owned by the caller, named "… (copy)". */
+  async duplicate(user: AuthUser, id: number): Promise<PatternDetail> {
+    const p = await patternsRepository.findById(id);
+    if (!p) throw AppError.notFound('Pattern');
+    return this.create(user, { name: `${p.name} (copy)`.slice(0, 80), description: p.description, sweeps: p.sweeps });
+  },
+  async exportFile(id: number, format: 'json' | 'csv'): Promise<{ filename: string; type: string; body: string }> {
+    const p = await patternsRepository.findById(id);
+    if (!p) throw AppError.notFound('Pattern');
+    const base = p.name.replace(/[^\w.-]+/g, '-').replace(/^-|-$/g, '').toLowerCase() || 'pattern';
+    return format === 'json'
+      ? { filename: `${base}.lanewright.json`, type: 'application/json', body: patternToJson(p) }
+      : { filename: `${base}.lanewright.csv`, type: 'text/csv', body: patternToCsv(p) };
+  },
+  async importFile(user: AuthUser, filename: string, buf: Buffer): Promise<PatternDetail> {
+    return this.create(user, parsePatternFile(filename, buf));
   },
   async remove(user: AuthUser, id: number): Promise<void> {
     const p = await patternsRepository.findById(id);

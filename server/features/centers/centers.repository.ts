@@ -1,0 +1,48 @@
+import { Op, type Transaction } from 'sequelize';
+import type { Center as CenterDto, Condition as ConditionDto } from '../../../shared/centers';
+import { Center, Condition, Follow } from '../../models/index';
+
+export function toCenterDto(c: Center, following?: boolean): CenterDto {
+  return { id: c.id, name: c.name, town: c.town, laneCount: c.laneCount, ownerId: c.ownerId, ...(following === undefined ? {} : { following }) };
+}
+
+export function toConditionDto(c: Condition, supersededBy: number | null = null): ConditionDto {
+  return {
+    id: c.id,
+    centerId: c.centerId,
+    lanes: c.lanes,
+    validFrom: c.validFrom,
+    validTo: c.validTo,
+    notes: c.notes,
+    publishedAt: c.publishedAt.toISOString(),
+    publishedBy: c.publishedBy,
+    supersededBy,
+    pattern: { id: c.patternId, name: c.patternName, sweeps: c.sweeps, summary: c.summary },
+  };
+}
+
+export const centersRepository = {
+  list(opts: { ownerId?: number; limit: number; offset: number }): Promise<{ rows: Center[]; count: number }> {
+    return Center.findAndCountAll({ where: opts.ownerId ? { ownerId: opts.ownerId } : {}, order: [['name', 'ASC'], ['id', 'ASC']], limit: opts.limit, offset: opts.offset });
+  },
+  findById(id: number, transaction?: Transaction): Promise<Center | null> {
+    return Center.findByPk(id, { transaction });
+  },
+  /** Publications in force on `day` (YYYY-MM-DD), newest publication first. */
+  inForce(centerId: number, day: string): Promise<Condition[]> {
+    return Condition.findAll({
+      where: { centerId, validFrom: { [Op.lte]: day }, [Op.or]: [{ validTo: null }, { validTo: { [Op.gte]: day } }] },
+      order: [['publishedAt', 'DESC'], ['id', 'DESC']],
+    });
+  },
+  history(centerId: number, limit: number, offset: number): Promise<{ rows: Condition[]; count: number }> {
+    return Condition.findAndCountAll({ where: { centerId }, order: [['publishedAt', 'DESC'], ['id', 'DESC']], limit, offset });
+  },
+  /** Later publications of the center (for working out which ones replaced an earlier one). */
+  publishedAfter(centerId: number, after: Date): Promise<Condition[]> {
+    return Condition.findAll({ where: { centerId, publishedAt: { [Op.gt]: after } }, order: [['publishedAt', 'ASC'], ['id', 'ASC']] });
+  },
+  followedIds(userId: number): Promise<Set<number>> {
+    return Follow.findAll({ where: { userId }, attributes: ['centerId'] }).then((rows) => new Set(rows.map((r) => r.centerId)));
+  },
+};
