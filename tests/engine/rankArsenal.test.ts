@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { rankArsenal, SCORING_LAYERS } from '../../engine/index';
+import { rankArsenal, SCORING_LAYERS, scoreByRules } from '../../engine/index';
 import type { ArsenalBall, OilPattern } from '../../engine/index';
 import {
   fourBalls,
@@ -93,14 +93,17 @@ describe('rankArsenal: bowler and pattern breakdown', () => {
     expect(first(slowHighRev)).toBe(polishedPearl.id);
   });
 
-  it('as games are bowled (0 → 3 → 9) the strong solid loses points and the urethane gains (oil depletes, the lane hooks more)', () => {
+  it('as games are bowled (0 → 3 → 9) the rules layer takes points from the strong solid and gives them to the urethane (oil depletes, the lane hooks more)', () => {
     // Common practice direction (engine/rules/patternBreakdown.ts; TRADE.md 5.2 rationale).
-    const solid = [0, 3, 9].map((g) => scoreOf(roughAsymSolid, houseShot, typicalBowler, g));
-    const urethane = [0, 3, 9].map((g) => scoreOf(urethaneBall, houseShot, typicalBowler, g));
-    expect(solid[1]).toBeLessThan(solid[0]);
-    expect(solid[2]).toBeLessThan(solid[1]);
-    expect(urethane[1]).toBeGreaterThan(urethane[0]);
-    expect(urethane[2]).toBeGreaterThan(urethane[1]);
+    const rules = (ball: ArsenalBall, g: number): number => scoreByRules(ball, typicalBowler, houseShot, g).score;
+    expect(rules(roughAsymSolid, 3)).toBeLessThan(rules(roughAsymSolid, 0));
+    expect(rules(roughAsymSolid, 9)).toBeLessThan(rules(roughAsymSolid, 3));
+    expect(rules(urethaneBall, 3)).toBeGreaterThan(rules(urethaneBall, 0));
+    expect(rules(urethaneBall, 9)).toBeGreaterThan(rules(urethaneBall, 3));
+  });
+
+  it('as games are bowled (0 → 9) the strong solid’s combined score falls', () => {
+    expect(scoreOf(roughAsymSolid, houseShot, typicalBowler, 9)).toBeLessThan(scoreOf(roughAsymSolid, houseShot, typicalBowler, 0));
   });
 });
 
@@ -177,13 +180,23 @@ describe('rankArsenal: malformed input throws, naming rankArsenal', () => {
 });
 
 describe('rankArsenal: scoring layers', () => {
-  it('reports each layer’s own score; with the rules layer alone the ball’s score is the rules score', () => {
-    // engine/scoringLayers.ts: today one layer, 'rules', weight 1 (combineLayers: weighted mean).
-    const [r] = rankArsenal({ balls: [urethaneBall], bowler: typicalBowler, pattern: houseShot });
-    expect(r.layers).toEqual([{ name: 'rules', weight: 1, score: r.score }]);
+  const [r] = rankArsenal({ balls: [urethaneBall], bowler: typicalBowler, pattern: houseShot, gamesBowled: 2 });
+
+  it('lists every layer’s own score, the rules layer first, and its score is scoreByRules’', () => {
+    // engine/scoringLayers.ts: the rules layer is SCORING_LAYERS[0].
+    expect(SCORING_LAYERS[0].name).toBe('rules');
+    expect(r.layers?.[0]).toEqual({ name: 'rules', weight: 1, score: scoreByRules(urethaneBall, typicalBowler, houseShot, 2).score });
   });
 
-  it('SCORING_LAYERS lists the rules layer first', () => {
-    expect(SCORING_LAYERS.map((l) => l.name)[0]).toBe('rules');
+  it('points: the ball’s score is the weighted mean of its layers’ scores (±0.06 for rounding)', () => {
+    // engine/combineLayers.ts: Σ weight × score ÷ Σ weight.
+    const layers = r.layers ?? [];
+    const mean = layers.reduce((s, l) => s + l.weight * l.score, 0) / layers.reduce((s, l) => s + l.weight, 0);
+    expect(Math.abs(r.score - mean)).toBeLessThan(0.06);
+  });
+
+  it('the rules layer’s reasons are all among the ball’s reasons', () => {
+    const rules = scoreByRules(urethaneBall, typicalBowler, houseShot, 2).reasons;
+    for (const reason of rules) expect(r.reasons).toContainEqual(reason);
   });
 });

@@ -1,0 +1,27 @@
+import { describe, expect, it } from 'vitest';
+import { rankArsenal, rankTransition } from '../../engine/index';
+import { fourBalls, houseShot, roughAsymSolid, typicalBowler } from './fixtures';
+
+// Definition: rankArsenal at each games-bowled count; direction from the patternBreakdown rule
+// (common practice: the strong ball loses ground as the pattern breaks down).
+
+describe('rankTransition', () => {
+  const input = { balls: fourBalls, bowler: typicalBowler, pattern: houseShot };
+
+  it('default counts 0, 3, 6, 9 games, each equal to rankArsenal at that count', () => {
+    const t = rankTransition(input);
+    expect(t.map((x) => x.gamesBowled)).toEqual([0, 3, 6, 9]);
+    for (const x of t) expect(x.ranking).toEqual(rankArsenal({ ...input, gamesBowled: x.gamesBowled }));
+  });
+
+  it('points: the strong solid’s score falls from 0 to 9 games', () => {
+    const score = (g: number): number =>
+      rankTransition(input, [g])[0].ranking.find((r) => r.id === roughAsymSolid.id)?.score ?? Number.NaN;
+    expect(score(9)).toBeLessThan(score(0));
+  });
+
+  it('throws RangeError naming rankArsenal for a negative count, TypeError for games that are not an array', () => {
+    expect(() => rankTransition(input, [-1])).toThrow(/rankArsenal: gamesBowled must be 0 or more/);
+    expect(() => rankTransition(input, 3 as unknown as number[])).toThrow(TypeError);
+  });
+});
