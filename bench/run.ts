@@ -10,7 +10,9 @@
  * Timing: a sample runs the bench `batch` times in a row and records the mean per call, where
  * `batch` is chosen during warm-up so a sample lasts about 0.2 ms — calls far shorter than the
  * timer's resolution are still measured. A target of the form "< N ms" (optionally followed by
- * words such as "median") is checked against the median and reported as ok / MISSED.
+ * words such as "median") is checked against the median and reported as ok / MISSED. A bench that
+ * throws is reported as ERROR (figures null in results.json) and the run goes on; the exit status
+ * is then 1.
  *
  * Usage: `npm run bench [-- FILTER] [-- --strict]`: FILTER keeps benches whose file or name
  * contains it; --strict exits with status 1 when a target is missed.
@@ -40,6 +42,8 @@ export interface BenchResult {
   samples: number;
   batch: number;
   file: string;
+  /** Set when the bench threw; its figures are then NaN. */
+  error?: string;
 }
 
 const DEFAULT_ITERATIONS = 200;
@@ -84,12 +88,14 @@ export function measure(bench: Bench, file: string): BenchResult {
 
 /** 'ok', 'MISSED' or '' for a "< N ms" target checked against the median. */
 export function targetStatus(r: BenchResult): string {
+  if (r.error) return 'ERROR';
   const m = r.target?.match(/^\s*<\s*([\d.]+)\s*ms/);
   if (!m) return '';
   return r.medianMs < Number(m[1]) ? 'ok' : 'MISSED';
 }
 
 function fmt(ms: number): string {
+  if (Number.isNaN(ms)) return '—';
   return ms >= 1 ? ms.toFixed(2) : ms >= 0.01 ? ms.toFixed(4) : ms.toExponential(2);
 }
 
@@ -116,7 +122,13 @@ async function main(): Promise<void> {
     }
     for (const bench of mod.benches as Bench[]) {
       if (filter && !file.includes(filter) && !bench.name.includes(filter)) continue;
-      results.push(measure(bench, file));
+      try {
+        results.push(measure(bench, file));
+      } catch (err: unknown) {
+        const error = err instanceof Error ? `${err.name}: ${err.message}` : String(err);
+        console.error(`bench: "${bench.name}" (${file}) threw ${error}`);
+        results.push({ name: bench.name, medianMs: Number.NaN, p95Ms: Number.NaN, target: bench.target ?? null, samples: 0, batch: 0, file, error });
+      }
     }
   }
 
@@ -136,12 +148,22 @@ async function main(): Promise<void> {
       node: process.version,
     },
     date: new Date().toISOString(),
-    results: results.map(({ name, medianMs, p95Ms, target, samples, batch, file }) => ({ name, medianMs, p95Ms, target, samples, batch, file })),
+    results: results.map(({ name, medianMs, p95Ms, target, samples, batch, file, error }) => ({
+      name,
+      medianMs: Number.isNaN(medianMs) ? null : medianMs,
+      p95Ms: Number.isNaN(p95Ms) ? null : p95Ms,
+      target,
+      samples,
+      batch,
+      file,
+      ...(error ? { error } : {}),
+    })),
   };
   writeFileSync(join(here, 'results.json'), JSON.stringify(out, null, 2) + '\n');
   console.log(`\nwrote bench/results.json (${results.length} results)`);
 
-  if (strict && results.some((r) => targetStatus(r) === 'MISSED')) process.exit(1);
+  if (results.some((r) => r.error)) process.exitCode = 1;
+  if (strict && results.some((r) => targetStatus(r) === 'MISSED')) process.exitCode = 1;
 }
 
 // Run only when executed directly (so bench files may import the Bench type from here).
