@@ -46,6 +46,8 @@ export interface RequestOptions {
    */
   skipAuthRedirect?: boolean;
   signal?: AbortSignal;
+  /** Answer with the body as a Blob (downloads: exports, PDFs) instead of parsed JSON; errors are parsed as usual. */
+  asBlob?: boolean;
 }
 
 interface ClientConfig {
@@ -107,6 +109,7 @@ export async function request<T>(method: HttpMethod, path: string, options: Requ
     throw new ApiRequestError(0, 'network_error', 'Lanewright could not be reached. Check your connection and try again.');
   }
 
+  if (res.ok && options.asBlob) return (await res.blob()) as T;
   const data = await readJson(res);
   if (res.ok) return data as T;
 

@@ -17,8 +17,12 @@ export const NAV_ITEMS: readonly AppLayoutNavItem[] = [
   { name: 'arsenal', label: 'Arsenal' },
   { name: 'catalogue', label: 'Catalogue' },
   { name: 'matchup', label: 'Matchup' },
+  { name: 'patterns', label: 'Patterns' },
+  { name: 'conditions', label: 'Conditions' },
+  { name: 'center-admin', label: 'Center admin', roles: ['proprietor', 'admin'] },
   { name: 'profile', label: 'Profile' },
   { name: 'admin-users', label: 'Admin', roles: ['admin'] },
+  { name: 'dev-mail', label: 'Dev mailbox', roles: ['admin'] },
 ];
 
 export function navItemsFor(role: Role | null): AppLayoutNavItem[] {

@@ -12,6 +12,13 @@ export const ROUTE_NAMES = [
   'ball',
   'catalogue',
   'matchup',
+  'patterns',
+  'pattern-new',
+  'pattern-edit',
+  'conditions',
+  'center-condition',
+  'center-admin',
+  'dev-mail',
   'forbidden',
   'not-found',
 ] as const;
@@ -49,6 +56,40 @@ export const routes: AppRouteRecord[] = [
       { path: 'arsenal/:id(\\d+)', name: 'ball', component: () => import('@/views/BallView.vue'), meta: { title: 'Ball' } },
       { path: 'catalogue', name: 'catalogue', component: () => import('@/views/CatalogueView.vue'), meta: { title: 'Catalogue' } },
       { path: 'matchup', name: 'matchup', component: () => import('@/views/MatchupView.vue'), meta: { title: 'Matchup' } },
+      { path: 'patterns', name: 'patterns', component: () => import('@/views/PatternsView.vue'), meta: { title: 'Patterns' } },
+      {
+        path: 'patterns/new',
+        name: 'pattern-new',
+        component: () => import('@/views/PatternEditorView.vue'),
+        meta: { title: 'New pattern', roles: ['coach', 'proprietor', 'admin'] },
+      },
+      {
+        path: 'patterns/:id(\\d+)/edit',
+        name: 'pattern-edit',
+        component: () => import('@/views/PatternEditorView.vue'),
+        meta: { title: 'Edit pattern', roles: ['coach', 'proprietor', 'admin'] },
+      },
+      { path: 'conditions', name: 'conditions', component: () => import('@/views/ConditionsView.vue'), meta: { title: 'Conditions' } },
+      {
+        // Public: a center's published condition is meant to be shared, no sign-in needed.
+        path: 'centers/:id(\\d+)/condition',
+        name: 'center-condition',
+        component: () => import('@/views/ConditionPublicView.vue'),
+        meta: { title: 'Lane condition', public: true },
+      },
+      {
+        path: 'center-admin',
+        name: 'center-admin',
+        component: () => import('@/views/CenterAdminView.vue'),
+        meta: { title: 'Center admin', roles: ['proprietor', 'admin'] },
+      },
+      {
+        // Development and tests only: the page says so when the API has no mailbox (production).
+        path: 'dev/mail',
+        name: 'dev-mail',
+        component: () => import('@/views/DevMailView.vue'),
+        meta: { title: 'Dev mailbox', public: true },
+      },
       {
         path: 'admin/users',
         name: 'admin-users',
