@@ -60,3 +60,39 @@ export { bowlerSpeedRevs, BOWLER_SPEED_REVS_POINTS } from './rules/bowlerSpeedRe
 export { patternBreakdown, PATTERN_BREAKDOWN_POINTS, BREAKDOWN_NEUTRAL_STRENGTH } from './rules/patternBreakdown';
 export { plasticSpareBall, PLASTIC_STRIKE_PENALTY } from './rules/plasticSpareBall';
 export { usbcLegality, ILLEGAL_BALL_PENALTY } from './rules/usbcLegality';
+
+// ── Ball-motion model (issue 4, engine/motion; its README lists every model assumption) ─────────
+export { simulateShot } from './motion/simulateShot';
+export type { ShotPrediction, SimulateShotInput } from './motion/shotPrediction';
+export { missRoom } from './motion/missRoom';
+export type { MissRoom } from './motion/missRoom';
+export { motionLayer, MOTION_LAYER_POINTS, MOTION_LAYER_WEIGHT } from './motion/motionLayer';
+export type { MotionVerdict, RankedBallWithPrediction } from './motion/motionLayer';
+export { MOTION_CALIBRATION } from './motion/motionCalibration';
+export type { CoverCalibration } from './motion/motionCalibration';
+export { PHYSICAL_CONSTANTS } from './motion/physicalConstants';
+export { ballInertia } from './motion/ballInertia';
+export type { BallInertia } from './motion/ballInertia';
+export { coverFriction } from './motion/coverFriction';
+export type { CoverFriction } from './motion/coverFriction';
+export { laneOilMap } from './motion/laneOilMap';
+export type { LaneOilMap } from './motion/laneOilMap';
+export { patternOilMap } from './motion/patternOilMap';
+export { conditionOilMap } from './motion/conditionOilMap';
+export { transitionOilMap } from './motion/transitionOilMap';
+export type { TransitionResult } from './motion/transitionOilMap';
+export { oilVolumeUl } from './motion/oilVolumeUl';
+export { uniformFrictionField, sampledFrictionField, oilFrictionField } from './motion/frictionField';
+export type { FrictionField } from './motion/frictionField';
+export { layoutOrientation } from './motion/layoutOrientation';
+export { releaseState, STATE, handSign } from './motion/releaseState';
+export { integrateDelivery } from './motion/integrateDelivery';
+export type { IntegrateOptions, DeliveryResult } from './motion/integrateDelivery';
+export { contactAngularMomentum } from './motion/contactAngularMomentum';
+export { kineticEnergy } from './motion/kineticEnergy';
+export { solvePocketLine } from './motion/solvePocketLine';
+export type { PocketLine } from './motion/solvePocketLine';
+export { prepareShot } from './motion/prepareShot';
+export type { PreparedShot } from './motion/prepareShot';
+export { toShotPrediction } from './motion/simulateShot';
+// ── end ball-motion model ──────────────────────────────────────────────────────────────────────

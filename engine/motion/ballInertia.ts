@@ -23,9 +23,10 @@ export interface BallInertia {
  * No mass-centre offset (PHYSICS.md §1.9 is not modelled).
  *
  * Units: lb and in in; kg, m, kg·m² out. Edge cases: throws RangeError for weight outside
- * (0, 16] lb, diameter outside [8, 9] in, RG outside [2, 3] in, differential outside [0, 0.1] in,
- * intermediate differential outside [0, differential]; TypeError for non-numbers. A uniform sphere
- * (rg² = 0.4 R²) is allowed although not legal in play.
+ * (0, 40] lb, diameter outside [6, 12] in, RG outside [1 in, R], differential outside [0, 0.5] in,
+ * intermediate differential outside [0, differential]; TypeError for non-numbers. Illegal balls (over
+ * 16 lb, RG outside 2.46–2.80 in, a uniform sphere rg² = 0.4 R²) are modelled all the same: legality
+ * is the rules layer's business.
  *
  * Example: `ballInertia({ weightLb: 16, rg: 2.5, differential: 0, … }).iLow` → 0.029258 kg·m²
  * (PHYSICS.md §1.1 reference: I_L = 0.02926 kg m² at k_L = 2.50 in).
@@ -33,10 +34,10 @@ export interface BallInertia {
 export function ballInertia(ball: BallSpec): BallInertia {
   const fn = 'ballInertia';
   if (ball === null || typeof ball !== 'object') throw new TypeError(`${fn}: ball must be an object, got ${String(ball)}`);
-  const weightLb = assertNumber(fn, 'weightLb', ball.weightLb, 1e-9, 16);
-  const diameterIn = assertNumber(fn, 'diameterIn', ball.diameterIn ?? C.defaultDiameterIn, 8, 9);
-  const rg = assertNumber(fn, 'rg', ball.rg, 2, 3);
-  const diff = assertNumber(fn, 'differential', ball.differential, 0, 0.1);
+  const weightLb = assertNumber(fn, 'weightLb', ball.weightLb, 1e-9, 40);
+  const diameterIn = assertNumber(fn, 'diameterIn', ball.diameterIn ?? C.defaultDiameterIn, 6, 12);
+  const rg = assertNumber(fn, 'rg', ball.rg, 1, diameterIn / 2);
+  const diff = assertNumber(fn, 'differential', ball.differential, 0, 0.5);
   const idiff = assertNumber(fn, 'intermediateDifferential', ball.intermediateDifferential, 0, diff);
   const m = weightLb * C.poundKg;
   const kL = rg * C.inchM;

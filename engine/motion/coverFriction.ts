@@ -28,13 +28,13 @@ const COVERS: readonly CoverType[] = ['plastic', 'urethane', 'reactive-pearl', '
  * gives a larger σ, so a given film lubricates less and the ball reads the oil earlier.
  *
  * Units: grit (dimensionless, 100–10000), µm, s. Edge cases: TypeError for an unknown cover type,
- * RangeError for grit outside [100, 10000]; μ_dry is capped at the USBC 0.32 limit.
+ * RangeError for grit outside [1, 1e6]; μ_dry is capped at the USBC 0.32 limit.
  * Example: a 500-grit reactive solid → muOil 0.044, muDry 0.22, filmScaleUm ≈ 0.91.
  */
 export function coverFriction(ball: Pick<BallSpec, 'coverType' | 'surfaceGrit' | 'polished'>): CoverFriction {
   const fn = 'coverFriction';
   if (!COVERS.includes(ball.coverType)) throw new TypeError(`${fn}: unknown coverType ${String(ball.coverType)}`);
-  const grit = assertNumber(fn, 'surfaceGrit', ball.surfaceGrit, 100, 10000);
+  const grit = assertNumber(fn, 'surfaceGrit', ball.surfaceGrit, 1, 1e6);
   if (typeof ball.polished !== 'boolean') throw new TypeError(`${fn}: polished must be a boolean, got ${String(ball.polished)}`);
   const c = K.covers[ball.coverType];
   const ra = K.ballRaAtRefGritUm * Math.pow(K.refGrit / grit, K.gritExponent) * c.textureFactor * (ball.polished ? K.polishRaFactor : 1);

@@ -94,7 +94,7 @@ export const MOTION_CALIBRATION = Object.freeze({
   /** Standard deviation of the bowlers' lines around the reference line, boards (assumption). */
   lineSpreadBoards: 3,
   /** Fraction of the picked-up oil laid back down beyond the pattern's end (κ_drop, assumption); the rest stays on the balls and is wiped or absorbed. */
-  carrydownFraction: 0.1,
+  carrydownFraction: 0.03,
   /** Length beyond the pattern end over which carrydown is spread, ft (assumption). */
   carrydownLengthFt: 12,
   /** The invented mid-strength ball whose pocket line stands for the pair's track (assumption: the pair plays lines like the bowler's own). */

@@ -1,4 +1,4 @@
-import type { BallSpec, BowlerProfile, LayerResult, OilPattern, RuleResult } from '../types';
+import type { BallSpec, BowlerProfile, LayerResult, OilPattern, RankedBall, RuleResult } from '../types';
 import { conditionOilMap } from './conditionOilMap';
 import type { LaneOilMap } from './laneOilMap';
 import { missRoom, type MissRoom } from './missRoom';
@@ -15,6 +15,12 @@ export interface MotionVerdict {
   missRoom: MissRoom;
   pocketReached: boolean;
 }
+
+/** A ranked ball of rankArsenal with the ball-motion model's prediction and miss room (issue 4). */
+export type RankedBallWithPrediction = RankedBall & { prediction: ShotPrediction; missRoom: MissRoom };
+
+/** Weight of the motion layer in rankArsenal's combined score (the rules layer has 1; Lanewright's choice). */
+export const MOTION_LAYER_WEIGHT = 1;
 
 /** Points of the motion layer (Lanewright's choice; see motionLayer). */
 export const MOTION_LAYER_POINTS = Object.freeze({

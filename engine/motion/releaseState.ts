@@ -27,7 +27,7 @@ export function handSign(hand: BowlerProfile['hand']): 1 | -1 {
  * left-hander's hand board b is pattern board 40 − b, so y = h·(b − 20)·board.
  *
  * Units: boards, mph, rpm, degrees in; SI state out (see `STATE`). Edge cases: speed must be in
- * [3, 35] mph, revs in [0, 800] rpm, rotation in [0, 90]°, tilt in [0, 80]°, boards in [−5, 45];
+ * [3, 40] mph, revs in [0, 1000] rpm (BOWLER_BOUNDS of the first layer), rotation and tilt in [0, 90]°, boards in [−5, 45];
  * `papRightIn`/`papUpIn` are not used (the layout is given relative to the PAP).
  * Example: a right-hander at 17.9 mph, 300 rpm, 45°/15° laid down on 20 aiming at 20 has
  * v = (8.0, 0) m/s and ω ≈ (−21.4, 21.4, 8.13) rad/s.
@@ -36,10 +36,10 @@ export function releaseState(ball: BallSpec, bowler: BowlerProfile, laydownBoard
   const fn = 'releaseState';
   if (bowler === null || typeof bowler !== 'object') throw new TypeError(`${fn}: bowler must be an object, got ${String(bowler)}`);
   const h = handSign(bowler.hand);
-  const V = assertNumber(fn, 'speedMph', bowler.speedMph, 3, 35) * C.mphMs;
-  const rpm = assertNumber(fn, 'revRpm', bowler.revRpm, 0, 800);
+  const V = assertNumber(fn, 'speedMph', bowler.speedMph, 3, 40) * C.mphMs;
+  const rpm = assertNumber(fn, 'revRpm', bowler.revRpm, 0, 1000);
   const theta = (assertNumber(fn, 'axisRotationDeg', bowler.axisRotationDeg, 0, 90) * Math.PI) / 180;
-  const phi = (assertNumber(fn, 'axisTiltDeg', bowler.axisTiltDeg, 0, 80) * Math.PI) / 180;
+  const phi = (assertNumber(fn, 'axisTiltDeg', bowler.axisTiltDeg, 0, 90) * Math.PI) / 180;
   assertNumber(fn, 'laydownBoard', laydownBoard, -5, 45);
   assertNumber(fn, 'targetBoard', targetBoard, -5, 45);
   const bw = C.boardWidthM;

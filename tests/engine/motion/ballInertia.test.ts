@@ -15,9 +15,9 @@ describe('ballInertia (PHYSICS.md §1.1)', () => {
     expect(Math.sqrt(I.iInt / I.massKg) / 0.0254).toBeCloseTo(2.53, 12);
   });
 
-  it('errors, invalid input: RangeError naming the function for 17 lb, TypeError for a NaN RG, RangeError for intermediate > total differential', () => {
-    expect(() => ballInertia(isotropicBall(2.5, { weightLb: 17 }))).toThrow(RangeError);
-    expect(() => ballInertia(isotropicBall(2.5, { weightLb: 17 }))).toThrow(/ballInertia: weightLb .* 17/);
+  it('errors, invalid input: RangeError naming the function for 41 lb, TypeError for a NaN RG, RangeError for intermediate > total differential', () => {
+    expect(() => ballInertia(isotropicBall(2.5, { weightLb: 41 }))).toThrow(RangeError);
+    expect(() => ballInertia(isotropicBall(2.5, { weightLb: 41 }))).toThrow(/ballInertia: weightLb .* 41/);
     expect(() => ballInertia(isotropicBall(Number.NaN))).toThrow(TypeError);
     expect(() => ballInertia(isotropicBall(2.5, { differential: 0.01, intermediateDifferential: 0.02 }))).toThrow(RangeError);
   });
