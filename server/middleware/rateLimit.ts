@@ -1,13 +1,25 @@
 import rateLimit from 'express-rate-limit';
 import { config } from '../config/index';
 
-/** Limits sign-in, sign-up and reset attempts per client address (per 15 minutes). */
+const tooMany = (_req: unknown, res: { status: (n: number) => { json: (b: unknown) => void } }) => {
+  res.status(429).json({ error: { code: 'rate_limited', message: 'Too many attempts; wait a few minutes and try again' } });
+};
+
+/** Sign-in, reset: counts only failed attempts per client address (15 minutes), so guessing is slow and normal use is not limited. */
 export const authRateLimit = rateLimit({
+  windowMs: 15 * 60 * 1000,
+  limit: config.RATE_LIMIT_AUTH,
+  skipSuccessfulRequests: true,
+  standardHeaders: 'draft-8',
+  legacyHeaders: false,
+  handler: tooMany,
+});
+
+/** Sign-up and reset-mail requests: every attempt counts, per client address (15 minutes). */
+export const signupRateLimit = rateLimit({
   windowMs: 15 * 60 * 1000,
   limit: config.RATE_LIMIT_AUTH,
   standardHeaders: 'draft-8',
   legacyHeaders: false,
-  handler: (_req, res) => {
-    res.status(429).json({ error: { code: 'rate_limited', message: 'Too many attempts; wait a few minutes and try again' } });
-  },
+  handler: tooMany,
 });

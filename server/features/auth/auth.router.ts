@@ -1,14 +1,14 @@
 import { Router } from 'express';
 import { ForgotSchema, LoginSchema, RegisterSchema, ResetSchema } from '../../../shared/auth';
 import { requireAuth } from '../../middleware/auth';
-import { authRateLimit } from '../../middleware/rateLimit';
+import { authRateLimit, signupRateLimit } from '../../middleware/rateLimit';
 import { validate } from '../../middleware/validate';
 import { authController } from './auth.controller';
 
 export const authRouter = Router();
 
-authRouter.post('/register', authRateLimit, validate({ body: RegisterSchema }), authController.register);
+authRouter.post('/register', signupRateLimit, validate({ body: RegisterSchema }), authController.register);
 authRouter.post('/login', authRateLimit, validate({ body: LoginSchema }), authController.login);
 authRouter.get('/me', requireAuth, authController.me);
-authRouter.post('/forgot', authRateLimit, validate({ body: ForgotSchema }), authController.forgot);
+authRouter.post('/forgot', signupRateLimit, validate({ body: ForgotSchema }), authController.forgot);
 authRouter.post('/reset', authRateLimit, validate({ body: ResetSchema }), authController.reset);

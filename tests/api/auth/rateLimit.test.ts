@@ -1,9 +1,16 @@
 import { describe, expect, it } from 'vitest';
 import { config } from '../../../server/config/index';
-import { api, errorOf } from '../../helpers/api';
+import { api, createUser, errorOf } from '../../helpers/api';
 
 describe('sign-in rate limit', () => {
-  it('answers 429 in the error shape once a client passes the limit', async () => {
+  it('does not count successful sign-ins', async () => {
+    const { user, password } = await createUser();
+    for (let i = 0; i <= config.RATE_LIMIT_AUTH; i++) {
+      expect((await api.post('/api/auth/login').send({ email: user.email, password })).status).toBe(200);
+    }
+  });
+
+  it('answers 429 in the error shape once a client passes the limit of failed attempts', async () => {
     let last = 0;
     for (let i = 0; i <= config.RATE_LIMIT_AUTH; i++) {
       last = (await api.post('/api/auth/login').send({ email: 'nobody@example.test', password: 'wrong-password' })).status;
