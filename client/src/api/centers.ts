@@ -1,0 +1,33 @@
+import type { Page } from '@shared/auth';
+import type { Center, Condition, CurrentCondition, PublishCondition } from '@shared/centers';
+import { api } from './client';
+
+/** One followed center and the condition in force there now (null when nothing is published). */
+export interface FollowedCenter {
+  center: Center;
+  current: Condition | null;
+}
+
+/**
+ * Centers and their published conditions. The list, a center, its current condition, its PDF sheet and its
+ * history are public (no sign-in); following needs sign-in; publishing is for the center's proprietor.
+ */
+export const centersApi = {
+  list: (params: { page?: number; pageSize?: number } = {}, signal?: AbortSignal) =>
+    api.get<{ items: Center[]; total: number }>('/centers', { query: { pageSize: 100, ...params }, signal }),
+  get: (id: number, signal?: AbortSignal) => api.get<{ item: Center }>(`/centers/${id}`, { signal }),
+  /** 404 with code `no_condition` when nothing is published. */
+  current: (id: number, signal?: AbortSignal) => api.get<CurrentCondition>(`/centers/${id}/conditions/current`, { signal }),
+  /** Newest first; a publication is never edited (corrections are new publications). */
+  history: (id: number, params: { page?: number; pageSize?: number } = {}, signal?: AbortSignal) =>
+    api.get<Page<Condition>>(`/centers/${id}/conditions`, { query: { ...params }, signal }),
+  /** The printable sheet for the front desk (opened as a plain link). */
+  sheetUrl: (id: number) => `/api/centers/${id}/conditions/current.pdf`,
+  /** The center's proprietor only (403 for anyone else); followers get an e-mail. */
+  publish: (id: number, body: PublishCondition) => api.post<{ item: Condition }>(`/centers/${id}/conditions`, body),
+  follow: (id: number) => api.post<{ following: true }>(`/centers/${id}/follow`),
+  unfollow: (id: number) => api.delete<{ following: false }>(`/centers/${id}/follow`),
+  follows: (signal?: AbortSignal) => api.get<{ items: FollowedCenter[] }>('/follows', { signal }),
+  /** A proprietor's own centers (admin: all). */
+  mine: (signal?: AbortSignal) => api.get<{ items: Center[] }>('/centers/mine', { signal }),
+};
