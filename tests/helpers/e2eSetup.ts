@@ -1,4 +1,5 @@
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import fs from 'node:fs';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
 import { freshDatabase, root, runTsx, throwawayCluster } from './database';
@@ -11,7 +12,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
   const cluster = await throwawayCluster();
   const url = await freshDatabase(cluster.adminUrl, 'lw_e2e');
   runTsx(['seeders/index.ts'], url);
-  const distDir = path.join(root, 'dist', 'e2e-client');
+  const distDir = path.join(root, 'dist', `e2e-client-${process.pid}`);
   const build = spawnSync(path.join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'error', '--outDir', distDir], { cwd: root, encoding: 'utf8' });
   if (build.status !== 0) throw new Error(`vite build failed:\n${build.stdout}\n${build.stderr}`);
 
@@ -36,6 +37,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
   return async () => {
     server.kill('SIGTERM');
     await new Promise((r) => server.once('exit', r));
+    fs.rmSync(distDir, { recursive: true, force: true });
     cluster.stop();
   };
 }
