@@ -59,7 +59,9 @@ export function solvePocketLine(
     const d = line.side > 0 ? 1 : -1; // hooks past the pocket everywhere: widen
     if (dir !== 0 && d !== dir) break;
     dir = d;
-    i += d;
+    // a straight line moves 3 boards at the pins per board of launch: jump by about |miss| / 3 boards of D
+    // (2 boards per step of the list), at least one step
+    i += d * Math.max(1, Math.round(Math.abs(line.result.entryBoard - C.pocketBoard) / 6));
     // next guess from the hook just seen: entry ≈ x − 3D + H (straight line plus hook H)
     const hook = line.result.entryBoard - (line.targetBoard - (arrowsToPins - 1) * D);
     if (i >= 0 && i < launches.length) x0 = C.pocketBoard + (arrowsToPins - 1) * launches[i] - hook;
@@ -102,14 +104,28 @@ function solveOne(
   let a = evalAt(clampX(x0));
   let bracket: [Sample, Sample] | null = null;
   if (!done()) {
-    let b = evalAt(clampX(a.x - a.g / slope));
-    for (let it = 0; it < 7 && !done(); it++) {
+    const maxStep = 8 / Math.abs(slope); // boards of x per step (8 boards at the pins)
+    const step = (from: number, dx: number): number => clampX(from + Math.max(-maxStep, Math.min(maxStep, dx)));
+    let b = evalAt(step(a.x, -a.g / slope));
+    let turned = 0;
+    for (let it = 0; it < 6 && !done(); it++) {
       if (a.g * b.g <= 0 && a.x !== b.x) { bracket = [a, b]; break; }
-      let s = b.x !== a.x ? (b.g - a.g) / (b.x - a.x) : slope;
-      if (!(s * slope > 0) || Math.abs(s) < 0.2 * Math.abs(slope)) s = slope;
-      const x2 = clampX(b.x - b.g / s);
+      const s = b.x !== a.x ? (b.g - a.g) / (b.x - a.x) : slope;
+      let x2: number;
+      if (s * slope > 0 && Math.abs(s) >= 0.2 * Math.abs(slope)) x2 = step(b.x, -b.g / s);
+      else if (b.g < 0) {
+        // the entry turned (the lane's hold area makes the entry curve U-shaped) below the pocket: step
+        // from the inner of the two lines up the rising branch with the straight-line slope
+        x2 = step(slope > 0 ? Math.max(a.x, b.x) : Math.min(a.x, b.x), -b.g / slope);
+      } else {
+        // turned above the pocket: look between the two lines for the bottom of the U, twice at most;
+        // still past the pocket there means no root on this launch
+        if (++turned > 2 || (Math.abs((best as unknown as Sample).g) > 2 && it >= 1)) break;
+        x2 = (a.x + b.x) / 2;
+      }
       if (Math.abs(x2 - b.x) < 1e-9) break; // pinned at the end of the range
-      a = b; b = evalAt(x2);
+      if (Math.abs(b.g) < Math.abs(a.g)) { a = b; }
+      b = evalAt(x2);
     }
   }
   let side = 0;

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { ballInertia } from '../../../engine/motion/index';
+import { ballInertia } from '../../../engine/index';
 import { isotropicBall } from './fixtures';
 
 describe('ballInertia (PHYSICS.md §1.1)', () => {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { simulateShot } from '../../../engine/motion/index';
+import { simulateShot } from '../../../engine/index';
 import type { BallSpec, BowlerProfile, OilPattern } from '../../../engine/types';
 import { flatPattern, housePattern, strokerBowler, strongBall } from './fixtures';
 

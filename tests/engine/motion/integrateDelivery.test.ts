@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import {
   ballInertia, contactAngularMomentum, integrateDelivery, kineticEnergy, releaseState, sampledFrictionField, STATE, uniformFrictionField,
-} from '../../../engine/motion/index';
+} from '../../../engine/index';
 import { asymmetricBall, isotropicBall, linePsi, MM_PER_BOARD, referenceBowler } from './fixtures';
 
 const G = 9.80665;

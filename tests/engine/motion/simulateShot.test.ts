@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { coverFriction, MOTION_CALIBRATION, simulateShot } from '../../../engine/motion/index';
+import { coverFriction, MOTION_CALIBRATION, simulateShot } from '../../../engine/index';
 import type { CoverType } from '../../../engine/types';
 import { flatPattern, housePattern, mirroredPattern, strokerBowler, strongBall } from './fixtures';
 
