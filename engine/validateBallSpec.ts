@@ -16,7 +16,8 @@ export const COVER_TYPES: readonly CoverType[] = [
  *
  * Well-formed is about physical sense, not legality (see checkLegality): weight, diameter and RG
  * are positive, the RG is smaller than the ball's radius (no mass can sit outside the ball), the
- * differentials are zero or more, the grit is positive, the hardness (if given) is on the 0–100
+ * differentials are zero or more and the intermediate differential is no larger than the
+ * differential (the intermediate axis's RG lies between the lowest and the highest), the grit is positive, the hardness (if given) is on the 0–100
  * durometer scale, and the layout (if given) has a pin-to-PAP distance from 0 to half the
  * circumference and angles from 0° to 180°.
  *
@@ -39,8 +40,14 @@ export function validateBallSpec(ball: unknown, fn = 'validateBallSpec'): assert
   if (rg >= diameter / 2) {
     throw new RangeError(`${fn}: rg ${rg} in is not smaller than the ball's radius ${diameter / 2} in`);
   }
-  inRange(fn, 'differential', b.differential, 0, undefined, 'in');
-  inRange(fn, 'intermediateDifferential', b.intermediateDifferential, 0, undefined, 'in');
+  const diff = inRange(fn, 'differential', b.differential, 0, undefined, 'in');
+  const intDiff = inRange(fn, 'intermediateDifferential', b.intermediateDifferential, 0, undefined, 'in');
+  if (intDiff > diff) {
+    throw new RangeError(
+      `${fn}: intermediateDifferential ${intDiff} in is larger than differential ${diff} in; ` +
+        'the intermediate RG lies between the lowest and the highest',
+    );
+  }
   oneOf(fn, 'coverType', b.coverType, COVER_TYPES);
   positive(fn, 'surfaceGrit', b.surfaceGrit);
   bool(fn, 'polished', b.polished);

@@ -76,7 +76,7 @@ describe('checkLegality: each limit, at it and just past it', () => {
 
   it('intermediate differential is never a violation and is listed as unchecked (no USBC limit found)', () => {
     // TRADE.md 1.1 "Intermediate (mass-bias) differential limit: no limit found" (M).
-    const r = checkLegality({ ...legal, intermediateDifferential: 0.09 });
+    const r = checkLegality({ ...legal, differential: 0.06, intermediateDifferential: 0.06 });
     expect(r.legal).toBe(true);
     expect(r.unchecked.map((u) => u.field)).toContain('intermediateDifferential');
   });

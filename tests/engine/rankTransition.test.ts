@@ -14,9 +14,10 @@ describe('rankTransition', () => {
     for (const x of t) expect(x.ranking).toEqual(rankArsenal({ ...input, gamesBowled: x.gamesBowled }));
   });
 
-  it('points: the strong solid’s score falls from 0 to 9 games', () => {
+  it('points: the strong solid’s rules-layer score falls from 0 to 9 games', () => {
     const score = (g: number): number =>
-      rankTransition(input, [g])[0].ranking.find((r) => r.id === roughAsymSolid.id)?.score ?? Number.NaN;
+      rankTransition(input, [g])[0].ranking.find((r) => r.id === roughAsymSolid.id)?.layers?.find((l) => l.name === 'rules')?.score ??
+      Number.NaN;
     expect(score(9)).toBeLessThan(score(0));
   });
 
