@@ -14,9 +14,10 @@ export interface ScoringLayer {
 }
 
 /**
- * The layers rankArsenal combines, in order. Today: the rules layer (documented rules of thumb,
- * weight 1). The ball-motion model joins by adding its entry here, e.g.
- * `{ name: 'motion', weight: 1, prepare: (ctx) => { const map = …(ctx); return (ball) => …(ball, map) } }`.
+ * The generic layers rankArsenal combines, in order: today the rules layer (documented rules of
+ * thumb, weight 1). (The ball-motion layer is wired in rankArsenal.ts itself, because it also
+ * returns each ball's prediction.) A further layer joins by adding its entry here, e.g.
+ * `{ name: 'x', weight: 1, prepare: (ctx) => { const map = …(ctx); return (ball) => …(ball, map) } }`.
  * Source: PRODUCT.md (the ranking combines the rules layer and the ball-motion model); the weights
  * are Lanewright's choice.
  */
