@@ -85,7 +85,8 @@ export { oilVolumeUl } from './motion/oilVolumeUl';
 export { uniformFrictionField, sampledFrictionField, oilFrictionField } from './motion/frictionField';
 export type { FrictionField } from './motion/frictionField';
 export { layoutOrientation } from './motion/layoutOrientation';
-export { releaseState, STATE, handSign } from './motion/releaseState';
+export { releaseState, STATE } from './motion/releaseState';
+export { handSign } from './motion/handSign';
 export { integrateDelivery } from './motion/integrateDelivery';
 export type { IntegrateOptions, DeliveryResult } from './motion/integrateDelivery';
 export { contactAngularMomentum } from './motion/contactAngularMomentum';
@@ -94,5 +95,5 @@ export { solvePocketLine } from './motion/solvePocketLine';
 export type { PocketLine } from './motion/solvePocketLine';
 export { prepareShot } from './motion/prepareShot';
 export type { PreparedShot } from './motion/prepareShot';
-export { toShotPrediction } from './motion/simulateShot';
+export { toShotPrediction } from './motion/toShotPrediction';
 // ── end ball-motion model ──────────────────────────────────────────────────────────────────────

@@ -7,7 +7,8 @@ import { integrateDelivery } from './integrateDelivery';
 import type { LaneOilMap } from './laneOilMap';
 import { MOTION_CALIBRATION as K } from './motionCalibration';
 import { patternOilMap } from './patternOilMap';
-import { handSign, releaseState } from './releaseState';
+import { handSign } from './handSign';
+import { releaseState } from './releaseState';
 import { solvePocketLine } from './solvePocketLine';
 import { transitionOilMap } from './transitionOilMap';
 

@@ -5,7 +5,7 @@ import { missRoom, type MissRoom } from './missRoom';
 import { MOTION_CALIBRATION as K } from './motionCalibration';
 import { prepareShot } from './prepareShot';
 import type { ShotPrediction } from './shotPrediction';
-import { toShotPrediction } from './simulateShot';
+import { toShotPrediction } from './toShotPrediction';
 import { solvePocketLine } from './solvePocketLine';
 
 /** The ball-motion layer's verdict on one ball: its score and reasons, the prediction and miss room. */

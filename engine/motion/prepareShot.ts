@@ -6,7 +6,8 @@ import { coverFriction } from './coverFriction';
 import { oilFrictionField, uniformFrictionField, type FrictionField } from './frictionField';
 import { integrateDelivery, type DeliveryResult } from './integrateDelivery';
 import type { LaneOilMap } from './laneOilMap';
-import { handSign, releaseState } from './releaseState';
+import { handSign } from './handSign';
+import { releaseState } from './releaseState';
 
 /** A ball, a bowler and a lane made ready to throw many deliveries (the solver and miss room). */
 export interface PreparedShot {

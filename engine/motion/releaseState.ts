@@ -1,18 +1,12 @@
 import type { BallSpec, BowlerProfile } from '../types';
 import { assertNumber } from './assertNumber';
+import { handSign } from './handSign';
 import { layoutOrientation } from './layoutOrientation';
 import { MOTION_CALIBRATION as K } from './motionCalibration';
 import { PHYSICAL_CONSTANTS as C } from './physicalConstants';
 
 /** Index of each quantity in a delivery state vector (lane frame, SI). */
 export const STATE = Object.freeze({ x: 0, y: 1, vx: 2, vy: 3, wx: 4, wy: 5, wz: 6, qw: 7, qx: 8, qy: 9, qz: 10, length: 11 });
-
-/** 1 for a right-hander, −1 for a left-hander (PHYSICS.md §1.11 hand sign h). */
-export function handSign(hand: BowlerProfile['hand']): 1 | -1 {
-  if (hand === 'right') return 1;
-  if (hand === 'left') return -1;
-  throw new TypeError(`handSign: hand must be 'right' or 'left', got ${String(hand)}`);
-}
 
 /**
  * The state of the ball at the foul line: position, velocity, angular velocity and orientation.

@@ -1,20 +1,8 @@
 import { assertNumber } from './assertNumber';
-import type { DeliveryResult } from './integrateDelivery';
 import { prepareShot } from './prepareShot';
 import type { ShotPrediction, SimulateShotInput } from './shotPrediction';
 import { solvePocketLine } from './solvePocketLine';
-
-/** Converts an integration result on a line to the public prediction. */
-export function toShotPrediction(r: DeliveryResult, laydownBoard: number, targetBoard: number): ShotPrediction {
-  const path: ShotPrediction['path'] = [];
-  for (let i = 0; i < r.sampleCount; i++) path.push({ ft: r.sampleFt[i], board: r.sampleBoard[i], speedMph: r.sampleSpeedMph[i] });
-  return {
-    path, rollStartFt: r.rollStartFt, skidFt: r.skidFt,
-    breakpoint: { ft: r.breakpointFt, board: r.breakpointBoard },
-    entryBoard: r.entryBoard, entryAngleDeg: r.entryAngleDeg, timeToPinsS: r.timeToPinsS, speedAtPinsMph: r.speedAtPinsMph,
-    gutter: r.gutter, laydownBoard, targetBoard,
-  };
-}
+import { toShotPrediction } from './toShotPrediction';
 
 /**
  * Predicts one delivery with the ball-motion model: skid, hook, roll, breakpoint and entry angle on
