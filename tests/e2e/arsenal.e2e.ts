@@ -1,0 +1,114 @@
+import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
+import type { Browser } from 'playwright-core';
+import { DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
+
+const baseUrl = inject('baseUrl');
+let browser: Browser;
+let session: Session | null = null;
+
+async function open(viewport: Viewport = DESKTOP): Promise<Session> {
+  session = await openSession(browser, baseUrl, viewport);
+  return session;
+}
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+
+afterEach(async () => {
+  if (session) {
+    const errors = session.pageErrors;
+    await session.context.close();
+    session = null;
+    expect(errors, 'uncaught errors in the page').toEqual([]);
+  }
+});
+
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe('arsenal screen', () => {
+  it('lists the demo bowler her balls; deleting one and pressing Undo brings it back', async () => {
+    const { page } = await open();
+    await signIn(page, DEMO.dana);
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Arsenal' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Arsenal' }).waitFor();
+
+    const table = page.getByRole('table', { name: 'Your balls' }).or(page.locator('.arsenal__table'));
+    await page.getByRole('link', { name: 'Big Red' }).waitFor();
+    for (const name of ['Big Red', 'Backend', 'Control', 'Spare']) await page.getByRole('link', { name, exact: true }).waitFor();
+    await page.getByRole('status').filter({ hasText: /\d+ balls\./ }).waitFor();
+    expect(await table.count()).toBeGreaterThan(0);
+    await screenshot(page, 'arsenal-desktop');
+
+    await page.getByRole('button', { name: 'Delete Control' }).click();
+    await page.getByRole('link', { name: 'Control', exact: true }).waitFor({ state: 'detached' });
+    await page.getByRole('button', { name: 'Undo deleting Control' }).click();
+    await page.getByRole('link', { name: 'Control', exact: true }).waitFor();
+    await page.getByRole('status').filter({ hasText: 'Control is back in your arsenal.' }).waitFor();
+  });
+
+  it('a CSV with a bad row shows each problem by line and imports nothing', async () => {
+    const { page } = await open();
+    await signIn(page, DEMO.lee);
+    await page.goto('/arsenal');
+    await page.getByRole('heading', { level: 1, name: 'Arsenal' }).waitFor();
+    await page.getByRole('status').filter({ hasText: /\d+ balls\./ }).waitFor();
+    const before = await page.getByRole('status').filter({ hasText: /\d+ balls\./ }).textContent();
+
+    await page.getByRole('button', { name: 'Import CSV' }).click();
+    const dialog = page.getByRole('dialog', { name: 'Import balls from a CSV file' });
+    await dialog.waitFor();
+    const csv = [
+      'name,nickname,weightLb,coverType,coreType,rg,differential,intermediateDifferential,hardnessD,surfaceGrit,polished,pinToPapIn,drillingAngleDeg,valAngleDeg,gamesSinceResurface',
+      'Good Row Ball,,15,reactive-solid,symmetric,2.5,0.048,0,76,2000,false,4.5,45,,0',
+      'Bad Row Ball,,15,glass,symmetric,3.5,0.048,0,76,2000,false,4.5,45,,0',
+    ].join('\n');
+    await dialog.getByLabel('CSV file').setInputFiles({ name: 'bad.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+    await dialog.getByRole('button', { name: 'Import' }).click();
+    const report = dialog.getByRole('table', { name: 'Problems by row' });
+    await report.waitFor();
+    await report.getByRole('cell', { name: 'coverType', exact: true }).waitFor();
+    await report.getByRole('cell', { name: 'rg', exact: true }).waitFor();
+    expect(await report.getByRole('cell', { name: '3', exact: true }).count()).toBeGreaterThanOrEqual(2);
+    await dialog.getByText('nothing was imported').waitFor();
+    await screenshot(page, 'arsenal-import-errors-desktop');
+    await dialog.getByRole('button', { name: 'Cancel' }).click();
+    expect(await page.getByRole('status').filter({ hasText: /\d+ balls\./ }).textContent()).toBe(before);
+  });
+
+  it('the ball page shows specs, the legality badge and the surface history; a stale edit is reported and reloaded', async () => {
+    const { page } = await open(MOBILE);
+    await signIn(page, DEMO.dana);
+    await page.goto('/arsenal');
+    await page.getByRole('link', { name: 'Big Red' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Big Red' }).waitFor();
+    await page.getByText('Within USBC ball limits').waitFor();
+    await page.getByText('Took it to 4000 for the summer league').waitFor();
+    await page.getByText('Drilling, plugging and fitting are work for a qualified pro-shop technician.').first().waitFor();
+    expect(await hasHorizontalScroll(page)).toBe(false);
+    await screenshot(page, 'ball-mobile');
+
+    // Someone else saves the ball after the dialog was opened: the save answers 409.
+    await page.getByRole('button', { name: 'Edit ball' }).click();
+    const dialog = page.getByRole('dialog', { name: /^Edit Big Red/ });
+    await dialog.waitFor();
+    const token = await page.evaluate(() => localStorage.getItem('lanewright.token'));
+    const id = new URL(page.url()).pathname.split('/').pop();
+    const current = (await (await fetch(`${baseUrl}/api/arsenal/${id}`, { headers: { Authorization: `Bearer ${token}` } })).json()) as { item: { version: number } };
+    const patched = await fetch(`${baseUrl}/api/arsenal/${id}`, {
+      method: 'PATCH',
+      headers: { Authorization: `Bearer ${token}`, 'Content-Type': 'application/json' },
+      body: JSON.stringify({ version: current.item.version, gamesSinceResurface: 31 }),
+    });
+    expect(patched.status).toBe(200);
+    await dialog.getByLabel('Nickname (optional)').fill('Big Red II');
+    await dialog.getByRole('button', { name: 'Save changes' }).click();
+    await dialog.getByText('was changed somewhere else').waitFor();
+    expect(await dialog.getByLabel('Games since resurface').inputValue()).toBe('31');
+    expect(await dialog.getByLabel('Nickname (optional)').inputValue()).toBe('Big Red');
+    await screenshot(page, 'ball-stale-edit-mobile');
+    await dialog.getByRole('button', { name: 'Cancel' }).click();
+  });
+});
