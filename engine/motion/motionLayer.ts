@@ -1,4 +1,4 @@
-import type { BallSpec, BowlerProfile, LayerResult, OilPattern, RankedBall, RuleResult } from '../types';
+import type { BallSpec, BowlerProfile, LayerResult, OilPattern, RankedBall, RuleResult, Suggestion } from '../types';
 import { conditionOilMap } from './conditionOilMap';
 import type { LaneOilMap } from './laneOilMap';
 import { missRoom, type MissRoom } from './missRoom';
@@ -44,8 +44,9 @@ export const MOTION_LAYER_POINTS = Object.freeze({
  * Source: the weights are Lanewright's choice (common practice ranks angle, reachability and
  * forgiveness); the physics is simulateShot's (PHYSICS.md §1, §4, §5).
  *
+ * Suggestions: a 'line' suggestion with the solved laydown and target (not for plastic spare balls).
  * Units: degrees, boards. Edge cases: a ball that cannot reach the pocket keeps its closest line; its
- * miss room is 0. Example: `motionLayer(ball, bowler, pattern, conditionOilMap(pattern, bowler, 0))`.
+ * miss room is 0 and it gets no line suggestion. Example: `motionLayer(ball, bowler, pattern, conditionOilMap(pattern, bowler, 0))`.
  */
 export function motionLayer(ball: BallSpec, bowler: BowlerProfile, pattern: OilPattern, oilMap?: LaneOilMap, gamesBowled = 0): MotionVerdict {
   const map = oilMap ?? conditionOilMap(pattern, bowler, gamesBowled);
@@ -69,5 +70,8 @@ export function motionLayer(ball: BallSpec, bowler: BowlerProfile, pattern: OilP
   if (line.reached) reasons.push({ rule: 'motion-miss-room', effect: Math.round(missPts * 10) / 10, text: `Miss room ${f1(room.totalBoards)} boards at the arrows (${f1(room.outsideBoards)} outside, ${f1(room.insideBoards)} inside) still reach the pocket.`, source: `${src}; miss room is common practice, ±${K.pocketHalfWidthBoards} board window an assumption` });
   const raw = P.base + anglePts + (line.reached ? missPts : -P.unreachable);
   const score = Math.round(Math.max(0, Math.min(100, raw)) * 10) / 10;
-  return { result: { score, reasons, suggestions: [] }, prediction, missRoom: room, pocketReached: line.reached };
+  const suggestions: Suggestion[] = line.reached && ball.coverType !== 'plastic'
+    ? [{ kind: 'line', text: `Ball-motion model: lay down on board ${f1(line.laydownBoard)} and aim over board ${f1(line.targetBoard)} at the arrows to reach the pocket.`, change: { laydownBoard: Math.round(line.laydownBoard * 10) / 10, targetBoard: Math.round(line.targetBoard * 10) / 10 } }]
+    : [];
+  return { result: { score, reasons, suggestions }, prediction, missRoom: room, pocketReached: line.reached };
 }

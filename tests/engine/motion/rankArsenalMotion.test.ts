@@ -29,6 +29,16 @@ describe('rankArsenal — ball-motion layer', () => {
     }
   });
 
+  it('boards, every strike ball: a line suggestion from the model whose laydown and target are the prediction\'s line (to 0.05 board)', () => {
+    for (const r of ranked.filter((x) => fourBalls.find((b) => b.id === x.id)?.coverType !== 'plastic')) {
+      const s = r.suggestions.find((x) => x.kind === 'line' && x.text.startsWith('Ball-motion model'));
+      expect(s).toBeDefined();
+      const change = s?.change as { laydownBoard: number; targetBoard: number };
+      expect(Math.abs(change.laydownBoard - r.prediction.laydownBoard)).toBeLessThanOrEqual(0.05 + 1e-9);
+      expect(Math.abs(change.targetBoard - r.prediction.targetBoard)).toBeLessThanOrEqual(0.05 + 1e-9);
+    }
+  });
+
   it('points, 0 → 9 games on the house shot: the strong rough solid loses motion-layer points, more than the polished pearl (oil depletes on the track, PHYSICS.md §5.4)', () => {
     const motion = (id: string, g: number) => rankArsenal({ balls: fourBalls, bowler: typicalBowler, pattern: houseShot, gamesBowled: g })
       .find((r) => r.id === id)?.layers?.find((l) => l.name === 'motion')?.score as number;

@@ -92,6 +92,17 @@ describe('simulateShot — pocket solver (TRADE.md §2.2: board 17.5)', () => {
   });
 });
 
+describe('simulateShot — frictionOverride (uniform μ, PHYSICS.md §3.2 / TRADE.md §6.2)', () => {
+  it('m, no revs, μ = 0.2 everywhere: rolls after (v0² − vf²)/(2μg) with vf = v0·R²/(R²+k²) within 5 mm, straight down board 20', () => {
+    const ball = strongBall({ rg: 2.55, differential: 0, intermediateDifferential: 0, diameterIn: 8.5 });
+    const p = simulateShot({ ball, bowler: strokerBowler({ revRpm: 0 }), pattern: flatPattern(), laydownBoard: 20, targetBoard: 20, frictionOverride: 0.2 });
+    const v0 = 17.5 * 0.44704, R = 4.25, k = 2.55, vf = (v0 * R * R) / (R * R + k * k);
+    expect(Math.abs((p.rollStartFt as number) * 0.3048 - (v0 * v0 - vf * vf) / (2 * 0.2 * 9.80665))).toBeLessThan(0.005);
+    expect(Math.abs(p.speedAtPinsMph * 0.44704 - vf)).toBeLessThan(1e-6);
+    for (const s of p.path) expect(Math.abs(s.board - 20)).toBeLessThan(1e-12);
+  });
+});
+
 describe('simulateShot — path and symmetry', () => {
   it('ft, any delivery: at least one sample per foot from 0 to 60 ft, ascending, board on the lane, roll after skid', () => {
     const p = simulateShot({ ball: strongBall(), bowler: strokerBowler(), pattern: housePattern() });
