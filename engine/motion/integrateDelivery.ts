@@ -101,7 +101,8 @@ function rhs(s: Float64Array, d: Float64Array, k: Kernel): void {
   d[10] = 0.5 * (wz * qw + wx * qy - wy * qx);
 }
 
-// Scratch for the oil carried on the ball (reused between calls; integrateDelivery is synchronous).
+// Scratch for the oil carried on the ball (reused between calls; integrateDelivery is synchronous and
+// must not be called again from inside its own onStep callback).
 let cellOil = new Float64Array(0);
 let cellTime = new Float64Array(0);
 
@@ -114,7 +115,7 @@ let cellTime = new Float64Array(0);
  * h + w·b). Flare is not imposed: it comes from Euler's equations (§1.10).
  *
  * Reported quantities (our definitions, PHYSICS.md §1.8, §4.1 "Reporting"): `rollStartFt` where the
- * slip speed |u| first falls below `rollSlipTolMs`, extrapolated linearly to zero; `skidFt` where |u|
+ * slip speed |u| first falls below `rollSlipTolEps`·ε, extrapolated linearly to zero; `skidFt` where |u|
  * first falls to `skidSlipFraction` of its release value (the end of the skid, start of the hook
  * phase); breakpoint = the point farthest toward the hand-side gutter (where the lateral velocity
  * changes sign, interpolated); entry board/angle at the stop distance (60 ft), angle positive toward
