@@ -1,11 +1,10 @@
-import type { BowlerProfile, RankedBall } from '@engine/index';
-import type { ShotPrediction } from '@engine/motion/index';
+import type { BowlerProfile, MissRoom, RankedBall, ShotPrediction } from '@engine/index';
 import type { Ball } from '@shared/balls';
 import type { MatchupRequest } from '@shared/matchups';
 import type { PatternSummary } from '@shared/patterns';
 import { api } from './client';
 
-export type { ShotPrediction };
+export type { MissRoom, ShotPrediction };
 
 /** One ranked ball of a matchup answer; `prediction` is there once the ball-motion model runs on the server. */
 export interface MatchupRanking extends RankedBall {
@@ -27,6 +26,8 @@ export interface MatchupRanking extends RankedBall {
     | 'weightLb'
   >;
   prediction?: ShotPrediction | null;
+  /** Boards of target error at the arrows that still reach the pocket (with the prediction). */
+  missRoom?: MissRoom | null;
 }
 
 export interface MatchupResult {
