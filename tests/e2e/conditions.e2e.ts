@@ -207,4 +207,18 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
     expect(await hasHorizontalScroll(page), 'Conditions fits 375 px').toBe(false);
     await screenshot(page, 'conditions-follower-mobile');
   });
+
+  it('an admin finds the Dev mailbox and the condition screens in the navigation, and the patterns list links to the editor', async () => {
+    const { page } = await open();
+    await signIn(page, DEMO.admin);
+    const nav = page.getByRole('navigation', { name: 'Main' });
+    for (const name of ['Patterns', 'Conditions', 'Center admin', 'Dev mailbox']) await nav.getByRole('link', { name, exact: true }).waitFor();
+    await screenshot(page, 'nav-admin-desktop');
+    await nav.getByRole('link', { name: 'Patterns', exact: true }).click();
+    await page.getByRole('heading', { level: 1, name: 'Patterns' }).waitFor();
+    await page.getByRole('link', { name: `Edit ${PATTERN_NAME}` }).waitFor();
+    await screenshot(page, 'patterns-admin-desktop');
+    await nav.getByRole('link', { name: 'Dev mailbox' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Dev mailbox' }).waitFor();
+  });
 });
