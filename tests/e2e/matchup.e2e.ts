@@ -1,0 +1,139 @@
+import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
+
+const baseUrl = inject('baseUrl');
+let browser: Browser;
+let session: Session | null = null;
+
+async function open(viewport: Viewport = DESKTOP): Promise<Session> {
+  session = await openSession(browser, baseUrl, viewport);
+  return session;
+}
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+
+afterEach(async () => {
+  if (session) {
+    const errors = session.pageErrors;
+    await session.context.close();
+    session = null;
+    expect(errors, 'uncaught errors in the page').toEqual([]);
+  }
+});
+
+afterAll(async () => {
+  await browser?.close();
+});
+
+/** Element Plus keeps a select's combobox input visually hidden: open it by keyboard, then pick the option. */
+async function choose(page: Page, combobox: string, option: string): Promise<void> {
+  await page.getByRole('combobox', { name: combobox }).focus();
+  await page.keyboard.press('Enter');
+  await page.getByRole('option', { name: option, exact: true }).click();
+}
+
+async function rankOnLongHaul(page: Page): Promise<void> {
+  await page.getByRole('heading', { level: 1, name: 'Matchup' }).waitFor();
+  await choose(page, 'Condition', 'Long Haul 47');
+  await page.getByText(/long, heavy/).waitFor();
+  await page.getByRole('button', { name: 'Rank my arsenal' }).click();
+  try {
+    await page.getByRole('heading', { level: 2, name: 'Ranking for Long Haul 47, after 0 games' }).waitFor({ timeout: 30000 });
+  } catch (e) {
+    await screenshot(page, 'debug-matchup');
+    throw e;
+  }
+}
+
+/** Ball names of the ranking table, best first. */
+async function rankingOrder(page: Page): Promise<string[]> {
+  const names = await page.getByRole('table', { name: 'Ranking' }).locator('tbody .matchup-ranking-table__name').allTextContents();
+  return names.map((n) => n.trim());
+}
+
+describe('matchup: the demo bowler from catalogue to what-if', () => {
+  it('adds a ball from the catalogue, ranks the arsenal on the long heavy pattern, sees the lane view, and a what-if surface change reorders the ranking', async () => {
+    const { page } = await open();
+    await signIn(page, DEMO.dana);
+
+    // Catalogue → add a ball to the arsenal.
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Catalogue' }).click();
+    await page.getByRole('heading', { level: 1, name: 'Catalogue' }).waitFor();
+    await page.getByLabel('Search by maker or name').fill('Polar Grip');
+    await page.getByRole('status').filter({ hasText: '1 ball found.' }).waitFor();
+    await screenshot(page, 'catalogue-desktop');
+    await page.getByRole('button', { name: 'Add Polar Grip to arsenal' }).click();
+    const dialog = page.getByRole('dialog', { name: 'Add Polar Grip to your arsenal' });
+    await dialog.waitFor();
+    await dialog.getByText('Within USBC ball limits').waitFor();
+    await dialog.getByLabel('Nickname (optional)').fill('Fresh Grip');
+    await dialog.getByLabel('Pin-to-PAP (in)').fill('4.5');
+    await dialog.getByLabel('Drilling angle (°)').fill('45');
+    await screenshot(page, 'catalogue-add-dialog-desktop');
+    await dialog.getByRole('button', { name: 'Add to arsenal' }).click();
+    await page.getByText('Fresh Grip was added to your arsenal.').waitFor();
+
+    // Matchup on the long heavy pattern.
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Matchup' }).click();
+    await rankOnLongHaul(page);
+    const order = await rankingOrder(page);
+    expect(order.length).toBeGreaterThanOrEqual(8);
+    expect(order).toContain('Fresh Grip (Polar Grip)');
+    expect(order[order.length - 1]).toBe('Spare (Clear Sky Spare)');
+
+    // The lane view: an image with a text alternative, paths for the top balls, a table of the same numbers.
+    const lane = page.getByRole('img', { name: /^Lane view of Long Haul 47 from above/ });
+    await lane.waitFor();
+    expect(await page.locator('svg path[data-ball]').count()).toBe(3);
+    await page.getByText('The lane view as a table').click();
+    expect(await page.getByRole('row').filter({ hasText: order[0] }).count()).toBeGreaterThanOrEqual(2);
+
+    // Toggle one more ball onto the lane from the table.
+    await page.getByRole('checkbox', { name: `Show ${order[3]} on the lane` }).check();
+    expect(await page.getByRole('checkbox', { name: `Show ${order[0]} on the lane` }).isChecked()).toBe(true);
+    await page.waitForFunction(() => document.querySelectorAll('svg path[data-ball]').length === 4);
+
+    // Reasons with their sources.
+    await page.getByRole('button', { name: `Why: ${order[0]}` }).click();
+    await page.getByText(/^Source: /).first().waitFor();
+    await screenshot(page, 'matchup-desktop');
+
+    // What-if: Backend sanded to 500 grit moves up the order, worked out in the browser.
+    await choose(page, 'What-if ball', 'Backend (Skylark Arc)');
+    await page.getByText('Change the surface or the layout of a ball').waitFor();
+    await choose(page, 'What-if grit', '500 grit');
+    const verdict = page.getByRole('status').filter({ hasText: /^The order changes: Backend \(Skylark Arc\) moves from \d+(st|nd|rd|th) to \d+(st|nd|rd|th)/ });
+    await verdict.waitFor();
+    const text = (await verdict.textContent()) ?? '';
+    const [, from, to] = /moves from (\d+)\D+ to (\d+)/.exec(text) ?? [];
+    expect(Number(to)).toBeLessThan(Number(from));
+    const newOrder = (await page.getByRole('list', { name: 'Order with the change' }).getByRole('listitem').allTextContents()).map((s) => s.trim());
+    expect(newOrder).not.toEqual(order);
+    expect(newOrder.indexOf('Backend (Skylark Arc) (changed)')).toBe(Number(to) - 1);
+    // The what-if path is drawn dashed on the lane.
+    await page.waitForFunction(() => document.querySelector('svg path[data-ball$="-what-if"]') !== null);
+    await page.getByText('Resurfacing uses abrasives and solvents').first().waitFor();
+    await screenshot(page, 'matchup-what-if-desktop');
+
+    // Transition: more games bowled re-runs the matchup.
+    await page.getByRole('slider', { name: 'Games already bowled' }).focus();
+    for (let i = 0; i < 6; i += 1) await page.keyboard.press('ArrowRight');
+    await page.getByRole('heading', { level: 2, name: 'Ranking for Long Haul 47, after 6 games' }).waitFor({ timeout: 30000 });
+    await page.getByRole('status').filter({ hasText: 'Ranked 8 balls for Long Haul 47 after 6 games.' }).waitFor();
+    await screenshot(page, 'matchup-transition-desktop');
+  });
+
+  it('at 375 px the matchup fits the phone: ranking, lane view and what-if without a horizontal scrollbar', async () => {
+    const { page } = await open(MOBILE);
+    await signIn(page, DEMO.dana);
+    await page.goto('/matchup');
+    await rankOnLongHaul(page);
+    await page.getByRole('img', { name: /^Lane view of Long Haul 47/ }).waitFor();
+    await page.getByRole('heading', { level: 2, name: 'What if…' }).waitFor();
+    await screenshot(page, 'matchup-mobile');
+    expect(await hasHorizontalScroll(page)).toBe(false);
+  });
+});
