@@ -1,3 +1,4 @@
+import fs from 'node:fs';
 import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
 import { DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
@@ -104,6 +105,15 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
     await page.getByText('mean oil per board on boards 18–22 ÷ boards 3–7 and 33–37').first().waitFor();
     await page.getByRole('img', { name: `Oil map of ${PATTERN_NAME}` }).waitFor();
     await screenshot(page, 'pattern-editor-desktop');
+
+    // Leaving with unsaved changes asks first; staying keeps every sweep.
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Patterns', exact: true }).click();
+    const leave = page.getByRole('dialog', { name: 'Leave without saving?' });
+    await leave.waitFor();
+    await leave.getByRole('button', { name: 'Stay on this page' }).click();
+    await leave.waitFor({ state: 'hidden' });
+    expect(new URL(page.url()).pathname).toBe('/patterns/new');
+    await expectNumber(page, 'volume', '18.00 mL');
 
     await page.getByRole('button', { name: 'Save pattern' }).click();
     await page.getByText(`${PATTERN_NAME} was created.`).waitFor();
@@ -216,9 +226,49 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
     await screenshot(page, 'nav-admin-desktop');
     await nav.getByRole('link', { name: 'Patterns', exact: true }).click();
     await page.getByRole('heading', { level: 1, name: 'Patterns' }).waitFor();
-    await page.getByRole('link', { name: `Edit ${PATTERN_NAME}` }).waitFor();
+    await page.getByRole('link', { name: `Edit ${PATTERN_NAME}` }).first().waitFor();
     await screenshot(page, 'patterns-admin-desktop');
     await nav.getByRole('link', { name: 'Dev mailbox' }).click();
     await page.getByRole('heading', { level: 1, name: 'Dev mailbox' }).waitFor();
+  });
+
+  it('the editor exports the pattern as CSV, rejects a bad file with line-numbered errors and nothing saved, imports a good one and duplicates', async () => {
+    const { page } = await open();
+    await signIn(page, DEMO.proprietor);
+    await page.goto('/patterns');
+    await page.getByRole('link', { name: `Edit ${PATTERN_NAME}` }).first().click();
+    await page.getByRole('heading', { level: 1, name: 'Edit pattern' }).waitFor();
+    await expectNumber(page, 'volume', '18.00 mL');
+    const editUrl = page.url();
+
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export CSV' }).click()]);
+    const csv = fs.readFileSync(await download.path(), 'utf8');
+    expect(download.suggestedFilename()).toMatch(/\.lanewright\.csv$/);
+    expect(csv).toContain(`# name: ${PATTERN_NAME}`);
+    expect(csv.trim().split('\n').filter((l) => /^(forward|reverse),/.test(l))).toHaveLength(4);
+
+    const bad = [
+      '# lanewright-pattern v1',
+      '# name: Broken Upload',
+      'direction,fromBoard,toBoard,startFt,endFt,crossings,microlitersPerBoard',
+      'forward,2,38,0,40,2,60',
+      'sideways,2,41,0,40,2,60',
+    ].join('\n');
+    await page.getByLabel('Pattern file to import').setInputFiles({ name: 'broken.csv', mimeType: 'text/csv', buffer: Buffer.from(bad) });
+    const errors = page.getByRole('list', { name: 'Errors in the file' });
+    await errors.waitFor();
+    await errors.getByText('Line 5:').first().waitFor();
+    await page.getByText('Nothing was saved. Fix the file and import it again.').waitFor();
+    expect(page.url(), 'a rejected file does not leave the page').toBe(editUrl);
+    await screenshot(page, 'pattern-import-errors-desktop');
+
+    await page.getByLabel('Pattern file to import').setInputFiles({ name: 'tideline.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+    await page.getByText(`${PATTERN_NAME} was created from tideline.csv.`).waitFor();
+    await page.waitForURL((url) => /\/patterns\/\d+\/edit$/.test(url.pathname) && url.href !== editUrl);
+    await expectNumber(page, 'volume', '18.00 mL');
+
+    await page.getByRole('button', { name: 'Duplicate' }).click();
+    await page.getByText('Pattern duplicated', { exact: true }).waitFor();
+    await expectNumber(page, 'volume', '18.00 mL');
   });
 });
