@@ -54,6 +54,29 @@ class Kernel {
 
 const invBw = 1 / C.boardWidthM;
 
+/**
+ * The 4 cube-map cells (6·n² cells) around body direction (x, y, z) and their bilinear weights, written
+ * to splatCell / splatW (weights clamped at the face's edge rows; need not be unit).
+ */
+function splat(x: number, y: number, z: number, n: number): void {
+  const ax = Math.abs(x), ay = Math.abs(y), az = Math.abs(z);
+  let face: number, a: number, b: number;
+  if (ax >= ay && ax >= az) { face = x > 0 ? 0 : 1; a = y / ax; b = z / ax; }
+  else if (ay >= az) { face = y > 0 ? 2 : 3; a = x / ay; b = z / ay; }
+  else { face = z > 0 ? 4 : 5; a = x / az; b = y / az; }
+  let u = (a + 1) * 0.5 * n - 0.5, v = (b + 1) * 0.5 * n - 0.5;
+  if (u < 0) u = 0; else if (u > n - 1) u = n - 1;
+  if (v < 0) v = 0; else if (v > n - 1) v = n - 1;
+  let i0 = Math.floor(u), j0 = Math.floor(v);
+  if (i0 > n - 2) i0 = n - 2;
+  if (j0 > n - 2) j0 = n - 2;
+  const fu = u - i0, fv = v - j0, base = face * n * n + i0 * n + j0;
+  splatCell[0] = base; splatW[0] = (1 - fu) * (1 - fv);
+  splatCell[1] = base + n; splatW[1] = fu * (1 - fv);
+  splatCell[2] = base + 1; splatW[2] = (1 - fu) * fv;
+  splatCell[3] = base + n + 1; splatW[3] = fu * fv;
+}
+
 /** Bilinear lookup in a pattern-board × foot grid at lane position (x, y) in metres. */
 function bilinear(grid: Float64Array, rows: number, cols: number, invRowM: number, x: number, y: number): number {
   let jf = y * invBw + 20;
@@ -105,14 +128,16 @@ function rhs(s: Float64Array, d: Float64Array, k: Kernel): void {
 // must not be called again from inside its own onStep callback).
 let cellOil = new Float64Array(0);
 let cellTime = new Float64Array(0);
+const splatCell = new Int32Array(4);
+const splatW = new Float64Array(4);
 
 /**
  * Integrates one delivery from the foul line to the pins with fixed-step RK4 (PHYSICS.md §4.1
  * Option A): full Newton–Euler state (x, y, v, ω, q), smoothed Coulomb friction, one step h.
  * Friction comes from `field` (uniform, a sampled μ function, or an oil map with the oil the ball
- * carries on its track, PHYSICS.md §5.3: each ball-surface cell exchanges oil with the lane when it
- * passes through contact, b ← b + κ(φh − b), and absorbs it with time constant τ; friction sees
- * h + w·b). Flare is not imposed: it comes from Euler's equations (§1.10).
+ * carries on its track, PHYSICS.md §5.3: the cover is a cube map of cells; as cover rolls through
+ * contact the cells under it relax toward φh, db = (φh − b)·w ds/ℓ (bilinear weight w, ℓ such that one
+ * cell width exchanges κ), and absorb oil with time constant τ; friction sees h + w_b·b). Flare is not imposed: it comes from Euler's equations (§1.10).
  *
  * Reported quantities (our definitions, PHYSICS.md §1.8, §4.1 "Reporting"): `rollStartFt` where the
  * slip speed |u| first falls below `rollSlipTolEps`·ε, extrapolated linearly to zero; `skidFt` where |u|
@@ -162,10 +187,13 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
     if (cellOil.length !== nCells) { cellOil = new Float64Array(nCells); cellTime = new Float64Array(nCells); }
     cellOil.fill(0); cellTime.fill(0);
   }
-  const kappa = K.exchangeFraction, split = K.filmSplit, wB = K.carriedFilmWeight;
+  const split = K.filmSplit, wB = K.carriedFilmWeight;
+  // exchange length: rolling one cell width of cover through contact exchanges exchangeFraction
+  const invEll = -Math.log(1 - K.exchangeFraction) / ((Math.PI / 2 / n) * inertia.radiusM);
   const invTau = Number.isFinite(field.absorptionTimeS) ? 1 / field.absorptionTimeS : 0;
   const invHc = 1 / field.filmScaleUm;
-  let cell = -1;
+  let started = false, pcx = 0, pcy = 0, pcz = -1;
+  const cellRad = Math.PI / 2 / n; // a cube-map cell's angular size at a face centre (π/2 per face / n)
 
   const s = Float64Array.from(state0);
   const tmp = new Float64Array(11), k1 = new Float64Array(11), k2 = new Float64Array(11), k3 = new Float64Array(11), k4 = new Float64Array(11);
@@ -196,27 +224,41 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
 
   while (t < maxT) {
     if (carried) {
-      // contact point in body axes: −Qᵀẑ = −(Q20, Q21, Q22)
+      // Contact point in body axes: −Qᵀẑ = −(Q20, Q21, Q22). The contact's path over the ball since the
+      // last step is walked in sub-steps of at most one cell; each sub-step exchanges oil with the 4
+      // nearest cell centres in proportion to their bilinear weights and to the cover length rolled
+      // through contact, so the result does not depend on the step or on where the cell edges fall.
       const qw = s[7], qx = s[8], qy = s[9], qz = s[10];
       const cx = -2 * (qx * qz - qw * qy), cy = -2 * (qy * qz + qw * qx), cz = -(1 - 2 * (qx * qx + qy * qy));
-      const axx = Math.abs(cx), ayy = Math.abs(cy), azz = Math.abs(cz);
-      let face: number, a: number, b: number;
-      if (axx >= ayy && axx >= azz) { face = cx > 0 ? 0 : 1; a = cy / axx; b = cz / axx; }
-      else if (ayy >= azz) { face = cy > 0 ? 2 : 3; a = cx / ayy; b = cz / ayy; }
-      else { face = cz > 0 ? 4 : 5; a = cx / azz; b = cy / azz; }
-      let ia = Math.floor((a + 1) * 0.5 * n), ib = Math.floor((b + 1) * 0.5 * n);
-      if (ia >= n) ia = n - 1;
-      if (ib >= n) ib = n - 1;
-      const c = face * n * n + ia * n + ib;
-      if (c !== cell) {
-        cell = c;
-        let bo = cellOil[c];
-        if (invTau > 0 && bo > 0) bo *= Math.exp(-(t - cellTime[c]) * invTau);
-        const hl = bilinear(field.filmUm, field.rows, field.cols, k.invRowM, s[0], s[1]);
-        bo += kappa * (split * hl - bo);
-        cellOil[c] = bo; cellTime[c] = t;
-        k.eb = Math.exp(-wB * bo * invHc);
+      if (started) {
+        const dot = cx * pcx + cy * pcy + cz * pcz;
+        const ang = Math.acos(dot > 1 ? 1 : dot < -1 ? -1 : dot);
+        const m = Math.max(1, Math.ceil(ang / cellRad));
+        const x = (ang * R * invEll) / m; // exchange exponent of one sub-step at weight 1
+        const hl = split * bilinear(field.filmUm, field.rows, field.cols, k.invRowM, s[0], s[1]);
+        for (let j = 1; j <= m; j++) {
+          const f = (j - 0.5) / m; // sub-step midpoint (second order in the sub-step)
+          splat(pcx + f * (cx - pcx), pcy + f * (cy - pcy), pcz + f * (cz - pcz), n);
+          for (let i = 0; i < 4; i++) {
+            const c = splatCell[i], w = splatW[i];
+            if (w <= 0) continue;
+            let bo = cellOil[c];
+            if (invTau > 0 && bo > 0) {
+              // absorption e^(−Δt/τ); Δt/τ is small (a revolution against τ ≥ 2.5 s): cubic-Taylor reciprocal
+              const xa = (t - cellTime[c]) * invTau;
+              bo *= xa < 0.5 ? 1 / (1 + xa * (1 + xa * (0.5 + xa / 6))) : Math.exp(-xa);
+            }
+            const xw = x * w;
+            bo += (xw / (1 + 0.5 * xw)) * (hl - bo); // (1 − e^−xw) to third order
+            cellOil[c] = bo; cellTime[c] = t;
+          }
+        }
       }
+      splat(cx, cy, cz, n);
+      let bRead = 0;
+      for (let i = 0; i < 4; i++) bRead += splatW[i] * cellOil[splatCell[i]];
+      k.eb = Math.exp(-wB * bRead * invHc);
+      pcx = cx; pcy = cy; pcz = cz; started = true;
     }
     const x0 = s[0], y0 = s[1], vx0 = s[2], vy0 = s[3];
     rhs(s, k1, k);

@@ -75,7 +75,7 @@ export const MOTION_CALIBRATION = Object.freeze({
   // ── Oil carried on the ball (PHYSICS.md §5.3) ───────────────────────────────────────────
   /** Ball surface cells: a cube map with this many cells per face edge (6·n² cells, ≈ 0.56 in each at n = 12). Assumption: about the width of a visible oil track ring. */
   ballCellsPerFaceEdge: 12,
-  /** Fraction of the difference to equilibrium exchanged each time a cell passes through contact. Assumption. */
+  /** Fraction of the difference to equilibrium exchanged when one cell width of cover rolls through contact (the exchange is continuous in the cover length, bilinear over cells). Assumption. */
   exchangeFraction: 0.5,
   /** Equilibrium carried film as a fraction of the lane film (film splitting between two surfaces, ≈ ½; assumption from coating practice). */
   filmSplit: 0.5,
