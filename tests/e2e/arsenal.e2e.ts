@@ -111,4 +111,35 @@ describe('arsenal screen', () => {
     await screenshot(page, 'ball-stale-edit-mobile');
     await dialog.getByRole('button', { name: 'Cancel' }).click();
   });
+
+  it('at 375 px the arsenal and the catalogue fit the phone and the add dialog stacks its fields', async () => {
+    const { page } = await open(MOBILE);
+    await signIn(page, DEMO.dana);
+    await page.goto('/arsenal');
+    await page.getByRole('link', { name: 'Big Red' }).waitFor();
+    await screenshot(page, 'arsenal-mobile');
+    expect(await hasHorizontalScroll(page)).toBe(false);
+
+    await page.goto('/catalogue');
+    await page.getByRole('heading', { level: 1, name: 'Catalogue' }).waitFor();
+    await page.getByRole('status').filter({ hasText: /\d+ balls found\./ }).waitFor();
+    expect(await hasHorizontalScroll(page)).toBe(false);
+    await screenshot(page, 'catalogue-mobile');
+
+    // Filters: a range that leaves only the low-RG balls.
+    await page.getByLabel('RG to').fill('2.48');
+    await page.getByLabel('RG to').press('Tab');
+    await page.getByRole('status').filter({ hasText: /^[1-9] balls? found\.$/ }).waitFor();
+    await page.getByRole('button', { name: 'Clear filters' }).click();
+
+    await page.getByRole('button', { name: /^Add .+ to arsenal$/ }).first().click();
+    const dialog = page.getByRole('dialog', { name: /to your arsenal$/ });
+    await dialog.waitFor();
+    await dialog.getByLabel('Weight (lb)').fill('17');
+    await dialog.getByRole('button', { name: 'Add to arsenal' }).click();
+    await dialog.getByText('At most 16.5 lb').waitFor();
+    await dialog.getByText('Outside USBC ball limits').waitFor();
+    expect(await hasHorizontalScroll(page)).toBe(false);
+    await screenshot(page, 'catalogue-add-dialog-mobile');
+  });
 });
