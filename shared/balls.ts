@@ -153,6 +153,8 @@ export interface Ball {
   layout: Layout | null;
   gamesSinceResurface: number;
   status: (typeof BALL_STATUSES)[number];
+  /** True when the owner uploaded a photo: GET /api/arsenal/:id/photo (with the bearer token). */
+  hasPhoto: boolean;
   version: number;
   createdAt: string;
   updatedAt: string;

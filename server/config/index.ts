@@ -22,6 +22,8 @@ const ConfigSchema = z
     DEV_SMTP_PORT: z.coerce.number().int().min(0).max(65535).default(0),
     PUBLIC_URL: z.string().default(''),
     CLIENT_DIST: z.string().default('dist/client'),
+    /** Where uploaded files are stored (outside the web root). */
+    UPLOAD_DIR: z.string().default('.data/uploads'),
     /** Worker threads for engine work; 0 = one per core. */
     ENGINE_WORKERS: z.coerce.number().int().min(0).max(16).default(0),
   })

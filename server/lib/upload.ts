@@ -31,6 +31,23 @@ const patternUpload = multer({
   },
 });
 
+const imageUpload = multer({
+  storage: multer.memoryStorage(),
+  limits: { fileSize: 2 * 1024 * 1024, files: 1, fields: 5 },
+  fileFilter: (_req, file, cb) => {
+    if (!['image/png', 'image/jpeg', 'image/webp'].includes(file.mimetype)) {
+      cb(new AppError(400, 'unsupported_file', 'Upload a PNG, JPEG or WebP photo', { file: 'The photo must be PNG, JPEG or WebP' }));
+      return;
+    }
+    cb(null, true);
+  },
+});
+
+/** Accepts one multipart field "file" holding a photo (PNG, JPEG or WebP, at most 2 MiB). */
+export function imageFile(req: Request, res: Response, next: NextFunction): void {
+  singleFile(imageUpload, req, res, next);
+}
+
 /** Accepts one multipart field "file" holding a CSV of at most 1 MiB; maps multer's errors onto the error shape. */
 export function csvFile(req: Request, res: Response, next: NextFunction): void {
   singleFile(csvUpload, req, res, next);

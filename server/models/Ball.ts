@@ -21,6 +21,7 @@ export class Ball extends Model<InferAttributes<Ball>, InferCreationAttributes<B
   declare surfaceGrit: number;
   declare polished: boolean;
   declare layout: Layout | null;
+  declare photoUploadId: CreationOptional<number | null>;
   declare gamesSinceResurface: CreationOptional<number>;
   declare status: CreationOptional<'active' | 'retired' | 'in-shop'>;
   declare version: CreationOptional<number>;
@@ -48,6 +49,7 @@ export class Ball extends Model<InferAttributes<Ball>, InferCreationAttributes<B
         surfaceGrit: { type: DataTypes.INTEGER, allowNull: false },
         polished: { type: DataTypes.BOOLEAN, allowNull: false },
         layout: { type: DataTypes.JSONB, allowNull: true },
+        photoUploadId: { type: DataTypes.INTEGER, allowNull: true },
         gamesSinceResurface: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         status: { type: DataTypes.STRING(10), allowNull: false, defaultValue: 'active' },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },

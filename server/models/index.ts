@@ -11,6 +11,7 @@ import { Follow } from './Follow';
 import { Lane } from './Lane';
 import { MailOutbox } from './MailOutbox';
 import { PasswordReset } from './PasswordReset';
+import { Upload } from './Upload';
 import { User } from './User';
 
 // Every model is initialised and every association declared here, once.
@@ -27,6 +28,7 @@ Lane.initModel(sequelize);
 Condition.initModel(sequelize);
 Follow.initModel(sequelize);
 MailOutbox.initModel(sequelize);
+Upload.initModel(sequelize);
 
 User.hasOne(BowlerProfile, { foreignKey: 'userId', as: 'profile' });
 BowlerProfile.belongsTo(User, { foreignKey: 'userId', as: 'user' });
@@ -50,5 +52,7 @@ Follow.belongsTo(User, { foreignKey: 'userId', as: 'user' });
 Follow.belongsTo(Center, { foreignKey: 'centerId', as: 'center' });
 User.hasMany(Follow, { foreignKey: 'userId' });
 Center.hasMany(Follow, { foreignKey: 'centerId' });
+Upload.belongsTo(User, { foreignKey: 'ownerId' });
+Ball.belongsTo(Upload, { foreignKey: 'photoUploadId', as: 'photo' });
 
-export { sequelize, AuditEvent, Ball, BallModel, BowlerProfile, Center, Condition, Follow, Lane, MailOutbox, PasswordReset, Pattern, SurfaceEvent, User };
+export { sequelize, AuditEvent, Ball, BallModel, BowlerProfile, Center, Condition, Follow, Lane, MailOutbox, PasswordReset, Pattern, SurfaceEvent, Upload, User };

@@ -1,3 +1,5 @@
+import os from 'node:os';
+import path from 'node:path';
 import { inject } from 'vitest';
 
 // Runs in each test worker before a test file imports the server: point its config at the test database.
@@ -5,3 +7,4 @@ process.env.DATABASE_URL = inject('databaseUrl');
 process.env.NODE_ENV = 'test';
 process.env.RATE_LIMIT_AUTH ??= '40';
 process.env.JWT_SECRET ??= 'lanewright-test-secret-0123456789';
+process.env.UPLOAD_DIR ??= path.join(os.tmpdir(), `lanewright-test-uploads-${process.pid}`);

@@ -26,6 +26,7 @@ export function toBallDto(b: Ball): BallDto {
     layout: b.layout,
     gamesSinceResurface: b.gamesSinceResurface,
     status: b.status,
+    hasPhoto: b.photoUploadId != null,
     version: b.version,
     createdAt: b.createdAt.toISOString(),
     updatedAt: b.updatedAt.toISOString(),

@@ -3,7 +3,7 @@ import { IdParamSchema } from '../../../shared/auth';
 import { ArsenalQuerySchema, ballCreateSchemaFor, BallPatchSchema, SurfaceChangeSchema, type ArsenalQuery, type BallCreate, type BallPatch, type SurfaceChange } from '../../../shared/balls';
 import { currentUser, requireAuth } from '../../middleware/auth';
 import { validate } from '../../middleware/validate';
-import { csvFile } from '../../lib/upload';
+import { csvFile, imageFile } from '../../lib/upload';
 import { arsenalService } from './arsenal.service';
 
 /** The signed-in user's own balls. Another user's ball answers 404, so its existence never leaks. */
@@ -37,4 +37,16 @@ arsenalRouter.post('/:id/restore', validate({ params: IdParamSchema }), async (r
 arsenalRouter.post('/:id/surface', validate({ params: IdParamSchema, body: SurfaceChangeSchema }), async (req: Request, res: Response) => {
   const me = currentUser(req);
   res.json({ item: await arsenalService.changeSurface(me.id, me.id, idOf(req), req.body as SurfaceChange) });
+});
+arsenalRouter.put('/:id/photo', validate({ params: IdParamSchema }), imageFile, async (req: Request, res: Response) => {
+  res.json({ item: await arsenalService.setPhoto(currentUser(req).id, idOf(req), req.file!) });
+});
+arsenalRouter.get('/:id/photo', validate({ params: IdParamSchema }), async (req: Request, res: Response) => {
+  const photo = await arsenalService.getPhoto(currentUser(req).id, idOf(req));
+  res.type(photo.type).setHeader('Cache-Control', 'private, max-age=300');
+  res.setHeader('X-Content-Type-Options', 'nosniff');
+  res.send(photo.bytes);
+});
+arsenalRouter.delete('/:id/photo', validate({ params: IdParamSchema }), async (req: Request, res: Response) => {
+  res.json({ item: await arsenalService.removePhoto(currentUser(req).id, idOf(req)) });
 });

@@ -9,7 +9,8 @@ import {
 } from '../../../shared/balls';
 import { AppError } from '../../lib/AppError';
 import { cell, parseCsvRows } from '../../lib/upload';
-import { sequelize } from '../../models/index';
+import { sequelize, Upload } from '../../models/index';
+import { sniffImage, storage } from '../../lib/storage';
 import { catalogueRepository } from '../catalogue/catalogue.repository';
 import { arsenalRepository, toBallDto } from './arsenal.repository';
 
@@ -104,6 +105,51 @@ export const arsenalService = {
       const withHistory = await arsenalRepository.findOwned(ownerId, id, { withHistory: true, transaction });
       return toBallDto(withHistory!);
     });
+  },
+
+  /** Sets the ball's photo: the bytes must really be PNG, JPEG or WebP (checked from their content); the old photo is removed. */
+  async setPhoto(ownerId: number, id: number, file: { buffer: Buffer; originalname: string }): Promise<BallDto> {
+    const b = await arsenalRepository.findOwned(ownerId, id);
+    if (!b) throw notFound();
+    const kind = sniffImage(file.buffer);
+    if (!kind) throw new AppError(400, 'unsupported_file', 'The file is not a PNG, JPEG or WebP image', { file: 'Not a PNG, JPEG or WebP image' });
+    const key = await storage.put(file.buffer, kind.ext);
+    try {
+      const old = b.photoUploadId ? await Upload.findByPk(b.photoUploadId) : null;
+      await sequelize.transaction(async (transaction) => {
+        const up = await Upload.create({ ownerId, storageKey: key, contentType: kind.type, sizeBytes: file.buffer.length, originalName: file.originalname.slice(0, 200) }, { transaction });
+        b.photoUploadId = up.id;
+        await b.save({ transaction });
+        if (old) await old.destroy({ transaction });
+      });
+      if (old) await storage.remove(old.storageKey);
+    } catch (err) {
+      await storage.remove(key);
+      throw err;
+    }
+    return toBallDto(b);
+  },
+
+  async getPhoto(ownerId: number, id: number): Promise<{ bytes: Buffer; type: string }> {
+    const b = await arsenalRepository.findOwned(ownerId, id);
+    const up = b?.photoUploadId ? await Upload.findByPk(b.photoUploadId) : null;
+    if (!up) throw AppError.notFound('Photo');
+    return { bytes: await storage.get(up.storageKey), type: up.contentType };
+  },
+
+  async removePhoto(ownerId: number, id: number): Promise<BallDto> {
+    const b = await arsenalRepository.findOwned(ownerId, id);
+    if (!b) throw notFound();
+    const up = b.photoUploadId ? await Upload.findByPk(b.photoUploadId) : null;
+    if (up) {
+      await sequelize.transaction(async (transaction) => {
+        b.photoUploadId = null;
+        await b.save({ transaction });
+        await up.destroy({ transaction });
+      });
+      await storage.remove(up.storageKey);
+    }
+    return toBallDto(b);
   },
 
   /** Imports hand-entered balls from CSV: all rows or none, errors by line. */

@@ -42,3 +42,18 @@ describe('password reset', () => {
     expect(errorOf(res2.body).code).toBe('invalid_token');
   });
 });
+
+describe('password reset expiry', () => {
+  it('refuses a token past its hour, changing nothing', async () => {
+    const { user } = await createUser();
+    await api.post('/api/auth/forgot').send({ email: user.email });
+    const mail = await waitForMail(user.email);
+    const token = /token=([\w-]+)/.exec(mail.text)![1];
+    await PasswordReset.update({ expiresAt: new Date(Date.now() - 1000) }, { where: { userId: user.id } });
+    const res = await api.post('/api/auth/reset').send({ token, password: 'too-late-password' });
+    expect(res.status).toBe(400);
+    expect(errorOf(res.body).code).toBe('invalid_token');
+    const row = await User.findByPk(user.id);
+    expect(await bcrypt.compare('too-late-password', row!.passwordHash)).toBe(false);
+  });
+});

@@ -26,6 +26,15 @@ describe('GET /api/catalogue', () => {
     expect(Object.keys(errorOf(res.body).fields ?? {}).sort()).toEqual(['query.coverType', 'query.rgMin']);
   });
 
+  it('gives one model by id, 404 for an unknown one', async () => {
+    const { auth } = await createUser();
+    const m = await createModel(PLASTIC);
+    const res = await api.get(`/api/catalogue/${m.id}`).set(auth);
+    expect(res.status).toBe(200);
+    expect(res.body.item).toMatchObject({ id: m.id, name: m.name, coverType: 'plastic', rg: 2.7 });
+    expect((await api.get('/api/catalogue/99999999').set(auth)).status).toBe(404);
+  });
+
   it('needs sign-in', async () => {
     expect((await api.get('/api/catalogue')).status).toBe(401);
   });

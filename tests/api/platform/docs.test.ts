@@ -1,0 +1,21 @@
+import { describe, expect, it } from 'vitest';
+import { api } from '../../helpers/api';
+
+describe('API documentation', () => {
+  it('serves an OpenAPI 3.1 document generated from the zod schemas', async () => {
+    const res = await api.get('/api/docs/openapi.json');
+    expect(res.status).toBe(200);
+    expect(res.body.openapi).toBe('3.1.0');
+    const login = res.body.paths['/api/auth/login'].post;
+    expect(login.requestBody.content['application/json'].schema.properties).toHaveProperty('email');
+    expect(res.body.paths['/api/matchups'].post.requestBody.content['application/json'].schema.required).toContain('patternId');
+    expect(res.body.paths['/api/arsenal/{id}'].get.parameters[0]).toMatchObject({ name: 'id', in: 'path', required: true });
+  });
+
+  it('serves a readable page listing the routes', async () => {
+    const res = await api.get('/api/docs').set('Accept', 'text/html');
+    expect(res.status).toBe(200);
+    expect(res.text).toContain('<table>');
+    expect(res.text).toContain('/api/centers/{id}/conditions/current.pdf');
+  });
+});
