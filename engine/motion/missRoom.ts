@@ -23,13 +23,19 @@ const STEPS = [0.5, 1, 2, 4];
  * the first outside; 4 boards is the most reported. Source: the trade's "miss room" (common practice);
  * the ±1-board window is an assumption (MOTION_CALIBRATION.pocketHalfWidthBoards).
  *
+ * `onLine` is the delivery on the line itself when the caller already has it (saves one delivery).
  * Units: boards. Edge cases: a line that itself misses the window has 0 miss room on both sides.
  * Example: `missRoom(shot.run, 15, 10).totalBoards` → about 1–2 boards for a strong ball on a flat pattern.
  */
-export function missRoom(run: (laydownBoard: number, targetBoard: number) => DeliveryResult, laydownBoard: number, targetBoard: number): MissRoom {
+export function missRoom(
+  run: (laydownBoard: number, targetBoard: number) => DeliveryResult,
+  laydownBoard: number,
+  targetBoard: number,
+  onLine?: DeliveryResult,
+): MissRoom {
   const w = K.pocketHalfWidthBoards;
   const miss = (r: DeliveryResult): number => (r.gutter || !r.reachedPins ? Infinity : Math.abs(r.entryBoard - C.pocketBoard) - w);
-  const m0 = miss(run(laydownBoard, targetBoard));
+  const m0 = miss(onLine ?? run(laydownBoard, targetBoard));
   if (!(m0 <= 0)) return { outsideBoards: 0, insideBoards: 0, totalBoards: 0 };
   const side = (sign: number): number => {
     let lastIn = 0, mIn = m0;

@@ -53,7 +53,7 @@ export function motionLayer(ball: BallSpec, bowler: BowlerProfile, pattern: OilP
   const shot = prepareShot({ ball, bowler, pattern }, map);
   const line = solvePocketLine(shot.run, {});
   const prediction = toShotPrediction(line.result, line.laydownBoard, line.targetBoard);
-  const room = line.reached ? missRoom(shot.run, line.laydownBoard, line.targetBoard) : { outsideBoards: 0, insideBoards: 0, totalBoards: 0 };
+  const room = line.reached ? missRoom(shot.run, line.laydownBoard, line.targetBoard, line.result) : { outsideBoards: 0, insideBoards: 0, totalBoards: 0 };
   const P = MOTION_LAYER_POINTS;
   const src = 'ball-motion model (engine/motion, PHYSICS.md §1, §4, §5)';
   const reasons: RuleResult[] = [];
