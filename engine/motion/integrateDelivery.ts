@@ -128,6 +128,7 @@ function rhs(s: Float64Array, d: Float64Array, k: Kernel): void {
 // must not be called again from inside its own onStep callback).
 let cellOil = new Float64Array(0);
 const splatCell = new Int32Array(4);
+const rkTmp = new Float64Array(11), rk1 = new Float64Array(11), rk2 = new Float64Array(11), rk3 = new Float64Array(11), rk4 = new Float64Array(11);
 const splatW = new Float64Array(4);
 
 /**
@@ -197,7 +198,7 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
   const cellRad = Math.PI / 2 / n; // a cube-map cell's angular size at a face centre (π/2 per face / n)
 
   const s = Float64Array.from(state0);
-  const tmp = new Float64Array(11), k1 = new Float64Array(11), k2 = new Float64Array(11), k3 = new Float64Array(11), k4 = new Float64Array(11);
+  const tmp = rkTmp, k1 = rk1, k2 = rk2, k3 = rk3, k4 = rk4;
   { const qn = 1 / Math.hypot(s[7], s[8], s[9], s[10]); s[7] *= qn; s[8] *= qn; s[9] *= qn; s[10] *= qn; }
 
   const ftM = C.footM, stopM = stopFt * ftM, half = C.laneHalfWidthM, R = inertia.radiusM;
