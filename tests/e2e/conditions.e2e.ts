@@ -270,5 +270,13 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
     await page.getByRole('button', { name: 'Duplicate' }).click();
     await page.getByText('Pattern duplicated', { exact: true }).waitFor();
     await expectNumber(page, 'volume', '18.00 mL');
+
+    // Reordering with the keyboard: the moved row keeps the focus; the order does not change the numbers.
+    await page.getByRole('button', { name: 'Move sweep 4 up' }).focus();
+    await page.keyboard.press('Enter');
+    expect(await page.getByLabel('Sweep 3 direction').inputValue()).toBe('reverse');
+    expect(await page.evaluate(() => document.activeElement?.getAttribute('aria-label'))).toBe('Move sweep 3 up');
+    await expectNumber(page, 'volume', '18.00 mL');
+    await page.getByText('Unsaved changes').waitFor();
   });
 });
