@@ -101,6 +101,10 @@ describe('matchup: the demo bowler from catalogue to what-if', () => {
     await page.getByText(/^Source: /).first().waitFor();
     await screenshot(page, 'matchup-desktop');
 
+    // A suggestion can be tried in the what-if straight from the reasons.
+    await page.getByRole('button', { name: /^Try in the what-if: / }).first().click();
+    await page.getByRole('status').filter({ hasText: /^The order (changes|stays the same)/ }).waitFor();
+
     // What-if: Backend sanded to 500 grit moves up the order, worked out in the browser.
     await choose(page, 'What-if ball', 'Backend (Skylark Arc)');
     await page.getByText('Change the surface or the layout of a ball').waitFor();
