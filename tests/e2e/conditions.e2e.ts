@@ -235,6 +235,20 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
   it('the editor exports the pattern as CSV, rejects a bad file with line-numbered errors and nothing saved, imports a good one and duplicates', async () => {
     const { page } = await open();
     await signIn(page, DEMO.proprietor);
+
+    // Center admin and its publish dialog at 375 px.
+    await page.setViewportSize(MOBILE);
+    await page.goto('/center-admin');
+    await page.getByRole('heading', { level: 1, name: 'Center admin' }).waitFor();
+    await page.getByRole('table').filter({ hasText: PATTERN_NAME }).first().waitFor();
+    expect(await hasHorizontalScroll(page), 'Center admin fits 375 px').toBe(false);
+    await screenshot(page, 'center-admin-mobile');
+    await page.getByRole('button', { name: 'Publish a condition' }).click();
+    await page.getByRole('dialog').getByRole('button', { name: 'Lane 24', exact: true }).waitFor();
+    await screenshot(page, 'center-publish-form-mobile');
+    await page.getByRole('dialog').getByRole('button', { name: 'Cancel' }).click();
+    await page.setViewportSize(DESKTOP);
+
     await page.goto('/patterns');
     await page.getByRole('link', { name: `Edit ${PATTERN_NAME}` }).first().click();
     await page.getByRole('heading', { level: 1, name: 'Edit pattern' }).waitFor();
