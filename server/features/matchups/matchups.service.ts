@@ -2,6 +2,9 @@ import type { BowlerProfile, RankedBall } from '../../../engine/types';
 import { ballToSpec, type Ball as BallDto } from '../../../shared/balls';
 import type { MatchupRequest } from '../../../shared/matchups';
 import type { PatternSummary } from '../../../shared/patterns';
+import { createHash } from 'node:crypto';
+import { LRUCache } from 'lru-cache';
+import type { RankArsenalInput } from '../../../engine/types';
 import { AppError } from '../../lib/AppError';
 import { rankInWorker } from '../../lib/enginePool';
 import type { AuthUser } from '../../middleware/auth';
@@ -19,6 +22,22 @@ export interface MatchupResult {
   bowler: BowlerProfile;
   gamesBowled: number;
   rankings: MatchupRanking[];
+}
+
+/**
+ * The engine is deterministic, so a ranking is cached by the exact input it was computed from (balls with
+ * their current specs and surfaces, the bowler's release, the pattern's sweeps, games bowled). Any change to
+ * one of them is a different key; nothing has to be invalidated.
+ */
+const rankingCache = new LRUCache<string, RankedBall[]>({ max: 500 });
+
+async function rankCached(input: RankArsenalInput): Promise<RankedBall[]> {
+  const key = createHash('sha256').update(JSON.stringify(input)).digest('base64url');
+  const hit = rankingCache.get(key);
+  if (hit) return hit;
+  const ranked = await rankInWorker(input);
+  rankingCache.set(key, ranked);
+  return ranked;
 }
 
 export const matchupsService = {
@@ -45,7 +64,7 @@ export const matchupsService = {
     const byId = new Map(balls.map((b) => [String(b.id), b]));
     let ranked: RankedBall[] = [];
     try {
-      if (balls.length) ranked = await rankInWorker({ balls: balls.map((b) => ({ id: String(b.id), ...ballToSpec(b) })), bowler, pattern, gamesBowled: req.gamesBowled });
+      if (balls.length) ranked = await rankCached({ balls: balls.map((b) => ({ id: String(b.id), ...ballToSpec(b) })), bowler, pattern, gamesBowled: req.gamesBowled });
     } catch (err) {
       // The engine refuses input outside its documented ranges with RangeError/TypeError naming the value.
       if (err instanceof Error && (err.name === 'RangeError' || err.name === 'TypeError') && /^[a-zA-Z]+: /.test(err.message)) throw new AppError(422, 'engine_rejected', err.message);
