@@ -87,6 +87,13 @@ describe('arsenal screen', () => {
     await page.getByText('Within USBC ball limits').waitFor();
     await page.getByText('Took it to 4000 for the summer league').waitFor();
     await page.getByText('Drilling, plugging and fitting are work for a qualified pro-shop technician.').first().waitFor();
+    // A photo: the type is checked before upload, a PNG is saved and shown.
+    await page.getByLabel('Add a photo').setInputFiles({ name: 'notes.txt', mimeType: 'text/plain', buffer: Buffer.from('not a picture') });
+    await page.getByRole('alert').filter({ hasText: 'Choose a PNG, JPEG or WebP picture.' }).waitFor();
+    const png = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mNk+M9QDwADhgGAWjR9awAAAABJRU5ErkJggg==', 'base64');
+    await page.getByLabel('Add a photo').setInputFiles({ name: 'big-red.png', mimeType: 'image/png', buffer: png });
+    await page.getByRole('img', { name: 'Photo of Big Red' }).waitFor();
+    await page.getByRole('button', { name: 'Remove photo' }).waitFor();
     expect(await hasHorizontalScroll(page)).toBe(false);
     await screenshot(page, 'ball-mobile');
 

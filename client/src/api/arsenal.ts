@@ -20,6 +20,15 @@ export const arsenalApi = {
   remove: (id: number) => api.delete<null>(`/arsenal/${id}`),
   restore: (id: number) => api.post<{ item: Ball }>(`/arsenal/${id}/restore`),
   changeSurface: (id: number, body: SurfaceChange) => api.post<{ item: Ball }>(`/arsenal/${id}/surface`, body),
+  /** The ball's photo (needs the bearer token, so it is fetched as a Blob for an object URL). */
+  photo: (id: number, signal?: AbortSignal) => api.get<Blob>(`/arsenal/${id}/photo`, { asBlob: true, signal }),
+  /** PNG, JPEG or WebP up to 2 MiB; replaces any earlier photo. */
+  setPhoto: (id: number, file: File) => {
+    const form = new FormData();
+    form.append('file', file, file.name);
+    return api.put<{ item: Ball }>(`/arsenal/${id}/photo`, form);
+  },
+  removePhoto: (id: number) => api.delete<{ item: Ball }>(`/arsenal/${id}/photo`),
   /** CSV upload (all or nothing); a bad file answers 400 `csv_invalid_rows` with `fields` keyed `rows.<line>.<column>`. */
   importCsv: (file: File) => {
     const form = new FormData();
