@@ -2,14 +2,17 @@ import { z } from 'zod';
 import type { Sweep } from '../engine/types';
 import { PageQuerySchema } from './auth';
 
-/** One sweep as the pattern editor and the API accept it (boards 1–39, 0 ≤ startFt < endFt ≤ 70). */
+/**
+ * One sweep as the pattern editor and the API accept it: boards 1–39, 0 ≤ startFt < endFt ≤ 60 (the engine spreads
+ * oil only up to the headpin, 60 ft; TRADE.md section 2).
+ */
 export const SweepSchema = z
   .object({
     direction: z.enum(['forward', 'reverse'], { error: 'Forward or reverse' }),
     fromBoard: z.number({ error: 'Board must be a number' }).int('Whole board').min(1, 'Board 1 to 39').max(39, 'Board 1 to 39'),
     toBoard: z.number({ error: 'Board must be a number' }).int('Whole board').min(1, 'Board 1 to 39').max(39, 'Board 1 to 39'),
-    startFt: z.number({ error: 'Must be a number' }).min(0, 'At least 0 ft').max(70, 'At most 70 ft'),
-    endFt: z.number({ error: 'Must be a number' }).min(0, 'At least 0 ft').max(70, 'At most 70 ft'),
+    startFt: z.number({ error: 'Must be a number' }).min(0, 'At least 0 ft').max(60, 'Oil ends by the headpin, 60 ft'),
+    endFt: z.number({ error: 'Must be a number' }).min(0, 'At least 0 ft').max(60, 'Oil ends by the headpin, 60 ft'),
     crossings: z.number({ error: 'Must be a number' }).int('Whole crossings').min(1, 'At least 1').max(50, 'At most 50'),
     microlitersPerBoard: z.number({ error: 'Must be a number' }).min(1, 'At least 1 µL').max(200, 'At most 200 µL per board'),
   })

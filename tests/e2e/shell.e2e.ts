@@ -203,7 +203,7 @@ describe('client shell: roles', () => {
     const { page } = await open();
     await signIn(page, DEMO.dana);
     const nav = page.getByRole('navigation', { name: 'Main' });
-    expect(await nav.getByRole('link', { name: 'Admin' }).count()).toBe(0);
+    expect(await nav.getByRole('link', { name: 'Admin', exact: true }).count()).toBe(0);
 
     await page.goto('/admin/users');
     await page.getByRole('heading', { level: 1, name: 'Not allowed' }).waitFor();
@@ -216,7 +216,7 @@ describe('client shell: roles', () => {
   it('admin: the admin sees the user table, filters it, and changes a role after confirming', async () => {
     const { page } = await open();
     await signIn(page, DEMO.admin);
-    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Admin' }).click();
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Admin', exact: true }).click();
     await page.getByRole('heading', { level: 1, name: 'Users and roles' }).waitFor();
     await page.getByRole('cell', { name: DEMO.dana }).waitFor();
     await page.getByRole('cell', { name: DEMO.proprietor }).waitFor();

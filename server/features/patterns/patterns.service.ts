@@ -11,7 +11,14 @@ import { patternsRepository, toPatternListItem } from './patterns.repository';
 
 /** The engine's summary of a pattern, JSON-safe (an unbounded ratio becomes null). */
 export function summarize(p: OilPattern): PatternSummary {
-  const a = analyzePattern(p);
+  let a: ReturnType<typeof analyzePattern>;
+  try {
+    a = analyzePattern(p);
+  } catch (err) {
+    // The engine names the function and the bad value; anything zod let through is still the caller's input.
+    if (err instanceof RangeError || err instanceof TypeError) throw new AppError(400, 'validation_failed', err.message, { 'body.sweeps': err.message });
+    throw err;
+  }
   return { ...a, ratio: Number.isFinite(a.ratio) ? a.ratio : null };
 }
 

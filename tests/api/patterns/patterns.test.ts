@@ -66,6 +66,13 @@ describe('pattern editing', () => {
     expect(fields).toHaveProperty(['body.sweeps.0.crossings']);
   });
 
+  it('refuses oil past the headpin (60 ft) with 400, not 500', async () => {
+    const coach = await createUser('coach');
+    const res = await api.post('/api/patterns').set(coach.auth).send({ name: 'Too Long', sweeps: [{ direction: 'forward', fromBoard: 2, toBoard: 38, startFt: 0, endFt: 65, crossings: 2, microlitersPerBoard: 50 }] });
+    expect(res.status).toBe(400);
+    expect(errorOf(res.body).fields).toHaveProperty(['body.sweeps.0.endFt']);
+  });
+
   it("lets only the owner (or an admin) edit, and a stale version gets 409", async () => {
     const owner = await createUser('proprietor');
     const other = await createUser('coach');
