@@ -54,7 +54,9 @@ const balls: ArsenalBall[] = Array.from({ length: 15 }, (_, i) => ({
 const game = [10, 10, 10, 7, 2, 8, 2, 0, 9, 10, 7, 3, 9, 0, 10, 10, 8];
 
 export const benches: Bench[] = [
-  { name: 'engine: rankArsenal, 15 balls', target: '< 5 ms median', iterations: 60, run: () => void rankArsenal({ balls, bowler, pattern, gamesBowled: 3 }) },
+  // Issue 3's figure (rankArsenal well under 5 ms) was set before the ball-motion layer joined the ranking; the rules
+  // layer below carries that target, and the full ranking carries issue 4's (≤ 100 ms incl. miss room).
+  { name: 'engine: rankArsenal, 15 balls (rules + motion layers)', target: '< 100 ms median', iterations: 60, run: () => void rankArsenal({ balls, bowler, pattern, gamesBowled: 3 }) },
   {
     name: 'engine: rules layer only, 15 balls',
     target: '< 5 ms median',
