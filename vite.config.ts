@@ -1,12 +1,15 @@
 import { fileURLToPath, URL } from 'node:url';
 import { defineConfig } from 'vitest/config';
 import vue from '@vitejs/plugin-vue';
+import Components from 'unplugin-vue-components/vite';
+import { ElementPlusResolver } from 'unplugin-vue-components/resolvers';
 
 const apiPort = process.env.PORT ?? '3000';
 
 export default defineConfig({
   root: fileURLToPath(new URL('./client', import.meta.url)),
-  plugins: [vue()],
+  // Element Plus on demand: each view's chunk imports only the components (and their CSS) it uses.
+  plugins: [vue(), Components({ resolvers: [ElementPlusResolver({ importStyle: 'css' })], dts: false })],
   resolve: {
     alias: {
       '@': fileURLToPath(new URL('./client/src', import.meta.url)),

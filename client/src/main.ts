@@ -1,7 +1,10 @@
 import { createApp } from 'vue';
 import { createPinia } from 'pinia';
-import ElementPlus from 'element-plus';
-import 'element-plus/dist/index.css';
+import 'element-plus/theme-chalk/base.css';
+// Services called from script (not templates) bring their own styles.
+import 'element-plus/es/components/message-box/style/css';
+import 'element-plus/es/components/notification/style/css';
+import 'element-plus/es/components/message/style/css';
 import '@fontsource/source-sans-3/400.css';
 import '@fontsource/source-sans-3/600.css';
 import '@fontsource/source-sans-3/700.css';
@@ -33,5 +36,4 @@ configureApiClient({
 });
 
 app.use(router);
-app.use(ElementPlus);
 app.mount('#app');
