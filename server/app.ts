@@ -22,6 +22,8 @@ import { errorHandler, notFound } from './middleware/errorHandler';
 export function createApp(): Express {
   const app = express();
   app.disable('x-powered-by');
+  // API answers are per-user JSON; hashing every body for an ETag costs more than it saves.
+  app.set('etag', false);
   app.set('trust proxy', 'loopback');
   app.use(
     helmet({

@@ -1,5 +1,6 @@
 import type { NextFunction, Request, Response } from 'express';
 import jwt from 'jsonwebtoken';
+import { LRUCache } from 'lru-cache';
 import passport from 'passport';
 import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
 import type { Role } from '../../shared/auth';
@@ -41,6 +42,18 @@ export function signToken(user: { id: number; tokenVersion: number }): string {
   });
 }
 
+/**
+ * Signed-in users looked up in the last few seconds, by id: saves one query per request. Role changes and
+ * password resets call forgetAuthUser, so they take effect at once; anything else at most AUTH_CACHE_MS later.
+ */
+const AUTH_CACHE_MS = 5000;
+const authCache = new LRUCache<number, { user: AuthUser; tokenVersion: number }>({ max: 10000, ttl: AUTH_CACHE_MS });
+
+/** Drops a user from the sign-in cache (after a role change, a password reset or a deletion). */
+export function forgetAuthUser(id: number): void {
+  authCache.delete(id);
+}
+
 passport.use(
   new JwtStrategy(
     {
@@ -56,10 +69,18 @@ passport.use(
         done(null, false);
         return;
       }
+      const cached = authCache.get(id);
+      if (cached) {
+        done(null, cached.tokenVersion === payload.ver ? cached.user : false);
+        return;
+      }
       User.findByPk(id)
         .then((u) => {
-          if (!u || u.tokenVersion !== payload.ver) return done(null, false);
-          return done(null, { id: u.id, email: u.email, displayName: u.displayName, role: u.role });
+          if (!u) return done(null, false);
+          const user: AuthUser = { id: u.id, email: u.email, displayName: u.displayName, role: u.role };
+          authCache.set(id, { user, tokenVersion: u.tokenVersion });
+          if (u.tokenVersion !== payload.ver) return done(null, false);
+          return done(null, user);
         })
         .catch((err: unknown) => done(err));
     },

@@ -1,4 +1,4 @@
-import { Op, type CreationAttributes, type Transaction, type WhereOptions } from 'sequelize';
+import { Op, literal, type CreationAttributes, type InferAttributes, type Transaction, type WhereOptions } from 'sequelize';
 import type { ArsenalQuery, Ball as BallDto, SurfaceEvent as SurfaceEventDto } from '../../../shared/balls';
 import { Ball, SurfaceEvent } from '../../models/index';
 import { likeText } from '../catalogue/catalogue.repository';
@@ -7,7 +7,10 @@ export function toSurfaceEventDto(e: SurfaceEvent): SurfaceEventDto {
   return { id: e.id, fromGrit: e.fromGrit, fromPolished: e.fromPolished, toGrit: e.toGrit, toPolished: e.toPolished, at: e.at.toISOString(), byUserId: e.byUserId, note: e.note };
 }
 
-export function toBallDto(b: Ball): BallDto {
+/** The attributes toBallDto reads: a model instance or a raw row of the same attributes. */
+type BallRow = Pick<Ball, Exclude<keyof InferAttributes<Ball>, 'ownerId' | 'deletedAt'>> & { surfaceEvents?: SurfaceEvent[] };
+
+export function toBallDto(b: BallRow): BallDto {
   return {
     id: b.id,
     ballModelId: b.ballModelId,
@@ -37,17 +40,23 @@ export function toBallDto(b: Ball): BallDto {
 type BallCreation = CreationAttributes<Ball>;
 
 export const arsenalRepository = {
-  list(ownerId: number, q: ArsenalQuery): Promise<{ rows: Ball[]; count: number }> {
+  /** One page and the total in one query (COUNT(*) OVER ()), as plain rows: the arsenal list is the hottest read. */
+  async list(ownerId: number, q: ArsenalQuery): Promise<{ rows: BallRow[]; count: number }> {
     const where: Record<string | symbol, unknown> = { ownerId };
     if (q.coverType) where.coverType = q.coverType;
     if (q.status) where.status = q.status;
     if (q.q) where[Op.or] = [{ name: { [Op.iLike]: likeText(q.q) } }, { nickname: { [Op.iLike]: likeText(q.q) } }, { maker: { [Op.iLike]: likeText(q.q) } }];
-    return Ball.findAndCountAll({
+    const rows = (await Ball.findAll({
       where: where as WhereOptions<Ball>,
+      attributes: { include: [[literal('COUNT(*) OVER ()'), 'fullCount']] },
       order: [[q.sort, q.order.toUpperCase()], ['id', 'ASC']],
       limit: q.pageSize,
       offset: (q.page - 1) * q.pageSize,
-    });
+      raw: true,
+    })) as unknown as (BallRow & { fullCount: string })[];
+    // Past the last page there is no row to carry the total: count separately.
+    const count = rows.length ? Number(rows[0].fullCount) : await Ball.count({ where: where as WhereOptions<Ball> });
+    return { rows, count };
   },
   /** The owner's ball, or null (also for another owner's ball, so existence never leaks). */
   findOwned(ownerId: number, id: number, opts: { withHistory?: boolean; transaction?: Transaction; paranoid?: boolean } = {}): Promise<Ball | null> {

@@ -5,7 +5,7 @@ import { config } from '../../config/index';
 import { AppError } from '../../lib/AppError';
 import { enqueueMail } from '../../lib/outbox';
 import { sequelize } from '../../models/index';
-import { signToken } from '../../middleware/auth';
+import { forgetAuthUser, signToken } from '../../middleware/auth';
 import { toUserDto, userRepository } from './user.repository';
 
 const RESET_TTL_MS = 60 * 60 * 1000;
@@ -82,6 +82,7 @@ export const authService = {
       await user.save({ transaction });
       reset.usedAt = new Date();
       await reset.save({ transaction });
+      transaction.afterCommit(() => forgetAuthUser(user.id));
     });
   },
 };
