@@ -16,7 +16,8 @@ const workerFile = path.join(here, 'engineWorker.mjs');
 let pool: Piscina | null = null;
 
 function getPool(): Piscina {
-  pool ??= new Piscina({
+  if (pool) return pool;
+  pool = new Piscina({
     filename: workerFile,
     minThreads: 1,
     maxThreads: Math.max(1, Math.min(config.ENGINE_WORKERS || cpus().length, 8)),

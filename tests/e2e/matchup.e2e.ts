@@ -54,6 +54,20 @@ async function rankingOrder(page: Page): Promise<string[]> {
   return names.map((n) => n.trim());
 }
 
+describe('matchup: the condition picker', () => {
+  it('lists today’s condition at the centers the bowler follows as well as every pattern', async () => {
+    const { page } = await open();
+    await signIn(page, DEMO.dana);
+    await page.goto(`${baseUrl}/matchup`);
+    await page.getByRole('heading', { level: 1, name: 'Matchup' }).waitFor();
+    await page.getByRole('combobox', { name: 'Condition' }).focus();
+    await page.keyboard.press('Enter');
+    await page.getByRole('option', { name: /^Copperline Bowl today — / }).waitFor();
+    await page.getByRole('option', { name: 'Long Haul 47', exact: true }).waitFor();
+    await screenshot(page, 'matchup-condition-picker-desktop');
+  });
+});
+
 describe('matchup: the demo bowler from catalogue to what-if', () => {
   it('adds a ball from the catalogue, ranks the arsenal on the long heavy pattern, sees the lane view, and a what-if surface change reorders the ranking', async () => {
     const { page } = await open();
