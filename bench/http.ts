@@ -89,6 +89,8 @@ async function main(): Promise<void> {
     const patterns = (await (await fetch(`${base}/api/patterns`, { headers: auth })).json()) as { items: { id: number; name: string }[] };
     const heavy = patterns.items.find((p) => /Long/.test(p.name)) ?? patterns.items[0];
 
+    // The list first, so no queued ranking from the matchup runs competes with it.
+    const list = await load({ url: `${base}/api/arsenal`, headers: auth, connections: 10, duration: 10 });
     await load({ url: `${base}/api/matchups`, method: 'POST', headers: auth, body: JSON.stringify({ patternId: heavy.id }), connections: 2, duration: 2 }); // warm the workers
     const matchups = await load({ url: `${base}/api/matchups`, method: 'POST', headers: auth, body: JSON.stringify({ patternId: heavy.id }), connections: 10, duration: 10 });
     // Cold: every request a different input (games bowled in steps of 0.001), so the ranking cache never answers.
@@ -99,7 +101,6 @@ async function main(): Promise<void> {
       duration: 10,
       requests: [{ method: 'POST', headers: auth, setupRequest: (req) => ({ ...req, body: JSON.stringify({ patternId: heavy.id, gamesBowled: ((n++ % 29000) + 1) / 1000 }) }) }],
     });
-    const list = await load({ url: `${base}/api/arsenal`, headers: auth, connections: 10, duration: 10 });
     const errors = matchups.non2xx + list.non2xx + cold.non2xx + matchups.errors + list.errors + cold.errors;
 
     const http = [

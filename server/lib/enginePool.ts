@@ -27,9 +27,9 @@ function getPool(): Piscina {
   return pool;
 }
 
-/** rankArsenal in a worker thread. */
-export function rankInWorker(input: RankArsenalInput): Promise<RankedBall[]> {
-  return getPool().run(input, { name: 'rank' }) as Promise<RankedBall[]>;
+/** rankArsenal in a worker thread; an aborted signal (the client went away) drops the task if it has not started. */
+export function rankInWorker(input: RankArsenalInput, signal?: AbortSignal): Promise<RankedBall[]> {
+  return getPool().run(input, { name: 'rank', ...(signal ? { signal } : {}) }) as Promise<RankedBall[]>;
 }
 
 export async function closeEnginePool(): Promise<void> {

@@ -8,5 +8,15 @@ export const matchupsRouter = Router();
 matchupsRouter.use(requireAuth);
 
 matchupsRouter.post('/', validate({ body: MatchupRequestSchema }), async (req: Request, res: Response) => {
-  res.json(await matchupsService.run(currentUser(req), req.body as MatchupRequest));
+  // A client that gives up (closed tab, new slider value) should not keep a worker busy.
+  const gone = new AbortController();
+  res.on('close', () => {
+    if (!res.writableFinished) gone.abort();
+  });
+  try {
+    res.json(await matchupsService.run(currentUser(req), req.body as MatchupRequest, gone.signal));
+  } catch (err) {
+    if (gone.signal.aborted) return; // nobody is listening any more
+    throw err;
+  }
 });

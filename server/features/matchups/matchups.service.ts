@@ -31,18 +31,18 @@ export interface MatchupResult {
  */
 const rankingCache = new LRUCache<string, RankedBall[]>({ max: 500 });
 
-async function rankCached(input: RankArsenalInput): Promise<RankedBall[]> {
+async function rankCached(input: RankArsenalInput, signal?: AbortSignal): Promise<RankedBall[]> {
   const key = createHash('sha256').update(JSON.stringify(input)).digest('base64url');
   const hit = rankingCache.get(key);
   if (hit) return hit;
-  const ranked = await rankInWorker(input);
+  const ranked = await rankInWorker(input, signal);
   rankingCache.set(key, ranked);
   return ranked;
 }
 
 export const matchupsService = {
   /** Ranks the bowler's active balls (or the chosen ones) for a pattern with the engine, in a worker thread. */
-  async run(user: AuthUser, req: MatchupRequest): Promise<MatchupResult> {
+  async run(user: AuthUser, req: MatchupRequest, signal?: AbortSignal): Promise<MatchupResult> {
     if (req.studentId !== undefined && req.studentId !== user.id) {
       // Coaching links arrive with the coaching feature; until then no other bowler's arsenal is reachable.
       throw AppError.notFound('Student');
@@ -64,7 +64,7 @@ export const matchupsService = {
     const byId = new Map(balls.map((b) => [String(b.id), b]));
     let ranked: RankedBall[] = [];
     try {
-      if (balls.length) ranked = await rankCached({ balls: balls.map((b) => ({ id: String(b.id), ...ballToSpec(b) })), bowler, pattern, gamesBowled: req.gamesBowled });
+      if (balls.length) ranked = await rankCached({ balls: balls.map((b) => ({ id: String(b.id), ...ballToSpec(b) })), bowler, pattern, gamesBowled: req.gamesBowled }, signal);
     } catch (err) {
       // The engine refuses input outside its documented ranges with RangeError/TypeError naming the value.
       if (err instanceof Error && (err.name === 'RangeError' || err.name === 'TypeError') && /^[a-zA-Z]+: /.test(err.message)) throw new AppError(422, 'engine_rejected', err.message);
