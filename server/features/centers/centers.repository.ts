@@ -28,8 +28,8 @@ export const centersRepository = {
   findById(id: number, transaction?: Transaction): Promise<Center | null> {
     return Center.findByPk(id, { transaction });
   },
-  /** Publications in force on `day` (YYYY-MM-DD), newest publication first. */
-  inForce(centerId: number, day: string): Promise<Condition[]> {
+  /** Publications in force on `day` (YYYY-MM-DD) at one center or several, newest publication first. */
+  inForce(centerId: number | number[], day: string): Promise<Condition[]> {
     return Condition.findAll({
       where: { centerId, validFrom: { [Op.lte]: day }, [Op.or]: [{ validTo: null }, { validTo: { [Op.gte]: day } }] },
       order: [['publishedAt', 'DESC'], ['id', 'DESC']],

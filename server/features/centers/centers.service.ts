@@ -164,14 +164,14 @@ export const centersService = {
 
   async follows(user: AuthUser): Promise<{ center: CenterDto; current: ConditionDto | null }[]> {
     const rows = await Follow.findAll({ where: { userId: user.id }, include: [{ model: Center, as: 'center' }], order: [['id', 'ASC']] });
-    const day = todayUtc();
-    return Promise.all(
-      rows.map(async (f) => {
-        const center = (f as Follow & { center: Center }).center;
-        const [c] = await centersRepository.inForce(center.id, day);
-        return { center: toCenterDto(center, true), current: c ? toConditionDto(c) : null };
-      }),
-    );
+    const centers = rows.map((f) => (f as Follow & { center: Center }).center);
+    // One query for every followed center; the first row per center is its newest publication in force.
+    const newest = new Map<number, Condition>();
+    if (centers.length) for (const c of await centersRepository.inForce(centers.map((x) => x.id), todayUtc())) if (!newest.has(c.centerId)) newest.set(c.centerId, c);
+    return centers.map((center) => {
+      const c = newest.get(center.id);
+      return { center: toCenterDto(center, true), current: c ? toConditionDto(c) : null };
+    });
   },
 
   /** Removes the follow behind an e-mail's unsubscribe link (no sign-in); returns the center's name, or null for an unknown token. */

@@ -162,6 +162,23 @@ describe('followers', () => {
     expect((await api.get('/api/follows')).status).toBe(401);
   });
 
+  it('gives each followed center its own newest condition in force (none where nothing is published)', async () => {
+    const owner = await createUser('proprietor');
+    const a = await createCenter(owner.user.id);
+    const b = await createCenter(owner.user.id);
+    const empty = await createCenter(owner.user.id);
+    const p1 = await createPattern(owner.user.id, LONG_HEAVY);
+    const p2 = await createPattern(owner.user.id, SHORT_LIGHT);
+    const me = await createUser();
+    for (const c of [a, b, empty]) await api.post(`/api/centers/${c.id}/follow`).set(me.auth);
+    await api.post(`/api/centers/${a.id}/conditions`).set(owner.auth).send({ patternId: p2.id, lanes: [1], validFrom: today() });
+    await api.post(`/api/centers/${a.id}/conditions`).set(owner.auth).send({ patternId: p1.id, lanes: [1], validFrom: today() });
+    await api.post(`/api/centers/${b.id}/conditions`).set(owner.auth).send({ patternId: p2.id, lanes: [1], validFrom: today() });
+    const items = (await api.get('/api/follows').set(me.auth)).body.items as { center: { id: number }; current: { pattern: { id: number } } | null }[];
+    const byCenter = new Map(items.map((i) => [i.center.id, i.current?.pattern.id ?? null]));
+    expect(byCenter).toEqual(new Map([[a.id, p1.id], [b.id, p2.id], [empty.id, null]]));
+  });
+
   it('retries a failed delivery on a doubling schedule capped at one hour', async () => {
     const { backoffMs } = await import('../../../server/lib/outbox');
     expect([1, 2, 3, 4].map(backoffMs)).toEqual([5000, 10000, 20000, 40000]);
