@@ -5,3 +5,5 @@ export * from './balls';
 export * from './patterns';
 export * from './matchups';
 export * from './centers';
+export * from './sessions';
+export * from './coaching';

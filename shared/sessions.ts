@@ -1,0 +1,184 @@
+import { z } from 'zod';
+import type { Calibration, GameView, HitKind, Move, ShotStats } from '../engine/shotlog/types';
+import { PageQuerySchema } from './auth';
+import type { Annotation } from './coaching';
+
+const isoDate = z.iso.date({ error: 'Use a date like 2026-12-01' });
+const id = (label: string) => z.number({ error: `${label} must be an id (a number)` }).int(`${label} must be a whole number`).positive(`${label} must be positive`).max(2147483647);
+const queryId = z.coerce.number({ error: 'Must be a number' }).int('Must be a whole number').positive('Must be positive').max(2147483647);
+
+export const SESSION_KINDS = ['practice', 'league', 'tournament'] as const;
+export type SessionKind = (typeof SESSION_KINDS)[number];
+export const SessionKindSchema = z.enum(SESSION_KINDS, { error: 'Choose practice, league or tournament' });
+
+export const HIT_KINDS = ['pocket', 'high', 'light', 'brooklyn', 'miss'] as const satisfies readonly HitKind[];
+export const HitKindSchema = z.enum(HIT_KINDS, { error: 'Choose pocket, high, light, brooklyn or miss' });
+
+export const SessionCreateSchema = z
+  .object({
+    date: isoDate,
+    kind: SessionKindSchema,
+    centerId: id('centerId').nullable().optional(),
+    /** A published condition; its center and pattern are used when not given. */
+    conditionId: id('conditionId').nullable().optional(),
+    patternId: id('patternId').nullable().optional(),
+    notes: z.string().trim().max(2000, 'At most 2000 characters').optional(),
+  })
+  .strict();
+export type SessionCreate = z.infer<typeof SessionCreateSchema>;
+
+export const SessionPatchSchema = z
+  .object({
+    notes: z.string().trim().max(2000, 'At most 2000 characters').optional(),
+    kind: SessionKindSchema.optional(),
+    date: isoDate.optional(),
+  })
+  .strict();
+export type SessionPatch = z.infer<typeof SessionPatchSchema>;
+
+export const SessionListQuerySchema = PageQuerySchema.extend({
+  /** A linked coach reads a student's sessions. */
+  studentId: queryId.optional(),
+  from: isoDate.optional(),
+  to: isoDate.optional(),
+});
+export type SessionListQuery = z.infer<typeof SessionListQuerySchema>;
+
+export const ShotParamsSchema = z.object({ id: queryId, shotId: queryId });
+
+/** The Idempotency-Key header of POST /api/sessions/:id/shots: the client's id for this shot, reused on every retry. */
+export const IdempotencyKeySchema = z
+  .string({ error: 'Send an Idempotency-Key header (8–100 characters) that identifies this shot' })
+  .min(8, 'The Idempotency-Key must be 8–100 characters')
+  .max(100, 'The Idempotency-Key must be 8–100 characters')
+  .regex(/^[\x21-\x7e]+$/, 'The Idempotency-Key may hold visible ASCII characters only');
+
+/** Boards are counted 1–39 from the bowler's gutter side (TRADE.md 2); half boards allowed. */
+const board = (label: string) =>
+  z
+    .number({ error: `${label} must be a number` })
+    .min(1, `${label}: boards run 1–39`)
+    .max(39, `${label}: boards run 1–39`)
+    .multipleOf(0.5, `${label}: whole or half boards`)
+    .nullable()
+    .optional();
+
+export const ShotCreateSchema = z
+  .object({
+    gameNumber: z.number({ error: 'gameNumber must be a number' }).int('Whole games').min(1, 'Games start at 1').max(50, 'At most 50 games in a session'),
+    frame: z.number({ error: 'frame must be a number' }).int('Whole frames').min(1, 'A game has frames 1–10').max(10, 'A game has frames 1–10'),
+    delivery: z.number({ error: 'delivery must be a number' }).int('Whole deliveries').min(1, 'Deliveries start at 1').max(3, 'A frame has at most 3 deliveries (3 only in frame 10)'),
+    ballId: id('ballId'),
+    feetBoard: board('Feet board'),
+    targetBoard: board('Target board'),
+    breakpointBoard: board('Breakpoint board'),
+    standing: z
+      .array(z.number({ error: 'Pins are numbers 1–10' }).int('Pins are numbers 1–10').min(1, 'Pins are numbers 1–10').max(10, 'Pins are numbers 1–10'), {
+        error: 'List the pins standing after the delivery (an empty list for none)',
+      })
+      .max(10, 'At most 10 pins')
+      .refine((a) => new Set(a).size === a.length, 'A pin is listed twice'),
+    foul: z.boolean({ error: 'Foul is yes or no' }).optional(),
+    hit: HitKindSchema.nullable().optional(),
+    note: z.string().trim().max(500, 'At most 500 characters').optional(),
+  })
+  .strict();
+export type ShotCreate = z.infer<typeof ShotCreateSchema>;
+
+export interface Session {
+  id: number;
+  userId: number;
+  date: string;
+  kind: SessionKind;
+  centerId: number | null;
+  centerName: string | null;
+  conditionId: number | null;
+  patternId: number | null;
+  patternName: string | null;
+  notes: string;
+  /** How many games have at least one shot. */
+  games: number;
+  shots: number;
+  createdAt: string;
+}
+
+export interface Shot {
+  id: number;
+  sessionId: number;
+  gameNumber: number;
+  frame: number;
+  delivery: number;
+  ballId: number;
+  ballName: string;
+  /** The ball's surface when the shot was thrown, e.g. "2000 grit" or "3000 grit polished". */
+  surfaceKey: string;
+  feetBoard: number | null;
+  targetBoard: number | null;
+  breakpointBoard: number | null;
+  standing: number[];
+  foul: boolean;
+  hit: HitKind | null;
+  note: string;
+  createdAt: string;
+}
+
+export type NumberedGame = GameView & { number: number };
+
+/** The answer of POST /api/sessions/:id/shots (also returned verbatim for a retried request). */
+export interface ShotCreated {
+  item: Shot;
+  game: NumberedGame;
+}
+
+export interface SessionDetail extends Session {
+  gameViews: NumberedGame[];
+  shots: Shot[];
+  stats: ShotStats;
+  moves: Move[];
+  annotations: Annotation[];
+  owner: { id: number; displayName: string };
+}
+
+export const StatsQuerySchema = z
+  .object({
+    from: isoDate.optional(),
+    to: isoDate.optional(),
+    ballId: queryId.optional(),
+    patternId: queryId.optional(),
+    studentId: queryId.optional(),
+  })
+  .refine((q) => !q.from || !q.to || q.to >= q.from, { path: ['to'], message: 'The end date is before the start date' });
+export type StatsQuery = z.infer<typeof StatsQuerySchema>;
+
+export interface StatsTrendPoint {
+  sessionId: number;
+  date: string;
+  games: number;
+  average: number | null;
+  strikePct: number | null;
+  sparePct: number | null;
+}
+
+export interface StatsResult {
+  overall: ShotStats;
+  byBall: { ballId: number; name: string; stats: ShotStats }[];
+  bySurface: { ballId: number; name: string; surfaceKey: string; stats: ShotStats }[];
+  trend: StatsTrendPoint[];
+  moves: Move[];
+  calibration: Calibration | null;
+  /** The pattern the calibration is for (the patternId filter, else the latest session's pattern). */
+  calibrationPatternId?: number | null;
+}
+
+export const CalibrationQuerySchema = z.object({
+  patternId: queryId,
+  studentId: queryId.optional(),
+});
+export type CalibrationQuery = z.infer<typeof CalibrationQuerySchema>;
+
+/** What a matchup says about the bowler's calibration. */
+export interface MatchupCalibration {
+  applied: boolean;
+  shots: number;
+  note: string;
+}
