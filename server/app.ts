@@ -17,6 +17,8 @@ import { profileRouter } from './features/profile/profile.router';
 import { mailCaptureEnabled } from './lib/mailer';
 import { passportInitialize } from './middleware/auth';
 import { errorHandler, notFound } from './middleware/errorHandler';
+import { uploadRateLimit } from './middleware/rateLimit';
+import { requestId } from './middleware/requestId';
 
 /** Builds the Express app: the API under /api and, when built, the client. Listening is index.ts's job. */
 export function createApp(): Express {
@@ -25,6 +27,7 @@ export function createApp(): Express {
   // API answers are per-user JSON; hashing every body for an ETag costs more than it saves.
   app.set('etag', false);
   app.set('trust proxy', 'loopback');
+  app.use(requestId);
   app.use(
     helmet({
       contentSecurityPolicy: {
@@ -48,6 +51,7 @@ export function createApp(): Express {
 
   const api = express.Router();
   api.use(express.json({ limit: config.BODY_LIMIT }));
+  api.use(uploadRateLimit);
   api.use('/health', healthRouter);
   api.use('/auth', authRouter);
   api.use('/profile', profileRouter);

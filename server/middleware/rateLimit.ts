@@ -23,3 +23,19 @@ export const signupRateLimit = rateLimit({
   legacyHeaders: false,
   handler: tooMany,
 });
+
+/** Uploads accepted per client address per 15 minutes (CSV imports, pattern files, photos). */
+export const UPLOAD_RATE_LIMIT = 60;
+
+/**
+ * File uploads (any multipart request under /api): every attempt counts, per client address (15 minutes),
+ * so nobody can fill the disk or keep the CSV parser busy. Mounted once in app.ts for every route.
+ */
+export const uploadRateLimit = rateLimit({
+  windowMs: 15 * 60 * 1000,
+  limit: UPLOAD_RATE_LIMIT,
+  skip: (req) => !(req.headers['content-type'] ?? '').toLowerCase().startsWith('multipart/'),
+  standardHeaders: 'draft-8',
+  legacyHeaders: false,
+  handler: tooMany,
+});

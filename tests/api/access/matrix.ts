@@ -1,0 +1,150 @@
+import type { Actor, Fixture } from './fixture';
+import { TINY_PNG } from './fixture';
+
+/** What one matrix cell sends. */
+export interface CellRequest {
+  url: string;
+  body?: unknown;
+  file?: { buffer: Buffer; filename: string; contentType: string };
+  headers?: Record<string, string>;
+}
+
+/** Expected statuses in the column order of ROLES: anonymous, owner, otherBowler, coachLinked, coachUnlinked, proprietorThis, proprietorOther, admin. */
+export type Row = readonly [number, number, number, number, number, number, number, number];
+
+export interface MatrixEntry {
+  /** Builds the request for one actor; may create fresh records (routes that delete or consume them). */
+  req: (f: Fixture, actor: Actor) => CellRequest | Promise<CellRequest>;
+  expect: Row | ((f: Fixture) => Row);
+  /** Why the row reads as it does, where it is not obvious. */
+  note?: string;
+}
+
+// Row shorthands.
+const all = (s: number): Row => [s, s, s, s, s, s, s, s];
+const signedIn = (s: number): Row => [401, s, s, s, s, s, s, s];
+/** The owner's record: everybody else gets 404 (its existence never leaks), admins included. */
+const ownOnly = (s: number): Row => [401, s, 404, 404, 404, 404, 404, 404];
+const adminOnly = (s: number): Row => [401, 403, 403, 403, 403, 403, 403, s];
+/** Coaches, proprietors and admins (pattern editors). */
+const editors = (s: number): Row => [401, 403, 403, s, s, s, s, s];
+/** A record of proprietorThis that other editors may read but not change (403: it is public, so nothing leaks). */
+const ownerOrAdminOfPattern = (s: number): Row => [401, 403, 403, 403, 403, s, 403, s];
+
+const today = () => new Date().toISOString().slice(0, 10);
+const uniq = () => `${process.pid}-${Date.now()}-${Math.floor(Math.random() * 1e9)}`;
+const csv = (lines: string[]) => Buffer.from(`${lines.join('\n')}\n`);
+const SWEEP = { direction: 'forward', fromBoard: 2, toBoard: 38, startFt: 0, endFt: 40, crossings: 2, microlitersPerBoard: 65 };
+
+/**
+ * The access matrix: one entry per API route (METHOD + Express path), each with the status every actor gets.
+ * A route of the router without an entry fails the test, and so does an entry whose route is gone.
+ * Bodies are valid, so an allowed actor gets the success status and a refused one the refusal.
+ */
+export const MATRIX: Record<string, MatrixEntry> = {
+  // ── platform ───────────────────────────────────────────────────────────────────────────────
+  'GET /api/health': { req: () => ({ url: '/api/health' }), expect: all(200) },
+  'GET /api/docs': { req: () => ({ url: '/api/docs' }), expect: all(200) },
+  'GET /api/docs/openapi.json': { req: () => ({ url: '/api/docs/openapi.json' }), expect: all(200) },
+  'GET /api/dev/mail': {
+    req: () => ({ url: '/api/dev/mail' }),
+    expect: all(200),
+    note: 'development and tests only: mounted only while the in-process capture SMTP server is in use (never with NODE_ENV=production or SMTP_URL); see security.test.ts',
+  },
+
+  // ── auth ───────────────────────────────────────────────────────────────────────────────────
+  'POST /api/auth/register': { req: () => ({ url: '/api/auth/register', body: { email: `reg-${uniq()}@example.test`, password: 'a-long-enough-password', displayName: 'Matrix Newcomer' } }), expect: all(201) },
+  'POST /api/auth/login': { req: (f) => ({ url: '/api/auth/login', body: { email: f.people.otherBowler.user.email, password: f.people.otherBowler.password } }), expect: all(200) },
+  'GET /api/auth/me': { req: () => ({ url: '/api/auth/me' }), expect: signedIn(200) },
+  'POST /api/auth/forgot': { req: () => ({ url: '/api/auth/forgot', body: { email: `nobody-${uniq()}@example.test` } }), expect: all(202) },
+  'POST /api/auth/reset': {
+    req: () => ({ url: '/api/auth/reset', body: { token: 'x'.repeat(43), password: 'another-long-password' } }),
+    expect: all(400),
+    note: 'public; a reset needs the mailed token, so every caller without it gets 400 invalid_token (tests/api/auth/reset.test.ts covers the success)',
+  },
+
+  // ── profile ────────────────────────────────────────────────────────────────────────────────
+  'GET /api/profile': { req: () => ({ url: '/api/profile' }), expect: signedIn(200) },
+  'PUT /api/profile': { req: () => ({ url: '/api/profile', body: { speedMph: 17.5 } }), expect: signedIn(200) },
+
+  // ── admin ──────────────────────────────────────────────────────────────────────────────────
+  'GET /api/admin/users': { req: () => ({ url: '/api/admin/users' }), expect: adminOnly(200) },
+  'PATCH /api/admin/users/:id/role': { req: async (f) => ({ url: `/api/admin/users/${await f.freshUserId()}/role`, body: { role: 'coach' } }), expect: adminOnly(200) },
+  'GET /api/admin/audit': { req: () => ({ url: '/api/admin/audit' }), expect: adminOnly(200) },
+
+  // ── catalogue ──────────────────────────────────────────────────────────────────────────────
+  'GET /api/catalogue': { req: () => ({ url: '/api/catalogue' }), expect: signedIn(200) },
+  'GET /api/catalogue/:id': { req: (f) => ({ url: `/api/catalogue/${f.ball.ballModelId}` }), expect: signedIn(200) },
+  'POST /api/catalogue': {
+    req: () => ({ url: '/api/catalogue', body: { maker: 'Matrix Foundry', name: `Matrix Sphere ${uniq()}`, coverType: 'reactive-solid', coreType: 'asymmetric', rg: 2.5, differential: 0.05, intermediateDifferential: 0.015, factoryGrit: 2000, factoryPolished: false, hardnessD: 76 } }),
+    expect: adminOnly(201),
+  },
+  'PATCH /api/catalogue/:id': { req: async (f) => { const m = await f.freshModelId(); return { url: `/api/catalogue/${m.id}`, body: { version: m.version, rg: 2.51 } }; }, expect: adminOnly(200) },
+  'POST /api/catalogue/import': {
+    req: () => ({ url: '/api/catalogue/import', file: { buffer: csv(['maker,name,coverType,coreType,rg,differential,intermediateDifferential,factoryGrit,factoryPolished,hardnessD,releaseYear', `Matrix Foundry,Imported ${uniq()},reactive-hybrid,symmetric,2.52,0.04,0,3000,false,77,2026`]), filename: 'catalogue.csv', contentType: 'text/csv' } }),
+    expect: adminOnly(201),
+  },
+
+  // ── arsenal (the owner's own balls) ────────────────────────────────────────────────────────
+  'GET /api/arsenal': { req: () => ({ url: '/api/arsenal' }), expect: signedIn(200), note: 'everyone signed in lists their own arsenal' },
+  'POST /api/arsenal': { req: (f) => ({ url: '/api/arsenal', body: { ballModelId: f.ball.ballModelId, weightLb: 15 } }), expect: signedIn(201) },
+  'POST /api/arsenal/import': {
+    req: () => ({ url: '/api/arsenal/import', file: { buffer: csv(['name,weightLb,coverType,coreType,rg,differential,surfaceGrit,polished', `Hand Entered ${uniq()},15,urethane,symmetric,2.6,0.02,2000,false`]), filename: 'arsenal.csv', contentType: 'text/csv' } }),
+    expect: signedIn(201),
+  },
+  'GET /api/arsenal/:id': { req: (f) => ({ url: `/api/arsenal/${f.ball.id}` }), expect: ownOnly(200) },
+  'PATCH /api/arsenal/:id': { req: async (f) => { const b = await f.freshBall(); return { url: `/api/arsenal/${b.id}`, body: { version: b.version, nickname: 'Matrix' } }; }, expect: ownOnly(200) },
+  'DELETE /api/arsenal/:id': { req: async (f) => ({ url: `/api/arsenal/${(await f.freshBall()).id}` }), expect: ownOnly(204) },
+  'POST /api/arsenal/:id/restore': { req: async (f) => ({ url: `/api/arsenal/${(await f.freshBall({ deleted: true })).id}/restore` }), expect: ownOnly(200) },
+  'POST /api/arsenal/:id/surface': { req: async (f) => ({ url: `/api/arsenal/${(await f.freshBall()).id}/surface`, body: { surfaceGrit: 1500, polished: false } }), expect: ownOnly(200) },
+  'PUT /api/arsenal/:id/photo': { req: async (f) => ({ url: `/api/arsenal/${(await f.freshBall()).id}/photo`, file: { buffer: TINY_PNG, filename: 'ball.png', contentType: 'image/png' } }), expect: ownOnly(200) },
+  'GET /api/arsenal/:id/photo': { req: (f) => ({ url: `/api/arsenal/${f.ball.id}/photo` }), expect: ownOnly(200) },
+  'DELETE /api/arsenal/:id/photo': { req: async (f) => ({ url: `/api/arsenal/${(await f.freshBall({ withPhoto: true })).id}/photo` }), expect: ownOnly(200) },
+
+  // ── patterns ───────────────────────────────────────────────────────────────────────────────
+  'GET /api/patterns': { req: () => ({ url: '/api/patterns' }), expect: signedIn(200) },
+  'GET /api/patterns/:id': { req: (f) => ({ url: `/api/patterns/${f.pattern.id}` }), expect: signedIn(200) },
+  'GET /api/patterns/:id/export': { req: (f) => ({ url: `/api/patterns/${f.pattern.id}/export?format=csv` }), expect: signedIn(200) },
+  'POST /api/patterns': { req: () => ({ url: '/api/patterns', body: { name: `Matrix ${uniq()}`, sweeps: [SWEEP] } }), expect: editors(201) },
+  'PATCH /api/patterns/:id': { req: async (f) => { const p = await f.freshPattern(); return { url: `/api/patterns/${p.id}`, body: { version: p.version, description: 'edited' } }; }, expect: ownerOrAdminOfPattern(200) },
+  'DELETE /api/patterns/:id': { req: async (f) => ({ url: `/api/patterns/${(await f.freshPattern()).id}` }), expect: ownerOrAdminOfPattern(204) },
+  'POST /api/patterns/:id/duplicate': { req: (f) => ({ url: `/api/patterns/${f.pattern.id}/duplicate` }), expect: editors(201) },
+  'POST /api/patterns/import': {
+    req: () => ({ url: '/api/patterns/import', file: { buffer: Buffer.from(JSON.stringify({ format: 'lanewright-pattern', version: 1, name: `Imported ${uniq()}`, sweeps: [SWEEP] })), filename: 'p.json', contentType: 'application/json' } }),
+    expect: editors(201),
+  },
+
+  // ── matchups ───────────────────────────────────────────────────────────────────────────────
+  'POST /api/matchups': { req: (f) => ({ url: '/api/matchups', body: { patternId: f.pattern.id } }), expect: signedIn(200), note: 'each caller ranks their own arsenal' },
+
+  // ── centers ────────────────────────────────────────────────────────────────────────────────
+  'GET /api/centers': { req: () => ({ url: '/api/centers' }), expect: all(200) },
+  'GET /api/centers/mine': { req: () => ({ url: '/api/centers/mine' }), expect: [401, 403, 403, 403, 403, 200, 200, 200] },
+  'POST /api/centers': { req: () => ({ url: '/api/centers', body: { name: `Matrix Lanes ${uniq()}`, town: 'Testford', laneCount: 8 } }), expect: adminOnly(201) },
+  'GET /api/centers/:id': { req: (f) => ({ url: `/api/centers/${f.center.id}` }), expect: all(200) },
+  'PATCH /api/centers/:id': { req: (f) => ({ url: `/api/centers/${f.center.id}`, body: { town: 'Testford' } }), expect: [401, 403, 403, 403, 403, 200, 403, 200] },
+  'GET /api/centers/:id/conditions/current': { req: (f) => ({ url: `/api/centers/${f.center.id}/conditions/current` }), expect: all(200) },
+  'GET /api/centers/:id/conditions/current.pdf': { req: (f) => ({ url: `/api/centers/${f.center.id}/conditions/current.pdf` }), expect: all(200) },
+  'GET /api/centers/:id/conditions': { req: (f) => ({ url: `/api/centers/${f.center.id}/conditions` }), expect: all(200) },
+  'POST /api/centers/:id/conditions': {
+    req: (f) => ({ url: `/api/centers/${f.center.id}/conditions`, body: { patternId: f.pattern.id, lanes: [20], validFrom: today() } }),
+    expect: [401, 403, 403, 403, 403, 201, 403, 403],
+    note: 'only the center’s own proprietor publishes; an admin assigns the proprietor but does not publish for them',
+  },
+  'POST /api/centers/:id/follow': { req: (f) => ({ url: `/api/centers/${f.otherCenter.id}/follow` }), expect: signedIn(200) },
+  'DELETE /api/centers/:id/follow': { req: (f) => ({ url: `/api/centers/${f.otherCenter.id}/follow` }), expect: signedIn(200) },
+  'GET /api/follows': { req: () => ({ url: '/api/follows' }), expect: signedIn(200) },
+  'GET /api/unsubscribe': { req: async (f) => ({ url: `/api/unsubscribe?token=${await f.freshUnsubscribeToken()}` }), expect: all(200), note: 'the token in the e-mail is the credential' },
+  'POST /api/unsubscribe': { req: async (f) => ({ url: '/api/unsubscribe', body: { token: await f.freshUnsubscribeToken() } }), expect: all(200), note: 'the token in the e-mail is the credential' },
+};
+
+/**
+ * Routes the router serves that ROUTES (the OpenAPI document) leaves out on purpose, with the reason.
+ * Anything else missing from ROUTES fails the cross-check.
+ */
+export const UNDOCUMENTED: Record<string, string> = {
+  'GET /api/docs': 'the documentation page itself',
+  'GET /api/docs/openapi.json': 'the document itself',
+  'GET /api/dev/mail': 'development-only mailbox, absent in production',
+  'POST /api/unsubscribe': 'KNOWN GAP: the one-click unsubscribe is missing from ROUTES in server/features/docs/openapi.ts; remove this line when it is added',
+};
