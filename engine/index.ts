@@ -97,3 +97,9 @@ export { prepareShot } from './motion/prepareShot';
 export type { PreparedShot } from './motion/prepareShot';
 export { toShotPrediction } from './motion/toShotPrediction';
 // ── end ball-motion model ──────────────────────────────────────────────────────────────────────
+
+// ── Shot log, stats, moves and calibration (issue 7, engine/shotlog) ──────────────────────────
+export type * from './shotlog/types';
+export { buildGame } from './shotlog/buildGame';
+export { checkDelivery } from './shotlog/checkDelivery';
+// ── end shot log ───────────────────────────────────────────────────────────────────────────────
