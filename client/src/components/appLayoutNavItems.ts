@@ -19,6 +19,7 @@ export const NAV_ITEMS: readonly AppLayoutNavItem[] = [
   { name: 'matchup', label: 'Matchup' },
   { name: 'patterns', label: 'Patterns' },
   { name: 'conditions', label: 'Conditions' },
+  { name: 'orders', label: 'Orders' },
   { name: 'center-admin', label: 'Center admin', roles: ['proprietor', 'admin'] },
   { name: 'profile', label: 'Profile' },
   { name: 'admin-users', label: 'Admin', roles: ['admin'] },

@@ -18,6 +18,8 @@ export const ROUTE_NAMES = [
   'conditions',
   'center-condition',
   'center-admin',
+  'orders',
+  'order',
   'dev-mail',
   'forbidden',
   'not-found',
@@ -83,6 +85,8 @@ export const routes: AppRouteRecord[] = [
         component: () => import('@/views/CenterAdminView.vue'),
         meta: { title: 'Center admin', roles: ['proprietor', 'admin'] },
       },
+      { path: 'orders', name: 'orders', component: () => import('@/views/OrdersView.vue'), meta: { title: 'My orders' } },
+      { path: 'orders/:id(\\d+)', name: 'order', component: () => import('@/views/OrderView.vue'), meta: { title: 'Order' } },
       {
         // Development and tests only: the page says so when the API has no mailbox (production).
         path: 'dev/mail',

@@ -1,0 +1,206 @@
+import type { Page } from '@shared/auth';
+import { api } from './client';
+
+/**
+ * The pro shop: a center's price list, a bowler's orders and their card payment, and the proprietor's
+ * orders board with the day's takings. Prices always come from the server's price list; the client only
+ * echoes the price it showed (`expectedAmountCents`) so a price changed meanwhile is refused, never charged.
+ */
+
+export const SERVICE_KINDS = ['resurface', 'polish', 'oil-extraction', 'plug-redrill', 'drill'] as const;
+export type ServiceKind = (typeof SERVICE_KINDS)[number];
+
+export const ORDER_STATUSES = ['ordered', 'paid', 'in_progress', 'ready', 'collected', 'cancelled', 'refunded'] as const;
+export type OrderStatus = (typeof ORDER_STATUSES)[number];
+
+export type PaymentStatus = 'unpaid' | 'processing' | 'paid' | 'failed' | 'refunded';
+
+export interface ShopService {
+  id: number;
+  centerId: number;
+  kind: ServiceKind;
+  name: string;
+  /** The target grit of a resurface (null for other services). */
+  grit: number | null;
+  description: string | null;
+  priceCents: number;
+  currency: string;
+  active: boolean;
+  version: number;
+}
+
+export interface OrderHistoryEntry {
+  status: OrderStatus;
+  at: string;
+  by: string | null;
+}
+
+export interface Order {
+  id: number;
+  userId: number;
+  bowlerName: string;
+  centerId: number;
+  centerName: string;
+  serviceId: number;
+  serviceKind: ServiceKind;
+  serviceName: string;
+  grit: number | null;
+  ballId: number;
+  ballName: string;
+  amountCents: number;
+  currency: string;
+  status: OrderStatus;
+  notes: string | null;
+  paymentStatus: PaymentStatus;
+  lastPaymentError: string | null;
+  createdAt: string;
+  paidAt: string | null;
+  readyAt: string | null;
+  collectedAt: string | null;
+  refundedAt: string | null;
+  history: OrderHistoryEntry[];
+}
+
+export interface ServiceCreate {
+  kind: ServiceKind;
+  name: string;
+  grit?: number | null;
+  description?: string | null;
+  priceCents: number;
+  currency?: string;
+}
+
+export type ServicePatch = Partial<ServiceCreate> & { version: number; active?: boolean };
+
+export interface OrderCreate {
+  serviceId: number;
+  ballId: number;
+  notes?: string;
+  /** The price the bowler was shown; a different server price answers 400 `price_mismatch`. */
+  expectedAmountCents?: number;
+}
+
+export interface Checkout {
+  /** The hosted card page to send the browser to (the fake's page in development and tests, Stripe's otherwise). */
+  url: string;
+  checkoutSessionId: string;
+}
+
+export interface Takings {
+  date: string;
+  currency: string;
+  orders: number;
+  paidCents: number;
+  refundedCents: number;
+  netCents: number;
+  byService: { serviceId: number; name: string; count: number; cents: number }[];
+}
+
+/** The moves the shop makes on a paid order, in order. */
+export type ShopMove = 'in_progress' | 'ready' | 'collected';
+
+export interface OrderListParams {
+  page?: number;
+  pageSize?: number;
+  status?: OrderStatus;
+}
+
+export const shopApi = {
+  /** Active services of a center (`all`: the owner sees inactive ones too). */
+  services: (centerId: number, options: { all?: boolean; signal?: AbortSignal } = {}) =>
+    api.get<{ items: ShopService[] }>(`/centers/${centerId}/services`, { query: { all: options.all ? 1 : undefined }, signal: options.signal }),
+  createService: (centerId: number, body: ServiceCreate) => api.post<{ item: ShopService }>(`/centers/${centerId}/services`, body),
+  /** `version` must be the one read; a stale one answers 409. */
+  updateService: (centerId: number, serviceId: number, body: ServicePatch) =>
+    api.patch<{ item: ShopService }>(`/centers/${centerId}/services/${serviceId}`, body),
+
+  createOrder: (body: OrderCreate) => api.post<{ item: Order }>('/orders', body),
+  checkout: (orderId: number) => api.post<Checkout>(`/orders/${orderId}/checkout`),
+  myOrders: (params: OrderListParams = {}, signal?: AbortSignal) => api.get<Page<Order>>('/orders', { query: { ...params }, signal }),
+  order: (orderId: number, signal?: AbortSignal) => api.get<{ item: Order }>(`/orders/${orderId}`, { signal }),
+  cancel: (orderId: number) => api.post<{ item: Order }>(`/orders/${orderId}/cancel`),
+
+  centerOrders: (centerId: number, params: OrderListParams & { date?: string } = {}, signal?: AbortSignal) =>
+    api.get<Page<Order>>(`/centers/${centerId}/orders`, { query: { ...params }, signal }),
+  setStatus: (orderId: number, status: ShopMove) => api.patch<{ item: Order }>(`/orders/${orderId}/status`, { status }),
+  refund: (orderId: number) => api.post<{ item: Order }>(`/orders/${orderId}/refund`),
+  takings: (centerId: number, date: string, signal?: AbortSignal) => api.get<{ item: Takings }>(`/centers/${centerId}/takings`, { query: { date }, signal }),
+};
+
+/* ---- wording shared by the shop screens ------------------------------------------------------------ */
+
+export const SERVICE_KIND_LABELS: Readonly<Record<ServiceKind, string>> = {
+  resurface: 'Resurface',
+  polish: 'Polish',
+  'oil-extraction': 'Oil extraction',
+  'plug-redrill': 'Plug and redrill',
+  drill: 'Drilling',
+};
+
+export const ORDER_STATUS_LABELS: Readonly<Record<OrderStatus, string>> = {
+  ordered: 'Ordered',
+  paid: 'Paid',
+  in_progress: 'In progress',
+  ready: 'Ready to collect',
+  collected: 'Collected',
+  cancelled: 'Cancelled',
+  refunded: 'Refunded',
+};
+
+export const PAYMENT_STATUS_LABELS: Readonly<Record<PaymentStatus, string>> = {
+  unpaid: 'Not paid',
+  processing: 'Payment being confirmed',
+  paid: 'Paid',
+  failed: 'Payment failed',
+  refunded: 'Refunded',
+};
+
+/** Element Plus tag type per order status. */
+export const ORDER_STATUS_TAGS: Readonly<Record<OrderStatus, 'info' | 'primary' | 'success' | 'warning' | 'danger'>> = {
+  ordered: 'info',
+  paid: 'primary',
+  in_progress: 'warning',
+  ready: 'success',
+  collected: 'success',
+  cancelled: 'info',
+  refunded: 'danger',
+};
+
+/** The next move the shop can make from a status (null: none). */
+export function nextMove(status: OrderStatus): ShopMove | null {
+  if (status === 'paid') return 'in_progress';
+  if (status === 'in_progress') return 'ready';
+  if (status === 'ready') return 'collected';
+  return null;
+}
+
+export const MOVE_LABELS: Readonly<Record<ShopMove, string>> = {
+  in_progress: 'Mark in progress',
+  ready: 'Mark ready',
+  collected: 'Mark collected',
+};
+
+export function canRefund(status: OrderStatus): boolean {
+  return status === 'paid' || status === 'in_progress' || status === 'ready';
+}
+
+/** Integer cents in the order's currency, e.g. "$45.00". */
+export function formatMoney(cents: number, currency = 'usd'): string {
+  try {
+    return new Intl.NumberFormat(undefined, { style: 'currency', currency: currency.toUpperCase() }).format(cents / 100);
+  } catch {
+    return `${(cents / 100).toFixed(2)} ${currency.toUpperCase()}`;
+  }
+}
+
+/** "Resurface to 4000 grit — $45.00". */
+export function serviceLabel(s: Pick<ShopService, 'name' | 'priceCents' | 'currency'>): string {
+  return `${s.name} — ${formatMoney(s.priceCents, s.currency)}`;
+}
+
+/** Which cautions of PRODUCT.md a service calls for. */
+export function cautionTopicsFor(kind: ServiceKind | null | undefined): ('surface' | 'layout')[] {
+  if (kind === 'plug-redrill' || kind === 'drill') return ['layout'];
+  if (kind) return ['surface'];
+  return ['surface', 'layout'];
+}
