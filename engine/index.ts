@@ -102,4 +102,8 @@ export { toShotPrediction } from './motion/toShotPrediction';
 export type * from './shotlog/types';
 export { buildGame } from './shotlog/buildGame';
 export { checkDelivery } from './shotlog/checkDelivery';
+export { wilsonInterval, WILSON_Z_95 } from './shotlog/wilsonInterval';
+export { shotStats } from './shotlog/shotStats';
+export { statsBy, STATS_KEYS } from './shotlog/statsBy';
+export type { StatsKey } from './shotlog/statsBy';
 // ── end shot log ───────────────────────────────────────────────────────────────────────────────

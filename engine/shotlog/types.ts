@@ -36,6 +36,8 @@ export interface DeliveryView {
   symbol: string;
   /** isSplit on the first delivery of a rack (never on a foul: the rack is re-spotted). */
   split: boolean;
+  /** 1: the first ball at a full rack (a strike chance); 2: the second ball at a rack (a spare chance). */
+  rackBall: 1 | 2;
 }
 
 /** One frame on the frame sheet. */

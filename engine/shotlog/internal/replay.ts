@@ -32,7 +32,12 @@ export type StepResult = { ok: true; view: DeliveryView; state: GameState } | { 
 const ALL = [1, 2, 3, 4, 5, 6, 7, 8, 9, 10];
 
 export function initialState(): GameState {
-  return { frame: 1, delivery: 1, pinsBefore: ALL.slice(), rackBall: 1, complete: false, endedBy: null, strikeFrames: [] };
+  return frameStart(1);
+}
+
+/** The state before the first delivery of frame f (every frame starts at a full rack). */
+export function frameStart(frame: number): GameState {
+  return { frame, delivery: 1, pinsBefore: ALL.slice(), rackBall: 1, complete: false, endedBy: null, strikeFrames: [] };
 }
 
 /** TypeErrors for a delivery of the wrong shape (the engine's invalid-input policy). */
@@ -103,7 +108,7 @@ export function step(s: GameState, d: LoggedDelivery): StepResult {
   const symbol = foul ? 'F' : cleared ? (s.rackBall === 1 ? 'X' : '/') : pins === 0 ? '-' : String(pins);
   const split = !foul && s.rackBall === 1 && isSplit(after);
   const view: DeliveryView = {
-    frame, delivery, pinsBefore: s.pinsBefore.slice(), standing: foul ? s.pinsBefore.slice() : after, pins, foul, symbol, split,
+    frame, delivery, pinsBefore: s.pinsBefore.slice(), standing: foul ? s.pinsBefore.slice() : after, pins, foul, symbol, split, rackBall: s.rackBall,
   };
   const rackAfter = foul ? s.pinsBefore.slice() : after;
   const strikeFrames = frame < 10 && delivery === 1 && cleared ? [...s.strikeFrames, frame] : s.strikeFrames;

@@ -133,7 +133,7 @@ describe('buildGame and checkDelivery: impossible deliveries are refused with a 
 
   it('accepts a possible delivery with its view', () => {
     expect(checkDelivery([d(1, 1, [7, 10])], d(1, 2, [10]))).toEqual({
-      ok: true, view: { frame: 1, delivery: 2, pinsBefore: [7, 10], standing: [10], pins: 1, foul: false, symbol: '1', split: false },
+      ok: true, view: { frame: 1, delivery: 2, pinsBefore: [7, 10], standing: [10], pins: 1, foul: false, symbol: '1', split: false, rackBall: 2 },
     });
   });
 });
@@ -174,6 +174,7 @@ describe('buildGame: property tests against scoreGame / scorePartialGame (fast-c
           expect(r).toEqual({ ok: true, view: all[k] });
           const v = all[k];
           const fullRackFirstBall = v.pinsBefore.length === 10 && (k === 0 || all[k - 1].frame !== v.frame || all[k - 1].symbol === 'X' || all[k - 1].symbol === '/');
+          expect(v.rackBall).toBe(fullRackFirstBall ? 1 : 2);
           if (v.foul) expect(v.symbol).toBe('F');
           else if (v.pins === v.pinsBefore.length) expect(v.symbol).toBe(fullRackFirstBall ? 'X' : '/');
           else expect(v.symbol).toBe(v.pins === 0 ? '-' : String(v.pins));
