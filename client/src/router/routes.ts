@@ -18,6 +18,10 @@ export const ROUTE_NAMES = [
   'conditions',
   'center-condition',
   'center-admin',
+  'sessions',
+  'session',
+  'stats',
+  'coach',
   'orders',
   'order',
   'dev-mail',
@@ -87,6 +91,11 @@ export const routes: AppRouteRecord[] = [
       },
       { path: 'orders', name: 'orders', component: () => import('@/views/OrdersView.vue'), meta: { title: 'My orders' } },
       { path: 'orders/:id(\\d+)', name: 'order', component: () => import('@/views/OrderView.vue'), meta: { title: 'Order' } },
+      { path: 'sessions', name: 'sessions', component: () => import('@/views/SessionsView.vue'), meta: { title: 'Sessions' } },
+      { path: 'sessions/:id(\\d+)', name: 'session', component: () => import('@/views/SessionView.vue'), meta: { title: 'Session' } },
+      { path: 'stats', name: 'stats', component: () => import('@/views/StatsView.vue'), meta: { title: 'Stats' } },
+      // Coaches and admins see their students; every bowler sees their coaches and invitations here.
+      { path: 'coach', name: 'coach', component: () => import('@/views/CoachView.vue'), meta: { title: 'Coach' } },
       {
         // Development and tests only: the page says so when the API has no mailbox (production).
         path: 'dev/mail',
