@@ -5,6 +5,7 @@ import { Ball, BallModel, Center, Condition, Follow, Lane, Pattern, SurfaceEvent
 import { DEMO_ARSENALS } from './arsenals';
 import { DEMO_CATALOGUE } from './catalogue';
 import { DEMO_PATTERNS } from './patterns';
+import { seedShop, seedShopIfMissing } from './shop';
 import { DEMO_PASSWORD, DEMO_USERS, seedUsers } from './users';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
@@ -31,6 +32,7 @@ export async function seedDemo(): Promise<boolean> {
     const center = await Center.create({ name: 'Copperline Bowl', town: 'Harrow Bay', laneCount: 24, ownerId: owner.id }, { transaction });
     await Lane.bulkCreate(Array.from({ length: 24 }, (_, i) => ({ centerId: center.id, number: i + 1, notes: null })), { transaction });
     await Center.create({ name: 'Gullwing Lanes', town: 'Stonereach', laneCount: 16, ownerId: null }, { transaction });
+    await seedShop(center.id, transaction);
     const weekAgo = new Date(Date.now() - 7 * DAY_MS);
     const house = patterns[0];
     await Condition.create(
@@ -79,6 +81,7 @@ const isMain = process.argv[1] && import.meta.url.endsWith(process.argv[1].repla
 if (isMain) {
   try {
     const seeded = await seedDemo();
+    if (!seeded && (await seedShopIfMissing())) console.log('Pro-shop price list added to Copperline Bowl.');
     console.log(seeded ? 'Demo data loaded.' : 'Database already has data; demo seed skipped.');
     if (seeded || process.argv.includes('--print')) {
       console.log(`Demo accounts (password "${DEMO_PASSWORD}"):`);

@@ -14,6 +14,8 @@ import { patternsRouter } from './features/patterns/patterns.router';
 import { devRouter } from './features/dev/dev.router';
 import { healthRouter } from './features/health/health.router';
 import { profileRouter } from './features/profile/profile.router';
+import { paymentsRouter } from './features/shop/payments.router';
+import { ordersRouter, shopCentersRouter } from './features/shop/shop.router';
 import { mailCaptureEnabled } from './lib/mailer';
 import { passportInitialize } from './middleware/auth';
 import { errorHandler, notFound } from './middleware/errorHandler';
@@ -49,6 +51,8 @@ export function createApp(): Express {
   );
   app.use(passportInitialize);
 
+  // The payment webhook reads its body raw (the signature covers the exact bytes): before the JSON parser.
+  app.use('/api/payments', paymentsRouter);
   const api = express.Router();
   api.use(express.json({ limit: config.BODY_LIMIT }));
   api.use(uploadRateLimit);
@@ -61,6 +65,8 @@ export function createApp(): Express {
   api.use('/patterns', patternsRouter);
   api.use('/matchups', matchupsRouter);
   api.use('/centers', centersRouter);
+  api.use('/centers', shopCentersRouter);
+  api.use('/orders', ordersRouter);
   api.use('/follows', followsRouter);
   api.use('/unsubscribe', unsubscribeRouter);
   api.use('/docs', docsRouter);

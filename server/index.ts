@@ -5,6 +5,7 @@ import { closeEnginePool } from './lib/enginePool';
 import { closeMailer } from './lib/mailer';
 import { startMailSender, stopMailSender } from './lib/outbox';
 import { logger } from './lib/logger';
+import { closePayments, paymentFake, setPaymentWebhookTarget } from './lib/payments';
 import { sequelize } from './models/index';
 
 const app = createApp();
@@ -12,7 +13,11 @@ const server = app.listen(config.PORT, config.HOST, () => {
   const addr = server.address();
   const port = typeof addr === 'object' && addr ? addr.port : config.PORT;
   logger.info({ url: `http://${config.HOST}:${port}` }, 'Lanewright is listening');
-  process.send?.({ type: 'listening', port });
+  // Without a configured payment key the local fake runs in-process and delivers its webhooks here.
+  const fake = paymentFake();
+  void (fake ? setPaymentWebhookTarget(`http://${config.HOST === '0.0.0.0' ? '127.0.0.1' : config.HOST}:${port}/api/payments/webhook`) : Promise.resolve())
+    .catch((err: unknown) => logger.error({ err }, 'the local payment fake did not start'))
+    .finally(() => process.send?.({ type: 'listening', port }));
 });
 server.keepAliveTimeout = 5000;
 startMailSender();
@@ -36,7 +41,7 @@ async function shutdown(signal: string): Promise<void> {
   server.closeIdleConnections();
   await new Promise<void>((resolve) => server.close(() => resolve()));
   await stopMailSender();
-  await Promise.allSettled([sequelize.close(), closeMailer(), closeEnginePool()]);
+  await Promise.allSettled([sequelize.close(), closeMailer(), closeEnginePool(), closePayments()]);
   clearTimeout(force);
   process.exit(0);
 }

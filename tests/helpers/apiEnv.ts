@@ -5,6 +5,10 @@ import { inject } from 'vitest';
 // Runs in each test worker before a test file imports the server: point its config at the test database.
 process.env.DATABASE_URL = inject('databaseUrl');
 process.env.NODE_ENV = 'test';
+// Card payments always go to the project's own fake in tests, whatever the shell has configured.
+process.env.STRIPE_SECRET_KEY = '';
+process.env.STRIPE_WEBHOOK_SECRET = '';
+process.env.STRIPE_API_URL = '';
 process.env.RATE_LIMIT_AUTH ??= '40';
 process.env.JWT_SECRET ??= 'lanewright-test-secret-0123456789';
 process.env.UPLOAD_DIR ??= path.join(os.tmpdir(), `lanewright-test-uploads-${process.pid}`);

@@ -18,7 +18,7 @@ export default async function setup(project: TestProject): Promise<() => Promise
 
   const server: ChildProcess = spawn(path.join(root, 'node_modules', '.bin', 'tsx'), ['server/index.ts'], {
     cwd: root,
-    env: { ...process.env, DATABASE_URL: url, NODE_ENV: 'test', PORT: '0', CLIENT_DIST: distDir, RATE_LIMIT_AUTH: '500', LOG_LEVEL: 'warn' },
+    env: { ...process.env, DATABASE_URL: url, NODE_ENV: 'test', PORT: '0', CLIENT_DIST: distDir, RATE_LIMIT_AUTH: '500', LOG_LEVEL: 'warn', STRIPE_SECRET_KEY: '', STRIPE_WEBHOOK_SECRET: '', STRIPE_API_URL: '' },
     stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
   });
   const port = await new Promise<number>((resolve, reject) => {

@@ -5,6 +5,7 @@ import { ArsenalQuerySchema, BallCreateSchema, BallModelInputSchema, BallModelPa
 import { PatternInputSchema, PatternPatchSchema, PatternQuerySchema } from '../../../shared/patterns';
 import { MatchupRequestSchema } from '../../../shared/matchups';
 import { CenterInputSchema, CenterPatchSchema, PublishConditionSchema } from '../../../shared/centers';
+import { CenterOrderQuerySchema, OrderCreateSchema, OrderListQuerySchema, OrderStatusChangeSchema, ServiceInputSchema, ServiceListQuerySchema, ServiceParamsSchema, ServicePatchSchema, TakingsQuerySchema } from '../../../shared/shop';
 
 type Who = 'public' | 'signed-in' | 'coach, proprietor, admin' | 'admin';
 
@@ -70,6 +71,19 @@ export const ROUTES: RouteDoc[] = [
   { method: 'delete', path: '/api/centers/{id}/follow', summary: 'Stop following a center', who: 'signed-in', params: IdParamSchema },
   { method: 'get', path: '/api/follows', summary: 'Centers you follow with their current condition', who: 'signed-in' },
   { method: 'get', path: '/api/unsubscribe', summary: 'Unsubscribe link of a follower e-mail (no sign-in)', who: 'public' },
+  { method: 'get', path: '/api/centers/{id}/services', summary: 'A center’s pro-shop price list (active entries; its proprietor sees inactive ones too with ?all=1)', who: 'signed-in', params: IdParamSchema, query: ServiceListQuerySchema },
+  { method: 'post', path: '/api/centers/{id}/services', summary: 'Add a price-list entry (the center’s proprietor; integer cents)', who: 'signed-in', params: IdParamSchema, body: ServiceInputSchema },
+  { method: 'patch', path: '/api/centers/{id}/services/{serviceId}', summary: 'Edit or retire a price-list entry (the center’s proprietor; stale version → 409)', who: 'signed-in', params: ServiceParamsSchema, body: ServicePatchSchema },
+  { method: 'get', path: '/api/centers/{id}/orders', summary: 'The center’s pro-shop orders, newest first, by status and day (its proprietor only)', who: 'signed-in', params: IdParamSchema, query: CenterOrderQuerySchema },
+  { method: 'get', path: '/api/centers/{id}/takings', summary: 'The day’s card takings: paid, refunded, net, by service (its proprietor only)', who: 'signed-in', params: IdParamSchema, query: TakingsQuerySchema },
+  { method: 'post', path: '/api/orders', summary: 'Order a pro-shop service for a ball of your arsenal; the price comes from the price list (any amount field → 400; expectedAmountCents ≠ price → 400 price_mismatch)', who: 'signed-in', body: OrderCreateSchema },
+  { method: 'get', path: '/api/orders', summary: 'Your orders, newest first', who: 'signed-in', query: OrderListQuerySchema },
+  { method: 'get', path: '/api/orders/{id}', summary: 'An order with its history (yours, or your center’s as its proprietor; else 404)', who: 'signed-in', params: IdParamSchema },
+  { method: 'post', path: '/api/orders/{id}/checkout', summary: 'Start the card payment of your unpaid order: { url, checkoutSessionId } of the hosted payment page', who: 'signed-in', params: IdParamSchema },
+  { method: 'post', path: '/api/orders/{id}/cancel', summary: 'Cancel your unpaid order', who: 'signed-in', params: IdParamSchema },
+  { method: 'patch', path: '/api/orders/{id}/status', summary: 'The shop moves a paid order forward (in_progress, ready, collected); ready on a surface service updates the ball’s surface', who: 'signed-in', params: IdParamSchema, body: OrderStatusChangeSchema },
+  { method: 'post', path: '/api/orders/{id}/refund', summary: 'The shop refunds a paid order through the payment service', who: 'signed-in', params: IdParamSchema },
+  { method: 'post', path: '/api/payments/webhook', summary: 'Payment-service events (raw body, Stripe-Signature verified; each event id processed once)', who: 'public' },
 ];
 
 const ErrorSchema = {

@@ -1,0 +1,1 @@
+export { startStripeFake, type FakeDelivery, type FakeEvent, type StripeFake, type StripeFakeOptions } from './server';

@@ -1,0 +1,88 @@
+import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import type { Order as OrderDto, OrderStatus, ShopService as ShopServiceDto } from '../../../shared/shop';
+import { Center, Order, OrderEvent, Payment, ShopService, User } from '../../models/index';
+
+export function toServiceDto(s: ShopService): ShopServiceDto {
+  return { id: s.id, centerId: s.centerId, kind: s.kind, name: s.name, grit: s.grit, description: s.description, priceCents: s.priceCents, currency: s.currency, active: s.active, version: s.version };
+}
+
+type OrderRow = Order & { bowler?: User; center?: Center; events?: OrderEvent[] };
+
+export function toOrderDto(o: OrderRow): OrderDto {
+  const iso = (d: Date | null | undefined) => (d ? d.toISOString() : null);
+  return {
+    id: o.id,
+    userId: o.userId,
+    bowlerName: o.bowler?.displayName ?? '',
+    centerId: o.centerId,
+    centerName: o.center?.name ?? '',
+    serviceId: o.serviceId ?? 0,
+    serviceKind: o.serviceKind,
+    serviceName: o.serviceName,
+    grit: o.grit,
+    ballId: o.ballId ?? 0,
+    ballName: o.ballName,
+    amountCents: o.amountCents,
+    currency: o.currency,
+    status: o.status,
+    notes: o.notes,
+    paymentStatus: o.paymentStatus,
+    lastPaymentError: o.lastPaymentError,
+    createdAt: o.createdAt.toISOString(),
+    paidAt: iso(o.paidAt),
+    readyAt: iso(o.readyAt),
+    collectedAt: iso(o.collectedAt),
+    refundedAt: iso(o.refundedAt),
+    cancelledAt: iso(o.cancelledAt),
+    history: [...(o.events ?? [])].sort((a, b) => a.at.getTime() - b.at.getTime() || a.id - b.id).map((e) => ({ status: e.status, at: e.at.toISOString(), by: e.byName })),
+  };
+}
+
+const orderIncludes = [
+  { model: User, as: 'bowler', attributes: ['id', 'displayName', 'email'] },
+  { model: Center, as: 'center', attributes: ['id', 'name', 'ownerId'] },
+  { model: OrderEvent, as: 'events' },
+];
+
+export const shopRepository = {
+  services(centerId: number, includeInactive: boolean): Promise<ShopService[]> {
+    return ShopService.findAll({ where: { centerId, ...(includeInactive ? {} : { active: true }) }, order: [['kind', 'ASC'], ['priceCents', 'ASC'], ['id', 'ASC']] });
+  },
+  service(id: number, transaction?: Transaction): Promise<ShopService | null> {
+    return ShopService.findByPk(id, { transaction });
+  },
+  /** One order with its bowler, center and history. */
+  order(id: number, transaction?: Transaction): Promise<OrderRow | null> {
+    return Order.findByPk(id, { include: orderIncludes, transaction }) as Promise<OrderRow | null>;
+  },
+  /** Locks the order row for the rest of the transaction (webhooks, status moves and refunds serialise on it). */
+  lockOrder(id: number, transaction: Transaction): Promise<Order | null> {
+    return Order.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+  },
+  async page(where: WhereOptions<Order>, page: number, pageSize: number): Promise<{ rows: OrderRow[]; count: number }> {
+    const count = await Order.count({ where });
+    const ids = (await Order.findAll({ where, attributes: ['id'], order: [['createdAt', 'DESC'], ['id', 'DESC']], limit: pageSize, offset: (page - 1) * pageSize })).map((o) => o.id);
+    const rows = ids.length ? ((await Order.findAll({ where: { id: ids }, include: orderIncludes, order: [['createdAt', 'DESC'], ['id', 'DESC']] })) as OrderRow[]) : [];
+    return { rows, count };
+  },
+  addEvent(orderId: number, status: OrderStatus, by: { id: number; displayName: string } | null, transaction: Transaction, note: string | null = null, at = new Date()): Promise<OrderEvent> {
+    return OrderEvent.create({ orderId, status, at, byUserId: by?.id ?? null, byName: by?.displayName ?? null, note }, { transaction });
+  },
+  payments(orderId: number, transaction?: Transaction): Promise<Payment[]> {
+    return Payment.findAll({ where: { orderId }, order: [['id', 'ASC']], transaction });
+  },
+  paymentBySession(sessionId: string, transaction?: Transaction): Promise<Payment | null> {
+    return Payment.findOne({ where: { checkoutSessionId: sessionId }, transaction });
+  },
+  paymentByIntent(intentId: string, transaction?: Transaction): Promise<Payment | null> {
+    return Payment.findOne({ where: { paymentIntentId: intentId }, transaction });
+  },
+  /** Orders of a center paid during [from, to). */
+  paidBetween(centerId: number, from: Date, to: Date): Promise<Order[]> {
+    return Order.findAll({ where: { centerId, paidAt: { [Op.gte]: from, [Op.lt]: to } } });
+  },
+  /** Refunds of a center's orders made during [from, to). */
+  refundedBetween(centerId: number, from: Date, to: Date): Promise<Order[]> {
+    return Order.findAll({ where: { centerId, refundedAt: { [Op.gte]: from, [Op.lt]: to }, paidAt: { [Op.ne]: null } } });
+  },
+};

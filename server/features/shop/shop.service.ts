@@ -1,0 +1,309 @@
+import Stripe from 'stripe';
+import { Op, type WhereOptions } from 'sequelize';
+import type { Page } from '../../../shared/auth';
+import {
+  formatMoney,
+  SURFACE_KINDS,
+  type CenterOrderQuery,
+  type CheckoutStart,
+  type Order as OrderDto,
+  type OrderCreate,
+  type OrderListQuery,
+  type OrderStatus,
+  type ServiceInput,
+  type ServicePatch,
+  type ShopService as ShopServiceDto,
+  type Takings,
+} from '../../../shared/shop';
+import { config } from '../../config/index';
+import { AppError } from '../../lib/AppError';
+import { audit } from '../../lib/audit';
+import { logger } from '../../lib/logger';
+import { stripeClient } from '../../lib/payments';
+import type { AuthUser } from '../../middleware/auth';
+import { Ball, Center, Order, Payment, sequelize, ShopService } from '../../models/index';
+import { arsenalRepository } from '../arsenal/arsenal.repository';
+import { markRefunded } from './payments.service';
+import { enqueueOrderMail } from './shop.mail';
+import { shopRepository, toOrderDto, toServiceDto } from './shop.repository';
+
+const RANK: Record<OrderStatus, number> = { ordered: 0, paid: 1, in_progress: 2, ready: 3, collected: 4, cancelled: -1, refunded: -1 };
+const REFUNDABLE: OrderStatus[] = ['paid', 'in_progress', 'ready'];
+
+const todayUtc = () => new Date().toISOString().slice(0, 10);
+
+async function centerOr404(id: number): Promise<Center> {
+  const c = await Center.findByPk(id);
+  if (!c) throw AppError.notFound('Center');
+  return c;
+}
+
+async function ownedCenter(actor: AuthUser, id: number): Promise<Center> {
+  const c = await centerOr404(id);
+  if (c.ownerId !== actor.id) throw AppError.forbidden('Only this center’s proprietor manages its pro shop');
+  return c;
+}
+
+/** A payment-service failure as our error shape (never its stack or raw body). */
+function paymentError(err: unknown): AppError {
+  if (err instanceof Stripe.errors.StripeError) {
+    logger.warn({ type: err.type, code: err.code, requestId: err.requestId, message: err.message }, 'payment service refused a request');
+    return new AppError(502, 'payment_service_error', `The card-payment service refused the request: ${err.message}`);
+  }
+  logger.error({ err }, 'payment service unreachable');
+  return new AppError(502, 'payment_service_unavailable', 'The card-payment service could not be reached; try again shortly');
+}
+
+function ballLabel(b: Ball): string {
+  return (b.nickname ? `${b.nickname} (${b.name})` : b.name).slice(0, 150);
+}
+
+/** The order as its bowler or its center's proprietor may see it; 404 for anyone else (existence never leaks). */
+async function visibleOrder(user: AuthUser, id: number) {
+  const o = await shopRepository.order(id);
+  if (!o || (o.userId !== user.id && o.center?.ownerId !== user.id)) throw AppError.notFound('Order');
+  return o;
+}
+
+async function fresh(id: number): Promise<OrderDto> {
+  return toOrderDto((await shopRepository.order(id))!);
+}
+
+export const shopService = {
+  // ---- price list -------------------------------------------------------------------------------------
+
+  async services(user: AuthUser, centerId: number, all: boolean): Promise<ShopServiceDto[]> {
+    const c = await centerOr404(centerId);
+    return (await shopRepository.services(centerId, all && c.ownerId === user.id)).map(toServiceDto);
+  },
+
+  async createService(actor: AuthUser, centerId: number, input: ServiceInput): Promise<ShopServiceDto> {
+    await ownedCenter(actor, centerId);
+    return sequelize.transaction(async (transaction) => {
+      const s = await ShopService.create(
+        { centerId, kind: input.kind, name: input.name, grit: input.kind === 'resurface' ? (input.grit ?? null) : null, description: input.description ?? null, priceCents: input.priceCents, currency: input.currency ?? 'usd' },
+        { transaction },
+      );
+      await audit({ actorId: actor.id, action: 'shop_service.created', subjectType: 'shop_service', subjectId: s.id, details: { centerId, kind: s.kind, priceCents: s.priceCents, currency: s.currency } }, transaction);
+      return toServiceDto(s);
+    });
+  },
+
+  async updateService(actor: AuthUser, centerId: number, serviceId: number, patch: ServicePatch): Promise<ShopServiceDto> {
+    await ownedCenter(actor, centerId);
+    return sequelize.transaction(async (transaction) => {
+      const s = await ShopService.findOne({ where: { id: serviceId, centerId }, transaction, lock: transaction.LOCK.UPDATE });
+      if (!s) throw AppError.notFound('Service');
+      if (s.version !== patch.version) throw AppError.conflict('stale_version', 'This price-list entry was changed elsewhere; reload it and apply your edit again');
+      const { version: _v, ...fields } = patch;
+      const before = { priceCents: s.priceCents, currency: s.currency, active: s.active };
+      s.set(Object.fromEntries(Object.entries(fields).filter(([, v]) => v !== undefined)));
+      if (s.kind !== 'resurface') s.grit = null;
+      if (s.kind === 'resurface' && !s.grit) throw AppError.badRequest('A resurface needs its target grit', { 'body.grit': 'A resurface needs its target grit' });
+      await s.save({ transaction });
+      await audit({ actorId: actor.id, action: 'shop_service.updated', subjectType: 'shop_service', subjectId: s.id, details: { before, after: { priceCents: s.priceCents, currency: s.currency, active: s.active } } }, transaction);
+      return toServiceDto(s);
+    });
+  },
+
+  // ---- orders -----------------------------------------------------------------------------------------
+
+  /** A new order: the price comes from the price list (never from the client); the ball must be the caller's. */
+  async createOrder(user: AuthUser, input: OrderCreate): Promise<OrderDto> {
+    const id = await sequelize.transaction(async (transaction) => {
+      const service = await shopRepository.service(input.serviceId, transaction);
+      if (!service || !service.active) throw AppError.badRequest('That service is not on the price list', { 'body.serviceId': 'Not on the price list' });
+      if (input.expectedAmountCents !== undefined && input.expectedAmountCents !== service.priceCents) {
+        throw new AppError(400, 'price_mismatch', `The price of ${service.name} is ${formatMoney(service.priceCents, service.currency)}; review the order and try again`, {
+          'body.expectedAmountCents': `The price is now ${formatMoney(service.priceCents, service.currency)}`,
+        });
+      }
+      const ball = await arsenalRepository.findOwned(user.id, input.ballId, { transaction });
+      if (!ball) throw AppError.badRequest('That ball is not in your arsenal', { 'body.ballId': 'Not in your arsenal' });
+      const o = await Order.create(
+        {
+          userId: user.id, centerId: service.centerId, serviceId: service.id, ballId: ball.id, serviceKind: service.kind, serviceName: service.name, grit: service.grit,
+          ballName: ballLabel(ball), amountCents: service.priceCents, currency: service.currency, notes: input.notes ?? null,
+        },
+        { transaction },
+      );
+      await shopRepository.addEvent(o.id, 'ordered', user, transaction);
+      await audit({ actorId: user.id, action: 'order.created', subjectType: 'order', subjectId: o.id, details: { centerId: o.centerId, serviceId: service.id, ballId: ball.id, amountCents: o.amountCents, currency: o.currency } }, transaction);
+      return o.id;
+    });
+    return fresh(id);
+  },
+
+  /** Starts a card payment: a hosted checkout session at the payment service (any earlier open one is expired first). */
+  async checkout(user: AuthUser, id: number, origin: string): Promise<CheckoutStart> {
+    const o = await visibleOrder(user, id);
+    if (o.userId !== user.id) throw AppError.forbidden('Only the bowler who ordered pays for the order');
+    if (o.status !== 'ordered' || o.paymentStatus === 'paid') throw AppError.conflict('not_payable', o.status === 'ordered' ? 'This order is already paid' : `This order is ${o.status.replace('_', ' ')} and cannot be paid`);
+    const base = config.PUBLIC_URL || origin;
+    let session: Stripe.Checkout.Session;
+    try {
+      const stripe = await stripeClient();
+      for (const p of await shopRepository.payments(o.id)) {
+        if (p.status !== 'open') continue;
+        await stripe.checkout.sessions.expire(p.checkoutSessionId).catch((err: unknown) => logger.info({ err, sessionId: p.checkoutSessionId }, 'earlier checkout could not be expired'));
+      }
+      session = await stripe.checkout.sessions.create({
+        mode: 'payment',
+        line_items: [{ quantity: 1, price_data: { currency: o.currency, unit_amount: o.amountCents, product_data: { name: `${o.serviceName} — ${o.ballName}`.slice(0, 250), description: `${o.center?.name ?? 'Pro shop'} order #${o.id}` } } }],
+        success_url: `${base}/orders/${o.id}?checkout=done`,
+        cancel_url: `${base}/orders/${o.id}?checkout=cancelled`,
+        client_reference_id: String(o.id),
+        customer_email: o.bowler?.email,
+        metadata: { orderId: String(o.id) },
+        payment_intent_data: { metadata: { orderId: String(o.id) }, description: `${o.center?.name ?? 'Pro shop'} order #${o.id}: ${o.serviceName}` },
+      });
+    } catch (err) {
+      throw paymentError(err);
+    }
+    if (!session.url) throw new AppError(502, 'payment_service_error', 'The card-payment service did not return a payment page');
+    await sequelize.transaction(async (transaction) => {
+      await Payment.update({ status: 'expired' }, { where: { orderId: o.id, status: 'open' }, transaction });
+      await Payment.create({ orderId: o.id, checkoutSessionId: session.id, amountCents: o.amountCents, currency: o.currency }, { transaction });
+      const order = await shopRepository.lockOrder(o.id, transaction);
+      if (order && order.status === 'ordered' && order.paymentStatus !== 'paid') {
+        order.paymentStatus = 'processing';
+        await order.save({ transaction });
+      }
+      await audit({ actorId: user.id, action: 'payment.checkout_started', subjectType: 'order', subjectId: o.id, details: { sessionId: session.id, amountCents: o.amountCents, currency: o.currency } }, transaction);
+    });
+    return { url: session.url, checkoutSessionId: session.id };
+  },
+
+  async mine(user: AuthUser, q: OrderListQuery): Promise<Page<OrderDto>> {
+    const where: WhereOptions<Order> = { userId: user.id, ...(q.status ? { status: q.status } : {}) };
+    const { rows, count } = await shopRepository.page(where, q.page, q.pageSize);
+    return { items: rows.map(toOrderDto), total: count, page: q.page, pageSize: q.pageSize };
+  },
+
+  async get(user: AuthUser, id: number): Promise<OrderDto> {
+    return toOrderDto(await visibleOrder(user, id));
+  },
+
+  /** The bowler cancels an unpaid order; an open checkout is expired so it can no longer be paid. */
+  async cancel(user: AuthUser, id: number): Promise<OrderDto> {
+    const o = await visibleOrder(user, id);
+    if (o.userId !== user.id) throw AppError.forbidden('Only the bowler who ordered can cancel; the shop refunds instead');
+    const open = await sequelize.transaction(async (transaction) => {
+      const order = (await shopRepository.lockOrder(id, transaction))!;
+      if (order.status !== 'ordered' || order.paymentStatus === 'paid') throw AppError.conflict('not_cancellable', 'Only an unpaid order can be cancelled; ask the shop for a refund');
+      order.set({ status: 'cancelled', cancelledAt: new Date(), paymentStatus: order.paymentStatus === 'processing' ? 'unpaid' : order.paymentStatus });
+      await order.save({ transaction });
+      await shopRepository.addEvent(order.id, 'cancelled', user, transaction);
+      await audit({ actorId: user.id, action: 'order.cancelled', subjectType: 'order', subjectId: order.id }, transaction);
+      return (await shopRepository.payments(order.id, transaction)).filter((p) => p.status === 'open');
+    });
+    if (open.length) {
+      try {
+        const stripe = await stripeClient();
+        for (const p of open) await stripe.checkout.sessions.expire(p.checkoutSessionId).catch((err: unknown) => logger.info({ err, sessionId: p.checkoutSessionId }, 'checkout already closed'));
+      } catch (err) {
+        logger.warn({ err }, 'could not expire the checkout of a cancelled order');
+      }
+    }
+    return fresh(id);
+  },
+
+  async centerOrders(actor: AuthUser, centerId: number, q: CenterOrderQuery): Promise<Page<OrderDto>> {
+    await ownedCenter(actor, centerId);
+    const where: Record<string | symbol, unknown> = { centerId, ...(q.status ? { status: q.status } : {}) };
+    if (q.date) {
+      const from = new Date(`${q.date}T00:00:00Z`);
+      where.createdAt = { [Op.gte]: from, [Op.lt]: new Date(from.getTime() + 86400000) };
+    }
+    const { rows, count } = await shopRepository.page(where as WhereOptions<Order>, q.page, q.pageSize);
+    return { items: rows.map(toOrderDto), total: count, page: q.page, pageSize: q.pageSize };
+  },
+
+  /**
+   * The shop moves a paid order forward (paid → in progress → ready → collected; 'ready' may skip 'in progress').
+   * 'ready' on a surface service records the ball's surface event and sets its surface in the same
+   * transaction, so the next matchup ranks the ball with it.
+   */
+  async setStatus(actor: AuthUser, id: number, status: 'in_progress' | 'ready' | 'collected', origin: string): Promise<OrderDto> {
+    const o = await visibleOrder(actor, id);
+    if (o.center?.ownerId !== actor.id) throw AppError.forbidden('Only the shop moves an order along');
+    await sequelize.transaction(async (transaction) => {
+      const order = (await shopRepository.lockOrder(id, transaction))!;
+      const from: OrderStatus = order.status;
+      const ok = RANK[from] >= 1 && RANK[status] > RANK[from] && !(status === 'collected' && from !== 'ready');
+      if (!ok) throw AppError.conflict('bad_transition', from === 'ordered' ? 'The order is not paid yet' : `A ${from.replace('_', ' ')} order cannot move to ${status.replace('_', ' ')}`);
+      const now = new Date();
+      order.status = status;
+      if (status === 'ready') order.readyAt = now;
+      if (status === 'collected') order.collectedAt = now;
+      if (status === 'ready' && SURFACE_KINDS.includes(order.serviceKind) && order.ballId) {
+        const ball = await Ball.findOne({ where: { id: order.ballId, ownerId: order.userId }, paranoid: false, transaction, lock: transaction.LOCK.UPDATE });
+        if (ball) {
+          const toGrit = order.serviceKind === 'resurface' && order.grit ? order.grit : ball.surfaceGrit;
+          const toPolished = order.serviceKind === 'polish' ? true : order.serviceKind === 'resurface' ? false : ball.polished;
+          await arsenalRepository.addSurfaceEvent(
+            { ballId: ball.id, fromGrit: ball.surfaceGrit, fromPolished: ball.polished, toGrit, toPolished, at: now, byUserId: actor.id, note: `${o.center?.name ?? 'Pro shop'}: ${order.serviceName} (order #${order.id})`.slice(0, 500) },
+            transaction,
+          );
+          ball.set({ surfaceGrit: toGrit, polished: toPolished, ...(order.serviceKind === 'oil-extraction' ? {} : { gamesSinceResurface: 0 }) });
+          await ball.save({ transaction });
+        }
+      }
+      await order.save({ transaction });
+      await shopRepository.addEvent(order.id, status, actor, transaction);
+      await audit({ actorId: actor.id, action: 'order.status_changed', subjectType: 'order', subjectId: order.id, details: { from, to: status } }, transaction);
+      if (status === 'ready') await enqueueOrderMail('ready', order, config.PUBLIC_URL || origin, transaction);
+    });
+    return fresh(id);
+  },
+
+  /** The shop refunds a paid order through the payment service; the order becomes refunded once (now, or when charge.refunded arrives). */
+  async refund(actor: AuthUser, id: number, origin: string): Promise<OrderDto> {
+    const o = await visibleOrder(actor, id);
+    if (o.center?.ownerId !== actor.id) throw AppError.forbidden('Only the shop refunds an order');
+    if (!REFUNDABLE.includes(o.status)) throw AppError.conflict('not_refundable', o.status === 'refunded' ? 'This order is already refunded' : `A ${o.status.replace('_', ' ')} order cannot be refunded`);
+    const payment = (await shopRepository.payments(o.id)).find((p) => p.status === 'paid' && p.paymentIntentId);
+    if (!payment) throw AppError.conflict('not_refundable', 'No card payment of this order is on record');
+    await audit({ actorId: actor.id, action: 'refund.requested', subjectType: 'order', subjectId: o.id, details: { intentId: payment.paymentIntentId, amountCents: o.amountCents, currency: o.currency } });
+    let refund: Stripe.Refund | null = null;
+    try {
+      const stripe = await stripeClient();
+      refund = await stripe.refunds.create(
+        { payment_intent: payment.paymentIntentId!, reason: 'requested_by_customer', metadata: { orderId: String(o.id) } },
+        { idempotencyKey: `lanewright-refund-order-${o.id}-payment-${payment.id}` },
+      );
+    } catch (err) {
+      // Already refunded at the service (e.g. from its dashboard): record it here too.
+      if (!(err instanceof Stripe.errors.StripeError && err.code === 'charge_already_refunded')) throw paymentError(err);
+    }
+    if (!refund || refund.status === 'succeeded') {
+      await sequelize.transaction((transaction) =>
+        markRefunded(o.id, { intentId: payment.paymentIntentId, refundId: refund?.id ?? null, amountCents: refund?.amount ?? o.amountCents, actor, base: config.PUBLIC_URL || origin }, transaction),
+      );
+    } else {
+      await Payment.update({ refundId: refund.id }, { where: { id: payment.id } });
+    }
+    return fresh(id);
+  },
+
+  /** The day's takings of a center (UTC day): paid, refunded and net, by service. */
+  async takings(actor: AuthUser, centerId: number, date = todayUtc()): Promise<Takings> {
+    await ownedCenter(actor, centerId);
+    const from = new Date(`${date}T00:00:00Z`);
+    const to = new Date(from.getTime() + 86400000);
+    const [paid, refunded, services] = await Promise.all([shopRepository.paidBetween(centerId, from, to), shopRepository.refundedBetween(centerId, from, to), shopRepository.services(centerId, true)]);
+    const currency = paid[0]?.currency ?? refunded[0]?.currency ?? services[0]?.currency ?? 'usd';
+    const inCur = (os: Order[]) => os.filter((x) => x.currency === currency);
+    const byService = new Map<number, { serviceId: number; name: string; count: number; cents: number }>();
+    for (const x of inCur(paid)) {
+      const key = x.serviceId ?? 0;
+      const row = byService.get(key) ?? { serviceId: key, name: x.serviceName, count: 0, cents: 0 };
+      row.count += 1;
+      row.cents += x.amountCents;
+      byService.set(key, row);
+    }
+    const paidCents = inCur(paid).reduce((s, x) => s + x.amountCents, 0);
+    const refundedCents = inCur(refunded).reduce((s, x) => s + x.amountCents, 0);
+    return { date, currency, orders: inCur(paid).length, paidCents, refundedCents, netCents: paidCents - refundedCents, byService: [...byService.values()].sort((a, b) => b.cents - a.cents || a.serviceId - b.serviceId) };
+  },
+};
