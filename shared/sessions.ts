@@ -130,7 +130,9 @@ export interface ShotCreated {
   game: NumberedGame;
 }
 
-export interface SessionDetail extends Session {
+/** A session with everything on it. `shots` is the list here (the count is `shotCount`); `games` stays the count, the frame sheets are `gameViews`. */
+export interface SessionDetail extends Omit<Session, 'shots'> {
+  shotCount: number;
   gameViews: NumberedGame[];
   shots: Shot[];
   stats: ShotStats;

@@ -5,9 +5,11 @@ import { ArsenalQuerySchema, BallCreateSchema, BallModelInputSchema, BallModelPa
 import { PatternInputSchema, PatternPatchSchema, PatternQuerySchema } from '../../../shared/patterns';
 import { MatchupRequestSchema } from '../../../shared/matchups';
 import { CenterInputSchema, CenterPatchSchema, PublishConditionSchema } from '../../../shared/centers';
+import { CalibrationQuerySchema, SessionCreateSchema, SessionListQuerySchema, SessionPatchSchema, ShotCreateSchema, ShotParamsSchema, StatsQuerySchema } from '../../../shared/sessions';
+import { AnnotationCreateSchema, CoachListQuerySchema, InvitationCreateSchema, PlanCreateSchema, StudentParamSchema } from '../../../shared/coaching';
 import { CenterOrderQuerySchema, OrderCreateSchema, OrderListQuerySchema, OrderStatusChangeSchema, ServiceInputSchema, ServiceListQuerySchema, ServiceParamsSchema, ServicePatchSchema, TakingsQuerySchema } from '../../../shared/shop';
 
-type Who = 'public' | 'signed-in' | 'coach, proprietor, admin' | 'admin';
+type Who = 'public' | 'signed-in' | 'coach, proprietor, admin' | 'admin' | 'coach' | 'owner or linked coach';
 
 interface RouteDoc {
   method: 'get' | 'post' | 'put' | 'patch' | 'delete';
@@ -71,6 +73,26 @@ export const ROUTES: RouteDoc[] = [
   { method: 'delete', path: '/api/centers/{id}/follow', summary: 'Stop following a center', who: 'signed-in', params: IdParamSchema },
   { method: 'get', path: '/api/follows', summary: 'Centers you follow with their current condition', who: 'signed-in' },
   { method: 'get', path: '/api/unsubscribe', summary: 'Unsubscribe link of a follower e-mail (no sign-in)', who: 'public' },
+  { method: 'post', path: '/api/sessions', summary: 'Start a session (center, condition or pattern, date, kind)', who: 'signed-in', body: SessionCreateSchema },
+  { method: 'get', path: '/api/sessions', summary: 'My sessions, newest first (a linked coach: ?studentId)', who: 'owner or linked coach', query: SessionListQuerySchema },
+  { method: 'get', path: '/api/sessions/{id}', summary: 'A session: frame sheets scored by scoreGame, shots, stats, moves, annotations', who: 'owner or linked coach', params: IdParamSchema },
+  { method: 'patch', path: '/api/sessions/{id}', summary: 'Edit a session’s notes, kind or date', who: 'signed-in', params: IdParamSchema, body: SessionPatchSchema },
+  { method: 'delete', path: '/api/sessions/{id}', summary: 'Remove a session (restorable)', who: 'signed-in', params: IdParamSchema },
+  { method: 'post', path: '/api/sessions/{id}/restore', summary: 'Undo a session’s removal', who: 'signed-in', params: IdParamSchema },
+  { method: 'post', path: '/api/sessions/{id}/shots', summary: 'Log a delivery (header Idempotency-Key, 8–100 chars: a retry returns the first answer, 200)', who: 'signed-in', params: IdParamSchema, body: ShotCreateSchema },
+  { method: 'delete', path: '/api/sessions/{id}/shots/{shotId}', summary: 'Undo a game’s last delivery (any other → 409)', who: 'signed-in', params: ShotParamsSchema },
+  { method: 'post', path: '/api/sessions/{id}/annotations', summary: 'Annotate a session', who: 'owner or linked coach', params: IdParamSchema, body: AnnotationCreateSchema },
+  { method: 'get', path: '/api/stats', summary: 'Shot statistics overall, per ball, per surface and per session, with moves and the calibration', who: 'owner or linked coach', query: StatsQuerySchema },
+  { method: 'get', path: '/api/calibration', summary: 'The ball-motion calibration from my logged shots on a pattern', who: 'owner or linked coach', query: CalibrationQuerySchema },
+  { method: 'post', path: '/api/coach/invitations', summary: 'Invite a student by e-mail (mailed; audited)', who: 'coach', body: InvitationCreateSchema },
+  { method: 'get', path: '/api/coach/links', summary: 'Pending and active links where I am coach or student', who: 'signed-in', query: CoachListQuerySchema },
+  { method: 'post', path: '/api/coach/links/{id}/accept', summary: 'Accept an invitation (the invited student only; audited)', who: 'signed-in', params: IdParamSchema },
+  { method: 'delete', path: '/api/coach/links/{id}', summary: 'End a link or withdraw/decline an invitation (either side; audited)', who: 'signed-in', params: IdParamSchema },
+  { method: 'get', path: '/api/coach/students', summary: 'My students with their session counts', who: 'coach', query: CoachListQuerySchema },
+  { method: 'get', path: '/api/coach/students/{studentId}', summary: 'A student’s profile and arsenal (linked coach only; else 404)', who: 'coach', params: StudentParamSchema },
+  { method: 'get', path: '/api/coach/students/{studentId}/plans', summary: 'The plans I sent a student', who: 'coach', params: StudentParamSchema, query: CoachListQuerySchema },
+  { method: 'post', path: '/api/coach/students/{studentId}/plans', summary: 'Send a student a surface, layout or line plan (mailed; audited)', who: 'coach', params: StudentParamSchema, body: PlanCreateSchema },
+  { method: 'get', path: '/api/plans', summary: 'My coaches’ plans for me, newest first', who: 'signed-in', query: CoachListQuerySchema },
   { method: 'get', path: '/api/centers/{id}/services', summary: 'A center’s pro-shop price list (active entries; its proprietor sees inactive ones too with ?all=1)', who: 'signed-in', params: IdParamSchema, query: ServiceListQuerySchema },
   { method: 'post', path: '/api/centers/{id}/services', summary: 'Add a price-list entry (the center’s proprietor; integer cents)', who: 'signed-in', params: IdParamSchema, body: ServiceInputSchema },
   { method: 'patch', path: '/api/centers/{id}/services/{serviceId}', summary: 'Edit or retire a price-list entry (the center’s proprietor; stale version → 409)', who: 'signed-in', params: ServiceParamsSchema, body: ServicePatchSchema },

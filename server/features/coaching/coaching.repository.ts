@@ -1,0 +1,108 @@
+import { Op, QueryTypes, type Transaction } from 'sequelize';
+import type { CoachLink as CoachLinkDto, Plan as PlanDto, StudentSummary } from '../../../shared/coaching';
+import { Ball, CoachLink, Plan, sequelize, User } from '../../models/index';
+
+type LinkWithPeople = CoachLink & { coach?: User | null; student?: User | null };
+type PlanWithRefs = Plan & { coach?: User | null; ball?: Ball | null };
+
+const person = (u: User) => ({ id: u.id, displayName: u.displayName, email: u.email });
+
+export function toLinkDto(l: LinkWithPeople): CoachLinkDto {
+  return {
+    id: l.id,
+    coach: person(l.coach!),
+    student: l.student ? person(l.student) : null,
+    email: l.email,
+    status: l.status,
+    createdAt: l.createdAt.toISOString(),
+    acceptedAt: l.acceptedAt ? l.acceptedAt.toISOString() : null,
+  };
+}
+
+export function toPlanDto(p: PlanWithRefs): PlanDto {
+  return {
+    id: p.id,
+    coachId: p.coachId,
+    coachName: p.coach?.displayName ?? '',
+    studentId: p.studentId,
+    title: p.title,
+    kind: p.kind,
+    body: p.body,
+    ballId: p.ballId,
+    ballName: p.ball ? p.ball.name : null,
+    createdAt: p.createdAt.toISOString(),
+  };
+}
+
+const PEOPLE = [
+  { model: User, as: 'coach', attributes: ['id', 'displayName', 'email'] },
+  { model: User, as: 'student', attributes: ['id', 'displayName', 'email'] },
+];
+const PLAN_REFS = [
+  { model: User, as: 'coach', attributes: ['id', 'displayName'] },
+  // A plan keeps naming a ball the student later removed.
+  { model: Ball, as: 'ball', attributes: ['id', 'name'], paranoid: false },
+];
+
+export const coachingRepository = {
+  findLink(id: number, transaction?: Transaction): Promise<LinkWithPeople | null> {
+    return CoachLink.findByPk(id, { include: PEOPLE, transaction }) as Promise<LinkWithPeople | null>;
+  },
+  findLinkPlain(id: number, transaction: Transaction): Promise<CoachLink | null> {
+    return CoachLink.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+  },
+  /** Pending and active links where the user is the coach or the student (also invitations to their e-mail not yet tied to the account). */
+  links(user: { id: number; email: string }, page: number, pageSize: number): Promise<{ rows: LinkWithPeople[]; count: number }> {
+    return CoachLink.findAndCountAll({
+      where: { status: { [Op.in]: ['pending', 'active'] }, [Op.or]: [{ coachId: user.id }, { studentId: user.id }, { email: user.email.toLowerCase(), studentId: null }] },
+      include: PEOPLE,
+      order: [['createdAt', 'DESC'], ['id', 'DESC']],
+      limit: pageSize,
+      offset: (page - 1) * pageSize,
+      distinct: true,
+    }) as Promise<{ rows: LinkWithPeople[]; count: number }>;
+  },
+  liveLink(coachId: number, email: string, transaction?: Transaction): Promise<CoachLink | null> {
+    return CoachLink.findOne({ where: { coachId, email, status: { [Op.in]: ['pending', 'active'] } }, transaction });
+  },
+  activeLink(coachId: number, studentId: number): Promise<CoachLink | null> {
+    return CoachLink.findOne({ where: { coachId, studentId, status: 'active' } });
+  },
+  /** A coach's active students with their session count and last session date, in one statement. */
+  async students(coachId: number, page: number, pageSize: number): Promise<{ rows: StudentSummary[]; count: number }> {
+    const rows = await sequelize.query<{
+      link_id: number; student_id: number; display_name: string; email: string; since: Date; sessions: string; last_date: string | null; full_count: string;
+    }>(
+      `SELECT l.id AS link_id, u.id AS student_id, u.display_name, u.email, COALESCE(l.accepted_at, l.created_at) AS since,
+              COUNT(s.id) AS sessions, MAX(s.date) AS last_date, COUNT(*) OVER () AS full_count
+       FROM coach_links l
+       JOIN users u ON u.id = l.student_id
+       LEFT JOIN sessions s ON s.user_id = u.id AND s.deleted_at IS NULL
+       WHERE l.coach_id = :coachId AND l.status = 'active'
+       GROUP BY l.id, u.id
+       ORDER BY u.display_name, l.id
+       LIMIT :limit OFFSET :offset`,
+      { type: QueryTypes.SELECT, replacements: { coachId, limit: pageSize, offset: (page - 1) * pageSize } },
+    );
+    const count = rows.length ? Number(rows[0].full_count) : await CoachLink.count({ where: { coachId, status: 'active' } });
+    return {
+      rows: rows.map((r) => ({
+        linkId: r.link_id,
+        student: { id: r.student_id, displayName: r.display_name, email: r.email },
+        since: new Date(r.since).toISOString(),
+        sessions: Number(r.sessions),
+        lastSessionDate: r.last_date,
+      })),
+      count,
+    };
+  },
+  plans(where: { studentId: number; coachId?: number }, page: number, pageSize: number): Promise<{ rows: PlanWithRefs[]; count: number }> {
+    return Plan.findAndCountAll({ where, include: PLAN_REFS, order: [['createdAt', 'DESC'], ['id', 'DESC']], limit: pageSize, offset: (page - 1) * pageSize, distinct: true }) as Promise<{
+      rows: PlanWithRefs[];
+      count: number;
+    }>;
+  },
+  findPlan(id: number, transaction?: Transaction): Promise<PlanWithRefs | null> {
+    return Plan.findByPk(id, { include: PLAN_REFS, transaction }) as Promise<PlanWithRefs | null>;
+  },
+};

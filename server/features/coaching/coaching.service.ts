@@ -1,0 +1,137 @@
+import { UniqueConstraintError } from 'sequelize';
+import type { Page } from '../../../shared/auth';
+import type { CoachLink as CoachLinkDto, Plan as PlanDto, PlanCreate, StudentDetail, StudentSummary } from '../../../shared/coaching';
+import { config } from '../../config/index';
+import { AppError } from '../../lib/AppError';
+import { audit } from '../../lib/audit';
+import { enqueueMail } from '../../lib/outbox';
+import type { AuthUser } from '../../middleware/auth';
+import { Ball, CoachLink, Plan, sequelize, User } from '../../models/index';
+import { arsenalRepository, toBallDto } from '../arsenal/arsenal.repository';
+import { profileService } from '../profile/profile.service';
+import { isLinkedCoach } from './coaching.access';
+import { coachingRepository, toLinkDto, toPlanDto } from './coaching.repository';
+
+const esc = (s: string) => s.replace(/[&<>"']/g, (ch) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[ch]!);
+
+function mailBody(lines: string[], link: { href: string; label: string }): { text: string; html: string } {
+  return { text: [...lines, '', `${link.label}: ${link.href}`].join('\n'), html: `<p>${lines.map(esc).join('<br>')}</p><p><a href="${esc(link.href)}">${esc(link.label)}</a></p>` };
+}
+
+/** The student of a linked coach (404 when not linked, so the student's existence never leaks). */
+async function linkedStudent(coach: AuthUser, studentId: number): Promise<User> {
+  if (!(await isLinkedCoach(coach, studentId))) throw AppError.notFound('Student');
+  return (await User.findByPk(studentId))!;
+}
+
+const isInvitee = (user: AuthUser, l: CoachLink) => l.studentId === user.id || (l.studentId === null && l.email === user.email.toLowerCase());
+
+export const coachingService = {
+  /** A coach invites a student by e-mail: a pending link, an audit event and an e-mail through the outbox, in one transaction. */
+  async invite(coach: AuthUser, email: string, origin: string): Promise<CoachLinkDto> {
+    const address = email.toLowerCase();
+    if (address === coach.email.toLowerCase()) throw AppError.badRequest('You cannot coach yourself', { 'body.email': 'Invite a student’s e-mail, not your own' });
+    const base = config.PUBLIC_URL || origin;
+    try {
+      const id = await sequelize.transaction(async (transaction) => {
+        const live = await coachingRepository.liveLink(coach.id, address, transaction);
+        if (live) throw AppError.conflict(live.status === 'active' ? 'already_linked' : 'already_invited', live.status === 'active' ? 'This bowler is already your student' : 'This bowler already has an invitation from you');
+        const student = await User.findOne({ where: { email: address }, attributes: ['id', 'displayName'], transaction });
+        const link = await CoachLink.create({ coachId: coach.id, studentId: student?.id ?? null, email: address, status: 'pending', acceptedAt: null, revokedAt: null, revokedBy: null }, { transaction });
+        await audit({ actorId: coach.id, action: 'coach.invited', subjectType: 'coach_link', subjectId: link.id, details: { email: address, studentId: link.studentId } }, transaction);
+        const body = mailBody(
+          [
+            `Hello${student ? ` ${student.displayName}` : ''},`,
+            '',
+            `${coach.displayName} invites you to be their student on Lanewright.`,
+            'As your coach they will read your arsenal and session logs, annotate your sessions and send you plans.',
+            student ? 'Accept or decline on your Coach page.' : `Sign up with this e-mail address (${address}) to accept.`,
+            'You can end the link at any time.',
+          ],
+          { href: student ? `${base}/coach` : `${base}/sign-up`, label: student ? 'Open the invitation' : 'Sign up' },
+        );
+        await enqueueMail([{ to: address, kind: 'coach_invitation', ref: String(link.id), subject: `${coach.displayName} invites you to Lanewright coaching`, ...body }], transaction);
+        return link.id;
+      });
+      return toLinkDto((await coachingRepository.findLink(id))!);
+    } catch (err) {
+      // Two invitations at once: the partial unique index keeps one.
+      if (err instanceof UniqueConstraintError) throw AppError.conflict('already_invited', 'This bowler already has an invitation from you');
+      throw err;
+    }
+  },
+
+  async links(user: AuthUser, page: number, pageSize: number): Promise<Page<CoachLinkDto>> {
+    const { rows, count } = await coachingRepository.links(user, page, pageSize);
+    return { items: rows.map(toLinkDto), total: count, page, pageSize };
+  },
+
+  /** The invited student accepts (only they; anyone else gets 404). */
+  async accept(user: AuthUser, id: number): Promise<CoachLinkDto> {
+    await sequelize.transaction(async (transaction) => {
+      const l = await coachingRepository.findLinkPlain(id, transaction);
+      if (!l || !isInvitee(user, l) || l.status === 'revoked') throw AppError.notFound('Invitation');
+      if (l.status === 'active') return;
+      l.set({ status: 'active', studentId: user.id, acceptedAt: new Date() });
+      await l.save({ transaction });
+      await audit({ actorId: user.id, action: 'coach.link_accepted', subjectType: 'coach_link', subjectId: l.id, details: { coachId: l.coachId } }, transaction);
+    });
+    return toLinkDto((await coachingRepository.findLink(id))!);
+  },
+
+  /** Either side ends the link (or withdraws / declines the invitation); the coach loses access at once. */
+  async revoke(user: AuthUser, id: number): Promise<void> {
+    await sequelize.transaction(async (transaction) => {
+      const l = await coachingRepository.findLinkPlain(id, transaction);
+      if (!l || (l.coachId !== user.id && !isInvitee(user, l))) throw AppError.notFound('Link');
+      if (l.status === 'revoked') return;
+      const was = l.status;
+      l.set({ status: 'revoked', revokedAt: new Date(), revokedBy: user.id });
+      await l.save({ transaction });
+      await audit({ actorId: user.id, action: 'coach.link_revoked', subjectType: 'coach_link', subjectId: l.id, details: { was, coachId: l.coachId, studentId: l.studentId, by: l.coachId === user.id ? 'coach' : 'student' } }, transaction);
+    });
+  },
+
+  async students(coach: AuthUser, page: number, pageSize: number): Promise<Page<StudentSummary>> {
+    const { rows, count } = await coachingRepository.students(coach.id, page, pageSize);
+    return { items: rows, total: count, page, pageSize };
+  },
+
+  async student(coach: AuthUser, studentId: number): Promise<StudentDetail> {
+    const s = await linkedStudent(coach, studentId);
+    const [{ profile }, balls] = await Promise.all([profileService.get(s.id), arsenalRepository.findOwnedMany(s.id)]);
+    return { student: { id: s.id, displayName: s.displayName, email: s.email }, profile, arsenal: balls.map(toBallDto) };
+  },
+
+  /** A plan for a linked student: stored, audited and mailed (through the outbox) in one transaction. */
+  async sendPlan(coach: AuthUser, studentId: number, input: PlanCreate, origin: string): Promise<PlanDto> {
+    const s = await linkedStudent(coach, studentId);
+    if (input.ballId != null && !(await arsenalRepository.findOwned(s.id, input.ballId)))
+      throw AppError.badRequest('That ball is not in the student’s arsenal', { 'body.ballId': 'Choose one of the student’s balls' });
+    const base = config.PUBLIC_URL || origin;
+    const id = await sequelize.transaction(async (transaction) => {
+      const p = await Plan.create({ coachId: coach.id, studentId: s.id, title: input.title, kind: input.kind, body: input.body, ballId: input.ballId ?? null }, { transaction });
+      await audit({ actorId: coach.id, action: 'coach.plan_sent', subjectType: 'plan', subjectId: p.id, details: { studentId: s.id, kind: p.kind, ballId: p.ballId } }, transaction);
+      const ball = p.ballId ? await Ball.findByPk(p.ballId, { attributes: ['name'], transaction }) : null;
+      const body = mailBody(
+        [`Hello ${s.displayName},`, '', `${coach.displayName} sent you a ${p.kind} plan${ball ? ` for ${ball.name}` : ''}: ${p.title}.`, '', ...p.body.split('\n')],
+        { href: `${base}/`, label: 'See it on your Lanewright home' },
+      );
+      await enqueueMail([{ to: s.email, kind: 'coach_plan', ref: String(p.id), subject: `A plan from ${coach.displayName}: ${p.title}`.slice(0, 200), ...body }], transaction);
+      return p.id;
+    });
+    return toPlanDto((await coachingRepository.findPlan(id))!);
+  },
+
+  async plansForStudent(coach: AuthUser, studentId: number, page: number, pageSize: number): Promise<Page<PlanDto>> {
+    await linkedStudent(coach, studentId);
+    const { rows, count } = await coachingRepository.plans({ studentId, coachId: coach.id }, page, pageSize);
+    return { items: rows.map(toPlanDto), total: count, page, pageSize };
+  },
+
+  /** My plans as a student, newest first (also those of a coach whose link has since ended: they are mine). */
+  async myPlans(user: AuthUser, page: number, pageSize: number): Promise<Page<PlanDto>> {
+    const { rows, count } = await coachingRepository.plans({ studentId: user.id }, page, pageSize);
+    return { items: rows.map(toPlanDto), total: count, page, pageSize };
+  },
+};
