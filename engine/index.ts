@@ -106,4 +106,6 @@ export { wilsonInterval, WILSON_Z_95 } from './shotlog/wilsonInterval';
 export { shotStats } from './shotlog/shotStats';
 export { statsBy, STATS_KEYS } from './shotlog/statsBy';
 export type { StatsKey } from './shotlog/statsBy';
+export { suggestMoves, MOVE_THRESHOLDS } from './shotlog/suggestMoves';
+export { spareAdjustment, THREE_SIX_NINE } from './shotlog/spareAdjustment';
 // ── end shot log ───────────────────────────────────────────────────────────────────────────────

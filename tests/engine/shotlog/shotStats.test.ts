@@ -20,7 +20,7 @@ const sheet: Row[] = [
   [10, 1, []], [10, 2, []], [10, 3, [6, 10]],
 ];
 
-function shots(rows: Row[], over: Partial<ShotRecord> = {}, ball = (r: Row) => (r[1] === 1 || r[0] === 10 ? 'strike-ball' : 'spare-ball')): ShotRecord[] {
+function shots(rows: Row[], over: Partial<ShotRecord> = {}, ball: (r: Row) => string = (r: Row) => (r[1] === 1 || r[0] === 10 ? 'strike-ball' : 'spare-ball')): ShotRecord[] {
   return rows.map((r) => ({
     frame: r[0], delivery: r[1], standing: r[2], foul: r[3]?.foul ?? false, hit: r[3]?.hit ?? null,
     sessionId: 's1', gameNumber: 1, date: '2026-11-20', ballId: ball(r), surfaceKey: '2000 grit', ...over,
