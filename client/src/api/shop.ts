@@ -7,94 +7,26 @@ import { api } from './client';
  * echoes the price it showed (`expectedAmountCents`) so a price changed meanwhile is refused, never charged.
  */
 
-export const SERVICE_KINDS = ['resurface', 'polish', 'oil-extraction', 'plug-redrill', 'drill'] as const;
-export type ServiceKind = (typeof SERVICE_KINDS)[number];
+import {
+  ORDER_STATUSES,
+  SERVICE_KINDS,
+  SURFACE_KINDS,
+  cautionsFor,
+  type CheckoutStart,
+  type Order,
+  type OrderCreate,
+  type OrderHistoryEntry,
+  type OrderStatus,
+  type PaymentStatus,
+  type ServiceInput,
+  type ServiceKind,
+  type ServicePatch,
+  type ShopService,
+  type Takings,
+} from '@shared/shop';
 
-export const ORDER_STATUSES = ['ordered', 'paid', 'in_progress', 'ready', 'collected', 'cancelled', 'refunded'] as const;
-export type OrderStatus = (typeof ORDER_STATUSES)[number];
-
-export type PaymentStatus = 'unpaid' | 'processing' | 'paid' | 'failed' | 'refunded';
-
-export interface ShopService {
-  id: number;
-  centerId: number;
-  kind: ServiceKind;
-  name: string;
-  /** The target grit of a resurface (null for other services). */
-  grit: number | null;
-  description: string | null;
-  priceCents: number;
-  currency: string;
-  active: boolean;
-  version: number;
-}
-
-export interface OrderHistoryEntry {
-  status: OrderStatus;
-  at: string;
-  by: string | null;
-}
-
-export interface Order {
-  id: number;
-  userId: number;
-  bowlerName: string;
-  centerId: number;
-  centerName: string;
-  serviceId: number;
-  serviceKind: ServiceKind;
-  serviceName: string;
-  grit: number | null;
-  ballId: number;
-  ballName: string;
-  amountCents: number;
-  currency: string;
-  status: OrderStatus;
-  notes: string | null;
-  paymentStatus: PaymentStatus;
-  lastPaymentError: string | null;
-  createdAt: string;
-  paidAt: string | null;
-  readyAt: string | null;
-  collectedAt: string | null;
-  refundedAt: string | null;
-  history: OrderHistoryEntry[];
-}
-
-export interface ServiceCreate {
-  kind: ServiceKind;
-  name: string;
-  grit?: number | null;
-  description?: string | null;
-  priceCents: number;
-  currency?: string;
-}
-
-export type ServicePatch = Partial<ServiceCreate> & { version: number; active?: boolean };
-
-export interface OrderCreate {
-  serviceId: number;
-  ballId: number;
-  notes?: string;
-  /** The price the bowler was shown; a different server price answers 400 `price_mismatch`. */
-  expectedAmountCents?: number;
-}
-
-export interface Checkout {
-  /** The hosted card page to send the browser to (the fake's page in development and tests, Stripe's otherwise). */
-  url: string;
-  checkoutSessionId: string;
-}
-
-export interface Takings {
-  date: string;
-  currency: string;
-  orders: number;
-  paidCents: number;
-  refundedCents: number;
-  netCents: number;
-  byService: { serviceId: number; name: string; count: number; cents: number }[];
-}
+export { ORDER_STATUSES, SERVICE_KINDS, SURFACE_KINDS, cautionsFor };
+export type { CheckoutStart, Order, OrderCreate, OrderHistoryEntry, OrderStatus, PaymentStatus, ServiceInput, ServiceKind, ServicePatch, ShopService, Takings };
 
 /** The moves the shop makes on a paid order, in order. */
 export type ShopMove = 'in_progress' | 'ready' | 'collected';
@@ -109,13 +41,13 @@ export const shopApi = {
   /** Active services of a center (`all`: the owner sees inactive ones too). */
   services: (centerId: number, options: { all?: boolean; signal?: AbortSignal } = {}) =>
     api.get<{ items: ShopService[] }>(`/centers/${centerId}/services`, { query: { all: options.all ? 1 : undefined }, signal: options.signal }),
-  createService: (centerId: number, body: ServiceCreate) => api.post<{ item: ShopService }>(`/centers/${centerId}/services`, body),
+  createService: (centerId: number, body: ServiceInput) => api.post<{ item: ShopService }>(`/centers/${centerId}/services`, body),
   /** `version` must be the one read; a stale one answers 409. */
   updateService: (centerId: number, serviceId: number, body: ServicePatch) =>
     api.patch<{ item: ShopService }>(`/centers/${centerId}/services/${serviceId}`, body),
 
   createOrder: (body: OrderCreate) => api.post<{ item: Order }>('/orders', body),
-  checkout: (orderId: number) => api.post<Checkout>(`/orders/${orderId}/checkout`),
+  checkout: (orderId: number) => api.post<CheckoutStart>(`/orders/${orderId}/checkout`),
   myOrders: (params: OrderListParams = {}, signal?: AbortSignal) => api.get<Page<Order>>('/orders', { query: { ...params }, signal }),
   order: (orderId: number, signal?: AbortSignal) => api.get<{ item: Order }>(`/orders/${orderId}`, { signal }),
   cancel: (orderId: number) => api.post<{ item: Order }>(`/orders/${orderId}/cancel`),
@@ -196,11 +128,4 @@ export function formatMoney(cents: number, currency = 'usd'): string {
 /** "Resurface to 4000 grit — $45.00". */
 export function serviceLabel(s: Pick<ShopService, 'name' | 'priceCents' | 'currency'>): string {
   return `${s.name} — ${formatMoney(s.priceCents, s.currency)}`;
-}
-
-/** Which cautions of PRODUCT.md a service calls for. */
-export function cautionTopicsFor(kind: ServiceKind | null | undefined): ('surface' | 'layout')[] {
-  if (kind === 'plug-redrill' || kind === 'drill') return ['layout'];
-  if (kind) return ['surface'];
-  return ['surface', 'layout'];
 }

@@ -1,0 +1,322 @@
+import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
+import type { Browser, Page } from 'playwright-core';
+import { DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
+
+/**
+ * Flow 6 of PRODUCT.md in the browser: the proprietor puts a 4000-grit resurface on Copperline Bowl's price list;
+ * the demo bowler orders it for one of her balls from the Ball page, pays on the payment service's hosted card
+ * page (the project's local fake of it in tests) — first with the test card that is declined (the order stays
+ * unpaid, the reason shown), then with the one that succeeds — and comes back to the order, which shows as paid
+ * once the signed webhook reached the server. The proprietor marks it in progress and ready on the orders board
+ * and sees the day's takings; the Ball page then shows 4000 grit in its surface history, and the matchup ranks
+ * the ball with its new surface (the engine's prediction for it changes).
+ *
+ * Test cards: 4242 4242 4242 4242 succeeds, 4000 0000 0000 0002 is declined — the numbers the payment service
+ * documents for its test mode, which the fake follows (CONTRACT-8).
+ */
+
+const baseUrl = inject('baseUrl');
+let browser: Browser;
+const sessions: Session[] = [];
+
+async function open(viewport: Viewport = DESKTOP): Promise<Session> {
+  const s = await openSession(browser, baseUrl, viewport);
+  sessions.push(s);
+  return s;
+}
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+
+afterEach(async () => {
+  for (const s of sessions.splice(0)) {
+    const errors = s.pageErrors;
+    await s.context.close();
+    expect(errors, 'uncaught errors in the page').toEqual([]);
+  }
+});
+
+afterAll(async () => {
+  await browser?.close();
+});
+
+const RUN = Date.now() % 100000;
+const SERVICE_NAME = `Resurface to 4000 grit, e2e ${RUN}`;
+/** An unusual price, so the page can only show it if it came from the price list the proprietor just set. */
+const PRICE_TEXT = '$38.75';
+const BALL = 'Big Red';
+
+/** State carried from one step of the flow to the next. */
+const flow = { ballId: 0, orderId: 0, before: null as null | MatchupRow };
+
+/** Element Plus keeps a select's combobox input visually hidden: open it by keyboard, then pick the option. */
+async function choose(page: Page, scope: Page | ReturnType<Page['getByRole']>, combobox: string, option: string | RegExp): Promise<void> {
+  await scope.getByRole('combobox', { name: combobox }).focus();
+  await page.keyboard.press('Enter');
+  await page.getByRole('option', { name: option, exact: typeof option === 'string' }).click();
+}
+
+interface MatchupRow {
+  surface: string;
+  prediction: string;
+}
+
+/** Ranks dana's arsenal on Short Sprint 34 and reads the row of one ball: its surface as shown and its predicted skid/breakpoint/entry angle. */
+async function matchupRowOf(page: Page, ballId: number): Promise<MatchupRow> {
+  await page.goto('/matchup');
+  await page.getByRole('heading', { level: 1, name: 'Matchup' }).waitFor();
+  await choose(page, page, 'Condition', 'Short Sprint 34');
+  await page.getByRole('button', { name: 'Rank my arsenal' }).click();
+  await page.getByRole('heading', { level: 2, name: /^Ranking for Short Sprint 34, after 0 games/ }).waitFor({ timeout: 30000 });
+  const row = page.locator(`tr[data-ball-id="${ballId}"]`);
+  await row.waitFor();
+  const surface = ((await row.locator('.matchup-ranking-table__sub').textContent()) ?? '').trim();
+  const prediction = ((await row.locator('.matchup-ranking-table__inline').textContent()) ?? '').replace(/\s+/g, ' ').trim();
+  return { surface, prediction };
+}
+
+/** "#12" as the board shows an order, not matching "#123". */
+function orderTag(id: number): RegExp {
+  return new RegExp(`#${id}(?!\\d)`);
+}
+
+/** Fills the hosted card page (any future expiry, any CVC) and presses Pay. */
+async function payWithCard(page: Page, card: string): Promise<void> {
+  await page.getByRole('form', { name: 'Card details' }).waitFor();
+  await page.getByLabel('Card number').fill(card);
+  await page.getByLabel('Expiry (MM / YY)').fill('12 / 34');
+  await page.getByLabel('CVC').fill('123');
+  await page.getByLabel('Name on card').fill('Dana Example');
+  await page.getByRole('button', { name: `Pay ${PRICE_TEXT}` }).click();
+}
+
+describe('pro shop: order, card payment, shop board, surface update', () => {
+  it('the proprietor adds a 4000-grit resurface to the price list', async () => {
+    const { page } = await open();
+    await signIn(page, DEMO.proprietor);
+    await page.goto('/center-admin');
+    await page.getByRole('heading', { level: 1, name: 'Center admin' }).waitFor();
+    await page.getByRole('tab', { name: 'Price list' }).click();
+    await page.getByRole('heading', { level: 2, name: 'Price list' }).waitFor();
+    await page.getByRole('button', { name: 'Add a service' }).click();
+    const dialog = page.getByRole('dialog', { name: 'Add a service' });
+    await dialog.waitFor();
+    // Resurface is the default kind; its target grit starts at 4000.
+    expect(await dialog.getByLabel('Target grit').inputValue()).toBe('4000');
+    await dialog.getByLabel('Name on the price list').fill(SERVICE_NAME);
+    await dialog.getByLabel('Price (USD)').fill('38.75');
+    await dialog.getByRole('button', { name: 'Add service' }).click();
+    await dialog.waitFor({ state: 'hidden' });
+    const row = page.locator('.shop-price-list__table').getByRole('row').filter({ hasText: SERVICE_NAME });
+    await row.waitFor();
+    expect(await row.innerText()).toContain(PRICE_TEXT);
+    await screenshot(page, 'shop-price-list-desktop');
+  });
+
+  it('dana orders it for Big Red from the Ball page; a declined card leaves the order unpaid with the reason; the test card that succeeds pays it', async () => {
+    const { page } = await open();
+    await signIn(page, DEMO.dana);
+
+    // The ball and its matchup row before the work.
+    await page.goto('/arsenal');
+    await page.getByRole('link', { name: BALL, exact: true }).click();
+    await page.getByRole('heading', { level: 1, name: BALL }).waitFor();
+    flow.ballId = Number(/\/arsenal\/(\d+)/.exec(page.url())?.[1]);
+    expect(flow.ballId).toBeGreaterThan(0);
+    const surfaceBefore = await page.locator('dt:text-is("Surface") + dd').first().innerText();
+    expect(surfaceBefore).not.toBe('4000 grit');
+    flow.before = await matchupRowOf(page, flow.ballId);
+    expect(flow.before.surface).toContain(surfaceBefore);
+
+    // Order from the Ball page.
+    await page.goto(`/arsenal/${flow.ballId}`);
+    await page.getByRole('button', { name: 'Order a service' }).click();
+    const dialog = page.getByRole('dialog', { name: `Order a service for ${BALL} (Thunderhead Talon)` });
+    await dialog.waitFor();
+    // Dana follows Copperline Bowl: it is offered first and chosen already.
+    await dialog.getByRole('combobox', { name: 'Center' }).waitFor();
+    await page.waitForFunction(() => document.querySelector('.shop-order-dialog [aria-label="Service"]:not([aria-disabled="true"])') !== null);
+    expect(await dialog.locator('.el-select').first().innerText()).toContain('Copperline Bowl');
+    await choose(page, dialog, 'Service', new RegExp(`^${SERVICE_NAME}`));
+    await dialog.getByTestId('order-price').filter({ hasText: PRICE_TEXT }).waitFor();
+    await dialog.getByText('Resurfacing and polishing use abrasives and solvents').waitFor();
+    await dialog.getByText(/Check your league’s or tournament’s equipment rules/).waitFor();
+    await dialog.getByLabel('Notes for the shop (optional)').fill('Please keep the logo.');
+    await screenshot(page, 'shop-order-dialog-desktop');
+    await dialog.getByRole('button', { name: `Pay by card ${PRICE_TEXT}` }).click();
+
+    // The hosted card page: the declined test card.
+    await page.waitForURL(/\/pay\//);
+    await payWithCard(page, '4000 0000 0000 0002');
+    await page.getByRole('alert').filter({ hasText: 'Your card was declined.' }).waitFor();
+    await screenshot(page, 'shop-card-declined-desktop');
+    await page.getByRole('button', { name: 'Cancel and go back' }).click();
+
+    // Back on the order: not paid, the reason shown, payable again.
+    await page.waitForURL(/\/orders\/\d+\?checkout=cancelled/);
+    flow.orderId = Number(/\/orders\/(\d+)/.exec(page.url())?.[1]);
+    await page.getByRole('heading', { level: 1, name: `Order ${flow.orderId}` }).waitFor();
+    await page.getByText('The payment did not go through').waitFor();
+    expect(await page.getByTestId('payment-error').innerText()).toContain('Your card was declined.');
+    expect(await page.locator('.app-page-header .order-status-tag').innerText()).toBe('Ordered');
+    await screenshot(page, 'shop-order-declined-desktop');
+
+    // Pay again with the card that succeeds.
+    await page.getByRole('button', { name: `Try paying again ${PRICE_TEXT}` }).click();
+    await page.waitForURL(/\/pay\//);
+    await payWithCard(page, '4242 4242 4242 4242');
+    await page.waitForURL(/\/orders\/\d+\?checkout=done/);
+    await page.getByRole('alert').filter({ hasText: 'Payment confirmed' }).waitFor({ timeout: 30000 });
+    expect(await page.locator('.app-page-header .order-status-tag').innerText()).toBe('Paid');
+    await page.getByText('The payment did not go through').waitFor({ state: 'detached' });
+    expect(await page.getByRole('list', { name: 'Order progress' }).innerText()).toContain('Paid');
+    await screenshot(page, 'shop-order-paid-desktop');
+
+    // My orders lists it as paid.
+    await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Orders' }).click();
+    await page.getByRole('heading', { level: 1, name: 'My orders' }).waitFor();
+    const row = page.locator('.orders__table').getByRole('row').filter({ hasText: SERVICE_NAME });
+    await row.waitFor();
+    expect(await row.innerText()).toContain('Paid');
+    await screenshot(page, 'shop-my-orders-desktop');
+  });
+
+  it('the proprietor marks it in progress, then ready, on the orders board and sees the day’s takings', async () => {
+    expect(flow.orderId).toBeGreaterThan(0);
+    const { page } = await open();
+    await signIn(page, DEMO.proprietor);
+    await page.goto('/center-admin?tab=orders');
+    await page.getByRole('heading', { level: 2, name: 'Orders' }).waitFor();
+    await choose(page, page, 'Order status', 'Paid');
+    const row = page.locator('.order-board__table').getByRole('row').filter({ hasText: orderTag(flow.orderId) });
+    await row.waitFor();
+    expect(await row.innerText()).toContain('Please keep the logo.');
+    await screenshot(page, 'shop-orders-board-desktop');
+
+    // Back to every status, so the row stays in view as it moves on.
+    await choose(page, page, 'Order status', 'Any status');
+    await page.getByRole('button', { name: `Mark in progress: order ${flow.orderId}` }).click();
+    await row.getByText('In progress').waitFor();
+    await page.getByRole('button', { name: `Mark ready: order ${flow.orderId}` }).click();
+    await row.getByText('Ready to collect').waitFor();
+    await page.getByRole('button', { name: `Mark collected: order ${flow.orderId}` }).waitFor();
+    await screenshot(page, 'shop-orders-board-ready-desktop');
+
+    // Today's takings include the payment, by service.
+    await page.getByRole('tab', { name: 'Takings' }).click();
+    const byService = page.getByRole('table', { name: 'Takings by service' }).getByRole('row').filter({ hasText: SERVICE_NAME });
+    await byService.waitFor();
+    expect((await byService.innerText()).replace(/\s+/g, ' ')).toContain(`1 ${PRICE_TEXT}`);
+    expect(Number(await page.getByTestId('takings-orders').innerText())).toBeGreaterThanOrEqual(1);
+    await screenshot(page, 'shop-takings-desktop');
+  });
+
+  it('the Ball page shows the new surface in its history, and the matchup ranks the ball with it', async () => {
+    expect(flow.ballId).toBeGreaterThan(0);
+    const { page } = await open();
+    await signIn(page, DEMO.dana);
+    await page.goto(`/orders/${flow.orderId}`);
+    expect(await page.locator('.app-page-header .order-status-tag').innerText()).toBe('Ready to collect');
+    await page.getByText('Your ball is ready to collect at Copperline Bowl.').waitFor();
+
+    await page.goto(`/arsenal/${flow.ballId}`);
+    await page.getByRole('heading', { level: 1, name: BALL }).waitFor();
+    expect(await page.locator('dt:text-is("Surface") + dd').first().innerText()).toBe('4000 grit');
+    const history = page.getByRole('region', { name: 'Surface history' });
+    const newest = history.locator('.el-timeline-item').first();
+    expect(await newest.innerText()).toContain('Current');
+    expect(await newest.innerText()).toContain('4000 grit');
+    expect(await newest.innerText()).toMatch(/was \d+ grit/);
+    await screenshot(page, 'shop-ball-surface-desktop');
+
+    const after = await matchupRowOf(page, flow.ballId);
+    expect(after.surface).toContain('4000 grit');
+    expect(after.surface).not.toBe(flow.before?.surface);
+    // The engine ran on the new surface: a smoother ball skids longer, so its predicted numbers change.
+    expect(after.prediction).not.toBe('');
+    expect(after.prediction).not.toBe(flow.before?.prediction);
+    const skid = (s: string) => Number(/skid ([\d.]+) ft/.exec(s)?.[1]);
+    expect(skid(after.prediction)).toBeGreaterThan(skid(flow.before?.prediction ?? ''));
+    await screenshot(page, 'shop-matchup-after-desktop');
+  });
+
+  it('a surface suggestion in the matchup opens the order dialog on that ball with the suggested service', async () => {
+    const { page } = await open();
+    await signIn(page, DEMO.dana);
+    await page.goto('/matchup');
+    await page.getByRole('heading', { level: 1, name: 'Matchup' }).waitFor();
+    await choose(page, page, 'Condition', 'Long Haul 47');
+    await page.getByRole('button', { name: 'Rank my arsenal' }).click();
+    await page.getByRole('heading', { level: 2, name: /^Ranking for Long Haul 47/ }).waitFor({ timeout: 30000 });
+    // Open the reasons ball by ball until one has a surface suggestion the shop can do.
+    const whys = page.getByRole('button', { name: /^Why: / });
+    const order = page.getByRole('button', { name: /^Order at the pro shop: / }).first();
+    const n = await whys.count();
+    for (let i = 0; i < n && (await order.count()) === 0; i += 1) await whys.nth(i).click();
+    await order.waitFor();
+    const label = (await order.getAttribute('aria-label')) ?? '';
+    await order.click();
+    const dialog = page.getByRole('dialog', { name: /^Order a service for / });
+    await dialog.waitFor();
+    // The ball is fixed to the one of the suggestion.
+    expect(await dialog.getByRole('combobox', { name: 'Ball' }).isDisabled()).toBe(true);
+    const grit = /(\d+) grit/.exec(label)?.[1];
+    await page.waitForFunction(() => document.querySelector('.shop-order-dialog [aria-label="Service"]:not([aria-disabled="true"])') !== null || document.querySelector('.shop-order-dialog__empty') !== null);
+    const serviceText = await dialog.locator('.el-select').nth(1).innerText();
+    const hint = dialog.locator('.shop-order-dialog__hint');
+    // Either the price list's matching resurface is chosen, or the dialog says the list has none for that grit.
+    if (await hint.count()) expect(await hint.innerText()).toContain(`${grit} grit`);
+    else expect(serviceText).toContain(`${grit} grit`);
+    await screenshot(page, 'shop-order-from-suggestion-desktop');
+  });
+});
+
+describe('pro shop at 375 px', () => {
+  it('My orders, the order page, the order dialog and the orders board fit a phone without a horizontal scrollbar', async () => {
+    expect(flow.orderId).toBeGreaterThan(0);
+    const bowler = await open(MOBILE);
+    await signIn(bowler.page, DEMO.dana);
+    await bowler.page.goto('/orders');
+    // On a phone the orders are a list of cards, not a table that scrolls sideways.
+    await bowler.page.getByRole('list', { name: 'Your orders' }).getByRole('listitem').filter({ hasText: SERVICE_NAME }).waitFor();
+    expect(await hasHorizontalScroll(bowler.page)).toBe(false);
+    await screenshot(bowler.page, 'shop-my-orders-mobile');
+
+    await bowler.page.goto(`/orders/${flow.orderId}`);
+    await bowler.page.getByRole('list', { name: 'Order progress' }).waitFor();
+    expect(await hasHorizontalScroll(bowler.page)).toBe(false);
+    await screenshot(bowler.page, 'shop-order-mobile');
+
+    await bowler.page.goto(`/arsenal/${flow.ballId}`);
+    await bowler.page.getByRole('heading', { level: 2, name: 'Surface history' }).waitFor();
+    expect(await hasHorizontalScroll(bowler.page)).toBe(false);
+    // Keyboard: the button opens the dialog with Enter.
+    await bowler.page.getByRole('button', { name: 'Order a service' }).focus();
+    await bowler.page.keyboard.press('Enter');
+    const dialog = bowler.page.getByRole('dialog', { name: /^Order a service for / });
+    await dialog.waitFor();
+    await choose(bowler.page, dialog, 'Service', new RegExp(`^${SERVICE_NAME}`));
+    await dialog.getByTestId('order-price').waitFor();
+    expect(await hasHorizontalScroll(bowler.page)).toBe(false);
+    const box = await dialog.boundingBox();
+    expect(box && box.x >= 0 && box.x + box.width <= MOBILE.width).toBe(true);
+    await screenshot(bowler.page, 'shop-order-dialog-mobile');
+
+    const owner = await open(MOBILE);
+    await signIn(owner.page, DEMO.proprietor);
+    await owner.page.goto('/center-admin?tab=orders');
+    const card = owner.page.getByRole('list', { name: 'Orders board' }).getByRole('listitem').filter({ hasText: orderTag(flow.orderId) });
+    await card.waitFor();
+    expect(await hasHorizontalScroll(owner.page)).toBe(false);
+    await screenshot(owner.page, 'shop-orders-board-mobile');
+    // The bowler collects the ball: the last step, from the phone.
+    await owner.page.getByRole('button', { name: `Mark collected: order ${flow.orderId}` }).click();
+    await card.getByText('Collected', { exact: true }).waitFor();
+    expect(await owner.page.getByRole('button', { name: `Refund order ${flow.orderId}` }).count()).toBe(0);
+    await owner.page.getByRole('tab', { name: 'Takings' }).click();
+    await owner.page.getByRole('table', { name: 'Takings by service' }).waitFor();
+    expect(await hasHorizontalScroll(owner.page)).toBe(false);
+    await screenshot(owner.page, 'shop-takings-mobile');
+  });
+});
