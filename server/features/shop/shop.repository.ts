@@ -1,5 +1,5 @@
 import { Op, type Transaction, type WhereOptions } from 'sequelize';
-import type { Order as OrderDto, OrderStatus, ShopService as ShopServiceDto } from '../../../shared/shop';
+import { SERVICE_KINDS, type Order as OrderDto, type OrderStatus, type ShopService as ShopServiceDto } from '../../../shared/shop';
 import { Center, Order, OrderEvent, Payment, ShopService, User } from '../../models/index';
 
 export function toServiceDto(s: ShopService): ShopServiceDto {
@@ -45,8 +45,11 @@ const orderIncludes = [
 ];
 
 export const shopRepository = {
-  services(centerId: number, includeInactive: boolean): Promise<ShopService[]> {
-    return ShopService.findAll({ where: { centerId, ...(includeInactive ? {} : { active: true }) }, order: [['kind', 'ASC'], ['priceCents', 'ASC'], ['id', 'ASC']] });
+  /** The price list in the shop's order: resurfaces (finest grit first), polish, oil extraction, plug and redrill, drilling. */
+  async services(centerId: number, includeInactive: boolean): Promise<ShopService[]> {
+    const rows = await ShopService.findAll({ where: { centerId, ...(includeInactive ? {} : { active: true }) }, order: [['id', 'ASC']] });
+    const rank = (k: ShopService['kind']) => SERVICE_KINDS.indexOf(k);
+    return rows.sort((a, b) => rank(a.kind) - rank(b.kind) || (b.grit ?? 0) - (a.grit ?? 0) || a.priceCents - b.priceCents || a.id - b.id);
   },
   service(id: number, transaction?: Transaction): Promise<ShopService | null> {
     return ShopService.findByPk(id, { transaction });
