@@ -1,9 +1,9 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { AuditEvent, MailOutbox, OrderEvent, Payment, PaymentEvent } from '../../../server/models/index';
-import { paymentFake, stripeClient } from '../../../server/lib/payments';
+import { paymentFake, setPaymentWebhookTarget, stripeClient } from '../../../server/lib/payments';
 import { api, createUser, errorOf } from '../../helpers/api';
 import { waitForMail } from '../../helpers/mail';
-import { fakeIdle, getOrder, listenForWebhooks, placeOrder, shopWorld, submitCard, waitFor, type TestUser } from './shopHelpers';
+import { fakeIdle, getOrder, listenForWebhooks, placeOrder, postWebhook, shopWorld, signature, submitCard, waitFor, type TestUser } from './shopHelpers';
 
 // The whole flow through the official SDK against the project's fake: checkout session → hosted card
 // page → signed webhook delivered over HTTP to this app listening on loopback → the order is paid.
@@ -163,5 +163,45 @@ describe('refunds through the SDK', () => {
     const order = await placeOrder(bowler, polish.id, ball.id);
     const res = await api.post(`/api/orders/${order.id}/refund`).set(owner.auth);
     expect(res.status).toBe(409);
+  });
+
+  it('two refund clicks at once refund once at the payment service', async () => {
+    const { resurface, owner, bowler, ball } = await shopWorld();
+    const order = await placeOrder(bowler, resurface.id, ball.id);
+    const { url } = await startCheckout(bowler, order.id);
+    await submitCard(url, '4242424242424242');
+    await paid(bowler, order.id);
+    const results = await Promise.all([api.post(`/api/orders/${order.id}/refund`).set(owner.auth), api.post(`/api/orders/${order.id}/refund`).set(owner.auth)]);
+    expect(results.every((r) => r.status === 200 || r.status === 409)).toBe(true);
+    await fakeIdle();
+    const fake = await paymentFake()!;
+    expect(fake.events.filter((e) => e.type === 'refund.created' && (e.data.object as { metadata: { orderId?: string } }).metadata.orderId === String(order.id))).toHaveLength(1);
+    expect(await OrderEvent.count({ where: { orderId: order.id, status: 'refunded' } })).toBe(1);
+    expect(await MailOutbox.count({ where: { ref: `${order.id}:refunded` } })).toBe(1);
+  });
+
+  it('a payment that completes after the bowler cancelled is refunded automatically; the order stays cancelled', async () => {
+    const { polish, bowler, ball } = await shopWorld();
+    const order = await placeOrder(bowler, polish.id, ball.id);
+    const { url, checkoutSessionId } = await startCheckout(bowler, order.id);
+    const fake = await paymentFake()!;
+    // The completion is held back (as if delayed in transit) while the bowler cancels.
+    await setPaymentWebhookTarget(null);
+    const from = fake.events.length;
+    try {
+      await submitCard(url, '4242424242424242');
+      expect((await api.post(`/api/orders/${order.id}/cancel`).set(bowler.auth)).body.item.status).toBe('cancelled');
+    } finally {
+      await setPaymentWebhookTarget(`http://127.0.0.1:${(listener.server.address() as { port: number }).port}/api/payments/webhook`);
+    }
+    const completion = fake.events.slice(from).find((e) => e.type === 'checkout.session.completed')!;
+    const payload = JSON.stringify(completion);
+    expect((await postWebhook(payload, signature(payload))).status).toBe(200);
+    expect(await PaymentEvent.findByPk(completion.id)).toMatchObject({ outcome: 'paid_after_cancel_refunding' });
+    // The refund goes out after commit; its charge.refunded comes back through the listening server.
+    const o = await waitFor(() => getOrder(bowler, order.id), (x) => x.paymentStatus === 'refunded');
+    expect(o).toMatchObject({ status: 'cancelled', paidAt: null });
+    expect(await Payment.findOne({ where: { checkoutSessionId } })).toMatchObject({ status: 'refunded', refundedCents: 2500 });
+    await waitFor(() => AuditEvent.count({ where: { action: 'payment.auto_refunded', subjectId: String(order.id) } }), (n) => n === 1);
   });
 });
