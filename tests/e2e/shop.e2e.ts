@@ -1,6 +1,7 @@
+import path from 'node:path';
 import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
+import { ARTIFACTS_DIR, DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
 
 /**
  * Flow 6 of PRODUCT.md in the browser: the proprietor puts a 4000-grit resurface on Copperline Bowl's price list;
@@ -76,19 +77,24 @@ async function matchupRowOf(page: Page, ballId: number): Promise<MatchupRow> {
   return { surface, prediction };
 }
 
+/** The order dialog's service list has loaded (its select is enabled). */
+async function waitForServices(page: Page): Promise<void> {
+  await page.waitForFunction(() => document.querySelector('.shop-order-dialog [aria-label="Service"]:not([aria-disabled="true"])') !== null);
+}
+
 /** "#12" as the board shows an order, not matching "#123". */
 function orderTag(id: number): RegExp {
   return new RegExp(`#${id}(?!\\d)`);
 }
 
 /** Fills the hosted card page (any future expiry, any CVC) and presses Pay. */
-async function payWithCard(page: Page, card: string): Promise<void> {
+async function payWithCard(page: Page, card: string, price = PRICE_TEXT): Promise<void> {
   await page.getByRole('form', { name: 'Card details' }).waitFor();
   await page.getByLabel('Card number').fill(card);
   await page.getByLabel('Expiry (MM / YY)').fill('12 / 34');
   await page.getByLabel('CVC').fill('123');
   await page.getByLabel('Name on card').fill('Dana Example');
-  await page.getByRole('button', { name: `Pay ${PRICE_TEXT}` }).click();
+  await page.getByRole('button', { name: `Pay ${price}` }).click();
 }
 
 describe('pro shop: order, card payment, shop board, surface update', () => {
@@ -268,7 +274,71 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
     // Either the price list's matching resurface is chosen, or the dialog says the list has none for that grit.
     if (await hint.count()) expect(await hint.innerText()).toContain(`${grit} grit`);
     else expect(serviceText).toContain(`${grit} grit`);
-    await screenshot(page, 'shop-order-from-suggestion-desktop');
+    // The page under it is long (every reason open): a picture of the dialog alone.
+    await page.waitForTimeout(350);
+    await dialog.locator('.el-dialog').screenshot({ path: path.join(ARTIFACTS_DIR, 'shop-order-from-suggestion-desktop.png') });
+  });
+});
+
+describe('pro shop: a card that asks for authentication, a refund, and what another bowler sees', () => {
+  it('dana pays a plug and redrill with the card that asks for authentication; the proprietor refunds it after a confirmation', async () => {
+    const bowler = await open();
+    await signIn(bowler.page, DEMO.dana);
+    await bowler.page.goto('/orders');
+    await bowler.page.getByRole('heading', { level: 1, name: 'My orders' }).waitFor();
+    await bowler.page.getByRole('button', { name: 'Order a service' }).click();
+    const dialog = bowler.page.getByRole('dialog', { name: 'Order a pro-shop service' });
+    await dialog.waitFor();
+    await waitForServices(bowler.page);
+    await choose(bowler.page, dialog, 'Service', /^Plug and redrill/);
+    // Drilling work shows the technician caution instead of the sanding one.
+    await dialog.getByText(/work for a qualified pro-shop technician/).waitFor();
+    expect(await dialog.getByText('Resurfacing and polishing use abrasives and solvents').count()).toBe(0);
+    await choose(bowler.page, dialog, 'Ball', /^Control \(Old Growth\)/);
+    const price = (await dialog.getByTestId('order-price').innerText()).trim();
+    expect(price).toMatch(/^\$\d+\.\d\d$/);
+    await dialog.getByRole('button', { name: `Pay by card ${price}` }).click();
+    await bowler.page.waitForURL(/\/pay\//);
+    await payWithCard(bowler.page, '4000 0025 0000 3155', price);
+    await bowler.page.getByRole('heading', { level: 1, name: 'Confirm this payment' }).waitFor();
+    await bowler.page.getByRole('button', { name: 'Approve' }).click();
+    await bowler.page.waitForURL(/\/orders\/\d+\?checkout=done/);
+    const orderId = Number(/\/orders\/(\d+)/.exec(bowler.page.url())?.[1]);
+    await bowler.page.getByRole('alert').filter({ hasText: 'Payment confirmed' }).waitFor({ timeout: 30000 });
+
+    const owner = await open();
+    await signIn(owner.page, DEMO.proprietor);
+    await owner.page.goto('/center-admin?tab=orders');
+    const row = owner.page.locator('.order-board__table').getByRole('row').filter({ hasText: orderTag(orderId) });
+    await row.waitFor();
+    await owner.page.getByRole('button', { name: `Refund order ${orderId}` }).click();
+    const confirm = owner.page.getByRole('dialog', { name: `Refund order #${orderId}?` });
+    await confirm.waitFor();
+    // Keeping the payment changes nothing.
+    await confirm.getByRole('button', { name: 'Keep the payment' }).click();
+    await confirm.waitFor({ state: 'hidden' });
+    expect(await row.innerText()).toContain('Paid');
+    await owner.page.getByRole('button', { name: `Refund order ${orderId}` }).click();
+    await confirm.getByRole('button', { name: 'Refund', exact: true }).click();
+    await row.getByText('Refunded', { exact: true }).waitFor({ timeout: 20000 });
+    await screenshot(owner.page, 'shop-orders-board-refunded-desktop');
+
+    await owner.page.getByRole('tab', { name: 'Takings' }).click();
+    await owner.page.getByTestId('takings-refunded').filter({ hasText: price }).waitFor();
+
+    await bowler.page.reload();
+    expect(await bowler.page.locator('.app-page-header .order-status-tag').innerText()).toBe('Refunded');
+  });
+
+  it('another bowler has no orders and cannot open dana’s', async () => {
+    expect(flow.orderId).toBeGreaterThan(0);
+    const { page } = await open();
+    await signIn(page, DEMO.lee);
+    await page.goto('/orders');
+    await page.getByText(/^No orders yet\./).waitFor();
+    await page.goto(`/orders/${flow.orderId}`);
+    await page.getByText('This order does not exist or is not yours.').waitFor();
+    expect(await page.getByText(SERVICE_NAME).count()).toBe(0);
   });
 });
 

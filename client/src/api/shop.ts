@@ -81,7 +81,7 @@ export const ORDER_STATUS_LABELS: Readonly<Record<OrderStatus, string>> = {
 
 export const PAYMENT_STATUS_LABELS: Readonly<Record<PaymentStatus, string>> = {
   unpaid: 'Not paid',
-  processing: 'Payment being confirmed',
+  processing: 'Card payment started',
   paid: 'Paid',
   failed: 'Payment failed',
   refunded: 'Refunded',
