@@ -108,4 +108,5 @@ export { statsBy, STATS_KEYS } from './shotlog/statsBy';
 export type { StatsKey } from './shotlog/statsBy';
 export { suggestMoves, MOVE_THRESHOLDS } from './shotlog/suggestMoves';
 export { spareAdjustment, THREE_SIX_NINE } from './shotlog/spareAdjustment';
+export { fitCalibration, CALIBRATION } from './shotlog/fitCalibration';
 // ── end shot log ───────────────────────────────────────────────────────────────────────────────

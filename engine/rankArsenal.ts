@@ -22,7 +22,9 @@ import { MOTION_LAYER_WEIGHT, motionLayer, type RankedBallWithPrediction } from 
  * Source: the rules of thumb in engine/rules/ (README.md table), each naming its source.
  *
  * @param input `balls` (each a BallSpec with a unique non-empty `id`), `bowler`, `pattern`,
- *   `gamesBowled` (games already bowled on the pattern, default 0).
+ *   `gamesBowled` (games already bowled on the pattern, default 0), `calibration` (fitCalibration's
+ *   answer, optional: when `calibration.enough`, every ball whose own fit is `enough` is simulated with
+ *   its fitted frictionScale, and its entry carries that `frictionScale`).
  * @returns one RankedBall per ball: `id`, `score` 0–100, `reasons` (rule, effect, text, source —
  *   the rules layer's, then the motion layer's 'motion-…' reasons), `suggestions` (surface, layout,
  *   release, line), `layers` (each layer's own score and weight), `prediction` (ShotPrediction on the
@@ -44,6 +46,7 @@ export function rankArsenal(input: RankArsenalInput): RankedBallWithPrediction[]
     ids.add(id);
   });
   const ctx = matchupContext(input.bowler, input.pattern, input.gamesBowled ?? 0, fn);
+  const scales = calibrationScales(fn, inp.calibration);
 
   const scorers = SCORING_LAYERS.map((layer) => ({ layer, score: layer.prepare(ctx) }));
   // ── ball-motion layer (issue 4): one oil map per ranking (after ctx.gamesBowled), one pocket line,
@@ -52,7 +55,8 @@ export function rankArsenal(input: RankArsenalInput): RankedBallWithPrediction[]
 
   const ranked = (balls as ArsenalBall[]).map((ball) => {
     const layers = scorers.map(({ layer, score }) => ({ name: layer.name, weight: layer.weight, result: score(ball) }));
-    const verdict = motionLayer(ball, ctx.bowler, ctx.pattern, motionMap);
+    const scale = scales.get(ball.id);
+    const verdict = motionLayer(ball, ctx.bowler, ctx.pattern, motionMap, ctx.gamesBowled, scale ?? 1);
     layers.push({ name: 'motion', weight: MOTION_LAYER_WEIGHT, result: verdict.result });
     const { score, reasons, suggestions } = combineLayers(layers);
     const entry: RankedBallWithPrediction = {
@@ -63,6 +67,7 @@ export function rankArsenal(input: RankArsenalInput): RankedBallWithPrediction[]
       layers: layers.map((l) => ({ name: l.name, weight: l.weight, score: l.result.score })),
       prediction: verdict.prediction,
       missRoom: verdict.missRoom,
+      ...(scale !== undefined ? { frictionScale: scale } : {}),
     };
     return { ball, entry };
   });
@@ -73,4 +78,28 @@ export function rankArsenal(input: RankArsenalInput): RankedBallWithPrediction[]
     return pa - pb || b.entry.score - a.entry.score || (a.ball.id < b.ball.id ? -1 : a.ball.id > b.ball.id ? 1 : 0);
   });
   return ranked.map((r) => r.entry);
+}
+
+/**
+ * The friction multipliers a calibration applies, by ball id: only when `calibration.enough`, and only
+ * for balls whose own fit is `enough` (n ≥ minShots). Checks the calibration's shape (TypeError/RangeError
+ * naming `fn`). Internal to rankArsenal.
+ */
+function calibrationScales(fn: string, calibration: unknown): Map<string, number> {
+  const out = new Map<string, number>();
+  if (calibration === undefined || calibration === null) return out;
+  const c = record(fn, 'calibration', calibration);
+  if (typeof c.enough !== 'boolean') throw new TypeError(`${fn}: calibration.enough must be true or false, got ${String(c.enough)}`);
+  const perBall = list(fn, 'calibration.perBall', c.perBall);
+  if (!c.enough) return out;
+  perBall.forEach((p, i) => {
+    const b = record(fn, `calibration.perBall[${i}]`, p);
+    if (typeof b.ballId !== 'string') throw new TypeError(`${fn}: calibration.perBall[${i}].ballId must be a string, got ${String(b.ballId)}`);
+    const scale = b.frictionScale;
+    if (typeof scale !== 'number' || !Number.isFinite(scale)) throw new TypeError(`${fn}: calibration.perBall[${i}].frictionScale must be a finite number, got ${String(scale)}`);
+    if (scale < 0.1 || scale > 10) throw new RangeError(`${fn}: calibration.perBall[${i}].frictionScale must be in [0.1, 10], got ${scale}`);
+    const enough = b.enough === undefined ? (typeof b.n === 'number' && typeof c.minShots === 'number' && b.n >= c.minShots) : b.enough === true;
+    if (enough) out.set(b.ballId, scale);
+  });
+  return out;
 }

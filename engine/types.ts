@@ -179,6 +179,11 @@ export interface RankArsenalInput {
   pattern: OilPattern;
   /** Games already bowled on the pattern (pattern breakdown); default 0. */
   gamesBowled?: number;
+  /**
+   * The bowler's calibration (fitCalibration, issue 7): when `enough`, each ball with its own
+   * `enough` fit is simulated with its fitted `frictionScale` in the ball-motion layer.
+   */
+  calibration?: import('./shotlog/types').Calibration;
 }
 
 /** One layer's opinion of a ball: a 0–100 score with its reasons and suggestions. */

@@ -17,7 +17,12 @@ export interface MotionVerdict {
 }
 
 /** A ranked ball of rankArsenal with the ball-motion model's prediction and miss room (issue 4). */
-export type RankedBallWithPrediction = RankedBall & { prediction: ShotPrediction; missRoom: MissRoom };
+export type RankedBallWithPrediction = RankedBall & {
+  prediction: ShotPrediction;
+  missRoom: MissRoom;
+  /** The calibrated friction multiplier the motion layer used (issue 7); absent when uncalibrated. */
+  frictionScale?: number;
+};
 
 /** Weight of the motion layer in rankArsenal's combined score (the rules layer has 1; Lanewright's choice). */
 export const MOTION_LAYER_WEIGHT = 1;
@@ -46,11 +51,12 @@ export const MOTION_LAYER_POINTS = Object.freeze({
  *
  * Suggestions: a 'line' suggestion with the solved laydown and target (not for plastic spare balls).
  * Units: degrees, boards. Edge cases: a ball that cannot reach the pocket keeps its closest line; its
- * miss room is 0 and it gets no line suggestion. Example: `motionLayer(ball, bowler, pattern, conditionOilMap(pattern, bowler, 0))`.
+ * miss room is 0 and it gets no line suggestion. `frictionScale` (default 1) is the calibration multiplier of
+ * the ball's friction coefficients (prepareShot; fitted by fitCalibration). Example: `motionLayer(ball, bowler, pattern, conditionOilMap(pattern, bowler, 0))`.
  */
-export function motionLayer(ball: BallSpec, bowler: BowlerProfile, pattern: OilPattern, oilMap?: LaneOilMap, gamesBowled = 0): MotionVerdict {
+export function motionLayer(ball: BallSpec, bowler: BowlerProfile, pattern: OilPattern, oilMap?: LaneOilMap, gamesBowled = 0, frictionScale = 1): MotionVerdict {
   const map = oilMap ?? conditionOilMap(pattern, bowler, gamesBowled);
-  const shot = prepareShot({ ball, bowler, pattern }, map);
+  const shot = prepareShot({ ball, bowler, pattern, frictionScale }, map);
   const line = solvePocketLine(shot.run, {});
   const prediction = toShotPrediction(line.result, line.laydownBoard, line.targetBoard);
   const room = line.reached ? missRoom(shot.run, line.laydownBoard, line.targetBoard, line.result) : { outsideBoards: 0, insideBoards: 0, totalBoards: 0 };

@@ -21,14 +21,16 @@ export interface PreparedShot {
 /**
  * Validates a shot's inputs once and builds what every delivery of that ball on that lane shares:
  * inertia (ballInertia), the friction field (uniform `frictionOverride`, or the oil map after
- * `gamesBowled` — conditionOilMap — read through the ball's cover, oilFrictionField).
+ * `gamesBowled` — conditionOilMap — read through the ball's cover, oilFrictionField). `frictionScale`
+ * (default 1, in [0.1, 10]) multiplies the friction coefficients — the cover's μ_oil and μ_dry, or
+ * `frictionOverride` — and is how a calibration from logged shots enters the model (fitCalibration).
  *
  * Units: as simulateShot. Edge cases: `oilMap` (already conditioned) skips building the map, so a
  * ranking shares one map among its balls; TypeError/RangeError name the function that rejected the value.
  * Example: `prepareShot({ ball, bowler, pattern }).run(20, 12).entryBoard`.
  */
 export function prepareShot(
-  input: { ball: BallSpec; bowler: BowlerProfile; pattern: OilPattern; gamesBowled?: number; frictionOverride?: number },
+  input: { ball: BallSpec; bowler: BowlerProfile; pattern: OilPattern; gamesBowled?: number; frictionOverride?: number; frictionScale?: number },
   oilMap?: LaneOilMap,
 ): PreparedShot {
   const fn = 'prepareShot';
@@ -37,11 +39,13 @@ export function prepareShot(
   if (bowler === null || typeof bowler !== 'object') throw new TypeError(`${fn}: bowler must be an object, got ${String(bowler)}`);
   const hand = handSign(bowler.hand);
   const inertia = ballInertia(ball);
-  const cover = coverFriction(ball);
+  const scale = input.frictionScale === undefined ? 1 : assertNumber(fn, 'frictionScale', input.frictionScale, 0.1, 10);
+  const base = coverFriction(ball);
+  const cover = scale === 1 ? base : { ...base, muOil: base.muOil * scale, muDry: base.muDry * scale };
   releaseState(ball, bowler, 20, 20); // validates the release once
   let field: FrictionField;
   if (input.frictionOverride !== undefined) {
-    field = uniformFrictionField(assertNumber(fn, 'frictionOverride', input.frictionOverride, 0, 1));
+    field = uniformFrictionField(assertNumber(fn, 'frictionOverride × frictionScale', assertNumber(fn, 'frictionOverride', input.frictionOverride, 0, 1) * scale, 0, 1));
   } else {
     if (input.pattern === null || typeof input.pattern !== 'object') throw new TypeError(`${fn}: pattern must be an object, got ${String(input.pattern)}`);
     field = oilFrictionField(oilMap ?? conditionOilMap(input.pattern, bowler, input.gamesBowled ?? 0), cover);

@@ -13,6 +13,11 @@ export interface SimulateShotInput {
   gamesBowled?: number;
   /** One uniform friction coefficient everywhere: for tests and calibration (no oil map). */
   frictionOverride?: number;
+  /**
+   * Calibration multiplier of the friction coefficients (μ_oil and μ_dry of the cover, or
+   * `frictionOverride`), default 1; in [0.1, 10]. Fitted per ball from logged shots by fitCalibration.
+   */
+  frictionScale?: number;
 }
 
 /** What the ball-motion model predicts for one delivery (issue 4 public API). Boards from the hand-side gutter. */
