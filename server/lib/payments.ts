@@ -1,3 +1,4 @@
+import path from 'node:path';
 import Stripe from 'stripe';
 import { config } from '../config/index';
 import { startStripeFake, type StripeFake } from '../dev/stripeFake/index';
@@ -30,7 +31,9 @@ function urlOptions(url: string): Pick<Stripe.StripeConfig, 'host' | 'port' | 'p
 /** Starts the in-process fake once (no-op with a configured key). */
 export function paymentFake(): Promise<StripeFake> | null {
   if (!usingPaymentFake) return null;
-  fake ??= startStripeFake({ port: config.STRIPE_FAKE_PORT, webhookSecret: FAKE_WEBHOOK_SECRET, webhookUrl: webhookTarget }).then((f) => {
+  // In development its state survives restarts (a payment made before `tsx watch` reloaded can still be refunded).
+  const stateFile = config.NODE_ENV === 'development' ? path.resolve('.data', 'payment-fake.json') : undefined;
+  fake ??= startStripeFake({ port: config.STRIPE_FAKE_PORT, webhookSecret: FAKE_WEBHOOK_SECRET, webhookUrl: webhookTarget, stateFile }).then((f) => {
     logger.info({ url: f.url }, 'local payment fake listening');
     return f;
   });

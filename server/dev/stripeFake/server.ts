@@ -1,4 +1,6 @@
 import crypto from 'node:crypto';
+import fs from 'node:fs';
+import nodePath from 'node:path';
 import http, { type IncomingMessage, type ServerResponse } from 'node:http';
 import type { AddressInfo } from 'node:net';
 import { parseForm, str, strMap, type FormValue } from './form';
@@ -50,6 +52,8 @@ export interface StripeFakeOptions {
   retryDelaysMs?: number[];
   /** Max wait for the first delivery of a completion before the browser is redirected (ms). */
   redirectWaitMs?: number;
+  /** Keeps sessions, payments and refunds in this JSON file across restarts (development). */
+  stateFile?: string;
 }
 
 export interface StripeFake {
@@ -134,6 +138,26 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
   const intents = new Map<string, Obj>();
   const charges = new Map<string, Obj>();
   const refunds = new Map<string, Obj>();
+  const sessionExtras = new Map<string, { productName: string; intentMetadata: Record<string, string>; description: string | null }>();
+  const stores = { sessions, intents, charges, refunds, sessionExtras } as const;
+
+  function loadState(): void {
+    if (!opts.stateFile || !fs.existsSync(opts.stateFile)) return;
+    try {
+      const saved = JSON.parse(fs.readFileSync(opts.stateFile, 'utf8')) as Record<keyof typeof stores, [string, never][]>;
+      for (const [name, map] of Object.entries(stores)) for (const [k, v] of saved[name as keyof typeof stores] ?? []) (map as Map<string, unknown>).set(k, v);
+    } catch {
+      // An unreadable state file starts the fake empty.
+    }
+  }
+  function saveState(): void {
+    if (!opts.stateFile) return;
+    const out = Object.fromEntries(Object.entries(stores).map(([name, map]) => [name, [...(map as Map<string, unknown>).entries()]]));
+    fs.mkdirSync(nodePath.dirname(opts.stateFile), { recursive: true });
+    fs.writeFileSync(`${opts.stateFile}.tmp`, JSON.stringify(out));
+    fs.renameSync(`${opts.stateFile}.tmp`, opts.stateFile);
+  }
+  loadState();
   const idempotent = new Map<string, { status: number; body: string }>();
   const events: FakeEvent[] = [];
   const deliveries: FakeDelivery[] = [];
@@ -275,7 +299,6 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
     sessionExtras.set(id, { productName: names.join(', '), intentMetadata: strMap(pid.metadata), description: str(pid.description) ?? null });
     return s;
   }
-  const sessionExtras = new Map<string, { productName: string; intentMetadata: Record<string, string>; description: string | null }>();
 
   function expireSession(id: string): Obj {
     const s = sessionOr404(id);
@@ -495,6 +518,7 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
   const server = http.createServer((req, res) => {
     const path = (req.url ?? '/').split('?')[0];
     const handle = path.startsWith('/v1/') ? api(req, res, path) : path.startsWith('/pay/') ? pay(req, res, path) : Promise.resolve(html(res, 404, closedPage('missing', null)));
+    if (opts.stateFile && req.method === 'POST') void handle.finally(() => saveState()).catch(() => undefined);
     handle.catch((err: unknown) => {
       if (res.headersSent) return res.end();
       const e = err instanceof ApiError ? err : new ApiError(500, { type: 'api_error', message: 'An unexpected error occurred in the local payment service.' });
@@ -509,6 +533,8 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
   });
   const port = (server.address() as AddressInfo).port;
   base = `http://${host}:${port}`;
+  // Open sessions kept from an earlier run are paid at this run's address.
+  for (const s of sessions.values()) if (s.status === 'open') s.url = `${base}/pay/${String(s.id)}`;
 
   return {
     url: base,

@@ -1,4 +1,7 @@
+import fs from 'node:fs';
 import http from 'node:http';
+import os from 'node:os';
+import path from 'node:path';
 import type { AddressInfo } from 'node:net';
 import Stripe from 'stripe';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -121,5 +124,25 @@ describe('the payment fake through the SDK', () => {
     expect((await submitCard(s.url!, '4242424242424242', { exp: '01 / 20' })).html).toContain('in the past');
     expect((await submitCard(s.url!, '4242424242424242', { cvc: '1' })).html).toContain('security code');
     expect((await stripe.checkout.sessions.retrieve(s.id)).status).toBe('open');
+  });
+
+  it('with a state file, a payment made before a restart can be refunded after it', async () => {
+    const stateFile = path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'lw-fake-')), 'state.json');
+    const first = await startStripeFake({ webhookSecret: SECRET, stateFile });
+    const sdk1 = new Stripe('sk_test_restart', { host: first.host, port: first.port, protocol: 'http', maxNetworkRetries: 0 });
+    const s = await sdk1.checkout.sessions.create({ mode: 'payment', line_items: [{ quantity: 1, price_data: { currency: 'usd', unit_amount: 3000, product_data: { name: 'Oil extraction' } } }], success_url: 'http://x.test/ok' });
+    const open = await sdk1.checkout.sessions.create({ mode: 'payment', line_items: [{ quantity: 1, price_data: { currency: 'usd', unit_amount: 3000, product_data: { name: 'Oil extraction' } } }], success_url: 'http://x.test/ok' });
+    await submitCard(s.url!, '4242424242424242');
+    await first.close();
+    const second = await startStripeFake({ webhookSecret: SECRET, stateFile });
+    try {
+      const sdk2 = new Stripe('sk_test_restart', { host: second.host, port: second.port, protocol: 'http', maxNetworkRetries: 0 });
+      const pi = (await sdk2.checkout.sessions.retrieve(s.id)).payment_intent as string;
+      expect(await sdk2.refunds.create({ payment_intent: pi })).toMatchObject({ status: 'succeeded', amount: 3000 });
+      expect((await sdk2.checkout.sessions.retrieve(open.id)).url).toBe(`${second.url}/pay/${open.id}`);
+    } finally {
+      await second.close();
+      fs.rmSync(path.dirname(stateFile), { recursive: true, force: true });
+    }
   });
 });
