@@ -1,8 +1,9 @@
+import path from 'node:path';
 import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, Page, Route } from 'playwright-core';
 // The engine is the reference for scores (pure code, no I/O): the sheet's total must equal scoreGame of the same rolls.
 import { scoreGame } from '../../engine/index';
-import { DEMO, DEMO_PASSWORD, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session } from './browser';
+import { ARTIFACTS_DIR, DEMO, DEMO_PASSWORD, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session } from './browser';
 
 const baseUrl = inject('baseUrl');
 let browser: Browser;
@@ -186,8 +187,12 @@ describe('sessions: shot entry on a phone', () => {
     expect(await hasHorizontalScroll(page)).toBe(false);
     await screenshot(page, 'session-entry-mobile');
 
-    // Frames 1–5 online.
-    for (let i = 0; i <= 7; i++) await log(page, i);
+    // Frames 1–5 online. At the 7-10 the 3-6-9 spare move for the leave is suggested.
+    for (let i = 0; i <= 1; i++) await log(page, i);
+    const spareMove = page.locator('[data-spare-move]');
+    await spareMove.getByRole('heading', { name: 'For the 7-10 now' }).waitFor();
+    await spareMove.getByText(/^Feet on board \d+/).waitFor();
+    for (let i = 2; i <= 7; i++) await log(page, i);
     await syncStatus(page).filter({ hasText: 'All shots saved.' }).waitFor();
     const split = page.getByRole('listitem', { name: /^Frame 2: 8, split 7-10, 1; total/ });
     await split.waitFor();
@@ -250,6 +255,12 @@ describe('sessions: shot entry on a phone', () => {
     }
     await sheet.getByRole('listitem', { name: /^Frame 10: strike, strike, 9; total/ }).waitFor();
     expect(await sheet.locator('.is-tenth .frame-sheet__box').count()).toBe(3);
+    // Every box of the sheet stays inside its frame on the phone.
+    const overflow = await sheet.locator('.frame-sheet__frame').evaluateAll((frames) =>
+      frames.some((f) => [...f.querySelectorAll('.frame-sheet__box')].some((b) => b.getBoundingClientRect().right > f.getBoundingClientRect().right + 0.5)),
+    );
+    expect(overflow).toBe(false);
+    await sheet.screenshot({ path: path.join(ARTIFACTS_DIR, 'session-sheet-mobile.png') });
 
     // Stats of the session.
     const stats = page.getByRole('region', { name: 'This session' });
@@ -270,6 +281,22 @@ describe('sessions: shot entry on a phone', () => {
     expect(byOrder[0].breakpointBoard).toBe(8);
     expect(byOrder[0].hit).toBe('pocket');
     expect(await page.evaluate((id) => window.localStorage.getItem(`lanewright.shotQueue.${id}`), sessionId)).toBeNull();
+
+    // Game 2: a foul on the first ball scores F; undo takes the stored shot back after asking.
+    await page.getByRole('button', { name: 'Foul', exact: true }).click();
+    await deck(page).getByRole('button', { name: 'Pin 3', exact: true }).click();
+    await page.getByRole('button', { name: 'Record the foul' }).click();
+    await entryHeading(page).filter({ hasText: /^Game 2 · frame 1, ball 2$/ }).waitFor();
+    await page.getByRole('region', { name: 'Game 2 frame sheet' }).getByRole('listitem', { name: /^Frame 1: foul; total/ }).waitFor();
+    await syncStatus(page).filter({ hasText: 'All shots saved.' }).waitFor();
+    await page.getByRole('button', { name: 'Undo last shot' }).click();
+    await page.getByRole('dialog', { name: 'Undo the last shot?' }).getByRole('button', { name: 'Undo it' }).click();
+    await entryHeading(page).filter({ hasText: /^Game 2 · frame 1, ball 1$/ }).waitFor();
+    expect((await storedSession(await tokenOf(page), sessionId)).shots).toHaveLength(GAME.length);
+
+    // Home shows it as the last session.
+    await page.goto('/');
+    await page.getByRole('region', { name: 'Last session' }).getByRole('link', { name: /^\d{4}-\d{2}-\d{2} · Practice$/ }).waitFor();
 
     // The Stats screen shows the new numbers.
     await page.goto('/stats');

@@ -69,6 +69,8 @@ export const sessionsApi = {
   update: (id: number, body: SessionPatch) => api.patch<{ item: Session }>(`/sessions/${id}`, body),
   /** Soft delete (owner only). */
   remove: (id: number) => api.delete<null>(`/sessions/${id}`),
+  /** Undo a delete. */
+  restore: (id: number) => api.post<{ item: Session }>(`/sessions/${id}/restore`),
   /**
    * One shot. The same key again answers 200 with the first answer and stores nothing new, so a
    * retry after a lost answer is harmless.
