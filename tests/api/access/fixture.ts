@@ -1,7 +1,8 @@
 import crypto from 'node:crypto';
 import { api, createUser } from '../../helpers/api';
 import { createBall, createCenter, createModel, createPattern } from '../../helpers/fixtures';
-import { Condition, Follow } from '../../../server/models/index';
+import { Condition, Follow, ShopService } from '../../../server/models/index';
+import { event, getOrder, listenForWebhooks, payByWebhook, signature, submitCard, waitFor } from '../shop/shopHelpers';
 import type { Ball, Center, Pattern, User } from '../../../server/models/index';
 
 /** The columns of the access matrix, in table order. */
@@ -31,6 +32,11 @@ export interface Fixture {
   otherCenter: Center;
   condition: Condition;
   coachLinked: boolean;
+  /** owner's practice session with one shot; the center's price list (a resurface). */
+  sessionId: number;
+  serviceId: number;
+  /** An order of owner at center (unpaid). */
+  orderId: number;
   /** Headers for one actor (none for anonymous). */
   as(actor: Actor): Record<string, string>;
   /** Fresh records for routes that consume them (delete, restore, import, …). */
@@ -39,6 +45,18 @@ export interface Fixture {
   freshModelId(): Promise<{ id: number; version: number }>;
   freshUserId(): Promise<number>;
   freshUnsubscribeToken(): Promise<string>;
+  freshSession(opts?: { deleted?: boolean; withShot?: boolean }): Promise<{ id: number; shotId: number | null }>;
+  /** A new coaching link of a new coach to owner: pending, or accepted by owner. */
+  freshLink(accepted: boolean): Promise<number>;
+  freshServiceId(): Promise<{ id: number; version: number }>;
+  /** A new order of owner at center, unpaid or paid (through a signed webhook, as the payment service would). */
+  freshOrderId(paid?: false | 'webhook' | 'card'): Promise<number>;
+  /** Stops the loopback listener the payment fake delivers webhooks to. */
+  close(): Promise<void>;
+  /** A ball of the given actor (for routes that need one of the caller's balls). */
+  ballOf(actor: Actor): Promise<number>;
+  /** A validly signed webhook event of a type the server ignores. */
+  signedEvent(): { payload: string; header: string };
 }
 
 /** A 1×1 PNG (valid signature and chunks). */
@@ -79,7 +97,69 @@ export async function buildFixture(): Promise<Fixture> {
     linked = true;
   }
 
+  const newSession = async (withShot: boolean) => {
+    const r = await api.post('/api/sessions').set(owner.auth).send({ date: today, kind: 'practice', centerId: center.id, patternId: pattern.id });
+    if (r.status !== 201) throw new Error(`fixture: session answered ${r.status} ${JSON.stringify(r.body)}`);
+    let shotId: number | null = null;
+    if (withShot) {
+      const s = await api.post(`/api/sessions/${r.body.item.id}/shots`).set(owner.auth).set('Idempotency-Key', `fixture-${crypto.randomUUID()}`).send({ gameNumber: 1, frame: 1, delivery: 1, ballId: ball.id, standing: [7] });
+      if (s.status !== 201) throw new Error(`fixture: shot answered ${s.status} ${JSON.stringify(s.body)}`);
+      shotId = s.body.item.id as number;
+    }
+    return { id: r.body.item.id as number, shotId };
+  };
+  const session = await newSession(true);
+  const listener = await listenForWebhooks(); // the payment fake's card page delivers its webhook here
+  const service = await ShopService.create({ centerId: center.id, kind: 'resurface', name: 'Resurface to 4000 grit', grit: 4000, description: null, priceCents: 4500, currency: 'usd' });
+  const newOrder = async () => {
+    const r = await api.post('/api/orders').set(owner.auth).send({ serviceId: service.id, ballId: ball.id });
+    if (r.status !== 201) throw new Error(`fixture: order answered ${r.status} ${JSON.stringify(r.body)}`);
+    return r.body.item;
+  };
+  const order = await newOrder();
+  const balls = new Map<Actor, number>([['owner', ball.id], ['otherBowler', otherBall.id]]);
+
   return {
+    sessionId: session.id,
+    serviceId: service.id,
+    orderId: order.id as number,
+    async freshSession(opts = {}) {
+      const s = await newSession(Boolean(opts.withShot));
+      if (opts.deleted) await api.delete(`/api/sessions/${s.id}`).set(owner.auth).expect(204);
+      return s;
+    },
+    async freshLink(accepted) {
+      const coach = await createUser('coach');
+      const inv = await api.post('/api/coach/invitations').set(coach.auth).send({ email: owner.user.email });
+      if (inv.status !== 201) throw new Error(`fixture: invitation answered ${inv.status} ${JSON.stringify(inv.body)}`);
+      if (accepted) await api.post(`/api/coach/links/${inv.body.item.id}/accept`).set(owner.auth).expect(200);
+      return inv.body.item.id as number;
+    },
+    async freshServiceId() {
+      const sv = await ShopService.create({ centerId: center.id, kind: 'polish', name: `Polish ${crypto.randomUUID().slice(0, 8)}`, grit: null, description: null, priceCents: 2500, currency: 'usd' });
+      return { id: sv.id, version: sv.version };
+    },
+    async freshOrderId(paid = false) {
+      const o = await newOrder();
+      if (paid === 'webhook') await payByWebhook(o);
+      if (paid === 'card') {
+        const co = await api.post(`/api/orders/${o.id}/checkout`).set(owner.auth);
+        if (co.status !== 200) throw new Error(`fixture: checkout answered ${co.status} ${JSON.stringify(co.body)}`);
+        await submitCard(co.body.url as string, '4242424242424242');
+        await waitFor(() => getOrder(owner, o.id as number), (x) => x.status === 'paid');
+      }
+      return o.id as number;
+    },
+    close: () => listener.close(),
+    async ballOf(actor) {
+      if (actor === 'anonymous') return ball.id;
+      if (!balls.has(actor)) balls.set(actor, (await createBall(people[actor].user.id)).id);
+      return balls.get(actor)!;
+    },
+    signedEvent() {
+      const ev = event('customer.created', { id: `cus_test_${crypto.randomBytes(8).toString('hex')}`, object: 'customer' });
+      return { payload: ev.payload, header: signature(ev.payload) };
+    },
     people,
     ball,
     otherBall,

@@ -1,4 +1,4 @@
-import { beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROUTES } from '../../../server/features/docs/openapi';
 import { api, app } from '../../helpers/api';
 import { buildFixture, ROLES, type Actor, type Fixture } from './fixture';
@@ -11,6 +11,7 @@ let f: Fixture;
 beforeAll(async () => {
   f = await buildFixture();
 }, 60000);
+afterAll(async () => f?.close());
 
 async function send(route: RouteKey, r: CellRequest, actor: Actor) {
   const m = route.method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete';

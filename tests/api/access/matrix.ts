@@ -29,6 +29,8 @@ const adminOnly = (s: number): Row => [401, 403, 403, 403, 403, 403, 403, s];
 /** Coaches, proprietors and admins (pattern editors). */
 const editors = (s: number): Row => [401, 403, 403, s, s, s, s, s];
 /** A record of proprietorThis that other editors may read but not change (403: it is public, so nothing leaks). */
+/** The owner's session: a linked coach reads it (so refusing a change is 403, nothing leaks); everyone else 404. */
+const ownerWritesCoachReads = (f: Fixture, s: number): Row => [401, s, 404, f.coachLinked ? 403 : 404, 404, 404, 404, 404];
 const ownerOrAdminOfPattern = (s: number): Row => [401, 403, 403, 403, 403, s, 403, s];
 
 const today = () => new Date().toISOString().slice(0, 10);
@@ -136,6 +138,56 @@ export const MATRIX: Record<string, MatrixEntry> = {
   'GET /api/follows': { req: () => ({ url: '/api/follows' }), expect: signedIn(200) },
   'GET /api/unsubscribe': { req: async (f) => ({ url: `/api/unsubscribe?token=${await f.freshUnsubscribeToken()}` }), expect: all(200), note: 'the token in the e-mail is the credential' },
   'POST /api/unsubscribe': { req: async (f) => ({ url: '/api/unsubscribe', body: { token: await f.freshUnsubscribeToken() } }), expect: all(200), note: 'the token in the e-mail is the credential' },
+
+  // ── sessions, shots, stats (owner's records; a linked coach reads them) ────────────────────
+  'GET /api/sessions': { req: () => ({ url: '/api/sessions' }), expect: signedIn(200), note: 'everyone lists their own' },
+  'POST /api/sessions': { req: () => ({ url: '/api/sessions', body: { date: today(), kind: 'practice' } }), expect: signedIn(201) },
+  'GET /api/sessions/:id': { req: (f) => ({ url: `/api/sessions/${f.sessionId}` }), expect: (f) => [401, 200, 404, f.coachLinked ? 200 : 404, 404, 404, 404, 404], note: 'the owner and a linked coach' },
+  'PATCH /api/sessions/:id': { req: async (f) => ({ url: `/api/sessions/${(await f.freshSession()).id}`, body: { notes: 'matrix' } }), expect: (f) => ownerWritesCoachReads(f, 200) },
+  'DELETE /api/sessions/:id': { req: async (f) => ({ url: `/api/sessions/${(await f.freshSession()).id}` }), expect: (f) => ownerWritesCoachReads(f, 204) },
+  'POST /api/sessions/:id/restore': { req: async (f) => ({ url: `/api/sessions/${(await f.freshSession({ deleted: true })).id}/restore` }), expect: ownOnly(200) },
+  'POST /api/sessions/:id/shots': {
+    req: async (f) => ({ url: `/api/sessions/${(await f.freshSession()).id}/shots`, headers: { 'Idempotency-Key': `matrix-${uniq()}` }, body: { gameNumber: 1, frame: 1, delivery: 1, ballId: f.ball.id, standing: [] } }),
+    expect: (f) => ownerWritesCoachReads(f, 201),
+    note: 'only the bowler logs their shots (a coach annotates)',
+  },
+  'DELETE /api/sessions/:id/shots/:shotId': { req: async (f) => { const s = await f.freshSession({ withShot: true }); return { url: `/api/sessions/${s.id}/shots/${s.shotId}` }; }, expect: (f) => ownerWritesCoachReads(f, 204) },
+  'POST /api/sessions/:id/annotations': { req: (f) => ({ url: `/api/sessions/${f.sessionId}/annotations`, body: { text: 'Matrix note', gameNumber: 1, frame: 1 } }), expect: (f) => [401, 201, 404, f.coachLinked ? 201 : 404, 404, 404, 404, 404] },
+  'GET /api/stats': { req: () => ({ url: '/api/stats' }), expect: signedIn(200) },
+  'GET /api/calibration': { req: (f) => ({ url: `/api/calibration?patternId=${f.pattern.id}` }), expect: signedIn(200) },
+
+  // ── coaching ───────────────────────────────────────────────────────────────────────────────
+  'POST /api/coach/invitations': { req: () => ({ url: '/api/coach/invitations', body: { email: `student-${uniq()}@example.test` } }), expect: [401, 403, 403, 201, 201, 403, 403, 403] },
+  'GET /api/coach/links': { req: () => ({ url: '/api/coach/links' }), expect: signedIn(200) },
+  'POST /api/coach/links/:id/accept': { req: async (f) => ({ url: `/api/coach/links/${await f.freshLink(false)}/accept` }), expect: ownOnly(200), note: 'only the invited student accepts' },
+  'DELETE /api/coach/links/:id': { req: async (f) => ({ url: `/api/coach/links/${await f.freshLink(true)}` }), expect: ownOnly(204), note: 'either side of the link (here the student; the coach side is a new coach outside the columns)' },
+  'GET /api/coach/students': { req: () => ({ url: '/api/coach/students' }), expect: [401, 403, 403, 200, 200, 403, 403, 403] },
+  'GET /api/coach/students/:studentId': { req: (f) => ({ url: `/api/coach/students/${f.people.owner.user.id}` }), expect: (f) => [401, 404, 404, f.coachLinked ? 200 : 404, 404, 404, 404, 404] },
+  'GET /api/coach/students/:studentId/plans': { req: (f) => ({ url: `/api/coach/students/${f.people.owner.user.id}/plans` }), expect: (f) => [401, 404, 404, f.coachLinked ? 200 : 404, 404, 404, 404, 404] },
+  'POST /api/coach/students/:studentId/plans': {
+    req: (f) => ({ url: `/api/coach/students/${f.people.owner.user.id}/plans`, body: { title: 'Matrix plan', kind: 'line', body: 'Move two left with the feet.' } }),
+    expect: (f) => [401, 404, 404, f.coachLinked ? 201 : 404, 404, 404, 404, 404],
+  },
+  'GET /api/plans': { req: () => ({ url: '/api/plans' }), expect: signedIn(200) },
+
+  // ── pro shop (center = proprietorThis's; orders = owner's) ─────────────────────────────────
+  'GET /api/centers/:id/services': { req: (f) => ({ url: `/api/centers/${f.center.id}/services` }), expect: signedIn(200) },
+  'POST /api/centers/:id/services': { req: (f) => ({ url: `/api/centers/${f.center.id}/services`, body: { kind: 'drill', name: `Drill ${uniq()}`, priceCents: 6000 } }), expect: [401, 403, 403, 403, 403, 201, 403, 403] },
+  'PATCH /api/centers/:id/services/:serviceId': { req: async (f) => { const s = await f.freshServiceId(); return { url: `/api/centers/${f.center.id}/services/${s.id}`, body: { version: s.version, priceCents: 2600 } }; }, expect: [401, 403, 403, 403, 403, 200, 403, 403] },
+  'GET /api/centers/:id/orders': { req: (f) => ({ url: `/api/centers/${f.center.id}/orders` }), expect: [401, 403, 403, 403, 403, 200, 403, 403] },
+  'GET /api/centers/:id/takings': { req: (f) => ({ url: `/api/centers/${f.center.id}/takings` }), expect: [401, 403, 403, 403, 403, 200, 403, 403] },
+  'POST /api/orders': { req: async (f, actor) => ({ url: '/api/orders', body: { serviceId: f.serviceId, ballId: await f.ballOf(actor) } }), expect: signedIn(201), note: 'each caller orders for a ball of their own' },
+  'GET /api/orders': { req: () => ({ url: '/api/orders' }), expect: signedIn(200) },
+  'GET /api/orders/:id': { req: (f) => ({ url: `/api/orders/${f.orderId}` }), expect: [401, 200, 404, 404, 404, 200, 404, 404], note: 'the bowler, and the proprietor of the order’s center' },
+  'POST /api/orders/:id/checkout': { req: async (f) => ({ url: `/api/orders/${await f.freshOrderId()}/checkout` }), expect: [401, 200, 404, 404, 404, 403, 404, 404], note: 'the center’s proprietor sees the order (403, nothing leaks) but only the bowler pays' },
+  'POST /api/orders/:id/cancel': { req: async (f) => ({ url: `/api/orders/${await f.freshOrderId()}/cancel` }), expect: [401, 200, 404, 404, 404, 403, 404, 404] },
+  'PATCH /api/orders/:id/status': { req: async (f) => ({ url: `/api/orders/${await f.freshOrderId('webhook')}/status`, body: { status: 'in_progress' } }), expect: [401, 403, 404, 404, 404, 200, 404, 404] },
+  'POST /api/orders/:id/refund': { req: async (f) => ({ url: `/api/orders/${await f.freshOrderId('card')}/refund` }), expect: [401, 403, 404, 404, 404, 200, 404, 404] },
+  'POST /api/payments/webhook': {
+    req: (f) => { const e = f.signedEvent(); return { url: '/api/payments/webhook', headers: { 'Content-Type': 'application/json', 'Stripe-Signature': e.header }, body: e.payload }; },
+    expect: all(200),
+    note: 'public: the signature is the credential (forged and replayed events: tests/api/shop/webhooks.test.ts)',
+  },
 };
 
 /**

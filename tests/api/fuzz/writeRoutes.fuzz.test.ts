@@ -58,7 +58,10 @@ beforeAll(async () => {
   f = await buildFixture();
   removeCounter = await installWriteCounter();
 }, 60000);
-afterAll(async () => removeCounter());
+afterAll(async () => {
+  await removeCounter();
+  await f?.close();
+});
 
 afterAll(() => {
   server.close();
