@@ -23,9 +23,9 @@ export const CALIBRATION = Object.freeze({
   minScale: 0.5,
   maxScale: 2,
   /** Coarse scan points (log-spaced over the range) before Brent's search. */
-  scanPoints: 7,
+  scanPoints: 5,
   /** Search and interval tolerance on frictionScale. */
-  tolerance: 0.002,
+  tolerance: 0.003,
   /** Step of the finite-difference curvature of the loss at the fit. */
   curvatureStep: 0.01,
   /** Floor of the residual standard deviation, boards: the resolution a bowler reads a board at. */
@@ -56,23 +56,25 @@ interface Usable {
  * Definition: each observation is the logged line (laydown board at the foul line, target board at the
  * arrows) with the ball as it was (its surface at the time) after `gamesBowled` games on the pattern. Its
  * residual under a scale s is, in boards: for a logged breakpoint, predicted − logged breakpoint board
- * (ShotPrediction.breakpoint.board); for a recorded hit (not 'miss'), the distance from the predicted
- * entry board to the band CALIBRATION.hitEntryBoards gives for it (0 inside — a hit is a coarse,
- * interval-censored reading of the entry board, so it only pulls when the model is clearly off). An
- * observation with both contributes both. The loss L(s) = Σ residual² is minimised over s in
- * [0.5, 2] by a log-spaced scan of 9 points then a golden-section search (tolerance 0.002) in the
- * bracket around the best point. Interval: the scales with L(s) − L(ŝ) ≤ z²σ̂² (z = 1.96), σ̂² =
+ * (the model's breakpoint: the farthest board toward the hand-side gutter); for a recorded hit (not
+ * 'miss'), the distance from the predicted entry board to the band CALIBRATION.hitEntryBoards gives for
+ * it (0 inside — a hit is a coarse, interval-censored reading of the entry board, so it only pulls when
+ * the model is clearly off). An observation with both contributes both. The loss L(s) = Σ residual² is
+ * minimised over s in [0.5, 2] by a log-spaced scan of 5 points, then Brent's method (tolerance 0.003)
+ * in the bracket around the best point. Interval: the scales with L(s) − L(ŝ) ≤ z²σ̂² (z = 1.96), σ̂² =
  * max(L(ŝ)/(m − 1), 0.5²) over the m residuals — the profile (likelihood-ratio) interval for Gaussian
- * errors, which equals ŝ ± z·σ̂/√Σ(∂r/∂s)² (the curvature interval) where L is quadratic and stays
- * honest where hits make it flat; found by bisection to 0.002 and clipped to the search range.
+ * errors. Where L is near-quadratic its edges are ŝ ± z·σ̂·√(2/L''(ŝ)) (the curvature interval, L'' by
+ * central differences of 0.01; accepted when L there has risen by 0.7–1.4 × z²σ̂²), otherwise they are
+ * found by bisection on L to 0.003; clipped to the search range.
  * `enough`: n ≥ minShots (12) usable observations for the ball; Calibration.enough when any ball has
  * enough. The model is deterministic, so the same input always gives the same fit.
  * Source: least squares and the profile-likelihood interval are textbook statistics (e.g. Bates &
- * Watts, Nonlinear Regression Analysis, 1988, ch. 6 — from memory); golden-section search: Kiefer
- * (1953); the model: engine/motion (PHYSICS.md §1, §4, §5).
+ * Watts, Nonlinear Regression Analysis and Its Applications, 1988 — from memory); Brent's method:
+ * R. P. Brent, Algorithms for Minimization without Derivatives (1973); the model: engine/motion
+ * (PHYSICS.md §1, §4, §5).
  *
- * Cost: about (9 + 15 + 2·10) model deliveries per observation; 40 observations ≈ 1 s on this VM
- * (bench/calibration.bench.ts).
+ * Cost: about 20–26 model deliveries per observation (0.4 ms each on an idle core of this VM), so 40
+ * observations take about 0.5 s idle, 1–1.5 s with the VM loaded (bench/calibration.bench.ts).
  *
  * @param input `bowler`, `pattern`, `observations`; optional `minShots` (integer ≥ 1, default 12).
  * @returns Calibration: `shots` (usable observations), `enough`, `minShots`, `perBall` (ballId,
