@@ -77,6 +77,15 @@ async function matchupRowOf(page: Page, ballId: number): Promise<MatchupRow> {
   return { surface, prediction };
 }
 
+/** How many orders the signed-in bowler has (through the API with the page's own token). */
+async function countOrders(page: Page): Promise<number> {
+  return page.evaluate(async () => {
+    const token = window.localStorage.getItem('lanewright.token');
+    const res = await fetch('/api/orders?pageSize=1', { headers: { Authorization: `Bearer ${token}` } });
+    return ((await res.json()) as { total: number }).total;
+  });
+}
+
 /** The order dialog's service list has loaded (its select is enabled). */
 async function waitForServices(page: Page): Promise<void> {
   await page.waitForFunction(() => document.querySelector('.shop-order-dialog [aria-label="Service"]:not([aria-disabled="true"])') !== null);
@@ -157,22 +166,22 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
     await payWithCard(page, '4000 0000 0000 0002');
     await page.getByRole('alert').filter({ hasText: 'Your card was declined.' }).waitFor();
     await screenshot(page, 'shop-card-declined-desktop');
-    await page.getByRole('button', { name: 'Cancel and go back' }).click();
 
-    // Back on the order: not paid, the reason shown, payable again.
-    await page.waitForURL(/\/orders\/\d+\?checkout=cancelled/);
-    flow.orderId = Number(/\/orders\/(\d+)/.exec(page.url())?.[1]);
-    await page.getByRole('heading', { level: 1, name: `Order ${flow.orderId}` }).waitFor();
-    await page.getByText('The payment did not go through').waitFor();
-    expect(await page.getByTestId('payment-error').innerText()).toContain('Your card was declined.');
-    expect(await page.locator('.app-page-header .order-status-tag').innerText()).toBe('Ordered');
-    await screenshot(page, 'shop-order-declined-desktop');
+    // Meanwhile, in another tab, the order is not paid and says why.
+    const other = await page.context().newPage();
+    await other.goto('/orders');
+    await other.locator('.orders__table').getByRole('row').filter({ hasText: SERVICE_NAME }).getByRole('link').click();
+    await other.getByRole('heading', { level: 1, name: /^Order \d+$/ }).waitFor();
+    flow.orderId = Number(/\/orders\/(\d+)/.exec(other.url())?.[1]);
+    await other.getByText('The payment did not go through').waitFor();
+    expect(await other.getByTestId('payment-error').innerText()).toContain('Your card was declined.');
+    expect(await other.locator('.app-page-header .order-status-tag').innerText()).toBe('Ordered');
+    await other.close();
 
-    // Pay again with the card that succeeds.
-    await page.getByRole('button', { name: `Try paying again ${PRICE_TEXT}` }).click();
-    await page.waitForURL(/\/pay\//);
+    // The card page lets her try another card: the one that succeeds.
     await payWithCard(page, '4242 4242 4242 4242');
     await page.waitForURL(/\/orders\/\d+\?checkout=done/);
+    expect(Number(/\/orders\/(\d+)/.exec(page.url())?.[1])).toBe(flow.orderId);
     await page.getByRole('alert').filter({ hasText: 'Payment confirmed' }).waitFor({ timeout: 30000 });
     expect(await page.locator('.app-page-header .order-status-tag').innerText()).toBe('Paid');
     await page.getByText('The payment did not go through').waitFor({ state: 'detached' });
@@ -330,6 +339,44 @@ describe('pro shop: a card that asks for authentication, a refund, and what anot
     expect(await bowler.page.locator('.app-page-header .order-status-tag').innerText()).toBe('Refunded');
   });
 
+  it('a declined card, then back to the order: unpaid with the reason shown, payable again, and cancelled after a confirmation', async () => {
+    const { page } = await open();
+    await signIn(page, DEMO.dana);
+    await page.goto('/orders');
+    await page.getByRole('button', { name: 'Order a service' }).click();
+    const dialog = page.getByRole('dialog', { name: 'Order a pro-shop service' });
+    await dialog.waitFor();
+    await waitForServices(page);
+    await choose(page, dialog, 'Service', /^Polish/);
+    await choose(page, dialog, 'Ball', /^Backend \(Skylark Arc\)/);
+    const price = (await dialog.getByTestId('order-price').innerText()).trim();
+    await dialog.getByRole('button', { name: `Pay by card ${price}` }).click();
+    await page.waitForURL(/\/pay\//);
+    await payWithCard(page, '4000 0000 0000 0002', price);
+    await page.getByRole('alert').filter({ hasText: 'Your card was declined.' }).waitFor();
+    await page.getByRole('button', { name: 'Cancel and go back' }).click();
+
+    await page.waitForURL(/\/orders\/\d+\?checkout=cancelled/);
+    const orderId = Number(/\/orders\/(\d+)/.exec(page.url())?.[1]);
+    await page.getByRole('heading', { level: 1, name: `Order ${orderId}` }).waitFor();
+    await page.getByText('The payment did not go through').waitFor();
+    expect(await page.getByTestId('payment-error').innerText()).toContain('Your card was declined.');
+    expect(await page.locator('.app-page-header .order-status-tag').innerText()).toBe('Ordered');
+    await page.getByRole('button', { name: `Try paying again ${price}` }).waitFor();
+    await screenshot(page, 'shop-order-declined-desktop');
+
+    // Cancelling asks first; keeping it changes nothing.
+    await page.getByRole('button', { name: 'Cancel order' }).click();
+    const confirm = page.getByRole('dialog', { name: 'Cancel this order?' });
+    await confirm.getByRole('button', { name: 'Keep it' }).click();
+    await confirm.waitFor({ state: 'hidden' });
+    expect(await page.locator('.app-page-header .order-status-tag').innerText()).toBe('Ordered');
+    await page.getByRole('button', { name: 'Cancel order' }).click();
+    await confirm.getByRole('button', { name: 'Cancel the order' }).click();
+    await page.locator('.app-page-header .order-status-tag').filter({ hasText: 'Cancelled' }).waitFor();
+    expect(await page.getByRole('button', { name: /^Try paying again/ }).count()).toBe(0);
+  });
+
   it('another bowler has no orders and cannot open dana’s', async () => {
     expect(flow.orderId).toBeGreaterThan(0);
     const { page } = await open();
@@ -339,6 +386,40 @@ describe('pro shop: a card that asks for authentication, a refund, and what anot
     await page.goto(`/orders/${flow.orderId}`);
     await page.getByText('This order does not exist or is not yours.').waitFor();
     expect(await page.getByText(SERVICE_NAME).count()).toBe(0);
+  });
+});
+
+describe('pro shop: a price changed while the bowler looks at it', () => {
+  it('is refused, not charged: the dialog shows the new price from the list and asks again', async () => {
+    const bowler = await open();
+    await signIn(bowler.page, DEMO.dana);
+    await bowler.page.goto(`/arsenal/${flow.ballId}`);
+    await bowler.page.getByRole('button', { name: 'Order a service' }).click();
+    const dialog = bowler.page.getByRole('dialog', { name: /^Order a service for / });
+    await dialog.waitFor();
+    await choose(bowler.page, dialog, 'Service', new RegExp(`^${SERVICE_NAME}`));
+    await dialog.getByTestId('order-price').filter({ hasText: PRICE_TEXT }).waitFor();
+
+    // Meanwhile the proprietor raises the price.
+    const owner = await open();
+    await signIn(owner.page, DEMO.proprietor);
+    await owner.page.goto('/center-admin?tab=prices');
+    await owner.page.getByRole('button', { name: `Edit ${SERVICE_NAME}` }).click();
+    const edit = owner.page.getByRole('dialog', { name: `Edit ${SERVICE_NAME}` });
+    await edit.waitFor();
+    await edit.getByLabel('Price (USD)').fill('41.25');
+    await edit.getByRole('button', { name: 'Save service' }).click();
+    await owner.page.locator('.shop-price-list__table').getByRole('row').filter({ hasText: SERVICE_NAME }).getByText('$41.25').waitFor();
+
+    // The bowler presses Pay with the old price on screen: refused, and the new one shown.
+    const ordersBefore = await countOrders(bowler.page);
+    await dialog.getByRole('button', { name: `Pay by card ${PRICE_TEXT}` }).click();
+    await dialog.getByText('The shop changed this price a moment ago.').waitFor();
+    await dialog.getByTestId('order-price').filter({ hasText: '$41.25' }).waitFor();
+    await dialog.getByRole('button', { name: 'Pay by card $41.25' }).waitFor();
+    expect(bowler.page.url()).not.toMatch(/\/pay\//);
+    expect(await countOrders(bowler.page)).toBe(ordersBefore);
+    await screenshot(bowler.page, 'shop-order-price-changed-desktop');
   });
 });
 
@@ -388,5 +469,9 @@ describe('pro shop at 375 px', () => {
     await owner.page.getByRole('table', { name: 'Takings by service' }).waitFor();
     expect(await hasHorizontalScroll(owner.page)).toBe(false);
     await screenshot(owner.page, 'shop-takings-mobile');
+    await owner.page.getByRole('tab', { name: 'Price list' }).click();
+    await owner.page.locator('.shop-price-list__table').getByRole('row').filter({ hasText: SERVICE_NAME }).waitFor();
+    expect(await hasHorizontalScroll(owner.page)).toBe(false);
+    await screenshot(owner.page, 'shop-price-list-mobile');
   });
 });
