@@ -162,7 +162,7 @@ describe('buildGame: property tests against scoreGame / scorePartialGame (fast-c
       }),
       { numRuns: 300 },
     );
-  });
+  }, 60_000);
 
   it('checkDelivery accepts each next delivery with the view buildGame shows; symbols and splits follow the rules', () => {
     fc.assert(
@@ -184,7 +184,25 @@ describe('buildGame: property tests against scoreGame / scorePartialGame (fast-c
       }),
       { numRuns: 200 },
     );
-  });
+  }, 60_000);
+
+  it('any frame/delivery other than the next expected one is refused on frame or delivery, never accepted', () => {
+    fc.assert(
+      fc.property(gameArb, fc.nat(), fc.integer({ min: -1, max: 12 }), fc.integer({ min: 0, max: 4 }), (g, cut, frame, delivery) => {
+        const k = cut % (g.deliveries.length + 1);
+        const prior = g.deliveries.slice(0, k);
+        const expected = buildGame(prior).next;
+        fc.pre(expected === null || frame !== expected.frame || delivery !== expected.delivery);
+        const r = checkDelivery(prior, { frame, delivery, standing: [] });
+        expect(r.ok).toBe(false);
+        if (!r.ok) {
+          expect(['frame', 'delivery']).toContain(r.field);
+          expect(r.reason.length).toBeGreaterThan(10);
+        }
+      }),
+      { numRuns: 300 },
+    );
+  }, 60_000);
 
   it('a delivery that lists a pin already down is refused at that delivery', () => {
     fc.assert(
@@ -203,5 +221,5 @@ describe('buildGame: property tests against scoreGame / scorePartialGame (fast-c
       }),
       { numRuns: 200 },
     );
-  });
+  }, 60_000);
 });

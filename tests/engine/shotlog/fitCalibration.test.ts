@@ -79,6 +79,22 @@ describe('fitCalibration: recovers a known friction scale from the model\'s own 
     expect(p.high).toBeGreaterThanOrEqual(0.85);
   }, 120_000);
 
+  it('a left-hander, shots spread over games 0–2 of the transition: 1.1 back within ±0.08 (each shot on its own oil map)', () => {
+    const lefty = { ...typicalBowler, hand: 'left' as const };
+    const rnd = prng(41);
+    const line = simulateShot({ ball: roughAsymSolid, bowler: lefty, pattern: houseShot });
+    const observations: CalibrationObservation[] = Array.from({ length: 14 }, (_, k) => {
+      const gamesBowled = k % 3;
+      const laydownBoard = line.laydownBoard + (rnd() * 2 - 1) * 3;
+      const targetBoard = line.targetBoard + (rnd() * 2 - 1) * 1.8;
+      const p = simulateShot({ ball: roughAsymSolid, bowler: lefty, pattern: houseShot, laydownBoard, targetBoard, gamesBowled, frictionScale: 1.1 });
+      return { ball: roughAsymSolid, laydownBoard, targetBoard, gamesBowled, breakpointBoard: p.breakpoint.board + gauss(rnd) };
+    });
+    const c = fitCalibration({ bowler: lefty, pattern: houseShot, observations });
+    expect(c.enough).toBe(true);
+    expect(Math.abs(c.perBall[0].frictionScale - 1.1)).toBeLessThan(0.08);
+  }, 120_000);
+
   it('too few shots: a fit with its interval, but not enough to apply', () => {
     const observations = observe(roughAsymSolid, 0.85, 6, 31);
     const c = fitCalibration({ bowler: typicalBowler, pattern: houseShot, observations });

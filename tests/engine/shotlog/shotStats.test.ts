@@ -171,5 +171,5 @@ describe('shotStats: property tests on generated games (fast-check)', () => {
       }),
       { numRuns: 150 },
     );
-  });
+  }, 60_000);
 });
