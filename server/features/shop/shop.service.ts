@@ -134,44 +134,58 @@ export const shopService = {
     return fresh(id);
   },
 
-  /** Starts a card payment: a hosted checkout session at the payment service (any earlier open one is expired first). */
+  /**
+   * Starts (or resumes) the card payment: a hosted checkout session at the payment service. An open session
+   * of the order is reused — a double click, a second tab or "pay again" after a declined card land on the
+   * same page — and a new one is made only when there is none still open. The order row is locked for the
+   * whole step, so two requests at once get the same session.
+   */
   async checkout(user: AuthUser, id: number, origin: string): Promise<CheckoutStart> {
     const o = await visibleOrder(user, id);
     if (o.userId !== user.id) throw AppError.forbidden('Only the bowler who ordered pays for the order');
-    if (o.status !== 'ordered' || o.paymentStatus === 'paid') throw AppError.conflict('not_payable', o.status === 'ordered' ? 'This order is already paid' : `This order is ${o.status.replace('_', ' ')} and cannot be paid`);
     const base = config.PUBLIC_URL || origin;
-    let session: Stripe.Checkout.Session;
-    try {
-      const stripe = await stripeClient();
-      for (const p of await shopRepository.payments(o.id)) {
-        if (p.status !== 'open') continue;
-        await stripe.checkout.sessions.expire(p.checkoutSessionId).catch((err: unknown) => logger.info({ err, sessionId: p.checkoutSessionId }, 'earlier checkout could not be expired'));
+    return sequelize.transaction(async (transaction) => {
+      const order = (await shopRepository.lockOrder(o.id, transaction))!;
+      if (order.status !== 'ordered' || order.paymentStatus === 'paid')
+        throw AppError.conflict('not_payable', order.status === 'ordered' ? 'This order is already paid' : `This order is ${order.status.replace('_', ' ')} and cannot be paid`);
+      let stripe: Stripe;
+      try {
+        stripe = await stripeClient();
+        for (const p of (await shopRepository.payments(order.id, transaction)).filter((x) => x.status === 'open')) {
+          const open = await stripe.checkout.sessions.retrieve(p.checkoutSessionId);
+          const usable = open.status === 'open' && open.url && open.amount_total === order.amountCents && open.currency === order.currency && open.expires_at > Date.now() / 1000 + 120;
+          if (usable) return { url: open.url!, checkoutSessionId: open.id };
+          if (open.status === 'complete') throw AppError.conflict('payment_pending', 'This order’s card payment went through and is being confirmed; reload in a moment');
+          if (open.status === 'open') await stripe.checkout.sessions.expire(open.id);
+          p.status = 'expired';
+          await p.save({ transaction });
+        }
+      } catch (err) {
+        if (err instanceof AppError) throw err;
+        throw paymentError(err);
       }
-      session = await stripe.checkout.sessions.create({
-        mode: 'payment',
-        line_items: [{ quantity: 1, price_data: { currency: o.currency, unit_amount: o.amountCents, product_data: { name: `${o.serviceName} — ${o.ballName}`.slice(0, 250), description: `${o.center?.name ?? 'Pro shop'} order #${o.id}` } } }],
-        success_url: `${base}/orders/${o.id}?checkout=done`,
-        cancel_url: `${base}/orders/${o.id}?checkout=cancelled`,
-        client_reference_id: String(o.id),
-        customer_email: o.bowler?.email,
-        metadata: { orderId: String(o.id) },
-        payment_intent_data: { metadata: { orderId: String(o.id) }, description: `${o.center?.name ?? 'Pro shop'} order #${o.id}: ${o.serviceName}` },
-      });
-    } catch (err) {
-      throw paymentError(err);
-    }
-    if (!session.url) throw new AppError(502, 'payment_service_error', 'The card-payment service did not return a payment page');
-    await sequelize.transaction(async (transaction) => {
-      await Payment.update({ status: 'expired' }, { where: { orderId: o.id, status: 'open' }, transaction });
-      await Payment.create({ orderId: o.id, checkoutSessionId: session.id, amountCents: o.amountCents, currency: o.currency }, { transaction });
-      const order = await shopRepository.lockOrder(o.id, transaction);
-      if (order && order.status === 'ordered' && order.paymentStatus !== 'paid') {
-        order.paymentStatus = 'processing';
-        await order.save({ transaction });
+      let session: Stripe.Checkout.Session;
+      try {
+        session = await stripe.checkout.sessions.create({
+          mode: 'payment',
+          line_items: [{ quantity: 1, price_data: { currency: order.currency, unit_amount: order.amountCents, product_data: { name: `${order.serviceName} — ${order.ballName}`.slice(0, 250), description: `${o.center?.name ?? 'Pro shop'} order #${order.id}` } } }],
+          success_url: `${base}/orders/${order.id}?checkout=done`,
+          cancel_url: `${base}/orders/${order.id}?checkout=cancelled`,
+          client_reference_id: String(order.id),
+          customer_email: o.bowler?.email,
+          metadata: { orderId: String(order.id) },
+          payment_intent_data: { metadata: { orderId: String(order.id) }, description: `${o.center?.name ?? 'Pro shop'} order #${order.id}: ${order.serviceName}` },
+        });
+      } catch (err) {
+        throw paymentError(err);
       }
-      await audit({ actorId: user.id, action: 'payment.checkout_started', subjectType: 'order', subjectId: o.id, details: { sessionId: session.id, amountCents: o.amountCents, currency: o.currency } }, transaction);
+      if (!session.url) throw new AppError(502, 'payment_service_error', 'The card-payment service did not return a payment page');
+      await Payment.create({ orderId: order.id, checkoutSessionId: session.id, amountCents: order.amountCents, currency: order.currency }, { transaction });
+      order.paymentStatus = 'processing';
+      await order.save({ transaction });
+      await audit({ actorId: user.id, action: 'payment.checkout_started', subjectType: 'order', subjectId: order.id, details: { sessionId: session.id, amountCents: order.amountCents, currency: order.currency } }, transaction);
+      return { url: session.url, checkoutSessionId: session.id };
     });
-    return { url: session.url, checkoutSessionId: session.id };
   },
 
   async mine(user: AuthUser, q: OrderListQuery): Promise<Page<OrderDto>> {

@@ -101,14 +101,16 @@ describe('paying by card through the SDK and the local fake', () => {
     expect(await paid(bowler, order.id)).toMatchObject({ paymentStatus: 'paid', amountCents: 8000 });
   });
 
-  it('a second checkout expires the first; only the bowler who ordered can start one; a paid order cannot be paid again', async () => {
+  it('a second checkout resumes the open one; one closed at the service is replaced; only the bowler who ordered can start one; a paid order cannot be paid again', async () => {
     const { resurface, owner, bowler, ball } = await shopWorld();
     const order = await placeOrder(bowler, resurface.id, ball.id);
     const first = await startCheckout(bowler, order.id);
+    expect(await startCheckout(bowler, order.id)).toEqual(first);
+    const stripe = await stripeClient();
+    await stripe.checkout.sessions.expire(first.checkoutSessionId);
     const second = await startCheckout(bowler, order.id);
     expect(second.checkoutSessionId).not.toBe(first.checkoutSessionId);
-    const stripe = await stripeClient();
-    expect((await stripe.checkout.sessions.retrieve(first.checkoutSessionId)).status).toBe('expired');
+    expect(await Payment.findOne({ where: { checkoutSessionId: first.checkoutSessionId } })).toMatchObject({ status: 'expired' });
     expect((await submitCard(first.url, '4242424242424242')).status).toBe(410);
     expect((await api.post(`/api/orders/${order.id}/checkout`).set(owner.auth)).status).toBe(403);
     expect((await api.post(`/api/orders/${order.id}/checkout`).set((await createUser()).auth)).status).toBe(404);
@@ -117,6 +119,29 @@ describe('paying by card through the SDK and the local fake', () => {
     const again = await api.post(`/api/orders/${order.id}/checkout`).set(bowler.auth);
     expect(again.status).toBe(409);
     expect(errorOf(again.body).code).toBe('not_payable');
+  });
+
+  it('paying again after a declined card goes back to the same open session', async () => {
+    const { polish, bowler, ball } = await shopWorld();
+    const order = await placeOrder(bowler, polish.id, ball.id);
+    const first = await startCheckout(bowler, order.id);
+    await submitCard(first.url, '4000000000000002');
+    await fakeIdle();
+    expect((await getOrder(bowler, order.id)).paymentStatus).toBe('failed');
+    const again = await startCheckout(bowler, order.id);
+    expect(again.checkoutSessionId).toBe(first.checkoutSessionId);
+    expect((await getOrder(bowler, order.id)).lastPaymentError).toBe('Your card was declined.');
+    expect((await submitCard(again.url, '4242424242424242')).status).toBe(303);
+    await paid(bowler, order.id);
+  });
+
+  it('two checkouts started at once (a double click) get the same session', async () => {
+    const { polish, bowler, ball } = await shopWorld();
+    const order = await placeOrder(bowler, polish.id, ball.id);
+    const results = await Promise.all([api.post(`/api/orders/${order.id}/checkout`).set(bowler.auth), api.post(`/api/orders/${order.id}/checkout`).set(bowler.auth)]);
+    expect(results.map((r) => r.status)).toEqual([200, 200]);
+    expect(results[0].body.checkoutSessionId).toBe(results[1].body.checkoutSessionId);
+    expect(await Payment.count({ where: { orderId: order.id } })).toBe(1);
   });
 
   it('cancelling an order with an open checkout expires it, so the page no longer takes a card', async () => {

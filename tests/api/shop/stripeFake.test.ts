@@ -118,6 +118,14 @@ describe('the payment fake through the SDK', () => {
     await expect(stripe.checkout.sessions.expire(s.id)).rejects.toMatchObject({ code: 'checkout_session_not_open' });
   });
 
+  it('its Cancel button takes the browser back to cancel_url, the session still open', async () => {
+    const s = await newSession();
+    const res = await fetch(`${s.url}/cancel?`, { redirect: 'manual' });
+    expect(res.status).toBe(303);
+    expect(res.headers.get('location')).toBe('http://shop.example.test/cancelled');
+    expect((await stripe.checkout.sessions.retrieve(s.id)).status).toBe('open');
+  });
+
   it('its card page checks the number, the expiry and the CVC before charging', async () => {
     const s = await newSession();
     expect((await submitCard(s.url!, '4242424242424241')).html).toContain('Your card number is invalid.');
