@@ -71,6 +71,83 @@ function isTransient(err: unknown): boolean {
   return err.status === 0 || err.status === 401 || err.status === 408 || err.status === 429 || err.status >= 500;
 }
 
+/** How one run through a session's queue ended. */
+export type SendOutcome =
+  | { kind: 'done' }
+  | { kind: 'waiting'; message: string }
+  | { kind: 'refused'; shot: QueuedShot; message: string; code: string };
+
+interface QueueListener {
+  onStored: (result: ShotCreated, shot: QueuedShot) => void;
+  onChange: (items: QueuedShot[], sending: boolean) => void;
+}
+
+/** One run per session at a time, whoever starts it (the Session screen, or a list screen syncing in the background). */
+const runs = new Map<number, Promise<SendOutcome>>();
+const listeners = new Map<number, Set<QueueListener>>();
+
+function emitChange(sessionId: number, items: QueuedShot[], sending: boolean): void {
+  for (const l of listeners.get(sessionId) ?? []) l.onChange(items, sending);
+}
+
+/**
+ * Sends a session's queued shots in order, one at a time, each with its own key; stops at the first
+ * one that does not get through (kept queued) or that the server refuses (kept, reported).
+ */
+export function sendQueued(sessionId: number): Promise<SendOutcome> {
+  const existing = runs.get(sessionId);
+  if (existing) return existing;
+  const run = (async (): Promise<SendOutcome> => {
+    for (;;) {
+      const queue = readStored(sessionId);
+      emitChange(sessionId, queue, true);
+      const first = queue[0];
+      if (!first) return { kind: 'done' };
+      let result: ShotCreated;
+      try {
+        result = await sessionsApi.addShot(sessionId, first.key, first.body);
+      } catch (err) {
+        if (isTransient(err)) return { kind: 'waiting', message: isApiRequestError(err) ? err.message : 'The shot could not be sent.' };
+        const e = err as { message: string; code: string };
+        return { kind: 'refused', shot: first, message: e.message, code: e.code };
+      }
+      writeStored(
+        sessionId,
+        readStored(sessionId).filter((q) => q.key !== first.key),
+      );
+      for (const l of listeners.get(sessionId) ?? []) l.onStored(result, first);
+    }
+  })().finally(() => {
+    runs.delete(sessionId);
+    emitChange(sessionId, readStored(sessionId), false);
+  });
+  runs.set(sessionId, run);
+  return run;
+}
+
+/** Every session with shots waiting on this device. */
+export function queuedSessions(): { sessionId: number; count: number }[] {
+  const out: { sessionId: number; count: number }[] = [];
+  try {
+    for (let i = 0; i < window.localStorage.length; i++) {
+      const key = window.localStorage.key(i);
+      if (!key?.startsWith(STORAGE_PREFIX)) continue;
+      const sessionId = Number(key.slice(STORAGE_PREFIX.length));
+      if (!Number.isInteger(sessionId) || sessionId <= 0) continue;
+      const count = readStored(sessionId).length;
+      if (count > 0) out.push({ sessionId, count });
+    }
+  } catch {
+    // storage unavailable: nothing queued here
+  }
+  return out.sort((a, b) => a.sessionId - b.sessionId);
+}
+
+/** Background sync from screens other than the session's own (e.g. the Sessions list): one session after another. */
+export async function sendAllQueued(): Promise<void> {
+  for (const { sessionId } of queuedSessions()) await sendQueued(sessionId);
+}
+
 export interface UseShotQueueOptions {
   sessionId: number;
   /** Called for every shot the server stored (201) or had already stored under the same key (200), in order. */
@@ -92,7 +169,6 @@ export function useShotQueue(options: UseShotQueueOptions) {
   /** Why the last attempt did not get through (for the status line), or ''. */
   const lastError = ref('');
   const storageFailed = ref(false);
-  let running: Promise<void> | null = null;
   let timer: ReturnType<typeof setInterval> | undefined;
 
   const count = computed(() => items.value.length);
@@ -110,9 +186,9 @@ export function useShotQueue(options: UseShotQueueOptions) {
     return shot;
   }
 
-  /** Take the last queued shot back (undo before it was sent). */
+  /** Take the last queued shot back (undo before it was sent); null while a send is under way. */
   function removeLast(): QueuedShot | null {
-    if (running) return null;
+    if (runs.has(sessionId)) return null;
     const current = readStored(sessionId);
     const last = current[current.length - 1] ?? null;
     if (!last) return null;
@@ -134,66 +210,55 @@ export function useShotQueue(options: UseShotQueueOptions) {
     void flush();
   }
 
-  async function sendAll(): Promise<void> {
-    for (;;) {
-      const queue = readStored(sessionId);
-      items.value = queue;
-      const first = queue[0];
-      if (!first) {
-        state.value = 'idle';
-        lastError.value = '';
-        return;
-      }
-      state.value = 'sending';
-      let result: ShotCreated;
-      try {
-        result = await sessionsApi.addShot(sessionId, first.key, first.body);
-      } catch (err) {
-        if (isTransient(err)) {
-          state.value = 'waiting';
-          lastError.value = isApiRequestError(err) ? err.message : 'The shot could not be sent.';
-        } else {
-          const e = err as { message: string; code: string };
-          refused.value = { shot: first, message: e.message, code: e.code };
-          state.value = 'blocked';
-          lastError.value = e.message;
-        }
-        return;
-      }
-      commit(readStored(sessionId).filter((s) => s.key !== first.key));
+  /** Send what is queued, in order (joins a run already under way). */
+  async function flush(): Promise<void> {
+    if (state.value === 'blocked') return;
+    state.value = 'sending';
+    let outcome = await sendQueued(sessionId);
+    // A shot queued just as a run finished: go again.
+    while (outcome.kind === 'done' && readStored(sessionId).length > 0) outcome = await sendQueued(sessionId);
+    items.value = readStored(sessionId);
+    if (outcome.kind === 'refused') {
+      refused.value = { shot: outcome.shot, message: outcome.message, code: outcome.code };
+      state.value = 'blocked';
+      lastError.value = outcome.message;
+    } else if (outcome.kind === 'waiting') {
+      state.value = items.value.length ? 'waiting' : 'idle';
+      lastError.value = outcome.message;
+    } else {
+      state.value = items.value.length ? 'waiting' : 'idle';
       lastError.value = '';
-      options.onStored(result, first);
     }
   }
 
-  /** Send what is queued, in order; concurrent calls share one run. */
-  function flush(): Promise<void> {
-    if (state.value === 'blocked') return Promise.resolve();
-    if (!running) {
-      running = sendAll().finally(() => {
-        running = null;
-      });
-    }
-    return running;
-  }
+  const listener: QueueListener = {
+    onStored: (result, shot) => options.onStored(result, shot),
+    onChange: (queue) => {
+      items.value = queue;
+    },
+  };
 
   function onOnline(): void {
     void flush();
   }
   /** Another tab changed this session's queue. */
   function onStorage(e: StorageEvent): void {
-    if (e.key === queueStorageKey(sessionId) && !running) items.value = readStored(sessionId);
+    if (e.key === queueStorageKey(sessionId) && !runs.has(sessionId)) items.value = readStored(sessionId);
   }
 
   onMounted(() => {
+    let set = listeners.get(sessionId);
+    if (!set) listeners.set(sessionId, (set = new Set()));
+    set.add(listener);
     window.addEventListener('online', onOnline);
     window.addEventListener('storage', onStorage);
     timer = setInterval(() => {
       if (items.value.length > 0 && state.value !== 'blocked') void flush();
     }, SYNC_INTERVAL_MS);
-    if (items.value.length > 0) void flush();
+    if (items.value.length > 0 || runs.has(sessionId)) void flush();
   });
   onBeforeUnmount(() => {
+    listeners.get(sessionId)?.delete(listener);
     window.removeEventListener('online', onOnline);
     window.removeEventListener('storage', onStorage);
     clearInterval(timer);
