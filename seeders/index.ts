@@ -7,6 +7,7 @@ import { DEMO_CATALOGUE } from './catalogue';
 import { DEMO_PATTERNS } from './patterns';
 import { seedShop, seedShopIfMissing } from './shop';
 import { DEMO_PASSWORD, DEMO_USERS, seedUsers } from './users';
+import { seedSessions } from './sessions';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 
@@ -73,6 +74,7 @@ export async function seedDemo(): Promise<boolean> {
         }
       }
     }
+    await seedSessions(users, transaction);
   });
   return true;
 }

@@ -2,6 +2,8 @@ import { cpus } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
+import type { fitCalibration } from '../../engine/index';
+import type { Calibration } from '../../engine/shotlog/types';
 import type { RankArsenalInput, RankedBall } from '../../engine/types';
 import { config } from '../config/index';
 import { logger } from './logger';
@@ -30,6 +32,11 @@ function getPool(): Piscina {
 /** rankArsenal in a worker thread; an aborted signal (the client went away) drops the task if it has not started. */
 export function rankInWorker(input: RankArsenalInput, signal?: AbortSignal): Promise<RankedBall[]> {
   return getPool().run(input, { name: 'rank', ...(signal ? { signal } : {}) }) as Promise<RankedBall[]>;
+}
+
+/** fitCalibration in a worker thread (about 25 ms of model deliveries per logged shot: too slow for the request thread). */
+export function calibrateInWorker(input: Parameters<typeof fitCalibration>[0], signal?: AbortSignal): Promise<Calibration> {
+  return getPool().run(input, { name: 'calibrate', ...(signal ? { signal } : {}) }) as Promise<Calibration>;
 }
 
 export async function closeEnginePool(): Promise<void> {

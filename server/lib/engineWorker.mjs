@@ -3,3 +3,4 @@ import { tsImport } from 'tsx/esm/api';
 
 const mod = await tsImport('./engineWorker.ts', import.meta.url);
 export const rank = mod.rank;
+export const calibrate = mod.calibrate;

@@ -1,7 +1,6 @@
 import { createHash } from 'node:crypto';
 import { UniqueConstraintError, type Transaction } from 'sequelize';
-import * as engine from '../../../engine/index';
-import { buildGame, checkDelivery, shotStats } from '../../../engine/index';
+import { buildGame, checkDelivery, shotStats, suggestMoves } from '../../../engine/index';
 import type { LoggedDelivery } from '../../../engine/shotlog/types';
 import type { Page } from '../../../shared/auth';
 import type { AnnotationCreate, Annotation as AnnotationDto } from '../../../shared/coaching';
@@ -109,8 +108,7 @@ export const sessionsService = {
       gameViews: gameViewsOf(shots),
       shots: shots.map(toShotDto),
       stats: shotStats(records),
-      // TEMP until engine suggestMoves lands
-      moves: typeof engine.suggestMoves === 'function' ? engine.suggestMoves({ shots: records, hand: profile.hand }) : [],
+      moves: suggestMoves({ shots: records, hand: profile.hand }),
       annotations: annotations.map(toAnnotationDto),
       owner: { id: owner!.id, displayName: owner!.displayName },
     };

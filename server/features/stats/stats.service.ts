@@ -1,13 +1,14 @@
 import { createHash } from 'node:crypto';
 import { LRUCache } from 'lru-cache';
 import { Op } from 'sequelize';
-import * as engine from '../../../engine/index';
-import { shotStats, statsBy } from '../../../engine/index';
+import { fitCalibration, shotStats, statsBy, suggestMoves } from '../../../engine/index';
 import type { Calibration, CalibrationObservation, ShotRecord } from '../../../engine/shotlog/types';
 import type { BowlerProfile, OilPattern } from '../../../engine/types';
 import { ballToSpec } from '../../../shared/balls';
 import type { StatsQuery, StatsResult } from '../../../shared/sessions';
 import type { AuthUser } from '../../middleware/auth';
+import { AppError } from '../../lib/AppError';
+import { calibrateInWorker } from '../../lib/enginePool';
 import { Ball } from '../../models/index';
 import { readableBowlerId } from '../coaching/coaching.access';
 import { patternsService } from '../patterns/patterns.service';
@@ -36,17 +37,27 @@ export async function bowlerOf(userId: number): Promise<BowlerProfile> {
 }
 
 /**
+ * At most this many of a ball's most recent usable shots go into its fit: they describe the bowler's game as it
+ * is now, and the fit costs about 25 ms of model deliveries per shot (measured: 12 shots 0.4 s, 40 shots 1.1 s
+ * on this machine), so a ball's fit stays under a second. Lanewright's choice (the engine needs 12 per ball).
+ */
+export const CALIBRATION_SHOTS_PER_BALL = 30;
+
+/**
  * The logged first balls that say something about the ball's motion: thrown at a full rack from a known
  * feet board at a known target, with the breakpoint board or the pocket result recorded. The ball is taken
  * with the surface it had when the shot was thrown.
  */
 export function observationsOf(rows: ShotRow[], balls: Map<number, Ball>): CalibrationObservation[] {
   const out: CalibrationObservation[] = [];
-  for (const r of rows) {
+  const perBall = new Map<number, number>();
+  // Newest first, so each ball keeps its most recent shots.
+  for (const r of [...rows].reverse()) {
     if (r.delivery !== 1 || r.feet_board == null || r.target_board == null) continue;
     if (r.breakpoint_board == null && r.hit == null) continue;
     const b = balls.get(r.ball_id);
-    if (!b) continue;
+    if (!b || (perBall.get(b.id) ?? 0) >= CALIBRATION_SHOTS_PER_BALL) continue;
+    perBall.set(b.id, (perBall.get(b.id) ?? 0) + 1);
     out.push({
       ball: { id: String(b.id), ...ballToSpec({ ...b.get({ plain: true }), surfaceGrit: r.surface_grit ?? b.surfaceGrit, polished: r.surface_polished ?? b.polished }) },
       laydownBoard: Math.max(1, r.feet_board - LAYDOWN_OFFSET_BOARDS),
@@ -56,28 +67,36 @@ export function observationsOf(rows: ShotRow[], balls: Map<number, Ball>): Calib
       gamesBowled: r.game_number - 1,
     });
   }
-  return out;
+  return out.reverse();
 }
 
 /** Fits are deterministic: cached by the exact input they came from (the shots, the balls as thrown, the release, the pattern). */
 const calibrationCache = new LRUCache<string, Calibration>({ max: 200 });
+/** Fits being computed, so simultaneous requests for the same input share one. */
+const inFlight = new Map<string, Promise<Calibration>>();
 
 export async function calibrate(input: { bowler: BowlerProfile; pattern: OilPattern; observations: CalibrationObservation[] }): Promise<Calibration> {
   const key = createHash('sha256').update(JSON.stringify(input)).digest('base64url');
   const hit = calibrationCache.get(key);
   if (hit) return hit;
-  const result = engine.fitCalibration(input);
+  const running = inFlight.get(key);
+  if (running) return running;
+  // Nothing to fit is instant; a real fit runs in the engine worker pool, off the request thread.
+  if (input.observations.length === 0) return fitCalibration(input);
+  const job = calibrateInWorker(input).finally(() => inFlight.delete(key));
+  inFlight.set(key, job);
+  const result = await job;
   calibrationCache.set(key, result);
   return result;
 }
 
 /** The bowler's calibration on a pattern from every logged shot on it. */
-export async function calibrationFor(bowlerId: number, patternId: number, rows?: ShotRow[]): Promise<Calibration> {
-  const { pattern } = await patternsService.engineInput(patternId);
-  const shots = rows ?? (await sessionsRepository.shotsForStats(bowlerId, { patternId }));
+export async function calibrationFor(bowlerId: number, patternId: number, known: { rows?: ShotRow[]; pattern?: OilPattern; bowler?: BowlerProfile } = {}): Promise<Calibration> {
+  const pattern = known.pattern ?? (await patternsService.engineInput(patternId)).pattern;
+  const shots = known.rows ?? (await sessionsRepository.shotsForStats(bowlerId, { patternId }));
   const ids = [...new Set(shots.map((r) => r.ball_id))];
   const balls = new Map((ids.length ? await Ball.findAll({ where: { ownerId: bowlerId, id: { [Op.in]: ids } }, paranoid: false }) : []).map((b) => [b.id, b]));
-  return calibrate({ bowler: await bowlerOf(bowlerId), pattern, observations: observationsOf(shots, balls) });
+  return calibrate({ bowler: known.bowler ?? (await bowlerOf(bowlerId)), pattern, observations: observationsOf(shots, balls) });
 }
 
 export const statsService = {
@@ -95,9 +114,9 @@ export const statsService = {
     let calibration: Calibration | null = null;
     if (calibrationPatternId !== null) {
       try {
-        calibration = await calibrationFor(bowlerId, calibrationPatternId, q.patternId && !q.from && !q.to && !q.ballId ? rows : undefined);
+        calibration = await calibrationFor(bowlerId, calibrationPatternId, q.patternId && !q.from && !q.to && !q.ballId ? { rows } : {});
       } catch (err) {
-        if (!(err instanceof Error && err.name === 'AppError')) throw err; // an unknown pattern simply has no calibration
+        if (!(err instanceof AppError)) throw err; // an unknown pattern simply has no calibration
       }
     }
     return {
@@ -109,7 +128,7 @@ export const statsService = {
       trend: statsBy(records, 'sessionId')
         .map((g) => ({ sessionId: Number(g.key), date: dates.get(g.key)!, games: g.stats.games, average: g.stats.average, strikePct: g.stats.strike.pct, sparePct: g.stats.spare.pct }))
         .sort((a, b) => a.date.localeCompare(b.date) || a.sessionId - b.sessionId),
-      moves: engine.suggestMoves({ shots: records, hand }),
+      moves: suggestMoves({ shots: records, hand }),
       calibration,
       calibrationPatternId,
     };
