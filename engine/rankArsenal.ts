@@ -24,7 +24,7 @@ import { MOTION_LAYER_WEIGHT, motionLayer, type RankedBallWithPrediction } from 
  * @param input `balls` (each a BallSpec with a unique non-empty `id`), `bowler`, `pattern`,
  *   `gamesBowled` (games already bowled on the pattern, default 0), `calibration` (fitCalibration's
  *   answer, optional: when `calibration.enough`, every ball whose own fit is `enough` is simulated with
- *   its fitted frictionScale, and its entry carries that `frictionScale`).
+ *   its fitted frictionScale, and its entry carries that `frictionScale` and a 'motion-calibration' reason).
  * @returns one RankedBall per ball: `id`, `score` 0–100, `reasons` (rule, effect, text, source —
  *   the rules layer's, then the motion layer's 'motion-…' reasons), `suggestions` (surface, layout,
  *   release, line), `layers` (each layer's own score and weight), `prediction` (ShotPrediction on the
@@ -59,6 +59,15 @@ export function rankArsenal(input: RankArsenalInput): RankedBallWithPrediction[]
     const verdict = motionLayer(ball, ctx.bowler, ctx.pattern, motionMap, ctx.gamesBowled, scale ?? 1);
     layers.push({ name: 'motion', weight: MOTION_LAYER_WEIGHT, result: verdict.result });
     const { score, reasons, suggestions } = combineLayers(layers);
+    if (scale !== undefined) {
+      const pct = Math.round((scale - 1) * 100);
+      reasons.push({
+        rule: 'motion-calibration',
+        effect: 0,
+        text: `The ball-motion model is calibrated to your logged shots with this ball: friction ×${scale.toFixed(2)} (${pct === 0 ? 'as modelled' : `${Math.abs(pct)} % ${pct > 0 ? 'more' : 'less'} than modelled`}).`,
+        source: 'fitCalibration (engine/shotlog) on the bowler\'s logged breakpoints and pocket results',
+      });
+    }
     const entry: RankedBallWithPrediction = {
       id: ball.id,
       score,

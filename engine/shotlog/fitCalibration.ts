@@ -224,14 +224,14 @@ export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPatte
   if (shots === 0) {
     note = `No usable shots yet: a calibration needs first balls with feet and target boards and a breakpoint board or where the ball hit the pins (${minShots} per ball).`;
   } else {
-    const atBound = perBall.filter((p) => p.frictionScale <= K.minScale + K.tolerance || p.frictionScale >= K.maxScale - K.tolerance).map((p) => p.ballId);
+    const atBound = perBall.filter((p) => p.frictionScale <= K.minScale + K.tolerance || p.frictionScale >= K.maxScale - K.tolerance).length;
     note =
       `Friction multiplier fitted per ball from ${shots} logged shot${shots === 1 ? '' : 's'}; ` +
       (ready.length > 0
-        ? `${ready.length} of ${perBall.length} ball${perBall.length === 1 ? ' has' : 's have'} the ${minShots} shots needed and ${ready.length === 1 ? 'is' : 'are'} calibrated (${ready.map((p) => `${p.ballId} ×${p.frictionScale.toFixed(2)}`).join(', ')})`
+        ? `calibrated: ${ready.length} of ${perBall.length} ball${perBall.length === 1 ? '' : 's'} (those with at least ${minShots} shots)`
         : `no ball has the ${minShots} shots needed yet, so matchups use the uncalibrated model`) +
       `; model error ${r1(rmsBefore as number)} → ${r1(rmsAfter as number)} boards RMS.` +
-      (atBound.length > 0 ? ` The fit for ${atBound.join(', ')} is at the edge of the searched range (${K.minScale}–${K.maxScale}): the model may not describe these shots well.` : '');
+      (atBound > 0 ? ` For ${atBound} ball${atBound === 1 ? '' : 's'} the fit is at the edge of the searched range (${K.minScale}–${K.maxScale}): the model may not describe those shots well.` : '');
   }
   return {
     shots,

@@ -67,7 +67,7 @@ describe('fitCalibration: recovers a known friction scale from the model\'s own 
       expect(p.rmsBoardsAfter!).toBeLessThan(1.5); // the noise is 1 board
     }
     expect(c.rmsBoardsAfter!).toBeLessThan(c.rmsBoardsBefore!);
-    expect(c.note).toMatch(/^Friction multiplier fitted per ball from 40 logged shots; 2 of 2 balls have the 12 shots needed/);
+    expect(c.note).toMatch(/^Friction multiplier fitted per ball from 40 logged shots; calibrated: 2 of 2 balls \(those with at least 12 shots\); model error \d+\.\d → \d+\.\d boards RMS\.$/);
   }, 120_000);
 
   it('from pocket results alone (no breakpoints, 24 shots on lines spread ±4 boards) 0.85 within ±0.05', () => {
@@ -143,6 +143,8 @@ describe('frictionScale in the motion model and rankArsenal', () => {
     const solid = cal.find((r) => r.id === roughAsymSolid.id)!;
     const pearl = cal.find((r) => r.id === polishedPearl.id)!;
     expect(solid.frictionScale).toBe(1.25);
+    expect(solid.reasons.find((r) => r.rule === 'motion-calibration')?.text).toBe('The ball-motion model is calibrated to your logged shots with this ball: friction ×1.25 (25 % more than modelled).');
+    expect(pearl.reasons.some((r) => r.rule === 'motion-calibration')).toBe(false);
     expect(solid.prediction).not.toEqual(plain.find((r) => r.id === roughAsymSolid.id)!.prediction);
     // the prediction is the model's own with that scale (the pocket line solved on the same oil map)
     expect(solid.prediction).toEqual(simulateShot({ ball: roughAsymSolid, bowler: typicalBowler, pattern: houseShot, frictionScale: 1.25 }));
