@@ -49,6 +49,18 @@ export default defineConfig({
       {
         extends: true,
         test: {
+          // Fault injection: each file starts its own PostgreSQL cluster and server process (tests/faults/README.md).
+          name: 'faults',
+          include: ['tests/faults/**/*.test.ts'],
+          environment: 'node',
+          fileParallelism: false,
+          testTimeout: 120000,
+          hookTimeout: 120000,
+        },
+      },
+      {
+        extends: true,
+        test: {
           name: 'e2e',
           include: ['tests/e2e/**/*.e2e.ts'],
           environment: 'node',

@@ -10,9 +10,20 @@ interface HttpishError {
   message?: string;
 }
 
+/** PostgreSQL error classes meaning "the server is not there right now": connection exception (08…), shutdown / cannot connect now (57P01–57P03), too many connections (53300). */
+const PG_UNAVAILABLE_CODE = /^(08|57P0[1-3]$|53300$)/;
+/** What node-postgres says when the connection under a query died (the server stopped or restarted). */
+const CONNECTION_LOST = /Connection terminated|connection error and is not queryable|Client was closed and is not queryable|ECONNREFUSED|ECONNRESET|EPIPE|terminating connection/i;
+
 function isDbUnavailable(err: unknown): boolean {
   const name = (err as { name?: string })?.name ?? '';
-  return /Sequelize(Connection\w*Error|HostNotReachableError|AccessDeniedError)|ConnectionAcquireTimeoutError/.test(name);
+  if (/Sequelize(Connection\w*Error|HostNotReachableError|AccessDeniedError)|ConnectionAcquireTimeoutError/.test(name)) return true;
+  // A query whose connection was cut while it ran surfaces as a plain DatabaseError around the driver's error.
+  if (!/^Sequelize/.test(name)) return false;
+  const cause = (err as { parent?: { code?: unknown; message?: unknown } }).parent;
+  const code = typeof cause?.code === 'string' ? cause.code : '';
+  const message = typeof cause?.message === 'string' ? cause.message : '';
+  return PG_UNAVAILABLE_CODE.test(code) || CONNECTION_LOST.test(message);
 }
 
 /** The one error handler: AppError → its status; body-parser errors → 400/413; database down → 503; anything else → a logged 500 with a generic message. */
