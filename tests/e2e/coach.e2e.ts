@@ -118,5 +118,12 @@ describe('coach: invitations, plans and the side-by-side what-if at 375 px', () 
     expect(await page.locator('svg path[data-ball="b"]').count()).toBe(1);
     await screenshot(page, 'coach-what-if-mobile');
     expect(await hasHorizontalScroll(page)).toBe(false);
+
+    // The student's stats, read by the coach.
+    await page.getByRole('link', { name: "Dana Holloway's stats and calibration" }).click();
+    await page.getByRole('heading', { level: 1, name: 'Stats — Dana Holloway' }).waitFor();
+    await page.getByRole('heading', { level: 2, name: /^(Overall|Calibration)$/ }).or(page.getByText('No shots logged for this choice yet.')).first().waitFor({ timeout: 60000 });
+    expect(await page.locator('.el-alert--error').count()).toBe(0);
+    expect(await hasHorizontalScroll(page)).toBe(false);
   });
 });

@@ -3,7 +3,7 @@ import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vi
 import type { Browser, Page, Route } from 'playwright-core';
 // The engine is the reference for scores (pure code, no I/O): the sheet's total must equal scoreGame of the same rolls.
 import { scoreGame } from '../../engine/index';
-import { ARTIFACTS_DIR, DEMO, DEMO_PASSWORD, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session } from './browser';
+import { ARTIFACTS_DIR, DEMO, DEMO_PASSWORD, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session } from './browser';
 
 const baseUrl = inject('baseUrl');
 let browser: Browser;
@@ -277,6 +277,9 @@ describe('sessions: shot entry on a phone', () => {
     await page.getByRole('heading', { level: 2, name: 'Suggested moves' }).waitFor();
     await screenshot(page, 'session-complete-mobile');
     expect(await hasHorizontalScroll(page)).toBe(false);
+    await page.setViewportSize(DESKTOP);
+    await screenshot(page, 'session-complete-desktop');
+    await page.setViewportSize(MOBILE);
 
     // Through the API: every shot stored once, in order, none lost or doubled.
     const stored = await storedSession(await tokenOf(page), sessionId);
@@ -315,7 +318,8 @@ describe('sessions: shot entry on a phone', () => {
     await page.getByText('Per surface, side by side', { exact: true }).waitFor();
     await screenshot(page, 'stats-mobile');
     expect(await hasHorizontalScroll(page)).toBe(false);
-  });
+    // A long walk through one game on a shared machine (and a slow stats answer): more than the default minute.
+  }, 180000);
 
   it('the demo coach reads the session and annotates it', async () => {
     expect(sessionId).toBeGreaterThan(0);
