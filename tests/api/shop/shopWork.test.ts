@@ -74,6 +74,19 @@ describe('the shop’s moves', () => {
     expect(await Ball.findByPk(ball.id)).toMatchObject({ surfaceGrit: 2000, polished: true });
   });
 
+  it('an oil extraction records a surface event with the surface unchanged and keeps the games since resurface', async () => {
+    const { center, owner, bowler, ball } = await shopWorld();
+    const svc = await api.post(`/api/centers/${center.id}/services`).set(owner.auth).send({ kind: 'oil-extraction', name: 'Oil extraction', priceCents: 3000 });
+    const o = await placeOrder(bowler, svc.body.item.id, ball.id);
+    await payByWebhook(o);
+    const before = (await Ball.findByPk(ball.id))!;
+    await move(owner.auth, o.id, 'ready');
+    const after = (await Ball.findByPk(ball.id))!;
+    expect(after).toMatchObject({ surfaceGrit: before.surfaceGrit, polished: before.polished, gamesSinceResurface: before.gamesSinceResurface });
+    const last = await SurfaceEvent.findOne({ where: { ballId: ball.id }, order: [['id', 'DESC']] });
+    expect(last).toMatchObject({ fromGrit: before.surfaceGrit, toGrit: before.surfaceGrit, note: expect.stringContaining('Oil extraction') });
+  });
+
   it('a refunded order cannot be moved on, and a ready order can still be refunded', async () => {
     const { resurface, owner, bowler, ball } = await shopWorld();
     const order = await placeOrder(bowler, resurface.id, ball.id);

@@ -36,6 +36,16 @@ describe('webhook authenticity (verified with the SDK’s constructEvent)', () =
   });
 });
 
+describe('webhook bodies', () => {
+  it('a correctly signed body that is not JSON, or an empty one, is a 400 in the error shape, never a 500', async () => {
+    for (const body of ['not json at all', '{"id": "evt_1", "type":', '']) {
+      const res = await postWebhook(body, body ? signature(body) : signature('x'));
+      expect(res.status, JSON.stringify(body)).toBe(400);
+      expect(errorOf(res.body).code).toBe('bad_signature');
+    }
+  });
+});
+
 describe('processing each event once', () => {
   it('a repeated delivery of checkout.session.completed pays the order once: one history entry, one audit event, one receipt', async () => {
     const { resurface, bowler, ball } = await shopWorld();
