@@ -142,7 +142,11 @@ export function suggestMoves(input: { shots: ShotRecord[]; hand: 'right' | 'left
       moves.push({
         kind: 'two-and-one',
         title: `Move ${feet.boards} and ${target.boards} ${direction}`,
-        detail: `${missSide === 'high' ? 'The ball is hooking too early and hitting high' : 'The ball is not getting back to the pocket'}: move your feet ${feet.boards} boards and your target ${target.boards} board${target.boards > 1 ? 's' : ''} ${direction}${whereTo}, to change the angle while keeping about the same breakpoint.`,
+        detail: `${
+          streak >= T.streak
+            ? missSide === 'high' ? 'The ball is hooking too much and hitting high' : 'The ball is not getting back to the pocket'
+            : missSide === 'high' ? 'The breakpoint is moving toward the middle: the ball is reading the lane earlier' : 'The breakpoint is moving toward the gutter: the ball is going longer'
+        }: move your feet ${feet.boards} boards and your target ${target.boards} board${target.boards > 1 ? 's' : ''} ${direction}${whereTo}, to change the angle while keeping about the same breakpoint.`,
         feet,
         target,
         evidence: `${parts.join('; ')}.`,
