@@ -11,7 +11,7 @@ let server: ServerProcess;
 
 beforeAll(async () => {
   cluster = await ownCluster('fault-db');
-  server = await startServer({ DATABASE_URL: cluster.url });
+  server = await startServer({ DATABASE_URL: cluster.url, LOG_LEVEL: 'info' });
 });
 afterAll(async () => {
   await server?.kill();
@@ -82,7 +82,7 @@ describe('PostgreSQL stopped and restarted mid-run', () => {
     down = true;
     for (const r of await burst) if (r.status !== 200 && !(r.status === 503 && r.body?.error?.code === 'service_unavailable')) bad.push(`in flight: ${r.status} ${JSON.stringify(r.body).slice(0, 200)}`);
     const healthDown = await call(server.base, 'GET', '/api/health');
-    const readDown = await call(server.base, 'GET', `/api/sessions/${sessionId}`, { token: bowler.token });
+    const readDown = await call(server.base, 'GET', `/api/sessions/${sessionId}`, { token: bowler.token, headers: { 'X-Request-Id': 'fault-db-probe-0001' } });
     await sleep(3000);
     const ackWhileDown = acknowledged;
     await cluster.start();
@@ -112,6 +112,11 @@ describe('PostgreSQL stopped and restarted mid-run', () => {
       [300, true],
       [300, true],
     ]);
+    // The request id is on every log line of the request: the warning about the database and the access line.
+    const probe = server.output().split('\n').filter((l) => l.includes('fault-db-probe-0001'));
+    expect(probe.some((l) => l.includes('database unavailable'))).toBe(true);
+    expect(probe.some((l) => l.includes('"msg":"request"') && l.includes('"status":503'))).toBe(true);
+    expect(readDown.headers?.get('x-request-id')).toBe('fault-db-probe-0001');
     console.log(`[fault db] answers during the run: ${JSON.stringify(Object.fromEntries(seen))}`);
   });
 });

@@ -45,7 +45,8 @@ export interface Fixture {
   freshModelId(): Promise<{ id: number; version: number }>;
   freshUserId(): Promise<number>;
   freshUnsubscribeToken(): Promise<string>;
-  freshSession(opts?: { deleted?: boolean; withShot?: boolean }): Promise<{ id: number; shotId: number | null }>;
+  /** A new session of owner, with a ball of its own (fuzzed routes may have removed the fixture's ball). */
+  freshSession(opts?: { deleted?: boolean; withShot?: boolean }): Promise<{ id: number; shotId: number | null; ballId: number }>;
   /** A new coaching link of a new coach to owner: pending, or accepted by owner. */
   freshLink(accepted: boolean): Promise<number>;
   freshServiceId(): Promise<{ id: number; version: number }>;
@@ -97,34 +98,33 @@ export async function buildFixture(): Promise<Fixture> {
     linked = true;
   }
 
-  const newSession = async (withShot: boolean) => {
+  const newSession = async (withShot: boolean, ballId = ball.id) => {
     const r = await api.post('/api/sessions').set(owner.auth).send({ date: today, kind: 'practice', centerId: center.id, patternId: pattern.id });
     if (r.status !== 201) throw new Error(`fixture: session answered ${r.status} ${JSON.stringify(r.body)}`);
     let shotId: number | null = null;
     if (withShot) {
-      const s = await api.post(`/api/sessions/${r.body.item.id}/shots`).set(owner.auth).set('Idempotency-Key', `fixture-${crypto.randomUUID()}`).send({ gameNumber: 1, frame: 1, delivery: 1, ballId: ball.id, standing: [7] });
+      const s = await api.post(`/api/sessions/${r.body.item.id}/shots`).set(owner.auth).set('Idempotency-Key', `fixture-${crypto.randomUUID()}`).send({ gameNumber: 1, frame: 1, delivery: 1, ballId, standing: [7] });
       if (s.status !== 201) throw new Error(`fixture: shot answered ${s.status} ${JSON.stringify(s.body)}`);
       shotId = s.body.item.id as number;
     }
-    return { id: r.body.item.id as number, shotId };
+    return { id: r.body.item.id as number, shotId, ballId };
   };
   const session = await newSession(true);
   const listener = await listenForWebhooks(); // the payment fake's card page delivers its webhook here
   const service = await ShopService.create({ centerId: center.id, kind: 'resurface', name: 'Resurface to 4000 grit', grit: 4000, description: null, priceCents: 4500, currency: 'usd' });
-  const newOrder = async () => {
-    const r = await api.post('/api/orders').set(owner.auth).send({ serviceId: service.id, ballId: ball.id });
+  const newOrder = async (ballId = ball.id) => {
+    const r = await api.post('/api/orders').set(owner.auth).send({ serviceId: service.id, ballId });
     if (r.status !== 201) throw new Error(`fixture: order answered ${r.status} ${JSON.stringify(r.body)}`);
     return r.body.item;
   };
   const order = await newOrder();
-  const balls = new Map<Actor, number>([['owner', ball.id], ['otherBowler', otherBall.id]]);
 
   return {
     sessionId: session.id,
     serviceId: service.id,
     orderId: order.id as number,
     async freshSession(opts = {}) {
-      const s = await newSession(Boolean(opts.withShot));
+      const s = await newSession(Boolean(opts.withShot), (await createBall(owner.user.id)).id);
       if (opts.deleted) await api.delete(`/api/sessions/${s.id}`).set(owner.auth).expect(204);
       return s;
     },
@@ -140,7 +140,7 @@ export async function buildFixture(): Promise<Fixture> {
       return { id: sv.id, version: sv.version };
     },
     async freshOrderId(paid = false) {
-      const o = await newOrder();
+      const o = await newOrder((await createBall(owner.user.id)).id);
       if (paid === 'webhook') await payByWebhook(o);
       if (paid === 'card') {
         const co = await api.post(`/api/orders/${o.id}/checkout`).set(owner.auth);
@@ -153,8 +153,7 @@ export async function buildFixture(): Promise<Fixture> {
     close: () => listener.close(),
     async ballOf(actor) {
       if (actor === 'anonymous') return ball.id;
-      if (!balls.has(actor)) balls.set(actor, (await createBall(people[actor].user.id)).id);
-      return balls.get(actor)!;
+      return (await createBall(people[actor].user.id)).id;
     },
     signedEvent() {
       const ev = event('customer.created', { id: `cus_test_${crypto.randomBytes(8).toString('hex')}`, object: 'customer' });

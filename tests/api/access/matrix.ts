@@ -147,7 +147,10 @@ export const MATRIX: Record<string, MatrixEntry> = {
   'DELETE /api/sessions/:id': { req: async (f) => ({ url: `/api/sessions/${(await f.freshSession()).id}` }), expect: (f) => ownerWritesCoachReads(f, 204) },
   'POST /api/sessions/:id/restore': { req: async (f) => ({ url: `/api/sessions/${(await f.freshSession({ deleted: true })).id}/restore` }), expect: ownOnly(200) },
   'POST /api/sessions/:id/shots': {
-    req: async (f) => ({ url: `/api/sessions/${(await f.freshSession()).id}/shots`, headers: { 'Idempotency-Key': `matrix-${uniq()}` }, body: { gameNumber: 1, frame: 1, delivery: 1, ballId: f.ball.id, standing: [] } }),
+    req: async (f) => {
+      const s = await f.freshSession();
+      return { url: `/api/sessions/${s.id}/shots`, headers: { 'Idempotency-Key': `matrix-${uniq()}` }, body: { gameNumber: 1, frame: 1, delivery: 1, ballId: s.ballId, standing: [] } };
+    },
     expect: (f) => ownerWritesCoachReads(f, 201),
     note: 'only the bowler logs their shots (a coach annotates)',
   },

@@ -1,0 +1,89 @@
+import http from 'node:http';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { call, ownCluster, sleep, startServer, userWithRole, type OwnCluster, type ServerProcess } from './harness';
+
+/**
+ * SIGTERM while requests are in flight: the server stops accepting new connections at once, lets the
+ * requests it has finish (a request whose body is still arriving, and rankings running in the worker
+ * threads), then closes the pool and exits with code 0.
+ */
+let cluster: OwnCluster;
+let server: ServerProcess;
+
+beforeAll(async () => {
+  cluster = await ownCluster('fault-sigterm');
+  server = await startServer({ DATABASE_URL: cluster.url });
+});
+afterAll(async () => {
+  await server?.kill();
+  cluster?.remove();
+});
+
+/** A PUT whose body is sent in two halves; resolves with the answer. */
+function slowPut(base: string, path: string, token: string, body: unknown) {
+  const payload = Buffer.from(JSON.stringify(body));
+  const url = new URL(path, base);
+  let sendRest: () => void = () => undefined;
+  const answer = new Promise<{ status: number; body: string }>((resolve, reject) => {
+    const req = http.request({ host: url.hostname, port: url.port, path: url.pathname, method: 'PUT', headers: { 'content-type': 'application/json', 'content-length': payload.length, authorization: `Bearer ${token}` } }, (res) => {
+      let text = '';
+      res.on('data', (d: Buffer) => (text += d.toString()));
+      res.on('end', () => resolve({ status: res.statusCode ?? 0, body: text }));
+    });
+    req.on('error', reject);
+    req.write(payload.subarray(0, 10));
+    sendRest = () => req.end(payload.subarray(10));
+  });
+  return { answer, sendRest: () => sendRest() };
+}
+
+describe('SIGTERM during requests', () => {
+  it('in-flight requests finish, new connections are refused, then the process exits 0', async () => {
+    const coach = await userWithRole(server, cluster, 'coach', 'term-coach');
+    const bowler = await userWithRole(server, cluster, 'bowler', 'term-bowler');
+    const pattern = await call(server.base, 'POST', '/api/patterns', {
+      token: coach.token,
+      body: { name: 'Shutdown Long 45', sweeps: [{ direction: 'forward', fromBoard: 2, toBoard: 38, startFt: 0, endFt: 45, crossings: 4, microlitersPerBoard: 70 }] },
+    });
+    expect(pattern.status).toBe(201);
+    for (const [i, cover] of ['reactive-solid', 'reactive-pearl', 'reactive-hybrid', 'urethane'].entries()) {
+      const b = await call(server.base, 'POST', '/api/arsenal', {
+        token: bowler.token,
+        body: { name: `Term ${i}`, coverType: cover, coreType: 'asymmetric', rg: 2.5, differential: 0.05, intermediateDifferential: 0.015, weightLb: 15, surfaceGrit: 2000, polished: false },
+      });
+      expect(b.status).toBe(201);
+    }
+
+    // In flight when the signal arrives: a request half sent, and cold rankings (each input new).
+    const slow = slowPut(server.base, '/api/profile', bowler.token, { speedMph: 18.5, revRpm: 410 });
+    const rankings = Array.from({ length: 6 }, (_, i) => call(server.base, 'POST', '/api/matchups', { token: bowler.token, body: { patternId: pattern.body.item.id, gamesBowled: 1 + i / 7 } }));
+    await sleep(100);
+    const signalled = Date.now();
+    server.child.kill('SIGTERM');
+    await sleep(300);
+
+    // No new connections once it is stopping (a fresh TCP connection, not one from a keep-alive pool).
+    const late = await new Promise<string>((resolve) => {
+      const req = http.get(`${server.base}/api/health`, { agent: false }, (res) => resolve(`answered ${res.statusCode}`));
+      req.on('error', (e: NodeJS.ErrnoException) => resolve(e.code ?? e.message));
+    });
+    expect(late).toBe('ECONNREFUSED');
+
+    slow.sendRest();
+    const put = await slow.answer.catch((e: Error) => {
+      throw new Error(`the half-sent request failed (${e.message}); server log:\n${server.output().slice(-3000)}`);
+    });
+    expect(put.status).toBe(200);
+    expect(JSON.parse(put.body)).toMatchObject({ saved: true, profile: { speedMph: 18.5, revRpm: 410 } });
+    const ranked = await Promise.all(rankings);
+    expect(ranked.map((r) => r.status)).toEqual([200, 200, 200, 200, 200, 200]);
+    for (const r of ranked) expect(r.body.items?.length ?? r.body.ranking?.length ?? r.body.balls?.length).toBeGreaterThan(0);
+
+    const exit = await server.exited;
+    expect(exit).toEqual({ code: 0, signal: null });
+    expect(Date.now() - signalled).toBeLessThan(10000); // well before the 10 s forced close
+    const rows = await cluster.query<{ speed_mph: number; rev_rpm: number }>('SELECT speed_mph, rev_rpm FROM bowler_profiles WHERE user_id = $1', [bowler.id]);
+    expect(rows.map((r) => [Number(r.speed_mph), Number(r.rev_rpm)])).toEqual([[18.5, 410]]);
+    expect(server.output()).not.toMatch(/"level":(50|60)/); // no error logged on the way out
+  });
+});
