@@ -362,8 +362,15 @@ describe('pro shop: a card that asks for authentication, a refund, and what anot
     await page.getByText('The payment did not go through').waitFor();
     expect(await page.getByTestId('payment-error').innerText()).toContain('Your card was declined.');
     expect(await page.locator('.app-page-header .order-status-tag').innerText()).toBe('Ordered');
-    await page.getByRole('button', { name: `Try paying again ${price}` }).waitFor();
     await screenshot(page, 'shop-order-declined-desktop');
+
+    // "Try paying again" goes back to a card page for the same amount; she leaves it again.
+    await page.getByRole('button', { name: `Try paying again ${price}` }).click();
+    await page.waitForURL(/\/pay\//);
+    await page.getByRole('button', { name: `Pay ${price}` }).waitFor();
+    await page.getByRole('button', { name: 'Cancel and go back' }).click();
+    await page.waitForURL(new RegExp(`/orders/${orderId}\\?checkout=cancelled`));
+    await page.getByRole('heading', { level: 1, name: `Order ${orderId}` }).waitFor();
 
     // Cancelling asks first; keeping it changes nothing.
     await page.getByRole('button', { name: 'Cancel order' }).click();
