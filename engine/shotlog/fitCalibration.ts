@@ -73,8 +73,9 @@ interface Usable {
  * R. P. Brent, Algorithms for Minimization without Derivatives (1973); the model: engine/motion
  * (PHYSICS.md §1, §4, §5).
  *
- * Cost: about 20–26 model deliveries per observation (0.4 ms each on an idle core of this VM), so 40
- * observations take about 0.5 s idle, 1–1.5 s with the VM loaded (bench/calibration.bench.ts).
+ * Cost (bench/calibration.bench.ts, this 2-core VM at load average ≈ 11): 40 observations with
+ * breakpoints ≈ 250 ms median; the same 40 as pocket results only ≈ 1.5 s (a flat-bottomed loss: the
+ * interval is found by bisection, about 35 model deliveries per observation).
  *
  * @param input `bowler`, `pattern`, `observations`; optional `minShots` (integer ≥ 1, default 12).
  * @returns Calibration: `shots` (usable observations), `enough`, `minShots`, `perBall` (ballId,
