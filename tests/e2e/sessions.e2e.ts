@@ -236,6 +236,9 @@ describe('sessions: shot entry on a phone', () => {
     await page.reload();
     await page.getByRole('heading', { level: 1, name: 'Sessions' }).waitFor();
     await page.getByText('Shots waiting to sync on this device').waitFor({ state: 'detached' });
+    await page.getByRole('table').getByRole('link', { name: /^\d{4}-\d{2}-\d{2}$/ }).first().waitFor();
+    expect(await hasHorizontalScroll(page)).toBe(false);
+    await screenshot(page, 'sessions-list-mobile');
     await page.locator(`a[href="/sessions/${sessionId}"]`).first().click();
     await syncStatus(page).filter({ hasText: 'All shots saved.' }).waitFor({ timeout: 15000 });
     await entryHeading(page).filter({ hasText: /^Game 1 · frame 9, ball 1$/ }).waitFor();
