@@ -236,7 +236,7 @@ describe('sessions: shot entry on a phone', () => {
     await page.reload();
     await page.getByRole('heading', { level: 1, name: 'Sessions' }).waitFor();
     await page.getByText('Shots waiting to sync on this device').waitFor({ state: 'detached' });
-    await page.getByRole('table').getByRole('link', { name: /^\d{4}-\d{2}-\d{2}$/ }).first().waitFor();
+    await page.getByRole('list', { name: 'Your sessions' }).getByRole('link', { name: /^\d{4}-\d{2}-\d{2} · Practice$/ }).first().waitFor();
     expect(await hasHorizontalScroll(page)).toBe(false);
     await screenshot(page, 'sessions-list-mobile');
     await page.locator(`a[href="/sessions/${sessionId}"]`).first().click();
