@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { scoreGame } from '../../../engine/index';
+import { calibrate, calibrationFor } from '../../../server/features/stats/stats.service';
 import { sequelize } from '../../../server/models/index';
 import { api, createUser, errorOf } from '../../helpers/api';
 import { createBall, createPattern, POLISHED_PEARL, SHORT_LIGHT } from '../../helpers/fixtures';
@@ -156,6 +157,11 @@ describe('GET /api/calibration', () => {
     await linkRow(coach.user.id, me.user);
     expect((await api.get(`/api/calibration?patternId=${pattern.id}&studentId=${me.user.id}`).set(coach.auth)).body.item).toEqual(cal);
     expect((await api.get(`/api/calibration?patternId=${pattern.id}`)).status).toBe(401);
+    // The fit is cached by the exact shots (and balls, release, pattern) it came from: the same input gives the same object back.
+    const again = await calibrationFor(me.user.id, pattern.id);
+    expect(await calibrationFor(me.user.id, pattern.id)).toBe(again);
+    const input = { bowler: { hand: 'right' as const, speedMph: 17, revRpm: 300, axisRotationDeg: 45, axisTiltDeg: 15 }, pattern: { name: pattern.name, sweeps: pattern.sweeps }, observations: [] };
+    expect(await calibrate(input)).toEqual(await calibrate({ ...input }));
     // Statistics carry the calibration of the latest session's pattern.
     const stats = await api.get('/api/stats').set(me.auth);
     expect(stats.body.item.calibration).toEqual(cal);
