@@ -50,6 +50,11 @@ export function errorHandler(err: unknown, req: Request, res: Response, next: Ne
     res.status(status).json({ error: { code: e.type?.replace(/\./g, '_') ?? 'bad_request', message: 'The request could not be processed' } });
     return;
   }
+  if ((err as { name?: string })?.name === 'SequelizeOptimisticLockError') {
+    // Two requests saved the same versioned row at once and this one lost: a conflict, not a server fault.
+    res.status(409).json({ error: { code: 'stale_version', message: 'This record was changed by another request at the same time; reload it and try again' } });
+    return;
+  }
   if (isDbUnavailable(err)) {
     logger.warn({ err, path: req.path }, 'database unavailable');
     res.status(503).json({ error: { code: 'service_unavailable', message: 'The service is temporarily unavailable; try again shortly' } });

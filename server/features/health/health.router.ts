@@ -1,6 +1,5 @@
 import { Router } from 'express';
 import nodemailer from 'nodemailer';
-import { Op } from 'sequelize';
 import { config } from '../../config/index';
 import { mailCaptureEnabled } from '../../lib/mailer';
 import { MailOutbox, sequelize } from '../../models/index';
@@ -53,7 +52,7 @@ healthRouter.get('/', async (_req, res) => {
     return;
   }
   const outbox = await withTimeout(
-    Promise.all([MailOutbox.count({ where: { status: 'pending' } }), MailOutbox.count({ where: { status: 'failed' } }), MailOutbox.min('createdAt', { where: { status: 'pending', createdAt: { [Op.ne]: null } } })]),
+    Promise.all([MailOutbox.count({ where: { status: 'pending' } }), MailOutbox.count({ where: { status: 'failed' } }), MailOutbox.min('createdAt', { where: { status: 'pending' } })]),
     'outbox check',
   ).then(
     ([pending, failed, oldest]) => ({ pending, failed, oldestPendingSeconds: oldest ? Math.round((Date.now() - new Date(oldest as Date).getTime()) / 1000) : null }),
