@@ -105,7 +105,7 @@ describe('client shell: sign-up, sign-in, sign-out', () => {
     const links = await nav.getByRole('link').allTextContents();
     expect(links).toEqual(expect.arrayContaining(['Home', 'Profile']));
     expect(links).not.toContain('Admin');
-    await page.getByText('Not built yet').first().waitFor();
+    await page.getByRole('heading', { level: 2, name: 'Last session' }).waitFor();
     await screenshot(page, 'home-bowler-desktop');
   });
 
