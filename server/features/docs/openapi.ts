@@ -73,6 +73,7 @@ export const ROUTES: RouteDoc[] = [
   { method: 'delete', path: '/api/centers/{id}/follow', summary: 'Stop following a center', who: 'signed-in', params: IdParamSchema },
   { method: 'get', path: '/api/follows', summary: 'Centers you follow with their current condition', who: 'signed-in' },
   { method: 'get', path: '/api/unsubscribe', summary: 'Unsubscribe link of a follower e-mail (no sign-in)', who: 'public' },
+  { method: 'post', path: '/api/unsubscribe', summary: 'One-click unsubscribe of a follower e-mail (RFC 8058; no sign-in)', who: 'public', body: z.object({ token: z.string().min(10).max(100) }).strict() },
   { method: 'post', path: '/api/sessions', summary: 'Start a session (center, condition or pattern, date, kind)', who: 'signed-in', body: SessionCreateSchema },
   { method: 'get', path: '/api/sessions', summary: 'My sessions, newest first (a linked coach: ?studentId)', who: 'owner or linked coach', query: SessionListQuerySchema },
   { method: 'get', path: '/api/sessions/{id}', summary: 'A session: frame sheets scored by scoreGame, shots, stats, moves, annotations', who: 'owner or linked coach', params: IdParamSchema },

@@ -201,5 +201,4 @@ export const UNDOCUMENTED: Record<string, string> = {
   'GET /api/docs': 'the documentation page itself',
   'GET /api/docs/openapi.json': 'the document itself',
   'GET /api/dev/mail': 'development-only mailbox, absent in production',
-  'POST /api/unsubscribe': 'KNOWN GAP: the one-click unsubscribe is missing from ROUTES in server/features/docs/openapi.ts; remove this line when it is added',
 };
