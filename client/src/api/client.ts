@@ -48,6 +48,8 @@ export interface RequestOptions {
   signal?: AbortSignal;
   /** Answer with the body as a Blob (downloads: exports, PDFs) instead of parsed JSON; errors are parsed as usual. */
   asBlob?: boolean;
+  /** Extra request headers (e.g. `Idempotency-Key`); they cannot replace Accept, Authorization or Content-Type. */
+  headers?: Readonly<Record<string, string>>;
 }
 
 interface ClientConfig {
@@ -89,7 +91,7 @@ async function readJson(res: Response): Promise<unknown> {
 
 /** Send one request to the API and return its parsed JSON body, typed by the caller's endpoint module. */
 export async function request<T>(method: HttpMethod, path: string, options: RequestOptions = {}): Promise<T> {
-  const headers: Record<string, string> = { Accept: 'application/json' };
+  const headers: Record<string, string> = { ...options.headers, Accept: 'application/json' };
   const token = config.getToken();
   if (token) headers.Authorization = `Bearer ${token}`;
   // A FormData body (file uploads) is sent as multipart; the browser sets its Content-Type with the boundary.

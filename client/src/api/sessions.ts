@@ -1,7 +1,6 @@
 import type { HitKind } from '@engine/index';
 import type { Page } from '@shared/auth';
 import type { Annotation } from '@shared/coaching';
-import { ApiErrorSchema } from '@shared/errors';
 import {
   HIT_KINDS,
   SESSION_KINDS,
@@ -15,8 +14,7 @@ import {
   type ShotCreate,
   type ShotCreated,
 } from '@shared/sessions';
-import { useAuthStore } from '@/stores/auth';
-import { api, ApiRequestError } from './client';
+import { api } from './client';
 
 export { HIT_KINDS, SESSION_KINDS };
 export type { Annotation, HitKind, NumberedGame, Session, SessionCreate, SessionDetail, SessionKind, SessionPatch, Shot, ShotCreated };
@@ -28,36 +26,6 @@ export interface AnnotationInput {
   text: string;
   gameNumber?: number | null;
   frame?: number | null;
-}
-
-/**
- * `POST /api/sessions/:id/shots` needs an `Idempotency-Key` header, which `request()` in client.ts cannot
- * send (it has no headers option); this one call is made here with the same token and error shape.
- * A 401 is left to the next ordinary request (which applies the sign-in policy) so the shot stays queued.
- */
-async function postShot(sessionId: number, key: string, body: ShotInput, signal?: AbortSignal): Promise<ShotCreated> {
-  const token = useAuthStore().token;
-  const headers: Record<string, string> = { Accept: 'application/json', 'Content-Type': 'application/json', 'Idempotency-Key': key };
-  if (token) headers.Authorization = `Bearer ${token}`;
-  let res: Response;
-  try {
-    res = await fetch(`/api/sessions/${sessionId}/shots`, { method: 'POST', headers, body: JSON.stringify(body), signal });
-  } catch (err) {
-    if (err instanceof DOMException && err.name === 'AbortError') throw err;
-    throw new ApiRequestError(0, 'network_error', 'Lanewright could not be reached. Check your connection and try again.');
-  }
-  const text = await res.text().catch(() => '');
-  let data: unknown = null;
-  try {
-    data = text ? (JSON.parse(text) as unknown) : null;
-  } catch {
-    data = null;
-  }
-  if (res.ok) return data as ShotCreated;
-  const parsed = ApiErrorSchema.safeParse(data);
-  throw parsed.success
-    ? new ApiRequestError(res.status, parsed.data.error.code, parsed.data.error.message, parsed.data.error.fields)
-    : new ApiRequestError(res.status, 'http_error', `The server answered ${res.status}. Please try again.`);
 }
 
 export const sessionsApi = {
@@ -75,7 +43,9 @@ export const sessionsApi = {
    * One shot. The same key again answers 200 with the first answer and stores nothing new, so a
    * retry after a lost answer is harmless.
    */
-  addShot: (sessionId: number, key: string, body: ShotInput, signal?: AbortSignal) => postShot(sessionId, key, body, signal),
+  addShot: (sessionId: number, key: string, body: ShotInput, signal?: AbortSignal) =>
+    // skipAuthRedirect: a 401 is left to the next ordinary request (which applies the sign-in policy) so the shot stays queued.
+    api.post<ShotCreated>(`/sessions/${sessionId}/shots`, body, { headers: { 'Idempotency-Key': key }, signal, skipAuthRedirect: true }),
   /** Undo: only the last shot of its game (else 409). */
   removeShot: (sessionId: number, shotId: number) => api.delete<null>(`/sessions/${sessionId}/shots/${shotId}`),
   annotate: (sessionId: number, body: AnnotationInput) => api.post<{ item: Annotation }>(`/sessions/${sessionId}/annotations`, body),

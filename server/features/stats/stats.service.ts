@@ -107,8 +107,6 @@ export const statsService = {
     const records: ShotRecord[] = rows.map((r) => toShotRecord(r, r.date!));
     const names = new Map(rows.map((r) => [String(r.ball_id), r.ball_name]));
     const dates = new Map(rows.map((r) => [String(r.session_id), r.date!]));
-    const byBallGroups = new Map<string, ShotRecord[]>();
-    for (const r of records) byBallGroups.set(r.ballId, [...(byBallGroups.get(r.ballId) ?? []), r]);
     const { hand } = await bowlerOf(bowlerId);
     const calibrationPatternId = q.patternId ?? (await sessionsRepository.latestPatternId(bowlerId));
     let calibration: Calibration | null = null;
@@ -122,9 +120,8 @@ export const statsService = {
     return {
       overall: shotStats(records),
       byBall: statsBy(records, 'ballId').map((g) => ({ ballId: Number(g.key), name: names.get(g.key) ?? '', stats: g.stats })),
-      bySurface: [...byBallGroups.entries()].flatMap(([ballId, list]) =>
-        statsBy(list, 'surfaceKey').map((g) => ({ ballId: Number(ballId), name: names.get(ballId) ?? '', surfaceKey: g.key, stats: g.stats })),
-      ),
+      // Grouped within each full game, so a spare thrown with another ball keeps its leave.
+      bySurface: statsBy(records, ['ballId', 'surfaceKey']).map((g) => ({ ballId: Number(g.keys.ballId), name: names.get(g.keys.ballId!) ?? '', surfaceKey: g.keys.surfaceKey!, stats: g.stats })),
       trend: statsBy(records, 'sessionId')
         .map((g) => ({ sessionId: Number(g.key), date: dates.get(g.key)!, games: g.stats.games, average: g.stats.average, strikePct: g.stats.strike.pct, sparePct: g.stats.spare.pct }))
         .sort((a, b) => a.date.localeCompare(b.date) || a.sessionId - b.sessionId),
