@@ -2,14 +2,14 @@ import type { BallSpec, LegalityResult, LegalityViolation, LegalityGap } from '.
 import { DEFAULT_BALL_DIAMETER_IN } from './constants';
 import { validateBallSpec } from './validateBallSpec';
 
-const LIMITS_SOURCE = 'USBC equipment specifications, TRADE.md 1.1';
+const LIMITS_SOURCE = 'USBC equipment specifications';
 
 /**
  * Current USBC limits for a bowling ball, as Lanewright applies them.
- * Source: ../shared/TRADE.md conventions table and section 1.1 (weight, diameter, RG and
- * differential from the USBC specification summary, status S; hardness from the 2020 USBC
- * release, status P). The RG, differential and hardness limits are those given for balls of
- * 13 lb and more (`fullSpecFromLb`). Units: lb, in, durometer D.
+ * Source: the USBC equipment specifications (weight, diameter, RG and differential as summarised from the
+ * specification; hardness from the USBC release of June 2020: 73 D for balls approved from 2021, 72 D before).
+ * The RG, differential and hardness limits are those given for balls of 13 lb and more (`fullSpecFromLb`).
+ * Units: lb, in, durometer D.
  */
 export const USBC_BALL_LIMITS = {
   maxWeightLb: 16,
@@ -18,8 +18,10 @@ export const USBC_BALL_LIMITS = {
   minRgIn: 2.46,
   maxRgIn: 2.8,
   maxDifferentialIn: 0.06,
-  /** 73 D for balls approved from 2021; 72 D applied to earlier approvals (TRADE.md 1.1). */
+  /** 73 D for balls approved from 2021 on (USBC, final rule of June 2020); earlier approvals: `minHardnessBefore2021D`. */
   minHardnessD: 73,
+  /** 72 D for balls approved before 2021 (USBC equipment specifications until the 2020 change). */
+  minHardnessBefore2021D: 72,
   fullSpecFromLb: 13,
 } as const;
 
@@ -28,14 +30,15 @@ export const USBC_BALL_LIMITS = {
  *
  * Definition: a ball is legal when it breaks none of the checked limits in USBC_BALL_LIMITS:
  * weight ≤ 16 lb; diameter 8.500–8.595 in (a missing diameter is the nominal 8.5 in); and, for
- * balls of 13 lb and more, RG 2.460–2.800 in, differential ≤ 0.060 in and hardness ≥ 73 D.
+ * balls of 13 lb and more, RG 2.460–2.800 in, differential ≤ 0.060 in and hardness ≥ 73 D (≥ 72 D when
+ * `approvalYear` is before 2021 — models approved then stay legal).
  * Limits are inclusive: a value exactly at a limit is legal.
  *
- * Source: ../shared/TRADE.md section 1.1 (USBC specification summary and 2020 hardness release).
+ * Source: USBC equipment specifications (summary) and the USBC hardness release of June 2020.
  *
  * Edge cases: no limit on intermediate differential was found, so it is never a violation and is
  * listed in `unchecked`; a missing hardness is listed in `unchecked`; for a ball under 13 lb the
- * RG, differential and hardness limits are listed in `unchecked` (TRADE.md gives them for 13 lb
+ * RG, differential and hardness limits are listed in `unchecked` (the USBC gives them for 13 lb
  * and more only). Layout and surface are not equipment specifications and are not checked.
  *
  * @param ball the ball, in lb and inches.
@@ -67,14 +70,16 @@ export function checkLegality(ball: BallSpec): LegalityResult {
     if (ball.differential > L.maxDifferentialIn) broken('differential', `≤ ${L.maxDifferentialIn.toFixed(3)} in`);
     if (ball.hardnessD === undefined) {
       unchecked.push({ field: 'hardnessD', reason: 'no hardness given' });
-    } else if (ball.hardnessD < L.minHardnessD) {
-      broken('hardnessD', `≥ ${L.minHardnessD} D`);
+    } else {
+      const before2021 = ball.approvalYear !== undefined && ball.approvalYear < 2021;
+      const min = before2021 ? L.minHardnessBefore2021D : L.minHardnessD;
+      if (ball.hardnessD < min) broken('hardnessD', `≥ ${min} D (${before2021 ? 'approved before 2021' : 'approved from 2021 on'})`);
     }
   } else {
-    const reason = `TRADE.md gives this limit for balls of ${L.fullSpecFromLb} lb and more`;
+    const reason = `the USBC limit is given for balls of ${L.fullSpecFromLb} lb and more`;
     unchecked.push({ field: 'rg', reason }, { field: 'differential', reason }, { field: 'hardnessD', reason });
   }
-  unchecked.push({ field: 'intermediateDifferential', reason: 'no USBC limit found (TRADE.md 1.1)' });
+  unchecked.push({ field: 'intermediateDifferential', reason: 'no USBC limit on intermediate differential was found' });
 
   return { legal: violations.length === 0, violations, unchecked };
 }

@@ -21,14 +21,15 @@ export { ratioClass, RATIO_CLASS } from './ratioClass';
 export { validateBallSpec, COVER_TYPES } from './validateBallSpec';
 export { validateBowlerProfile, BOWLER_BOUNDS } from './validateBowlerProfile';
 export { validatePattern } from './validatePattern';
-export { surfaceSmoothness, SMOOTHNESS_SCALE } from './surfaceSmoothness';
-export { ballFeatures, COVER_READ, COVER_SURFACE_RESPONSE, FULL_ASYMMETRY_IN } from './ballFeatures';
-export { ballStrength, STRENGTH_WEIGHTS } from './ballStrength';
-export { matchupContext, DEMAND_SCALE } from './matchupContext';
-export { MATCHUP_RULES } from './matchupRules';
-export { suggestChanges, SURFACE_STEPS } from './suggestChanges';
-export { rulesLayer, RULES_BASE_SCORE } from './rulesLayer';
-export { scoreByRules } from './scoreByRules';
+export { ballReaction, REACTION_SCALE, surfaceWords } from './ballReaction';
+export type { BallReaction, ReactionFactor } from './ballReaction';
+export { conditionDemand, DEMAND_SCALE } from './conditionDemand';
+export type { ConditionDemand, DemandFactor } from './conditionDemand';
+export { matchupContext } from './matchupContext';
+export { strengthFit, FIT_SCALE } from './strengthFit';
+export type { StrengthFit } from './strengthFit';
+export { suggestChanges, SURFACE_STEPS, LAYOUT_STEPS, SURFACE_CAUTION } from './suggestChanges';
+export { fitLayer, FIT_LAYER_WEIGHT } from './fitLayer';
 export { combineLayers } from './combineLayers';
 export type { WeightedLayer } from './combineLayers';
 export { SCORING_LAYERS } from './scoringLayers';
@@ -48,20 +49,7 @@ export {
   MICROLITERS_PER_ML,
 } from './constants';
 
-// Rules of thumb, one per file under rules/.
-export { coverVsOil, COVER_IDEAL_DEMAND, COVER_VS_OIL_POINTS } from './rules/coverVsOil';
-export { surfaceVsOil, SURFACE_VS_OIL_POINTS } from './rules/surfaceVsOil';
-export { rgVsLength, RG_VS_LENGTH_POINTS } from './rules/rgVsLength';
-export { differentialVsOil, DIFFERENTIAL_VS_OIL_POINTS } from './rules/differentialVsOil';
-export { asymmetryVsOil, ASYMMETRY_VS_OIL_POINTS } from './rules/asymmetryVsOil';
-export { layoutFlare, LAYOUT_FLARE_POINTS, targetFlareShare } from './rules/layoutFlare';
-export { flareVsRatio, FLARE_VS_RATIO_POINTS } from './rules/flareVsRatio';
-export { bowlerSpeedRevs, BOWLER_SPEED_REVS_POINTS } from './rules/bowlerSpeedRevs';
-export { patternBreakdown, PATTERN_BREAKDOWN_POINTS, BREAKDOWN_NEUTRAL_STRENGTH } from './rules/patternBreakdown';
-export { plasticSpareBall, PLASTIC_STRIKE_PENALTY } from './rules/plasticSpareBall';
-export { usbcLegality, ILLEGAL_BALL_PENALTY } from './rules/usbcLegality';
-
-// ── Ball-motion model (issue 4, engine/motion; its README lists every model assumption) ─────────
+// ── Ball-motion model (engine/motion; its README lists every model assumption) ───────────────────
 export { simulateShot } from './motion/simulateShot';
 export type { ShotPrediction, SimulateShotInput } from './motion/shotPrediction';
 export { missRoom } from './motion/missRoom';
@@ -69,11 +57,12 @@ export type { MissRoom } from './motion/missRoom';
 export { motionLayer, MOTION_LAYER_POINTS, MOTION_LAYER_WEIGHT } from './motion/motionLayer';
 export type { MotionVerdict, RankedBallWithPrediction } from './motion/motionLayer';
 export { MOTION_CALIBRATION } from './motion/motionCalibration';
-export type { CoverCalibration } from './motion/motionCalibration';
+export type { CoverCalibration, LaneFriction } from './motion/motionCalibration';
+export { laneSurfaceOf, DEFAULT_LANE_SURFACE } from './motion/laneSurfaceOf';
 export { PHYSICAL_CONSTANTS } from './motion/physicalConstants';
 export { ballInertia } from './motion/ballInertia';
 export type { BallInertia } from './motion/ballInertia';
-export { coverFriction } from './motion/coverFriction';
+export { coverFriction, REFERENCE_FILM_UM } from './motion/coverFriction';
 export type { CoverFriction } from './motion/coverFriction';
 export { laneOilMap } from './motion/laneOilMap';
 export type { LaneOilMap } from './motion/laneOilMap';
@@ -92,13 +81,13 @@ export type { IntegrateOptions, DeliveryResult } from './motion/integrateDeliver
 export { contactAngularMomentum } from './motion/contactAngularMomentum';
 export { kineticEnergy } from './motion/kineticEnergy';
 export { solvePocketLine } from './motion/solvePocketLine';
-export type { PocketLine } from './motion/solvePocketLine';
+export type { PocketLine, PocketLineHint } from './motion/solvePocketLine';
 export { prepareShot } from './motion/prepareShot';
 export type { PreparedShot } from './motion/prepareShot';
 export { toShotPrediction } from './motion/toShotPrediction';
 // ── end ball-motion model ──────────────────────────────────────────────────────────────────────
 
-// ── Shot log, stats, moves and calibration (issue 7, engine/shotlog) ──────────────────────────
+// ── Shot log, stats, moves and calibration (engine/shotlog) ───────────────────────────────────
 export type * from './shotlog/types';
 export { buildGame } from './shotlog/buildGame';
 export { checkDelivery } from './shotlog/checkDelivery';

@@ -1,34 +1,41 @@
-import type { ArsenalBall, RankArsenalInput } from './types';
+import type { ArsenalBall, RankArsenalInput, RuleResult, Suggestion } from './types';
+import { checkLegality } from './checkLegality';
 import { combineLayers } from './combineLayers';
 import { matchupContext } from './matchupContext';
 import { SCORING_LAYERS } from './scoringLayers';
+import { FIT_SCALE, strengthFit } from './strengthFit';
 import { list, record } from './internal/checks';
 import { validateBallSpec } from './validateBallSpec';
-// ── ball-motion layer (issue 4, engine/motion) ──────────────────────────────────────────────
 import { conditionOilMap } from './motion/conditionOilMap';
 import { MOTION_LAYER_WEIGHT, motionLayer, type RankedBallWithPrediction } from './motion/motionLayer';
-// ── end ball-motion layer imports ───────────────────────────────────────────────────────────
+
+/** Order of the standings in a ranking: strike balls, then spare balls, then balls outside the limits. */
+const STANDING_ORDER = { strike: 0, spare: 1, illegal: 2 } as const;
 
 /**
- * Ranks a bowler's arsenal for a pattern, best first, with the reasons and what to change.
+ * Ranks a bowler's arsenal for a condition, best first, with the reasons and what to change.
  *
- * Definition: the matchup is built once (matchupContext); each ball is scored by every layer of
- * SCORING_LAYERS, then by the ball-motion layer (motionLayer: the pocket line the model finds, its
- * predicted entry angle — about 6° best, TRADE.md §2.2 — pocket reachability and miss room, on the oil
- * map after `gamesBowled`, conditionOilMap; weight MOTION_LAYER_WEIGHT), and the layers are combined
- * (combineLayers, a weighted mean). Each ranked ball carries the model's `prediction` and `missRoom`. Order: strike balls
- * by score (highest first), then plastic balls (a spare ball is never first for strikes, whatever
- * its score), ties by id.
- * Source: the rules of thumb in engine/rules/ (README.md table), each naming its source.
+ * Definition: the matchup is built once (matchupContext: the pattern's numbers, the lane surface, the games
+ * bowled and what the condition asks of this bowler); each ball gets the matchup model's fit (fitLayer:
+ * its reaction against the demand, and the changes that close the gap) and the ball-motion model's verdict
+ * (motionLayer: the line that reaches the pocket, its entry angle, miss room, skid, breakpoint and roll, on the
+ * oil map after `gamesBowled`), combined by combineLayers (weights FIT_LAYER_WEIGHT and MOTION_LAYER_WEIGHT).
+ * Standing: a ball outside the governing body's limits (checkLegality) is 'illegal' — listed apart, after every
+ * other ball, with its broken limits, never ranked for strikes; plastic is a 'spare' ball, listed after the strike
+ * balls; every other ball is a 'strike' ball. Order: standing, then score (highest first), then id.
+ * A strike ball that is too strong or too weak also gets a 'ball' suggestion naming the strike ball of the
+ * arsenal that fits the condition best, when that one is at least FIT_SCALE.tolerance closer.
+ * Source: strengthFit, suggestChanges and motionLayer name theirs; the legality limits are the USBC equipment
+ * specifications.
  *
- * @param input `balls` (each a BallSpec with a unique non-empty `id`), `bowler`, `pattern`,
- *   `gamesBowled` (games already bowled on the pattern, default 0), `calibration` (fitCalibration's
- *   answer, optional: when `calibration.enough`, every ball whose own fit is `enough` is simulated with
- *   its fitted frictionScale, and its entry carries that `frictionScale` and a 'motion-calibration' reason).
- * @returns one RankedBall per ball: `id`, `score` 0–100, `reasons` (rule, effect, text, source —
- *   the rules layer's, then the motion layer's 'motion-…' reasons), `suggestions` (surface, layout,
- *   release, line), `layers` (each layer's own score and weight), `prediction` (ShotPrediction on the
- *   pocket line) and `missRoom` (boards of target error that still reach the pocket). An empty arsenal gives [].
+ * @param input `balls` (each a BallSpec with a unique non-empty `id` and an optional `label` for texts),
+ *   `bowler`, `pattern`, `gamesBowled` (default 0), `lane` (default synthetic, medium friction), `calibration`
+ *   (fitCalibration's answer, optional: when `calibration.enough`, every ball whose own fit is `enough` is
+ *   simulated with its fitted frictionScale, and its entry carries that `frictionScale` and a
+ *   'motion-calibration' reason).
+ * @returns one RankedBall per ball: `id`, `score` 0–100, `standing`, `fit` (strength, demand, gap, verdict),
+ *   `reasons` (the fit's parts, then the motion model's), `suggestions`, `layers`, `prediction` (on the pocket
+ *   line), `missRoom`, and `legality` for an illegal ball. An empty arsenal gives [].
  * @throws TypeError/RangeError for malformed input or duplicate ids, naming 'rankArsenal'.
  * @example
  * rankArsenal({ balls, bowler, pattern })[0].id; // => the best ball's id
@@ -45,57 +52,104 @@ export function rankArsenal(input: RankArsenalInput): RankedBallWithPrediction[]
     if (ids.has(id)) throw new RangeError(`${fn}: ball id ${JSON.stringify(id)} is used twice`);
     ids.add(id);
   });
-  const ctx = matchupContext(input.bowler, input.pattern, input.gamesBowled ?? 0, fn);
+  const ctx = matchupContext(input.bowler, input.pattern, input.gamesBowled ?? 0, fn, input.lane);
   const scales = calibrationScales(fn, inp.calibration);
 
   const scorers = SCORING_LAYERS.map((layer) => ({ layer, score: layer.prepare(ctx) }));
-  // ── ball-motion layer (issue 4): one oil map per ranking (after ctx.gamesBowled), one pocket line,
-  // prediction and miss room per ball; its score joins the rules layer's (engine/motion/motionLayer.ts).
-  const motionMap = conditionOilMap(ctx.pattern, ctx.bowler, ctx.gamesBowled);
+  // One oil map per ranking (after ctx.gamesBowled). Each ball's line is searched on its own, so a ball's numbers
+  // never depend on the other balls ranked with it (the what-if and the side-by-side show the same numbers).
+  const motionMap = conditionOilMap(ctx.pattern, ctx.bowler, ctx.gamesBowled, ctx.lane);
 
-  const ranked = (balls as ArsenalBall[]).map((ball) => {
+  const arsenal = balls as (ArsenalBall & { label?: string })[];
+  const ranked = arsenal.map((ball) => {
+    const legality = checkLegality(ball);
+    const standing: 'strike' | 'spare' | 'illegal' = !legality.legal ? 'illegal' : ball.coverType === 'plastic' ? 'spare' : 'strike';
     const layers = scorers.map(({ layer, score }) => ({ name: layer.name, weight: layer.weight, result: score(ball) }));
     const scale = scales.get(ball.id);
-    const verdict = motionLayer(ball, ctx.bowler, ctx.pattern, motionMap, ctx.gamesBowled, scale ?? 1);
+    const verdict = motionLayer(ball, ctx.bowler, ctx.pattern, motionMap, ctx.gamesBowled, scale?.frictionScale ?? 1, { lane: ctx.lane });
     layers.push({ name: 'motion', weight: MOTION_LAYER_WEIGHT, result: verdict.result });
     const { score, reasons, suggestions } = combineLayers(layers);
-    if (scale !== undefined) {
-      const pct = Math.round((scale - 1) * 100);
-      reasons.push({
-        rule: 'motion-calibration',
-        effect: 0,
-        text: `The ball-motion model is calibrated to your logged shots with this ball: friction ×${scale.toFixed(2)} (${pct === 0 ? 'as modelled' : `${Math.abs(pct)} % ${pct > 0 ? 'more' : 'less'} than modelled`}).`,
-        source: 'fitCalibration (engine/shotlog) on the bowler\'s logged breakpoints and pocket results',
-      });
+    if (scale !== undefined) reasons.push(calibrationReason(scale, ball));
+    if (standing === 'illegal') {
+      const broken = legality.violations.map((v) => `${v.field} ${v.limit}`).join(', ');
+      reasons.unshift({ rule: 'legality', effect: 0, text: `Outside the USBC limits (${broken}): listed apart and not ranked for strikes.`, source: 'USBC equipment specifications' });
     }
+    const fit = strengthFit(ball, ctx);
     const entry: RankedBallWithPrediction = {
       id: ball.id,
       score,
+      standing,
+      fit: { strength: fit.strength, demand: fit.demand, gap: fit.gap, verdict: fit.verdict },
       reasons,
       suggestions,
       layers: layers.map((l) => ({ name: l.name, weight: l.weight, score: l.result.score })),
       prediction: verdict.prediction,
       missRoom: verdict.missRoom,
-      ...(scale !== undefined ? { frictionScale: scale } : {}),
+      ...(scale !== undefined ? { frictionScale: scale.frictionScale } : {}),
+      ...(standing === 'illegal' ? { legality } : {}),
     };
     return { ball, entry };
   });
-  // ── end ball-motion layer ──
+
+  // A better-fitting strike ball from the same arsenal, for a ball that is too strong or too weak.
+  const strikes = ranked.filter((r) => r.entry.standing === 'strike');
+  for (const r of strikes) {
+    const gap = r.entry.fit?.gap ?? 0;
+    if (Math.abs(gap) <= FIT_SCALE.tolerance) continue;
+    let best: (typeof strikes)[number] | null = null;
+    for (const o of strikes) {
+      if (o === r) continue;
+      const g = Math.abs(o.entry.fit?.gap ?? Infinity);
+      if (g <= Math.abs(gap) - FIT_SCALE.tolerance && (best === null || g < Math.abs(best.entry.fit?.gap ?? Infinity))) best = o;
+    }
+    if (best !== null) {
+      const name = best.ball.label ?? `ball ${best.ball.id}`;
+      const s: Suggestion = {
+        kind: 'ball',
+        text: `Or change balls: ${name} fits this condition better (${gap > 0 ? 'weaker' : 'stronger'}: gap ${best.entry.fit?.gap} against ${gap}).`,
+        change: { ballId: best.ball.id },
+      };
+      const lineAt = r.entry.suggestions.findIndex((x) => x.kind === 'line');
+      r.entry.suggestions.splice(lineAt < 0 ? r.entry.suggestions.length : lineAt, 0, s);
+    }
+  }
+
   ranked.sort((a, b) => {
-    const pa = a.ball.coverType === 'plastic' ? 1 : 0;
-    const pb = b.ball.coverType === 'plastic' ? 1 : 0;
-    return pa - pb || b.entry.score - a.entry.score || (a.ball.id < b.ball.id ? -1 : a.ball.id > b.ball.id ? 1 : 0);
+    const sa = STANDING_ORDER[a.entry.standing ?? 'strike'], sb = STANDING_ORDER[b.entry.standing ?? 'strike'];
+    return sa - sb || b.entry.score - a.entry.score || (a.ball.id < b.ball.id ? -1 : a.ball.id > b.ball.id ? 1 : 0);
   });
   return ranked.map((r) => r.entry);
 }
 
+/** A calibration applied to one ball: its scale and the surfaces its shots were thrown with. */
+interface AppliedScale {
+  frictionScale: number;
+  surfaces: string[];
+}
+
+/** The 'motion-calibration' reason: the scale, and the shift to today's surface when the shots were thrown with another. */
+function calibrationReason(scale: AppliedScale, ball: ArsenalBall): RuleResult {
+  const pct = Math.round((scale.frictionScale - 1) * 100);
+  const today = ball.polished ? `${ball.surfaceGrit} grit polished` : `${ball.surfaceGrit} grit`;
+  const other = scale.surfaces.length > 0 && !scale.surfaces.includes(today);
+  const shift = other
+    ? ` Fitted on shots thrown at ${scale.surfaces.join(' and ')}; carried to today's ${today}, where the model's own surface change applies on top of it.`
+    : '';
+  return {
+    rule: 'motion-calibration',
+    effect: 0,
+    text: `The ball-motion model is calibrated to your logged shots with this ball: friction ×${scale.frictionScale.toFixed(2)} (${pct === 0 ? 'as modelled' : `${Math.abs(pct)} % ${pct > 0 ? 'more' : 'less'} than modelled`}).${shift}`,
+    source: "least-squares fit of the ball-motion model to the bowler's logged breakpoints and pocket results (fitCalibration)",
+  };
+}
+
 /**
- * The friction multipliers a calibration applies, by ball id: only when `calibration.enough`, and only
- * for balls whose own fit is `enough` (n ≥ minShots). Checks the calibration's shape (TypeError/RangeError
- * naming `fn`). Internal to rankArsenal.
+ * The friction multipliers a calibration applies, by ball id: only when `calibration.enough`, and only for balls
+ * whose own fit is `enough` (n ≥ minShots), with the surfaces their shots were thrown with. Checks the
+ * calibration's shape (TypeError/RangeError naming `fn`). Internal to rankArsenal.
  */
-function calibrationScales(fn: string, calibration: unknown): Map<string, number> {
-  const out = new Map<string, number>();
+function calibrationScales(fn: string, calibration: unknown): Map<string, AppliedScale> {
+  const out = new Map<string, AppliedScale>();
   if (calibration === undefined || calibration === null) return out;
   const c = record(fn, 'calibration', calibration);
   if (typeof c.enough !== 'boolean') throw new TypeError(`${fn}: calibration.enough must be true or false, got ${String(c.enough)}`);
@@ -108,7 +162,8 @@ function calibrationScales(fn: string, calibration: unknown): Map<string, number
     if (typeof scale !== 'number' || !Number.isFinite(scale)) throw new TypeError(`${fn}: calibration.perBall[${i}].frictionScale must be a finite number, got ${String(scale)}`);
     if (scale < 0.1 || scale > 10) throw new RangeError(`${fn}: calibration.perBall[${i}].frictionScale must be in [0.1, 10], got ${scale}`);
     const enough = b.enough === undefined ? (typeof b.n === 'number' && typeof c.minShots === 'number' && b.n >= c.minShots) : b.enough === true;
-    if (enough) out.set(b.ballId, scale);
+    const surfaces = Array.isArray(b.surfaces) ? (b.surfaces as unknown[]).filter((x): x is string => typeof x === 'string') : [];
+    if (enough) out.set(b.ballId, { frictionScale: scale, surfaces });
   });
   return out;
 }

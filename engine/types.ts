@@ -34,6 +34,20 @@ export interface BallSpec {
   polished: boolean;
   hardnessD?: number;
   layout?: BallLayout;
+  /** Games bowled since the last resurface (the cover dulls and soaks up oil with use); default 0. */
+  gamesSinceResurface?: number;
+  /** Year the ball model was approved (or released) — the hardness limit depends on it; unknown: today's limit. */
+  approvalYear?: number;
+}
+
+/**
+ * The lane surface a condition is bowled on: its material and how much friction it has. Wood soaks up
+ * conditioner and breaks down faster; a high-friction surface grips the ball harder once the oil is gone.
+ * Default: synthetic, medium friction.
+ */
+export interface LaneSurface {
+  kind: 'wood' | 'synthetic';
+  friction: 'low' | 'medium' | 'high';
 }
 
 /** How a bowler releases the ball. */
@@ -156,11 +170,11 @@ export interface RuleResult {
   effect: number;
   /** One sentence a bowler understands. */
   text: string;
-  /** Where the rule comes from: a TRADE.md entry, a standard, or "common practice". */
+  /** Where the rule comes from: a publication, a standard, or "common practice". */
   source: string;
 }
 
-export type SuggestionKind = 'surface' | 'layout' | 'release' | 'line';
+export type SuggestionKind = 'surface' | 'layout' | 'release' | 'line' | 'ball';
 
 /** Something to change, and which way. `change` holds the new values, e.g. { surfaceGrit: 3000 }. */
 export interface Suggestion {
@@ -179,6 +193,8 @@ export interface RankArsenalInput {
   pattern: OilPattern;
   /** Games already bowled on the pattern (pattern breakdown); default 0. */
   gamesBowled?: number;
+  /** The lane surface the condition names; default synthetic, medium friction. */
+  lane?: LaneSurface;
   /**
    * The bowler's calibration (fitCalibration, issue 7): when `enough`, each ball with its own
    * `enough` fit is simulated with its fitted `frictionScale` in the ball-motion layer.
@@ -202,54 +218,26 @@ export interface RankedBall {
   suggestions: Suggestion[];
   /** Each scoring layer's own score and weight (rankArsenal fills it; see SCORING_LAYERS). */
   layers?: { name: string; weight: number; score: number }[];
+  /**
+   * 'strike' (ranked for strikes), 'spare' (plastic: a spare ball, listed after the strike balls) or 'illegal'
+   * (outside the governing body's limits: listed apart, after every other ball, with `legality`).
+   */
+  standing?: 'strike' | 'spare' | 'illegal';
+  /** The ball's reaction against the condition's demand (strengthFit). */
+  fit?: { strength: number; demand: number; gap: number; verdict: 'too-strong' | 'suits' | 'too-weak' };
+  /** The broken limits of an illegal ball. */
+  legality?: LegalityResult;
 }
 
 /**
- * What the rules layer knows about a matchup before looking at any ball: the pattern's numbers,
- * how much ball the pattern and the bowler call for, and how far the pattern has broken down.
- * All demands are 0 (least ball) … 1 (most ball).
+ * What the matchup knows before looking at any ball: the pattern's numbers, the lane surface, the games
+ * bowled, the bowler, and what the condition asks of this bowler on the matchup scale (conditionDemand).
  */
 export interface MatchupContext {
   bowler: BowlerProfile;
   pattern: OilPattern;
   analysis: PatternAnalysis;
   gamesBowled: number;
-  /** From the pattern's volume: 0 at 15 mL or less, 1 at 30 mL or more. */
-  volumeDemand: number;
-  /** From the pattern's length: 0 at 33 ft or less, 1 at 48 ft or more. */
-  lengthDemand: number;
-  /** Combined pattern demand: 0.55 × volumeDemand + 0.45 × lengthDemand. */
-  oilDemand: number;
-  /** From the bowler's speed and rev rate: 0 = needs little ball (high revs, low speed), 1 = needs a lot. */
-  bowlerNeed: number;
-  /** 0 on a fresh pattern, rising toward 1 as games are bowled: g / (g + 6). */
-  breakdown: number;
-  /** The ball strength the matchup calls for (0–1), from oilDemand, bowlerNeed and breakdown. */
-  targetStrength: number;
+  lane: LaneSurface;
+  demand: import('./conditionDemand').ConditionDemand;
 }
-
-/** A ball's properties on the rules layer's 0–1 scales. */
-export interface BallFeatures {
-  /** COVER_READ of the cover type (see ballFeatures). */
-  coverRead: number;
-  /** COVER_SURFACE_RESPONSE of the cover type. */
-  surfaceResponse: number;
-  /** surfaceSmoothness of grit and polish: 0 rough … 1 polished 4000. */
-  smoothness: number;
-  /** 1 at the lowest legal RG (2.46 in, earliest roll) … 0 at the highest (2.80 in). */
-  rgLowness: number;
-  /** Differential as a share of the legal maximum 0.060 in, 0–1. */
-  differentialShare: number;
-  /** Intermediate differential ÷ FULL_ASYMMETRY_IN, 0–1 (0 = symmetric core). */
-  asymmetry: number;
-  /** flareShare of the layout, or null when the ball has no layout. */
-  layoutShare: number | null;
-  /** Flare potential: differentialShare × (layoutShare, or 1 without a layout). */
-  flare: number;
-}
-
-/**
- * One rule of thumb of the rules layer: a small pure function of a ball (with its features) and the
- * matchup, returning its contribution, or null when it does not apply to this ball.
- */
-export type MatchupRule = (ball: BallSpec, features: BallFeatures, ctx: MatchupContext) => RuleResult | null;

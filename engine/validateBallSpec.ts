@@ -2,7 +2,7 @@ import type { BallSpec, CoverType } from './types';
 import { DEFAULT_BALL_DIAMETER_IN } from './constants';
 import { bool, inRange, oneOf, positive, record } from './internal/checks';
 
-/** The cover types the engine knows, weakest-reading to strongest-reading in oil (TRADE.md 7.2). */
+/** The cover types the engine knows, weakest-reading to strongest-reading in oil (common practice). */
 export const COVER_TYPES: readonly CoverType[] = [
   'plastic',
   'urethane',
@@ -17,8 +17,9 @@ export const COVER_TYPES: readonly CoverType[] = [
  * Well-formed is about physical sense, not legality (see checkLegality): weight, diameter and RG
  * are positive, the RG is smaller than the ball's radius (no mass can sit outside the ball), the
  * differentials are zero or more and the intermediate differential is no larger than the
- * differential (the intermediate axis's RG lies between the lowest and the highest), the grit is positive, the hardness (if given) is on the 0–100
- * durometer scale, and the layout (if given) has a pin-to-PAP distance from 0 to half the
+ * differential (the intermediate axis's RG lies between the lowest and the highest), the grit is positive, the
+ * hardness (if given) is on the 0–100 durometer scale, games since the last resurface 0–10000, an approval
+ * year 1900–2200, and the layout (if given) has a pin-to-PAP distance from 0 to half the
  * circumference and angles from 0° to 180°.
  *
  * Source: engine invalid-input policy (README.md); physical bounds are geometry.
@@ -52,6 +53,8 @@ export function validateBallSpec(ball: unknown, fn = 'validateBallSpec'): assert
   positive(fn, 'surfaceGrit', b.surfaceGrit);
   bool(fn, 'polished', b.polished);
   if (b.hardnessD !== undefined) inRange(fn, 'hardnessD', b.hardnessD, 0, 100, 'D');
+  if (b.gamesSinceResurface !== undefined) inRange(fn, 'gamesSinceResurface', b.gamesSinceResurface, 0, 10000, 'games');
+  if (b.approvalYear !== undefined) inRange(fn, 'approvalYear', b.approvalYear, 1900, 2200);
   if (b.layout !== undefined) {
     const l = record(fn, 'layout', b.layout);
     inRange(fn, 'layout.pinToPapIn', l.pinToPapIn, 0, (Math.PI * diameter) / 2, 'in');

@@ -1,4 +1,5 @@
-import type { BallSpec, BowlerProfile, OilPattern } from '../types';
+import type { BallSpec, BowlerProfile, LaneSurface, OilPattern } from '../types';
+import { laneSurfaceOf } from './laneSurfaceOf';
 import { assertNumber } from './assertNumber';
 import { ballInertia } from './ballInertia';
 import { coverFriction } from './coverFriction';
@@ -16,19 +17,21 @@ import { transitionOilMap } from './transitionOilMap';
  * The oil map a bowler meets after `gamesBowled` games on a pattern: the fresh map
  * (patternOilMap), then, when games > 0, transitionOilMap along the track of the pair's typical line —
  * the pocket line of MOTION_CALIBRATION.transitionReferenceBall thrown with this bowler's release on the
- * fresh pattern (assumption: the pair plays lines like the bowler's own; PHYSICS.md §5.4).
+ * fresh pattern (assumption: the pair plays lines like the bowler's own), on the condition's lane surface
+ * (`lane`, default synthetic and medium friction; wood loses oil faster).
  *
  * Units: µm map, boards, ft. Edge cases: gamesBowled in [0, 50] (RangeError otherwise); a pattern on
  * which even the reference ball cannot reach the pocket uses the solver's closest line.
  * Example: `conditionOilMap(pattern, bowler, 3)`.
  */
-export function conditionOilMap(pattern: OilPattern, bowler: BowlerProfile, gamesBowled = 0): LaneOilMap {
+export function conditionOilMap(pattern: OilPattern, bowler: BowlerProfile, gamesBowled = 0, lane?: LaneSurface): LaneOilMap {
   const games = assertNumber('conditionOilMap', 'gamesBowled', gamesBowled, 0, 50);
+  const surface = laneSurfaceOf('conditionOilMap', lane);
   const fresh = patternOilMap(pattern);
   if (games === 0) return fresh;
   const ref = K.transitionReferenceBall as BallSpec;
   const inertia = ballInertia(ref);
-  const field = oilFrictionField(fresh, coverFriction(ref));
+  const field = oilFrictionField(fresh, coverFriction(ref, surface));
   const hand = handSign(bowler.hand);
   const run = (laydown: number, target: number) => integrateDelivery(releaseState(ref, bowler, laydown, target), inertia, field, { hand });
   const line = solvePocketLine(run, {});
@@ -39,5 +42,5 @@ export function conditionOilMap(pattern: OilPattern, bowler: BowlerProfile, game
     track.push({ ft: r.sampleFt[i], board: hand === 1 ? b : 40 - b });
   }
   if (track.length < 2) track.push({ ft: 60, board: track[0]?.board ?? 20 });
-  return transitionOilMap(fresh, track, games).map;
+  return transitionOilMap(fresh, track, games, { wood: surface.kind === 'wood' }).map;
 }

@@ -4,47 +4,51 @@ import { assertNumber } from './assertNumber';
 import { MOTION_CALIBRATION as K } from './motionCalibration';
 
 /**
- * What the integrator reads for friction. μ at a point is `mu0 + dMu · G(x, y) · E_b`, where G is
- * bilinear in `grid` (pattern boards × feet, the layout of LaneOilMap) and E_b = exp(−w·b/h_c) the
- * factor of the oil carried on the ball cell in contact (1 when `carriedOil` is false).
+ * What the integrator reads for friction:
+ * - `uniform`: μ = mu0 everywhere;
+ * - `sampled`: μ = bilinear(grid) (a μ value per pattern board × row);
+ * - `oil`: μ = mu0 + dMu·h_c/(h + w·b + h_c), h = bilinear(filmUm) the lane film and b the oil carried on
+ *   the ball's track (the mixed-lubrication law of coverFriction).
+ * The grid layout is LaneOilMap's (pattern boards 0…40 × rows every ftStep).
  */
 export interface FrictionField {
-  uniform: boolean;
+  kind: 'uniform' | 'sampled' | 'oil';
   mu0: number;
   dMu: number;
   ftStep: number;
   rows: number;
   cols: number;
-  /** G values (exp(−h/h_c) for an oil map; μ itself for a sampled μ function). Empty when uniform. */
+  /** μ values of a sampled field; empty otherwise. */
   grid: Float64Array;
-  /** Lane film, µm (for the oil the ball picks up); empty when there is no oil map. */
+  /** Lane film, µm, of an oil field; empty otherwise. */
   filmUm: Float64Array;
   /** Film scale h_c, µm. */
   filmScaleUm: number;
   /** Cover absorption time constant, s. */
   absorptionTimeS: number;
-  /** Whether the ball carries oil on its track (PHYSICS.md §5.3). */
+  /** Whether the ball carries oil on its track (oil fields only). */
   carriedOil: boolean;
+  /** The largest μ anywhere in the field (for the integrator's stability bound). */
+  muMax: number;
 }
 
 /**
- * One uniform friction coefficient everywhere (for closed-form tests and calibration,
- * `frictionOverride`). Source: PHYSICS.md §3.2 (uniform μ). Units: dimensionless.
- * Edge cases: μ must be in [0, 1] (0 is the frictionless check of PHYSICS.md §3.5).
- * Example: `uniformFrictionField(0.2)`.
+ * One uniform friction coefficient everywhere (for closed-form tests and calibration, `frictionOverride`).
+ * Source: the sliding-to-rolling sphere on a uniform surface (textbook mechanics). Units: dimensionless.
+ * Edge cases: μ must be in [0, 1] (0 is the frictionless check). Example: `uniformFrictionField(0.2)`.
  */
 export function uniformFrictionField(mu: number): FrictionField {
   assertNumber('uniformFrictionField', 'mu', mu, 0, 1);
   return {
-    uniform: true, mu0: mu, dMu: 0, ftStep: 1, rows: 0, cols: 0, grid: new Float64Array(0), filmUm: new Float64Array(0),
-    filmScaleUm: 1, absorptionTimeS: Infinity, carriedOil: false,
+    kind: 'uniform', mu0: mu, dMu: 0, ftStep: 1, rows: 0, cols: 0, grid: new Float64Array(0), filmUm: new Float64Array(0),
+    filmScaleUm: 1, absorptionTimeS: Infinity, carriedOil: false, muMax: mu,
   };
 }
 
 /**
- * A friction field sampled from a function `(board, ft) => mu` (board counted from the right-hand
- * gutter, 1–39; ft from the foul line), bilinear between samples. Used for the two-zone closed-form
- * checks of PHYSICS.md §3.3 and for development before the oil map exists.
+ * A friction field sampled from a function `(board, ft) => mu` (board counted from the right-hand gutter,
+ * 1–39; ft from the foul line), bilinear between samples. Used for the two-zone closed-form checks (oil in
+ * front, dry behind, after Frohlich 2004) and for studies of a friction law.
  * Units: dimensionless μ. Edge cases: values outside [0, 1] throw RangeError; ftStep in [0.001, 5] ft.
  * Example: `sampledFrictionField((b, ft) => (ft < 40 ? 0.04 : 0.2), { ftStep: 0.01 })`.
  */
@@ -58,26 +62,33 @@ export function sampledFrictionField(
   const rows = Math.floor(maxFt / ftStep + 1e-9) + 1;
   const cols = 41;
   const grid = new Float64Array(rows * cols);
+  let muMax = 0;
   for (let r = 0; r < rows; r++) {
-    for (let j = 1; j <= 39; j++) grid[r * cols + j] = assertNumber(fn, `mu(${j}, ${r * ftStep})`, mu(j, r * ftStep), 0, 1);
+    for (let j = 1; j <= 39; j++) {
+      const v = assertNumber(fn, `mu(${j}, ${r * ftStep})`, mu(j, r * ftStep), 0, 1);
+      grid[r * cols + j] = v;
+      if (v > muMax) muMax = v;
+    }
     grid[r * cols] = grid[r * cols + 1];
     grid[r * cols + 40] = grid[r * cols + 39];
   }
-  return { uniform: false, mu0: 0, dMu: 1, ftStep, rows, cols, grid, filmUm: new Float64Array(0), filmScaleUm: 1, absorptionTimeS: Infinity, carriedOil: false };
+  return { kind: 'sampled', mu0: 0, dMu: 1, ftStep, rows, cols, grid, filmUm: new Float64Array(0), filmScaleUm: 1, absorptionTimeS: Infinity, carriedOil: false, muMax };
 }
 
 /**
- * The friction field of one ball on one oil map: G = exp(−h/h_c) on the grid, μ = μ_oil +
- * (μ_dry − μ_oil)·G·E_b (PHYSICS.md §5.1 roughness-aware law; §5.3 carried oil through E_b).
- * Units: µm films, dimensionless μ. Edge cases: none beyond its inputs'. Example:
- * `oilFrictionField(laneOilMap(oil, 40), coverFriction(ball))`.
+ * The friction field of one ball on one oil map: μ = μ_film + (μ_dry − μ_film)·h_c/(h + w·b + h_c) with h the
+ * lane film under the ball and b the film carried on its track (coverFriction's mixed-lubrication law).
+ * `frictionScale` (default 1) multiplies every coefficient — the calibration from logged shots.
+ * Units: µm films, dimensionless μ. Edge cases: scale in [0.1, 10]. Example:
+ * `oilFrictionField(patternOilMap(pattern), coverFriction(ball))`.
  */
-export function oilFrictionField(map: LaneOilMap, cover: CoverFriction, options: { carriedOil?: boolean } = {}): FrictionField {
-  const grid = new Float64Array(map.filmUm.length);
-  const inv = 1 / cover.filmScaleUm;
-  for (let i = 0; i < grid.length; i++) grid[i] = Math.exp(-map.filmUm[i] * inv);
+export function oilFrictionField(map: LaneOilMap, cover: CoverFriction, options: { carriedOil?: boolean; frictionScale?: number } = {}): FrictionField {
+  const scale = options.frictionScale === undefined ? 1 : assertNumber('oilFrictionField', 'frictionScale', options.frictionScale, 0.1, 10);
+  const mu0 = cover.muFilm * scale;
+  const dMu = (cover.muDry - cover.muFilm) * scale;
   return {
-    uniform: false, mu0: cover.muOil, dMu: cover.muDry - cover.muOil, ftStep: map.ftStep, rows: map.rows, cols: map.cols, grid,
+    kind: 'oil', mu0, dMu, ftStep: map.ftStep, rows: map.rows, cols: map.cols, grid: new Float64Array(0),
     filmUm: map.filmUm, filmScaleUm: cover.filmScaleUm, absorptionTimeS: cover.absorptionTimeS, carriedOil: options.carriedOil ?? true,
+    muMax: mu0 + dMu,
   };
 }

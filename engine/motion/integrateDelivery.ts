@@ -28,7 +28,9 @@ export interface DeliveryResult {
   sampleBoard: Float64Array;
   sampleSpeedMph: Float64Array;
   sampleCount: number;
+  /** Where the ball starts to roll (slip gone); null when it still slides at the pins. */
   rollStartFt: number | null;
+  /** Where the skid ends and the hook phase begins (see integrateDelivery). */
   skidFt: number;
   breakpointFt: number;
   breakpointBoard: number;
@@ -40,6 +42,8 @@ export interface DeliveryResult {
   reachedPins: boolean;
   gutter: boolean;
   gutterFt: number | null;
+  /** How far the spin axis migrated over the cover during the delivery (flare), inches of arc on the surface. */
+  flareIn: number;
   steps: number;
   finalState: Float64Array;
 }
@@ -48,34 +52,12 @@ export interface DeliveryResult {
 class Kernel {
   m = 0; R = 0; g = C.g; eps2 = 0;
   i1 = 0; i2 = 0; i3 = 0; inv1 = 0; inv2 = 0; inv3 = 0;
-  uniform = true; mu0 = 0; dMu = 0; eb = 1;
+  /** 0 uniform, 1 sampled μ grid, 2 oil film grid. */
+  kind = 0; mu0 = 0; dMu = 0; hc = 1; carried = 0;
   rows = 0; cols = 0; invRowM = 0; grid: Float64Array = new Float64Array(0);
 }
 
 const invBw = 1 / C.boardWidthM;
-
-/**
- * The 4 cube-map cells (6·n² cells) around body direction (x, y, z) and their bilinear weights, written
- * to splatCell / splatW (weights clamped at the face's edge rows; need not be unit).
- */
-function splat(x: number, y: number, z: number, n: number): void {
-  const ax = Math.abs(x), ay = Math.abs(y), az = Math.abs(z);
-  let face: number, a: number, b: number;
-  if (ax >= ay && ax >= az) { face = x > 0 ? 0 : 1; a = y / ax; b = z / ax; }
-  else if (ay >= az) { face = y > 0 ? 2 : 3; a = x / ay; b = z / ay; }
-  else { face = z > 0 ? 4 : 5; a = x / az; b = y / az; }
-  let u = (a + 1) * 0.5 * n - 0.5, v = (b + 1) * 0.5 * n - 0.5;
-  if (u < 0) u = 0; else if (u > n - 1) u = n - 1;
-  if (v < 0) v = 0; else if (v > n - 1) v = n - 1;
-  let i0 = Math.floor(u), j0 = Math.floor(v);
-  if (i0 > n - 2) i0 = n - 2;
-  if (j0 > n - 2) j0 = n - 2;
-  const fu = u - i0, fv = v - j0, base = face * n * n + i0 * n + j0;
-  splatCell[0] = base; splatW[0] = (1 - fu) * (1 - fv);
-  splatCell[1] = base + n; splatW[1] = fu * (1 - fv);
-  splatCell[2] = base + 1; splatW[2] = (1 - fu) * fv;
-  splatCell[3] = base + n + 1; splatW[3] = fu * fv;
-}
 
 /** Bilinear lookup in a pattern-board × foot grid at lane position (x, y) in metres. */
 function bilinear(grid: Float64Array, rows: number, cols: number, invRowM: number, x: number, y: number): number {
@@ -92,15 +74,21 @@ function bilinear(grid: Float64Array, rows: number, cols: number, invRowM: numbe
 }
 
 /**
- * Newton–Euler right-hand side (PHYSICS.md §1.2–§1.5): regularised Coulomb friction at the contact
- * point F = −μ m g u/√(|u|²+ε²) (§1.8), torque r_c × F (§1.3), Euler's equations in the body frame
- * (§1.4), q̇ = ½(0, ω) ⊗ q with Q built from the 2/|q|² form (§1.5 pitfall). No allocation.
+ * Newton–Euler right-hand side: regularised Coulomb friction at the contact point F = −μ m g u/√(|u|²+ε²),
+ * torque r_c × F, Euler's equations in the body frame, q̇ = ½(0, ω) ⊗ q with the rotation matrix built with
+ * the 2/|q|² factor (exact for the non-unit quaternions of the RK4 stages). No allocation.
  */
 function rhs(s: Float64Array, d: Float64Array, k: Kernel): void {
   const x = s[0], y = s[1], vx = s[2], vy = s[3], wx = s[4], wy = s[5], wz = s[6];
   const qw = s[7], qx = s[8], qy = s[9], qz = s[10];
   const R = k.R;
-  const mu = k.uniform ? k.mu0 : k.mu0 + k.dMu * k.eb * bilinear(k.grid, k.rows, k.cols, k.invRowM, x, y);
+  let mu: number;
+  if (k.kind === 0) mu = k.mu0;
+  else if (k.kind === 1) mu = bilinear(k.grid, k.rows, k.cols, k.invRowM, x, y);
+  else {
+    const h = bilinear(k.grid, k.rows, k.cols, k.invRowM, x, y) + k.carried;
+    mu = k.mu0 + (k.dMu * k.hc) / (h + k.hc);
+  }
   const ux = vx - R * wy, uy = vy + R * wx;
   const c = -mu * k.g / Math.sqrt(ux * ux + uy * uy + k.eps2);
   const ax = c * ux, ay = c * uy; // F/m
@@ -124,32 +112,30 @@ function rhs(s: Float64Array, d: Float64Array, k: Kernel): void {
   d[10] = 0.5 * (wz * qw + wx * qy - wy * qx);
 }
 
-// Scratch for the oil carried on the ball (reused between calls; integrateDelivery is synchronous and
-// must not be called again from inside its own onStep callback).
-let cellOil = new Float64Array(0);
-const splatCell = new Int32Array(4);
+// RK4 stage buffers (reused between calls; integrateDelivery is synchronous and must not be called again
+// from inside its own onStep callback).
 const rkTmp = new Float64Array(11), rk1 = new Float64Array(11), rk2 = new Float64Array(11), rk3 = new Float64Array(11), rk4 = new Float64Array(11);
-const splatW = new Float64Array(4);
 
 /**
- * Integrates one delivery from the foul line to the pins with fixed-step RK4 (PHYSICS.md §4.1
- * Option A): full Newton–Euler state (x, y, v, ω, q), smoothed Coulomb friction, one step h.
- * Friction comes from `field` (uniform, a sampled μ function, or an oil map with the oil the ball
- * carries on its track, PHYSICS.md §5.3: the cover is a cube map of cells; as cover rolls through
- * contact the cells under it relax toward φh, db = (φh − b)·w ds/ℓ (bilinear weight w, ℓ such that one
- * cell width exchanges κ), and absorb oil with time constant τ; friction sees h + w_b·b). Flare is not imposed: it comes from Euler's equations (§1.10).
+ * Integrates one delivery from the foul line to the pins with fixed-step RK4: full Newton–Euler state (x, y, v,
+ * ω, q), smoothed Coulomb friction, one step h. Friction comes from `field`: uniform, a sampled μ grid, or an oil
+ * map read through the cover's mixed-lubrication law, where the film also counts the oil the ball carries on its
+ * track. The track ring (the circle of cover that touches the lane) exchanges oil with the lane on each pass
+ * through contact (toward filmSplit·h, fraction exchangeFraction per pass), gives it up to the cover with the
+ * cover's absorption time, and is refreshed with dry cover as the spin axis migrates through the core (flare):
+ * a migration of one trackWidthIn replaces the ring. Flare is not imposed: it comes from Euler's equations.
  *
- * Reported quantities (our definitions, PHYSICS.md §1.8, §4.1 "Reporting"): `rollStartFt` where the
- * slip speed |u| first falls below `rollSlipTolEps`·ε, extrapolated linearly to zero; `skidFt` where |u|
- * first falls to `skidSlipFraction` of its release value (the end of the skid, start of the hook
- * phase); breakpoint = the point farthest toward the hand-side gutter (where the lateral velocity
- * changes sign, interpolated); entry board/angle at the stop distance (60 ft), angle positive toward
- * the pocket side (increasing boards).
+ * Reported quantities (our definitions): `rollStartFt` where the slip speed |u| first falls below
+ * `rollSlipTolEps`·ε, extrapolated linearly to zero; `skidFt` where |u| has fallen by `skidSlipDrop` of its
+ * release value (the ball has started to hook), or the breakpoint if that comes first; breakpoint = the
+ * point farthest toward the hand-side gutter (where the lateral velocity changes sign, interpolated); entry
+ * board/angle at the stop distance (60 ft), angle positive toward the pocket side (increasing boards);
+ * `flareIn` the arc the spin axis travelled over the cover.
  *
- * Units: SI state in (see `STATE`), feet / boards / mph / degrees / seconds out. Edge cases: state
- * must have 11 finite entries; step in [1e-5, 0.02] s; a ball that stalls or times out has
- * `reachedPins` false and reports its last position; the gutter (ball centre past the lane edge)
- * truncates the path but integration continues on a virtual lane so `entryBoard` stays continuous.
+ * Units: SI state in (see `STATE`), feet / boards / mph / degrees / seconds out. Edge cases: state must have 11
+ * finite entries; step in [1e-5, 0.02] s; a ball that stalls or times out has `reachedPins` false and reports
+ * its last position; the gutter (ball centre past the lane edge) truncates the path but integration continues
+ * on a virtual lane so `entryBoard` stays continuous.
  * Example: `integrateDelivery(releaseState(ball, bowler, 20, 15), ballInertia(ball), uniformFrictionField(0.2))`.
  */
 export function integrateDelivery(state0: Float64Array, inertia: BallInertia, field: FrictionField, options: IntegrateOptions = {}): DeliveryResult {
@@ -159,12 +145,9 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
   const eps = assertNumber(fn, 'slipEpsMs', options.slipEpsMs ?? K.slipEpsMs, 1e-6, 1);
   let h = assertNumber(fn, 'stepS', options.stepS ?? K.stepS, 1e-5, 0.02);
   {
-    // keep λh ≤ 2 (PHYSICS.md §1.8: explicit RK4 is stable for λh ≲ 2.8), λ = μ_max g (1 + R²/k_min²)/ε
-    let gMax = 0;
-    for (let i = 0; i < field.grid.length; i++) if (field.grid[i] > gMax) gMax = field.grid[i];
-    const muMax = field.uniform ? field.mu0 : field.mu0 + field.dMu * gMax;
+    // keep λh ≤ 2 (explicit RK4 is stable for λh ≲ 2.8), λ = μ_max g (1 + R²/k_min²)/ε
     const kMin2 = Math.min(inertia.iLow, inertia.iHigh, inertia.iInt) / inertia.massKg;
-    const lambda = (muMax * C.g * (1 + (inertia.radiusM * inertia.radiusM) / kMin2)) / eps;
+    const lambda = (field.muMax * C.g * (1 + (inertia.radiusM * inertia.radiusM) / kMin2)) / eps;
     if (lambda * h > 2) h = 2 / lambda;
   }
   const maxT = assertNumber(fn, 'maxTimeS', options.maxTimeS ?? K.maxTimeS, h, 60);
@@ -176,26 +159,18 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
   k.m = inertia.massKg; k.R = inertia.radiusM; k.eps2 = eps * eps;
   k.i1 = inertia.iLow; k.i2 = inertia.iHigh; k.i3 = inertia.iInt;
   k.inv1 = 1 / k.i1; k.inv2 = 1 / k.i2; k.inv3 = 1 / k.i3;
-  k.uniform = field.uniform; k.mu0 = field.mu0; k.dMu = field.dMu; k.eb = 1;
-  k.rows = field.rows; k.cols = field.cols; k.grid = field.grid; k.invRowM = 1 / (field.ftStep * C.footM);
+  k.kind = field.kind === 'uniform' ? 0 : field.kind === 'sampled' ? 1 : 2;
+  k.mu0 = field.mu0; k.dMu = field.dMu; k.hc = field.filmScaleUm;
+  k.rows = field.rows; k.cols = field.cols; k.grid = field.kind === 'oil' ? field.filmUm : field.grid; k.invRowM = 1 / (field.ftStep * C.footM);
 
-  // carried oil on the ball (cube map of cells)
-  const carried = field.carriedOil && field.filmUm.length > 0;
-  const n = K.ballCellsPerFaceEdge;
-  const nCells = 6 * n * n;
-  if (carried) {
-    if (cellOil.length !== nCells) cellOil = new Float64Array(nCells);
-    cellOil.fill(0);
-  }
+  // oil carried on the track ring
+  const carried = field.kind === 'oil' && field.carriedOil;
   const split = K.filmSplit, wB = K.carriedFilmWeight;
-  // exchange length: rolling one cell width of cover through contact exchanges exchangeFraction
-  const invEll = -Math.log(1 - K.exchangeFraction) / ((Math.PI / 2 / n) * inertia.radiusM);
-  const invTau = Number.isFinite(field.absorptionTimeS) ? 1 / field.absorptionTimeS : 0;
-  const absorbGrowth = Math.exp(h * invTau);
-  let absorbScale = 1; // e^(t/τ) at the current step
-  const invHc = 1 / field.filmScaleUm;
-  let started = false, pcx = 0, pcy = 0, pcz = -1;
-  const cellRad = Math.PI / 2 / n; // a cube-map cell's angular size at a face centre (π/2 per face / n)
+  const keepPerPass = Math.log(1 - K.exchangeFraction); // ln of the share kept per pass through contact
+  const absorb = Number.isFinite(field.absorptionTimeS) ? Math.exp(-h / field.absorptionTimeS) : 1;
+  const invTrack = 1 / (K.trackWidthIn * C.inchM);
+  let ring = 0; // carried film on the track, µm
+  const hOver2Pi = h / (2 * Math.PI);
 
   const s = Float64Array.from(state0);
   const tmp = rkTmp, k1 = rk1, k2 = rk2, k3 = rk3, k4 = rk4;
@@ -214,9 +189,20 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
   const u0 = slip();
   const tol = K.rollSlipTolEps * eps;
   let rollStartFt: number | null = u0 <= tol ? s[0] / ftM : null;
-  const skidU = K.skidSlipFraction * u0;
+  const skidU = (1 - K.skidSlipDrop) * u0;
   let skidFt = u0 <= tol ? s[0] / ftM : NaN;
   let uPrev = u0;
+
+  // spin axis in body axes (for flare): ω_b = Qᵀω (written out in the loop; here for the release)
+  let pbx = 0, pby = 0, pbz = 0, flareRad = 0;
+  {
+    const qw = s[7], qx = s[8], qy = s[9], qz = s[10], wx = s[4], wy = s[5], wz = s[6];
+    const b1 = (1 - 2 * (qy * qy + qz * qz)) * wx + 2 * (qx * qy + qw * qz) * wy + 2 * (qx * qz - qw * qy) * wz;
+    const b2 = 2 * (qx * qy - qw * qz) * wx + (1 - 2 * (qx * qx + qz * qz)) * wy + 2 * (qy * qz + qw * qx) * wz;
+    const b3 = 2 * (qx * qz + qw * qy) * wx + 2 * (qy * qz - qw * qx) * wy + (1 - 2 * (qx * qx + qy * qy)) * wz;
+    const nb = Math.sqrt(b1 * b1 + b2 * b2 + b3 * b3);
+    if (nb > 0) { pbx = b1 / nb; pby = b2 / nb; pbz = b3 / nb; }
+  }
 
   let bpY = hand * s[1], bpX = s[0];
   let gutter = Math.abs(s[1]) > half, gutterFt: number | null = gutter ? s[0] / ftM : null;
@@ -225,40 +211,7 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
   const h2 = h / 2, h6 = h / 6;
 
   while (t < maxT) {
-    if (carried) {
-      // Contact point in body axes: −Qᵀẑ = −(Q20, Q21, Q22). The contact's path over the ball since the
-      // last step is walked in sub-steps of at most one cell; each sub-step exchanges oil with the 4
-      // nearest cell centres in proportion to their bilinear weights and to the cover length rolled
-      // through contact, so the result does not depend on the step or on where the cell edges fall.
-      const qw = s[7], qx = s[8], qy = s[9], qz = s[10];
-      const cx = -2 * (qx * qz - qw * qy), cy = -2 * (qy * qz + qw * qx), cz = -(1 - 2 * (qx * qx + qy * qy));
-      if (started) {
-        // angle rolled through contact ≈ chord |c − c_prev| (error θ³/24: 1e-4 relative at 0.13 rad per step)
-        const ex = cx - pcx, ey = cy - pcy, ez = cz - pcz;
-        const ang = Math.sqrt(ex * ex + ey * ey + ez * ez);
-        const m = Math.max(1, Math.ceil(ang / cellRad));
-        const x = (ang * R * invEll) / m; // exchange exponent of one sub-step at weight 1
-        // cells hold b̃ = b·e^(t/τ), so absorption (db/dt = −b/τ) needs no per-cell work
-        const hl = split * bilinear(field.filmUm, field.rows, field.cols, k.invRowM, s[0], s[1]) * absorbScale;
-        for (let j = 1; j <= m; j++) {
-          const f = (j - 0.5) / m; // sub-step midpoint (second order in the sub-step)
-          splat(pcx + f * (cx - pcx), pcy + f * (cy - pcy), pcz + f * (cz - pcz), n);
-          for (let i = 0; i < 4; i++) {
-            const w = splatW[i];
-            if (w <= 0) continue;
-            const c = splatCell[i];
-            const xw = x * w;
-            cellOil[c] += (xw / (1 + 0.5 * xw)) * (hl - cellOil[c]); // (1 − e^−xw) to third order
-          }
-        }
-      }
-      splat(cx, cy, cz, n);
-      let bRead = 0;
-      for (let i = 0; i < 4; i++) bRead += splatW[i] * cellOil[splatCell[i]];
-      k.eb = Math.exp(-wB * (bRead / absorbScale) * invHc);
-      pcx = cx; pcy = cy; pcz = cz; started = true;
-      absorbScale *= absorbGrowth;
-    }
+    k.carried = carried ? wB * ring : 0;
     const x0 = s[0], y0 = s[1], vx0 = s[2], vy0 = s[3];
     rhs(s, k1, k);
     for (let i = 0; i < 11; i++) tmp[i] = s[i] + h2 * k1[i];
@@ -273,10 +226,35 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
     t += h; steps++;
     if (onStep !== undefined) onStep(t, s);
 
+    // flare: how far the spin axis moved through the body this step (chord ≈ arc)
+    {
+      const qw = s[7], qx = s[8], qy = s[9], qz = s[10], wx = s[4], wy = s[5], wz = s[6];
+      const b1 = (1 - 2 * (qy * qy + qz * qz)) * wx + 2 * (qx * qy + qw * qz) * wy + 2 * (qx * qz - qw * qy) * wz;
+      const b2 = 2 * (qx * qy - qw * qz) * wx + (1 - 2 * (qx * qx + qz * qz)) * wy + 2 * (qy * qz + qw * qx) * wz;
+      const b3 = 2 * (qx * qz + qw * qy) * wx + 2 * (qy * qz - qw * qx) * wy + (1 - 2 * (qx * qx + qy * qy)) * wz;
+      const wmag = Math.sqrt(b1 * b1 + b2 * b2 + b3 * b3);
+      if (wmag > 0) {
+        const inv = 1 / wmag;
+        const nx = b1 * inv, ny = b2 * inv, nz = b3 * inv;
+        const ex = nx - pbx, ey = ny - pby, ez = nz - pbz;
+        const dAxis = Math.sqrt(ex * ex + ey * ey + ez * ez);
+        flareRad += dAxis;
+        pbx = nx; pby = ny; pbz = nz;
+        if (carried) {
+          // the track ring: passes through contact (one per revolution), fresh cover from flare, absorption
+          const hLane = bilinear(k.grid, k.rows, k.cols, k.invRowM, s[0], s[1]);
+          ring += (1 - Math.exp(keepPerPass * wmag * hOver2Pi)) * (split * hLane - ring);
+          const fresh = R * dAxis * invTrack;
+          ring *= (fresh < 1 ? 1 - fresh : 0) * absorb;
+        }
+      }
+    }
+
     const x1 = s[0], y1 = s[1];
     const dx = x1 - x0;
     // slip events
-    const u1 = slip();
+    const su = s[2] - R * s[5], sv = s[3] + R * s[4];
+    const u1 = Math.sqrt(su * su + sv * sv);
     if (Number.isNaN(skidFt) && u1 <= skidU) {
       const f = uPrev > u1 ? (uPrev - skidU) / (uPrev - u1) : 1;
       skidFt = (x0 + f * dx) / ftM;
@@ -334,11 +312,14 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
     entryAngle = (Math.atan2(hand * s[3], s[2]) * 180) / Math.PI;
     tPins = t; vPins = Math.hypot(s[2], s[3]) * mph;
   }
+  const breakpointFt = bpX / ftM;
   if (Number.isNaN(skidFt)) skidFt = (reached ? stopM : s[0]) / ftM;
+  // the skid ends where the ball starts to hook: never after its breakpoint (when it has one past the release)
+  if (breakpointFt > 0.5 && skidFt > breakpointFt) skidFt = breakpointFt;
   return {
     sampleFt, sampleBoard, sampleSpeedMph: sampleSpeed, sampleCount: ns,
-    rollStartFt, skidFt, breakpointFt: bpX / ftM, breakpointBoard: C.centreBoard + bpY * invBw,
+    rollStartFt, skidFt, breakpointFt, breakpointBoard: C.centreBoard + bpY * invBw,
     entryBoard, entryAngleDeg: entryAngle, timeToPinsS: tPins, speedAtPinsMph: vPins,
-    reachedPins: reached, gutter, gutterFt, steps, finalState: s,
+    reachedPins: reached, gutter, gutterFt, flareIn: (flareRad * R) / C.inchM, steps, finalState: s,
   };
 }

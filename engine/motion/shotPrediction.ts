@@ -1,4 +1,4 @@
-import type { BallSpec, BowlerProfile, OilPattern } from '../types';
+import type { BallSpec, BowlerProfile, LaneSurface, OilPattern } from '../types';
 
 /** Input of `simulateShot` (issue 4 public API). */
 export interface SimulateShotInput {
@@ -11,6 +11,8 @@ export interface SimulateShotInput {
   targetBoard?: number;
   /** Games already bowled on the pattern (evolves the oil map, transitionOilMap); default 0. */
   gamesBowled?: number;
+  /** The lane surface (wood or synthetic, and its friction); default synthetic, medium friction. */
+  lane?: LaneSurface;
   /** One uniform friction coefficient everywhere: for tests and calibration (no oil map). */
   frictionOverride?: number;
   /**
@@ -26,7 +28,7 @@ export interface ShotPrediction {
   path: { ft: number; board: number; speedMph: number }[];
   /** Where sliding ends (null: still sliding at the pins). */
   rollStartFt: number | null;
-  /** Where the skid ends and the hook phase begins: slip speed down to half its release value. */
+  /** Where the skid ends and the hook phase begins (before the breakpoint): the slip speed has fallen by a fifth of its release value. */
   skidFt: number;
   /** The farthest board toward the hand-side gutter. */
   breakpoint: { ft: number; board: number };
@@ -37,6 +39,8 @@ export interface ShotPrediction {
   timeToPinsS: number;
   speedAtPinsMph: number;
   gutter: boolean;
+  /** How far the spin axis migrated over the cover (flare), inches of arc on the surface. */
+  flareIn: number;
   /** The line used (chosen by the solver when not given). */
   laydownBoard: number;
   targetBoard: number;

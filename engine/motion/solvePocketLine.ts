@@ -10,137 +10,218 @@ export interface PocketLine {
   /** Entry within solverTolBoards of board 17.5, at the pins, and not in the gutter. */
   reached: boolean;
   evaluations: number;
+  /** Laydown − target, boards (positive = launched out toward the hand-side gutter; 3 boards ≈ 1°). */
+  launchBoards: number;
+  /** Why no line reaches the pocket ('' when one does), in words a bowler reads. */
+  reason: string;
+  /**
+   * The side of the pocket the closest line ends on when no line reaches it: 'high' (hooks past the pocket on
+   * every line tried: too much ball), 'light' (never gets back to it), or null when a line reaches it.
+   */
+  miss: 'high' | 'light' | null;
 }
 
+/** Hints that start the search near a known answer (the ball's previous line, or a similar ball's). */
+export interface PocketLineHint {
+  launchBoards?: number;
+  targetBoard?: number;
+}
+
+type Sample = { t: number; e: number; r: DeliveryResult };
+
+const ok = (r: DeliveryResult): boolean => r.reachedPins && !r.gutter;
+
 /**
- * Finds the line that puts a ball in the pocket (board 17.5 at the headpin, TRADE.md §2.2).
+ * Finds the line that puts a ball in the pocket (board 17.5 at the headpin; USBC pin-carry research, reported
+ * second-hand).
  *
- * Definition: one free variable, the other held — `laydownBoard` given: solve the target; `targetBoard`
- * given: solve the laydown; neither: laydown = target + D and solve the target, starting at D = 5 boards
- * (≈ 1.7° outward over 15 ft, PHYSICS.md §6 typical 1–3°, C) and widening it 2 boards at a time (to 17)
- * for a ball that hooks past the pocket on every target tried, or narrowing it (to −3, an inward launch)
- * for one that never gets there — so the straightest line found that reaches the pocket is used (the
- * most angle). Each solve starts with a Newton step that uses the straight-line geometry (4 boards at the
- * pins per board at the arrows), continues with secant steps and finishes with the Illinois method
- * (modified regula falsi; standard root finding, from memory) once a sign change brackets the root. The
- * lane beyond a gutter is treated as continuing so the function stays continuous; a line whose ball
- * drops in the gutter does not count as reaching the pocket.
+ * Definition: one free variable when the other is given — `laydownBoard` given: solve the target; `targetBoard`
+ * given: solve the laydown. Neither given: the line a bowler settles on — for a launch D (laydown − target) the
+ * entry board against a parallel shift of the line is a valley on a pattern with a hold area (a miss outward
+ * finds friction and comes back, a miss inward is held by the oil); the solver looks for the launch whose valley
+ * floor sits on the pocket, and plays the floor: the most forgiving line. A strong ball needs a wider launch from
+ * deeper inside; a weak one a straighter line. Launches run from solverLaunchBoards' first to its last entry; if
+ * even the widest launch hooks past the pocket the ball has too much for the condition ('high'); if even the
+ * straightest cannot reach it the ball plays the outside of its valley. Steps: a parabola through three lines
+ * finds the valley floor (successive parabolic interpolation), a secant step on the launch moves the floor onto
+ * the pocket, and a last secant step on the laydown puts the entry exactly on 17.5. Lines whose ball drops in
+ * the gutter count as missing by ten boards.
  *
  * Units: boards. Edge cases: if no line reaches 17.5 within the range, the closest line is returned with
- * `reached` false. Example: `solvePocketLine((l, t) => integrateDelivery(...), {})`.
+ * `reached` false and `reason` saying why. Example: `solvePocketLine((l, t) => integrateDelivery(...), {})`.
  */
 export function solvePocketLine(
   run: (laydownBoard: number, targetBoard: number) => DeliveryResult,
   given: { laydownBoard?: number; targetBoard?: number },
+  hint: PocketLineHint = {},
 ): PocketLine {
-  const fixedL = given.laydownBoard, fixedT = given.targetBoard;
-  const arrowsToPins = C.headpinFt / C.arrowsFt; // a straight line moves 4 boards at the pins per board at the arrows
-  if (fixedL !== undefined && fixedT === undefined) {
-    return solveOne(run, (x) => [fixedL, x], 1, 39, Math.min(39, Math.max(1, fixedL - 5)), arrowsToPins);
-  }
-  if (fixedT !== undefined && fixedL === undefined) {
-    return solveOne(run, (x) => [x, fixedT], 1, 39, Math.min(39, Math.max(1, fixedT + 5)), 1 - arrowsToPins);
-  }
-  // neither given: start at the typical launch; widen it for a ball that hooks past the pocket on every
-  // target, narrow it (down to an inward launch) for one that never gets there
-  const launches = K.solverLaunchBoards;
-  let i = launches.indexOf(K.solverFirstLaunchBoards);
-  let best: (PocketLine & { miss: number }) | null = null;
+  const P = C.pocketBoard;
   let evaluations = 0;
-  let dir = 0;
-  let x0 = 20;
-  while (i >= 0 && i < launches.length) {
-    const D = launches[i];
-    const lo = Math.max(1, 1 - D), hi = Math.min(39, 39 - D);
-    const line = solveOne(run, (x) => [x + D, x], lo, hi, Math.min(hi, Math.max(lo, x0)), 1);
-    evaluations += line.evaluations;
-    if (best === null || (line.reached && !best.reached) || (line.reached === best.reached && line.miss < best.miss)) best = line;
-    if (line.reached) break;
-    const d = line.side > 0 ? 1 : -1; // hooks past the pocket everywhere: widen
-    if (dir !== 0 && d !== dir) break;
-    dir = d;
-    // a straight line moves 3 boards at the pins per board of launch: jump by about |miss| / 3 boards of D
-    // (2 boards per step of the list), at least one step
-    i += d * Math.max(1, Math.round(Math.abs(line.result.entryBoard - C.pocketBoard) / 6));
-    // next guess from the hook just seen: entry ≈ x − 3D + H (straight line plus hook H)
-    const hook = line.result.entryBoard - (line.targetBoard - (arrowsToPins - 1) * D);
-    if (i >= 0 && i < launches.length) x0 = C.pocketBoard + (arrowsToPins - 1) * launches[i] - hook;
-  }
-  const b = best as PocketLine;
-  return { laydownBoard: b.laydownBoard, targetBoard: b.targetBoard, result: b.result, reached: b.reached, evaluations };
-}
-
-type Sample = { x: number; g: number; r: DeliveryResult };
-
-/**
- * One free variable x on [lo, hi]: a Newton step with the straight-line slope `slope` (boards at the pins
- * per board of x), then secant steps (falling back to that slope when the secant slope has the wrong sign),
- * then Illinois once a sign change brackets the root. `side` > 0 when the ball ends past the pocket on
- * every line tried (it hooks too much), < 0 when it never gets there.
- */
-function solveOne(
-  run: (laydownBoard: number, targetBoard: number) => DeliveryResult,
-  lineOf: (x: number) => [number, number],
-  lo: number,
-  hi: number,
-  x0: number,
-  slope: number,
-): PocketLine & { miss: number; side: number } {
-  const pocket = C.pocketBoard, tol = K.solverTolBoards;
-  const isOk = (r: DeliveryResult): boolean => r.reachedPins && !r.gutter;
-  const score = (v: Sample): number => Math.abs(v.g) + (isOk(v.r) ? 0 : 100);
-  let evaluations = 0;
-  let best: Sample | null = null;
-  const evalAt = (x: number): Sample => {
-    const [l, t] = lineOf(x);
+  let best: { l: number; t: number; r: DeliveryResult; m: number } | null = null;
+  const eval2 = (l: number, t: number): DeliveryResult => {
     const r = run(l, t);
     evaluations++;
-    const e = { x, g: r.entryBoard - pocket, r };
-    if (best === null || score(e) < score(best)) best = e;
-    return e;
+    const m = Math.abs(r.entryBoard - P) + (ok(r) ? 0 : 100);
+    if (best === null || m < best.m) best = { l, t, r, m };
+    return r;
   };
-  const clampX = (x: number): number => Math.min(hi, Math.max(lo, x));
-  const done = (): boolean => best !== null && Math.abs((best as Sample).g) <= tol && isOk((best as Sample).r);
-  let a = evalAt(clampX(x0));
-  let bracket: [Sample, Sample] | null = null;
-  if (!done()) {
-    const maxStep = 8 / Math.abs(slope); // boards of x per step (8 boards at the pins)
-    const step = (from: number, dx: number): number => clampX(from + Math.max(-maxStep, Math.min(maxStep, dx)));
-    let b = evalAt(step(a.x, -a.g / slope));
-    let turned = 0;
-    for (let it = 0; it < 6 && !done(); it++) {
-      if (a.g * b.g <= 0 && a.x !== b.x) { bracket = [a, b]; break; }
-      const s = b.x !== a.x ? (b.g - a.g) / (b.x - a.x) : slope;
-      let x2: number;
-      if (s * slope > 0 && Math.abs(s) >= 0.2 * Math.abs(slope)) x2 = step(b.x, -b.g / s);
-      else if (b.g < 0) {
-        // the entry turned (the lane's hold area makes the entry curve U-shaped) below the pocket: step
-        // from the inner of the two lines up the rising branch with the straight-line slope
-        x2 = step(slope > 0 ? Math.max(a.x, b.x) : Math.min(a.x, b.x), -b.g / slope);
-      } else {
-        // turned above the pocket: look between the two lines for the bottom of the U, twice at most;
-        // still past the pocket there means no root on this launch
-        if (++turned > 2 || (Math.abs((best as unknown as Sample).g) > 2 && it >= 1)) break;
-        x2 = (a.x + b.x) / 2;
+  const finish = (miss: 'high' | 'light' | null, reason: string): PocketLine => {
+    const b = best as unknown as { l: number; t: number; r: DeliveryResult; m: number };
+    const reached = Math.abs(b.r.entryBoard - P) <= K.solverTolBoards && ok(b.r);
+    return {
+      laydownBoard: b.l, targetBoard: b.t, result: b.r, reached, evaluations, launchBoards: b.l - b.t,
+      reason: reached ? '' : reason, miss: reached ? null : miss ?? (b.r.entryBoard > P ? 'high' : 'light'),
+    };
+  };
+  const arrowsToPins = C.headpinFt / C.arrowsFt;
+  const fixedL = given.laydownBoard, fixedT = given.targetBoard;
+  if (fixedL !== undefined && fixedT === undefined) {
+    root((x) => eval2(fixedL, x), 1, 39, Math.min(39, Math.max(1, fixedL - 6)), arrowsToPins);
+    return finish(null, 'No target at the arrows from this laydown reaches the pocket.');
+  }
+  if (fixedT !== undefined && fixedL === undefined) {
+    root((x) => eval2(x, fixedT), 1, 39, Math.min(39, Math.max(1, fixedT + 6)), 1 - arrowsToPins);
+    return finish(null, 'No laydown board with this target reaches the pocket.');
+  }
+
+  const launches = K.solverLaunchBoards;
+  const dMin = launches[0], dMax = launches[launches.length - 1];
+  const clampD = (d: number) => Math.min(dMax, Math.max(dMin, d));
+  const tRange = (d: number): [number, number] => [Math.max(1, 1 - d), Math.min(39, 39 - d)];
+  // A gutter ball counts as ten boards past the pocket (the lane's edge walls the search in).
+  const effective = (r: DeliveryResult): number => (ok(r) ? r.entryBoard : Math.max(r.entryBoard, P) + 10);
+  const sample = (d: number, t: number): Sample => { const r = eval2(t + d, t); return { t, e: effective(r), r }; };
+
+  /** Lines at launch d across targets lo…hi (a few boards apart), in order of target. */
+  const scan = (d: number, from: number, to: number, step: number): Sample[] => {
+    const [lo, hi] = tRange(d);
+    const out: Sample[] = [];
+    for (let t = Math.max(lo, from); t <= Math.min(hi, to) + 1e-9; t += step) out.push(sample(d, t));
+    return out;
+  };
+  /** The lowest entry of a scan, refined by one parabola through it and its neighbours. */
+  const floorOf = (d: number, pts: Sample[]): Sample => {
+    let i = 0;
+    for (let j = 1; j < pts.length; j++) if (pts[j].e < pts[i].e) i = j;
+    if (i === 0 || i === pts.length - 1) return pts[i];
+    const [p0, p1, p2] = [pts[i - 1], pts[i], pts[i + 1]];
+    const den = (p1.t - p0.t) * (p1.e - p2.e) - (p1.t - p2.t) * (p1.e - p0.e);
+    if (Math.abs(den) < 1e-12) return p1;
+    const tv = p1.t - ((p1.t - p0.t) ** 2 * (p1.e - p2.e) - (p1.t - p2.t) ** 2 * (p1.e - p0.e)) / (2 * den);
+    if (!(tv > p0.t && tv < p2.t) || Math.abs(tv - p1.t) < 0.5) return p1;
+    const v = sample(d, tv);
+    return v.e < p1.e ? v : p1;
+  };
+
+  /** The floor near target t at launch d: three lines 3 boards apart (walking downhill) and one parabola. */
+  const floorNear = (d: number, t: number): { fl: Sample; pts: Sample[] } => {
+    const [lo, hi] = tRange(d);
+    const cl = (x: number) => Math.min(hi, Math.max(lo, x));
+    let a = sample(d, cl(t - 3)), b = sample(d, cl(t)), c = sample(d, cl(t + 3));
+    for (let i = 0; i < 4 && !(b.e <= a.e && b.e <= c.e); i++) {
+      if (a.e < b.e) { if (a.t <= lo) break; c = b; b = a; a = sample(d, cl(a.t - 3)); }
+      else { if (c.t >= hi) break; a = b; b = c; c = sample(d, cl(c.t + 3)); }
+    }
+    const pts = [a, b, c].sort((p, q) => p.t - q.t);
+    return { fl: floorOf(d, pts), pts };
+  };
+
+  // 1. The bowler's usual launch: look across the lane for the lowest entry (the floor of the valley).
+  let d = clampD(hint.launchBoards ?? K.solverFirstLaunchBoards);
+  let pts: Sample[];
+  let fl: Sample;
+  if (hint.targetBoard === undefined) {
+    pts = scan(d, 3, 31, 4);
+    fl = floorOf(d, pts);
+  } else {
+    ({ fl, pts } = floorNear(d, hint.targetBoard));
+  }
+  // A hold area: somewhere at least minTargetBoard from the gutter, two neighbouring lines on the lane whose entries
+  // differ by at most holdSlope boards per board of shift (a miss outward finds friction and comes back, a miss
+  // inward is held by the oil). On a flat pattern the entry follows a parallel miss board for board.
+  const holdAt = (list: Sample[]): boolean => {
+    const q = [...list].sort((x, y) => x.t - y.t);
+    for (let i = 1; i < q.length; i++) {
+      const x = q[i - 1], y = q[i];
+      if (x.t >= K.minTargetBoard && ok(x.r) && ok(y.r) && Math.abs((y.e - x.e) / (y.t - x.t)) <= K.holdSlope) return true;
+    }
+    return false;
+  };
+  const valley = fl.t >= K.minTargetBoard && holdAt(pts);
+
+  // 2. Open or close the launch until the floor sits on the pocket (each board of launch moves a straight line
+  //    3 boards at the pins; a secant step once two floors are known). Without a hold area only a ball that
+  //    hooks past the pocket from every line needs it; otherwise the bowler keeps the usual launch.
+  if (valley || fl.e > P + K.solverTolBoards) {
+    let prev: { d: number; e: number } | null = null;
+    for (let i = 0; i < 5 && Math.abs(fl.e - P) > 0.3; i++) {
+      if (!valley && fl.e < P) break;
+      let slope = -2.4;
+      if (prev !== null && Math.abs(d - prev.d) > 1e-6) { const sl = (fl.e - prev.e) / (d - prev.d); if (sl < -0.5) slope = sl; }
+      const next = clampD(d + (P - fl.e) / slope);
+      if (Math.abs(next - d) < 1e-3) break; // pinned at an end of the launch range
+      prev = { d, e: fl.e };
+      d = next;
+      ({ fl, pts } = floorNear(d, fl.t));
+    }
+  }
+  if (fl.e > P + 0.3 && d >= dMax - 1e-6) {
+    return finish('high', `Hooks past the pocket from every line, even launched ${Math.round(dMax / 3)}° out across the lane: too much ball for this condition and release.`);
+  }
+  const [lo, hi] = tRange(d);
+  const usual = Math.abs(d - clampD(hint.launchBoards ?? K.solverFirstLaunchBoards)) < 1e-6;
+  const inner = pts.reduce((m, q) => (q.t > m.t ? q : m));
+  if (!valley && usual && fl.e <= P && inner.e < P && ok(inner.r)) {
+    // 3d. A weak ball that falls short of the pocket from the deepest line at the usual launch: straighten the
+    //     launch (the laydown moves toward the target) until it gets there.
+    root((x) => eval2(x, inner.t), Math.max(1, inner.t + dMin), Math.min(39, inner.t + dMax), inner.t + d - (P - inner.e) / 2.4, 1 - arrowsToPins);
+  } else if (!valley && usual && fl.e <= P) {
+    // 3c. No hold area at the usual launch: move the line inward from the floor until the ball reaches the pocket.
+    root((x) => eval2(x + d, x), fl.t, hi, Math.min(hi, fl.t + (P - fl.e)), 1);
+  } else if (valley && fl.e < P - 1.5 && d <= dMin + 1e-6) {
+    // 3b. Even the straightest launch floors well below the pocket: play the wall outside the floor (the dry
+    //     outside brings the ball back), no closer to the gutter than minTargetBoard.
+    root((x) => eval2(x + d, x), Math.max(lo, K.minTargetBoard), fl.t, Math.max(lo, fl.t - 3), -1);
+  } else {
+    // 3a. Play the floor (the most forgiving line); the last boards come from the laydown (each board of
+    //     laydown moves the entry about 3 boards).
+    root((x) => eval2(x, fl.t), Math.max(1, fl.t + dMin), Math.min(39, fl.t + dMax), fl.t + d - (P - fl.e) / 2.4, 1 - arrowsToPins);
+  }
+  return finish(null, 'No line found that reaches the pocket.');
+}
+
+/**
+ * A secant/Illinois root of entry(x) = 17.5 on [lo, hi] from x0, starting with the straight-line slope
+ * `slope` (boards at the pins per board of x). `monotone` skips the sign-change search's fallbacks.
+ */
+function root(evalAt: (x: number) => DeliveryResult, lo: number, hi: number, x0: number, slope: number, monotone = false): void {
+  const P = C.pocketBoard, tol = K.solverTolBoards;
+  const cl = (x: number) => Math.min(hi, Math.max(lo, x));
+  const maxStep = 8 / Math.abs(slope);
+  const stepTo = (from: number, dx: number) => cl(from + Math.max(-maxStep, Math.min(maxStep, dx)));
+  let a = { x: cl(x0), g: evalAt(cl(x0)).entryBoard - P };
+  if (Math.abs(a.g) <= tol) return;
+  let b = { x: stepTo(a.x, -a.g / slope), g: 0 };
+  if (b.x === a.x) return;
+  b.g = evalAt(b.x).entryBoard - P;
+  for (let it = 0; it < 8 && Math.abs(b.g) > tol; it++) {
+    if (a.g * b.g < 0) {
+      // bracketed: Illinois (modified regula falsi)
+      let p = a, q = b, gp = a.g;
+      for (let k = 0; k < 12 && Math.abs(q.g) > tol && Math.abs(q.x - p.x) > 1e-4; k++) {
+        const x = q.x - (q.g * (q.x - p.x)) / (q.g - gp);
+        const c = { x, g: evalAt(x).entryBoard - P };
+        if (c.g * q.g < 0) { p = q; gp = q.g; } else gp /= 2;
+        q = c;
       }
-      if (Math.abs(x2 - b.x) < 1e-9) break; // pinned at the end of the range
-      if (Math.abs(b.g) < Math.abs(a.g)) { a = b; }
-      b = evalAt(x2);
+      return;
     }
+    const s = (b.g - a.g) / (b.x - a.x);
+    const useful = s * slope > 0 && Math.abs(s) >= 0.2 * Math.abs(slope);
+    if (!useful && monotone) return;
+    const x2 = stepTo(b.x, -b.g / (useful ? s : slope));
+    if (Math.abs(x2 - b.x) < 1e-9) return;
+    if (Math.abs(b.g) < Math.abs(a.g)) a = b;
+    b = { x: x2, g: evalAt(x2).entryBoard - P };
   }
-  let side = 0;
-  if (bracket !== null && !done()) {
-    let [p, q] = bracket;
-    let gp = p.g, gq = q.g;
-    for (let it = 0; it < 16 && !done() && Math.abs(q.x - p.x) > 1e-4; it++) {
-      const x = gq !== gp ? q.x - (gq * (q.x - p.x)) / (gq - gp) : (p.x + q.x) / 2;
-      const c = evalAt(x);
-      if (c.g * gq < 0) { p = q; gp = gq; } else { gp /= 2; }
-      q = c; gq = c.g;
-    }
-  }
-  const b = best as unknown as Sample;
-  if (!done()) side = b.g > 0 ? 1 : -1;
-  const [laydownBoard, targetBoard] = lineOf(b.x);
-  return { laydownBoard, targetBoard, result: b.r, reached: Math.abs(b.g) <= tol && isOk(b.r), evaluations, miss: score(b), side };
 }

@@ -14,6 +14,6 @@ export function toShotPrediction(r: DeliveryResult, laydownBoard: number, target
     path, rollStartFt: r.rollStartFt, skidFt: r.skidFt,
     breakpoint: { ft: r.breakpointFt, board: r.breakpointBoard },
     entryBoard: r.entryBoard, entryAngleDeg: r.entryAngleDeg, timeToPinsS: r.timeToPinsS, speedAtPinsMph: r.speedAtPinsMph,
-    gutter: r.gutter, laydownBoard, targetBoard,
+    gutter: r.gutter, flareIn: r.flareIn, laydownBoard, targetBoard,
   };
 }

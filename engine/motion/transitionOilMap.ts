@@ -31,7 +31,7 @@ export interface TransitionResult {
  * with increasing ft (beyond its ends the nearest point is used).
  * Example: `transitionOilMap(patternOilMap(p), [{ ft: 0, board: 15 }, { ft: 60, board: 17.5 }], 3)`.
  */
-export function transitionOilMap(map: LaneOilMap, track: readonly { ft: number; board: number }[], gamesBowled: number): TransitionResult {
+export function transitionOilMap(map: LaneOilMap, track: readonly { ft: number; board: number }[], gamesBowled: number, options: { wood?: boolean } = {}): TransitionResult {
   const fn = 'transitionOilMap';
   assertNumber(fn, 'gamesBowled', gamesBowled, 0, 50);
   if (!Array.isArray(track) || track.length < 2) throw new TypeError(`${fn}: track needs at least 2 points, got ${String(track?.length)}`);
@@ -49,14 +49,15 @@ export function transitionOilMap(map: LaneOilMap, track: readonly { ft: number; 
     }
     return track[track.length - 1].board;
   };
-  const sigma = K.lineSpreadBoards, norm = K.trackWidthBoards / (sigma * Math.sqrt(2 * Math.PI));
+  const sigma = K.lineSpreadBoards, norm = K.laneTrackWidthBoards / (sigma * Math.sqrt(2 * Math.PI));
+  const pickup = K.pickupFraction * (options.wood ? K.woodPickupFactor : 1);
   const share = (j: number, b: number): number => norm * Math.exp(-((j - b) ** 2) / (2 * sigma * sigma));
   let removed = 0;
   for (let r = 0; r < map.rows; r++) {
     const b = boardAt(r * map.ftStep);
     for (let j = 1; j <= 39; j++) {
       const i = r * map.cols + j;
-      const keep = Math.exp(-K.pickupFraction * share(j, b) * shots);
+      const keep = Math.exp(-pickup * share(j, b) * shots);
       removed += filmUm[i] * (1 - keep);
       filmUm[i] *= keep;
     }
