@@ -5,7 +5,10 @@ import { validatePattern } from '../validatePattern';
 import { conditionOilMap } from '../motion/conditionOilMap';
 import type { LaneOilMap } from '../motion/laneOilMap';
 import { prepareShot, type PreparedShot } from '../motion/prepareShot';
-import type { BowlerProfile, OilPattern } from '../types';
+import type { BowlerProfile, LaneSurface, OilPattern } from '../types';
+import { solvePocketLine } from '../motion/solvePocketLine';
+import { laneSurfaceOf } from '../motion/laneSurfaceOf';
+import { surfaceWords } from '../ballReaction';
 import { brentMinimize } from './internal/brentMinimize';
 import type { BallCalibration, Calibration, CalibrationObservation, HitKind } from './types';
 
@@ -87,7 +90,7 @@ interface Usable {
  * fitCalibration({ bowler, pattern, observations }).perBall[0];
  * // => { ballId: 'b1', frictionScale: 0.86, low: 0.83, high: 0.89, n: 14, enough: true, … }
  */
-export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPattern; observations: CalibrationObservation[]; minShots?: number }): Calibration {
+export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPattern; observations: CalibrationObservation[]; minShots?: number; lane?: LaneSurface }): Calibration {
   const fn = 'fitCalibration';
   const inp = record(fn, 'input', input);
   validateBowlerProfile(inp.bowler, fn);
@@ -96,6 +99,7 @@ export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPatte
   const pattern = inp.pattern;
   const minShots = inp.minShots === undefined ? CALIBRATION.minShots : integerInRange(fn, 'minShots', inp.minShots, 1, 10000);
   const raw = list(fn, 'observations', inp.observations);
+  const lane = laneSurfaceOf(fn, inp.lane);
   const K = CALIBRATION;
 
   const byBall = new Map<string, Usable[]>();
@@ -125,7 +129,7 @@ export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPatte
   const mapFor = (games: number): LaneOilMap => {
     let m = maps.get(games);
     if (!m) {
-      m = conditionOilMap(pattern, bowler, games);
+      m = conditionOilMap(pattern, bowler, games, lane);
       maps.set(games, m);
     }
     return m;
@@ -141,7 +145,7 @@ export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPatte
         const key = `${u.spec}\u0000${u.games}`;
         let shot = prepared.get(key);
         if (!shot) {
-          shot = prepareShot({ ball: u.obs.ball, bowler, pattern, frictionScale: s }, mapFor(u.games));
+          shot = prepareShot({ ball: u.obs.ball, bowler, pattern, frictionScale: s, lane }, mapFor(u.games));
           prepared.set(key, shot);
         }
         const r = shot.run(u.obs.laydownBoard, u.obs.targetBoard);
@@ -173,6 +177,24 @@ export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPatte
     });
     let sHat = brentMinimize(loss, grid[Math.max(0, best - 1)], grid[Math.min(grid.length - 1, best + 1)], grid[best], K.tolerance);
     if (loss(grid[best]) < loss(sHat)) sHat = grid[best];
+    // A ball the bowler has put in the pocket keeps a line to the pocket: if the best fit leaves none (with the
+    // ball as last thrown, on the fresh pattern), move the scale toward 1 (geometric bisection) until one appears.
+    let keptReachable = false;
+    if (items.some((u) => u.obs.hit === 'pocket') && sHat !== 1) {
+      const last = items[items.length - 1].obs.ball;
+      const reaches = (sc: number) => solvePocketLine(prepareShot({ ball: last, bowler, pattern, frictionScale: sc, lane }, mapFor(0)).run, {}).reached;
+      if (!reaches(sHat)) {
+        keptReachable = true;
+        let bad = sHat, good = 1;
+        if (reaches(1)) {
+          for (let k = 0; k < 6; k++) {
+            const mid = Math.sqrt(bad * good);
+            if (reaches(mid)) good = mid; else bad = mid;
+          }
+        }
+        sHat = good;
+      }
+    }
     const lMin = loss(sHat);
     const m = residuals(sHat).length;
     const sigma2 = Math.max(m > 1 ? lMin / (m - 1) : 0, K.sigmaFloorBoards * K.sigmaFloorBoards);
@@ -213,6 +235,8 @@ export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPatte
       enough: items.length >= minShots,
       rmsBoardsBefore: r4(Math.sqrt(before / m)),
       rmsBoardsAfter: r4(Math.sqrt(lMin / m)),
+      surfaces: [...new Set(items.map((u) => surfaceWords(u.obs.ball.surfaceGrit, u.obs.ball.polished)))],
+      keptReachable,
     });
   }
 
@@ -232,7 +256,8 @@ export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPatte
         ? `calibrated: ${ready.length} of ${perBall.length} ball${perBall.length === 1 ? '' : 's'} (those with at least ${minShots} shots)`
         : `no ball has the ${minShots} shots needed yet, so matchups use the uncalibrated model`) +
       `; model error ${r1(rmsBefore as number)} → ${r1(rmsAfter as number)} boards RMS.` +
-      (atBound > 0 ? ` For ${atBound} ball${atBound === 1 ? '' : 's'} the fit is at the edge of the searched range (${K.minScale}–${K.maxScale}): the model may not describe those shots well.` : '');
+      (atBound > 0 ? ` For ${atBound} ball${atBound === 1 ? '' : 's'} the fit is at the edge of the searched range (${K.minScale}–${K.maxScale}): the model may not describe those shots well.` : '') +
+      (perBall.some((p) => p.keptReachable) ? ' For a ball you have put in the pocket, the fit was held back so that a line to the pocket remains.' : '');
   }
   return {
     shots,

@@ -192,6 +192,13 @@ export interface BallCalibration {
   /** RMS of this ball's residuals at frictionScale 1 and at the fitted scale, boards. */
   rmsBoardsBefore: number | null;
   rmsBoardsAfter: number | null;
+  /** The surfaces this ball's shots were thrown with ("2000 grit", "4000 grit polished"), oldest first. */
+  surfaces: string[];
+  /**
+   * True when the best fit would have left the ball with no line to the pocket although the bowler logged pocket
+   * hits with it: the scale was moved toward 1 until a line reaches the pocket again.
+   */
+  keptReachable: boolean;
 }
 
 /** fitCalibration's answer. */
