@@ -1,7 +1,7 @@
 /**
- * Ball-motion model benchmarks (bench/run.ts; issue 4): one delivery at the default accuracy beside
- * the floor of a bare RK4 loop of the same step count, with the position error against the closed
- * forms in the bench names, and rankArsenal for 15 balls including miss room.
+ * Ball-motion model benchmarks (bench/run.ts): one delivery at the default accuracy beside the floor of a bare
+ * RK4 loop of the same step count, with the position error against the closed form of the sliding sphere in the
+ * bench names, and rankArsenal for 15 balls including the pocket solver and miss room.
  */
 import type { Bench } from './run';
 import {
@@ -21,13 +21,13 @@ const strong: BallSpec = {
   polished: false, layout: { pinToPapIn: 3.4, valAngleDeg: 45 },
 };
 
-// One delivery: the oil map with the oil carried on the ball's track, the default step (4 ms).
+// One delivery: the oil map with the oil carried on the ball's track, the default step.
 const inertia = ballInertia(strong);
 const field = oilFrictionField(conditionOilMap(pattern, bowler, 0), coverFriction(strong));
 const state0 = releaseState(strong, bowler, 15, 8);
 const steps = integrateDelivery(state0, inertia, field, { hand: 1 }).steps;
 
-// Position error at the default step against PHYSICS.md §3.3's closed form (isotropic ball, uniform μ,
+// Position error at the default step against the closed form of the sliding sphere (isotropic ball, uniform μ,
 // ψ = 0): skid y(t) = ½ μ g (s⊥/|u₀|) t² until ∫μ dt = α|u₀|/((1+α)g), then a straight line at v*.
 function closedFormError(): { yPinsMm: number; xRollMm: number } {
   const iso: BallSpec = { weightLb: 16, diameterIn: 8.5, rg: 2.5, differential: 0, intermediateDifferential: 0, coverType: 'reactive-solid', surfaceGrit: 2000, polished: false };
@@ -85,7 +85,7 @@ const fmt = (x: number): string => (x < 0.1 ? x.toFixed(3) : x.toFixed(2));
 
 export const benches: Bench[] = [
   {
-    name: `motion: one delivery, default accuracy (RK4 h = ${MOTION_CALIBRATION.stepS * 1000} ms, ${steps} steps, oil map + carried oil; error vs PHYSICS.md §3.3 closed form: y at pins ${fmt(err.yPinsMm)} mm, roll point ${fmt(err.xRollMm)} mm)`,
+    name: `motion: one delivery, default accuracy (RK4 h = ${MOTION_CALIBRATION.stepS * 1000} ms, ${steps} steps, oil map + carried oil; error vs the closed form: y at pins ${fmt(err.yPinsMm)} mm, roll point ${fmt(err.xRollMm)} mm)`,
     target: '< 0.5 ms median',
     run: () => void integrateDelivery(state0, inertia, field, { hand: 1 }),
     iterations: 300,
@@ -93,13 +93,13 @@ export const benches: Bench[] = [
   { name: `motion: floor — bare RK4 loop, same ${steps} steps, trivial right-hand side`, run: () => void rk4Floor(steps), iterations: 300 },
   {
     name: 'motion: rankArsenal, 15 balls incl. pocket solver and miss room (fresh pattern)',
-    target: '< 100 ms median',
+    target: '< 30 ms median',
     run: () => void rankArsenal({ balls, bowler, pattern, gamesBowled: 0 }),
     iterations: 15,
   },
   {
     name: 'motion: rankArsenal, 15 balls incl. miss room, after 3 games (transition)',
-    target: '< 100 ms median',
+    target: '< 30 ms median',
     run: () => void rankArsenal({ balls, bowler, pattern, gamesBowled: 3 }),
     iterations: 15,
   },

@@ -42,11 +42,11 @@ export interface BallReaction {
  * - `asymmetryPerFull`, `asymmetryFullIn`: an asymmetric core (intermediate differential) responds quicker
  *   (common practice), up to 3 points at 0.020 in and more.
  * - `drillingAnglePer30Deg`: a smaller drilling angle reads earlier and smoother, a larger one saves energy for
- *   a later, sharper turn (common practice, dual-angle layouts), ±2 points at most.
+ *   a later, sharper turn (common practice for layouts given by drilling angle, pin-to-PAP and VAL angle), ±2 points at most.
  */
 export const REACTION_SCALE = Object.freeze({
   benchmark: 50,
-  cover: Object.freeze({ plastic: -35, urethane: -12, 'reactive-pearl': -3, 'reactive-hybrid': 0, 'reactive-solid': 3 }) as Readonly<Record<CoverType, number>>,
+  cover: Object.freeze({ plastic: -35, urethane: -8, 'reactive-pearl': -3, 'reactive-hybrid': 0, 'reactive-solid': 3 }) as Readonly<Record<CoverType, number>>,
   surfaceResponse: Object.freeze({ plastic: 0.2, urethane: 0.7, 'reactive-pearl': 1, 'reactive-hybrid': 1, 'reactive-solid': 1 }) as Readonly<Record<CoverType, number>>,
   surfaceReferenceGrit: 3000,
   surfacePerDoubling: 5.5,
@@ -129,7 +129,7 @@ export function reactionUnchecked(ball: BallSpec): BallReaction {
   const da = ball.layout?.drillingAngleDeg;
   if (da !== undefined) {
     const p = Math.max(-W.drillingAngleMax, Math.min(W.drillingAngleMax, (W.drillingAnglePer30Deg * (45 - da)) / 30));
-    if (Math.abs(p) >= 0.05) add('drilling-angle', p, `drilling angle ${da}°`, 'common practice (dual-angle layouts: a smaller drilling angle reads earlier and smoother)');
+    if (Math.abs(p) >= 0.05) add('drilling-angle', p, `drilling angle ${da}°`, 'common practice (layouts by drilling angle, pin-to-PAP and VAL angle: a smaller drilling angle reads earlier and smoother)');
   }
   factors.sort((a, b) => Math.abs(b.points) - Math.abs(a.points) || a.key.localeCompare(b.key));
   const total = round1(W.benchmark + factors.reduce((s, f) => s + f.points, 0));

@@ -25,9 +25,10 @@ export interface ConditionDemand {
  *   grit fits a fresh house shot for a 16.5 mph, 375 rpm bowler and its 2000-grit finish fits the same
  *   pattern with about 6 mL more oil — common practice);
  * - `perMl` 1.0: more oil asks for more ball (common practice);
- * - `perFt` 1.2: a longer pattern asks for more ball (common practice; length is usually the strongest single
- *   pattern variable);
- * - `perRatioDoubling` 3, within ±`ratioCap`: a high ratio leaves friction outside that brings the ball back and
+ * - `perFt` 0.4: a longer pattern asks for more ball at the same volume (common practice: length is usually the
+ *   strongest single pattern variable — most of its effect comes with the oil a longer pattern carries, which
+ *   the volume term counts; the model's breakpoint moves about 2 points' worth per 5 ft at the same volume);
+ * - `perRatioDoubling` 2, within `ratioCap` (−4 … +3): a high ratio leaves friction outside that brings the ball back and
  *   asks for less ball; a flat (sport) pattern asks for a ball that reads the oil itself (common practice; the
  *   USBC sport limit is 3:1);
  * - `laneFriction`: a grippy lane surface asks for less ball, a slick one more (common practice);
@@ -41,10 +42,10 @@ export const DEMAND_SCALE = Object.freeze({
   referenceMl: 21,
   perMl: 1.0,
   referenceFt: 40,
-  perFt: 1.2,
+  perFt: 0.4,
   referenceRatio: 4,
-  perRatioDoubling: 3,
-  ratioCap: Object.freeze({ low: -5, high: 4 }),
+  perRatioDoubling: 2,
+  ratioCap: Object.freeze({ low: -4, high: 3 }),
   laneFriction: Object.freeze({ low: 6, medium: 0, high: -6 }),
   perGame: 0.85,
   woodFactor: 1.3,

@@ -10,7 +10,7 @@ export interface StrengthFit {
   /** strength − demand: positive = too much ball, negative = too little. */
   gap: number;
   verdict: 'too-strong' | 'suits' | 'too-weak';
-  /** 0–100: 100 within ±FIT_SCALE.tolerance, then FIT_SCALE.perPoint less per point of gap beyond it. */
+  /** 0–100: 100 within ±FIT_SCALE.tolerance, then falling by about FIT_SCALE.perPoint a point of gap beyond it, more slowly far off. */
   score: number;
   /** One reason per part of the ball and of the condition; the points lost to the gap are shared among the parts that make it. */
   reasons: RuleResult[];
@@ -18,11 +18,14 @@ export interface StrengthFit {
 }
 
 /**
- * The fit's scale: within ±`tolerance` points (about half a surface step) a ball suits the condition; each point
- * of gap beyond costs `perPoint` of the 0–100 fit score. Lanewright's choice: one surface step too much or too
- * little (5.5 points) costs about 13 points.
+ * The fit's scale: within ±`tolerance` points (about half a surface step) a ball suits the condition; beyond it
+ * the 0–100 fit score is 100·exp(−perPoint·excess/100): about `perPoint` points lost per point of gap at first,
+ * and never quite 0, so two balls far off still keep their order. Lanewright's choice: one surface step too much
+ * or too little (5.5 points) costs about 12 points. Too much ball costs `tooStrongFactor` (1.3) times as much as
+ * too little (common practice: a ball that hooks too much cannot be contained on the lane; one that hooks too
+ * little can still be thrown straighter at the pocket).
  */
-export const FIT_SCALE = Object.freeze({ tolerance: 3, perPoint: 5 });
+export const FIT_SCALE = Object.freeze({ tolerance: 3, perPoint: 5, tooStrongFactor: 1.3 });
 
 const round1 = (x: number) => Math.round(x * 10) / 10 || 0;
 const signed = (x: number) => `${x > 0 ? '+' : x < 0 ? '−' : '±'}${Math.abs(x).toFixed(1)}`;
@@ -34,8 +37,8 @@ const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
  * bowled, speed, rev rate, axis rotation and tilt), on one scale. The gap says how much too strong (+) or too
  * weak (−) the ball is.
  *
- * Definition: gap = strength − demand; score = clamp(100 − FIT_SCALE.perPoint × max(0, |gap| − tolerance), 0,
- * 100). The points lost (100 − score) are shared among the parts that push the gap's way — the ball's parts with
+ * Definition: gap = strength − demand; score = 100·exp(−FIT_SCALE.perPoint × excess / 100), excess =
+ * max(0, |gap| − tolerance), × tooStrongFactor when the ball is too strong. The points lost (100 − score) are shared among the parts that push the gap's way — the ball's parts with
  * the gap's sign and the condition's parts against it — in proportion to their size; every other part shows its
  * points with effect 0. So the effects of the reasons add up to the points lost, nothing is counted twice, and
  * a reason's sign always agrees with its words.
@@ -54,7 +57,8 @@ export function strengthFit(ball: BallSpec, ctx: MatchupContext): StrengthFit {
   const gap = round1(reaction.total - demand.total);
   const T = FIT_SCALE.tolerance;
   const verdict: StrengthFit['verdict'] = gap > T ? 'too-strong' : gap < -T ? 'too-weak' : 'suits';
-  const lost = Math.min(100, FIT_SCALE.perPoint * Math.max(0, Math.abs(gap) - T));
+  const excess = Math.max(0, Math.abs(gap) - T) * (gap > 0 ? FIT_SCALE.tooStrongFactor : 1);
+  const lost = 100 * (1 - Math.exp((-FIT_SCALE.perPoint * excess) / 100));
   const score = round1(100 - lost);
   const dir = Math.sign(gap);
   // the parts that push the gap's way, and how much

@@ -14,7 +14,7 @@ export const SURFACE_STEPS: readonly { surfaceGrit: number; polished: boolean }[
   { surfaceGrit: 4000, polished: true },
 ];
 
-/** Pin-to-PAP distances suggestChanges chooses among for the next drilling, inches (common dual-angle layouts). */
+/** Pin-to-PAP distances suggestChanges chooses among for the next drilling, inches (common layouts). */
 export const LAYOUT_STEPS: readonly number[] = [3.375, 4, 4.5, 5, 5.5, 6];
 
 /** The caution every surface suggestion carries (governing-body rules and pro-shop safety, common practice). */

@@ -58,6 +58,8 @@ export function record(fn: string, name: string, value: unknown): Record<string,
 /** Throws a TypeError unless `value` is an array. */
 export function list(fn: string, name: string, value: unknown): unknown[] {
   if (!Array.isArray(value)) throw new TypeError(`${fn}: ${name} must be an array, got ${show(value)}`);
+  // a sparse array (a hole left by `delete a[i]`) would be skipped by map/forEach and break later checks
+  for (let i = 0; i < value.length; i++) if (!(i in value)) throw new TypeError(`${fn}: ${name} has no entry at index ${i}`);
   return value;
 }
 

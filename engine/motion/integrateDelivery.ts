@@ -42,7 +42,7 @@ export interface DeliveryResult {
   reachedPins: boolean;
   gutter: boolean;
   gutterFt: number | null;
-  /** How far the spin axis migrated over the cover during the delivery (flare), inches of arc on the surface. */
+  /** Flare: the farthest the spin axis migrated over the cover from where it started (the spread of the track rings), inches of arc on the surface. */
   flareIn: number;
   steps: number;
   finalState: Float64Array;
@@ -130,7 +130,7 @@ const rkTmp = new Float64Array(11), rk1 = new Float64Array(11), rk2 = new Float6
  * release value (the ball has started to hook), or the breakpoint if that comes first; breakpoint = the
  * point farthest toward the hand-side gutter (where the lateral velocity changes sign, interpolated); entry
  * board/angle at the stop distance (60 ft), angle positive toward the pocket side (increasing boards);
- * `flareIn` the arc the spin axis travelled over the cover.
+ * `flareIn` the farthest the spin axis moved over the cover from its release position (the spread of the oil rings).
  *
  * Units: SI state in (see `STATE`), feet / boards / mph / degrees / seconds out. Edge cases: state must have 11
  * finite entries; step in [1e-5, 0.02] s; a ball that stalls or times out has `reachedPins` false and reports
@@ -194,7 +194,7 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
   let uPrev = u0;
 
   // spin axis in body axes (for flare): ω_b = Qᵀω (written out in the loop; here for the release)
-  let pbx = 0, pby = 0, pbz = 0, flareRad = 0;
+  let pbx = 0, pby = 0, pbz = 0, flareCos = 1;
   {
     const qw = s[7], qx = s[8], qy = s[9], qz = s[10], wx = s[4], wy = s[5], wz = s[6];
     const b1 = (1 - 2 * (qy * qy + qz * qz)) * wx + 2 * (qx * qy + qw * qz) * wy + 2 * (qx * qz - qw * qy) * wz;
@@ -203,6 +203,7 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
     const nb = Math.sqrt(b1 * b1 + b2 * b2 + b3 * b3);
     if (nb > 0) { pbx = b1 / nb; pby = b2 / nb; pbz = b3 / nb; }
   }
+  const a0x = pbx, a0y = pby, a0z = pbz; // the spin axis in the body at release: the first track ring's pole
 
   let bpY = hand * s[1], bpX = s[0];
   let gutter = Math.abs(s[1]) > half, gutterFt: number | null = gutter ? s[0] / ftM : null;
@@ -238,7 +239,8 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
         const nx = b1 * inv, ny = b2 * inv, nz = b3 * inv;
         const ex = nx - pbx, ey = ny - pby, ez = nz - pbz;
         const dAxis = Math.sqrt(ex * ex + ey * ey + ez * ez);
-        flareRad += dAxis;
+        const c0 = nx * a0x + ny * a0y + nz * a0z;
+        if (c0 < flareCos) flareCos = c0;
         pbx = nx; pby = ny; pbz = nz;
         if (carried) {
           // the track ring: passes through contact (one per revolution), fresh cover from flare, absorption
@@ -320,6 +322,6 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
     sampleFt, sampleBoard, sampleSpeedMph: sampleSpeed, sampleCount: ns,
     rollStartFt, skidFt, breakpointFt, breakpointBoard: C.centreBoard + bpY * invBw,
     entryBoard, entryAngleDeg: entryAngle, timeToPinsS: tPins, speedAtPinsMph: vPins,
-    reachedPins: reached, gutter, gutterFt, flareIn: (flareRad * R) / C.inchM, steps, finalState: s,
+    reachedPins: reached, gutter, gutterFt, flareIn: (Math.acos(Math.max(-1, Math.min(1, flareCos))) * R) / C.inchM, steps, finalState: s,
   };
 }

@@ -80,7 +80,7 @@ export const MOTION_CALIBRATION = Object.freeze({
    */
   covers: Object.freeze({
     plastic: Object.freeze({ textureFactor: 0.35, muDryFactor: 0.45, filmFloorFactor: 1, absorptionTimeS: 60 }),
-    urethane: Object.freeze({ textureFactor: 0.9, muDryFactor: 0.62, filmFloorFactor: 2.6, absorptionTimeS: 15 }),
+    urethane: Object.freeze({ textureFactor: 0.85, muDryFactor: 0.62, filmFloorFactor: 2.0, absorptionTimeS: 15 }),
     'reactive-pearl': Object.freeze({ textureFactor: 0.62, muDryFactor: 1.1, filmFloorFactor: 1, absorptionTimeS: 3 }),
     'reactive-hybrid': Object.freeze({ textureFactor: 0.82, muDryFactor: 1.05, filmFloorFactor: 1, absorptionTimeS: 2.5 }),
     'reactive-solid': Object.freeze({ textureFactor: 1.0, muDryFactor: 1.0, filmFloorFactor: 1, absorptionTimeS: 2.2 }),

@@ -42,6 +42,9 @@ export const MOTION_LAYER_POINTS = Object.freeze({
   perMissBoard: 6,
   missNeutralBoards: 2,
   missCapBoards: 7,
+  /** A line whose launch is more than `launchFreeBoards` from the usual one loses `perLaunchBoard` points a board (a ball that must be opened far across the lane, or thrown straight up the boards, leaves the bowler no room to adjust). */
+  launchFreeBoards: 2,
+  perLaunchBoard: 3,
   /** Subtracted when the pocket cannot be reached on the lane. */
   unreachable: 40,
 });
@@ -53,9 +56,11 @@ const SRC = 'ball-motion model (rigid-body sliding and rolling on the oil map, a
  * The ball-motion model's verdict on one ball on one (conditioned) oil map: the ball is thrown on the line that
  * reaches the pocket (solvePocketLine: the bowler's usual launch, opened for a ball that hooks too much, the most
  * forgiving line on a pattern with a hold area) and judged by what the trade values there:
- * score = 50 + entry-angle points + miss-room points − (no line ? 40 : 0), clamped to 0–100, where the entry
- * angle carries from 4° to 7.5° (below 4° up to 20 points are lost at 2°; steeper than 7.5° loses 4 points a
- * degree) and miss room earns 6 points a board above 2 boards (up to 7) and loses 6 a board below.
+ * score = 50 + entry-angle points + miss-room points + launch points − (no line ? 40 : 0), clamped to 0–100, where
+ * the entry angle carries from 4° to 7.5° (below 4° up to 20 points are lost at 2°; steeper than 7.5° loses 4
+ * points a degree), miss room earns 6 points a board above 2 boards (up to 7) and loses 6 a board below, and a
+ * launch more than 2 boards from the usual one (wider for a ball that hooks too early, straighter for one that
+ * hooks too little) loses 3 points a board.
  * Source: about 6° carries best (USBC pin-carry research, reported second-hand); miss room is common practice;
  * the weights are Lanewright's choice. The physics is simulateShot's.
  *
@@ -86,6 +91,8 @@ export function motionLayer(
   else if (theta > P.angleCeilingDeg) anglePts = -P.perDegreeTooSteep * (theta - P.angleCeilingDeg);
   const missPts = line.reached ? P.perMissBoard * (Math.min(P.missCapBoards, room.totalBoards) - P.missNeutralBoards) : 0;
   const usual = K.solverFirstLaunchBoards;
+  const launchOff = line.reached ? Math.max(0, Math.abs(line.launchBoards - usual) - P.launchFreeBoards) : 0;
+  const launchPts = -P.perLaunchBoard * launchOff;
   const launchDeg = (b: number) => ((Math.atan2(b * (41.5 / 39), 15 * 12) * 180) / Math.PI).toFixed(1);
   if (!line.reached) {
     reasons.push({ rule: 'motion-pocket', effect: -P.unreachable, text: `${line.reason} Closest: board ${f1(prediction.entryBoard)} at the headpin.`, source: `${SRC}; pocket board 17.5 (USBC pin-carry research, reported second-hand)` });
@@ -108,7 +115,17 @@ export function motionLayer(
     const roomWords = missPts > 0 ? 'a forgiving line' : missPts < 0 ? 'little room for a miss' : 'some room for a miss';
     reasons.push({ rule: 'motion-miss-room', effect: Math.round(missPts * 10) / 10, text: `Miss room ${f1(room.totalBoards)} boards (${f1(room.outsideBoards)} outside, ${f1(room.insideBoards)} inside) still reach the pocket: ${roomWords}.`, source: `${SRC}; miss room is common practice, the ±${K.pocketHalfWidthBoards}-board strike window an assumption` });
   }
-  const raw = P.base + anglePts + missPts - (line.reached ? 0 : P.unreachable);
+  if (launchOff > 0) {
+    const wider = line.launchBoards > usual;
+    reasons.push({
+      rule: 'motion-launch', effect: Math.round(launchPts * 10) / 10,
+      text: wider
+        ? `It takes a launch ${f1(line.launchBoards - usual)} boards wider than usual to keep this ball out of the nose: it hooks too early for this condition.`
+        : `It has to be thrown ${f1(usual - line.launchBoards)} boards straighter than usual to get back to the pocket: it hooks too little for this condition.`,
+      source: `${SRC}; a launch of 1–3° is the usual (common practice)`,
+    });
+  }
+  const raw = P.base + anglePts + missPts + launchPts - (line.reached ? 0 : P.unreachable);
   const score = Math.round(Math.max(0, Math.min(100, raw)) * 10) / 10;
   const suggestions: Suggestion[] = line.reached && ball.coverType !== 'plastic'
     ? [{ kind: 'line', text: `Model's line: lay down on board ${f1(line.laydownBoard)} and aim over board ${f1(line.targetBoard)} at the arrows.`, change: { laydownBoard: Math.round(line.laydownBoard * 10) / 10, targetBoard: Math.round(line.targetBoard * 10) / 10 } }]

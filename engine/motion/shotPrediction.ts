@@ -39,7 +39,7 @@ export interface ShotPrediction {
   timeToPinsS: number;
   speedAtPinsMph: number;
   gutter: boolean;
-  /** How far the spin axis migrated over the cover (flare), inches of arc on the surface. */
+  /** Flare: the farthest the spin axis migrated over the cover from its release position (the spread of the oil rings), inches of arc on the surface. */
   flareIn: number;
   /** The line used (chosen by the solver when not given). */
   laydownBoard: number;

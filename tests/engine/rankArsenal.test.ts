@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { rankArsenal, SCORING_LAYERS, scoreByRules } from '../../engine/index';
+import { fitLayer, matchupContext, rankArsenal, SCORING_LAYERS } from '../../engine/index';
 import type { ArsenalBall, OilPattern } from '../../engine/index';
 import {
   fourBalls,
@@ -14,10 +14,10 @@ import {
   urethaneBall,
 } from './fixtures';
 
-// Directional checks of issue 3, from the rules of thumb in ../shared/TRADE.md 7.2 (common
-// practice): cover order plastic → urethane → pearl → hybrid → solid; rougher surface = earlier
-// read and more hook in oil, smoother/polished = more length and backend; lower RG = earlier roll;
-// plastic is a spare ball (7.1). These are directions, not hard numbers, so the tests check order.
+// Directional checks from the trade (common practice): cover order plastic → urethane → pearl → hybrid →
+// solid in oil; a rougher surface reads earlier and hooks more in oil, a smoother or polished one goes longer;
+// plastic is a spare ball (a straight ball for corner pins). These are directions, not hard numbers, so the
+// tests check order. The trade's headline cases are in tradeCases.test.ts.
 
 const ids = (pattern: OilPattern, balls: ArsenalBall[] = fourBalls, gamesBowled = 0): string[] =>
   rankArsenal({ balls, bowler: typicalBowler, pattern, gamesBowled }).map((r) => r.id);
@@ -25,7 +25,7 @@ const ids = (pattern: OilPattern, balls: ArsenalBall[] = fourBalls, gamesBowled 
 const scoreOf = (ball: ArsenalBall, pattern: OilPattern, bowler = typicalBowler, gamesBowled = 0): number =>
   rankArsenal({ balls: [ball], bowler, pattern, gamesBowled })[0].score;
 
-describe('rankArsenal: directional order (common practice, TRADE.md 7.2)', () => {
+describe('rankArsenal: directional order (common practice: cover types and surfaces)', () => {
   it('long heavy pattern (44 ft, 29.7 mL): rough strong low-RG asymmetric solid > polished pearl > urethane > plastic', () => {
     expect(ids(longHeavy)).toEqual([roughAsymSolid.id, polishedPearl.id, urethaneBall.id, plasticBall.id]);
   });
@@ -39,7 +39,7 @@ describe('rankArsenal: directional order (common practice, TRADE.md 7.2)', () =>
   });
 
   it('plastic is never first for strikes, even next to a strike ball that scores lower', () => {
-    // TRADE.md 7.1 / 7.2: plastic is a spare ball. On the short light pattern the rough solid
+    // Common practice: plastic is a spare ball. On the short light pattern the rough solid
     // scores very low, yet the plastic ball is still listed after it.
     const order = ids(shortLight, [plasticBall, roughAsymSolid]);
     expect(order).toEqual([roughAsymSolid.id, plasticBall.id]);
@@ -51,7 +51,7 @@ describe('rankArsenal: directional order (common practice, TRADE.md 7.2)', () =>
   });
 });
 
-describe('rankArsenal: surface changes move a ball the documented way (TRADE.md 7.2 surface row)', () => {
+describe('rankArsenal: surface changes move a ball the way the trade teaches (common practice: lower grit reads earlier)', () => {
   const at = (grit: number, polished = false): ArsenalBall => ({ ...roughAsymSolid, id: `solid-${grit}${polished ? 'p' : ''}`, surfaceGrit: grit, polished });
 
   it('fresh house shot (40 ft, 19.2 mL, 7:1): the strong asymmetric solid at 500 grit reads too early; at 3000 and 4000 grit it fits better', () => {
@@ -64,47 +64,45 @@ describe('rankArsenal: surface changes move a ball the documented way (TRADE.md 
     expect(ids(longHeavy, [at(4000, true), at(500), at(2000)])).toEqual(['solid-500', 'solid-2000', 'solid-4000p']);
   });
 
-  it('the 500 grit solid on the house shot is told to go smoother; the polished pearl on heavy oil is told to sand', () => {
+  it('the 500 grit solid on the house shot is told to go smoother; the polished pearl on heavy oil is told to sand, without polish', () => {
     const solid = rankArsenal({ balls: [at(500)], bowler: typicalBowler, pattern: houseShot })[0];
     const s = solid.suggestions.find((x) => x.kind === 'surface');
     expect(s?.change?.surfaceGrit).toBeGreaterThan(500);
+    expect(s?.text).toMatch(/^Go smoother/);
     const pearl = rankArsenal({ balls: [polishedPearl], bowler: typicalBowler, pattern: longHeavy })[0];
     const p = pearl.suggestions.find((x) => x.kind === 'surface');
-    expect(p?.text).toMatch(/^Sand to/);
+    expect(p?.text).toMatch(/^Sand it rougher/);
     expect(p?.change).toMatchObject({ polished: false });
   });
 });
 
-describe('rankArsenal: bowler and pattern breakdown', () => {
+describe('rankArsenal: the bowler and the games bowled (common practice)', () => {
   const fastLowRev = { ...typicalBowler, speedMph: 20, revRpm: 250 };
   const slowHighRev = { ...typicalBowler, speedMph: 15, revRpm: 500 };
   // 1–39 × 10 × 50 µL to 44 ft + 10–30 × 5 × 50 µL to 40 ft = 19 500 + 5 250 µL = 24.75 mL (medium).
   const medium: OilPattern = { name: 'Harrow Bay medium', sweeps: [sweep(1, 39, 44, 10, 50), sweep(10, 30, 40, 5, 50, 'reverse')] };
+  const fit = (ball: ArsenalBall, pattern: OilPattern, bowler = typicalBowler, g = 0) => fitLayer(ball, matchupContext(bowler, pattern, g));
 
-  // The bowler and breakdown directions belong to the rules layer (issue 3), so they are checked on
-  // scoreByRules; the ball-motion layer adds its own physics on top in rankArsenal.
-  const rules = (ball: ArsenalBall, pattern: OilPattern, bowler = typicalBowler, g = 0): number =>
-    scoreByRules(ball, bowler, pattern, g).score;
-
-  it('rules layer: a high-speed, low-rev bowler needs more ball than a high-rev, low-speed one — the strong solid scores higher for the first, the urethane for the second', () => {
-    // Common practice (issue 3; TRADE.md 7.3 ranges).
-    expect(rules(roughAsymSolid, medium, fastLowRev)).toBeGreaterThan(rules(roughAsymSolid, medium, slowHighRev));
-    expect(rules(urethaneBall, medium, slowHighRev)).toBeGreaterThan(rules(urethaneBall, medium, fastLowRev));
+  it('a high-speed, low-rev bowler needs more ball than a high-rev, low-speed one: the demand is higher, and the strong solid fits the first, the urethane the second', () => {
+    expect(fit(roughAsymSolid, medium, fastLowRev).fit.demand).toBeGreaterThan(fit(roughAsymSolid, medium, slowHighRev).fit.demand);
+    expect(fit(roughAsymSolid, medium, fastLowRev).score).toBeGreaterThan(fit(roughAsymSolid, medium, slowHighRev).score);
+    expect(fit(urethaneBall, medium, slowHighRev).score).toBeGreaterThan(fit(urethaneBall, medium, fastLowRev).score);
   });
 
-  it('rules layer, medium pattern (24.75 mL): the solid beats the pearl for the high-speed, low-rev bowler and the pearl beats the solid for the high-rev, low-speed bowler', () => {
-    expect(rules(roughAsymSolid, medium, fastLowRev)).toBeGreaterThan(rules(polishedPearl, medium, fastLowRev));
-    expect(rules(polishedPearl, medium, slowHighRev)).toBeGreaterThan(rules(roughAsymSolid, medium, slowHighRev));
+  it('medium pattern (24.75 mL): the solid ranks above the pearl for the high-speed, low-rev bowler, the pearl above the solid for the high-rev, low-speed one', () => {
+    expect(ids(medium, [roughAsymSolid, polishedPearl].map((b) => b), 0).length).toBe(2);
+    const first = (bowler: typeof typicalBowler) => rankArsenal({ balls: [roughAsymSolid, polishedPearl], bowler, pattern: medium })[0].id;
+    expect(first(fastLowRev)).toBe(roughAsymSolid.id);
+    expect(first(slowHighRev)).toBe(polishedPearl.id);
   });
 
-  it('as games are bowled (0 → 3 → 9) the rules layer takes points from the strong solid and gives them to the urethane (oil depletes, the lane hooks more)', () => {
-    // Common practice direction (engine/rules/patternBreakdown.ts; TRADE.md 5.2 rationale).
-    expect(rules(roughAsymSolid, houseShot, typicalBowler, 3)).toBeLessThan(rules(roughAsymSolid, houseShot, typicalBowler, 0));
-    expect(rules(roughAsymSolid, houseShot, typicalBowler, 9)).toBeLessThan(rules(roughAsymSolid, houseShot, typicalBowler, 3));
-    expect(rules(urethaneBall, houseShot, typicalBowler, 3)).toBeGreaterThan(rules(urethaneBall, houseShot, typicalBowler, 0));
-    expect(rules(urethaneBall, houseShot, typicalBowler, 9)).toBeGreaterThan(rules(urethaneBall, houseShot, typicalBowler, 3));
+  it('as games are bowled (0 → 3 → 9) the demand falls, so the strong solid loses fit points and the urethane gains', () => {
+    const d = [0, 3, 9].map((g) => fit(roughAsymSolid, houseShot, typicalBowler, g).fit.demand);
+    expect(d[1]).toBeLessThan(d[0]);
+    expect(d[2]).toBeLessThan(d[1]);
+    expect(fit(roughAsymSolid, houseShot, typicalBowler, 9).score).toBeLessThanOrEqual(fit(roughAsymSolid, houseShot, typicalBowler, 0).score);
+    expect(fit(urethaneBall, houseShot, typicalBowler, 9).score).toBeGreaterThan(fit(urethaneBall, houseShot, typicalBowler, 0).score);
   });
-
 });
 
 describe('rankArsenal: result shape', () => {
@@ -132,11 +130,20 @@ describe('rankArsenal: result shape', () => {
     }
   });
 
-  it('suggestions are of the kinds surface, layout, release and line, and a strike ball gets the rule-of-31 board (40 ft − 31 = 9)', () => {
-    // TRADE.md 7.1 rule of 31 (common practice).
-    for (const r of result) for (const s of r.suggestions) expect(['surface', 'layout', 'release', 'line']).toContain(s.kind);
-    const pearl = result.find((r) => r.id === polishedPearl.id);
-    expect(pearl?.suggestions).toContainEqual(expect.objectContaining({ kind: 'line', change: { exitBoard: 9 } }));
+  it('suggestions are of the kinds surface, layout, release, line and ball; every strike ball gets the model\'s line', () => {
+    expect(result).toHaveLength(4);
+    for (const r of result) for (const s of r.suggestions) expect(['surface', 'layout', 'release', 'line', 'ball']).toContain(s.kind);
+    for (const r of result.filter((x) => x.standing === 'strike')) expect(r.suggestions.some((x) => x.kind === 'line' && 'laydownBoard' in (x.change ?? {}))).toBe(true);
+  });
+
+  it('a ball that is too strong or too weak is pointed to the strike ball of the arsenal that fits best', () => {
+    const r = rankArsenal({ balls: [roughAsymSolid, polishedPearl, { ...polishedPearl, id: 'pearl-1000', surfaceGrit: 1000, polished: false }], bowler: typicalBowler, pattern: shortLight });
+    const solid = r.find((x) => x.id === roughAsymSolid.id)!;
+    expect(solid.fit?.verdict).toBe('too-strong');
+    const ball = solid.suggestions.find((x) => x.kind === 'ball');
+    expect(ball).toBeDefined();
+    const best = r.filter((x) => x.standing === 'strike' && x.id !== solid.id).sort((a, b) => Math.abs(a.fit!.gap) - Math.abs(b.fit!.gap))[0];
+    expect(ball?.change).toEqual({ ballId: best.id });
   });
 
   it('the same input gives the same result (no randomness, no clock)', () => {
@@ -182,21 +189,23 @@ describe('rankArsenal: malformed input throws, naming rankArsenal', () => {
 describe('rankArsenal: scoring layers', () => {
   const [r] = rankArsenal({ balls: [urethaneBall], bowler: typicalBowler, pattern: houseShot, gamesBowled: 2 });
 
-  it('lists every layer’s own score, the rules layer first, and its score is scoreByRules’', () => {
-    // engine/scoringLayers.ts: the rules layer is SCORING_LAYERS[0].
-    expect(SCORING_LAYERS[0].name).toBe('rules');
-    expect(r.layers?.[0]).toEqual({ name: 'rules', weight: 1, score: scoreByRules(urethaneBall, typicalBowler, houseShot, 2).score });
+  it('lists every layer’s own score, the fit layer first, and its score is fitLayer’s', () => {
+    expect(SCORING_LAYERS[0].name).toBe('fit');
+    expect(r.layers?.map((l) => l.name)).toEqual(['fit', 'motion']);
+    expect(r.layers?.[0].score).toBe(fitLayer(urethaneBall, matchupContext(typicalBowler, houseShot, 2)).score);
   });
 
   it('points: the ball’s score is the weighted mean of its layers’ scores (±0.06 for rounding)', () => {
-    // engine/combineLayers.ts: Σ weight × score ÷ Σ weight.
     const layers = r.layers ?? [];
+    expect(layers).toHaveLength(2);
     const mean = layers.reduce((s, l) => s + l.weight * l.score, 0) / layers.reduce((s, l) => s + l.weight, 0);
     expect(Math.abs(r.score - mean)).toBeLessThan(0.06);
   });
 
-  it('the rules layer’s reasons are all among the ball’s reasons', () => {
-    const rules = scoreByRules(urethaneBall, typicalBowler, houseShot, 2).reasons;
-    for (const reason of rules) expect(r.reasons).toContainEqual(reason);
+  it('the fit layer’s reasons are all among the ball’s reasons, and its verdict is the entry’s fit', () => {
+    const f = fitLayer(urethaneBall, matchupContext(typicalBowler, houseShot, 2));
+    expect(f.reasons.length).toBeGreaterThan(3);
+    for (const reason of f.reasons) expect(r.reasons).toContainEqual(reason);
+    expect(r.fit).toEqual({ strength: f.fit.strength, demand: f.fit.demand, gap: f.fit.gap, verdict: f.fit.verdict });
   });
 });

@@ -2,8 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { rankArsenal, rankTransition } from '../../engine/index';
 import { fourBalls, houseShot, roughAsymSolid, typicalBowler } from './fixtures';
 
-// Definition: rankArsenal at each games-bowled count; direction from the patternBreakdown rule
-// (common practice: the strong ball loses ground as the pattern breaks down).
+// Definition: rankArsenal at each games-bowled count (common practice: as the track dries the lane asks for
+// less ball, so the strong ball loses ground as the pattern breaks down).
 
 describe('rankTransition', () => {
   const input = { balls: fourBalls, bowler: typicalBowler, pattern: houseShot };
@@ -14,11 +14,11 @@ describe('rankTransition', () => {
     for (const x of t) expect(x.ranking).toEqual(rankArsenal({ ...input, gamesBowled: x.gamesBowled }));
   });
 
-  it('points: the strong solid’s rules-layer score falls from 0 to 9 games', () => {
-    const score = (g: number): number =>
-      rankTransition(input, [g])[0].ranking.find((r) => r.id === roughAsymSolid.id)?.layers?.find((l) => l.name === 'rules')?.score ??
-      Number.NaN;
-    expect(score(9)).toBeLessThan(score(0));
+  it('points: the strong solid’s gap to the demand grows from 0 to 9 games (it is more too strong), and its fit score falls', () => {
+    const entry = (g: number) => rankTransition(input, [g])[0].ranking.find((r) => r.id === roughAsymSolid.id)!;
+    expect(entry(9).fit!.gap).toBeGreaterThan(entry(0).fit!.gap);
+    const fit = (g: number) => entry(g).layers?.find((l) => l.name === 'fit')?.score ?? Number.NaN;
+    expect(fit(9)).toBeLessThan(fit(0));
   });
 
   it('throws RangeError naming rankArsenal for a negative count, TypeError for games that are not an array', () => {

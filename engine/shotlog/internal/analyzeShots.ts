@@ -1,4 +1,4 @@
-import { show } from '../../internal/checks';
+import { list, show } from '../../internal/checks';
 import { buildGame } from '../buildGame';
 import type { DeliveryView, HitKind, ShotRecord } from '../types';
 import { checkShape, frameStart, step } from './replay';
@@ -72,8 +72,7 @@ export function checkShot(fn: string, name: string, raw: unknown): ShotRecord {
  * Throws RangeError for a frame whose shots are impossible (a pin already down, a repeat).
  */
 export function analyzeShots(fn: string, shots: unknown): AnalyzedShots {
-  if (!Array.isArray(shots)) throw new TypeError(`${fn}: shots must be an array, got ${show(shots)}`);
-  const records = shots.map((s, i) => checkShot(fn, `shots[${i}]`, s));
+  const records = list(fn, 'shots', shots).map((s, i) => checkShot(fn, `shots[${i}]`, s));
   const entries: ShotEntry[] = records.map((shot) => ({ shot, view: null, rackFirst: null, game: `${shot.sessionId}\u0000${shot.gameNumber}` }));
   const byGame = new Map<string, number[]>();
   entries.forEach((e, i) => {

@@ -17,15 +17,15 @@ function slidingState(v0: number, omegaY = 0): Float64Array {
 describe('integrateDelivery — slide-to-roll on uniform friction (TRADE.md §6.2, PHYSICS.md §3.2)', () => {
   // TRADE.md §6.2 textbook result: d = (v0² − vf²)/(2μg), vf = v0·R²/(R² + k²)
   for (const rg of [2.46, 2.55, 2.65, 2.8]) {
-    it(`m, RG ${rg} in, no spin, μ = 0.2: rolls after (v0²−vf²)/(2μg) within 5 mm and then moves at vf within 1e-6 m/s`, () => {
+    it(`m, RG ${rg} in, no spin, μ = 0.2: rolls after (v0²−vf²)/(2μg) within 2 cm and then moves at vf within 1e-5 m/s (regularised friction, ε = 0.03 m/s, blurs the roll point)`, () => {
       const ball = isotropicBall(rg);
       const I = ballInertia(ball);
       const k2 = (rg * 0.0254) ** 2, R2 = I.radiusM ** 2;
       const v0 = 8, vf = (v0 * R2) / (R2 + k2);
       const r = integrateDelivery(slidingState(v0), I, uniformFrictionField(0.2));
       expect(r.rollStartFt).not.toBeNull();
-      expect(Math.abs((r.rollStartFt as number) * 0.3048 - (v0 * v0 - vf * vf) / (2 * 0.2 * G))).toBeLessThan(0.005);
-      expect(Math.abs(r.speedAtPinsMph * 0.44704 - vf)).toBeLessThan(1e-6);
+      expect(Math.abs((r.rollStartFt as number) * 0.3048 - (v0 * v0 - vf * vf) / (2 * 0.2 * G))).toBeLessThan(0.02);
+      expect(Math.abs(r.speedAtPinsMph * 0.44704 - vf)).toBeLessThan(1e-5);
     });
   }
 
@@ -77,7 +77,7 @@ describe('integrateDelivery — hook deliveries on a two-zone lane (PHYSICS.md �
     ['I fast', 2.5, 9, -1.5, 350, 45, 40, 0.2, 17.116, 63.5, 2.1715, 3.877, 7.4137],
   ];
   for (const [name, rg, v0, psi, rpm, rot, oilFt, muDry, xRoll, yPins, tPins, headPins, vRoll] of table) {
-    it(`mm/s/°, case ${name}: y at pins ${yPins} mm (±1 mm), t ${tPins} s (±1 ms), heading ${headPins}° (±0.01°), x roll ${xRoll} m (±1 cm)`, () => {
+    it(`mm/s/°, case ${name}: y at pins ${yPins} mm (±1 mm), t ${tPins} s (±1 ms), heading ${headPins}° (±0.01°), x roll ${xRoll} m (±2 cm: regularised friction blurs the roll point)`, () => {
       const ball = isotropicBall(rg ?? Math.sqrt(0.4) * 4.25);
       const bowler = referenceBowler({ speedMph: v0 / 0.44704, revRpm: rpm, axisRotationDeg: rot });
       const [laydown, target] = linePsi(psi);
@@ -85,7 +85,7 @@ describe('integrateDelivery — hook deliveries on a two-zone lane (PHYSICS.md �
       expect(Math.abs((r.entryBoard - 20) * MM_PER_BOARD - yPins)).toBeLessThan(1);
       expect(Math.abs(r.timeToPinsS - tPins)).toBeLessThan(1e-3);
       expect(Math.abs(r.entryAngleDeg - headPins)).toBeLessThan(0.01);
-      expect(Math.abs((r.rollStartFt as number) * 0.3048 - xRoll)).toBeLessThan(0.01);
+      expect(Math.abs((r.rollStartFt as number) * 0.3048 - xRoll)).toBeLessThan(0.02);
       expect(Math.abs(r.speedAtPinsMph * 0.44704 - vRoll)).toBeLessThan(1e-3);
     });
   }

@@ -11,6 +11,7 @@ describe('rankArsenal — ball-motion layer', () => {
   const ranked = rankArsenal({ balls: fourBalls, bowler: typicalBowler, pattern: houseShot });
 
   it('boards, every ball: a prediction on its pocket line (entry 17.5 ± 0.05, on the lane), miss room ≥ 0, and a "motion" layer score', () => {
+    expect(ranked).toHaveLength(fourBalls.length);
     for (const r of ranked) {
       expect(Math.abs(r.prediction.entryBoard - 17.5)).toBeLessThanOrEqual(0.05);
       expect(r.prediction.gutter).toBe(false);
@@ -21,17 +22,20 @@ describe('rankArsenal — ball-motion layer', () => {
     }
   });
 
-  it('reasons, every ball: entry-angle, pocket and miss-room reasons from the model, each with a source naming PHYSICS.md', () => {
+  it('reasons, every ball: entry-angle, pocket and miss-room reasons from the model (and a launch reason when the line needs an unusual launch), each with a source naming the model and its publication', () => {
+    expect(ranked).toHaveLength(fourBalls.length);
     for (const r of ranked) {
       const motion = r.reasons.filter((x) => x.rule.startsWith('motion-'));
-      expect(motion.map((x) => x.rule).sort()).toEqual(['motion-entry-angle', 'motion-miss-room', 'motion-pocket']);
-      for (const x of motion) { expect(x.source).toMatch(/PHYSICS\.md/); expect(x.text.length).toBeGreaterThan(10); }
+      expect(motion.map((x) => x.rule).filter((x) => x !== 'motion-launch').sort()).toEqual(['motion-entry-angle', 'motion-miss-room', 'motion-pocket']);
+      for (const x of motion) { expect(x.source).toMatch(/ball-motion model.*Frohlich/); expect(x.text.length).toBeGreaterThan(10); }
     }
   });
 
   it('boards, every strike ball: a line suggestion from the model whose laydown and target are the prediction\'s line (to 0.05 board)', () => {
-    for (const r of ranked.filter((x) => fourBalls.find((b) => b.id === x.id)?.coverType !== 'plastic')) {
-      const s = r.suggestions.find((x) => x.kind === 'line' && x.text.startsWith('Ball-motion model'));
+    const strike = ranked.filter((x) => fourBalls.find((b) => b.id === x.id)?.coverType !== 'plastic');
+    expect(strike).toHaveLength(3);
+    for (const r of strike) {
+      const s = r.suggestions.find((x) => x.kind === 'line' && x.text.startsWith("Model's line"));
       expect(s).toBeDefined();
       const change = s?.change as { laydownBoard: number; targetBoard: number };
       expect(Math.abs(change.laydownBoard - r.prediction.laydownBoard)).toBeLessThanOrEqual(0.05 + 1e-9);

@@ -135,8 +135,8 @@ describe('frictionScale in the motion model and rankArsenal', () => {
     const balls = [roughAsymSolid, polishedPearl];
     const plain = rankArsenal({ balls, bowler: typicalBowler, pattern: houseShot });
     const perBall = [
-      { ballId: roughAsymSolid.id, frictionScale: 1.25, low: 1.2, high: 1.3, n: 14, enough: true, rmsBoardsBefore: 3, rmsBoardsAfter: 1 },
-      { ballId: polishedPearl.id, frictionScale: 0.8, low: 0.7, high: 0.9, n: 5, enough: false, rmsBoardsBefore: 3, rmsBoardsAfter: 1 },
+      { ballId: roughAsymSolid.id, frictionScale: 1.25, low: 1.2, high: 1.3, n: 14, enough: true, rmsBoardsBefore: 3, rmsBoardsAfter: 1, surfaces: ['500 grit'], keptReachable: false },
+      { ballId: polishedPearl.id, frictionScale: 0.8, low: 0.7, high: 0.9, n: 5, enough: false, rmsBoardsBefore: 3, rmsBoardsAfter: 1, surfaces: ['2000 grit polished'], keptReachable: false },
     ];
     const calibration = { shots: 19, enough: true, minShots: 12, perBall, rmsBoardsBefore: 3, rmsBoardsAfter: 1, note: '' };
     const cal = rankArsenal({ balls, bowler: typicalBowler, pattern: houseShot, calibration });
