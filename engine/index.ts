@@ -85,6 +85,8 @@ export type { PocketLine, PocketLineHint } from './motion/solvePocketLine';
 export { prepareShot } from './motion/prepareShot';
 export type { PreparedShot } from './motion/prepareShot';
 export { toShotPrediction } from './motion/toShotPrediction';
+export { predictChange } from './motion/predictChange';
+export type { ChangePrediction } from './motion/predictChange';
 // ── end ball-motion model ──────────────────────────────────────────────────────────────────────
 
 // ── Shot log, stats, moves and calibration (engine/shotlog) ───────────────────────────────────

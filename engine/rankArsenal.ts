@@ -8,6 +8,9 @@ import { list, record } from './internal/checks';
 import { validateBallSpec } from './validateBallSpec';
 import { conditionOilMap } from './motion/conditionOilMap';
 import { MOTION_LAYER_WEIGHT, motionLayer, type RankedBallWithPrediction } from './motion/motionLayer';
+import { prepareShot } from './motion/prepareShot';
+import type { LaneOilMap } from './motion/laneOilMap';
+import type { ShotPrediction } from './motion/shotPrediction';
 
 /** Order of the standings in a ranking: strike balls, then spare balls, then balls outside the limits. */
 const STANDING_ORDER = { strike: 0, spare: 1, illegal: 2 } as const;
@@ -69,6 +72,7 @@ export function rankArsenal(input: RankArsenalInput): RankedBallWithPrediction[]
     const verdict = motionLayer(ball, ctx.bowler, ctx.pattern, motionMap, ctx.gamesBowled, scale?.frictionScale ?? 1, { lane: ctx.lane });
     layers.push({ name: 'motion', weight: MOTION_LAYER_WEIGHT, result: verdict.result });
     const { score, reasons, suggestions } = combineLayers(layers);
+    if (verdict.pocketReached) addSameLineFigures(suggestions, ball, ctx.bowler, ctx.pattern, motionMap, scale?.frictionScale ?? 1, ctx.lane, verdict.prediction);
     if (scale !== undefined) reasons.push(calibrationReason(scale, ball));
     if (standing === 'illegal') {
       const broken = legality.violations.map((v) => `${v.field} ${v.limit}`).join(', ');
@@ -119,6 +123,30 @@ export function rankArsenal(input: RankArsenalInput): RankedBallWithPrediction[]
     return sa - sb || b.entry.score - a.entry.score || (a.ball.id < b.ball.id ? -1 : a.ball.id > b.ball.id ? 1 : 0);
   });
   return ranked.map((r) => r.entry);
+}
+
+/**
+ * Adds to each surface and layout suggestion what the model predicts on the ball's current line with the change
+ * made (the figures predictChange gives as `sameLine`): the breakpoint's shift and the entry board's, so the
+ * advice says how much, not only which way. Internal to rankArsenal.
+ */
+function addSameLineFigures(
+  suggestions: Suggestion[], ball: ArsenalBall, bowler: RankArsenalInput['bowler'], pattern: RankArsenalInput['pattern'],
+  map: LaneOilMap, frictionScale: number, lane: RankArsenalInput['lane'], before: ShotPrediction,
+): void {
+  for (const s of suggestions) {
+    if ((s.kind !== 'surface' && s.kind !== 'layout') || !s.change || Object.keys(s.change).length === 0) continue;
+    const changed = s.kind === 'layout'
+      ? { ...ball, layout: { ...(ball.layout ?? { pinToPapIn: 4 }), ...(s.change as { pinToPapIn: number }) } }
+      : { ...ball, ...(s.change as object), gamesSinceResurface: 0 };
+    const r = prepareShot({ ball: changed, bowler, pattern, frictionScale, lane }, map).run(before.laydownBoard, before.targetBoard);
+    const dBp = Math.round((r.breakpointFt - before.breakpoint.ft) * 10) / 10 || 0;
+    const dEntry = Math.round((r.entryBoard - before.entryBoard) * 10) / 10 || 0;
+    const bp = Math.abs(dBp) < 0.1 ? 'about where it is' : `${Math.abs(dBp).toFixed(1)} ft ${dBp > 0 ? 'later' : 'earlier'}`;
+    const entry = Math.abs(dEntry) < 0.1 ? 'the same board' : `${Math.abs(dEntry).toFixed(1)} boards ${dEntry > 0 ? 'higher (more hook)' : 'lighter (less hook)'}`;
+    s.text = `${s.text} On your present line the model puts the breakpoint ${bp} and the ball ${entry} at the headpin.`;
+    s.change = { ...s.change, sameLine: { breakpointShiftFt: dBp, entryBoardShift: dEntry } };
+  }
 }
 
 /** A calibration applied to one ball: its scale and the surfaces its shots were thrown with. */
