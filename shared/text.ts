@@ -5,7 +5,6 @@
  * CVE-2021-42574; Unicode Technical Report #36, Unicode Security Considerations). Line and paragraph
  * separators (U+2028, U+2029) are refused too: a name is one line.
  */
-// eslint-disable-next-line no-control-regex
 export const UNSAFE_NAME_CHARS = /[\u0000-\u001f\u007f-\u009f\u061c\u200e\u200f\u2028-\u202e\u2066-\u2069]/;
 
 export const UNSAFE_NAME_MESSAGE = 'Remove control or text-direction characters';

@@ -62,6 +62,8 @@ const ConfigSchema = z
     ENGINE_WORKERS: z.coerce.number().int().min(0).max(16).default(0),
     /** Engine tasks allowed to wait for a worker; past it a request is answered 503 with Retry-After. 0 = 8 per worker. */
     ENGINE_QUEUE: z.coerce.number().int().min(0).max(10000).default(0),
+    /** Longest an engine task may wait for a thread before its request is answered 503 (ms). */
+    ENGINE_QUEUE_WAIT_MS: z.coerce.number().int().min(100).max(60000).default(4000),
     /** Card payments: a real secret key and webhook signing secret switch to the real service; without them (not in production) the project's own fake runs. */
     STRIPE_SECRET_KEY: z.preprocess(blankToUndefined, z.string().regex(/^(sk|rk)_(test|live)_\S+$/, 'a secret key starts with sk_test_, sk_live_, rk_test_ or rk_live_').optional()),
     STRIPE_WEBHOOK_SECRET: z.preprocess(blankToUndefined, z.string().startsWith('whsec_', 'a webhook signing secret starts with whsec_').optional()),

@@ -21,16 +21,69 @@ const here = path.dirname(fileURLToPath(import.meta.url));
  *    JavaScript file, so a thread starts without compiling TypeScript;
  *  - every thread starts with the pool and none retires when idle (minThreads = maxThreads, no idle
  *    timeout): after a quiet minute the first requests do not wait for cold threads;
- *  - at most ENGINE_QUEUE tasks wait for a thread; past that a request is answered at once with 503 and
- *    Retry-After instead of waiting past any client's patience (load shedding, common practice).
+ *  - a task is handed to piscina only when a thread is free; at most ENGINE_QUEUE tasks wait for one, and
+ *    none waits longer than ENGINE_QUEUE_WAIT_MS: past either, the request is answered 503 with Retry-After
+ *    instead of waiting past any client's patience (load shedding with a bounded queue and a queueing
+ *    deadline, common practice).
  */
 let pool: Piscina | null = null;
 let compiled: string | null = null;
 
 export const engineThreads = Math.max(1, Math.min(config.ENGINE_WORKERS || cpus().length, 8));
 export const engineQueueLimit = config.ENGINE_QUEUE || 8 * engineThreads;
+export const engineQueueWaitMs = config.ENGINE_QUEUE_WAIT_MS;
 /** Seconds a refused client is told to wait. */
 const RETRY_AFTER_S = 2;
+
+const busyError = () => new AppError(503, 'engine_busy', 'The ranking engine is busy; try again in a moment', undefined, RETRY_AFTER_S);
+
+/** Free threads and the line of tasks waiting for one (each with its deadline). */
+let active = 0;
+const line: { go: () => void; fail: (err: unknown) => void }[] = [];
+
+function release(): void {
+  const next = line.shift();
+  if (next) next.go();
+  else active -= 1;
+}
+
+/** Waits for a free thread (resolves with its release), or refuses: line full, waited too long, or the client went away. */
+function acquire(signal?: AbortSignal): Promise<() => void> {
+  if (active < engineThreads) {
+    active += 1;
+    return Promise.resolve(release);
+  }
+  if (line.length >= engineQueueLimit) return Promise.reject(busyError());
+  return new Promise((resolve, reject) => {
+    const entry = {
+      go: () => {
+        clearTimeout(timer);
+        signal?.removeEventListener('abort', onAbort);
+        resolve(release);
+      },
+      fail: (err: unknown) => {
+        clearTimeout(timer);
+        signal?.removeEventListener('abort', onAbort);
+        const i = line.indexOf(entry);
+        if (i >= 0) line.splice(i, 1);
+        reject(err);
+      },
+    };
+    const timer = setTimeout(() => entry.fail(busyError()), engineQueueWaitMs);
+    const onAbort = () => entry.fail(signal!.reason ?? new Error('aborted'));
+    signal?.addEventListener('abort', onAbort, { once: true });
+    line.push(entry);
+  });
+}
+
+async function runTask<T>(name: string, input: unknown, signal?: AbortSignal): Promise<T> {
+  const done = await acquire(signal);
+  try {
+    return (await getPool().run(input, { name })) as T;
+  } finally {
+    done();
+  }
+}
 
 function compileWorker(): string {
   const out = path.join(tmpdir(), `lanewright-engine-worker-${process.pid}-${crypto.randomBytes(4).toString('hex')}.mjs`);
@@ -44,7 +97,7 @@ function getPool(): Piscina {
   compiled = compileWorker();
   const file = compiled;
   process.once('exit', () => fs.rmSync(file, { force: true }));
-  pool = new Piscina({ filename: compiled, minThreads: engineThreads, maxThreads: engineThreads, idleTimeout: Infinity, maxQueue: engineQueueLimit });
+  pool = new Piscina({ filename: compiled, minThreads: engineThreads, maxThreads: engineThreads, idleTimeout: Infinity });
   pool.on('error', (err: unknown) => logger.error({ err }, 'engine worker failed'));
   logger.debug({ threads: engineThreads, queue: engineQueueLimit, ms: Date.now() - started }, 'engine pool ready');
   return pool;
@@ -55,26 +108,19 @@ export function warmEnginePool(): void {
   getPool();
 }
 
-function busy(err: unknown): never {
-  if (err instanceof Error && /queue is at limit|no task queue available/i.test(err.message)) {
-    throw new AppError(503, 'engine_busy', 'The ranking engine is busy; try again in a moment', undefined, RETRY_AFTER_S);
-  }
-  throw err;
-}
-
-/** rankArsenal in a worker thread; an aborted signal (the client went away) drops the task if it has not started. */
+/** rankArsenal in a worker thread; an aborted signal (the client went away) drops the task while it waits. */
 export function rankInWorker(input: RankArsenalInput, signal?: AbortSignal): Promise<RankedBall[]> {
-  return (getPool().run(input, { name: 'rank', ...(signal ? { signal } : {}) }) as Promise<RankedBall[]>).catch(busy);
+  return runTask<RankedBall[]>('rank', input, signal);
 }
 
 /** fitCalibration in a worker thread (about 25 ms of model deliveries per logged shot: too slow for the request thread). */
 export function calibrateInWorker(input: Parameters<typeof fitCalibration>[0], signal?: AbortSignal): Promise<Calibration> {
-  return (getPool().run(input, { name: 'calibrate', ...(signal ? { signal } : {}) }) as Promise<Calibration>).catch(busy);
+  return runTask<Calibration>('calibrate', input, signal);
 }
 
 /** Tasks waiting for a thread and threads in use (health and tests). */
 export function engineLoad(): { queued: number; threads: number } {
-  return { queued: pool?.queueSize ?? 0, threads: pool?.threads.length ?? 0 };
+  return { queued: line.length, threads: active };
 }
 
 export async function closeEnginePool(): Promise<void> {
