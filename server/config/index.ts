@@ -58,7 +58,7 @@ const ConfigSchema = z
     CLIENT_DIST: z.string().default('dist/client'),
     /** Where uploaded files are stored (outside the web root). */
     UPLOAD_DIR: z.string().default('.data/uploads'),
-    /** Worker threads for engine work; 0 = one per core. */
+    /** Worker threads for engine work; 0 = one per core but one (at least one). */
     ENGINE_WORKERS: z.coerce.number().int().min(0).max(16).default(0),
     /** Engine tasks allowed to wait for a worker; past it a request is answered 503 with Retry-After. 0 = 8 per worker. */
     ENGINE_QUEUE: z.coerce.number().int().min(0).max(10000).default(0),

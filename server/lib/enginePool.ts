@@ -29,7 +29,8 @@ const here = path.dirname(fileURLToPath(import.meta.url));
 let pool: Piscina | null = null;
 let compiled: string | null = null;
 
-export const engineThreads = Math.max(1, Math.min(config.ENGINE_WORKERS || cpus().length, 8));
+/** Default: one thread per core but one, left to the event loop and the database (on 2 cores: 1 thread), at most 8. */
+export const engineThreads = Math.max(1, Math.min(config.ENGINE_WORKERS || cpus().length - 1, 8));
 export const engineQueueLimit = config.ENGINE_QUEUE || 8 * engineThreads;
 export const engineQueueWaitMs = config.ENGINE_QUEUE_WAIT_MS;
 /** Seconds a refused client is told to wait. */
