@@ -119,7 +119,7 @@ export async function userWithRole(server: ServerProcess, cluster: OwnCluster, r
   // Sign-up answers neutrally (no token); the new account signs in with its password.
   // The account is confirmed as an admin would (its sign-up verification mail is withdrawn, so a test counting mails sees only its own).
   const [row] = await cluster.query<{ id: number }>('UPDATE users SET role = $1, email_verified_at = now() WHERE email = $2 RETURNING id', [role, email]);
-  await cluster.query("DELETE FROM mail_outbox WHERE to_address = $1 AND kind = 'email_verification' AND status = 'pending'", [email]);
+  await cluster.query("DELETE FROM mail_outbox WHERE to_address = $1 AND kind = 'email_verification'", [email]);
   const login = await call(server.base, 'POST', '/api/auth/login', { body: { email, password } });
   if (login.status !== 200) throw new Error(`login: ${login.status} ${JSON.stringify(login.body)}`);
   return { id: row.id, email, token: login.body.token };
