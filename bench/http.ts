@@ -59,9 +59,12 @@ async function main(): Promise<void> {
   let server: ReturnType<typeof spawn> | null = null;
   try {
     const adminUrl = await startCluster({ dataDir: `${dir}/pg`, port: await freePort(), log: () => undefined });
-    const env = { ...process.env, DATABASE_URL: adminUrl, NODE_ENV: 'production' as const, JWT_SECRET: 'bench-secret-0123456789abcdef', SMTP_URL: 'smtp://127.0.0.1:9', LOG_LEVEL: 'warn' };
+    const env = {
+      ...process.env, DATABASE_URL: adminUrl, NODE_ENV: 'production' as const, JWT_SECRET: `http-bench-${Date.now()}-0123456789abcdef`, PUBLIC_URL: 'http://127.0.0.1', SMTP_URL: 'smtp://127.0.0.1:9',
+      STRIPE_SECRET_KEY: 'sk_test_http_bench', STRIPE_WEBHOOK_SECRET: 'whsec_http_bench', STRIPE_API_URL: 'http://127.0.0.1:9', LOG_LEVEL: 'warn',
+    };
     run(bin('tsx'), ['server/db/migrate.ts', 'up'], env);
-    run(bin('tsx'), ['seeders/index.ts'], env);
+    run(bin('tsx'), ['seeders/index.ts'], { ...env, NODE_ENV: 'test' }); // the demo data, loaded as a test database would be (never into production)
     const distDir = path.join(root, 'dist', 'bench-client');
     run(bin('vite'), ['build', '--logLevel', 'error', '--outDir', distDir], env);
     const jsKb = clientInitialJsGzipKb(distDir);

@@ -50,10 +50,11 @@ interface Figures {
   p95Ms: number;
   p97_5Ms: number;
   p99Ms: number;
-  status: { '2xx': number; '4xx': number; '5xx': number; other: number };
+  /** 503 is counted apart: the ranking queue refuses with Retry-After when full (bench/engineLoad.ts checks the header). */
+  status: { '2xx': number; '4xx': number; '503': number; '5xx': number; other: number };
   errors: number;
   timeouts: number;
-  /** Answers that are neither 2xx nor 4xx, plus socket errors (timeouts included): target 0. */
+  /** Answers that are neither 2xx, 4xx nor a 503 refusal, plus socket errors (timeouts included): target 0. */
   bad: number;
 }
 
@@ -65,7 +66,7 @@ function percentile(sorted: Float64Array, p: number): number {
 
 async function measure(load: Load): Promise<Figures> {
   const latencies: number[] = [];
-  const status = { '2xx': 0, '4xx': 0, '5xx': 0, other: 0 };
+  const status = { '2xx': 0, '4xx': 0, '503': 0, '5xx': 0, other: 0 };
   const result = await new Promise<autocannon.Result>((resolve, reject) => {
     const inst = autocannon(
       {
@@ -79,7 +80,7 @@ async function measure(load: Load): Promise<Figures> {
     );
     inst.on('response', (_client: unknown, statusCode: number, _bytes: number, responseTime: number) => {
       latencies.push(responseTime);
-      const k = statusCode >= 200 && statusCode < 300 ? '2xx' : statusCode >= 400 && statusCode < 500 ? '4xx' : statusCode >= 500 ? '5xx' : 'other';
+      const k = statusCode >= 200 && statusCode < 300 ? '2xx' : statusCode >= 400 && statusCode < 500 ? '4xx' : statusCode === 503 ? '503' : statusCode >= 500 ? '5xx' : 'other';
       status[k] += 1;
     });
   });
@@ -110,7 +111,8 @@ async function main(): Promise<void> {
       ...process.env,
       DATABASE_URL: url,
       NODE_ENV: 'production' as const,
-      JWT_SECRET: 'reliability-bench-secret-0123456789',
+      JWT_SECRET: `reliability-bench-${Date.now()}-0123456789abcdef`,
+      PUBLIC_URL: 'http://127.0.0.1',
       SMTP_URL: 'smtp://127.0.0.1:9',
       STRIPE_SECRET_KEY: 'sk_test_reliability_bench',
       STRIPE_WEBHOOK_SECRET: 'whsec_reliability_bench',
@@ -118,7 +120,7 @@ async function main(): Promise<void> {
       LOG_LEVEL: 'warn',
     };
     run(bin('tsx'), ['server/db/migrate.ts', 'up'], env);
-    run(bin('tsx'), ['seeders/index.ts'], env);
+    run(bin('tsx'), ['seeders/index.ts'], { ...env, NODE_ENV: 'test' }); // the demo data, loaded as a test database would be (never into production)
     const port = await freePort();
     let out = '';
     server = spawn(bin('tsx'), ['server/index.ts'], { cwd: root, env: { ...env, PORT: String(port), RATE_LIMIT_AUTH: '100000' }, stdio: ['ignore', 'pipe', 'pipe'] });
@@ -154,7 +156,7 @@ async function main(): Promise<void> {
       const f = await measure(l);
       figures.push(f);
       console.log(
-        `${f.name.padEnd(44)} ${f.rps.toFixed(0).padStart(6)} req/s  p50 ${f.p50Ms.toFixed(1).padStart(7)} ms  p95 ${f.p95Ms.toFixed(1).padStart(7)} ms  (p97.5 ${f.p97_5Ms.toFixed(1)}, p99 ${f.p99Ms.toFixed(1)})  2xx ${f.status['2xx']}  4xx ${f.status['4xx']}  5xx ${f.status['5xx']}  errors ${f.errors}  timeouts ${f.timeouts}  ${f.bad === 0 ? 'ok' : 'NOT 0'}`,
+        `${f.name.padEnd(44)} ${f.rps.toFixed(0).padStart(6)} req/s  p50 ${f.p50Ms.toFixed(1).padStart(7)} ms  p95 ${f.p95Ms.toFixed(1).padStart(7)} ms  (p97.5 ${f.p97_5Ms.toFixed(1)}, p99 ${f.p99Ms.toFixed(1)})  2xx ${f.status['2xx']}  4xx ${f.status['4xx']}  503 ${f.status['503']}  5xx ${f.status['5xx']}  errors ${f.errors}  timeouts ${f.timeouts}  ${f.bad === 0 ? 'ok' : 'NOT 0'}`,
       );
     }
     const bad = figures.reduce((a, f) => a + f.bad, 0);

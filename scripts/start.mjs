@@ -1,4 +1,6 @@
-// npm start: install what is missing, start the project's PostgreSQL, migrate, seed, build, serve.
+// npm start: install what is missing, start the project's PostgreSQL, migrate, seed (development only), build, serve.
+// With NODE_ENV=production nothing is seeded (the demo accounts' password is published) and the server's
+// configuration check refuses to start without JWT_SECRET, PUBLIC_URL, DATABASE_URL, SMTP_URL and the payment keys.
 import { spawn } from 'node:child_process';
 import path from 'node:path';
 import { buildClientIfStale, ensureNodeModules, root, runBin } from './lib/deps.mjs';
@@ -18,7 +20,8 @@ try {
     log(`PostgreSQL on 127.0.0.1:${port} (data in .data/pg)`);
   }
   runBin('tsx', ['server/db/migrate.ts', 'up'], { env });
-  runBin('tsx', ['seeders/index.ts', '--print'], { env });
+  if ((env.NODE_ENV || 'development') === 'development') runBin('tsx', ['seeders/index.ts', '--print'], { env });
+  else log(`NODE_ENV=${env.NODE_ENV}: no demo data is seeded (npm run db:seed loads it into a development database).`);
   buildClientIfStale(log);
 
   const server = spawn(path.join(root, 'node_modules', '.bin', 'tsx'), ['server/index.ts'], { cwd: root, env, stdio: ['ignore', 'inherit', 'inherit', 'ipc'] });

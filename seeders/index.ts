@@ -1,4 +1,4 @@
-// Loads the demo data into an empty database: `tsx seeders/index.ts` (npm start runs it).
+// Loads the demo data into an empty database: `npm run db:seed` (npm start runs it in development). Never in production.
 import { summarize } from '../server/features/patterns/patterns.service';
 import crypto from 'node:crypto';
 import { Ball, BallModel, Center, Condition, Follow, Lane, Pattern, SurfaceEvent, sequelize, User } from '../server/models/index';
@@ -6,7 +6,8 @@ import { DEMO_ARSENALS } from './arsenals';
 import { DEMO_CATALOGUE } from './catalogue';
 import { DEMO_PATTERNS } from './patterns';
 import { seedShop, seedShopIfMissing } from './shop';
-import { DEMO_PASSWORD, DEMO_USERS, seedUsers } from './users';
+import { DEMO_PASSWORD, DEMO_USERS, seedUsers, verifyDemoUsers } from './users';
+import { config } from '../server/config/index';
 import { seedSessions } from './sessions';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
@@ -81,8 +82,15 @@ export async function seedDemo(): Promise<boolean> {
 
 const isMain = process.argv[1] && import.meta.url.endsWith(process.argv[1].replace(/\\/g, '/'));
 if (isMain) {
+  if (config.NODE_ENV === 'production') {
+    // The demo accounts share a password printed in the README: they must never exist in a production database.
+    console.error('Refusing to seed: NODE_ENV=production. The demo data (with its published password) is for development only.');
+    await sequelize.close();
+    process.exit(1);
+  }
   try {
     const seeded = await seedDemo();
+    if (!seeded) await verifyDemoUsers();
     if (!seeded && (await seedShopIfMissing())) console.log('Pro-shop price list added to Copperline Bowl.');
     console.log(seeded ? 'Demo data loaded.' : 'Database already has data; demo seed skipped.');
     if (seeded || process.argv.includes('--print')) {

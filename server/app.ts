@@ -11,7 +11,6 @@ import { centersRouter, followsRouter, unsubscribeRouter } from './features/cent
 import { docsRouter } from './features/docs/docs.router';
 import { matchupsRouter } from './features/matchups/matchups.router';
 import { patternsRouter } from './features/patterns/patterns.router';
-import { devRouter } from './features/dev/dev.router';
 import { healthRouter } from './features/health/health.router';
 import { profileRouter } from './features/profile/profile.router';
 import { sessionsRouter } from './features/sessions/sessions.router';
@@ -23,7 +22,14 @@ import { mailCaptureEnabled } from './lib/mailer';
 import { passportInitialize } from './middleware/auth';
 import { errorHandler, notFound } from './middleware/errorHandler';
 import { uploadRateLimit } from './middleware/rateLimit';
+import { jsonDepthGuard } from './middleware/jsonDepth';
 import { requestId } from './middleware/requestId';
+
+/**
+ * Developer tools (the admin's dev mailbox) exist only outside production, and only while the in-process
+ * capture SMTP server is in use: a dynamic import, so a production process never loads their code.
+ */
+const devTools = mailCaptureEnabled && config.NODE_ENV !== 'production' ? await import('./features/dev/dev.router') : null;
 
 /** Builds the Express app: the API under /api and, when built, the client. Listening is index.ts's job. */
 export function createApp(): Express {
@@ -31,7 +37,9 @@ export function createApp(): Express {
   app.disable('x-powered-by');
   // API answers are per-user JSON; hashing every body for an ETag costs more than it saves.
   app.set('etag', false);
-  app.set('trust proxy', 'loopback');
+  // Whose X-Forwarded-For to believe (client addresses for the rate limits): none unless configured —
+  // behind a load balancer set TRUST_PROXY to its hop count or subnet (README, Configuration).
+  app.set('trust proxy', config.TRUST_PROXY);
   app.use(requestId);
   app.use(
     helmet({
@@ -57,7 +65,7 @@ export function createApp(): Express {
   // The payment webhook reads its body raw (the signature covers the exact bytes): before the JSON parser.
   app.use('/api/payments', paymentsRouter);
   const api = express.Router();
-  api.use(express.json({ limit: config.BODY_LIMIT }));
+  api.use(express.json({ limit: config.BODY_LIMIT, verify: jsonDepthGuard }));
   api.use(uploadRateLimit);
   api.use('/health', healthRouter);
   api.use('/auth', authRouter);
@@ -78,7 +86,7 @@ export function createApp(): Express {
   api.use('/plans', plansRouter);
   api.use('/unsubscribe', unsubscribeRouter);
   api.use('/docs', docsRouter);
-  if (mailCaptureEnabled) api.use('/dev', devRouter);
+  if (devTools) api.use('/dev', devTools.devRouter);
   api.use(notFound);
   api.use(errorHandler);
   app.use('/api', api);

@@ -1,18 +1,22 @@
 import type { Socket } from 'node:net';
 import { createApp } from './app';
 import { config } from './config/index';
-import { closeEnginePool } from './lib/enginePool';
+import { drainBackground } from './lib/background';
+import { closeEnginePool, warmEnginePool } from './lib/enginePool';
 import { closeMailer } from './lib/mailer';
 import { startMailSender, stopMailSender } from './lib/outbox';
 import { logger } from './lib/logger';
 import { closePayments, paymentFake, setPaymentWebhookTarget } from './lib/payments';
+import { publicUrl, setListeningPort } from './lib/publicUrl';
 import { sequelize } from './models/index';
 
 const app = createApp();
+warmEnginePool();
 const server = app.listen(config.PORT, config.HOST, () => {
   const addr = server.address();
   const port = typeof addr === 'object' && addr ? addr.port : config.PORT;
-  logger.info({ url: `http://${config.HOST}:${port}` }, 'Lanewright is listening');
+  setListeningPort(port);
+  logger.info({ url: `http://${config.HOST}:${port}`, publicUrl: publicUrl(), jwtSecret: config.jwtSecretSource }, 'Lanewright is listening');
   // Without a configured payment key the local fake runs in-process and delivers its webhooks here.
   const fake = paymentFake();
   void (fake ? setPaymentWebhookTarget(`http://${['0.0.0.0', '::', ''].includes(config.HOST) ? '127.0.0.1' : config.HOST}:${port}/api/payments/webhook`) : Promise.resolve())
@@ -40,6 +44,7 @@ async function shutdown(signal: string): Promise<void> {
   force.unref();
   server.closeIdleConnections();
   await new Promise<void>((resolve) => server.close(() => resolve()));
+  await drainBackground();
   await stopMailSender();
   await Promise.allSettled([sequelize.close(), closeMailer(), closeEnginePool(), closePayments()]);
   clearTimeout(force);

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { isSafeName, UNSAFE_NAME_MESSAGE } from './text';
 
 export const ROLES = ['bowler', 'coach', 'proprietor', 'admin'] as const;
 export const RoleSchema = z.enum(ROLES);
@@ -23,7 +24,8 @@ export const RegisterSchema = z.object({
     .string({ error: 'Display name is required' })
     .trim()
     .min(1, 'Display name is required')
-    .max(80, 'Display name must be at most 80 characters'),
+    .max(80, 'Display name must be at most 80 characters')
+    .refine(isSafeName, UNSAFE_NAME_MESSAGE),
 });
 export type RegisterInput = z.infer<typeof RegisterSchema>;
 
@@ -38,12 +40,18 @@ export const UserSchema = z.object({
   email: z.string(),
   displayName: z.string(),
   role: RoleSchema,
+  /** Whether the user has followed the verification link mailed to their address. */
+  emailVerified: z.boolean(),
   createdAt: z.string(),
 });
 export type User = z.infer<typeof UserSchema>;
 
 export const AuthResponseSchema = z.object({ token: z.string(), user: UserSchema });
 export type AuthResponse = z.infer<typeof AuthResponseSchema>;
+
+/** The one answer to a sign-up, whether the address was new or already registered (nothing leaks): the next step is in the mail. */
+export const RegisterResponseSchema = z.object({ ok: z.literal(true), message: z.string() });
+export type RegisterResponse = z.infer<typeof RegisterResponseSchema>;
 
 export const RoleChangeSchema = z.object({ role: RoleSchema });
 export type RoleChange = z.infer<typeof RoleChangeSchema>;
@@ -80,3 +88,8 @@ export const ResetSchema = z.object({
   password: RegisterSchema.shape.password,
 });
 export type ResetInput = z.infer<typeof ResetSchema>;
+
+export const VerifyEmailSchema = z.object({
+  token: z.string({ error: 'The verification token is missing' }).min(20, 'The verification token is not valid').max(200, 'The verification token is not valid'),
+});
+export type VerifyEmailInput = z.infer<typeof VerifyEmailSchema>;

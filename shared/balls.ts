@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { isSafeName, UNSAFE_NAME_MESSAGE } from './text';
 import type { BallSpec, CoverType } from '../engine/types';
 import { PageQuerySchema } from './auth';
 
@@ -38,8 +39,8 @@ export type Layout = z.infer<typeof LayoutSchema>;
 // ---- catalogue -------------------------------------------------------------------------------------
 
 export const BallModelInputSchema = CoreSpecSchema.extend({
-  maker: z.string().trim().min(1, 'Maker is required').max(60),
-  name: z.string().trim().min(1, 'Name is required').max(80),
+  maker: z.string().trim().min(1, 'Maker is required').max(60).refine(isSafeName, UNSAFE_NAME_MESSAGE),
+  name: z.string().trim().min(1, 'Name is required').max(80).refine(isSafeName, UNSAFE_NAME_MESSAGE),
   coreType: CoreTypeSchema,
   factoryGrit: num('Factory grit').int().min(100).max(10000),
   factoryPolished: z.boolean(),
@@ -72,7 +73,7 @@ export type CatalogueQuery = z.infer<typeof CatalogueQuerySchema>;
 // ---- arsenal ---------------------------------------------------------------------------------------
 
 const ballBase = {
-  nickname: z.string().trim().max(60, 'At most 60 characters').nullable().optional(),
+  nickname: z.string().trim().max(60, 'At most 60 characters').refine(isSafeName, UNSAFE_NAME_MESSAGE).nullable().optional(),
   weightLb: num('Weight').min(6, 'At least 6 lb').max(16.5, 'At most 16.5 lb'),
   layout: LayoutSchema.nullable().optional(),
   gamesSinceResurface: num('Games').int().min(0).max(100000).default(0),
@@ -84,7 +85,7 @@ export const BallFromModelSchema = z
   .object({ ballModelId: z.number({ error: 'Choose a catalogue ball' }).int().positive(), ...ballBase, surfaceGrit: SurfaceSchema.shape.surfaceGrit.optional(), polished: z.boolean().optional() })
   .strict();
 /** A ball entered by hand. */
-export const BallByHandSchema = CoreSpecSchema.extend({ name: z.string().trim().min(1, 'Name is required').max(80), coreType: CoreTypeSchema, ...ballBase, ...SurfaceSchema.shape }).strict();
+export const BallByHandSchema = CoreSpecSchema.extend({ name: z.string().trim().min(1, 'Name is required').max(80).refine(isSafeName, UNSAFE_NAME_MESSAGE), coreType: CoreTypeSchema, ...ballBase, ...SurfaceSchema.shape }).strict();
 
 /** Either kind of new ball; a body with `ballModelId` is checked as a catalogue ball, any other as hand-entered (so field errors are specific). */
 export const BallCreateSchema = z.union([BallFromModelSchema, BallByHandSchema]);
@@ -102,7 +103,7 @@ export const BallPatchSchema = z
     layout: ballBase.layout,
     gamesSinceResurface: num('Games').int().min(0).max(100000).optional(),
     status: z.enum(BALL_STATUSES).optional(),
-    name: z.string().trim().min(1).max(80).optional(),
+    name: z.string().trim().min(1).max(80).refine(isSafeName, UNSAFE_NAME_MESSAGE).optional(),
   })
   .extend(CoreSpecSchema.partial().shape)
   .strict();

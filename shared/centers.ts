@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { isSafeName, UNSAFE_NAME_MESSAGE } from './text';
 import type { Sweep } from '../engine/types';
 import type { PatternSummary } from './patterns';
 
@@ -6,8 +7,8 @@ const isoDate = z.iso.date({ error: 'Use a date like 2026-12-01' });
 
 export const CenterInputSchema = z
   .object({
-    name: z.string().trim().min(1, 'Name is required').max(80),
-    town: z.string().trim().min(1, 'Town is required').max(80),
+    name: z.string().trim().min(1, 'Name is required').max(80).refine(isSafeName, UNSAFE_NAME_MESSAGE),
+    town: z.string().trim().min(1, 'Town is required').max(80).refine(isSafeName, UNSAFE_NAME_MESSAGE),
     laneCount: z.number({ error: 'Must be a number' }).int().min(1, 'At least 1 lane').max(120, 'At most 120 lanes'),
     ownerId: z.number().int().positive().nullable().optional(),
   })

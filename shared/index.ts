@@ -7,3 +7,4 @@ export * from './matchups';
 export * from './centers';
 export * from './sessions';
 export * from './coaching';
+export * from './text';

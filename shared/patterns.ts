@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { isSafeName, UNSAFE_NAME_MESSAGE } from './text';
 import type { Sweep } from '../engine/types';
 import { PageQuerySchema } from './auth';
 
@@ -21,7 +22,7 @@ export const SweepSchema = z
 
 export const PatternInputSchema = z
   .object({
-    name: z.string().trim().min(1, 'Name is required').max(80),
+    name: z.string().trim().min(1, 'Name is required').max(80).refine(isSafeName, UNSAFE_NAME_MESSAGE),
     description: z.string().trim().max(1000).nullable().optional(),
     sweeps: z.array(SweepSchema).min(1, 'At least one sweep').max(200, 'At most 200 sweeps'),
   })

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { isSafeName, UNSAFE_NAME_MESSAGE } from './text';
 import { PageQuerySchema } from './auth';
 
 // ---- the price list -------------------------------------------------------------------------------
@@ -26,7 +27,7 @@ const grit = z.number({ error: 'Grit is a number' }).int('Whole grit').min(100, 
 
 const serviceFields = {
   kind: ServiceKindSchema,
-  name: z.string({ error: 'Name is required' }).trim().min(1, 'Name is required').max(80, 'At most 80 characters'),
+  name: z.string({ error: 'Name is required' }).trim().min(1, 'Name is required').max(80, 'At most 80 characters').refine(isSafeName, UNSAFE_NAME_MESSAGE),
   grit: grit.nullable().optional(),
   description: z.string().trim().max(500, 'At most 500 characters').nullable().optional(),
   priceCents,

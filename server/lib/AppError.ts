@@ -5,6 +5,8 @@ export class AppError extends Error {
     public readonly code: string,
     message: string,
     public readonly fields?: Record<string, string>,
+    /** Seconds the client should wait before trying again (sent as Retry-After; 429 and 503). */
+    public readonly retryAfterS?: number,
   ) {
     super(message);
     this.name = 'AppError';

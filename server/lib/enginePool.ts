@@ -1,4 +1,7 @@
-import { cpus } from 'node:os';
+import { buildSync } from 'esbuild';
+import crypto from 'node:crypto';
+import fs from 'node:fs';
+import { cpus, tmpdir } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
@@ -6,37 +9,119 @@ import type { fitCalibration } from '../../engine/index';
 import type { Calibration } from '../../engine/shotlog/types';
 import type { RankArsenalInput, RankedBall } from '../../engine/types';
 import { config } from '../config/index';
+import { AppError } from './AppError';
 import { logger } from './logger';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
-const workerFile = path.join(here, 'engineWorker.mjs');
 
 /**
- * Heavy engine work (ranking with the ball-motion model) runs in worker threads so a request never
- * holds the event loop. engineWorker.mjs loads the TypeScript worker through tsx inside the thread.
+ * Heavy engine work (ranking with the ball-motion model) runs in worker threads so a request never holds the
+ * event loop. The pool stays warm and bounded:
+ *  - the worker (engineWorker.ts and the engine) is compiled once per process with esbuild into one plain
+ *    JavaScript file, so a thread starts without compiling TypeScript;
+ *  - every thread starts with the pool and none retires when idle (minThreads = maxThreads, no idle
+ *    timeout): after a quiet minute the first requests do not wait for cold threads;
+ *  - a task is handed to piscina only when a thread is free; at most ENGINE_QUEUE tasks wait for one, and
+ *    none waits longer than ENGINE_QUEUE_WAIT_MS: past either, the request is answered 503 with Retry-After
+ *    instead of waiting past any client's patience (load shedding with a bounded queue and a queueing
+ *    deadline, common practice).
  */
 let pool: Piscina | null = null;
+let compiled: string | null = null;
+
+/** Default: one thread per core but one, left to the event loop and the database (on 2 cores: 1 thread), at most 8. */
+export const engineThreads = Math.max(1, Math.min(config.ENGINE_WORKERS || cpus().length - 1, 8));
+export const engineQueueLimit = config.ENGINE_QUEUE || 8 * engineThreads;
+export const engineQueueWaitMs = config.ENGINE_QUEUE_WAIT_MS;
+/** Seconds a refused client is told to wait. */
+const RETRY_AFTER_S = 2;
+
+const busyError = () => new AppError(503, 'engine_busy', 'The ranking engine is busy; try again in a moment', undefined, RETRY_AFTER_S);
+
+/** Free threads and the line of tasks waiting for one (each with its deadline). */
+let active = 0;
+const line: { go: () => void; fail: (err: unknown) => void }[] = [];
+
+function release(): void {
+  const next = line.shift();
+  if (next) next.go();
+  else active -= 1;
+}
+
+/** Waits for a free thread (resolves with its release), or refuses: line full, waited too long, or the client went away. */
+function acquire(signal?: AbortSignal): Promise<() => void> {
+  if (active < engineThreads) {
+    active += 1;
+    return Promise.resolve(release);
+  }
+  if (line.length >= engineQueueLimit) return Promise.reject(busyError());
+  return new Promise((resolve, reject) => {
+    const entry = {
+      go: () => {
+        clearTimeout(timer);
+        signal?.removeEventListener('abort', onAbort);
+        resolve(release);
+      },
+      fail: (err: unknown) => {
+        clearTimeout(timer);
+        signal?.removeEventListener('abort', onAbort);
+        const i = line.indexOf(entry);
+        if (i >= 0) line.splice(i, 1);
+        reject(err);
+      },
+    };
+    const timer = setTimeout(() => entry.fail(busyError()), engineQueueWaitMs);
+    const onAbort = () => entry.fail(signal!.reason ?? new Error('aborted'));
+    signal?.addEventListener('abort', onAbort, { once: true });
+    line.push(entry);
+  });
+}
+
+async function runTask<T>(name: string, input: unknown, signal?: AbortSignal): Promise<T> {
+  const done = await acquire(signal);
+  try {
+    return (await getPool().run(input, { name })) as T;
+  } finally {
+    done();
+  }
+}
+
+function compileWorker(): string {
+  const out = path.join(tmpdir(), `lanewright-engine-worker-${process.pid}-${crypto.randomBytes(4).toString('hex')}.mjs`);
+  buildSync({ entryPoints: [path.join(here, 'engineWorker.ts')], bundle: true, platform: 'node', format: 'esm', target: 'node20', outfile: out, logLevel: 'silent', legalComments: 'none' });
+  return out;
+}
 
 function getPool(): Piscina {
   if (pool) return pool;
-  pool = new Piscina({
-    filename: workerFile,
-    minThreads: 1,
-    maxThreads: Math.max(1, Math.min(config.ENGINE_WORKERS || cpus().length, 8)),
-    idleTimeout: 60000,
-  });
+  const started = Date.now();
+  compiled = compileWorker();
+  const file = compiled;
+  process.once('exit', () => fs.rmSync(file, { force: true }));
+  pool = new Piscina({ filename: compiled, minThreads: engineThreads, maxThreads: engineThreads, idleTimeout: Infinity });
   pool.on('error', (err: unknown) => logger.error({ err }, 'engine worker failed'));
+  logger.debug({ threads: engineThreads, queue: engineQueueLimit, ms: Date.now() - started }, 'engine pool ready');
   return pool;
 }
 
-/** rankArsenal in a worker thread; an aborted signal (the client went away) drops the task if it has not started. */
+/** Starts the pool now (the server calls this at start, so the first ranking finds warm threads). */
+export function warmEnginePool(): void {
+  getPool();
+}
+
+/** rankArsenal in a worker thread; an aborted signal (the client went away) drops the task while it waits. */
 export function rankInWorker(input: RankArsenalInput, signal?: AbortSignal): Promise<RankedBall[]> {
-  return getPool().run(input, { name: 'rank', ...(signal ? { signal } : {}) }) as Promise<RankedBall[]>;
+  return runTask<RankedBall[]>('rank', input, signal);
 }
 
 /** fitCalibration in a worker thread (about 25 ms of model deliveries per logged shot: too slow for the request thread). */
 export function calibrateInWorker(input: Parameters<typeof fitCalibration>[0], signal?: AbortSignal): Promise<Calibration> {
-  return getPool().run(input, { name: 'calibrate', ...(signal ? { signal } : {}) }) as Promise<Calibration>;
+  return runTask<Calibration>('calibrate', input, signal);
+}
+
+/** Tasks waiting for a thread and threads in use (health and tests). */
+export function engineLoad(): { queued: number; threads: number } {
+  return { queued: line.length, threads: active };
 }
 
 export async function closeEnginePool(): Promise<void> {
@@ -44,5 +129,9 @@ export async function closeEnginePool(): Promise<void> {
     const p = pool;
     pool = null;
     await p.destroy();
+  }
+  if (compiled) {
+    fs.rmSync(compiled, { force: true });
+    compiled = null;
   }
 }

@@ -1,7 +1,8 @@
+import crypto from 'node:crypto';
 import path from 'node:path';
 import Stripe from 'stripe';
 import { config } from '../config/index';
-import { startStripeFake, type StripeFake } from '../dev/stripeFake/index';
+import type { StripeFake } from '../dev/stripeFake/index';
 import { logger } from './logger';
 
 /**
@@ -9,12 +10,15 @@ import { logger } from './logger';
  * - STRIPE_SECRET_KEY + STRIPE_WEBHOOK_SECRET set: the official SDK talks to the real service
  *   (or to STRIPE_API_URL when given, e.g. the fake run on its own) — no code change.
  * - Neither set (development and tests only; production refuses to start): the project's own fake is
- *   started in-process on loopback and the SDK reaches it through its own host/port/protocol options.
+ *   imported on demand (production never loads its code) and started in-process on loopback; the SDK
+ *   reaches it through its own host/port/protocol options.
  */
 
-/** Development/test credentials of the in-process fake (never valid anywhere else). */
-const FAKE_SECRET_KEY = 'sk_test_lanewright_local_fake';
-const FAKE_WEBHOOK_SECRET = 'whsec_lanewright_local_fake_signing_secret';
+/**
+ * The in-process fake's credentials: drawn at random for each start and shared only between the fake and
+ * this process (its SDK client and its webhook check), so a signature can never be forged from the repository.
+ */
+const fakeCredentials = { apiKey: `sk_test_${crypto.randomBytes(24).toString('base64url')}`, webhookSecret: `whsec_${crypto.randomBytes(32).toString('base64url')}` };
 
 export const usingPaymentFake = !config.STRIPE_SECRET_KEY;
 
@@ -28,15 +32,17 @@ function urlOptions(url: string): Pick<Stripe.StripeConfig, 'host' | 'port' | 'p
   return { host: u.hostname, port: u.port ? Number(u.port) : protocol === 'http' ? 80 : 443, protocol };
 }
 
-/** Starts the in-process fake once (no-op with a configured key). */
+/** Starts the in-process fake once (no-op with a configured key, and never in production). */
 export function paymentFake(): Promise<StripeFake> | null {
-  if (!usingPaymentFake) return null;
+  if (!usingPaymentFake || config.NODE_ENV === 'production') return null;
   // In development its state survives restarts (a payment made before `tsx watch` reloaded can still be refunded).
-  const stateFile = config.NODE_ENV === 'development' ? path.resolve('.data', 'payment-fake.json') : undefined;
-  fake ??= startStripeFake({ port: config.STRIPE_FAKE_PORT, webhookSecret: FAKE_WEBHOOK_SECRET, webhookUrl: webhookTarget, stateFile }).then((f) => {
-    logger.info({ url: f.url }, 'local payment fake listening');
-    return f;
-  });
+  const stateFile = config.NODE_ENV === 'development' ? path.resolve(config.DATA_DIR, 'payment-fake.json') : undefined;
+  fake ??= import('../dev/stripeFake/index')
+    .then(({ startStripeFake }) => startStripeFake({ port: config.STRIPE_FAKE_PORT, apiKey: fakeCredentials.apiKey, webhookSecret: fakeCredentials.webhookSecret, webhookUrl: webhookTarget, stateFile }))
+    .then((f) => {
+      logger.info({ url: f.url }, 'local payment fake listening');
+      return f;
+    });
   return fake;
 }
 
@@ -54,15 +60,17 @@ export async function stripeClient(): Promise<Stripe> {
   if (config.STRIPE_SECRET_KEY) {
     client = new Stripe(config.STRIPE_SECRET_KEY, { ...common, ...(config.STRIPE_API_URL ? urlOptions(config.STRIPE_API_URL) : {}) });
   } else {
-    const f = await paymentFake()!;
-    client = new Stripe(FAKE_SECRET_KEY, { ...common, host: f.host, port: f.port, protocol: 'http' });
+    const started = paymentFake();
+    if (!started) throw new Error('no payment service is configured');
+    const f = await started;
+    client = new Stripe(fakeCredentials.apiKey, { ...common, host: f.host, port: f.port, protocol: 'http' });
   }
   return client;
 }
 
-/** The secret webhook signatures are checked with. */
+/** The secret webhook signatures are checked with: the configured one, else the in-process fake's of this start. */
 export function webhookSecret(): string {
-  return config.STRIPE_WEBHOOK_SECRET ?? FAKE_WEBHOOK_SECRET;
+  return config.STRIPE_WEBHOOK_SECRET ?? fakeCredentials.webhookSecret;
 }
 
 /** Verifies a webhook's signature (and its timestamp, 5 minutes' tolerance) with the SDK's helper; throws when it does not match. */

@@ -1,3 +1,4 @@
+import sharp from 'sharp';
 import crypto from 'node:crypto';
 import fs from 'node:fs/promises';
 import path from 'node:path';
@@ -32,10 +33,24 @@ export function localStorage(dir = path.resolve(config.UPLOAD_DIR)): FileStorage
 
 export const storage: FileStorage = localStorage();
 
-/** The image type from the file's first bytes (not from its name or the client's claim). */
-export function sniffImage(b: Buffer): { ext: 'png' | 'jpg' | 'webp'; type: string } | null {
-  if (b.length >= 8 && b.subarray(0, 8).equals(Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]))) return { ext: 'png', type: 'image/png' };
-  if (b.length >= 3 && b[0] === 0xff && b[1] === 0xd8 && b[2] === 0xff) return { ext: 'jpg', type: 'image/jpeg' };
-  if (b.length >= 12 && b.subarray(0, 4).toString('latin1') === 'RIFF' && b.subarray(8, 12).toString('latin1') === 'WEBP') return { ext: 'webp', type: 'image/webp' };
-  return null;
+const IMAGE_TYPES = { png: { ext: 'png', type: 'image/png' }, jpeg: { ext: 'jpg', type: 'image/jpeg' }, webp: { ext: 'webp', type: 'image/webp' } } as const;
+/** Largest photo accepted, in pixels (about 6000 × 4000): a small file can claim a huge canvas ("decompression bomb"). */
+export const MAX_IMAGE_PIXELS = 24_000_000;
+
+/**
+ * The image type of an upload, from decoding it whole with an image library (sharp, libvips) — not from its
+ * first bytes, its name or the client's claim: a file that only starts like a PNG, a truncated or corrupt image,
+ * another format (SVG, GIF, TIFF …) or a canvas past MAX_IMAGE_PIXELS is refused (null).
+ */
+export async function decodeImage(b: Buffer): Promise<{ ext: 'png' | 'jpg' | 'webp'; type: string; width: number; height: number } | null> {
+  try {
+    const image = sharp(b, { failOn: 'warning', limitInputPixels: MAX_IMAGE_PIXELS, animated: false });
+    const meta = await image.metadata();
+    const kind = meta.format && meta.format in IMAGE_TYPES ? IMAGE_TYPES[meta.format as keyof typeof IMAGE_TYPES] : null;
+    if (!kind || !meta.width || !meta.height) return null;
+    await image.raw().toBuffer(); // every pixel decoded: a damaged file fails here
+    return { ...kind, width: meta.width, height: meta.height };
+  } catch {
+    return null;
+  }
 }

@@ -33,6 +33,7 @@ export function errorHandler(err: unknown, req: Request, res: Response, next: Ne
     return;
   }
   if (err instanceof AppError) {
+    if (err.retryAfterS !== undefined) res.setHeader('Retry-After', String(Math.max(1, Math.ceil(err.retryAfterS))));
     res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
     return;
   }
@@ -53,6 +54,12 @@ export function errorHandler(err: unknown, req: Request, res: Response, next: Ne
   if ((err as { name?: string })?.name === 'SequelizeOptimisticLockError') {
     // Two requests saved the same versioned row at once and this one lost: a conflict, not a server fault.
     res.status(409).json({ error: { code: 'stale_version', message: 'This record was changed by another request at the same time; reload it and try again' } });
+    return;
+  }
+  if ((err as { name?: string })?.name === 'SequelizeUniqueConstraintError') {
+    // Two requests created the same unique row at once and this one lost (the services use INSERT … ON CONFLICT
+    // where a race is expected; anything left is a conflict to retry, not a server fault).
+    res.status(409).json({ error: { code: 'conflict', message: 'This record was created by another request at the same time; reload and try again' } });
     return;
   }
   if (isDbUnavailable(err)) {

@@ -29,7 +29,9 @@ export function requestId(req: Request, res: Response, next: NextFunction): void
     const ms = Number(process.hrtime.bigint() - started) / 1e6;
     const line = { method: req.method, path: req.originalUrl.split('?')[0], status: res.statusCode, ms: Math.round(ms * 10) / 10 };
     requestContext.run({ requestId: id }, () => {
-      if (res.statusCode >= 500) logger.error(line, 'request');
+      // 503 is the server shedding load or waiting for its database (expected, answered with Retry-After): a warning.
+      if (res.statusCode === 503) logger.warn(line, 'request');
+      else if (res.statusCode >= 500) logger.error(line, 'request');
       else logger.info(line, 'request');
     });
   });

@@ -9,6 +9,8 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare role: CreationOptional<Role>;
   /** Bumped to invalidate every token issued before (password reset). */
   declare tokenVersion: CreationOptional<number>;
+  /** When the user proved they read their address (the mailed verification link); null until then. */
+  declare emailVerifiedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -21,6 +23,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         displayName: { type: DataTypes.STRING(80), allowNull: false },
         role: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'bowler' },
         tokenVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+        emailVerifiedAt: { type: DataTypes.DATE, allowNull: true, defaultValue: null },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -86,3 +86,35 @@ export function uniqueEmail(tag: string): string {
   counter += 1;
   return `${tag}-${Date.now()}-${counter}@example.test`;
 }
+
+/** Signs in through the API and returns the bearer token. */
+export async function apiToken(baseUrl: string, email: string, password = DEMO_PASSWORD): Promise<string> {
+  const res = await fetch(`${baseUrl}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email, password }) });
+  if (res.status !== 200) throw new Error(`sign-in of ${email}: ${res.status}`);
+  return ((await res.json()) as { token: string }).token;
+}
+
+/** The project's own mailbox (`/api/dev/mail`, admin only), read as the demo admin; newest first. */
+export async function devMailbox(baseUrl: string): Promise<{ to: string[]; subject: string; text: string }[]> {
+  const res = await fetch(`${baseUrl}/api/dev/mail`, { headers: { Authorization: `Bearer ${await apiToken(baseUrl, DEMO.admin)}` } });
+  if (res.status !== 200) throw new Error(`dev mailbox: ${res.status}`);
+  return ((await res.json()) as { items: { to: string[]; subject: string; text: string }[] }).items;
+}
+
+/** Waits for a link to `path` (e.g. '/verify-email') in a mail to `email` and returns the whole link. */
+export async function mailedLink(baseUrl: string, email: string, path: string): Promise<string> {
+  const re = new RegExp(`https?://\\S+${path.replace(/[/]/g, '\\/')}\\?token=[\\w-]+`);
+  for (let attempt = 0; attempt < 50; attempt += 1) {
+    const link = (await devMailbox(baseUrl)).filter((m) => m.to.includes(email)).map((m) => re.exec(m.text)?.[0]).find(Boolean);
+    if (link) return link;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error(`no ${path} link mailed to ${email}`);
+}
+
+/** Confirms a newly registered address the way its owner would: the token of the mailed verification link. */
+export async function verifyByMail(baseUrl: string, email: string): Promise<void> {
+  const token = new URL(await mailedLink(baseUrl, email, '/verify-email')).searchParams.get('token');
+  const res = await fetch(`${baseUrl}/api/auth/verify-email`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ token }) });
+  if (res.status !== 200) throw new Error(`verifying ${email}: ${res.status}`);
+}

@@ -1,6 +1,6 @@
 import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { DEMO, DEMO_PASSWORD, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, uniqueEmail, type Session } from './browser';
+import { DEMO, DEMO_PASSWORD, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, uniqueEmail, verifyByMail, type Session } from './browser';
 
 const baseUrl = inject('baseUrl');
 let browser: Browser;
@@ -64,6 +64,7 @@ describe('coach: invitations, plans and the side-by-side what-if at 375 px', () 
       body: JSON.stringify({ email, password: 'a-long-password-1', displayName: 'Rowan Pike' }),
     });
     expect(reg.status).toBe(201);
+    await verifyByMail(baseUrl, email); // only a confirmed address claims an invitation
 
     const coach = await open();
     await signIn(coach.page, DEMO.coach);

@@ -199,6 +199,11 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
     await screenshot(page, 'condition-public-bowler-desktop');
     expect(await bestFit.getByRole('listitem').count(), 'Dana has demo balls, so the matchup ranks some').toBeGreaterThan(0);
 
+    // The dev mailbox is the admin's (it holds everyone's links): a bowler is turned away, the admin reads it.
+    await page.goto('/dev/mail');
+    await page.getByRole('heading', { level: 1, name: 'Not allowed' }).waitFor();
+    await page.evaluate(() => window.localStorage.clear());
+    await signIn(page, DEMO.admin);
     await page.goto('/dev/mail');
     await page.getByRole('heading', { level: 1, name: 'Dev mailbox' }).waitFor();
     await page.getByLabel('Filter by recipient or subject').fill(DEMO.dana);

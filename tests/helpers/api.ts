@@ -17,10 +17,10 @@ export function uniqueEmail(tag = 'user'): string {
 
 const hashCache = new Map<string, Promise<string>>();
 
-/** Inserts a user with the given role straight into the database and returns it with a valid token. */
-export async function createUser(role: Role = 'bowler', password = 'correct-horse-battery'): Promise<{ user: User; token: string; password: string; auth: { Authorization: string } }> {
+/** Inserts a user with the given role straight into the database and returns it with a valid token (address verified unless `verified: false`). */
+export async function createUser(role: Role = 'bowler', password = 'correct-horse-battery', opts: { verified?: boolean } = {}): Promise<{ user: User; token: string; password: string; auth: { Authorization: string } }> {
   if (!hashCache.has(password)) hashCache.set(password, hashPassword(password));
-  const user = await User.create({ email: uniqueEmail(role), passwordHash: await hashCache.get(password)!, displayName: `Test ${role}`, role });
+  const user = await User.create({ email: uniqueEmail(role), passwordHash: await hashCache.get(password)!, displayName: `Test ${role}`, role, emailVerifiedAt: opts.verified === false ? null : new Date() });
   const token = signToken(user);
   return { user, token, password, auth: { Authorization: `Bearer ${token}` } };
 }

@@ -10,5 +10,7 @@ process.env.STRIPE_SECRET_KEY = '';
 process.env.STRIPE_WEBHOOK_SECRET = '';
 process.env.STRIPE_API_URL = '';
 process.env.RATE_LIMIT_AUTH ??= '40';
-process.env.JWT_SECRET ??= 'lanewright-test-secret-0123456789';
 process.env.UPLOAD_DIR ??= path.join(os.tmpdir(), `lanewright-test-uploads-${process.pid}`);
+// The tests play a load balancer on loopback: each test names its client address in X-Forwarded-For
+// (tests/api/auth/throttle.test.ts checks the default, where no proxy is trusted).
+process.env.TRUST_PROXY ??= 'loopback';

@@ -5,6 +5,7 @@ export const ROUTE_NAMES = [
   'sign-in',
   'sign-up',
   'reset-password',
+  'verify-email',
   'home',
   'profile',
   'admin-users',
@@ -53,6 +54,12 @@ export const routes: AppRouteRecord[] = [
     meta: { title: 'Reset password', public: true },
   },
   {
+    path: '/verify-email',
+    name: 'verify-email',
+    component: () => import('@/views/VerifyEmailView.vue'),
+    meta: { title: 'Confirm your e-mail', public: true },
+  },
+  {
     path: '/',
     component: () => import('@/components/AppLayout.vue'),
     children: [
@@ -97,11 +104,11 @@ export const routes: AppRouteRecord[] = [
       // Coaches and admins see their students; every bowler sees their coaches and invitations here.
       { path: 'coach', name: 'coach', component: () => import('@/views/CoachView.vue'), meta: { title: 'Coach' } },
       {
-        // Development and tests only: the page says so when the API has no mailbox (production).
+        // Development and tests only, for the admin: the page says so when the API has no mailbox (production).
         path: 'dev/mail',
         name: 'dev-mail',
         component: () => import('@/views/DevMailView.vue'),
-        meta: { title: 'Dev mailbox', public: true },
+        meta: { title: 'Dev mailbox', roles: ['admin'] },
       },
       {
         path: 'admin/users',

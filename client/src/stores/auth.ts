@@ -54,10 +54,23 @@ export const useAuthStore = defineStore('auth', () => {
     return res.user;
   }
 
-  async function signUp(input: RegisterInput): Promise<User> {
+  /**
+   * Sign-up answers the same whether the address was new or taken, so the client then signs in with what was
+   * typed: that works for a new account; for a taken address it fails and the form points to the mail.
+   */
+  async function signUp(input: RegisterInput): Promise<{ user: User | null; message: string }> {
     const res = await authApi.register(input);
-    setSession(res.token, res.user);
-    return res.user;
+    try {
+      return { user: await signIn({ email: input.email, password: input.password }), message: res.message };
+    } catch (err) {
+      if (isApiRequestError(err) && (err.status === 401 || err.status === 429)) return { user: null, message: res.message };
+      throw err;
+    }
+  }
+
+  /** After the verification link was followed in this browser. */
+  function markVerified(): void {
+    if (user.value) user.value = { ...user.value, emailVerified: true };
   }
 
   function signOut(): void {
@@ -89,5 +102,5 @@ export const useAuthStore = defineStore('auth', () => {
     return role.value !== null && roles.includes(role.value);
   }
 
-  return { token, user, sessionError, isSignedIn, role, setSession, clearSession, signIn, signUp, signOut, ensureSession, hasRole };
+  return { token, user, sessionError, isSignedIn, role, setSession, clearSession, signIn, signUp, markVerified, signOut, ensureSession, hasRole };
 });

@@ -46,6 +46,8 @@ export interface StripeFakeOptions {
   host?: string;
   /** The signing secret the receiver verifies with (whsec_…). */
   webhookSecret: string;
+  /** The one secret key the fake accepts (sk_test_…); unset = any sk_test_ key. */
+  apiKey?: string;
   /** Where events are POSTed; null keeps them (readable in `events`) without delivering. */
   webhookUrl?: string | null;
   /** Delays between delivery attempts of one event (the real service retries for days; here seconds). */
@@ -353,7 +355,7 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
   async function api(req: IncomingMessage, res: ServerResponse, path: string): Promise<void> {
     const auth = req.headers.authorization ?? '';
     const key = /^Bearer (sk_test_\S+)$/.exec(auth)?.[1];
-    if (!key) {
+    if (!key || (opts.apiKey !== undefined && !crypto.timingSafeEqual(crypto.createHash('sha256').update(key).digest(), crypto.createHash('sha256').update(opts.apiKey).digest()))) {
       throw new ApiError(401, {
         type: 'invalid_request_error',
         message: auth ? 'Invalid API Key provided (test mode keys start with sk_test_).' : 'You did not provide an API key. Provide it in the Authorization header (Authorization: Bearer YOUR_SECRET_KEY).',

@@ -10,7 +10,7 @@ import {
 import { AppError } from '../../lib/AppError';
 import { cell, parseCsvRows } from '../../lib/upload';
 import { sequelize, Upload } from '../../models/index';
-import { sniffImage, storage } from '../../lib/storage';
+import { decodeImage, storage } from '../../lib/storage';
 import { catalogueRepository } from '../catalogue/catalogue.repository';
 import { arsenalRepository, toBallDto } from './arsenal.repository';
 
@@ -107,12 +107,12 @@ export const arsenalService = {
     });
   },
 
-  /** Sets the ball's photo: the bytes must really be PNG, JPEG or WebP (checked from their content); the old photo is removed. */
+  /** Sets the ball's photo: the bytes must decode as a PNG, JPEG or WebP image (storage.decodeImage); the old photo is removed. */
   async setPhoto(ownerId: number, id: number, file: { buffer: Buffer; originalname: string }): Promise<BallDto> {
     const b = await arsenalRepository.findOwned(ownerId, id);
     if (!b) throw notFound();
-    const kind = sniffImage(file.buffer);
-    if (!kind) throw new AppError(400, 'unsupported_file', 'The file is not a PNG, JPEG or WebP image', { file: 'Not a PNG, JPEG or WebP image' });
+    const kind = await decodeImage(file.buffer);
+    if (!kind) throw new AppError(400, 'unsupported_file', 'The file is not a readable PNG, JPEG or WebP image', { file: 'Not a readable PNG, JPEG or WebP image (at most 24 megapixels)' });
     const key = await storage.put(file.buffer, kind.ext);
     try {
       const old = b.photoUploadId ? await Upload.findByPk(b.photoUploadId) : null;

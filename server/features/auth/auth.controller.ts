@@ -1,5 +1,6 @@
 import type { Request, Response } from 'express';
-import type { LoginInput, RegisterInput } from '../../../shared/auth';
+import type { LoginInput, RegisterInput, VerifyEmailInput } from '../../../shared/auth';
+import { runInBackground } from '../../lib/background';
 import { currentUser } from '../../middleware/auth';
 import { authService } from './auth.service';
 
@@ -13,13 +14,21 @@ export const authController = {
   async me(req: Request, res: Response): Promise<void> {
     res.json({ user: await authService.me(currentUser(req).id) });
   },
+  /** Answers at once, the same for every address; the lookup and the mail happen after the answer. */
   async forgot(req: Request, res: Response): Promise<void> {
-    await authService.forgot((req.body as { email: string }).email, `${req.protocol}://${req.get('host') ?? '127.0.0.1'}`);
+    const { email } = req.body as { email: string };
+    runInBackground('password reset mail', () => authService.sendReset(email));
     res.status(202).json({ ok: true });
   },
   async reset(req: Request, res: Response): Promise<void> {
     const { token, password } = req.body as { token: string; password: string };
     await authService.reset(token, password);
     res.json({ ok: true });
+  },
+  async verifyEmail(req: Request, res: Response): Promise<void> {
+    res.json({ ok: true, user: await authService.verifyEmail((req.body as VerifyEmailInput).token) });
+  },
+  async resendVerification(req: Request, res: Response): Promise<void> {
+    res.status(202).json(await authService.resendVerification(currentUser(req).id));
   },
 };

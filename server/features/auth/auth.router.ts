@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { ForgotSchema, LoginSchema, RegisterSchema, ResetSchema } from '../../../shared/auth';
+import { ForgotSchema, LoginSchema, RegisterSchema, ResetSchema, VerifyEmailSchema } from '../../../shared/auth';
 import { requireAuth } from '../../middleware/auth';
 import { authRateLimit, signupRateLimit } from '../../middleware/rateLimit';
 import { validate } from '../../middleware/validate';
@@ -12,3 +12,7 @@ authRouter.post('/login', authRateLimit, validate({ body: LoginSchema }), authCo
 authRouter.get('/me', requireAuth, authController.me);
 authRouter.post('/forgot', signupRateLimit, validate({ body: ForgotSchema }), authController.forgot);
 authRouter.post('/reset', authRateLimit, validate({ body: ResetSchema }), authController.reset);
+// The mailed token is the credential (tries with wrong tokens count like failed sign-ins).
+authRouter.post('/verify-email', authRateLimit, validate({ body: VerifyEmailSchema }), authController.verifyEmail);
+// A new verification link for the signed-in user; each request sends a mail, so it is limited like sign-ups.
+authRouter.post('/verify-email/send', requireAuth, signupRateLimit, authController.resendVerification);

@@ -1,20 +1,33 @@
-import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import { Op, QueryTypes, type Transaction, type WhereOptions } from 'sequelize';
 import type { Role, User as UserDto, UserListQuery } from '../../../shared/auth';
-import { PasswordReset, User } from '../../models/index';
+import { EmailVerification, PasswordReset, sequelize, User } from '../../models/index';
 
 export function toUserDto(u: User): UserDto {
-  return { id: u.id, email: u.email, displayName: u.displayName, role: u.role, createdAt: u.createdAt.toISOString() };
+  return { id: u.id, email: u.email, displayName: u.displayName, role: u.role, emailVerified: u.emailVerifiedAt != null, createdAt: u.createdAt.toISOString() };
 }
 
 export const userRepository = {
-  findByEmail(email: string): Promise<User | null> {
-    return User.findOne({ where: { email } });
+  findByEmail(email: string, transaction?: Transaction): Promise<User | null> {
+    return User.findOne({ where: { email }, transaction });
   },
-  findById(id: number): Promise<User | null> {
-    return User.findByPk(id);
+  findById(id: number, transaction?: Transaction, lock = false): Promise<User | null> {
+    return User.findByPk(id, { transaction, ...(lock && transaction ? { lock: transaction.LOCK.UPDATE } : {}) });
   },
   create(data: { email: string; passwordHash: string; displayName: string; role?: Role }, transaction?: Transaction): Promise<User> {
     return User.create(data, { transaction });
+  },
+  /**
+   * Inserts a bowler unless the e-mail is taken, in one statement (INSERT … ON CONFLICT DO NOTHING): a
+   * concurrent sign-up of the same address never raises a unique violation. Returns the new id, or null.
+   */
+  async insertIfNew(data: { email: string; passwordHash: string; displayName: string }, transaction: Transaction): Promise<number | null> {
+    const rows = await sequelize.query<{ id: number }>(
+      `INSERT INTO users (email, password_hash, display_name, role, token_version, created_at, updated_at)
+       VALUES (:email, :passwordHash, :displayName, 'bowler', 0, now(), now())
+       ON CONFLICT (email) DO NOTHING RETURNING id`,
+      { replacements: data, type: QueryTypes.SELECT, transaction },
+    );
+    return rows[0]?.id ?? null;
   },
   async list(q: UserListQuery): Promise<{ rows: User[]; count: number }> {
     const where: WhereOptions<User> = {};
@@ -34,10 +47,24 @@ export const userRepository = {
     user.role = role;
     return user.save({ transaction });
   },
-  createReset(userId: number, tokenHash: string, expiresAt: Date): Promise<PasswordReset> {
-    return PasswordReset.create({ userId, tokenHash, expiresAt, usedAt: null });
+  /** Closes every open reset token of the user (a newer one replaces them, or one was used). */
+  closeResets(userId: number, transaction: Transaction): Promise<unknown> {
+    return PasswordReset.update({ usedAt: new Date() }, { where: { userId, usedAt: null }, transaction });
+  },
+  /** The user's one open reset token: older open ones are closed in the same transaction (the caller holds the user's row lock). */
+  async replaceReset(userId: number, tokenHash: string, expiresAt: Date, transaction: Transaction): Promise<PasswordReset> {
+    await this.closeResets(userId, transaction);
+    return PasswordReset.create({ userId, tokenHash, expiresAt, usedAt: null }, { transaction });
   },
   findReset(tokenHash: string, transaction?: Transaction): Promise<PasswordReset | null> {
     return PasswordReset.findOne({ where: { tokenHash }, transaction, lock: transaction ? true : undefined });
+  },
+  /** The user's one open verification token (older open ones closed first). */
+  async replaceVerification(userId: number, tokenHash: string, expiresAt: Date, transaction: Transaction): Promise<EmailVerification> {
+    await EmailVerification.update({ usedAt: new Date() }, { where: { userId, usedAt: null }, transaction });
+    return EmailVerification.create({ userId, tokenHash, expiresAt, usedAt: null }, { transaction });
+  },
+  findVerification(tokenHash: string, transaction: Transaction): Promise<EmailVerification | null> {
+    return EmailVerification.findOne({ where: { tokenHash }, transaction, lock: transaction.LOCK.UPDATE });
   },
 };

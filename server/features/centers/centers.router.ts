@@ -11,7 +11,6 @@ export const centersRouter = Router();
 
 const idOf = (req: Request) => (req.params as unknown as { id: number }).id;
 const pageOf = (req: Request) => req.query as unknown as z.infer<typeof PageQuerySchema>;
-const originOf = (req: Request) => `${req.protocol}://${req.get('host') ?? '127.0.0.1'}`;
 
 // Public: the list, a center, its current condition (JSON and PDF) and its history.
 centersRouter.get('/', optionalAuth, validate({ query: PageQuerySchema }), async (req: Request, res: Response) => {
@@ -44,7 +43,7 @@ centersRouter.get('/:id/conditions', validate({ params: IdParamSchema, query: Pa
   res.json(await centersService.history(idOf(req), page, pageSize));
 });
 centersRouter.post('/:id/conditions', requireAuth, validate({ params: IdParamSchema, body: PublishConditionSchema }), async (req: Request, res: Response) => {
-  res.status(201).json({ item: await centersService.publish(currentUser(req), idOf(req), req.body as PublishCondition, originOf(req)) });
+  res.status(201).json({ item: await centersService.publish(currentUser(req), idOf(req), req.body as PublishCondition) });
 });
 centersRouter.post('/:id/follow', requireAuth, validate({ params: IdParamSchema }), async (req: Request, res: Response) => {
   await centersService.follow(currentUser(req), idOf(req));

@@ -1,7 +1,7 @@
 import crypto from 'node:crypto';
 import type { Page } from '../../../shared/auth';
 import type { Center as CenterDto, CenterInput, Condition as ConditionDto, CurrentCondition, PublishCondition } from '../../../shared/centers';
-import { config } from '../../config/index';
+import { publicUrl } from '../../lib/publicUrl';
 import { AppError } from '../../lib/AppError';
 import { audit } from '../../lib/audit';
 import { enqueueMail } from '../../lib/outbox';
@@ -101,14 +101,14 @@ export const centersService = {
    * Publishes a condition (the center's proprietor only): a snapshot of the pattern, an audit event and
    * one outbox e-mail per follower, all in one transaction; the sender delivers the mail after commit.
    */
-  async publish(actor: AuthUser, centerId: number, input: PublishCondition, origin: string): Promise<ConditionDto> {
+  async publish(actor: AuthUser, centerId: number, input: PublishCondition): Promise<ConditionDto> {
     const center = await centerOr404(centerId);
     if (center.ownerId !== actor.id) throw AppError.forbidden('Only this center’s proprietor can publish its condition');
     const bad = input.lanes.filter((n) => n > center.laneCount);
     if (bad.length) throw AppError.badRequest('Some lanes do not exist', { 'body.lanes': `${center.name} has lanes 1–${center.laneCount}; not ${bad.join(', ')}` });
     const pattern = await Pattern.findByPk(input.patternId);
     if (!pattern) throw AppError.badRequest('That pattern does not exist', { 'body.patternId': 'Unknown pattern' });
-    const base = config.PUBLIC_URL || origin;
+    const base = publicUrl();
     return sequelize.transaction(async (transaction) => {
       const c = await Condition.create(
         {

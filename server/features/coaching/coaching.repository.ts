@@ -7,11 +7,12 @@ type PlanWithRefs = Plan & { coach?: User | null; ball?: Ball | null };
 
 const person = (u: User) => ({ id: u.id, displayName: u.displayName, email: u.email });
 
+/** A link as either side sees it. Until the invitee accepts, nothing about them is shown but the address the coach typed. */
 export function toLinkDto(l: LinkWithPeople): CoachLinkDto {
   return {
     id: l.id,
     coach: person(l.coach!),
-    student: l.student ? person(l.student) : null,
+    student: l.status !== 'pending' && l.student ? person(l.student) : null,
     email: l.email,
     status: l.status,
     createdAt: l.createdAt.toISOString(),
@@ -51,16 +52,22 @@ export const coachingRepository = {
   findLinkPlain(id: number, transaction: Transaction): Promise<CoachLink | null> {
     return CoachLink.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
   },
-  /** Pending and active links where the user is the coach or the student (also invitations to their e-mail not yet tied to the account). */
-  links(user: { id: number; email: string }, page: number, pageSize: number): Promise<{ rows: LinkWithPeople[]; count: number }> {
+  /** Pending and active links where the user is the coach or the student (also invitations to their verified e-mail not yet tied to the account). */
+  links(user: { id: number; email: string; emailVerified: boolean }, page: number, pageSize: number): Promise<{ rows: LinkWithPeople[]; count: number }> {
+    // Invitations to the user's address show only once the address is verified (until then it is not proven theirs).
+    const mine = [{ coachId: user.id }, { studentId: user.id }, ...(user.emailVerified ? [{ email: user.email.toLowerCase(), studentId: null, status: 'pending' }] : [])];
     return CoachLink.findAndCountAll({
-      where: { status: { [Op.in]: ['pending', 'active'] }, [Op.or]: [{ coachId: user.id }, { studentId: user.id }, { email: user.email.toLowerCase(), studentId: null }] },
+      where: { status: { [Op.in]: ['pending', 'active'] }, [Op.or]: mine },
       include: PEOPLE,
       order: [['createdAt', 'DESC'], ['id', 'DESC']],
       limit: pageSize,
       offset: (page - 1) * pageSize,
       distinct: true,
     }) as Promise<{ rows: LinkWithPeople[]; count: number }>;
+  },
+  /** Invitations a coach sent since `since` (withdrawn ones included). */
+  invitationsSince(coachId: number, since: Date, transaction: Transaction): Promise<number> {
+    return CoachLink.count({ where: { coachId, createdAt: { [Op.gte]: since } }, transaction });
   },
   liveLink(coachId: number, email: string, transaction?: Transaction): Promise<CoachLink | null> {
     return CoachLink.findOne({ where: { coachId, email, status: { [Op.in]: ['pending', 'active'] } }, transaction });

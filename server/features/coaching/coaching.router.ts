@@ -10,14 +10,13 @@ type PageQuery = z.infer<typeof CoachListQuerySchema>;
 const pageOf = (req: Request) => req.query as unknown as PageQuery;
 const idOf = (req: Request) => (req.params as unknown as { id: number }).id;
 const studentOf = (req: Request) => (req.params as unknown as { studentId: number }).studentId;
-const originOf = (req: Request) => `${req.protocol}://${req.get('host') ?? '127.0.0.1'}`;
 
 /** Coach ↔ student links, a coach's students and their plans. A coach who is not linked gets 404. */
 export const coachRouter = Router();
 coachRouter.use(requireAuth);
 
 coachRouter.post('/invitations', requireRole('coach'), validate({ body: InvitationCreateSchema }), async (req: Request, res: Response) => {
-  res.status(201).json({ item: await coachingService.invite(currentUser(req), (req.body as InvitationCreate).email, originOf(req)) });
+  res.status(201).json({ item: await coachingService.invite(currentUser(req), (req.body as InvitationCreate).email) });
 });
 // Links where I am the coach or the (invited) student: any signed-in user.
 coachRouter.get('/links', validate({ query: CoachListQuerySchema }), async (req: Request, res: Response) => {
@@ -44,7 +43,7 @@ coachRouter.get('/students/:studentId/plans', validate({ params: StudentParamSch
   res.json(await coachingService.plansForStudent(currentUser(req), studentOf(req), page, pageSize));
 });
 coachRouter.post('/students/:studentId/plans', validate({ params: StudentParamSchema, body: PlanCreateSchema }), async (req: Request, res: Response) => {
-  res.status(201).json({ item: await coachingService.sendPlan(currentUser(req), studentOf(req), req.body as PlanCreate, originOf(req)) });
+  res.status(201).json({ item: await coachingService.sendPlan(currentUser(req), studentOf(req), req.body as PlanCreate) });
 });
 
 /** My plans as a student (Home). */

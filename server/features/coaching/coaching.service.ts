@@ -2,6 +2,7 @@ import { UniqueConstraintError } from 'sequelize';
 import type { Page } from '../../../shared/auth';
 import type { CoachLink as CoachLinkDto, Plan as PlanDto, PlanCreate, StudentDetail, StudentSummary } from '../../../shared/coaching';
 import { config } from '../../config/index';
+import { publicUrl } from '../../lib/publicUrl';
 import { AppError } from '../../lib/AppError';
 import { audit } from '../../lib/audit';
 import { enqueueMail } from '../../lib/outbox';
@@ -24,31 +25,46 @@ async function linkedStudent(coach: AuthUser, studentId: number): Promise<User> 
   return (await User.findByPk(studentId))!;
 }
 
-const isInvitee = (user: AuthUser, l: CoachLink) => l.studentId === user.id || (l.studentId === null && l.email === user.email.toLowerCase());
+const DAY_MS = 24 * 60 * 60 * 1000;
+/** Advisory-lock namespace of the invitation counter (any constant unique to this use). */
+const INVITE_LOCK_NS = 7141;
+
+/** The invited user: the one the link is tied to, or (still pending) whoever holds the invited address. */
+const isInvitee = (user: AuthUser, l: CoachLink) => l.studentId === user.id || (l.status === 'pending' && l.studentId === null && l.email === user.email.toLowerCase());
 
 export const coachingService = {
-  /** A coach invites a student by e-mail: a pending link, an audit event and an e-mail through the outbox, in one transaction. */
-  async invite(coach: AuthUser, email: string, origin: string): Promise<CoachLinkDto> {
+  /**
+   * A coach invites a student by e-mail: a pending link, an audit event and an e-mail through the outbox, in one
+   * transaction. The answer says nothing about the invitee (not whether the address has an account, nor its id or
+   * name) until they accept: the link is tied to the address, and only a user who has verified that address claims
+   * it. At most INVITATIONS_PER_DAY invitations per coach per 24 hours (429 past it).
+   */
+  async invite(coach: AuthUser, email: string): Promise<CoachLinkDto> {
     const address = email.toLowerCase();
     if (address === coach.email.toLowerCase()) throw AppError.badRequest('You cannot coach yourself', { 'body.email': 'Invite a student’s e-mail, not your own' });
-    const base = config.PUBLIC_URL || origin;
+    const base = publicUrl();
     try {
       const id = await sequelize.transaction(async (transaction) => {
+        // One coach's invitations are counted one at a time (a transaction-scoped lock per coach).
+        await sequelize.query('SELECT pg_advisory_xact_lock(:ns, :coachId)', { replacements: { ns: INVITE_LOCK_NS, coachId: coach.id }, transaction });
+        const recent = await coachingRepository.invitationsSince(coach.id, new Date(Date.now() - DAY_MS), transaction);
+        if (recent >= config.INVITATIONS_PER_DAY) {
+          throw new AppError(429, 'too_many_invitations', `At most ${config.INVITATIONS_PER_DAY} invitations a day; try again tomorrow`, undefined, 60 * 60);
+        }
         const live = await coachingRepository.liveLink(coach.id, address, transaction);
         if (live) throw AppError.conflict(live.status === 'active' ? 'already_linked' : 'already_invited', live.status === 'active' ? 'This bowler is already your student' : 'This bowler already has an invitation from you');
-        const student = await User.findOne({ where: { email: address }, attributes: ['id', 'displayName'], transaction });
-        const link = await CoachLink.create({ coachId: coach.id, studentId: student?.id ?? null, email: address, status: 'pending', acceptedAt: null, revokedAt: null, revokedBy: null }, { transaction });
-        await audit({ actorId: coach.id, action: 'coach.invited', subjectType: 'coach_link', subjectId: link.id, details: { email: address, studentId: link.studentId } }, transaction);
+        const link = await CoachLink.create({ coachId: coach.id, studentId: null, email: address, status: 'pending', acceptedAt: null, revokedAt: null, revokedBy: null }, { transaction });
+        await audit({ actorId: coach.id, action: 'coach.invited', subjectType: 'coach_link', subjectId: link.id, details: { email: address } }, transaction);
         const body = mailBody(
           [
-            `Hello${student ? ` ${student.displayName}` : ''},`,
+            'Hello,',
             '',
             `${coach.displayName} invites you to be their student on Lanewright.`,
             'As your coach they will read your arsenal and session logs, annotate your sessions and send you plans.',
-            student ? 'Accept or decline on your Coach page.' : `Sign up with this e-mail address (${address}) to accept.`,
+            `Sign in with this address (${address}), or sign up with it, and confirm the address; then accept or decline on your Coach page.`,
             'You can end the link at any time.',
           ],
-          { href: student ? `${base}/coach` : `${base}/sign-up`, label: student ? 'Open the invitation' : 'Sign up' },
+          { href: `${base}/coach`, label: 'Open the invitation' },
         );
         await enqueueMail([{ to: address, kind: 'coach_invitation', ref: String(link.id), subject: `${coach.displayName} invites you to Lanewright coaching`, ...body }], transaction);
         return link.id;
@@ -62,7 +78,8 @@ export const coachingService = {
   },
 
   async links(user: AuthUser, page: number, pageSize: number): Promise<Page<CoachLinkDto>> {
-    const { rows, count } = await coachingRepository.links(user, page, pageSize);
+    const me = await User.findByPk(user.id, { attributes: ['id', 'emailVerifiedAt'] });
+    const { rows, count } = await coachingRepository.links({ ...user, emailVerified: Boolean(me?.emailVerifiedAt) }, page, pageSize);
     return { items: rows.map(toLinkDto), total: count, page, pageSize };
   },
 
@@ -72,6 +89,9 @@ export const coachingService = {
       const l = await coachingRepository.findLinkPlain(id, transaction);
       if (!l || !isInvitee(user, l) || l.status === 'revoked') throw AppError.notFound('Invitation');
       if (l.status === 'active') return;
+      // Holding an account with the invited address is not enough: the address must be proven (the mailed link).
+      const me = await User.findByPk(user.id, { attributes: ['id', 'emailVerifiedAt'], transaction });
+      if (!me?.emailVerifiedAt) throw new AppError(403, 'email_unverified', 'Confirm your e-mail address (the link we mailed you) before accepting an invitation');
       l.set({ status: 'active', studentId: user.id, acceptedAt: new Date() });
       await l.save({ transaction });
       await audit({ actorId: user.id, action: 'coach.link_accepted', subjectType: 'coach_link', subjectId: l.id, details: { coachId: l.coachId } }, transaction);
@@ -104,11 +124,11 @@ export const coachingService = {
   },
 
   /** A plan for a linked student: stored, audited and mailed (through the outbox) in one transaction. */
-  async sendPlan(coach: AuthUser, studentId: number, input: PlanCreate, origin: string): Promise<PlanDto> {
+  async sendPlan(coach: AuthUser, studentId: number, input: PlanCreate): Promise<PlanDto> {
     const s = await linkedStudent(coach, studentId);
     if (input.ballId != null && !(await arsenalRepository.findOwned(s.id, input.ballId)))
       throw AppError.badRequest('That ball is not in the student’s arsenal', { 'body.ballId': 'Choose one of the student’s balls' });
-    const base = config.PUBLIC_URL || origin;
+    const base = publicUrl();
     const id = await sequelize.transaction(async (transaction) => {
       const p = await Plan.create({ coachId: coach.id, studentId: s.id, title: input.title, kind: input.kind, body: input.body, ballId: input.ballId ?? null }, { transaction });
       await audit({ actorId: coach.id, action: 'coach.plan_sent', subjectType: 'plan', subjectId: p.id, details: { studentId: s.id, kind: p.kind, ballId: p.ballId } }, transaction);

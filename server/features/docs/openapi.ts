@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { LoginSchema, RegisterSchema, ForgotSchema, ResetSchema, IdParamSchema, RoleChangeSchema, UserListQuerySchema, PageQuerySchema } from '../../../shared/auth';
+import { LoginSchema, RegisterSchema, ForgotSchema, ResetSchema, VerifyEmailSchema, IdParamSchema, RoleChangeSchema, UserListQuerySchema, PageQuerySchema } from '../../../shared/auth';
 import { ProfileUpdateSchema } from '../../../shared/profile';
 import { ArsenalQuerySchema, BallCreateSchema, BallModelInputSchema, BallModelPatchSchema, BallPatchSchema, CatalogueQuerySchema, SurfaceChangeSchema } from '../../../shared/balls';
 import { PatternInputSchema, PatternPatchSchema, PatternQuerySchema } from '../../../shared/patterns';
@@ -25,11 +25,13 @@ interface RouteDoc {
 /** Every documented route, with the zod schemas that validate it (the single source of truth). */
 export const ROUTES: RouteDoc[] = [
   { method: 'get', path: '/api/health', summary: 'Liveness and database reachability', who: 'public' },
-  { method: 'post', path: '/api/auth/register', summary: 'Create a bowler account', who: 'public', body: RegisterSchema },
+  { method: 'post', path: '/api/auth/register', summary: 'Create a bowler account and mail a verification link (the same answer whether the address is new or taken; the mail says which)', who: 'public', body: RegisterSchema },
   { method: 'post', path: '/api/auth/login', summary: 'Sign in: a bearer token and the user', who: 'public', body: LoginSchema },
   { method: 'get', path: '/api/auth/me', summary: 'The signed-in user with their role', who: 'signed-in' },
-  { method: 'post', path: '/api/auth/forgot', summary: 'Mail a password-reset link (answers the same for unknown e-mails)', who: 'public', body: ForgotSchema },
-  { method: 'post', path: '/api/auth/reset', summary: 'Set a new password from a reset token', who: 'public', body: ResetSchema },
+  { method: 'post', path: '/api/auth/forgot', summary: 'Mail a password-reset link (answers at once and the same for unknown e-mails; a new link closes the older one)', who: 'public', body: ForgotSchema },
+  { method: 'post', path: '/api/auth/reset', summary: 'Set a new password from a reset token (every reset link and session of the user ends)', who: 'public', body: ResetSchema },
+  { method: 'post', path: '/api/auth/verify-email', summary: 'Confirm the e-mail address from the mailed verification token', who: 'public', body: VerifyEmailSchema },
+  { method: 'post', path: '/api/auth/verify-email/send', summary: 'Mail a new verification link to the signed-in user (the older one stops working)', who: 'signed-in' },
   { method: 'get', path: '/api/profile', summary: 'The bowler profile (typical values when never saved)', who: 'signed-in' },
   { method: 'put', path: '/api/profile', summary: 'Save bowler parameters (any subset)', who: 'signed-in', body: ProfileUpdateSchema },
   { method: 'get', path: '/api/admin/users', summary: 'Users, paged, searchable, filterable by role', who: 'admin', query: UserListQuerySchema },

@@ -3,6 +3,7 @@ import { findNodeAtLocation, parseTree, type ParseError, parse as parseJsonc } f
 import type { Sweep } from '../../../engine/types';
 import { PatternInputSchema, SweepSchema, type PatternInput } from '../../../shared/patterns';
 import { AppError } from '../../lib/AppError';
+import { exceedsJsonDepth, MAX_JSON_DEPTH } from '../../lib/jsonDepth';
 
 /**
  * Lanewright's own pattern files.
@@ -17,14 +18,24 @@ export function patternToJson(p: { name: string; description: string | null; swe
   return `${JSON.stringify({ format: PATTERN_FORMAT, version: 1, name: p.name, ...(p.description ? { description: p.description } : {}), sweeps: p.sweeps }, null, 2)}\n`;
 }
 
-const csvCell = (v: string | number) => (typeof v === 'number' ? String(v) : /[",\n]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v);
+/**
+ * One CSV cell that a spreadsheet opens as text: a cell starting with = + - @, a tab or a carriage return
+ * gets a leading apostrophe so it is never read as a formula (OWASP, "CSV Injection"), and a cell holding
+ * a comma, quote or line break is quoted with its quotes doubled (RFC 4180), so no text starts a new cell.
+ */
+export function csvCell(v: string | number): string {
+  if (typeof v === 'number') return String(v);
+  const s = /^[=+\-@\t\r]/.test(v) ? `'${v}` : v;
+  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}
 
 export function patternToCsv(p: { name: string; description: string | null; sweeps: Sweep[] }): string {
   const oneLine = (s: string) => s.replace(/[\r\n]+/g, ' ');
   return [
     `# ${PATTERN_FORMAT} v1`,
-    `# name: ${oneLine(p.name)}`,
-    ...(p.description ? [`# description: ${oneLine(p.description)}`] : []),
+    // A name is free text: the whole comment line is one cell (quoted when it holds a comma or quote).
+    csvCell(`# name: ${oneLine(p.name)}`),
+    ...(p.description ? [csvCell(`# description: ${oneLine(p.description)}`)] : []),
     SWEEP_COLUMNS.join(','),
     ...p.sweeps.map((s) => SWEEP_COLUMNS.map((c) => csvCell(s[c])).join(',')),
   ].join('\n') + '\n';
@@ -42,6 +53,8 @@ function fail(fields: Record<string, string>): never {
 }
 
 function fromJson(text: string): PatternInput {
+  // The parser recurses per level: refuse a document nested past any real pattern file before it runs.
+  if (exceedsJsonDepth(text)) fail({ 'lines.1.json': `The file nests deeper than ${MAX_JSON_DEPTH} levels; a pattern file needs three` });
   const errors: ParseError[] = [];
   const data: unknown = parseJsonc(text, errors, { allowTrailingComma: false, disallowComments: true });
   if (errors.length) fail(Object.fromEntries(errors.slice(0, 20).map((e) => [`lines.${lineOf(text, e.offset)}.json`, 'This is not valid JSON here'])));
@@ -68,8 +81,16 @@ function fromCsv(text: string): PatternInput {
   let description: string | null = null;
   let headerIdx = -1;
   for (let i = 0; i < lines.length; i++) {
-    const l = lines[i].trim();
+    let l = lines[i].trim();
     if (l === '') continue;
+    // A comment line written as one quoted cell (the export does this when the text holds a comma or quote).
+    if (l.startsWith('"#')) {
+      try {
+        l = String((parseCsv(l, { relax_quotes: true }) as string[][])[0]?.[0] ?? '');
+      } catch {
+        fail({ [`lines.${i + 1}.csv`]: 'This line is not valid CSV' });
+      }
+    }
     if (l.startsWith('#')) {
       const m = /^#\s*(name|description)\s*:\s*(.*)$/i.exec(l);
       if (m && m[1].toLowerCase() === 'name') name = m[2].trim();

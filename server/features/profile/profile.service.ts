@@ -14,6 +14,6 @@ export const profileService = {
     const { profile } = await this.get(userId);
     const merged = ProfileSchema.safeParse({ ...profile, ...patch });
     if (!merged.success) throw AppError.badRequest('Some fields are not valid', fieldErrors('body', merged.error));
-    return toProfileDto(await profileRepository.upsert(userId, merged.data));
+    return profileRepository.upsert(userId, merged.data);
   },
 };

@@ -2,6 +2,7 @@ import express, { Router, type Request, type Response } from 'express';
 import type Stripe from 'stripe';
 import { logger } from '../../lib/logger';
 import { verifyWebhook } from '../../lib/payments';
+import { checkEvent } from './paymentEvents';
 import { handlePaymentEvent } from './payments.service';
 
 /**
@@ -19,6 +20,6 @@ paymentsRouter.post('/webhook', express.raw({ type: () => true, limit: '1mb' }),
     res.status(400).json({ error: { code: 'bad_signature', message: 'The webhook signature is missing, invalid or too old' } });
     return;
   }
-  const result = await handlePaymentEvent(event, `${req.protocol}://${req.get('host') ?? '127.0.0.1'}`);
+  const result = await handlePaymentEvent(checkEvent(event));
   res.json({ received: true, ...(result === 'duplicate' ? { duplicate: true } : {}) });
 });

@@ -1,6 +1,6 @@
 import type Stripe from 'stripe';
 import type { Transaction } from 'sequelize';
-import { config } from '../../config/index';
+import { publicUrl } from '../../lib/publicUrl';
 import { audit } from '../../lib/audit';
 import { logger } from '../../lib/logger';
 import { stripeClient } from '../../lib/payments';
@@ -170,8 +170,8 @@ async function onChargeRefunded(charge: Stripe.Charge, base: string, transaction
  * a concurrent one, which waits on the first insert — finds it and does nothing. All changes, the audit
  * events and the mails commit together with the event id.
  */
-export async function handlePaymentEvent(event: Stripe.Event, origin: string): Promise<'processed' | 'duplicate'> {
-  const base = config.PUBLIC_URL || origin;
+export async function handlePaymentEvent(event: Stripe.Event): Promise<'processed' | 'duplicate'> {
+  const base = publicUrl();
   return sequelize.transaction(async (transaction) => {
     const [rows] = await sequelize.query('INSERT INTO payment_events (event_id, type, received_at) VALUES (:id, :type, now()) ON CONFLICT (event_id) DO NOTHING RETURNING event_id', {
       replacements: { id: event.id, type: event.type },

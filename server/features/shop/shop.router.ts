@@ -23,7 +23,6 @@ import { validate } from '../../middleware/validate';
 import { shopService } from './shop.service';
 
 const idOf = (req: Request) => (req.params as unknown as { id: number }).id;
-const originOf = (req: Request) => `${req.protocol}://${req.get('host') ?? '127.0.0.1'}`;
 
 /** The pro shop of a center: price list, its orders board and the day's takings (mounted under /api/centers). */
 export const shopCentersRouter = Router();
@@ -58,14 +57,14 @@ ordersRouter.get('/:id', validate({ params: IdParamSchema }), async (req: Reques
   res.json({ item: await shopService.get(currentUser(req), idOf(req)) });
 });
 ordersRouter.post('/:id/checkout', validate({ params: IdParamSchema }), async (req: Request, res: Response) => {
-  res.json(await shopService.checkout(currentUser(req), idOf(req), originOf(req)));
+  res.json(await shopService.checkout(currentUser(req), idOf(req)));
 });
 ordersRouter.post('/:id/cancel', validate({ params: IdParamSchema }), async (req: Request, res: Response) => {
   res.json({ item: await shopService.cancel(currentUser(req), idOf(req)) });
 });
 ordersRouter.patch('/:id/status', validate({ params: IdParamSchema, body: OrderStatusChangeSchema }), async (req: Request, res: Response) => {
-  res.json({ item: await shopService.setStatus(currentUser(req), idOf(req), (req.body as OrderStatusChange).status, originOf(req)) });
+  res.json({ item: await shopService.setStatus(currentUser(req), idOf(req), (req.body as OrderStatusChange).status) });
 });
 ordersRouter.post('/:id/refund', validate({ params: IdParamSchema }), async (req: Request, res: Response) => {
-  res.json({ item: await shopService.refund(currentUser(req), idOf(req), originOf(req)) });
+  res.json({ item: await shopService.refund(currentUser(req), idOf(req)) });
 });

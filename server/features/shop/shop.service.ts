@@ -15,7 +15,7 @@ import {
   type ShopService as ShopServiceDto,
   type Takings,
 } from '../../../shared/shop';
-import { config } from '../../config/index';
+import { publicUrl } from '../../lib/publicUrl';
 import { AppError } from '../../lib/AppError';
 import { audit } from '../../lib/audit';
 import { logger } from '../../lib/logger';
@@ -140,10 +140,10 @@ export const shopService = {
    * same page — and a new one is made only when there is none still open. The order row is locked for the
    * whole step, so two requests at once get the same session.
    */
-  async checkout(user: AuthUser, id: number, origin: string): Promise<CheckoutStart> {
+  async checkout(user: AuthUser, id: number): Promise<CheckoutStart> {
     const o = await visibleOrder(user, id);
     if (o.userId !== user.id) throw AppError.forbidden('Only the bowler who ordered pays for the order');
-    const base = config.PUBLIC_URL || origin;
+    const base = publicUrl();
     return sequelize.transaction(async (transaction) => {
       const order = (await shopRepository.lockOrder(o.id, transaction))!;
       if (order.status !== 'ordered' || order.paymentStatus === 'paid')
@@ -238,7 +238,7 @@ export const shopService = {
    * 'ready' on a surface service records the ball's surface event and sets its surface in the same
    * transaction, so the next matchup ranks the ball with it.
    */
-  async setStatus(actor: AuthUser, id: number, status: 'in_progress' | 'ready' | 'collected', origin: string): Promise<OrderDto> {
+  async setStatus(actor: AuthUser, id: number, status: 'in_progress' | 'ready' | 'collected'): Promise<OrderDto> {
     const o = await visibleOrder(actor, id);
     if (o.center?.ownerId !== actor.id) throw AppError.forbidden('Only the shop moves an order along');
     await sequelize.transaction(async (transaction) => {
@@ -266,13 +266,13 @@ export const shopService = {
       await order.save({ transaction });
       await shopRepository.addEvent(order.id, status, actor, transaction);
       await audit({ actorId: actor.id, action: 'order.status_changed', subjectType: 'order', subjectId: order.id, details: { from, to: status } }, transaction);
-      if (status === 'ready') await enqueueOrderMail('ready', order, config.PUBLIC_URL || origin, transaction);
+      if (status === 'ready') await enqueueOrderMail('ready', order, publicUrl(), transaction);
     });
     return fresh(id);
   },
 
   /** The shop refunds a paid order through the payment service; the order becomes refunded once (now, or when charge.refunded arrives). */
-  async refund(actor: AuthUser, id: number, origin: string): Promise<OrderDto> {
+  async refund(actor: AuthUser, id: number): Promise<OrderDto> {
     const o = await visibleOrder(actor, id);
     if (o.center?.ownerId !== actor.id) throw AppError.forbidden('Only the shop refunds an order');
     if (!REFUNDABLE.includes(o.status)) throw AppError.conflict('not_refundable', o.status === 'refunded' ? 'This order is already refunded' : `A ${o.status.replace('_', ' ')} order cannot be refunded`);
@@ -292,7 +292,7 @@ export const shopService = {
     }
     if (!refund || refund.status === 'succeeded') {
       await sequelize.transaction((transaction) =>
-        markRefunded(o.id, { intentId: payment.paymentIntentId, refundId: refund?.id ?? null, amountCents: refund?.amount ?? o.amountCents, actor, base: config.PUBLIC_URL || origin }, transaction),
+        markRefunded(o.id, { intentId: payment.paymentIntentId, refundId: refund?.id ?? null, amountCents: refund?.amount ?? o.amountCents, actor, base: publicUrl() }, transaction),
       );
     } else {
       await Payment.update({ refundId: refund.id }, { where: { id: payment.id } });

@@ -1,7 +1,7 @@
 import crypto from 'node:crypto';
 import { api, createUser } from '../../helpers/api';
 import { createBall, createCenter, createModel, createPattern } from '../../helpers/fixtures';
-import { Condition, Follow, ShopService } from '../../../server/models/index';
+import { Condition, EmailVerification, Follow, ShopService } from '../../../server/models/index';
 import { event, getOrder, listenForWebhooks, payByWebhook, signature, submitCard, waitFor } from '../shop/shopHelpers';
 import type { Ball, Center, Pattern, User } from '../../../server/models/index';
 
@@ -45,6 +45,8 @@ export interface Fixture {
   freshModelId(): Promise<{ id: number; version: number }>;
   freshUserId(): Promise<number>;
   freshUnsubscribeToken(): Promise<string>;
+  /** The verification token of a new, unverified account (as the sign-up mail would carry it). */
+  freshVerificationToken(): Promise<string>;
   /** A new session of owner, with a ball of its own (fuzzed routes may have removed the fixture's ball). */
   freshSession(opts?: { deleted?: boolean; withShot?: boolean }): Promise<{ id: number; shotId: number | null; ballId: number }>;
   /** A new coaching link of a new coach to owner: pending, or accepted by owner. */
@@ -181,6 +183,12 @@ export async function buildFixture(): Promise<Fixture> {
     },
     async freshUserId() {
       return (await createUser('bowler')).user.id;
+    },
+    async freshVerificationToken() {
+      const u = await createUser('bowler', undefined, { verified: false });
+      const token = crypto.randomBytes(32).toString('base64url');
+      await EmailVerification.create({ userId: u.user.id, tokenHash: crypto.createHash('sha256').update(token).digest('hex'), expiresAt: new Date(Date.now() + 3600_000), usedAt: null });
+      return token;
     },
     async freshUnsubscribeToken() {
       const u = await createUser('bowler');

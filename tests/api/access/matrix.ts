@@ -50,12 +50,12 @@ export const MATRIX: Record<string, MatrixEntry> = {
   'GET /api/docs/openapi.json': { req: () => ({ url: '/api/docs/openapi.json' }), expect: all(200) },
   'GET /api/dev/mail': {
     req: () => ({ url: '/api/dev/mail' }),
-    expect: all(200),
-    note: 'development and tests only: mounted only while the in-process capture SMTP server is in use (never with NODE_ENV=production or SMTP_URL); see security.test.ts',
+    expect: adminOnly(200),
+    note: 'development and tests only, for the admin (it holds every reset link): imported only while the in-process capture SMTP server is in use, never with NODE_ENV=production or SMTP_URL; see tests/api/access/devTools.test.ts',
   },
 
   // ── auth ───────────────────────────────────────────────────────────────────────────────────
-  'POST /api/auth/register': { req: () => ({ url: '/api/auth/register', body: { email: `reg-${uniq()}@example.test`, password: 'a-long-enough-password', displayName: 'Matrix Newcomer' } }), expect: all(201) },
+  'POST /api/auth/register': { req: () => ({ url: '/api/auth/register', body: { email: `reg-${uniq()}@example.test`, password: 'a-long-enough-password', displayName: 'Matrix Newcomer' } }), expect: all(201), note: 'the same neutral answer for a new or a taken address' },
   'POST /api/auth/login': { req: (f) => ({ url: '/api/auth/login', body: { email: f.people.otherBowler.user.email, password: f.people.otherBowler.password } }), expect: all(200) },
   'GET /api/auth/me': { req: () => ({ url: '/api/auth/me' }), expect: signedIn(200) },
   'POST /api/auth/forgot': { req: () => ({ url: '/api/auth/forgot', body: { email: `nobody-${uniq()}@example.test` } }), expect: all(202) },
@@ -64,6 +64,12 @@ export const MATRIX: Record<string, MatrixEntry> = {
     expect: all(400),
     note: 'public; a reset needs the mailed token, so every caller without it gets 400 invalid_token (tests/api/auth/reset.test.ts covers the success)',
   },
+  'POST /api/auth/verify-email': {
+    req: async (f) => ({ url: '/api/auth/verify-email', body: { token: await f.freshVerificationToken() } }),
+    expect: all(200),
+    note: 'public: the mailed token is the credential (each cell verifies a fresh unverified account; tests/api/auth/verifyEmail.test.ts covers the refusals)',
+  },
+  'POST /api/auth/verify-email/send': { req: () => ({ url: '/api/auth/verify-email/send' }), expect: signedIn(202), note: 'the caller’s own address only' },
 
   // ── profile ────────────────────────────────────────────────────────────────────────────────
   'GET /api/profile': { req: () => ({ url: '/api/profile' }), expect: signedIn(200) },

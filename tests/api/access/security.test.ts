@@ -1,12 +1,13 @@
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { config } from '../../../server/config/index';
 import { UPLOAD_RATE_LIMIT } from '../../../server/middleware/rateLimit';
 import { SANE_REQUEST_ID } from '../../../server/middleware/requestId';
 import { Upload } from '../../../server/models/index';
-import { api, createUser, errorOf } from '../../helpers/api';
+import { api, createUser, errorOf, uniqueEmail } from '../../helpers/api';
 import { root } from '../../helpers/database';
 import { createBall } from '../../helpers/fixtures';
 import { TINY_PNG } from './fixture';
@@ -45,7 +46,7 @@ describe('rate limits', () => {
   }
 
   it('sign-in: failed attempts per address', async () => {
-    const { statuses, last } = await until429((a) => api.post('/api/auth/login').set('X-Forwarded-For', a).send({ email: 'nobody@example.test', password: 'wrong-password' }), limit);
+    const { statuses, last } = await until429((a) => api.post('/api/auth/login').set('X-Forwarded-For', a).send({ email: uniqueEmail('nobody'), password: 'wrong-password' }), limit);
     expect(statuses.slice(0, limit).every((s) => s === 401)).toBe(true);
     expect(last.status).toBe(429);
     expect(errorOf(last.body).code).toBe('rate_limited');
@@ -106,46 +107,54 @@ describe('uploads are stored outside the web root under generated names', () => 
   });
 });
 
-describe('secrets come from the environment; production refuses the development defaults', () => {
+describe('secrets come from the environment; production refuses to start without them', () => {
   const loadConfig = (env: Record<string, string>) =>
-    spawnSync(path.join(root, 'node_modules', '.bin', 'tsx'), ['-e', "import('./server/config/index.ts').then((m) => console.log('loaded', m.config.NODE_ENV))"], {
+    spawnSync(path.join(root, 'node_modules', '.bin', 'tsx'), ['-e', "import('./server/config/index.ts').then((m) => console.log('loaded', m.config.NODE_ENV, m.config.jwtSecretSource))"], {
       cwd: root,
       encoding: 'utf8',
       env: { PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '/tmp', ...env },
     });
+  const PROD = { NODE_ENV: 'production', JWT_SECRET: 'a-real-secret-from-the-environment-0123456789', PUBLIC_URL: 'https://lanes.example', DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/x', SMTP_URL: 'smtp://127.0.0.1:25', STRIPE_SECRET_KEY: 'sk_test_x', STRIPE_WEBHOOK_SECRET: 'whsec_x' };
 
   it('NODE_ENV=production without real secrets: the process refuses to start and names each missing setting', () => {
     const r = loadConfig({ NODE_ENV: 'production' });
     expect(r.status).not.toBe(0);
     const out = `${r.stdout}${r.stderr}`;
-    for (const v of ['JWT_SECRET', 'DATABASE_URL', 'SMTP_URL', 'STRIPE_SECRET_KEY', 'STRIPE_WEBHOOK_SECRET']) expect(out).toContain(v);
+    for (const v of ['JWT_SECRET', 'PUBLIC_URL', 'DATABASE_URL', 'SMTP_URL', 'STRIPE_SECRET_KEY', 'STRIPE_WEBHOOK_SECRET']) expect(out).toContain(v);
     expect(out).not.toContain('loaded');
   });
 
-  it('NODE_ENV=production with the development JWT secret spelled out is refused too', () => {
-    const r = loadConfig({ NODE_ENV: 'production', JWT_SECRET: 'lanewright-development-secret-change-me', DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/x', SMTP_URL: 'smtp://127.0.0.1:25', STRIPE_SECRET_KEY: 'sk_test_x', STRIPE_WEBHOOK_SECRET: 'whsec_x' });
-    expect(r.status).not.toBe(0);
-    expect(`${r.stdout}${r.stderr}`).toContain('set a real JWT_SECRET in production');
+  it('the secret once published as the development default is refused in every environment', () => {
+    for (const env of [{ ...PROD }, { NODE_ENV: 'development' }, { NODE_ENV: 'test' }]) {
+      const r = loadConfig({ ...env, JWT_SECRET: 'lanewright-development-secret-change-me' });
+      expect(r.status).not.toBe(0);
+      expect(`${r.stdout}${r.stderr}`).toContain('this JWT_SECRET was published in the repository');
+    }
   });
 
-  it('with every secret from the environment production starts; development starts on its safe defaults', () => {
-    const prod = loadConfig({ NODE_ENV: 'production', JWT_SECRET: 'a-real-secret-from-the-environment', DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/x', SMTP_URL: 'smtp://127.0.0.1:25', STRIPE_SECRET_KEY: 'sk_test_x', STRIPE_WEBHOOK_SECRET: 'whsec_x' });
-    expect(prod.stdout).toContain('loaded production');
-    const dev = loadConfig({});
-    expect(dev.stdout).toContain('loaded development');
+  it('with every setting from the environment production starts; development and tests start without any', () => {
+    const prod = loadConfig(PROD);
+    expect(prod.stdout).toContain('loaded production environment');
+    const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'lanewright-config-'));
+    try {
+      expect(loadConfig({ DATA_DIR: dataDir }).stdout).toContain('loaded development installation');
+      expect(loadConfig({ NODE_ENV: 'test' }).stdout).toContain('loaded test process');
+    } finally {
+      fs.rmSync(dataDir, { recursive: true, force: true });
+    }
   });
 
   it('the development mailbox is not mounted in production', () => {
     const r = spawnSync(path.join(root, 'node_modules', '.bin', 'tsx'), ['-e', "import('./server/lib/mailer.ts').then((m) => console.log('capture', m.mailCaptureEnabled))"], {
       cwd: root,
       encoding: 'utf8',
-      env: { PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '/tmp', NODE_ENV: 'production', JWT_SECRET: 'a-real-secret-from-the-environment', DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/x', SMTP_URL: 'smtp://127.0.0.1:25', STRIPE_SECRET_KEY: 'sk_test_x', STRIPE_WEBHOOK_SECRET: 'whsec_x' },
+      env: { PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '/tmp', ...PROD },
     });
     expect(r.stdout).toContain('capture false');
   });
 
-  it('no secret is written in the server code other than the named development default', () => {
-    const hits = spawnSync('grep', ['-rnE', '((sk|rk)_live_[A-Za-z0-9]{16,}|whsec_[A-Za-z0-9]{16,}|-----BEGIN [A-Z ]*PRIVATE KEY)', 'server', 'shared', 'client/src'], { cwd: root, encoding: 'utf8' });
+  it('no secret is written in the server code', () => {
+    const hits = spawnSync('grep', ['-rnE', '((sk|rk)_(live|test)_[A-Za-z0-9_]{8,}|whsec_[A-Za-z0-9_]{8,}|-----BEGIN [A-Z ]*PRIVATE KEY)', 'server', 'shared', 'client/src', 'seeders'], { cwd: root, encoding: 'utf8' });
     expect(hits.stdout).toBe('');
   });
 });

@@ -2,22 +2,26 @@ import bcrypt from 'bcryptjs';
 import jwt from 'jsonwebtoken';
 import { describe, expect, it } from 'vitest';
 import { config } from '../../../server/config/index';
+import { REGISTER_ANSWER } from '../../../server/features/auth/auth.service';
 import { User } from '../../../server/models/index';
 import { api, createUser, errorOf, uniqueEmail } from '../../helpers/api';
+import { waitForMail } from '../../helpers/mail';
 
 describe('POST /api/auth/register', () => {
-  it('creates a bowler with a bcrypt hash (cost ≥ 10) and returns a token that works', async () => {
+  it('creates an unverified bowler with a bcrypt hash (cost ≥ 10), answers neutrally, and the password signs in', async () => {
     const email = uniqueEmail('reg');
     const res = await api.post('/api/auth/register').send({ email: email.toUpperCase(), password: 'a-long-enough-pass', displayName: '  Rory Penn  ' });
     expect(res.status).toBe(201);
-    expect(res.body.user).toMatchObject({ email, displayName: 'Rory Penn', role: 'bowler' });
-    expect(typeof res.body.token).toBe('string');
+    expect(res.body).toEqual(REGISTER_ANSWER);
     const row = await User.findOne({ where: { email } });
-    expect(row).not.toBeNull();
+    expect(row).toMatchObject({ email, displayName: 'Rory Penn', role: 'bowler', emailVerifiedAt: null });
     expect(row!.passwordHash).not.toContain('a-long-enough-pass');
     expect(bcrypt.getRounds(row!.passwordHash)).toBeGreaterThanOrEqual(10);
     expect(await bcrypt.compare('a-long-enough-pass', row!.passwordHash)).toBe(true);
-    const me = await api.get('/api/auth/me').set('Authorization', `Bearer ${res.body.token}`);
+    const login = await api.post('/api/auth/login').send({ email, password: 'a-long-enough-pass' });
+    expect(login.status).toBe(200);
+    expect(login.body.user).toMatchObject({ email, emailVerified: false });
+    const me = await api.get('/api/auth/me').set('Authorization', `Bearer ${login.body.token}`);
     expect(me.status).toBe(200);
     expect(me.body.user.email).toBe(email);
   });
@@ -33,19 +37,21 @@ describe('POST /api/auth/register', () => {
     expect(await User.count()).toBe(before);
   });
 
-  it('refuses a second account on the same e-mail with 409 email_taken', async () => {
+  it('a taken address gets the same answer as a new one, no second account, and its owner a mail saying so', async () => {
     const { user } = await createUser();
     const res = await api.post('/api/auth/register').send({ email: user.email, password: 'a-long-enough-pass', displayName: 'Copy' });
-    expect(res.status).toBe(409);
-    expect(errorOf(res.body).code).toBe('email_taken');
+    expect(res.status).toBe(201);
+    expect(res.body).toEqual(REGISTER_ANSWER);
     expect(await User.count({ where: { email: user.email } })).toBe(1);
+    const mail = await waitForMail(user.email);
+    expect(mail.subject).toMatch(/already have/i);
+    expect(mail.text).not.toMatch(/token=/);
   });
 
   it('ignores a role in the body: a new account is always a bowler', async () => {
     const email = uniqueEmail('sneaky');
     const res = await api.post('/api/auth/register').send({ email, password: 'a-long-enough-pass', displayName: 'Sneaky', role: 'admin' });
     expect(res.status).toBe(201);
-    expect(res.body.user.role).toBe('bowler');
     expect((await User.findOne({ where: { email } }))!.role).toBe('bowler');
   });
 });
@@ -84,7 +90,7 @@ describe('GET /api/auth/me', () => {
     const { user, auth } = await createUser('proprietor');
     const res = await api.get('/api/auth/me').set(auth);
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ user: { id: user.id, email: user.email, displayName: user.displayName, role: 'proprietor', createdAt: user.createdAt.toISOString() } });
+    expect(res.body).toEqual({ user: { id: user.id, email: user.email, displayName: user.displayName, role: 'proprietor', emailVerified: true, createdAt: user.createdAt.toISOString() } });
   });
 
   it('answers 401 without a token', async () => {

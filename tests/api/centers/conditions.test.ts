@@ -1,6 +1,6 @@
 import { PDFParse } from 'pdf-parse';
 import { describe, expect, it } from 'vitest';
-import { capturedMail } from '../../../server/lib/mailer';
+import { capturedMail } from '../../../server/dev/mailCapture';
 import { Condition, Follow, MailOutbox } from '../../../server/models/index';
 import { api, createUser, errorOf } from '../../helpers/api';
 import { createCenter, createPattern, LONG_HEAVY, SHORT_LIGHT } from '../../helpers/fixtures';

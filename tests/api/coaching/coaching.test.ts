@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { AuditEvent, CoachLink, MailOutbox, Plan } from '../../../server/models/index';
 import { api, createUser, errorOf, uniqueEmail } from '../../helpers/api';
 import { createBall } from '../../helpers/fixtures';
-import { waitForMail } from '../../helpers/mail';
+import { mailedToken, waitForMail } from '../../helpers/mail';
 import { linkRow } from '../sessions/shotlog';
 
 const audited = (action: string, subjectId: number) => AuditEvent.findOne({ where: { action, subjectId: String(subjectId) } });
@@ -14,10 +14,10 @@ describe('invitations: a coach invites, the student accepts', () => {
     const third = await createUser();
     const res = await api.post('/api/coach/invitations').set(coach.auth).send({ email: student.user.email.toUpperCase() });
     expect(res.status).toBe(201);
+    // Nothing about the invitee until they accept: only the address the coach typed.
     expect(res.body.item).toMatchObject({
-      status: 'pending', email: student.user.email, acceptedAt: null,
+      status: 'pending', email: student.user.email, acceptedAt: null, student: null,
       coach: { id: coach.user.id, displayName: coach.user.displayName, email: coach.user.email },
-      student: { id: student.user.id, displayName: student.user.displayName },
     });
     const id = res.body.item.id as number;
     const outbox = await MailOutbox.findOne({ where: { kind: 'coach_invitation', ref: String(id) } });
@@ -86,11 +86,19 @@ describe('invitations: a coach invites, the student accepts', () => {
     expect((await waitForMail(email)).text).toMatch(/sign up/i);
     const reg = await api.post('/api/auth/register').send({ email, password: 'a-long-enough-password', displayName: 'New Student' });
     expect(reg.status).toBe(201);
-    const auth = { Authorization: `Bearer ${reg.body.token}` };
+    const login = await api.post('/api/auth/login').send({ email, password: 'a-long-enough-password' });
+    const auth = { Authorization: `Bearer ${login.body.token}` };
+    // Until the address is confirmed the invitation is neither listed nor claimable.
+    expect((await api.get('/api/coach/links').set(auth)).body.items).toEqual([]);
+    const early = await api.post(`/api/coach/links/${inv.body.item.id}/accept`).set(auth);
+    expect(early.status).toBe(403);
+    expect(errorOf(early.body).code).toBe('email_unverified');
+    const token = await mailedToken(email, '/verify-email', /confirm/i);
+    expect((await api.post('/api/auth/verify-email').send({ token })).status).toBe(200);
     const mine = await api.get('/api/coach/links').set(auth);
     expect(mine.body.items.map((l: { id: number }) => l.id)).toEqual([inv.body.item.id]);
     const ok = await api.post(`/api/coach/links/${inv.body.item.id}/accept`).set(auth);
-    expect(ok.body.item).toMatchObject({ status: 'active', student: { id: reg.body.user.id, displayName: 'New Student' } });
+    expect(ok.body.item).toMatchObject({ status: 'active', student: { id: login.body.user.id, displayName: 'New Student' } });
   });
 });
 

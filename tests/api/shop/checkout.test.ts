@@ -1,4 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { publicUrl } from '../../../server/lib/publicUrl';
 import { AuditEvent, MailOutbox, OrderEvent, Payment, PaymentEvent } from '../../../server/models/index';
 import { paymentFake, setPaymentWebhookTarget, stripeClient } from '../../../server/lib/payments';
 import { api, createUser, errorOf } from '../../helpers/api';
@@ -16,6 +17,7 @@ afterAll(async () => {
 });
 
 async function startCheckout(bowler: TestUser, orderId: number): Promise<{ url: string; checkoutSessionId: string }> {
+  // A spoofed Host must not reach the return pages (links come from PUBLIC_URL only; tests/api/platform/links.test.ts).
   const res = await api.post(`/api/orders/${orderId}/checkout`).set(bowler.auth).set('Host', 'lanes.example.test');
   expect(res.status).toBe(200);
   return res.body as { url: string; checkoutSessionId: string };
@@ -37,8 +39,8 @@ describe('paying by card through the SDK and the local fake', () => {
     const stripe = await stripeClient();
     const session = await stripe.checkout.sessions.retrieve(checkoutSessionId);
     expect(session).toMatchObject({ amount_total: 4500, currency: 'usd', mode: 'payment', status: 'open', client_reference_id: String(order.id), metadata: { orderId: String(order.id) } });
-    expect(session.success_url).toBe(`http://lanes.example.test/orders/${order.id}?checkout=done`);
-    expect(session.cancel_url).toBe(`http://lanes.example.test/orders/${order.id}?checkout=cancelled`);
+    expect(session.success_url).toBe(`${publicUrl()}/orders/${order.id}?checkout=done`);
+    expect(session.cancel_url).toBe(`${publicUrl()}/orders/${order.id}?checkout=cancelled`);
 
     const page = await fetch(url);
     expect(page.status).toBe(200);
@@ -48,7 +50,7 @@ describe('paying by card through the SDK and the local fake', () => {
 
     const res = await submitCard(url, '4242 4242 4242 4242');
     expect(res.status).toBe(303);
-    expect(res.location).toBe(`http://lanes.example.test/orders/${order.id}?checkout=done`);
+    expect(res.location).toBe(`${publicUrl()}/orders/${order.id}?checkout=done`);
     const o = await paid(bowler, order.id);
     expect(o).toMatchObject({ paymentStatus: 'paid', amountCents: 4500, lastPaymentError: null });
     await fakeIdle();

@@ -1,6 +1,8 @@
 import { spawnSync } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
-import { describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import { root } from '../../helpers/database';
 
 /** Loads the configuration in a fresh process with the given environment; returns its error text (empty when it loads). */
@@ -14,7 +16,11 @@ function loadConfig(env: Record<string, string>): string {
   return r.stdout.includes('loaded') ? '' : r.stderr;
 }
 
-const PROD = { NODE_ENV: 'production', JWT_SECRET: 'a-real-production-secret-0123456789', DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/db', SMTP_URL: 'smtp://127.0.0.1:25' };
+const PROD = { NODE_ENV: 'production', JWT_SECRET: 'a-real-production-secret-0123456789abcdef', PUBLIC_URL: 'https://lanes.example', DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/db', SMTP_URL: 'smtp://127.0.0.1:25' };
+
+/** Development loads keep their generated secret in a folder of this test, not the project's .data. */
+const DEV = { NODE_ENV: 'development', DATA_DIR: path.join(os.tmpdir(), `lanewright-payment-config-${process.pid}`) };
+afterAll(() => fs.rmSync(DEV.DATA_DIR, { recursive: true, force: true }));
 
 describe('payment configuration', () => {
   it('production refuses to start without a real secret key and webhook secret (no fake in production)', () => {
@@ -25,8 +31,8 @@ describe('payment configuration', () => {
   }, 120000);
 
   it('a key without its webhook secret, or malformed ones, are refused anywhere', () => {
-    expect(loadConfig({ NODE_ENV: 'development', STRIPE_SECRET_KEY: 'sk_test_example' })).toContain('STRIPE_WEBHOOK_SECRET');
-    expect(loadConfig({ NODE_ENV: 'development', STRIPE_SECRET_KEY: 'pk_test_public', STRIPE_WEBHOOK_SECRET: 'whsec_x' })).toContain('STRIPE_SECRET_KEY');
-    expect(loadConfig({ NODE_ENV: 'development' })).toBe('');
+    expect(loadConfig({ ...DEV, STRIPE_SECRET_KEY: 'sk_test_example' })).toContain('STRIPE_WEBHOOK_SECRET');
+    expect(loadConfig({ ...DEV, STRIPE_SECRET_KEY: 'pk_test_public', STRIPE_WEBHOOK_SECRET: 'whsec_x' })).toContain('STRIPE_SECRET_KEY');
+    expect(loadConfig(DEV)).toBe('');
   }, 120000);
 });

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { AuditEvent, Ball, MailOutbox, SurfaceEvent } from '../../../server/models/index';
 import { api, errorOf } from '../../helpers/api';
 import { createPattern, LONG_HEAVY } from '../../helpers/fixtures';
-import { capturedMail } from '../../../server/lib/mailer';
+import { capturedMail } from '../../../server/dev/mailCapture';
 import { event, getOrder, payByWebhook, placeOrder, sendEvent, shopWorld, waitFor } from './shopHelpers';
 
 const move = (auth: { Authorization: string }, id: number, status: string) => api.patch(`/api/orders/${id}/status`).set(auth).send({ status });
