@@ -1,6 +1,7 @@
 // Starting and stopping the project's own PostgreSQL cluster from Debian's server binaries.
 // Used by start, dev, test and db scripts; plain Node so it runs before dependencies are installed.
 import { execFileSync, spawnSync } from 'node:child_process';
+import crypto from 'node:crypto';
 import fs from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
@@ -36,11 +37,38 @@ export function ensurePgInstalled(log = console.log) {
   return bin;
 }
 
-/** Runs a PostgreSQL binary; as root it runs as the "postgres" system user (initdb refuses root). */
-function pgRun(bin, cmd, args, opts = {}) {
+/**
+ * Runs a PostgreSQL binary; as root it runs as the "postgres" system user (initdb refuses root). It starts in
+ * "/", not in the checkout: the postgres user may not be allowed into it ("could not change directory").
+ */
+export function pgRun(bin, cmd, args, opts = {}) {
   const exe = path.join(bin, cmd);
   const full = isRoot ? ['runuser', ['-u', 'postgres', '--', exe, ...args]] : [exe, args];
-  return spawnSync(full[0], full[1], { encoding: 'utf8', ...opts });
+  return spawnSync(full[0], full[1], { encoding: 'utf8', cwd: '/', ...opts });
+}
+
+/** Whether the postgres system user can reach (search) `dir`, i.e. every folder above it lets it through. Always true when not root. */
+export function reachableByPostgres(dir) {
+  if (!isRoot) return true;
+  return spawnSync('runuser', ['-u', 'postgres', '--', 'test', '-x', dir], { cwd: '/' }).status === 0;
+}
+
+/**
+ * Where the project's own cluster lives: `<checkout>/.data/pg` — unless, running as root, the postgres user
+ * cannot reach the checkout (a clone under /root or in a private mktemp folder). The cluster then lives in
+ * /var/lib/lanewright/<folder name>-<hash of the checkout's path>/pg, the same place for every start.
+ */
+export function projectClusterDir(root) {
+  const inTree = path.join(root, '.data', 'pg');
+  fs.mkdirSync(path.join(root, '.data'), { recursive: true });
+  if (reachableByPostgres(path.join(root, '.data'))) return { dir: inTree, relocated: false };
+  const real = fs.realpathSync(root);
+  const id = `${path.basename(real).replace(/[^A-Za-z0-9._-]/g, '_')}-${crypto.createHash('sha256').update(real).digest('hex').slice(0, 10)}`;
+  const base = path.join('/var/lib/lanewright', id);
+  fs.mkdirSync(base, { recursive: true, mode: 0o755 });
+  fs.chmodSync('/var/lib/lanewright', 0o755);
+  chownToPostgres(base);
+  return { dir: path.join(base, 'pg'), relocated: true };
 }
 
 function chownToPostgres(dir) {

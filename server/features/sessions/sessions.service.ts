@@ -10,6 +10,7 @@ import type { AuthUser } from '../../middleware/auth';
 import { Annotation, Ball, BowlingSession, Center, Condition, Pattern, sequelize, Shot, User } from '../../models/index';
 import { isLinkedCoach, readableBowlerId } from '../coaching/coaching.access';
 import { profileService } from '../profile/profile.service';
+import { requestCalibrationFit } from '../stats/stats.service';
 import { sessionsRepository, toAnnotationDto, toShotDto, toShotRecord, type ShotRow } from './sessions.repository';
 
 const notFound = () => AppError.notFound('Session');
@@ -207,6 +208,10 @@ async function insertShot(s: BowlingSession, key: string, hash: string, body: Sh
     },
     { transaction },
   );
+  // A shot that says something about the ball's motion asks the worker to refit this bowler on this pattern.
+  if (s.patternId && body.delivery === 1 && body.feetBoard != null && body.targetBoard != null && (body.breakpointBoard != null || body.hit != null)) {
+    await requestCalibrationFit(s.userId, s.patternId, transaction);
+  }
   const item = (await sessionsRepository.shotDto(row.id, transaction))!;
   const response: ShotCreated = { item, game: { ...buildGame([...prior, next]), number: body.gameNumber } };
   row.response = response as unknown as Record<string, unknown>;

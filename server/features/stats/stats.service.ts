@@ -1,15 +1,16 @@
 import { createHash } from 'node:crypto';
-import { LRUCache } from 'lru-cache';
-import { Op } from 'sequelize';
-import { fitCalibration, shotStats, statsBy, suggestMoves } from '../../../engine/index';
+import { Op, type Transaction } from 'sequelize';
+import { CALIBRATION, fitCalibration, shotStats, statsBy, suggestMoves } from '../../../engine/index';
 import type { Calibration, CalibrationObservation, ShotRecord } from '../../../engine/shotlog/types';
-import type { BowlerProfile, OilPattern } from '../../../engine/types';
+import type { BowlerProfile, LaneSurface, OilPattern } from '../../../engine/types';
 import { ballToSpec } from '../../../shared/balls';
 import type { StatsQuery, StatsResult } from '../../../shared/sessions';
 import type { AuthUser } from '../../middleware/auth';
 import { AppError } from '../../lib/AppError';
 import { calibrateInWorker } from '../../lib/enginePool';
-import { Ball } from '../../models/index';
+import { sendJob } from '../../lib/jobs';
+import { calibrationFitSeconds } from '../../lib/metrics';
+import { Ball, CalibrationFit } from '../../models/index';
 import { readableBowlerId } from '../coaching/coaching.access';
 import { patternsService } from '../patterns/patterns.service';
 import { profileService } from '../profile/profile.service';
@@ -70,33 +71,71 @@ export function observationsOf(rows: ShotRow[], balls: Map<number, Ball>): Calib
   return out.reverse();
 }
 
-/** Fits are deterministic: cached by the exact input they came from (the shots, the balls as thrown, the release, the pattern). */
-const calibrationCache = new LRUCache<string, Calibration>({ max: 200 });
-/** Fits being computed, so simultaneous requests for the same input share one. */
-const inFlight = new Map<string, Promise<Calibration>>();
+type FitInput = { bowler: BowlerProfile; pattern: OilPattern; observations: CalibrationObservation[]; lane?: LaneSurface };
 
-export async function calibrate(input: { bowler: BowlerProfile; pattern: OilPattern; observations: CalibrationObservation[] }): Promise<Calibration> {
-  const key = createHash('sha256').update(JSON.stringify(input)).digest('base64url');
-  const hit = calibrationCache.get(key);
-  if (hit) return hit;
-  const running = inFlight.get(key);
-  if (running) return running;
-  // Nothing to fit is instant; a real fit runs in the engine worker pool, off the request thread.
+const inputHash = (input: FitInput) => createHash('sha256').update(JSON.stringify(input)).digest('hex');
+
+/** A fit computed now, in the engine worker pool (nothing to fit is instant and stays on this thread). Used by the `calibration` job. */
+export async function calibrate(input: FitInput): Promise<Calibration> {
   if (input.observations.length === 0) return fitCalibration(input);
-  const job = calibrateInWorker(input).finally(() => inFlight.delete(key));
-  inFlight.set(key, job);
-  const result = await job;
-  calibrationCache.set(key, result);
-  return result;
+  return calibrateInWorker(input);
 }
 
-/** The bowler's calibration on a pattern from every logged shot on it. */
-export async function calibrationFor(bowlerId: number, patternId: number, known: { rows?: ShotRow[]; pattern?: OilPattern; bowler?: BowlerProfile } = {}): Promise<Calibration> {
+/** The input of a bowler's fit on a pattern: their logged shots on it, the balls as thrown, the release, the pattern. */
+async function fitInput(bowlerId: number, patternId: number, known: { rows?: ShotRow[]; pattern?: OilPattern; bowler?: BowlerProfile } = {}): Promise<FitInput> {
   const pattern = known.pattern ?? (await patternsService.engineInput(patternId)).pattern;
   const shots = known.rows ?? (await sessionsRepository.shotsForStats(bowlerId, { patternId }));
   const ids = [...new Set(shots.map((r) => r.ball_id))];
   const balls = new Map((ids.length ? await Ball.findAll({ where: { ownerId: bowlerId, id: { [Op.in]: ids } }, paranoid: false }) : []).map((b) => [b.id, b]));
-  return calibrate({ bowler: known.bowler ?? (await bowlerOf(bowlerId)), pattern, observations: observationsOf(shots, balls) });
+  return { bowler: known.bowler ?? (await bowlerOf(bowlerId)), pattern, observations: observationsOf(shots, balls) };
+}
+
+/** Asks the worker for a fit of this bowler on this pattern (at most one queued per pair; it reads the newest shots when it runs). */
+export async function requestCalibrationFit(bowlerId: number, patternId: number, transaction?: Transaction): Promise<void> {
+  await sendJob('calibration', `${bowlerId}:${patternId}:${Date.now()}`, { bowlerId, patternId }, { transaction, singletonKey: `${bowlerId}:${patternId}` });
+}
+
+/** The `calibration` job: fits from the current input unless the stored fit already came from it, and stores it. */
+export async function runCalibrationFit(bowlerId: number, patternId: number): Promise<'fitted' | 'current' | 'gone'> {
+  let input: FitInput;
+  try {
+    input = await fitInput(bowlerId, patternId);
+  } catch (err) {
+    if (err instanceof AppError && err.status === 404) return 'gone'; // the pattern was deleted meanwhile
+    throw err;
+  }
+  const hash = inputHash(input);
+  const stored = await CalibrationFit.findOne({ where: { bowlerId, patternId }, useMaster: true });
+  if (stored?.inputHash === hash) return 'current';
+  const started = Date.now();
+  const fit = await calibrate(input);
+  const fitMs = Date.now() - started;
+  await CalibrationFit.upsert({ bowlerId, patternId, inputHash: hash, calibration: fit as unknown as Record<string, unknown>, shots: fit.shots, fittedAt: new Date(), fitMs });
+  calibrationFitSeconds.observe(fitMs / 1000);
+  return 'fitted';
+}
+
+/**
+ * The bowler's calibration on a pattern, as stored by the worker: readers never wait on a fit. When the stored
+ * fit came from other input (new shots, a changed ball or release), it is still answered — the newer fit is
+ * queued and replaces it within seconds; with no stored fit yet, the answer says it is being computed.
+ */
+export async function calibrationFor(bowlerId: number, patternId: number, known: { rows?: ShotRow[]; pattern?: OilPattern; bowler?: BowlerProfile } = {}): Promise<Calibration> {
+  const input = await fitInput(bowlerId, patternId, known);
+  if (input.observations.length === 0) return fitCalibration(input);
+  const hash = inputHash(input);
+  const stored = await CalibrationFit.findOne({ where: { bowlerId, patternId } });
+  if (stored?.inputHash !== hash) await requestCalibrationFit(bowlerId, patternId);
+  if (stored) return stored.calibration as unknown as Calibration;
+  return {
+    shots: input.observations.length,
+    enough: false,
+    minShots: CALIBRATION.minShots,
+    perBall: [],
+    rmsBoardsBefore: null,
+    rmsBoardsAfter: null,
+    note: `Your ${input.observations.length} logged shots on this pattern are being fitted; the calibration appears here within a few seconds.`,
+  };
 }
 
 export const statsService = {

@@ -4,7 +4,7 @@ import type { BowlerProfile } from '../../../engine/types';
 import { ballToSpec } from '../../../shared/balls';
 import { DEFAULT_PROFILE } from '../../../shared/profile';
 import { LAYDOWN_OFFSET_BOARDS } from '../../../server/features/stats/stats.service';
-import { api, createUser } from '../../helpers/api';
+import { api, calibrationsIdle, createUser } from '../../helpers/api';
 import { createBall, createPattern, URETHANE } from '../../helpers/fixtures';
 import { linkRow, newKey } from '../sessions/shotlog';
 
@@ -58,6 +58,8 @@ describe('calibration from logged shots', () => {
         .send({ gameNumber: 1, frame: i < 9 ? i + 1 : 10, delivery: i < 9 ? 1 : i - 8, ballId: ball.id, standing: [], feetBoard: laydown + LAYDOWN_OFFSET_BOARDS, targetBoard: target, breakpointBoard: Math.round(p.breakpoint.board * 2) / 2 });
       expect(res.status).toBe(201);
     }
+    // The fit is computed by the job worker after the shots are logged; readers get the stored fit.
+    await calibrationsIdle();
     const cal = (await api.get(`/api/calibration?patternId=${pattern.id}`).set(me.auth)).body.item;
     // Only delivery-1 shots count: frames 1–10 → 10 shots, below the engine's 12: not yet enough.
     expect(cal).toMatchObject({ shots: 10, enough: false });
@@ -72,6 +74,7 @@ describe('calibration from logged shots', () => {
         .send({ gameNumber: 2, frame: f, delivery: 1, ballId: ball.id, standing: [], feetBoard: laydown + LAYDOWN_OFFSET_BOARDS, targetBoard: target, breakpointBoard: Math.round(p.breakpoint.board * 2) / 2 });
       expect(res.status).toBe(201);
     }
+    await calibrationsIdle();
     const fitted = (await api.get(`/api/calibration?patternId=${pattern.id}`).set(me.auth)).body.item;
     expect(fitted).toMatchObject({ shots: 20, enough: true });
     const mine = fitted.perBall.find((b: { ballId: string }) => b.ballId === String(ball.id));

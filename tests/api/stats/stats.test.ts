@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
+import { QueryTypes } from 'sequelize';
 import { scoreGame } from '../../../engine/index';
 import { calibrate, calibrationFor } from '../../../server/features/stats/stats.service';
 import { sequelize } from '../../../server/models/index';
-import { api, createUser, errorOf } from '../../helpers/api';
+import { api, calibrationsIdle, createUser, errorOf } from '../../helpers/api';
 import { createBall, createPattern, POLISHED_PEARL, SHORT_LIGHT } from '../../helpers/fixtures';
 import { expandGame, linkRow, logGame, randomGame, SAMPLE_GAME } from '../sessions/shotlog';
 
@@ -142,6 +143,8 @@ describe('GET /api/stats', () => {
 describe('GET /api/calibration', () => {
   it('fits from the logged first balls with boards on the pattern; patternId required; unknown pattern 404; an unlinked coach 404', async () => {
     const { me, pattern } = await loggedBowler();
+    // The logged shots queued a fit; the job worker (in this test process) computes and stores it.
+    await calibrationsIdle();
     const res = await api.get(`/api/calibration?patternId=${pattern.id}`).set(me.auth);
     expect(res.status).toBe(200);
     const cal = res.body.item;
@@ -157,9 +160,10 @@ describe('GET /api/calibration', () => {
     await linkRow(coach.user.id, me.user);
     expect((await api.get(`/api/calibration?patternId=${pattern.id}&studentId=${me.user.id}`).set(coach.auth)).body.item).toEqual(cal);
     expect((await api.get(`/api/calibration?patternId=${pattern.id}`)).status).toBe(401);
-    // The fit is cached by the exact shots (and balls, release, pattern) it came from: the same input gives the same object back.
-    const again = await calibrationFor(me.user.id, pattern.id);
-    expect(await calibrationFor(me.user.id, pattern.id)).toBe(again);
+    // The stored fit is read, never recomputed on the request: the same input gives the same fit back, and no new job is queued.
+    expect(await calibrationFor(me.user.id, pattern.id)).toEqual(cal);
+    const [queued] = await sequelize.query<{ n: string }>("SELECT count(*) AS n FROM pgboss.job WHERE name = 'calibration' AND state IN ('created', 'retry', 'active')", { type: QueryTypes.SELECT });
+    expect(Number(queued.n)).toBe(0);
     const input = { bowler: { hand: 'right' as const, speedMph: 17, revRpm: 300, axisRotationDeg: 45, axisTiltDeg: 15 }, pattern: { name: pattern.name, sweeps: pattern.sweeps }, observations: [] };
     expect(await calibrate(input)).toEqual(await calibrate({ ...input }));
     // Statistics carry the calibration of the latest session's pattern.
