@@ -1,5 +1,6 @@
 import os from 'node:os';
 import path from 'node:path';
+import pg from 'pg';
 import { inject } from 'vitest';
 
 // Runs in each test worker before a test file imports the server: point its config at the test database.
@@ -14,3 +15,11 @@ process.env.UPLOAD_DIR ??= path.join(os.tmpdir(), `lanewright-test-uploads-${pro
 // The tests play a load balancer on loopback: each test names its client address in X-Forwarded-For
 // (tests/api/auth/throttle.test.ts checks the default, where no proxy is trusted).
 process.env.TRUST_PROXY ??= 'loopback';
+
+// Rate-limit counters live in the shared database (so several API processes count together). Test files run one
+// at a time; each starts with no counters, as each started with a fresh in-memory store before.
+{
+  const c = new pg.Client({ connectionString: process.env.DATABASE_URL });
+  await c.connect();
+  await c.query('DELETE FROM rate_limit_hits').finally(() => c.end());
+}
