@@ -100,7 +100,7 @@ export function freePort() {
  * Creates (when missing) and starts a cluster in dataDir on 127.0.0.1:port, with a login role and database.
  * Returns the connection URL. Idempotent: a running cluster is reused.
  */
-export async function startCluster({ dataDir, port, user = 'lanewright', password = 'lanewright', database = 'lanewright', log = console.log }) {
+export async function startCluster({ dataDir, port, user = 'lanewright', password = 'lanewright', database = 'lanewright', log = console.log, extraOptions = '' }) {
   const bin = ensurePgInstalled(log);
   const pgdata = path.resolve(dataDir);
   fs.mkdirSync(path.dirname(pgdata), { recursive: true });
@@ -118,7 +118,7 @@ export async function startCluster({ dataDir, port, user = 'lanewright', passwor
   const running = pgRun(bin, 'pg_ctl', ['-D', pgdata, 'status']).status === 0;
   if (!running) {
     if (await portOpen(port)) throw new Error(`Port ${port} on 127.0.0.1 is taken by another program; set DB_PORT to another port.`);
-    const opts = `-p ${port} -k ${pgdata} -c listen_addresses=127.0.0.1 -c fsync=off -c full_page_writes=off`;
+    const opts = `-p ${port} -k ${pgdata} -c listen_addresses=127.0.0.1 -c fsync=off -c full_page_writes=off ${extraOptions}`.trim();
     const r = pgRun(bin, 'pg_ctl', ['-D', pgdata, '-o', opts, '-l', path.join(pgdata, 'server.log'), '-w', '-t', '60', 'start']);
     if (r.status !== 0) {
       const tail = fs.existsSync(path.join(pgdata, 'server.log')) ? fs.readFileSync(path.join(pgdata, 'server.log'), 'utf8').split('\n').slice(-15).join('\n') : '';
@@ -150,4 +150,19 @@ export function makeTempClusterDir(prefix) {
   fs.chmodSync(dir, 0o755);
   chownToPostgres(dir);
   return dir;
+}
+
+/**
+ * A hot standby of a running cluster (tests and benches): pg_basebackup over the replication protocol from
+ * 127.0.0.1:primaryPort into dataDir, with -R (standby.signal and primary_conninfo), then started on its own port.
+ * Returns the standby's URL for `database`.
+ */
+export async function startStandby({ dataDir, primaryPort, port, user = 'lanewright', password = 'lanewright', database = 'lanewright', extraOptions = '' }) {
+  const bin = ensurePgInstalled(() => undefined);
+  const pgdata = path.resolve(dataDir);
+  fs.mkdirSync(path.dirname(pgdata), { recursive: true });
+  chownToPostgres(path.dirname(pgdata));
+  const r = pgRun(bin, 'pg_basebackup', ['-h', '127.0.0.1', '-p', String(primaryPort), '-U', user, '-D', pgdata, '-R', '-X', 'stream', '-c', 'fast'], { env: { ...process.env, PGPASSWORD: password } });
+  if (r.status !== 0) throw new Error(`pg_basebackup failed:\n${r.stderr || r.stdout}`);
+  return startCluster({ dataDir: pgdata, port, user, password, database, log: () => undefined, extraOptions: `-c hot_standby=on ${extraOptions}` });
 }
