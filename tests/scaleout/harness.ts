@@ -93,9 +93,6 @@ export async function deploy(opts: { apis: number; extraEnv?: Record<string, str
   const stats = '-c shared_preload_libraries=pg_stat_statements -c pg_stat_statements.track=all -c max_connections=200';
   const primaryUrl = await startCluster({ dataDir: `${dir}/primary`, port: primaryPort, database: 'lw_scale', log: () => undefined, extraOptions: `-c wal_level=replica -c max_wal_senders=5 ${stats}` });
   await query(primaryUrl, 'CREATE EXTENSION IF NOT EXISTS pg_stat_statements');
-  const migrate = spawnSync(process.execPath, [path.join(root, 'dist', 'server', 'migrate.js'), 'up'], { cwd: root, env: { ...process.env, DATABASE_URL: primaryUrl, NODE_ENV: 'production', LOG_LEVEL: 'warn' }, encoding: 'utf8' });
-  if (migrate.status !== 0) throw new Error(`migrate failed:\n${migrate.stdout}\n${migrate.stderr}`);
-  const standbyUrl = await startStandby({ dataDir: `${dir}/standby`, primaryPort, port: standbyPort, database: 'lw_scale', extraOptions: stats });
 
   // SMTP: every message with its Message-ID (a message sent twice after a crash shows as a repeated id).
   const messages: Deployment['smtp']['messages'] = [];
@@ -129,7 +126,6 @@ export async function deploy(opts: { apis: number; extraEnv?: Record<string, str
     JWT_SECRET: crypto.randomBytes(32).toString('base64url'),
     PUBLIC_URL: 'http://lanes.example.test',
     DATABASE_URL: primaryUrl,
-    DATABASE_REPLICA_URLS: standbyUrl,
     SMTP_URL: `smtp://127.0.0.1:${smtpPort}`,
     STRIPE_SECRET_KEY: apiKey,
     STRIPE_WEBHOOK_SECRET: webhookSecret,
@@ -142,6 +138,11 @@ export async function deploy(opts: { apis: number; extraEnv?: Record<string, str
     DB_POOL_MAX: '10',
     ...(opts.extraEnv ?? {}),
   };
+  // Migrations as their own step, from the build, with the production configuration; then the standby copies the result.
+  const migrate = spawnSync(process.execPath, [path.join(root, 'dist', 'server', 'migrate.js'), 'up'], { cwd: root, env: { ...process.env, ...env, DATABASE_REPLICA_URLS: '' }, encoding: 'utf8' });
+  if (migrate.status !== 0) throw new Error(`migrate failed:\n${migrate.stdout}\n${migrate.stderr}`);
+  const standbyUrl = await startStandby({ dataDir: `${dir}/standby`, primaryPort, port: standbyPort, database: 'lw_scale', extraOptions: stats });
+  env.DATABASE_REPLICA_URLS = standbyUrl;
   const d: Deployment = {
     primaryUrl,
     standbyUrl,
