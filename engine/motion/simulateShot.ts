@@ -39,6 +39,6 @@ function simulate(input: SimulateShotInput): ShotPrediction {
   if (laydownBoard !== undefined) assertNumber(fn, 'laydownBoard', laydownBoard, -5, 45);
   if (targetBoard !== undefined) assertNumber(fn, 'targetBoard', targetBoard, -5, 45);
   if (laydownBoard !== undefined && targetBoard !== undefined) return toShotPrediction(shot.run(laydownBoard, targetBoard), laydownBoard, targetBoard);
-  const line = solvePocketLine(shot.run, { laydownBoard, targetBoard });
+  const line = solvePocketLine(shot.run, { laydownBoard, targetBoard }, {}, shot.preview);
   return toShotPrediction(line.result, line.laydownBoard, line.targetBoard);
 }

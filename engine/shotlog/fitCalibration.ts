@@ -182,7 +182,7 @@ export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPatte
     let keptReachable = false;
     if (items.some((u) => u.obs.hit === 'pocket') && sHat !== 1) {
       const last = items[items.length - 1].obs.ball;
-      const reaches = (sc: number) => solvePocketLine(prepareShot({ ball: last, bowler, pattern, frictionScale: sc, lane }, mapFor(0)).run, {}).reached;
+      const reaches = (sc: number) => { const sh = prepareShot({ ball: last, bowler, pattern, frictionScale: sc, lane }, mapFor(0)); return solvePocketLine(sh.run, {}, {}, sh.preview).reached; };
       if (!reaches(sHat)) {
         keptReachable = true;
         let bad = sHat, good = 1;
