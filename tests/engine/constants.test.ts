@@ -4,11 +4,11 @@ import { ARROW_BOARDS, ARROWS_FT, BOARD_COUNT, BOARD_WIDTH_IN, HEADPIN_FT, IDEAL
 // Check values: Lanewright's conventions (engine/README.md) and sections 2, 2.1, 2.2.
 
 describe('constants', () => {
-  it('in: a board is 41.5 ÷ 39 = 1.064 in (Lanewright's conventions, D) (±0.001)', () => {
+  it('in: a board is 41.5 ÷ 39 = 1.064 in (Lanewright’s conventions, D) (±0.001)', () => {
     expect(BOARD_WIDTH_IN).toBeCloseTo(1.064, 3);
     expect(BOARD_COUNT).toBe(39);
   });
-  it('ft and boards: headpin at 60 ft, arrows at 15 ft on boards 5–35 by 5 (Lanewright's conventions, S)', () => {
+  it('ft and boards: headpin at 60 ft, arrows at 15 ft on boards 5–35 by 5 (Lanewright’s conventions, S)', () => {
     expect(HEADPIN_FT).toBe(60);
     expect(ARROWS_FT).toBe(15);
     expect(ARROW_BOARDS).toEqual([5, 10, 15, 20, 25, 30, 35]);

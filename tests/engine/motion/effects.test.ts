@@ -46,7 +46,7 @@ describe.each([
     expect(throwOn(pinOnAxis, pattern, laydown, target, false).migrationIn).toBeLessThan(1);
   });
 
-  it('boards, bare rigid body (no carried oil): differential 0.058 vs 0.010 moves the entry board by under half a board (Euler's equations alone)', () => {
+  it('boards, bare rigid body (no carried oil): differential 0.058 vs 0.010 moves the entry board by under half a board (Euler’s equations alone)', () => {
     const d = throwOn(flaring, pattern, laydown, target, false).entry - throwOn(lowDiff, pattern, laydown, target, false).entry;
     expect(Math.abs(d)).toBeLessThan(0.5);
   });

@@ -29,7 +29,7 @@ describe('integrateDelivery — slide-to-roll on uniform friction (the sliding s
     });
   }
 
-  it('m/s, uniform sphere k² = 0.4R², no spin: rolls at 5/7·v0 (a mechanics lecture note; the closed form) and the closed form's row (s* 7.9912 m)', () => {
+  it('m/s, uniform sphere k² = 0.4R², no spin: rolls at 5/7·v0 (a mechanics lecture note; the closed form) and the closed form’s row (s* 7.9912 m)', () => {
     const R = 4.25 * 0.0254;
     const ball = isotropicBall(Math.sqrt(0.4) * 4.25);
     const r = integrateDelivery(slidingState(8), ballInertia(ball), uniformFrictionField(0.2));
@@ -90,7 +90,7 @@ describe('integrateDelivery — hook deliveries on a two-zone lane (the two-zone
     });
   }
 
-  it('m and mm, breakpoints of cases C and D at x = 10.316/8.692 m and y = −139.2/−155.0 mm (the two-zone closed form's breakpoints)', () => {
+  it('m and mm, breakpoints of cases C and D at x = 10.316/8.692 m and y = −139.2/−155.0 mm (the two-zone closed form’s breakpoints)', () => {
     const ball = isotropicBall(2.5);
     const cases: [number, number, number, number, number][] = [[-1.5, 300, 45, 10.316, -139.2], [-2, 450, 50, 8.692, -155.0]];
     for (const [psi, rpm, rot, xb, yb] of cases) {
@@ -210,7 +210,7 @@ describe('integrateDelivery — invariants (rigid-body mechanics: the angular mo
     expect(Math.abs(rL.entryAngleDeg - rR.entryAngleDeg)).toBeLessThan(1e-9);
   });
 
-  it('rad/s, symmetric core 2.50/2.55 in on a frictionless lane, 300 rpm, pin 60° from the axis: ω precesses about the pin at 0.609959 rad/s (Euler's equations: Ω = (1 − k_L²/k_H²)|ω| cos β)', () => {
+  it('rad/s, symmetric core 2.50/2.55 in on a frictionless lane, 300 rpm, pin 60° from the axis: ω precesses about the pin at 0.609959 rad/s (Euler’s equations: Ω = (1 − k_L²/k_H²)|ω| cos β)', () => {
     const ball = isotropicBall(2.5, { differential: 0.05, layout: { pinToPapIn: (60 * Math.PI / 180) * 4.25 } });
     const I = ballInertia(ball);
     const s0 = releaseState(ball, referenceBowler({ axisRotationDeg: 45, axisTiltDeg: 15 }), 20, 20);
