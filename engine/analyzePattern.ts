@@ -8,7 +8,7 @@ import { volumeClass } from './volumeClass';
 
 /**
  * Boards of the ratio: the middle (18–22) and the outside (3–7 and 33–37).
- * Source: TRADE.md conventions table (common practice after the USBC description of middle vs
+ * Source: common practice (Lanewright's class boundaries after the USBC description of middle vs
  * outside boards; conventions vary, so the boards are exported to be shown with the ratio).
  */
 export const RATIO_BOARDS = {
@@ -19,7 +19,7 @@ export const RATIO_BOARDS = {
 /**
  * The numbers of an oil pattern: length, volume (total, forward, reverse), ratio and classes.
  *
- * Definitions (TRADE.md conventions table and section 4.1):
+ * Definitions (the USBC sport-bowling ratio limit and the lane-machine arithmetic):
  * - volume: Σ over sweeps of boards covered × crossings × µL per board, in mL (÷ 1000);
  *   forwardMl / reverseMl: the same over forward / reverse sweeps only;
  * - lengthFt: the distance where the applied oil ends, the largest endFt of a sweep that lays oil;
@@ -37,7 +37,7 @@ export const RATIO_BOARDS = {
  *   "analyzePattern: sweep 2 endFt 12 is before startFt 30".
  *
  * @example
- * // TRADE.md 4.1 worked example: 37 × 1 + 25 × 4 + 17 × 6 = 239 crossings × 50 µL
+ * // worked example of the lane-machine arithmetic: 37 × 1 + 25 × 4 + 17 × 6 = 239 crossings × 50 µL
  * analyzePattern(p).volumeMl; // => 11.95
  */
 export function analyzePattern(p: OilPattern): PatternAnalysis {

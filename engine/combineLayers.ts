@@ -16,7 +16,7 @@ export interface WeightedLayer {
  * Definition: score = Σ weight × score ÷ Σ weight, clamped to 0–100 and rounded to 0.1; reasons
  * are concatenated in layer order; suggestions are concatenated with exact repeats (same kind and
  * text) removed. With a single layer the result is that layer's.
- * Source: Lanewright's choice (PRODUCT.md: the ranking combines the rules layer and the
+ * Source: Lanewright's choice (Lanewright's design: the ranking combines the matchup model and the
  * ball-motion model).
  *
  * @param layers at least one layer.

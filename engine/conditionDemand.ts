@@ -25,9 +25,11 @@ export interface ConditionDemand {
  *   grit fits a fresh house shot for a 16.5 mph, 375 rpm bowler and its 2000-grit finish fits the same
  *   pattern with about 6 mL more oil — common practice);
  * - `perMl` 1.0: more oil asks for more ball (common practice);
- * - `perFt` 0.4: a longer pattern asks for more ball at the same volume (common practice: length is usually the
- *   strongest single pattern variable — most of its effect comes with the oil a longer pattern carries, which
- *   the volume term counts; the model's breakpoint moves about 2 points' worth per 5 ft at the same volume);
+ * - `perFt` 1.5: a longer pattern asks for more ball (common practice: length is the pattern variable ball
+ *   choice is keyed to first — short patterns call for weaker, cleaner balls, long ones for stronger, rougher
+ *   ones; a 5 ft step is worth about one and a half surface steps. The ball-motion model alone moves its
+ *   breakpoint about 2 points' worth per 5 ft at the same volume; the rest is the longer dry backend a short
+ *   pattern leaves, where a strong ball hooks early and rolls out);
  * - `perRatioDoubling` 2, within `ratioCap` (−4 … +3): a high ratio leaves friction outside that brings the ball back and
  *   asks for less ball; a flat (sport) pattern asks for a ball that reads the oil itself (common practice; the
  *   USBC sport limit is 3:1);
@@ -42,7 +44,7 @@ export const DEMAND_SCALE = Object.freeze({
   referenceMl: 21,
   perMl: 1.0,
   referenceFt: 40,
-  perFt: 0.4,
+  perFt: 1.5,
   referenceRatio: 4,
   perRatioDoubling: 2,
   ratioCap: Object.freeze({ low: -4, high: 3 }),

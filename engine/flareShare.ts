@@ -6,7 +6,7 @@ import { inRange, positive } from './internal/checks';
  *
  * Definition: |sin 2θ|, θ the angle at the centre between pin and PAP (pinToPapAngleDeg). The
  * angular-momentum component that drives axis migration is ½ ΔI ω sin 2θ, largest at θ = 45°.
- * Source: TRADE.md section 6.3 (derived from rigid-body mechanics); the trade figure "about
+ * Source: rigid-body mechanics (derived); the trade figure "about
  * 3 3/8 in gives maximum flare potential" matches it.
  *
  * Edge cases: 0 with the pin on the PAP (θ = 0) and with the pin 90° away on the track (θ = 90°).

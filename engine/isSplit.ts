@@ -3,7 +3,7 @@ import { standingSet } from './internal/pins';
 /**
  * Pin positions on the deck: `x` is the lateral position in half pin-spacings (6 in) from the
  * headpin's line, negative toward the 7 pin; `row` is 0 (headpin) … 3 (back row).
- * Source: TRADE.md section 2 (pins 12 in apart centre to centre, in an equilateral triangle).
+ * Source: USBC lane specifications (pins 12 in apart centre to centre, in an equilateral triangle).
  */
 const PIN_POSITION: Readonly<Record<number, { x: number; row: number }>> = {
   1: { x: 0, row: 0 },
@@ -21,7 +21,7 @@ const PIN_POSITION: Readonly<Record<number, { x: number; row: number }>> = {
 /**
  * Tells whether the pins left standing after the first delivery of a frame form a split.
  *
- * Definition (USBC / World Bowling wording as recorded in ../shared/TRADE.md section 3.2): the
+ * Definition (the USBC and World Bowling wording of a split, from memory): the
  * headpin is down and either (a) at least one pin is down between two or more standing pins
  * (e.g. 7-9, 3-10), or (b) at least one pin is down immediately ahead of two or more standing pins
  * (e.g. 5-6).
@@ -33,9 +33,9 @@ const PIN_POSITION: Readonly<Record<number, { x: number; row: number }>> = {
  * - (b) "immediately ahead": a down pin whose two rear neighbours both stand, when those two stand
  *   side by side as a pair on their own in their row. So every side-by-side leave (2-3, 4-5, 5-6,
  *   7-8, 8-9, 9-10) is a split, while a run of three or more standing pins in one row (7-8-9,
- *   4-5-6, the whole back row 7-8-9-10) is one connected group and not a split, as TRADE.md 3.2
+ *   4-5-6, the whole back row 7-8-9-10) is one connected group and not a split, as the rules' wording
  *   rules for 7-8-9-10.
- * With the headpin standing a leave is never a split (TRADE.md 3.2, "washouts").
+ * With the headpin standing a leave is never a split (the USBC playing rules on splits, "washouts").
  *
  * @param standing numbers of the pins left standing, 1–10, in any order, no repeats.
  * @returns true for a split.

@@ -3,7 +3,7 @@ import { standingSet } from './internal/pins';
 /**
  * The name of a leave: the standing pins in ascending number joined by hyphens.
  *
- * Definition and source: TRADE.md 3.2 "Split naming: list standing pins in ascending number,
+ * Definition and source: common usage "Split naming: list standing pins in ascending number,
  * e.g. 4-7-10" (university course page and common usage, S / C); used for every leave, split or not.
  * Edge cases: no pins standing (a strike or a cleared rack) gives the empty string.
  *

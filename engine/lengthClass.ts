@@ -3,7 +3,7 @@ import { inRange } from './internal/checks';
 
 /**
  * Length class boundaries, feet: short below `shortBelowFt`, medium from there to below
- * `longFromFt`, long from `longFromFt`. Source: TRADE.md conventions table (common practice,
+ * `longFromFt`, long from `longFromFt`. Source: common practice (Lanewright's class boundaries,
  * section 4.3: boundaries vary by author; these are Lanewright's choice).
  */
 export const LENGTH_CLASS_FT = { shortBelowFt: 37, longFromFt: 43 } as const;
@@ -11,7 +11,7 @@ export const LENGTH_CLASS_FT = { shortBelowFt: 37, longFromFt: 43 } as const;
 /**
  * Classifies a pattern length: 'short' < 37 ft ≤ 'medium' < 43 ft ≤ 'long'.
  *
- * Source: TRADE.md conventions table (common practice).
+ * Source: common practice (Lanewright's class boundaries).
  * @param lengthFt pattern length, feet, 0 or more.
  * @throws RangeError for a negative or non-finite length.
  * @example

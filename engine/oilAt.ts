@@ -9,7 +9,7 @@ import { validatePattern } from './validatePattern';
  * Definition: the sum, over the sweeps that cover the board and whose span holds the distance
  * (startFt ≤ ft < endFt), of crossings × µL per board ÷ (endFt − startFt) — each sweep spreads its
  * oil evenly along its span (the Sweep type's contract). Integrating over ft gives the µL on the
- * board (TRADE.md 4.1 volume arithmetic).
+ * board (lane-machine volume arithmetic).
  *
  * Edge cases: a span is closed at its start and open at its end, so at the pattern's length the
  * oil is 0 and two sweeps that meet at a distance are not counted twice. A fractional board is the

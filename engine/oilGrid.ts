@@ -13,7 +13,7 @@ export const OIL_GRID_MAX_CELLS = 1_000_000;
  *
  * Definition: boards = 1, 1 + boardStep, … ≤ 39; ft = 0, ftStep, … ≤ maxFt (maxFt itself is
  * included when it falls on a step); values[i][j] = oilAt(pattern, boards[i], ft[j]).
- * Source: same definition as oilAt (TRADE.md 4.1 arithmetic, spread evenly along each sweep).
+ * Source: same definition as oilAt (lane-machine volume arithmetic, spread evenly along each sweep).
  *
  * Edge cases: boards are pattern boards (from the right-hand gutter). A fractional board sample
  * reads the whole board that holds it. Sample points are computed as start + k × step, so they do

@@ -6,7 +6,7 @@ import { inRange, positive } from './internal/checks';
  * point (PAP), from their distance measured along the ball's surface.
  *
  * Definition: angle = arc length ÷ radius (radians), returned in degrees.
- * Source: TRADE.md conventions table and section 6.3 (derived: 45° is 3.34 in on an 8.5 in ball,
+ * Source: Lanewright's conventions (engine/README.md) and rigid-body mechanics (derived: 45° is 3.34 in on an 8.5 in ball,
  * 3 3/8 in on a maximum-diameter 8.595 in ball).
  *
  * @param pinToPapIn distance from pin to PAP along the surface, inches, from 0 to half the

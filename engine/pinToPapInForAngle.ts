@@ -5,7 +5,7 @@ import { inRange, positive } from './internal/checks';
  * The pin-to-PAP distance along the ball's surface that gives a chosen angle at the centre; the
  * inverse of pinToPapAngleDeg.
  *
- * Definition: arc length = radius × angle (radians). Source: TRADE.md section 6.3 (derived).
+ * Definition: arc length = radius × angle (radians). Source: rigid-body mechanics (derived).
  *
  * @param angleDeg angle at the centre between pin and PAP, degrees, 0–180.
  * @param diameterIn ball diameter, inches; default 8.5.

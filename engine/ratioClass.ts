@@ -4,7 +4,7 @@ import { finite } from './internal/checks';
 /**
  * Ratio class boundaries: sport up to and including `sportMax` (the USBC Sport Bowling 3:1 limit),
  * recreation (house) from `recreationFrom`, challenge strictly between.
- * Source: TRADE.md conventions table (P for 3:1; 6:1 is Lanewright's choice within the common
+ * Source: the USBC sport-bowling limit (3:1; 6:1 is Lanewright's choice within the common
  * 4:1–8:1 range).
  */
 export const RATIO_CLASS = { sportMax: 3, recreationFrom: 6 } as const;
@@ -13,7 +13,7 @@ export const RATIO_CLASS = { sportMax: 3, recreationFrom: 6 } as const;
  * Classifies an oil ratio (middle ÷ outside, see analyzePattern): 'sport' ≤ 3 < 'challenge' < 6 ≤
  * 'recreation'.
  *
- * Source: TRADE.md conventions table and section 4.1 (USBC 3:1 Sport limit).
+ * Source: the USBC sport-bowling ratio limit (3:1).
  * Edge cases: Infinity (oil in the middle, none outside) is 'recreation'.
  * @param ratio a ratio ≥ 0 (Infinity allowed).
  * @throws RangeError for NaN or a negative ratio.

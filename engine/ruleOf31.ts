@@ -6,7 +6,7 @@ import { inRange } from './internal/checks';
  *
  * Definition: board = lengthFt − 31, counted from the gutter on the bowler's hand side, but never
  * less than board 1 (a pattern shorter than 32 ft gives board 1, the outermost board).
- * Source: TRADE.md section 7.1 (common practice; writers disagree whether it estimates the exit
+ * Source: common practice (writers disagree whether it estimates the exit
  * point or the breakpoint — it is a starting guess only). E.g. 39 ft → board 8, 43 ft → board 12.
  *
  * @param lengthFt pattern length, feet, 0–60.

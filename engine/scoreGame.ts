@@ -10,10 +10,10 @@ import { parseGame } from './internal/parseGame';
  * only after a strike or spare in it, and scores its pins without further bonus.
  *
  * Source: USBC playing rules and World Bowling Universal Playing Rules ch. 2, as summarised in
- * ../shared/TRADE.md section 3.1 (the two bodies agree on scoring).
+ * the USBC and World Bowling playing rules (the two bodies agree on scoring).
  *
  * @param rolls pins knocked down by each delivery in order, integers 0–10. A foul is recorded as 0
- *   (TRADE.md 3.3: a fouled delivery counts but scores no pins).
+ *   (the USBC playing rules on fouls: a fouled delivery counts but scores no pins).
  * @returns `frames`: the running total after each frame (10 numbers); `total`: the game's score.
  * @throws TypeError if `rolls` is not an array of numbers.
  * @throws RangeError naming the reason for any impossible or incomplete game: a delivery outside

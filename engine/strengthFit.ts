@@ -18,14 +18,14 @@ export interface StrengthFit {
 }
 
 /**
- * The fit's scale: within ±`tolerance` points (about half a surface step) a ball suits the condition; beyond it
+ * The fit's scale: within ±`tolerance` (2.5) points (about half a surface step) a ball suits the condition; beyond it
  * the 0–100 fit score is 100·exp(−perPoint·excess/100): about `perPoint` points lost per point of gap at first,
  * and never quite 0, so two balls far off still keep their order. Lanewright's choice: one surface step too much
  * or too little (5.5 points) costs about 12 points. Too much ball costs `tooStrongFactor` (1.3) times as much as
  * too little (common practice: a ball that hooks too much cannot be contained on the lane; one that hooks too
  * little can still be thrown straighter at the pocket).
  */
-export const FIT_SCALE = Object.freeze({ tolerance: 3, perPoint: 5, tooStrongFactor: 1.3 });
+export const FIT_SCALE = Object.freeze({ tolerance: 2.5, perPoint: 5, tooStrongFactor: 1.3 });
 
 const round1 = (x: number) => Math.round(x * 10) / 10 || 0;
 const signed = (x: number) => `${x > 0 ? '+' : x < 0 ? '−' : '±'}${Math.abs(x).toFixed(1)}`;

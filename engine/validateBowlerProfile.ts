@@ -3,7 +3,7 @@ import { finite, inRange, oneOf, positive, record } from './internal/checks';
 
 /**
  * Plausibility bounds of a bowler profile: speed in mph, rev rate in rpm, angles in degrees.
- * Source: TRADE.md 7.3 (typical speeds 16–21 mph, rev rates to 400+ rpm, axis rotation 0–90°);
+ * Source: common practice (typical speeds 16–21 mph, rev rates to 400+ rpm, axis rotation 0–90°);
  * the bounds are wide on purpose and only reject values no release can have.
  */
 export const BOWLER_BOUNDS = { maxSpeedMph: 40, maxRevRpm: 1000, maxAxisDeg: 90 } as const;

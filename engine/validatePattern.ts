@@ -10,7 +10,7 @@ import { inRange, integerInRange, list, oneOf, record } from './internal/checks'
  * distance, and a pattern ends before the headpin), a whole number of crossings (0 or more) and a
  * finite, non-negative µL per board. A pattern with no sweeps is well-formed (a dry lane).
  *
- * Source: engine invalid-input policy (README.md); boards and distances from TRADE.md conventions.
+ * Source: engine invalid-input policy (README.md); boards and distances from Lanewright's conventions.
  *
  * @param pattern the value to check.
  * @param fn the public function to name in the error message; default 'validatePattern'.

@@ -3,7 +3,7 @@ import { inRange } from './internal/checks';
 
 /**
  * Volume class boundaries, mL: light below `lightBelowMl`, medium from there up to and including
- * `heavyAboveMl`, heavy above it. Source: TRADE.md conventions table (common practice,
+ * `heavyAboveMl`, heavy above it. Source: common practice (Lanewright's class boundaries,
  * section 4.3).
  */
 export const VOLUME_CLASS_ML = { lightBelowMl: 20, heavyAboveMl: 25 } as const;
@@ -11,7 +11,7 @@ export const VOLUME_CLASS_ML = { lightBelowMl: 20, heavyAboveMl: 25 } as const;
 /**
  * Classifies a pattern volume: 'light' < 20 mL ≤ 'medium' ≤ 25 mL < 'heavy'.
  *
- * Source: TRADE.md conventions table (common practice).
+ * Source: common practice (Lanewright's class boundaries).
  * @param volumeMl total oil, mL, 0 or more.
  * @throws RangeError for a negative or non-finite volume.
  * @example

@@ -13,7 +13,7 @@ export interface ParsedGame {
 }
 
 /**
- * Reads deliveries under the USBC / World Bowling scoring rules (TRADE.md 3.1) and throws a
+ * Reads deliveries under the USBC and World Bowling scoring rules and throws a
  * RangeError (TypeError for a non-number) for anything impossible: a delivery outside 0–10 or not
  * an integer, more pins in a frame than the rack holds, deliveries after the game is over.
  */

@@ -1,6 +1,6 @@
 import type { Sweep } from '../types';
 
-/** Number of boards a sweep covers: |toBoard − fromBoard| + 1 (TRADE.md 4.1, inclusive ends). */
+/** Number of boards a sweep covers: |toBoard − fromBoard| + 1 (lane-machine volume arithmetic, inclusive ends). */
 export function boardsCovered(s: Sweep): number {
   return Math.abs(s.toBoard - s.fromBoard) + 1;
 }

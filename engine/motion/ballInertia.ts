@@ -17,10 +17,10 @@ export interface BallInertia {
 /**
  * Principal moments of inertia of a ball from its RG, differential and intermediate differential.
  *
- * Definition (PHYSICS.md §1.1, USBC axis identification there): k_L = rg about the pin axis ê₁,
+ * Definition (the USBC marking rule: the pin marks the low-RG axis): k_L = rg about the pin axis ê₁,
  * k_H = k_L + differential about the PSA ê₂, k_I = k_H − intermediateDifferential about ê₃;
- * I = m k² (RG = √(I/m), TRADE.md §6.3). Mass from `weightLb`, radius from `diameterIn` (default 8.5 in).
- * No mass-centre offset (PHYSICS.md §1.9 is not modelled).
+ * I = m k² (RG = √(I/m), rigid-body mechanics). Mass from `weightLb`, radius from `diameterIn` (default 8.5 in).
+ * No mass-centre offset (a mass-centre offset is not modelled).
  *
  * Units: lb and in in; kg, m, kg·m² out. Edge cases: throws RangeError for weight outside
  * (0, 40] lb, diameter outside [6, 12] in, RG outside [1 in, R], differential outside [0, 0.5] in,
@@ -29,7 +29,7 @@ export interface BallInertia {
  * is the rules layer's business.
  *
  * Example: `ballInertia({ weightLb: 16, rg: 2.5, differential: 0, … }).iLow` → 0.029258 kg·m²
- * (PHYSICS.md §1.1 reference: I_L = 0.02926 kg m² at k_L = 2.50 in).
+ * (reference value: I_L = 0.02926 kg m² at k_L = 2.50 in).
  */
 export function ballInertia(ball: BallSpec): BallInertia {
   const fn = 'ballInertia';

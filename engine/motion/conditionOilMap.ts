@@ -1,16 +1,15 @@
 import type { BallSpec, BowlerProfile, LaneSurface, OilPattern } from '../types';
 import { laneSurfaceOf } from './laneSurfaceOf';
 import { assertNumber } from './assertNumber';
-import { ballInertia } from './ballInertia';
-import { coverFriction } from './coverFriction';
-import { oilFrictionField } from './frictionField';
-import { integrateDelivery } from './integrateDelivery';
 import type { LaneOilMap } from './laneOilMap';
 import { MOTION_CALIBRATION as K } from './motionCalibration';
 import { patternOilMap } from './patternOilMap';
-import { handSign } from './handSign';
-import { releaseState } from './releaseState';
 import { solvePocketLine } from './solvePocketLine';
+import { shotOnField } from './shotOnField';
+import { ballInertia } from './ballInertia';
+import { coverFriction } from './coverFriction';
+import { oilFrictionField } from './frictionField';
+import { handSign } from './handSign';
 import { transitionOilMap } from './transitionOilMap';
 
 /**
@@ -30,11 +29,9 @@ export function conditionOilMap(pattern: OilPattern, bowler: BowlerProfile, game
   const fresh = patternOilMap(pattern);
   if (games === 0) return fresh;
   const ref = K.transitionReferenceBall as BallSpec;
-  const inertia = ballInertia(ref);
-  const field = oilFrictionField(fresh, coverFriction(ref, surface));
   const hand = handSign(bowler.hand);
-  const run = (laydown: number, target: number) => integrateDelivery(releaseState(ref, bowler, laydown, target), inertia, field, { hand });
-  const line = solvePocketLine(run, {});
+  const shot = shotOnField(ref, bowler, hand, ballInertia(ref), oilFrictionField(fresh, coverFriction(ref, surface)));
+  const line = solvePocketLine(shot.run, {}, {}, shot.preview);
   const r = line.result;
   const track: { ft: number; board: number }[] = [];
   for (let i = 0; i < r.sampleCount; i++) {

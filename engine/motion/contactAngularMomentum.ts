@@ -3,8 +3,8 @@ import type { BallInertia } from './ballInertia';
 /**
  * Angular momentum about the contact point, L_P = I_w ω + m R ẑ × v, of a delivery state.
  *
- * Source: PHYSICS.md §1.7 (exact invariant for any μ field and any inertia tensor with no pivot
- * friction, rolling resistance or CoM offset) and §3.5. I_w = Q diag(I_L, I_H, I_I) Qᵀ.
+ * Source: rigid-body mechanics: the angular momentum about the contact point (exact invariant for any μ field and any inertia tensor with no pivot
+ * friction, rolling resistance or CoM offset). I_w = Q diag(I_L, I_H, I_I) Qᵀ.
  * Units: state in SI (see `STATE`), kg·m²/s out, lane axes. Edge cases: q need not be unit (the
  * 2/|q|² form is used). Example: a ball rolling forward at 8 m/s with no side spin has
  * L_P = (0, (I + mR²)·v/R, 0).

@@ -1,7 +1,7 @@
 import type { BowlerProfile } from '../types';
 
 /**
- * The hand sign h of PHYSICS.md §1.11: 1 for a right-hander, −1 for a left-hander (mirror rule §3.6).
+ * The hand sign h of the release model (engine/motion/README.md): 1 for a right-hander, −1 for a left-hander (mirror symmetry).
  * Units: none. Edge cases: anything but 'right' or 'left' throws a TypeError naming handSign.
  * Example: `handSign('left')` → −1.
  */

@@ -3,7 +3,7 @@ import type { BallInertia } from './ballInertia';
 /**
  * Kinetic energy ½ m |v|² + ½ ω·I_w ω of a delivery state.
  *
- * Source: PHYSICS.md §3.4 (dKE/dt = F·u = −μN|u| ≤ 0: it never increases; constant while rolling).
+ * Source: the energy balance of sliding friction (dKE/dt = F·u = −μN|u| ≤ 0: it never increases; constant while rolling).
  * Units: SI state in, J out. Edge cases: none. Example: a 7.257 kg ball at 8 m/s with no spin → 232.2 J.
  */
 export function kineticEnergy(s: Float64Array, inertia: BallInertia): number {

@@ -11,18 +11,18 @@ export interface LaneOilMap {
   cols: number;
   /** Film thickness, µm, row-major: filmUm[r·cols + j] for pattern board j at r·ftStep ft. */
   filmUm: Float64Array;
-  /** Where the applied oil ends, ft (TRADE.md conventions: pattern length). */
+  /** Where the applied oil ends, ft (Lanewright's convention: pattern length). */
   patternEndFt: number;
 }
 
 /**
  * Samples an oil function onto the grid the integrator reads.
  *
- * Definition: filmUm = oil(board, ft) × 0.12139 µm per (µL per board per foot) (PHYSICS.md §5.1: 1 mL on
+ * Definition: filmUm = oil(board, ft) × 0.12139 µm per (µL per board per foot) (1 mL on
  * one board-foot is a 121 µm film). `oil` is the first layer's `oilAt(pattern, board, ft)` with the
  * pattern bound, boards counted from the right-hand gutter (engine/types.ts OilPattern). Bilinear
  * interpolation of this grid makes μ continuous along and across the lane, so RK4 never straddles a
- * jump (PHYSICS.md §4.1 "friction discontinuities").
+ * jump (the numerical method: friction discontinuities).
  *
  * Units: µL per board per foot in; µm out; ft. Edge cases: negative or non-finite oil values throw
  * RangeError/TypeError naming the board and distance; ftStep must be in [0.01, 5] ft.

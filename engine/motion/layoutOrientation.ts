@@ -1,8 +1,8 @@
 /**
  * The ball's initial orientation quaternion from its layout relative to the bowler's axis.
  *
- * Definition (PHYSICS.md §1.11 "Layout → q₀", §1.1 axes): the pin (low-RG axis ê₁) lies at the angle
- * `pinAngleRad` (pin-to-PAP distance ÷ radius, TRADE.md conventions) from the positive axis point
+ * Definition (the release model of engine/motion/README.md and the USBC axis marking rule): the pin (low-RG axis ê₁) lies at the angle
+ * `pinAngleRad` (pin-to-PAP distance ÷ radius, Lanewright's conventions) from the positive axis point
  * `pap`, on the great circle from the PAP toward the top of the ball at release (our convention; real
  * layouts put the pin above the grip). The PSA (high-RG axis ê₂) is turned from the pin→PAP direction
  * at the pin by the VAL angle (turning sense mirrored with `hand`); ê₃ = ê₁ × ê₂. For a symmetric core
@@ -10,7 +10,7 @@
  *
  * Units: `pap` unit vector in lane axes (x down the lane, y to the bowler's left, z up); radians.
  * Edge cases: a pin on the PAP (angle 0) or a vertical axis uses fixed fallback directions; `pap`
- * must be non-zero. Mirror rule (PHYSICS.md §3.6): hand −1 with a mirrored PAP gives the mirrored
+ * must be non-zero. Mirror rule: hand −1 with a mirrored PAP gives the mirrored
  * tensor. Example: `layoutOrientation([0, 1, 0], Math.PI / 2, 0, 1)` puts the pin on the x–z plane.
  */
 export function layoutOrientation(pap: readonly [number, number, number], pinAngleRad: number, valAngleRad: number, hand: 1 | -1): [number, number, number, number] {

@@ -1,4 +1,5 @@
 import type { DeliveryResult } from './integrateDelivery';
+import type { LineTrial } from './solvePocketLine';
 import { MOTION_CALIBRATION as K } from './motionCalibration';
 import { PHYSICAL_CONSTANTS as C } from './physicalConstants';
 
@@ -26,7 +27,8 @@ const STEPS = [1.5, 3, 6];
  * flat pattern it moves board for board. Source: the trade's "miss room" or "area" (common practice); the
  * ±1-board window is an assumption (MOTION_CALIBRATION.pocketHalfWidthBoards).
  *
- * `onLine` is the delivery on the line itself when the caller already has it (saves one delivery).
+ * `onLine` is the delivery on the line itself when the caller already has it (saves one delivery). `preview`
+ * (prepareShot's) reads the misses from the fast preview, shifted by its offset from the full model on the line.
  * Units: boards. Edge cases: a line that itself misses the window has 0 miss room on both sides.
  * Example: `missRoom(shot.run, 22, 13).totalBoards` → several boards on a house shot, about 2 on a flat one.
  */
@@ -35,17 +37,22 @@ export function missRoom(
   laydownBoard: number,
   targetBoard: number,
   onLine?: DeliveryResult,
+  preview?: (laydownBoard: number, targetBoard: number) => LineTrial,
 ): MissRoom {
   const w = K.pocketHalfWidthBoards;
-  const miss = (r: DeliveryResult): number => (r.gutter || !r.reachedPins ? Infinity : Math.abs(r.entryBoard - C.pocketBoard) - w);
-  const m0 = miss(onLine ?? run(laydownBoard, targetBoard));
+  const here = onLine ?? run(laydownBoard, targetBoard);
+  // With a preview, the misses are read from it, shifted by its offset from the full model on the line itself.
+  const offset = preview ? here.entryBoard - preview(laydownBoard, targetBoard).entryBoard : 0;
+  const trial = preview ? (l: number, t: number): LineTrial => { const r = preview(l, t); return { ...r, entryBoard: r.entryBoard + offset }; } : run;
+  const miss = (r: LineTrial): number => (r.gutter || !r.reachedPins ? Infinity : Math.abs(r.entryBoard - C.pocketBoard) - w);
+  const m0 = miss(here);
   if (!(m0 <= 0)) return { outsideBoards: 0, insideBoards: 0, totalBoards: 0 };
   const maxB = K.missRoomMaxBoards;
   const side = (sign: number): number => {
     let lastIn = 0, mIn = m0;
     for (const d of STEPS) {
       if (d > maxB) break;
-      const m = miss(run(laydownBoard + sign * d, targetBoard + sign * d));
+      const m = miss(trial(laydownBoard + sign * d, targetBoard + sign * d));
       if (m > 0) {
         if (!Number.isFinite(m)) return lastIn + (d - lastIn) / 2;
         return lastIn + ((d - lastIn) * -mIn) / (m - mIn);

@@ -80,9 +80,9 @@ export function motionLayer(
 ): MotionVerdict {
   const map = oilMap ?? conditionOilMap(pattern, bowler, gamesBowled, options.lane);
   const shot = prepareShot({ ball, bowler, pattern, frictionScale, lane: options.lane }, map);
-  const line = solvePocketLine(shot.run, {}, options.hint);
+  const line = solvePocketLine(shot.run, {}, options.hint, shot.preview);
   const prediction = toShotPrediction(line.result, line.laydownBoard, line.targetBoard);
-  const room = line.reached ? missRoom(shot.run, line.laydownBoard, line.targetBoard, line.result) : { outsideBoards: 0, insideBoards: 0, totalBoards: 0 };
+  const room = line.reached ? missRoom(shot.run, line.laydownBoard, line.targetBoard, line.result, shot.preview) : { outsideBoards: 0, insideBoards: 0, totalBoards: 0 };
   const P = MOTION_LAYER_POINTS;
   const reasons: RuleResult[] = [];
   const theta = prediction.entryAngleDeg;

@@ -3,7 +3,7 @@ import { PHYSICAL_CONSTANTS as C } from './physicalConstants';
 
 /**
  * Total oil on lane boards 1–39 of an oil map, µL: Σ film ÷ 0.12139 µm per (µL per board-foot) ×
- * ftStep (each sample stands for one board × ftStep; PHYSICS.md §5.1 conversion).
+ * ftStep (each sample stands for one board × ftStep; film conversion: 1 mL on one board-foot is a 121 µm film).
  * Units: µL. Edge cases: the padding columns 0 and 40 are not counted. Example: a uniform 1.2139 µm
  * film (10 µL per board-foot) over 0–62 ft at 0.5 ft rows → 39 × 125 × 0.5 × 10 = 24 375 µL.
  */

@@ -8,8 +8,8 @@ import { PHYSICAL_CONSTANTS as C } from './physicalConstants';
  * The fresh oil map of a pattern, as the integrator reads it: the first layer's `oilGrid` (µL per
  * board per foot, every board, every `oilMapFtStep` ft) converted to film thickness (µm).
  *
- * Source: oilGrid / oilAt (TRADE.md §4.1 arithmetic, spread evenly along each sweep); film
- * conversion PHYSICS.md §5.1. Pattern length = the largest sweep `endFt` (TRADE.md conventions).
+ * Source: oilGrid / oilAt (lane-machine volume arithmetic, spread evenly along each sweep); film
+ * conversion 1 mL on one board-foot = 121 µm. Pattern length = the largest sweep `endFt` (Lanewright's conventions).
  * Units: µm, ft. Edge cases: a malformed pattern throws from oilGrid (TypeError/RangeError naming
  * 'oilGrid'); an empty sweep list gives a dry lane with length 0.
  * Example: `patternOilMap(pattern).filmUm[80 * 41 + 20]` → film on board 20 at 40 ft.

@@ -60,11 +60,11 @@ export function predictChange(input: {
   const map = conditionOilMap(input.pattern, input.bowler, input.gamesBowled ?? 0, lane);
   const common = { bowler: input.bowler, pattern: input.pattern, frictionScale: input.frictionScale, lane };
   const a = prepareShot({ ball: input.ball, ...common }, map);
-  const la = solvePocketLine(a.run, {});
+  const la = solvePocketLine(a.run, {}, {}, a.preview);
   const before = toShotPrediction(la.result, la.laydownBoard, la.targetBoard);
   const b = prepareShot({ ball: changed, ...common }, map);
   const sameLine = toShotPrediction(b.run(la.laydownBoard, la.targetBoard), la.laydownBoard, la.targetBoard);
-  const lb = solvePocketLine(b.run, {});
+  const lb = solvePocketLine(b.run, {}, {}, b.preview);
   const newLine = toShotPrediction(lb.result, lb.laydownBoard, lb.targetBoard);
   const r1 = (x: number) => Math.round(x * 10) / 10 || 0;
   return {

@@ -1,23 +1,16 @@
 import type { BallSpec, BowlerProfile, LaneSurface, OilPattern } from '../types';
 import { laneSurfaceOf } from './laneSurfaceOf';
 import { assertNumber } from './assertNumber';
-import { ballInertia, type BallInertia } from './ballInertia';
+import { ballInertia } from './ballInertia';
 import { conditionOilMap } from './conditionOilMap';
 import { coverFriction } from './coverFriction';
 import { oilFrictionField, uniformFrictionField, type FrictionField } from './frictionField';
-import { integrateDelivery, type DeliveryResult } from './integrateDelivery';
+import { shotOnField, type PreparedShot } from './shotOnField';
 import type { LaneOilMap } from './laneOilMap';
 import { handSign } from './handSign';
 import { releaseState } from './releaseState';
 
-/** A ball, a bowler and a lane made ready to throw many deliveries (the solver and miss room). */
-export interface PreparedShot {
-  hand: 1 | -1;
-  inertia: BallInertia;
-  field: FrictionField;
-  /** One delivery on the line (hand-side boards at the foul line and at the arrows). */
-  run: (laydownBoard: number, targetBoard: number) => DeliveryResult;
-}
+export type { PreparedShot } from './shotOnField';
 
 /**
  * Validates a shot's inputs once and builds what every delivery of that ball on that lane shares:
@@ -52,5 +45,5 @@ export function prepareShot(
     if (input.pattern === null || typeof input.pattern !== 'object') throw new TypeError(`${fn}: pattern must be an object, got ${String(input.pattern)}`);
     field = oilFrictionField(oilMap ?? conditionOilMap(input.pattern, bowler, input.gamesBowled ?? 0, lane), cover, { frictionScale: scale });
   }
-  return { hand, inertia, field, run: (l, t) => integrateDelivery(releaseState(ball, bowler, l, t), inertia, field, { hand }) };
+  return shotOnField(ball, bowler, hand, inertia, field);
 }

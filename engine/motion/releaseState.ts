@@ -11,7 +11,7 @@ export const STATE = Object.freeze({ x: 0, y: 1, vx: 2, vy: 3, wx: 4, wy: 5, wz:
 /**
  * The state of the ball at the foul line: position, velocity, angular velocity and orientation.
  *
- * Definition (PHYSICS.md §1.11): the ball is laid down on `laydownBoard` at the foul line (x = 0) and
+ * Definition (the release model (engine/motion/README.md)): the ball is laid down on `laydownBoard` at the foul line (x = 0) and
  * heads straight for `targetBoard` at the arrows (15 ft) — heading ψ = atan(Δy / 15 ft). Speed V =
  * `speedMph` (taken as the release speed), |ω| = 2π·rpm/60, and in the travel frame
  * ω = |ω|(−h cos φ sin θ, cos φ cos θ, h sin φ) with θ = axis rotation (0 = end-over-end,
@@ -42,7 +42,7 @@ export function releaseState(ball: BallSpec, bowler: BowlerProfile, laydownBoard
   const psi = Math.atan2(yt - y0, C.arrowsFt * C.footM);
   const cp = Math.cos(psi), sp = Math.sin(psi);
   const w = (2 * Math.PI * rpm) / 60;
-  // travel frame (PHYSICS.md §1.11)
+  // travel frame (the release model (engine/motion/README.md))
   const ax = -h * Math.cos(phi) * Math.sin(theta), ay = Math.cos(phi) * Math.cos(theta), az = h * Math.sin(phi);
   // rotate by ψ about z
   const wxh = cp * ax - sp * ay, wyh = sp * ax + cp * ay, wzh = az;

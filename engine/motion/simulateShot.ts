@@ -9,9 +9,9 @@ import { toShotPrediction } from './toShotPrediction';
  * the pattern's oil map (after `gamesBowled`), for a given line or for the line that reaches the pocket.
  *
  * Definition: rigid-body Newton–Euler with smoothed Coulomb friction, RK4 at 4 ms (integrateDelivery;
- * PHYSICS.md §1, §4.1); friction from the oil film through the cover's roughness-aware law
- * (coverFriction, PHYSICS.md §5.1–5.2) and the oil the ball carries on its track (§5.3); release from
- * the BowlerProfile (releaseState, §1.11); the oil map after games (conditionOilMap, §5.4). When
+ * rigid-body mechanics, RK4); friction from the oil film through the cover's roughness-aware law
+ * (coverFriction, the mixed-lubrication law) and the oil the ball carries on its track (the track-ring model); release from
+ * the BowlerProfile (releaseState); the oil map after games (conditionOilMap). When
  * `laydownBoard` or `targetBoard` is omitted, solvePocketLine picks the line to board 17.5.
  *
  * Units: boards from the hand-side gutter, ft, mph, degrees, s. Edge cases: invalid input throws
@@ -39,6 +39,6 @@ function simulate(input: SimulateShotInput): ShotPrediction {
   if (laydownBoard !== undefined) assertNumber(fn, 'laydownBoard', laydownBoard, -5, 45);
   if (targetBoard !== undefined) assertNumber(fn, 'targetBoard', targetBoard, -5, 45);
   if (laydownBoard !== undefined && targetBoard !== undefined) return toShotPrediction(shot.run(laydownBoard, targetBoard), laydownBoard, targetBoard);
-  const line = solvePocketLine(shot.run, { laydownBoard, targetBoard });
+  const line = solvePocketLine(shot.run, { laydownBoard, targetBoard }, {}, shot.preview);
   return toShotPrediction(line.result, line.laydownBoard, line.targetBoard);
 }

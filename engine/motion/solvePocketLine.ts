@@ -27,9 +27,16 @@ export interface PocketLineHint {
   targetBoard?: number;
 }
 
-type Sample = { t: number; e: number; r: DeliveryResult };
+/** The little of a delivery the line search reads (a full delivery or a preview). */
+export interface LineTrial {
+  entryBoard: number;
+  reachedPins: boolean;
+  gutter: boolean;
+}
 
-const ok = (r: DeliveryResult): boolean => r.reachedPins && !r.gutter;
+type Sample = { t: number; e: number; r: LineTrial };
+
+const ok = (r: LineTrial): boolean => r.reachedPins && !r.gutter;
 
 /**
  * Finds the line that puts a ball in the pocket (board 17.5 at the headpin; USBC pin-carry research, reported
@@ -54,19 +61,55 @@ export function solvePocketLine(
   run: (laydownBoard: number, targetBoard: number) => DeliveryResult,
   given: { laydownBoard?: number; targetBoard?: number },
   hint: PocketLineHint = {},
+  preview?: (laydownBoard: number, targetBoard: number) => LineTrial,
 ): PocketLine {
+  if (preview === undefined || given.laydownBoard !== undefined || given.targetBoard !== undefined) return searchLine(run, given, hint);
+  // Find the line with the preview, then put the full model's entry on the pocket by moving the laydown (each board
+  // of laydown moves the entry about 3 boards); every number reported is the full model's.
+  const guide = searchLine(preview, {}, hint);
   const P = C.pocketBoard;
   let evaluations = 0;
-  let best: { l: number; t: number; r: DeliveryResult; m: number } | null = null;
-  const eval2 = (l: number, t: number): DeliveryResult => {
+  let best: { l: number; r: DeliveryResult; m: number } | null = null;
+  const full = (l: number): DeliveryResult => {
+    const r = run(l, guide.targetBoard);
+    evaluations++;
+    const m = Math.abs(r.entryBoard - P) + (ok(r) ? 0 : 100);
+    if (best === null || m < best.m) best = { l, r, m };
+    return r;
+  };
+  if (guide.reached) root(full, Math.max(1, guide.targetBoard + K.solverLaunchBoards[0]), 39, guide.laydownBoard, 1 - C.headpinFt / C.arrowsFt);
+  else full(guide.laydownBoard);
+  const b = best as unknown as { l: number; r: DeliveryResult; m: number };
+  const reached = Math.abs(b.r.entryBoard - P) <= K.solverTolBoards && ok(b.r);
+  return {
+    laydownBoard: b.l, targetBoard: guide.targetBoard, result: b.r, reached, evaluations, launchBoards: b.l - guide.targetBoard,
+    reason: reached ? '' : guide.reason || 'No line found that reaches the pocket.', miss: reached ? null : guide.miss ?? (b.r.entryBoard > P ? 'high' : 'light'),
+  };
+}
+
+/** The search itself, over any delivery (full or preview): see solvePocketLine. */
+function searchLine<T extends LineTrial>(
+  run: (laydownBoard: number, targetBoard: number) => T,
+  given: { laydownBoard?: number; targetBoard?: number },
+  hint: PocketLineHint,
+): Omit<PocketLine, 'result'> & { result: T } {
+  const P = C.pocketBoard;
+  let evaluations = 0;
+  let best: { l: number; t: number; r: T; m: number } | null = null;
+  // the final step's own best: the line the search chose, not some earlier line that happened to come close
+  let chosen: { l: number; t: number; r: T; m: number } | null = null;
+  let choosing = false;
+  const eval2 = (l: number, t: number): T => {
     const r = run(l, t);
     evaluations++;
     const m = Math.abs(r.entryBoard - P) + (ok(r) ? 0 : 100);
     if (best === null || m < best.m) best = { l, t, r, m };
+    if (choosing && (chosen === null || m < chosen.m)) chosen = { l, t, r, m };
     return r;
   };
-  const finish = (miss: 'high' | 'light' | null, reason: string): PocketLine => {
-    const b = best as unknown as { l: number; t: number; r: DeliveryResult; m: number };
+  const finish = (miss: 'high' | 'light' | null, reason: string): Omit<PocketLine, 'result'> & { result: T } => {
+    const c = chosen as { l: number; t: number; r: T; m: number } | null;
+    const b = (c !== null && c.m <= K.solverTolBoards ? c : best) as unknown as { l: number; t: number; r: T; m: number };
     const reached = Math.abs(b.r.entryBoard - P) <= K.solverTolBoards && ok(b.r);
     return {
       laydownBoard: b.l, targetBoard: b.t, result: b.r, reached, evaluations, launchBoards: b.l - b.t,
@@ -89,7 +132,7 @@ export function solvePocketLine(
   const clampD = (d: number) => Math.min(dMax, Math.max(dMin, d));
   const tRange = (d: number): [number, number] => [Math.max(1, 1 - d), Math.min(39, 39 - d)];
   // A gutter ball counts as ten boards past the pocket (the lane's edge walls the search in).
-  const effective = (r: DeliveryResult): number => (ok(r) ? r.entryBoard : Math.max(r.entryBoard, P) + 10);
+  const effective = (r: LineTrial): number => (ok(r) ? r.entryBoard : Math.max(r.entryBoard, P) + 10);
   const sample = (d: number, t: number): Sample => { const r = eval2(t + d, t); return { t, e: effective(r), r }; };
 
   /** Lines at launch d across targets lo…hi (a few boards apart), in order of target. */
@@ -131,7 +174,7 @@ export function solvePocketLine(
   let pts: Sample[];
   let fl: Sample;
   if (hint.targetBoard === undefined) {
-    pts = scan(d, 3, 31, 4);
+    pts = scan(d, 4, 29, 5);
     fl = floorOf(d, pts);
   } else {
     ({ fl, pts } = floorNear(d, hint.targetBoard));
@@ -169,6 +212,7 @@ export function solvePocketLine(
     return finish('high', `Hooks past the pocket from every line, even launched ${Math.round(dMax / 3)}° out across the lane: too much ball for this condition and release.`);
   }
   const [lo, hi] = tRange(d);
+  choosing = true;
   const usual = Math.abs(d - clampD(hint.launchBoards ?? K.solverFirstLaunchBoards)) < 1e-6;
   const inner = pts.reduce((m, q) => (q.t > m.t ? q : m));
   if (!valley && usual && fl.e <= P && inner.e < P && ok(inner.r)) {
@@ -194,7 +238,7 @@ export function solvePocketLine(
  * A secant/Illinois root of entry(x) = 17.5 on [lo, hi] from x0, starting with the straight-line slope
  * `slope` (boards at the pins per board of x). `monotone` skips the sign-change search's fallbacks.
  */
-function root(evalAt: (x: number) => DeliveryResult, lo: number, hi: number, x0: number, slope: number, monotone = false): void {
+function root(evalAt: (x: number) => LineTrial, lo: number, hi: number, x0: number, slope: number, monotone = false): void {
   const P = C.pocketBoard, tol = K.solverTolBoards;
   const cl = (x: number) => Math.min(hi, Math.max(lo, x));
   const maxStep = 8 / Math.abs(slope);

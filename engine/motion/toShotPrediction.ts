@@ -3,7 +3,7 @@ import type { ShotPrediction } from './shotPrediction';
 
 /**
  * The public ShotPrediction of one integration on a line: the per-foot samples as `path` objects and
- * the reported events (definitions in integrateDelivery; PHYSICS.md §1.8, §4.1 "Reporting").
+ * the reported events (definitions in integrateDelivery; our reporting definitions).
  * Units: boards from the hand-side gutter, ft, mph, degrees, s. Edge cases: a gutter ball's path ends at
  * the gutter point. Example: `toShotPrediction(prepareShot(input).run(20, 12), 20, 12).entryAngleDeg`.
  */

@@ -17,7 +17,7 @@ export interface TransitionResult {
 }
 
 /**
- * How the oil map evolves over `gamesBowled` games on a pair (PHYSICS.md §5.4, all amounts documented
+ * How the oil map evolves over `gamesBowled` games on a pair (engine/motion/README.md, all amounts documented
  * **assumptions** in MOTION_CALIBRATION): the pair's bowlers (bowlersPerPair × strikeShotsPerBowlerPerGame
  * first balls per game, half on each lane) play lines spread normally (σ = lineSpreadBoards) around
  * `track`; each pass removes pickupFraction of the oil under a track trackWidthBoards wide, so after N

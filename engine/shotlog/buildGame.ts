@@ -8,11 +8,11 @@ import type { DeliveryView, FrameView, GameView, LoggedDelivery } from './types'
  * Builds a game's frame sheet from its logged deliveries (pins standing after each): every
  * delivery's pins, symbol and split mark, each frame's running total, and the next delivery expected.
  *
- * Definition: scoring per USBC / World Bowling as recorded in TRADE.md 3.1 (scoreGame for a complete
- * game, scorePartialGame for one in progress — the totals are theirs); fouls per TRADE.md 3.3: a
+ * Definition: scoring per the USBC and World Bowling playing rules (scoreGame for a complete
+ * game, scorePartialGame for one in progress — the totals are theirs); fouls per the USBC playing rules on fouls: a
  * fouled delivery counts, is credited 0 pins and its rack is re-spotted as before the delivery (so
  * all ten on the second ball after a first-ball foul is a spare, and a foul on the second ball keeps
- * only the first ball's pins). Splits per isSplit (TRADE.md 3.2), marked on the first delivery at a
+ * only the first ball's pins). Splits per isSplit (the USBC playing rules on splits), marked on the first delivery at a
  * full rack. Symbols as a scoresheet shows them: 'X' strike, '/' spare, '-' no pins, 'F' foul,
  * otherwise the count. In the tenth frame the rack is re-set after each strike or spare.
  *

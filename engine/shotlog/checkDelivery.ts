@@ -6,7 +6,7 @@ import type { DeliveryCheck, LoggedDelivery } from './types';
  * Checks whether one more delivery can follow a game's logged deliveries, and how it would appear on
  * the frame sheet — the check behind refusing an impossible shot with a reason.
  *
- * Definition: the rules of buildGame (TRADE.md 3.1 scoring and frames, 3.2 splits via isSplit, 3.3
+ * Definition: the rules of buildGame (USBC and World Bowling playing rules: scoring and frames, splits via isSplit, and
  * fouls: a fouled delivery counts, is credited 0 and its rack is re-spotted). The reasons are plain
  * English and name what is wrong, e.g. "pin 7 was already down before this delivery; only 7-10 were
  * standing", "frame 3 has no delivery 3; frames 1 to 9 have at most 2", "frame 4 has no delivery 2:

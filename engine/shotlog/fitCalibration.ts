@@ -15,7 +15,7 @@ import type { BallCalibration, Calibration, CalibrationObservation, HitKind } fr
 /**
  * The numbers of fitCalibration (Lanewright's choices, documented there).
  * `hitEntryBoards`: the band of the model's entry board (hand-side board at the headpin, 60 ft) that
- * each recorded hit stands for — the pocket is board 17.5 (TRADE.md 2.2) ± 1 board (the miss-room window
+ * each recorded hit stands for — the pocket is board 17.5 (USBC pin-carry research, reported second-hand) ± 1 board (the miss-room window
  * of the motion model, engine/motion/README.md #21); the headpin's centre is board 20; past
  * 21.25 (halfway to the far pocket at 22.5) the ball crossed over ('brooklyn').
  */
@@ -74,7 +74,7 @@ interface Usable {
  * Source: least squares and the profile-likelihood interval are textbook statistics (e.g. Bates &
  * Watts, Nonlinear Regression Analysis and Its Applications, 1988 — from memory); Brent's method:
  * R. P. Brent, Algorithms for Minimization without Derivatives (1973); the model: engine/motion
- * (PHYSICS.md §1, §4, §5).
+ * (engine/motion/README.md).
  *
  * Cost (bench/calibration.bench.ts, this 2-core VM at load average ≈ 11): 40 observations with
  * breakpoints ≈ 250 ms median; the same 40 as pocket results only ≈ 1.5 s (a flat-bottomed loss: the
@@ -182,7 +182,7 @@ export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPatte
     let keptReachable = false;
     if (items.some((u) => u.obs.hit === 'pocket') && sHat !== 1) {
       const last = items[items.length - 1].obs.ball;
-      const reaches = (sc: number) => solvePocketLine(prepareShot({ ball: last, bowler, pattern, frictionScale: sc, lane }, mapFor(0)).run, {}).reached;
+      const reaches = (sc: number) => { const sh = prepareShot({ ball: last, bowler, pattern, frictionScale: sc, lane }, mapFor(0)); return solvePocketLine(sh.run, {}, {}, sh.preview).reached; };
       if (!reaches(sHat)) {
         keptReachable = true;
         let bad = sHat, good = 1;

@@ -8,20 +8,20 @@ import type { ShotRecord, ShotStats } from './types';
  *
  * Definitions (Lanewright's, following common scoresheet usage; every rate is a Rate: hits, n, pct in
  * percent and its Wilson 95 % interval, wilsonInterval — Wilson 1927):
- * - a shot's place on the sheet comes from the frame rules of buildGame (TRADE.md 3.1, 3.3): the
+ * - a shot's place on the sheet comes from the frame rules of buildGame (USBC and World Bowling playing rules: frames and fouls): the
  *   **first ball at a full rack** (delivery 1, and in the tenth frame each ball after a strike or
  *   spare) and the **second ball at a rack** (the ball after a count, or after a first-ball foul,
  *   whose rack is re-spotted);
  * - **strike %** = strikes ÷ first balls at a full rack (a fouled first ball is a chance missed);
  * - **spare %** = spares ('/') ÷ second balls at a rack; **single-pin** when one pin stood before the
  *   second ball, **multi-pin** otherwise (a re-spotted full rack after a foul is multi-pin);
- * - **split conversion** = spares ÷ second balls whose rack's first ball left a split (isSplit, TRADE.md 3.2);
+ * - **split conversion** = spares ÷ second balls whose rack's first ball left a split (isSplit, the USBC playing rules on splits);
  * - **pocket %** = first balls recorded 'pocket' ÷ first balls with a recorded hit (any HitKind);
  * - **carry** = strikes among first balls recorded 'pocket';
  * - **first-ball average** = mean (and sample standard deviation) of the pins credited by first balls
  *   at a full rack (a foul counts 0);
  * - **leaves** = the pins standing after first balls at a full rack that were neither strikes nor
- *   fouls, by leaveName (TRADE.md 3.2 naming), most frequent first (ties by name), `share` = count ÷
+ *   fouls, by leaveName (common usage for naming leaves), most frequent first (ties by name), `share` = count ÷
  *   all those leaves;
  * - **average** = mean score of the games whose shots make one complete game (scoreGame), over
  *   `completeGames` games; `games` counts every game (sessionId + gameNumber) with a shot.

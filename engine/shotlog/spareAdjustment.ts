@@ -3,7 +3,7 @@ import { leaveName } from '../leaveName';
 import type { BoardMove, SpareAdjustment } from './types';
 
 /**
- * The 3-6-9 spare system's feet move for each pin (common practice, TRADE.md 7.1): boards moved with
+ * The 3-6-9 spare system's feet move for each pin (common practice): boards moved with
  * the feet, keeping the strike target, for the pin as the key pin; `side` is where the pin stands on the
  * deck as the bowler faces it (the feet move to the other side). Pins 1 and 5 are shot from the strike
  * position. The same physical moves hold for both hands (the pins do not change place); only the board
@@ -22,7 +22,7 @@ export const THREE_SIX_NINE: Readonly<Record<number, { boards: number; side: 'le
   10: { boards: 9, side: 'right' },
 });
 
-/** Row (0 = headpin … 3 = back row) and lateral place (half pin-spacings, negative toward the 7) of each pin; TRADE.md 2. */
+/** Row (0 = headpin … 3 = back row) and lateral place (half pin-spacings, negative toward the 7) of each pin; USBC lane specifications. */
 const PLACE: Readonly<Record<number, { row: number; x: number }>> = {
   1: { row: 0, x: 0 }, 2: { row: 1, x: -1 }, 3: { row: 1, x: 1 }, 4: { row: 2, x: -2 }, 5: { row: 2, x: 0 },
   6: { row: 2, x: 2 }, 7: { row: 3, x: -3 }, 8: { row: 3, x: -1 }, 9: { row: 3, x: 1 }, 10: { row: 3, x: 3 },
@@ -44,8 +44,8 @@ export function keyPin(leave: number[]): number {
  * feet 3, 6 or 9 boards away from the key pin's side (2/8 → 3, 4 → 6, 7 → 9 boards right; 3/9 → 3,
  * 6 → 6, 10 → 9 boards left; 1 and 5 from the strike position).
  *
- * Source: 3-6-9 spare system, common practice, as recorded in TRADE.md 7.1 (C; variants use 4 boards
- * per pin on the 10-pin side or move the target instead — the 2-4-6 system). Geometry (TRADE.md 7.1,
+ * Source: 3-6-9 spare system, common practice (variants use 4 boards
+ * per pin on the 10-pin side or move the target instead — the 2-4-6 system). Geometry (common practice,
  * D): a 3-board move at a 15-ft stance shifts the ball at the pins by ≈ 4.5 boards for a straight
  * line; adjacent pin columns are ≈ 5.6 boards apart.
  * Boards are counted from the gutter on the bowler's hand side, so a move left is +boards for a
@@ -100,6 +100,6 @@ export function spareAdjustment(input: { leave: number[]; strikeFeetBoard: numbe
     targetBoard: target,
     feet: { direction, boards: moved },
     detail,
-    source: '3-6-9 spare system, common practice (TRADE.md 7.1); key pin = the standing pin nearest the bowler',
+    source: '3-6-9 spare system, common practice; key pin = the standing pin nearest the bowler',
   };
 }

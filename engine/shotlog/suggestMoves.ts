@@ -25,7 +25,7 @@ export const MOVE_THRESHOLDS = Object.freeze({
   spareWindow: 20,
 });
 
-const TWO_AND_ONE_SOURCE = '2-and-1 adjustment, common practice (TRADE.md 7.1): feet 2 boards and target 1 board the same way, in the direction of the miss';
+const TWO_AND_ONE_SOURCE = '2-and-1 adjustment, common practice: feet 2 boards and target 1 board the same way, in the direction of the miss';
 
 /** Physical direction and boards → the bowler's own board count (+ toward the non-hand side). */
 const own = (m: BoardMove, hand: 'right' | 'left'): number => (m.direction === 'left' ? 1 : -1) * (hand === 'right' ? 1 : -1) * m.boards;
@@ -47,12 +47,12 @@ const own = (m: BoardMove, hand: 'right' | 'left'): number => (m.direction === '
  *   (toward the middle: the ball reads the lane earlier, as when the pattern breaks down) is treated as
  *   a high miss, toward the gutter as a light one;
  * - **2-and-1**: move feet 2 boards and target 1 board the same way, in the direction of the miss
- *   (TRADE.md 7.1, common practice): high → toward the middle of the lane from the hand side (left for a
+ *   (common practice): high → toward the middle of the lane from the hand side (left for a
  *   right-hander, right for a left-hander), light → toward the hand-side gutter; a streak with a
  *   Brooklyn hit in it calls for twice that (4 and 2, the same 2:1 ratio);
  * - **ball change**: the streak goes on although the bowler has already moved the feet ≥ 4 boards the
  *   same way with this ball in this session: high → a weaker ball or a smoother surface (higher grit or
- *   polish), light → a stronger ball or a rougher surface (TRADE.md 7.2 directions, common practice);
+ *   polish), light → a stronger ball or a rougher surface (the trade's directions, common practice);
  * - **spare system**: a single-pin leave missed ≥ 2 times among the last 20 spare chances gets the
  *   3-6-9 feet board (spareAdjustment) from the median strike feet and target of the recent first balls.
  * `evidence` says how many shots triggered each move.
@@ -166,7 +166,7 @@ export function suggestMoves(input: { shots: ShotRecord[]; hand: 'right' | 'left
               ? 'Moving has not stopped the high hits: a ball that reads the lane later (a weaker cover, a higher grit or polish) keeps its energy for the back end.'
               : 'Moving has not brought the ball back: a ball that reads the oil earlier (a stronger cover, a lower grit) will hook more.',
             evidence: `You have already moved ${moved} boards ${direction} with this ball this session (feet board ${startFeet} → ${f0}) and the last ${streak} first balls were still ${side}.`,
-            source: 'common practice; cover and surface directions from TRADE.md 7.2',
+            source: 'common practice; cover and surface directions',
           });
         }
       }

@@ -11,7 +11,7 @@ import type { BallSpec } from '../types';
 /**
  * One logged delivery: which frame and delivery it was and the pins standing AFTER it.
  * frame 1–10; delivery 1–2 (1–3 in frame 10); standing = pin numbers 1–10 still standing after this
- * delivery. On a foul (TRADE.md 3.3) the pins that fell are re-spotted: `standing` is what the bowler
+ * delivery. On a foul (the USBC playing rules on fouls) the pins that fell are re-spotted: `standing` is what the bowler
  * saw (it must still be a subset of the pins standing before), but no pin is credited.
  */
 export interface LoggedDelivery {

@@ -3,15 +3,15 @@ import { analyzePattern, RATIO_BOARDS } from '../../engine/index';
 import type { OilPattern } from '../../engine/index';
 import { houseShot, longHeavy, shortLight, sweep, workedExample } from './fixtures';
 
-// Definitions: ../shared/TRADE.md conventions table — volume = Σ boards × crossings × µL (D),
+// Definitions: Lanewright's conventions (engine/README.md) — volume = Σ boards × crossings × µL (D),
 // length = where the oil ends (C), ratio = mean µL on boards 18–22 ÷ mean µL on boards 3–7 and
 // 33–37 (C), classes (C / P for 3:1). Every expected number below is derived by hand.
 
 const TOL = 1e-9;
 
 describe('analyzePattern: volumes on hand-worked patterns', () => {
-  it('mL, TRADE.md 4.1 worked example: 37 × 1 + 25 × 4 + 17 × 6 = 239 crossings × 50 µL = 11.95 mL', () => {
-    // TRADE.md 4.1 "Worked example (own numbers)" (D).
+  it('mL, worked example of the lane-machine arithmetic: 37 × 1 + 25 × 4 + 17 × 6 = 239 crossings × 50 µL = 11.95 mL', () => {
+    // lane-machine volume arithmetic "Worked example (own numbers)" (D).
     expect(Math.abs(analyzePattern(workedExample).volumeMl - 11.95)).toBeLessThan(TOL);
   });
 
@@ -24,7 +24,7 @@ describe('analyzePattern: volumes on hand-worked patterns', () => {
   });
 
   it('mL, boards counted from their own gutters: board 2 left to board 2 right covers 41 − 2 − 2 = 37 boards', () => {
-    // TRADE.md 4.1 "Boards covered … 41 − a − b" (D): pattern boards 2–38, 1 crossing × 100 µL = 3.7 mL.
+    // lane-machine volume arithmetic "Boards covered … 41 − a − b" (D): pattern boards 2–38, 1 crossing × 100 µL = 3.7 mL.
     const p: OilPattern = { name: 'edge to edge', sweeps: [sweep(2, 38, 40, 1, 100)] };
     expect(Math.abs(analyzePattern(p).volumeMl - 3.7)).toBeLessThan(TOL);
   });
@@ -44,7 +44,7 @@ describe('analyzePattern: volumes on hand-worked patterns', () => {
 
 describe('analyzePattern: length and ratio on hand-worked patterns', () => {
   it('ft, worked example: sweeps end at 38, 34 and 30 ft, so the oil ends at 38 ft', () => {
-    // TRADE.md conventions: pattern length = the distance where the applied oil ends (C).
+    // Lanewright's convention: pattern length = the distance where the applied oil ends (C).
     expect(analyzePattern(workedExample).lengthFt).toBe(38);
   });
 
@@ -88,13 +88,13 @@ describe('analyzePattern: classes', () => {
   });
 
   it('at the boundaries: 37 ft is medium and 20 mL is medium (boards 1–20 × 10 × 100 µL = 20 mL)', () => {
-    // TRADE.md conventions: medium 37 ft to < 43 ft; medium 20–25 mL.
+    // Lanewright's conventions: medium 37 ft to < 43 ft; medium 20–25 mL.
     const p: OilPattern = { name: 'boundary', sweeps: [sweep(1, 20, 37, 10, 100)] };
     expect(analyzePattern(p)).toMatchObject({ lengthFt: 37, volumeMl: 20, lengthClass: 'medium', volumeClass: 'medium' });
   });
 
   it('ratio exactly 3:1 is sport, 3.02:1 is challenge, exactly 6:1 is recreation', () => {
-    // TRADE.md conventions: sport ≤ 3:1 (USBC Sport limit, P); recreation 6:1 and above.
+    // Lanewright's conventions: sport ≤ 3:1 (USBC Sport limit, P); recreation 6:1 and above.
     // Derived: base 1 × 50 µL on all boards plus k × 50 µL on boards 18–22 → ratio (50 + 50k) ÷ 50.
     const flat = (extraUl: number): OilPattern => ({
       name: 'ratio',

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { checkLegality, USBC_BALL_LIMITS } from '../../engine/index';
 import type { BallSpec } from '../../engine/index';
 
-// Check values: current USBC limits as recorded in ../shared/TRADE.md conventions table and
+// Check values: current USBC limits as recorded in Lanewright's conventions (engine/README.md) and
 // section 1.1 — weight ≤ 16 lb, diameter 8.500–8.595 in, RG 2.460–2.800 in, differential ≤ 0.060 in
 // (USBC spec summary, S), hardness ≥ 73 D (2020 USBC release, P); limits for balls ≥ 13 lb.
 
@@ -25,43 +25,43 @@ describe('checkLegality: each limit, at it and just past it', () => {
     expect(checkLegality(legal)).toMatchObject({ legal: true, violations: [] });
   });
 
-  it('weight: 16.00 lb is legal, 16.01 lb is not (TRADE.md 1.1 maximum 16.00 lb)', () => {
+  it('weight: 16.00 lb is legal, 16.01 lb is not (USBC equipment specifications: maximum 16.00 lb)', () => {
     expect(checkLegality({ ...legal, weightLb: 16 }).legal).toBe(true);
     expect(fields({ ...legal, weightLb: 16.01 })).toEqual(['weightLb']);
   });
 
-  it('diameter: 8.500 in is legal, 8.499 in is not (TRADE.md 1.1 minimum 8.500 in)', () => {
+  it('diameter: 8.500 in is legal, 8.499 in is not (USBC equipment specifications: minimum 8.500 in)', () => {
     expect(checkLegality({ ...legal, diameterIn: 8.5 }).legal).toBe(true);
     expect(fields({ ...legal, diameterIn: 8.499 })).toEqual(['diameterIn']);
   });
 
-  it('diameter: 8.595 in is legal, 8.596 in is not (TRADE.md 1.1 maximum 8.595 in)', () => {
+  it('diameter: 8.595 in is legal, 8.596 in is not (USBC equipment specifications: maximum 8.595 in)', () => {
     expect(checkLegality({ ...legal, diameterIn: 8.595 }).legal).toBe(true);
     expect(fields({ ...legal, diameterIn: 8.596 })).toEqual(['diameterIn']);
   });
 
   it('diameter: a ball with no diameter is taken as the nominal 8.5 in and is legal', () => {
-    // PRODUCT.md units: 8.5 in nominal; TRADE.md 1.1 minimum 8.500 in.
+    // Lanewright's conventions: 8.5 in nominal; USBC equipment specifications: minimum 8.500 in.
     const { diameterIn: _omit, ...noDiameter } = legal;
     expect(checkLegality(noDiameter).legal).toBe(true);
   });
 
-  it('RG: 2.460 in is legal, 2.459 in is not (TRADE.md 1.1 minimum 2.460 in)', () => {
+  it('RG: 2.460 in is legal, 2.459 in is not (USBC equipment specifications: minimum 2.460 in)', () => {
     expect(checkLegality({ ...legal, rg: 2.46 }).legal).toBe(true);
     expect(fields({ ...legal, rg: 2.459 })).toEqual(['rg']);
   });
 
-  it('RG: 2.800 in is legal, 2.801 in is not (TRADE.md 1.1 maximum 2.800 in)', () => {
+  it('RG: 2.800 in is legal, 2.801 in is not (USBC equipment specifications: maximum 2.800 in)', () => {
     expect(checkLegality({ ...legal, rg: 2.8 }).legal).toBe(true);
     expect(fields({ ...legal, rg: 2.801 })).toEqual(['rg']);
   });
 
-  it('differential: 0.060 in is legal, 0.061 in is not (TRADE.md 1.1 maximum 0.060 in)', () => {
+  it('differential: 0.060 in is legal, 0.061 in is not (USBC equipment specifications: maximum 0.060 in)', () => {
     expect(checkLegality({ ...legal, differential: 0.06 }).legal).toBe(true);
     expect(fields({ ...legal, differential: 0.061 })).toEqual(['differential']);
   });
 
-  it('hardness: 73 D is legal, 72.9 D is not (TRADE.md 1.1 current minimum 73 D)', () => {
+  it('hardness: 73 D is legal, 72.9 D is not (USBC equipment specifications: current minimum 73 D)', () => {
     expect(checkLegality({ ...legal, hardnessD: 73 }).legal).toBe(true);
     expect(fields({ ...legal, hardnessD: 72.9 })).toEqual(['hardnessD']);
   });
@@ -75,7 +75,7 @@ describe('checkLegality: each limit, at it and just past it', () => {
   });
 
   it('intermediate differential is never a violation and is listed as unchecked (no USBC limit found)', () => {
-    // TRADE.md 1.1 "Intermediate (mass-bias) differential limit: no limit found" (M).
+    // No USBC limit on intermediate (mass-bias) differential was found (from memory).
     const r = checkLegality({ ...legal, differential: 0.06, intermediateDifferential: 0.06 });
     expect(r.legal).toBe(true);
     expect(r.unchecked.map((u) => u.field)).toContain('intermediateDifferential');
@@ -87,13 +87,13 @@ describe('checkLegality: each limit, at it and just past it', () => {
   });
 
   it('a 10 lb ball: the RG, differential and hardness limits (given for 13 lb and more) are unchecked', () => {
-    // TRADE.md conventions table: "current USBC limits for balls of 13 lb and more".
+    // Lanewright's conventions (engine/README.md): "current USBC limits for balls of 13 lb and more".
     const r = checkLegality({ ...legal, weightLb: 10, rg: 2.4 });
     expect(r.legal).toBe(true);
     expect(r.unchecked.map((u) => u.field)).toEqual(['rg', 'differential', 'hardnessD', 'intermediateDifferential']);
   });
 
-  it('the exported limits are the TRADE.md values', () => {
+  it('the exported limits are the USBC values', () => {
     expect(USBC_BALL_LIMITS).toMatchObject({
       maxWeightLb: 16,
       minDiameterIn: 8.5,

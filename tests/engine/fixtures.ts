@@ -16,7 +16,7 @@ export function sweep(
 }
 
 /**
- * TRADE.md 4.1 worked example as a pattern: pass A 37 boards × 1, pass B 25 boards × 4, pass C
+ * worked example of the lane-machine arithmetic as a pattern: pass A 37 boards × 1, pass B 25 boards × 4, pass C
  * 17 boards × 6, 50 µL per board each → 239 crossings × 50 µL = 11.95 mL.
  * A: boards 2–38, 0–38 ft, forward. B: boards 8–32, 0–34 ft, reverse. C: boards 12–28, 2–30 ft, forward.
  */
@@ -55,7 +55,7 @@ export const houseShot: OilPattern = {
   sweeps: [sweep(3, 37, 40, 2, 70), sweep(10, 30, 38, 6, 70, 'reverse'), sweep(14, 26, 36, 6, 70)],
 };
 
-/** A right-handed bowler in the middle of TRADE.md 7.3's typical ranges. */
+/** A right-handed bowler in the middle of common practice's typical ranges. */
 export const typicalBowler: BowlerProfile = {
   hand: 'right',
   speedMph: 17,
@@ -64,7 +64,7 @@ export const typicalBowler: BowlerProfile = {
   axisTiltDeg: 15,
 };
 
-/** Invented balls of the makers "Kestrel Works" and "Ironbark" (PRODUCT.md demo names). */
+/** Invented balls of the makers "Kestrel Works" and "Ironbark" (Lanewright's demo names). */
 export const roughAsymSolid: ArsenalBall = {
   id: 'kestrel-nightjar',
   weightLb: 15,

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { flareShare, pinToPapInForAngle } from '../../engine/index';
 
-// Check values: ../shared/TRADE.md section 6.3 (derived): migration ∝ ½ ΔI ω sin 2θ, largest at
+// Check values: rigid-body mechanics (derived): migration ∝ ½ ΔI ω sin 2θ, largest at
 // θ = 45°; so the share of the maximum is |sin 2θ|.
 
 describe('flareShare', () => {
@@ -21,7 +21,7 @@ describe('flareShare', () => {
   });
 
   it('share: 3 3/8 in on an 8.595 in ball is the maximum (> 0.99999)', () => {
-    // TRADE.md 6.3 trade figure: about 3 3/8 in gives maximum flare potential.
+    // rigid-body mechanics trade figure: about 3 3/8 in gives maximum flare potential.
     expect(flareShare(3.375, 8.595)).toBeGreaterThan(0.99999);
   });
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { leaveName } from '../../engine/index';
 
-// Check values: TRADE.md 3.2 "Split naming: list standing pins in ascending number, e.g. 4-7-10"
+// Check values: common usage "Split naming: list standing pins in ascending number, e.g. 4-7-10"
 // (S / C).
 
 describe('leaveName', () => {

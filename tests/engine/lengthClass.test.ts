@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { lengthClass, LENGTH_CLASS_FT } from '../../engine/index';
 
-// Check values: ../shared/TRADE.md conventions table — short < 37 ft; medium 37 ft to < 43 ft;
+// Check values: Lanewright's conventions (engine/README.md) — short < 37 ft; medium 37 ft to < 43 ft;
 // long ≥ 43 ft (common practice, Lanewright's documented choice).
 
 describe('lengthClass', () => {

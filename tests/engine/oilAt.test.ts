@@ -5,7 +5,7 @@ import { sweep, workedExample } from './fixtures';
 
 // Definition: each sweep spreads crossings × µL per board evenly between startFt and endFt
 // (the Sweep contract of issue 3), so its density is crossings × µL ÷ (endFt − startFt) µL per
-// board per foot; densities of overlapping sweeps add (TRADE.md 4.1 volume arithmetic, D).
+// board per foot; densities of overlapping sweeps add (lane-machine volume arithmetic, D).
 // Worked example sweeps: A boards 2–38, 1 × 50 µL over 0–38 ft; B boards 8–32, 4 × 50 µL over
 // 0–34 ft; C boards 12–28, 6 × 50 µL over 2–30 ft. Expected values derived by hand.
 

@@ -3,7 +3,7 @@ import { oilAt, oilGrid } from '../../engine/index';
 import { sweep, workedExample } from './fixtures';
 
 // Definition: values[i][j] = oilAt(pattern, boards[i], ft[j]); see oilAt.test.ts for the density
-// arithmetic. Worked example (TRADE.md 4.1): boards 18–22 receive 550 µL each, boards 3–7 50 µL.
+// arithmetic. Worked example (lane-machine volume arithmetic): boards 18–22 receive 550 µL each, boards 3–7 50 µL.
 
 describe('oilGrid', () => {
   it('shape, defaults: boards 1–39 by 1, distances 0–60 ft by 1 (39 × 61 samples)', () => {

@@ -1,12 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { pinToPapAngleDeg } from '../../engine/index';
 
-// Check values: ../shared/TRADE.md conventions table and section 6.3 (derived): angle = arc length
+// Check values: our conventions (engine/README.md) and rigid-body mechanics (derived): angle = arc length
 // ÷ radius; 45° is 3.34 in on an 8.5 in ball and 3 3/8 in on a maximum-diameter (8.595 in) ball.
 
 describe('pinToPapAngleDeg', () => {
   it('degrees, 8.5 in ball: 3.34 in from pin to PAP is 45° (±0.05°)', () => {
-    // TRADE.md 6.3: R·π/4 = 4.25 × 0.7854 = 3.338 in; 3.34 / 4.25 rad = 45.03°.
+    // rigid-body mechanics: R·π/4 = 4.25 × 0.7854 = 3.338 in; 3.34 / 4.25 rad = 45.03°.
     expect(pinToPapAngleDeg(3.34)).toBeCloseTo(45, 1);
   });
 
@@ -16,12 +16,12 @@ describe('pinToPapAngleDeg', () => {
   });
 
   it('degrees, 8.595 in ball: 3 3/8 in is 45° (±0.01°)', () => {
-    // TRADE.md 6.3: R·π/4 = 4.2975 × 0.7854 = 3.375 in; 3.375 / 4.2975 rad = 44.997°.
+    // rigid-body mechanics: R·π/4 = 4.2975 × 0.7854 = 3.375 in; 3.375 / 4.2975 rad = 44.997°.
     expect(Math.abs(pinToPapAngleDeg(3.375, 8.595) - 45)).toBeLessThan(0.01);
   });
 
   it('degrees, 8.5 in ball: the default diameter is 8.5 in (same as passing 8.5)', () => {
-    // PRODUCT.md units: ball diameter 8.5 in nominal.
+    // Lanewright's conventions: ball diameter 8.5 in nominal.
     expect(pinToPapAngleDeg(5)).toBe(pinToPapAngleDeg(5, 8.5));
   });
 

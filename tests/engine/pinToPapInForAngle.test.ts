@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { pinToPapAngleDeg, pinToPapInForAngle } from '../../engine/index';
 
-// Check values: ../shared/TRADE.md section 6.3 (derived): arc for 45° is R·π/4 = 3.338 in on an
+// Check values: rigid-body mechanics (derived): arc for 45° is R·π/4 = 3.338 in on an
 // 8.5 in ball and 3.375 in on an 8.595 in ball.
 
 describe('pinToPapInForAngle', () => {

@@ -79,8 +79,8 @@ describe('rankArsenal: surface changes move a ball the way the trade teaches (co
 describe('rankArsenal: the bowler and the games bowled (common practice)', () => {
   const fastLowRev = { ...typicalBowler, speedMph: 20, revRpm: 250 };
   const slowHighRev = { ...typicalBowler, speedMph: 15, revRpm: 500 };
-  // 1–39 × 10 × 50 µL to 44 ft + 10–30 × 5 × 50 µL to 40 ft = 19 500 + 5 250 µL = 24.75 mL (medium).
-  const medium: OilPattern = { name: 'Harrow Bay medium', sweeps: [sweep(1, 39, 44, 10, 50), sweep(10, 30, 40, 5, 50, 'reverse')] };
+  // 1–39 × 10 × 50 µL to 41 ft + 10–30 × 5 × 50 µL to 38 ft = 19 500 + 5 250 µL = 24.75 mL (medium, 41 ft).
+  const medium: OilPattern = { name: 'Harrow Bay medium', sweeps: [sweep(1, 39, 41, 10, 50), sweep(10, 30, 38, 5, 50, 'reverse')] };
   const fit = (ball: ArsenalBall, pattern: OilPattern, bowler = typicalBowler, g = 0) => fitLayer(ball, matchupContext(bowler, pattern, g));
 
   it('a high-speed, low-rev bowler needs more ball than a high-rev, low-speed one: the demand is higher, and the strong solid fits the first, the urethane the second', () => {

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { ratioClass, RATIO_CLASS } from '../../engine/index';
 
-// Check values: ../shared/TRADE.md conventions table — sport ≤ 3:1 (USBC Sport Bowling limit, P,
-// TRADE.md 4.1); challenge above 3:1 and below 6:1; recreation 6:1 and above (Lanewright's choice
+// Check values: Lanewright's conventions (engine/README.md) — sport ≤ 3:1 (USBC Sport Bowling limit, P,
+// lane-machine volume arithmetic); challenge above 3:1 and below 6:1; recreation 6:1 and above (Lanewright's choice
 // within common practice 4:1–8:1).
 
 describe('ratioClass', () => {

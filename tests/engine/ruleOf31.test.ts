@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { ruleOf31 } from '../../engine/index';
 
-// Check values: ../shared/TRADE.md section 7.1 "Rule of 31" (common practice): pattern length
+// Check values: common practice "Rule of 31" (common practice): pattern length
 // (ft) − 31 ≈ board where the ball should leave the oil; e.g. 39 ft → board 8; 43 ft → board 12.
 
 describe('ruleOf31', () => {

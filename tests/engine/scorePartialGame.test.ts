@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { scoreGame, scorePartialGame } from '../../engine/index';
 
-// Check values: USBC / World Bowling scoring (TRADE.md 3.1, P) applied to games in progress; a
+// Check values: USBC / World Bowling scoring (the USBC and World Bowling playing rules, P) applied to games in progress; a
 // frame is scored once its bonus deliveries are in (strike: next two; spare: next one). Pins
 // standing: a rack has 10 pins and is reset after a strike, a spare or a completed frame.
 // Expected numbers derived by hand.
@@ -35,13 +35,13 @@ describe('scorePartialGame', () => {
   });
 
   it('the World Bowling sheet, complete: same totals as scoreGame, no next frame, 0 pins standing', () => {
-    // TRADE.md 3.1 WB worked example (P).
+    // the USBC and World Bowling playing rules WB worked example (P).
     const rolls = [10, 10, 10, 7, 2, 8, 2, 0, 9, 10, 7, 3, 9, 0, 10, 10, 8];
     expect(scorePartialGame(rolls)).toEqual({ ...scoreGame(rolls), complete: true, nextFrame: null, pinsStanding: 0 });
   });
 
   it('the World Bowling sheet after its first 15 deliveries: frames 1–8 scored (143), frame 9 is open 9 0 = 152, frame 10 next', () => {
-    // TRADE.md 3.1 WB worked example: running totals 30 57 76 85 95 104 124 143 152 (P).
+    // the USBC and World Bowling playing rules WB worked example: running totals 30 57 76 85 95 104 124 143 152 (P).
     const rolls = [10, 10, 10, 7, 2, 8, 2, 0, 9, 10, 7, 3, 9, 0];
     expect(scorePartialGame(rolls)).toMatchObject({
       frames: [30, 57, 76, 85, 95, 104, 124, 143, 152, null],

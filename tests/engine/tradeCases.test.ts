@@ -114,8 +114,9 @@ describe('the trade case: a strong asymmetric solid on a fresh house shot (commo
     expect((sug!.change as { surfaceGrit: number }).surfaceGrit).toBeLessThan(4000);
   });
 
-  it('a long heavy pattern: every strong ball is told to sand only as far as the gap needs, and the roughest fits best', () => {
-    const r = rank([strongSolid(1000), strongSolid(2000), strongSolid(4000)], longHeavy);
+  it('a long heavy pattern: the roughest fits best, and for a bowler whose gaps a surface can close (450 rpm) each finish is told to sand only as far as its gap needs', () => {
+    expect(order(rank([strongSolid(1000), strongSolid(2000), strongSolid(4000)], longHeavy))).toEqual(['solid-1000', 'solid-2000', 'solid-4000']);
+    const r = rank([strongSolid(1000), strongSolid(2000), strongSolid(4000)], longHeavy, { ...caseBowler, revRpm: 450 });
     expect(order(r)).toEqual(['solid-1000', 'solid-2000', 'solid-4000']);
     const targets = r.map((e) => (surfaceSuggestion(e)?.change as { surfaceGrit?: number } | undefined)?.surfaceGrit ?? e.id);
     // the suggestions are not all one fixed grit: each finish closes its own gap
@@ -140,6 +141,25 @@ describe('cover and surface order across conditions (common practice: in oil sol
     const r = rank([strongSolid(1000), pearl], shortLight, typical);
     expect(order(r)[0]).toBe('pearl');
     expect(byId(r, 'solid-1000').fit?.verdict).toBe('too-strong');
+  });
+
+  it('short light pattern for a lower-rev bowler (300 rpm): the urethane and the polished pearl still rank above the 1000-grit strong solid', () => {
+    // Common practice: fewer revs ask for more ball, but not for a rough strong solid on short, light oil, where it
+    // reads the long dry backend early and rolls out.
+    const r = rank([strongSolid(1000), pearl, urethane], shortLight, { ...typical, revRpm: 300 });
+    expect(order(r).indexOf('solid-1000')).toBeGreaterThan(order(r).indexOf('urethane'));
+    expect(order(r).indexOf('solid-1000')).toBeGreaterThan(order(r).indexOf('pearl'));
+  });
+
+  it('pattern length alone (same oil spread 8 ft farther): the longer pattern asks for more ball by more than one surface step, and the rough solid gains on the polished pearl', () => {
+    // Common practice: length is the pattern variable ball choice is keyed to first (short: weaker, cleaner; long: stronger, rougher).
+    const stretched: OilPattern = { name: 'Harrow Bay house, stretched', sweeps: house.sweeps.map((w) => ({ ...w, endFt: w.endFt + 8 })) };
+    expect(analyzePattern(stretched).volumeMl).toBeCloseTo(analyzePattern(house).volumeMl, 6);
+    const onHouse = rank([strongSolid(1000), pearl], house, typical);
+    const onLong = rank([strongSolid(1000), pearl], stretched, typical);
+    expect(byId(onLong, 'pearl').fit!.demand - byId(onHouse, 'pearl').fit!.demand).toBeGreaterThan(5);
+    const margin = (r: ReturnType<typeof rank>) => byId(r, 'solid-1000').score - byId(r, 'pearl').score;
+    expect(margin(onLong)).toBeGreaterThan(margin(onHouse));
   });
 
   it('plastic is a spare ball: never ranked for strikes, listed after the strike balls, and suggested for corner spares', () => {

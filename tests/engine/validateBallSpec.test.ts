@@ -19,7 +19,7 @@ describe('validateBallSpec', () => {
     expect(() => validateBallSpec({ ...polishedPearl, layout: { pinToPapIn: 4, drillingAngleDeg: 200 } })).toThrow(RangeError);
   });
   it('RangeError for an intermediate differential larger than the differential (0.015 in with 0.012 in)', () => {
-    // Definition (TRADE.md 6.3, RG = √(I/m) about each axis): the intermediate axis's RG lies
+    // Definition (rigid-body mechanics, RG = √(I/m) about each axis): the intermediate axis's RG lies
     // between the lowest and the highest, so the intermediate differential cannot exceed the total.
     expect(() => validateBallSpec({ ...polishedPearl, differential: 0.012, intermediateDifferential: 0.015 })).toThrow(
       /validateBallSpec: intermediateDifferential 0.015 in is larger than differential 0.012 in/,

@@ -3,7 +3,7 @@ import { validateBowlerProfile } from '../../engine/index';
 import { typicalBowler } from './fixtures';
 
 // Policy: engine/README.md invalid-input policy; bounds engine/validateBowlerProfile.ts (wide
-// bounds around TRADE.md 7.3's typical ranges).
+// bounds around common practice's typical ranges).
 
 describe('validateBowlerProfile', () => {
   it('accepts the typical bowler and a left-hander', () => {

@@ -6,7 +6,7 @@ import { sweep, workedExample } from './fixtures';
 // RangeError for a value out of range, message naming the function and the value.
 
 describe('validatePattern', () => {
-  it('accepts the TRADE.md 4.1 worked example and a pattern with no sweeps', () => {
+  it('accepts the worked example of the lane-machine arithmetic and a pattern with no sweeps', () => {
     expect(() => validatePattern(workedExample)).not.toThrow();
     expect(() => validatePattern({ name: '', sweeps: [] })).not.toThrow();
   });

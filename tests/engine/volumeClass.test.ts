@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { volumeClass, VOLUME_CLASS_ML } from '../../engine/index';
 
-// Check values: ../shared/TRADE.md conventions table — light < 20 mL; medium 20–25 mL;
+// Check values: Lanewright's conventions (engine/README.md) — light < 20 mL; medium 20–25 mL;
 // heavy > 25 mL (common practice).
 
 describe('volumeClass', () => {

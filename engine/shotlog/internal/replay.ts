@@ -6,9 +6,9 @@ import type { DeliveryView, LoggedDelivery } from '../types';
 /**
  * The state of a game between deliveries, and one step of it (internal to buildGame/checkDelivery).
  *
- * Rules: TRADE.md 3.1 (frames 1–9 end after a strike or two deliveries; the tenth has a third
+ * Rules: the USBC and World Bowling playing rules (frames 1–9 end after a strike or two deliveries; the tenth has a third
  * delivery after a strike or spare in it, and its rack is re-set after each strike or spare) and
- * TRADE.md 3.3 (a fouled delivery counts, is credited 0 pins, and the pins are re-spotted: "foul on
+ * the USBC playing rules on fouls (a fouled delivery counts, is credited 0 pins, and the pins are re-spotted: "foul on
  * first ball: pins respotted; all ten on the second ball = spare").
  */
 export interface GameState {

@@ -4,8 +4,8 @@ import type { BallSpec, OilPattern } from '../../../engine/index';
 import { flatPattern, housePattern, strokerBowler, strongBall } from './fixtures';
 
 // How large each mass-distribution effect comes out (engine/motion/README.md "Effect sizes"):
-// PHYSICS.md §1.10 says the bare rigid body moves the path by about half a board and the axis
-// migrates 4–7 in on the surface; §5.3 says the differential matters through friction (carried oil,
+// A rigid-body prototype study found that the bare rigid body moves the path by about half a board and the axis
+// migrates 4–7 in on the surface; the differential matters through friction (carried oil,
 // fresh cover rotated into contact by flare).
 
 const bowler = strokerBowler();
@@ -40,18 +40,18 @@ describe.each([
   ['flat 42 ft', flatPattern(), 15, 10],
   ['house 40 ft', housePattern(), 13, 6.2],
 ] as const)('mass-distribution effects on the %s pattern', (_name, pattern, laydown, target) => {
-  it('in, differential 0.058 in with the pin 3.4 in from the PAP: the axis migrates 4–7.5 in over the ball surface (PHYSICS.md §0 item 4: 4–7 in), under 1 in with the pin on the axis (§1.10 table)', () => {
+  it('in, differential 0.058 in with the pin 3.4 in from the PAP: the axis migrates 4–7.5 in over the ball surface (a rigid-body prototype study: 4–7 in), under 1 in with the pin on the axis (the prototype study)', () => {
     expect(throwOn(flaring, pattern, laydown, target, false).migrationIn).toBeGreaterThanOrEqual(4);
     expect(throwOn(flaring, pattern, laydown, target, false).migrationIn).toBeLessThanOrEqual(7.5);
     expect(throwOn(pinOnAxis, pattern, laydown, target, false).migrationIn).toBeLessThan(1);
   });
 
-  it('boards, bare rigid body (no carried oil): differential 0.058 vs 0.010 moves the entry board by under half a board (PHYSICS.md §1.10)', () => {
+  it('boards, bare rigid body (no carried oil): differential 0.058 vs 0.010 moves the entry board by under half a board (Euler’s equations alone)', () => {
     const d = throwOn(flaring, pattern, laydown, target, false).entry - throwOn(lowDiff, pattern, laydown, target, false).entry;
     expect(Math.abs(d)).toBeLessThan(0.5);
   });
 
-  it('boards, with the oil carried on the track: the ball hooks less than the bare rigid body, by more than a board (PHYSICS.md §5.3)', () => {
+  it('boards, with the oil carried on the track: the ball hooks less than the bare rigid body, by more than a board (the track-ring model)', () => {
     expect(throwOn(flaring, pattern, laydown, target, false).entry - throwOn(flaring, pattern, laydown, target, true).entry).toBeGreaterThan(1);
   });
 

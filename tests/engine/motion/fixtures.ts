@@ -1,6 +1,6 @@
 import type { BallSpec, BowlerProfile } from '../../../engine/types';
 
-/** An isotropic ball of PHYSICS.md §3.3's common settings: m = 7.257 kg, R = 4.25 in, RG `rg` in. */
+/** An isotropic ball of the two-zone closed form's common settings: m = 7.257 kg, R = 4.25 in, RG `rg` in. */
 export function isotropicBall(rg: number, extra: Partial<BallSpec> = {}): BallSpec {
   return {
     weightLb: 7.257 / 0.45359237, diameterIn: 8.5, rg, differential: 0, intermediateDifferential: 0,
@@ -16,15 +16,15 @@ export function asymmetricBall(extra: Partial<BallSpec> = {}): BallSpec {
   };
 }
 
-/** PHYSICS.md §3.3 release: v₀ = 8 m/s, 300 rpm, 45° rotation, 15° tilt, right hand. */
+/** The two-zone closed form's release: v₀ = 8 m/s, 300 rpm, 45° rotation, 15° tilt, right hand. */
 export function referenceBowler(extra: Partial<BowlerProfile> = {}): BowlerProfile {
   return { hand: 'right', speedMph: 8 / 0.44704, revRpm: 300, axisRotationDeg: 45, axisTiltDeg: 15, ...extra };
 }
 
-/** Board offset for a lateral displacement in mm (board = 41.5/39 in = 27.0281 mm, TRADE.md conventions). */
+/** Board offset for a lateral displacement in mm (board = 41.5/39 in = 27.0281 mm, Lanewright's conventions). */
 export const MM_PER_BOARD = (41.5 / 39) * 25.4;
 
-/** Launch boards (laydown, target) for a heading ψ in degrees from board 20 (PHYSICS.md §3.3 "heading"). */
+/** Launch boards (laydown, target) for a heading ψ in degrees from board 20 (the closed form's heading). */
 export function linePsi(psiDeg: number): [number, number] {
   const dBoards = (Math.tan((psiDeg * Math.PI) / 180) * 15 * 304.8) / MM_PER_BOARD;
   return [20, 20 + dBoards];
@@ -66,7 +66,7 @@ export function strongBall(extra: Partial<BallSpec> = {}): BallSpec {
   };
 }
 
-/** A typical right-handed stroker (PHYSICS.md §6 / TRADE.md §7.3 typical values, C). */
+/** A typical right-handed stroker (common practice typical values). */
 export function strokerBowler(extra: Partial<BowlerProfile> = {}): BowlerProfile {
   return { hand: 'right', speedMph: 17.5, revRpm: 320, axisRotationDeg: 45, axisTiltDeg: 12, ...extra };
 }

@@ -14,8 +14,8 @@ function slidingState(v0: number, omegaY = 0): Float64Array {
   return s;
 }
 
-describe('integrateDelivery — slide-to-roll on uniform friction (TRADE.md §6.2, PHYSICS.md §3.2)', () => {
-  // TRADE.md §6.2 textbook result: d = (v0² − vf²)/(2μg), vf = v0·R²/(R² + k²)
+describe('integrateDelivery — slide-to-roll on uniform friction (the sliding sphere: textbook mechanics)', () => {
+  // Textbook result: d = (v0² − vf²)/(2μg), vf = v0·R²/(R² + k²)
   for (const rg of [2.46, 2.55, 2.65, 2.8]) {
     it(`m, RG ${rg} in, no spin, μ = 0.2: rolls after (v0²−vf²)/(2μg) within 2 cm and then moves at vf within 1e-5 m/s (regularised friction, ε = 0.03 m/s, blurs the roll point)`, () => {
       const ball = isotropicBall(rg);
@@ -29,7 +29,7 @@ describe('integrateDelivery — slide-to-roll on uniform friction (TRADE.md §6.
     });
   }
 
-  it('m/s, uniform sphere k² = 0.4R², no spin: rolls at 5/7·v0 (JHU lecture note, PHYSICS.md §2.6) and the PHYSICS.md §3.2 row (s* 7.9912 m)', () => {
+  it('m/s, uniform sphere k² = 0.4R², no spin: rolls at 5/7·v0 (a mechanics lecture note; the closed form) and the closed form’s row (s* 7.9912 m)', () => {
     const R = 4.25 * 0.0254;
     const ball = isotropicBall(Math.sqrt(0.4) * 4.25);
     const r = integrateDelivery(slidingState(8), ballInertia(ball), uniformFrictionField(0.2));
@@ -38,7 +38,7 @@ describe('integrateDelivery — slide-to-roll on uniform friction (TRADE.md §6.
     expect(R).toBeCloseTo(0.10795, 5);
   });
 
-  // PHYSICS.md §3.2 prototype check rows (D: closed form, uniform sphere, v0 = 8 m/s, μ = 0.2)
+  // Closed-form rows of the sliding sphere (derived, uniform sphere, v0 = 8 m/s, μ = 0.2)
   const rows: [string, number, number, number][] = [
     ['backspin ω0 = −20 rad/s', -20, 9.6914, 5.0974],
     ['topspin ω0 = 40 rad/s', 40, 4.0088, 6.948],
@@ -48,13 +48,13 @@ describe('integrateDelivery — slide-to-roll on uniform friction (TRADE.md §6.
     it(`m and m/s, uniform sphere, ${name}: rolls at s* = ${sStar} m (±1 cm) with v* = ${vStar} m/s (±1e-4)`, () => {
       const ball = isotropicBall(Math.sqrt(0.4) * 4.25);
       const r = integrateDelivery(slidingState(8, w0), ballInertia(ball), uniformFrictionField(0.2));
-      // regularised friction (ε = 0.02 m/s) blurs the roll point by a few mm (PHYSICS.md §1.8)
+      // regularised friction (ε = 0.02 m/s) blurs the roll point by a few mm (regularised friction)
       expect(Math.abs((r.rollStartFt as number) * 0.3048 - sStar)).toBeLessThan(0.01);
       expect(Math.abs(r.speedAtPinsMph * 0.44704 - vStar)).toBeLessThan(1e-4);
     });
   }
 
-  it('ratio, max-diameter ball R = 4.2975 in, vf/v0 for RG 2.46/2.55/2.65/2.80 = 0.753/0.740/0.725/0.702 (TRADE.md §6.2)', () => {
+  it('ratio, max-diameter ball R = 4.2975 in, vf/v0 for RG 2.46/2.55/2.65/2.80 = 0.753/0.740/0.725/0.702 (textbook mechanics: v_f/v_0 = R²/(R² + k²))', () => {
     const expected: [number, number][] = [[2.46, 0.753], [2.55, 0.74], [2.65, 0.725], [2.8, 0.702]];
     for (const [rg, ratio] of expected) {
       const ball = isotropicBall(rg, { diameterIn: 8.595 });
@@ -64,7 +64,7 @@ describe('integrateDelivery — slide-to-roll on uniform friction (TRADE.md §6.
   });
 });
 
-describe('integrateDelivery — hook deliveries on a two-zone lane (PHYSICS.md §3.3 check table, D)', () => {
+describe('integrateDelivery — hook deliveries on a two-zone lane (the two-zone closed form, derived after Frohlich 2004)', () => {
   // columns: case, rg (null = uniform sphere), v0, heading, rpm, rotation, oil ft, μ dry, x roll m, y pins mm, t pins s, heading at pins °, v roll m/s
   const table: [string, number | null, number, number, number, number, number, number, number, number, number, number, number][] = [
     ['A reference', 2.5, 8, 0, 300, 45, 40, 0.2, 15.601, 632.1, 2.4799, 5.203, 6.566],
@@ -90,7 +90,7 @@ describe('integrateDelivery — hook deliveries on a two-zone lane (PHYSICS.md �
     });
   }
 
-  it('m and mm, breakpoints of cases C and D at x = 10.316/8.692 m and y = −139.2/−155.0 mm (PHYSICS.md §3.3 breakpoint table)', () => {
+  it('m and mm, breakpoints of cases C and D at x = 10.316/8.692 m and y = −139.2/−155.0 mm (the two-zone closed form’s breakpoints)', () => {
     const ball = isotropicBall(2.5);
     const cases: [number, number, number, number, number][] = [[-1.5, 300, 45, 10.316, -139.2], [-2, 450, 50, 8.692, -155.0]];
     for (const [psi, rpm, rot, xb, yb] of cases) {
@@ -102,7 +102,7 @@ describe('integrateDelivery — hook deliveries on a two-zone lane (PHYSICS.md �
   });
 });
 
-describe('integrateDelivery — invariants (PHYSICS.md §1.7, §3.4, §3.5, §3.6)', () => {
+describe('integrateDelivery — invariants (rigid-body mechanics: the angular momentum about the contact point, energy, invariants, mirror symmetry)', () => {
   it('kg·m²/s, asymmetric ball on the two-zone lane: L_P about the contact point is conserved in all components to 1e-6 relative', () => {
     for (const [ball, bowler] of [
       [asymmetricBall(), referenceBowler()],
@@ -122,7 +122,7 @@ describe('integrateDelivery — invariants (PHYSICS.md §1.7, §3.4, §3.5, §3.
     }
   });
 
-  it('J, asymmetric ball, 0–500 rpm and 0–90° rotation on the two-zone lane: kinetic energy never rises by more than 1e-9 J per step (PHYSICS.md §3.4)', () => {
+  it('J, asymmetric ball, 0–500 rpm and 0–90° rotation on the two-zone lane: kinetic energy never rises by more than 1e-9 J per step (the energy balance of sliding friction)', () => {
     const ball = asymmetricBall();
     const I = ballInertia(ball);
     for (const rpm of [0, 150, 300, 500]) {
@@ -135,7 +135,7 @@ describe('integrateDelivery — invariants (PHYSICS.md §1.7, §3.4, §3.5, §3.
     }
   });
 
-  it('mph, isotropic ball with forward slip (rev surface speed below ball speed), 0–500 rpm, 0–90°: speed never increases along the path (PHYSICS.md §3.1: |v| falls while sliding, constant rolling)', () => {
+  it('mph, isotropic ball with forward slip (rev surface speed below ball speed), 0–500 rpm, 0–90°: speed never increases along the path (the isotropic sliding sphere: |v| falls while sliding, constant rolling)', () => {
     const ball = isotropicBall(2.5);
     const I = ballInertia(ball);
     for (const rpm of [0, 150, 300, 500]) {
@@ -147,7 +147,7 @@ describe('integrateDelivery — invariants (PHYSICS.md §1.7, §3.4, §3.5, §3.
     }
   });
 
-  it('mph, asymmetric ball: speed falls while sliding; once rolling it only oscillates (Chaplygin ball, PHYSICS.md §1.6) by under 0.05 mph per foot', () => {
+  it('mph, asymmetric ball: speed falls while sliding; once rolling it only oscillates (the Chaplygin rolling ball) by under 0.05 mph per foot', () => {
     const ball = asymmetricBall();
     const I = ballInertia(ball);
     for (const rpm of [150, 300, 500]) {
@@ -157,7 +157,7 @@ describe('integrateDelivery — invariants (PHYSICS.md §1.7, §3.4, §3.5, §3.
     }
   });
 
-  it('m/s, isotropic ball released already rolling (v = Rω × ẑ, PHYSICS.md §3.2 rolling condition): never slides, rollStartFt = 0 and speed constant', () => {
+  it('m/s, isotropic ball released already rolling (v = Rω × ẑ, the rolling condition): never slides, rollStartFt = 0 and speed constant', () => {
     const ball = isotropicBall(2.5);
     const I = ballInertia(ball);
     const s = new Float64Array(STATE.length);
@@ -169,7 +169,7 @@ describe('integrateDelivery — invariants (PHYSICS.md §1.7, §3.4, §3.5, §3.
     expect(Math.abs(r.speedAtPinsMph * 0.44704 - Math.hypot(7, 0.3))).toBeLessThan(1e-9);
   });
 
-  it('m/s, asymmetric ball released rolling on a dry lane (μ = 0.2): no sliding phase, only micro-slip below 0.15 m/s (PHYSICS.md §1.6: F_required can exceed μN)', () => {
+  it('m/s, asymmetric ball released rolling on a dry lane (μ = 0.2): no sliding phase, only micro-slip below 0.15 m/s (the Chaplygin rolling ball: the friction it needs can exceed μN)', () => {
     const ball = asymmetricBall();
     const I = ballInertia(ball);
     const s = releaseState(ball, referenceBowler(), 20, 20);
@@ -180,7 +180,7 @@ describe('integrateDelivery — invariants (PHYSICS.md §1.7, §3.4, §3.5, §3.
     expect(maxSlip).toBeLessThan(0.15);
   });
 
-  it('mm, no spin, any core and orientation: the path stays straight within 1 mm (PHYSICS.md §1.10 reports < 0.2 mm for its prototype ball; ours drifts 0.3–0.8 mm) and exactly when a principal axis is along ŷ (§3.5)', () => {
+  it('mm, no spin, any core and orientation: the path stays straight within 1 mm (a rigid-body prototype drifted < 0.2 mm; ours drifts 0.3–0.8 mm) and exactly when a principal axis is along ŷ (a rigid-body invariant)', () => {
     const ball = asymmetricBall();
     const I = ballInertia(ball);
     for (const [pin, val] of [[1, 10], [3.4, 50], [5, 80], [2.2, 130]]) {
@@ -194,7 +194,7 @@ describe('integrateDelivery — invariants (PHYSICS.md §1.7, §3.4, §3.5, §3.
     for (let i = 0; i < r.sampleCount; i++) expect(r.sampleBoard[i]).toBe(20);
   });
 
-  it('boards, asymmetric ball: a left-hander on the mirrored lane gets the same hand-relative path as the right-hander (PHYSICS.md §3.6) to 1e-9 boards', () => {
+  it('boards, asymmetric ball: a left-hander on the mirrored lane gets the same hand-relative path as the right-hander (mirror symmetry) to 1e-9 boards', () => {
     const ball = asymmetricBall();
     const I = ballInertia(ball);
     // a lane that is not symmetric about board 20: dry outside board 8 (pattern boards from the right)
@@ -210,7 +210,7 @@ describe('integrateDelivery — invariants (PHYSICS.md §1.7, §3.4, §3.5, §3.
     expect(Math.abs(rL.entryAngleDeg - rR.entryAngleDeg)).toBeLessThan(1e-9);
   });
 
-  it('rad/s, symmetric core 2.50/2.55 in on a frictionless lane, 300 rpm, pin 60° from the axis: ω precesses about the pin at 0.609959 rad/s (PHYSICS.md §1.10, §3.5)', () => {
+  it('rad/s, symmetric core 2.50/2.55 in on a frictionless lane, 300 rpm, pin 60° from the axis: ω precesses about the pin at 0.609959 rad/s (Euler’s equations: Ω = (1 − k_L²/k_H²)|ω| cos β)', () => {
     const ball = isotropicBall(2.5, { differential: 0.05, layout: { pinToPapIn: (60 * Math.PI / 180) * 4.25 } });
     const I = ballInertia(ball);
     const s0 = releaseState(ball, referenceBowler({ axisRotationDeg: 45, axisTiltDeg: 15 }), 20, 20);
@@ -231,6 +231,6 @@ describe('integrateDelivery — invariants (PHYSICS.md §1.7, §3.4, §3.5, §3.
       unwrapped += d; last = a; tEnd = t; w1Dev = Math.max(w1Dev, Math.abs(w[0] - w0[0]));
     } });
     expect(Math.abs(Math.abs(unwrapped) / tEnd - 0.609959)).toBeLessThan(1e-5);
-    expect(w1Dev).toBeLessThan(1e-7); // ω₁ constant (PHYSICS.md §3.5)
+    expect(w1Dev).toBeLessThan(1e-7); // ω₁ constant (rigid-body invariant)
   });
 });

@@ -4,8 +4,8 @@ import { fourBalls, houseShot, typicalBowler } from '../fixtures';
 import { fifteenBalls } from './fixtures';
 
 // rankArsenal with the ball-motion layer (issue 4): each ball gets the model's prediction on its
-// pocket line and its miss room; the score uses entry angle (≈ 6° best, TRADE.md §2.2), pocket
-// reachability and miss room; games bowled shift the order (PHYSICS.md §5.4, TRADE.md §5.2).
+// pocket line and its miss room; the score uses entry angle (≈ 6° best, USBC pin-carry research, reported second-hand), pocket
+// reachability and miss room; games bowled shift the order (the transition model; common practice).
 
 describe('rankArsenal — ball-motion layer', () => {
   const ranked = rankArsenal({ balls: fourBalls, bowler: typicalBowler, pattern: houseShot });
@@ -43,7 +43,7 @@ describe('rankArsenal — ball-motion layer', () => {
     }
   });
 
-  // Breakdown on the house shot (PHYSICS.md §5.4; TRADE.md §5.2, common practice: a broken-down lane
+  // Breakdown on the house shot (the transition model; common practice: a broken-down lane
   // favours cleaner, weaker balls). 15 invented balls, 0 → 9 games.
   const at = (g: number) => rankArsenal({ balls: fifteenBalls(), bowler: typicalBowler, pattern: houseShot, gamesBowled: g });
   const motionOf = (r: ReturnType<typeof at>, id: string) => r.find((x) => x.id === id)?.layers?.find((l) => l.name === 'motion')?.score as number;

@@ -6,8 +6,8 @@ import { flatPattern, housePattern, mirroredPattern, strokerBowler, strongBall }
 const COVERS: CoverType[] = ['plastic', 'urethane', 'reactive-pearl', 'reactive-hybrid', 'reactive-solid'];
 const muAt = (c: ReturnType<typeof coverFriction>, filmUm: number) => c.muOil + (c.muDry - c.muOil) * Math.exp(-filmUm / c.filmScaleUm);
 
-describe('simulateShot — friction magnitudes (PHYSICS.md §2.1, §2.5, §5.1)', () => {
-  it('μ, reactive covers at 2000 grit: a 10 µm film gives 0.01–0.06 (oiled lane, PHYSICS.md §2.1 range) and a dry lane 0.15–0.32 (§2.1 range, USBC limit §2.5)', () => {
+describe('simulateShot — friction magnitudes (Frohlich 2004 as quoted, USBC ball friction limit, the mixed-lubrication law)', () => {
+  it('μ, reactive covers at 2000 grit: a 10 µm film gives 0.01–0.06 (oiled lane, the range quoted after Frohlich 2004) and a dry lane 0.15–0.32 (the same; USBC limit 0.32)', () => {
     for (const coverType of ['reactive-pearl', 'reactive-hybrid', 'reactive-solid'] as CoverType[]) {
       const c = coverFriction({ coverType, surfaceGrit: 2000, polished: false });
       expect(muAt(c, 10)).toBeGreaterThanOrEqual(0.01);
@@ -17,7 +17,7 @@ describe('simulateShot — friction magnitudes (PHYSICS.md §2.1, §2.5, §5.1)'
     }
   });
 
-  it('μ, every cover and surface from 360 grit to polished 4000: never above the USBC 0.32 limit (PHYSICS.md §2.5) and never below the oiled value', () => {
+  it('μ, every cover and surface from 360 grit to polished 4000: never above the USBC 0.32 limit (USBC equipment specifications) and never below the oiled value', () => {
     for (const coverType of COVERS) {
       for (const surfaceGrit of [360, 500, 1000, 2000, 4000]) {
         for (const polished of [false, true]) {
@@ -30,20 +30,20 @@ describe('simulateShot — friction magnitudes (PHYSICS.md §2.1, §2.5, §5.1)'
   });
 });
 
-describe('simulateShot — magnitudes against the trade (PHYSICS.md §6, TRADE.md §6.2, §7.3)', () => {
+describe('simulateShot — magnitudes against the trade (common practice; textbook mechanics)', () => {
   const bowlers = [
     ['17.5 mph / 320 rpm stroker', strokerBowler()],
     ['20 mph / 350 rpm', strokerBowler({ speedMph: 20, revRpm: 350 })],
     ['18.5 mph / 450 rpm', strokerBowler({ speedMph: 18.5, revRpm: 450, axisRotationDeg: 55, axisTiltDeg: 15 })],
   ] as const;
   for (const [name, bowler] of bowlers) {
-    it(`s and mph, ${name} on the pocket line of a flat 42 ft pattern: 2–3.5 mph (3.6 above 19 mph) slower at the pins and a time between 40.91/v and 40.91/(v − 3.5) s (PHYSICS.md §6, D; 2.2–3.0 s for 17–19 mph)`, () => {
+    it(`s and mph, ${name} on the pocket line of a flat 42 ft pattern: 2–3.5 mph (3.6 above 19 mph) slower at the pins and a time between 40.91/v and 40.91/(v − 3.5) s (common practice; derived: 2.2–3.0 s for 17–19 mph)`, () => {
       const p = simulateShot({ ball: strongBall(), bowler, pattern: flatPattern() });
       expect(p.timeToPinsS).toBeGreaterThanOrEqual(40.91 / bowler.speedMph);
       expect(p.timeToPinsS).toBeLessThanOrEqual(40.91 / (bowler.speedMph - 3.5));
       if (bowler.speedMph <= 19) { expect(p.timeToPinsS).toBeGreaterThanOrEqual(2.2); expect(p.timeToPinsS).toBeLessThanOrEqual(3.0); }
       expect(bowler.speedMph - p.speedAtPinsMph).toBeGreaterThanOrEqual(2);
-      // "about 2–3.5 mph" (PHYSICS.md §6, D); the loss grows with release speed (more slip to spin up): 3.53 at 20 mph
+      // "about 2–3.5 mph" (common practice; derived); the loss grows with release speed (more slip to spin up): 3.53 at 20 mph
       expect(bowler.speedMph - p.speedAtPinsMph).toBeLessThanOrEqual(bowler.speedMph <= 19 ? 3.5 : 3.6);
       // consistency: 60 ft at the mean of release and pin speed (D, within 10 %)
       const tMean = 60 / (((bowler.speedMph + p.speedAtPinsMph) / 2) * 1.46667);
@@ -51,7 +51,7 @@ describe('simulateShot — magnitudes against the trade (PHYSICS.md §6, TRADE.m
     });
   }
 
-  it('degrees, pocket lines on flat and house patterns for 320–450 rpm: entry angle 3–7° for 320 rpm, 3–8° for 450 rpm (PHYSICS.md §6 / TRADE.md §7.3 typical 3–7°, S/C), more for more revs', () => {
+  it('degrees, pocket lines on flat and house patterns for 320–450 rpm: entry angle 3–7° for 320 rpm, 3–8° for 450 rpm (common practice: typical 3–7°, S/C), more for more revs', () => {
     const angles: number[] = [];
     for (const pattern of [flatPattern(), housePattern()]) {
       const a = simulateShot({ ball: strongBall(), bowler: strokerBowler(), pattern }).entryAngleDeg;
@@ -64,7 +64,7 @@ describe('simulateShot — magnitudes against the trade (PHYSICS.md §6, TRADE.m
   });
 });
 
-describe('simulateShot — pocket solver (TRADE.md §2.2: board 17.5)', () => {
+describe('simulateShot — pocket solver (USBC pin-carry research, reported second-hand: board 17.5)', () => {
   const cases = [
     ['strong solid, stroker, flat', { ball: strongBall(), bowler: strokerBowler(), pattern: flatPattern() }],
     ['strong solid, stroker, house', { ball: strongBall(), bowler: strokerBowler(), pattern: housePattern() }],
@@ -93,7 +93,7 @@ describe('simulateShot — pocket solver (TRADE.md §2.2: board 17.5)', () => {
   });
 });
 
-describe('simulateShot — frictionOverride (uniform μ, PHYSICS.md §3.2 / TRADE.md §6.2)', () => {
+describe('simulateShot — frictionOverride (uniform μ: the sliding sphere)', () => {
   it('m, no revs, μ = 0.2 everywhere: rolls after (v0² − vf²)/(2μg) with vf = v0·R²/(R²+k²) within 5 mm, straight down board 20', () => {
     const ball = strongBall({ rg: 2.55, differential: 0, intermediateDifferential: 0, diameterIn: 8.5 });
     const p = simulateShot({ ball, bowler: strokerBowler({ revRpm: 0 }), pattern: flatPattern(), laydownBoard: 20, targetBoard: 20, frictionOverride: 0.2 });
@@ -126,7 +126,7 @@ describe('simulateShot — path and symmetry', () => {
     expect(Math.abs(p.path[p.path.length - 1].board - 0.5)).toBeLessThan(1e-6);
   });
 
-  it('boards, asymmetric house pattern, strong asymmetric ball: a left-hander on the mirrored pattern gets the right-hander\'s path to 1e-9 boards (PHYSICS.md §3.6)', () => {
+  it('boards, asymmetric house pattern, strong asymmetric ball: a left-hander on the mirrored pattern gets the right-hander\'s path to 1e-9 boards (mirror symmetry)', () => {
     const lopsided = { name: 'Test Lopsided', sweeps: [...housePattern().sweeps, { direction: 'forward' as const, fromBoard: 24, toBoard: 36, startFt: 0, endFt: 30, crossings: 3, microlitersPerBoard: 60 }] };
     const r = simulateShot({ ball: strongBall(), bowler: strokerBowler(), pattern: lopsided, laydownBoard: 18, targetBoard: 9, gamesBowled: 2 });
     const l = simulateShot({ ball: strongBall(), bowler: strokerBowler({ hand: 'left' }), pattern: mirroredPattern(lopsided), laydownBoard: 18, targetBoard: 9, gamesBowled: 2 });

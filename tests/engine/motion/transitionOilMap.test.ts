@@ -2,12 +2,12 @@ import { describe, expect, it } from 'vitest';
 import { conditionOilMap, oilVolumeUl, patternOilMap, transitionOilMap } from '../../../engine/index';
 import { housePattern, strokerBowler } from './fixtures';
 
-// PHYSICS.md §5.4 tests: total oil conserved; repeated shots on a line widen a depleted track and build
+// Transition model tests: total oil conserved; repeated shots on a line widen a depleted track and build
 // oil beyond the pattern (carrydown). The amounts are documented assumptions (MOTION_CALIBRATION).
 const track = [{ ft: 0, board: 15 }, { ft: 40, board: 8 }, { ft: 60, board: 17.5 }];
 const at = (m: ReturnType<typeof patternOilMap>, board: number, ft: number) => m.filmUm[Math.round(ft / m.ftStep) * m.cols + board];
 
-describe('transitionOilMap (PHYSICS.md §5.4)', () => {
+describe('transitionOilMap (the transition model)', () => {
   it('µL, 3 games on a house pattern: lane before = lane after + oil kept on the balls, to 1e-9 relative', () => {
     const fresh = patternOilMap(housePattern());
     const t = transitionOilMap(fresh, track, 3);

@@ -3,8 +3,8 @@ import { describe, expect, it } from 'vitest';
 import { buildGame, checkDelivery, isSplit, scoreGame, scorePartialGame, type LoggedDelivery } from '../../../engine/index';
 import { gameArb } from './gameGen';
 
-// Check values: scoring per USBC / World Bowling as recorded in ../shared/TRADE.md 3.1 (status P),
-// splits per TRADE.md 3.2 (isSplit), fouls per TRADE.md 3.3 (S: "delivery counts; no pins credited",
+// Check values: scoring per the USBC and World Bowling playing rules (status P),
+// splits per the USBC playing rules on splits (isSplit), fouls per the USBC playing rules on fouls (S: "delivery counts; no pins credited",
 // "foul on first ball: pins respotted; all ten on the second ball = spare", "foul on second ball:
 // only the first-ball pins count", "both balls fouled: frame scores 0").
 
@@ -13,9 +13,9 @@ const d = (frame: number, delivery: number, standing: number[], foul?: boolean):
 const X = (frame: number, delivery = 1): LoggedDelivery => d(frame, delivery, []);
 
 /**
- * The World Bowling worked score sheet of TRADE.md 3.1 (P): X X X 7 2 (8)/ F9 X 7/ 9- X X 8 →
+ * The World Bowling worked score sheet of the USBC and World Bowling playing rules (P): X X X 7 2 (8)/ F9 X 7/ 9- X X 8 →
  * 30 57 76 85 95 104 124 143 152 180. The circled 8 is a split (we leave the 3-10 baby split,
- * TRADE.md 3.2 common split names) converted; F9 is a foul then 9 at the re-spotted rack.
+ * the USBC playing rules on splits common split names) converted; F9 is a foul then 9 at the re-spotted rack.
  */
 const wbSheet: LoggedDelivery[] = [
   X(1), X(2), X(3),
@@ -38,7 +38,7 @@ describe('buildGame: worked examples', () => {
     expect(g.rolls).toEqual([10, 10, 10, 7, 2, 8, 2, 0, 9, 10, 7, 3, 9, 0, 10, 10, 8]);
     const symbols = g.frames.map((f) => f.deliveries.map((v) => v.symbol).join(''));
     expect(symbols).toEqual(['X', 'X', 'X', '72', '8/', 'F9', 'X', '7/', '9-', 'XX8']);
-    // the 3-10 after the first ball of frame 5 is a split (TRADE.md 3.2 "baby split"); nothing else is
+    // the 3-10 after the first ball of frame 5 is a split (the USBC playing rules on splits "baby split"); nothing else is
     expect(g.frames.flatMap((f) => f.deliveries.filter((v) => v.split).map((v) => `${v.frame}.${v.delivery}`))).toEqual(['5.1']);
     // the foul re-spots the rack: the second ball of frame 6 has all ten pins before it
     expect(g.frames[5].deliveries[0]).toMatchObject({ pins: 0, foul: true, standing: [1, 2, 3, 4, 5, 6, 7, 8, 9, 10] });
@@ -46,14 +46,14 @@ describe('buildGame: worked examples', () => {
     expect(g.frames.every((f) => f.complete)).toBe(true);
   });
 
-  it('twelve strikes are 300 (TRADE.md 3.1 maximum game) and the tenth frame rack is re-set after each strike', () => {
+  it('twelve strikes are 300 (the USBC and World Bowling playing rules maximum game) and the tenth frame rack is re-set after each strike', () => {
     const g = buildGame([...Array.from({ length: 9 }, (_, i) => X(i + 1)), X(10, 1), X(10, 2), X(10, 3)]);
     expect(g.total).toBe(300);
     expect(g.frames[9].deliveries.map((v) => v.symbol)).toEqual(['X', 'X', 'X']);
     expect(g.frames[9].deliveries.map((v) => v.pinsBefore.length)).toEqual([10, 10, 10]);
   });
 
-  it('a foul on the first ball then all ten is a spare; two fouls score 0 (TRADE.md 3.3)', () => {
+  it('a foul on the first ball then all ten is a spare; two fouls score 0 (the USBC playing rules on fouls)', () => {
     const g = buildGame([d(1, 1, [], true), d(1, 2, []), d(2, 1, [5], true), d(2, 2, [3], true), d(3, 1, [1, 2])]);
     expect(g.frames[0].deliveries.map((v) => v.symbol)).toEqual(['F', '/']);
     expect(g.frames[0].runningTotal).toBe(10); // 10 + the next delivery (0, a foul)
@@ -62,11 +62,11 @@ describe('buildGame: worked examples', () => {
     expect(g.next).toEqual({ frame: 3, delivery: 2, pinsBefore: [1, 2] });
   });
 
-  it('a foul on the second ball keeps only the first ball pins (TRADE.md 3.3)', () => {
+  it('a foul on the second ball keeps only the first ball pins (the USBC playing rules on fouls)', () => {
     const g = buildGame([d(1, 1, [7, 10]), d(1, 2, [], true)]);
     expect(g.frames[0].deliveries[1]).toMatchObject({ symbol: 'F', pins: 0, standing: [7, 10] });
     expect(g.frames[0].runningTotal).toBe(8);
-    expect(g.frames[0].deliveries[0].split).toBe(true); // 7-10 (TRADE.md 3.2)
+    expect(g.frames[0].deliveries[0].split).toBe(true); // 7-10 (the USBC playing rules on splits)
   });
 
   it('a game in progress: a strike waiting for its bonus has no total yet; next is the expected delivery', () => {

@@ -1,5 +1,5 @@
 // Test helper (not a test file): games generated from random choices of the pins left standing,
-// walked through the frame rules of TRADE.md 3.1 and the foul rule of TRADE.md 3.3 independently of
+// walked through the frame rules of the USBC and World Bowling playing rules and the foul rule of the USBC playing rules on fouls independently of
 // the engine, with the pins credited by each delivery (the input of scoreGame).
 import fc from 'fast-check';
 import type { LoggedDelivery } from '../../../engine/index';
@@ -35,7 +35,7 @@ export function makeGame(choices: Choice[]): Generated {
     out.deliveries.push(c.foul ? { frame, delivery, standing, foul: true } : { frame, delivery, standing });
     out.rolls.push(c.foul ? 0 : rack.length - standing.length);
     out.before.push(rack);
-    const after = c.foul ? rack : standing; // a foul re-spots the rack (TRADE.md 3.3)
+    const after = c.foul ? rack : standing; // a foul re-spots the rack (the USBC playing rules on fouls)
     return { after, cleared: !c.foul && standing.length === 0 };
   };
   for (let frame = 1; frame <= 9; frame++) {

@@ -3,9 +3,9 @@ import { describe, expect, it } from 'vitest';
 import { buildGame, scoreGame, shotStats, statsBy, wilsonInterval, type HitKind, type ShotRecord } from '../../../engine/index';
 import { gameArb } from './gameGen';
 
-// Check values: the World Bowling worked sheet of ../shared/TRADE.md 3.1 (P) —
+// Check values: the World Bowling worked sheet of the USBC and World Bowling playing rules (P) —
 // X X X 7 2 (8)/ F9 X 7/ 9- X X 8 = 180 — logged with leaves chosen by us (the circled 8 leaves the
-// 3-10 "baby split", TRADE.md 3.2), counted by hand under shotStats' documented definitions.
+// 3-10 "baby split", the USBC playing rules on splits), counted by hand under shotStats' documented definitions.
 // Wilson intervals: Wilson (1927, JASA 22: 209–212), worked by hand below.
 
 type Row = [frame: number, delivery: number, standing: number[], extra?: { foul?: boolean; hit?: HitKind }];
@@ -30,7 +30,7 @@ function shots(rows: Row[], over: Partial<ShotRecord> = {}, ball: (r: Row) => st
 describe('shotStats on the World Bowling worked sheet', () => {
   const s = shotStats(shots(sheet));
 
-  it('counts shots, games and the average of the complete game (180, TRADE.md 3.1)', () => {
+  it('counts shots, games and the average of the complete game (180, the USBC and World Bowling playing rules)', () => {
     expect(s.shots).toBe(17);
     expect(s.games).toBe(1);
     expect(s.average).toBe(180);

@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { suggestMoves, type HitKind, type ShotRecord } from '../../../engine/index';
 
-// Check values: the 2-and-1 adjustment (../shared/TRADE.md 7.1, C): feet 2 boards and target 1 board
+// Check values: the 2-and-1 adjustment (common practice, C): feet 2 boards and target 1 board
 // the same way; "move in the direction of the miss" (common practice): a right-hander hitting high
-// moves left, light moves right; a left-hander the mirror. 3-6-9 for spares (TRADE.md 7.1, C).
+// moves left, light moves right; a left-hander the mirror. 3-6-9 for spares (common practice, C).
 // Thresholds are suggestMoves' own (MOVE_THRESHOLDS).
 
 interface F { hit?: HitKind | null; feet?: number | null; target?: number | null; bp?: number | null; ball?: string; leave?: number[]; spare?: number[]; session?: string }
@@ -27,7 +27,7 @@ describe('suggestMoves: 2-and-1', () => {
     expect(moves[0]).toMatchObject({ kind: 'two-and-one', feet: { direction: 'left', boards: 2 }, target: { direction: 'left', boards: 1 } });
     expect(moves[0].evidence).toBe('the last 4 first balls with a recorded hit on this line were high.');
     expect(moves[0].detail).toMatch(/from board 20 to 22 with the feet and from 10 to 11 at the arrows/);
-    expect(moves[0].source).toMatch(/TRADE.md 7.1/);
+    expect(moves[0].source).toMatch(/common practice/);
   });
 
   it('left-hander high: the mirror, to the right (own boards still 20 → 22)', () => {
