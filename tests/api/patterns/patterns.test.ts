@@ -9,7 +9,8 @@ describe('GET /api/patterns', () => {
     const me = await createUser();
     const long = await createPattern(null, LONG_HEAVY);
     const short = await createPattern(null, SHORT_LIGHT);
-    const res = await api.get('/api/patterns').query({ lengthClass: 'long', pageSize: 100 }).set(me.auth);
+    // Newest first: the shared test database holds patterns of every earlier test file, more than one page of long ones.
+    const res = await api.get('/api/patterns').query({ lengthClass: 'long', pageSize: 100, sort: 'createdAt', order: 'desc' }).set(me.auth);
     expect(res.status).toBe(200);
     const ids = res.body.items.map((p: { id: number }) => p.id);
     expect(ids).toContain(long.id);
