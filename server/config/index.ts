@@ -80,7 +80,7 @@ const ConfigSchema = z
     JOBS_MAINTENANCE_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
     /** Seconds before a running job whose worker died is retried (default per queue: mail 60, refunds 120, calibration 300). */
     JOBS_EXPIRE_SECONDS: z.preprocess(blankToUndefined, z.coerce.number().int().min(1).max(86400).optional()),
-    /** Prometheus metrics at /api/metrics for `Authorization: Bearer <METRICS_TOKEN>` (unset: 404). */
+    /** Prometheus metrics at /api/health/metrics for `Authorization: Bearer <METRICS_TOKEN>` (unset: 404). */
     METRICS_TOKEN: z.preprocess(blankToUndefined, z.string().min(24, 'METRICS_TOKEN must be at least 24 characters').optional()),
     /** Prometheus metrics at /metrics on their own listener (METRICS_HOST, loopback by default), no token; unset: none. */
     METRICS_PORT: z.preprocess(blankToUndefined, z.coerce.number().int().min(0).max(65535).optional()),

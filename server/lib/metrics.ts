@@ -4,7 +4,7 @@ import { jobEvents, queueDepths, type QueueName } from './jobs';
 
 /**
  * Prometheus metrics (prom-client): request durations by route, job-queue depth, job durations and failures,
- * ranking and calibration-fit times, and Node's default process metrics. Served at /api/metrics behind
+ * ranking and calibration-fit times, and Node's default process metrics. Served at /api/health/metrics behind
  * METRICS_TOKEN, and/or on their own loopback listener (METRICS_PORT); see server/features/health.
  */
 export const registry = new client.Registry();

@@ -10,6 +10,9 @@ process.env.NODE_ENV = 'test';
 process.env.STRIPE_SECRET_KEY = '';
 process.env.STRIPE_WEBHOOK_SECRET = '';
 process.env.STRIPE_API_URL = '';
+// No metrics endpoint unless a test file configures one (tests/api/platform/metrics.test.ts).
+process.env.METRICS_TOKEN = '';
+process.env.METRICS_PORT = '';
 process.env.RATE_LIMIT_AUTH ??= '40';
 process.env.UPLOAD_DIR ??= path.join(os.tmpdir(), `lanewright-test-uploads-${process.pid}`);
 // The tests play a load balancer on loopback: each test names its client address in X-Forwarded-For

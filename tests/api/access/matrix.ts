@@ -51,7 +51,7 @@ export const MATRIX: Record<string, MatrixEntry> = {
   'GET /api/health/metrics': {
     req: () => ({ url: '/api/health/metrics' }),
     expect: all(404),
-    note: 'exists only with METRICS_TOKEN (then for that bearer token alone, tests/api/platform/productionService); the tests configure none',
+    note: 'exists only with METRICS_TOKEN, then for that bearer token alone (tests/api/platform/metrics.test.ts); the shared test server configures none',
   },
   'GET /api/docs': { req: () => ({ url: '/api/docs' }), expect: all(200) },
   'GET /api/docs/openapi.json': { req: () => ({ url: '/api/docs/openapi.json' }), expect: all(200) },
