@@ -49,10 +49,6 @@ export function signToken(user: { id: number; tokenVersion: number }): string {
  * a password reset or a deletion takes effect at once in every process. The same query reads the user's last
  * write (user_write_marks), which decides whether this request's reads may go to a replica.
  */
-export function forgetAuthUser(_id: number): void {
-  // Kept for callers written when a per-process cache existed; there is nothing to forget now.
-}
-
 interface AuthRow {
   id: number;
   email: string;
