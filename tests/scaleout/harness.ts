@@ -15,12 +15,14 @@ import { root } from '../helpers/database';
  */
 export interface Deployment {
   primaryUrl: string;
-  standbyUrl: string;
+  /** The hot standby's URL, or null for a deployment on the primary alone. */
+  standbyUrl: string | null;
   env: Record<string, string>;
   smtp: { messages: { to: string; messageId: string; subject: string }[] };
   fake: StripeFake;
   apis: Proc[];
-  worker: Proc;
+  /** The job worker process, or null when the API processes work the queue themselves. */
+  worker: Proc | null;
   startApi(): Promise<Proc>;
   startWorker(): Promise<Proc>;
   primary<T extends pg.QueryResultRow>(sql: string, params?: unknown[]): Promise<T[]>;
@@ -84,7 +86,14 @@ function startProc(file: 'index' | 'worker', env: Record<string, string>, ready:
   });
 }
 
-export async function deploy(opts: { apis: number; extraEnv?: Record<string, string> }): Promise<Deployment> {
+/**
+ * Starts a deployment: `apis` API processes, and by default a separate job worker (`worker: false`: the API
+ * processes work the queue, as a single `npm start` process does) and a hot standby for reads (`standby: false`:
+ * everything on the primary).
+ */
+export async function deploy(opts: { apis: number; worker?: boolean; standby?: boolean; extraEnv?: Record<string, string> }): Promise<Deployment> {
+  const withWorker = opts.worker ?? true;
+  const withStandby = opts.standby ?? true;
   buildServer();
   const dir = makeTempClusterDir('lanewright-scaleout-');
   const primaryPort = await freePort();
@@ -131,7 +140,7 @@ export async function deploy(opts: { apis: number; extraEnv?: Record<string, str
     STRIPE_WEBHOOK_SECRET: webhookSecret,
     STRIPE_API_URL: fake.url,
     TRUST_PROXY: 'loopback',
-    JOBS_IN_PROCESS: 'false',
+    JOBS_IN_PROCESS: withWorker ? 'false' : 'true',
     JOBS_EXPIRE_SECONDS: '5',
     JOBS_MAINTENANCE_SECONDS: '2',
     JOBS_POLL_SECONDS: '0.5',
@@ -141,8 +150,8 @@ export async function deploy(opts: { apis: number; extraEnv?: Record<string, str
   // Migrations as their own step, from the build, with the production configuration; then the standby copies the result.
   const migrate = spawnSync(process.execPath, [path.join(root, 'dist', 'server', 'migrate.js'), 'up'], { cwd: root, env: { ...process.env, ...env, DATABASE_REPLICA_URLS: '' }, encoding: 'utf8' });
   if (migrate.status !== 0) throw new Error(`migrate failed:\n${migrate.stdout}\n${migrate.stderr}`);
-  const standbyUrl = await startStandby({ dataDir: `${dir}/standby`, primaryPort, port: standbyPort, database: 'lw_scale', extraOptions: stats });
-  env.DATABASE_REPLICA_URLS = standbyUrl;
+  const standbyUrl = withStandby ? await startStandby({ dataDir: `${dir}/standby`, primaryPort, port: standbyPort, database: 'lw_scale', extraOptions: stats }) : null;
+  if (standbyUrl) env.DATABASE_REPLICA_URLS = standbyUrl;
   const d: Deployment = {
     primaryUrl,
     standbyUrl,
@@ -150,22 +159,25 @@ export async function deploy(opts: { apis: number; extraEnv?: Record<string, str
     smtp: { messages },
     fake,
     apis: [],
-    worker: null as unknown as Proc,
+    worker: null,
     startApi: () => startProc('index', env, 'listening'),
     startWorker: () => startProc('worker', env, 'worker-ready'),
     primary: (sql, params) => query(primaryUrl, sql, params),
-    standby: (sql, params) => query(standbyUrl, sql, params),
+    standby: (sql, params) => {
+      if (!standbyUrl) throw new Error('this deployment has no standby');
+      return query(standbyUrl, sql, params);
+    },
     async stop() {
       await Promise.allSettled([...d.apis.map((a) => a.kill()), d.worker?.kill()]);
       await fake.close().catch(() => undefined);
       await new Promise<void>((r) => smtpServer.close(() => r()));
-      stopCluster(`${dir}/standby`);
+      if (standbyUrl) stopCluster(`${dir}/standby`);
       stopCluster(`${dir}/primary`);
       fs.rmSync(dir, { recursive: true, force: true });
     },
   };
   for (let i = 0; i < opts.apis; i++) d.apis.push(await d.startApi());
-  d.worker = await d.startWorker();
+  if (withWorker) d.worker = await d.startWorker();
   // Webhooks go to the last API process (the one a test keeps alive).
   fake.setWebhookUrl(`${d.apis[d.apis.length - 1].base}/api/payments/webhook`);
   return d;

@@ -41,8 +41,9 @@ describe('league night on two API processes, a worker and a hot standby', () => 
       midRun: async () => {
         // A crash, not a stop: no chance to finish requests or jobs.
         const api = d.apis[0];
-        await Promise.all([api.kill('SIGKILL'), d.worker.kill('SIGKILL')]);
-        killed.push(`api pid ${api.child.pid}`, `worker pid ${d.worker.child.pid}`);
+        const worker = d.worker!;
+        await Promise.all([api.kill('SIGKILL'), worker.kill('SIGKILL')]);
+        killed.push(`api pid ${api.child.pid}`, `worker pid ${worker.child.pid}`);
         d.apis.splice(0, 1);
         await new Promise((r) => setTimeout(r, 1500));
         d.worker = await d.startWorker();
