@@ -108,6 +108,9 @@ const ConfigSchema = z
     }
   });
 
+/** Every environment variable the configuration reads (README's Configuration table lists each). */
+export const CONFIG_VARIABLES: readonly string[] = Object.keys(ConfigSchema.shape);
+
 type Parsed = z.infer<typeof ConfigSchema>;
 
 export type Config = Omit<Parsed, 'LOG_LEVEL' | 'JWT_SECRET' | 'TRUST_PROXY'> & {
