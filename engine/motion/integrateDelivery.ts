@@ -3,13 +3,14 @@ import type { FrictionField } from './frictionField';
 import { assertNumber } from './assertNumber';
 import { MOTION_CALIBRATION as K } from './motionCalibration';
 import { PHYSICAL_CONSTANTS as C } from './physicalConstants';
+import { motionSteps } from './motionSteps';
 import { STATE } from './releaseState';
 
 /** Options of one integration. */
 export interface IntegrateOptions {
   /** 1 = right-hander, −1 = left-hander: only changes how boards and angles are reported (hand side). */
   hand?: 1 | -1;
-  /** RK4 step near rolling, s (default MOTION_CALIBRATION.stepS). */
+  /** RK4 step near rolling, s (default MOTION_CALIBRATION.stepS, or withMotionSteps'). */
   stepS?: number;
   /** Longest RK4 step while the ball slides fast, s (default MOTION_CALIBRATION.maxStepS, or stepS when stepS is given; ≥ stepS). */
   maxStepS?: number;
@@ -145,7 +146,8 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
   if (!(state0 instanceof Float64Array) || state0.length !== STATE.length) throw new TypeError(`${fn}: state must be a Float64Array of length ${STATE.length}`);
   for (let i = 0; i < STATE.length; i++) if (!Number.isFinite(state0[i])) throw new TypeError(`${fn}: state[${i}] is not finite: ${state0[i]}`);
   const eps = assertNumber(fn, 'slipEpsMs', options.slipEpsMs ?? K.slipEpsMs, 1e-6, 1);
-  let h = assertNumber(fn, 'stepS', options.stepS ?? K.stepS, 1e-5, 0.02);
+  const defaults = motionSteps();
+  let h = assertNumber(fn, 'stepS', options.stepS ?? defaults.stepS, 1e-5, 0.02);
   {
     // keep λh ≤ 2 (explicit RK4 is stable for λh ≲ 2.8), λ = μ_max g (1 + R²/k_min²)/ε
     const kMin2 = Math.min(inertia.iLow, inertia.iHigh, inertia.iInt) / inertia.massKg;
@@ -153,7 +155,7 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
     if (lambda * h > 2) h = 2 / lambda;
   }
   // a caller that fixes stepS without maxStepS gets a fixed step (accuracy studies, closed-form checks)
-  const hMax = Math.max(h, assertNumber(fn, 'maxStepS', options.maxStepS ?? (options.stepS !== undefined ? h : K.maxStepS), 1e-5, 0.05));
+  const hMax = Math.max(h, assertNumber(fn, 'maxStepS', options.maxStepS ?? (options.stepS !== undefined ? h : defaults.maxStepS), 1e-5, 0.05));
   // While the slip speed u is large the friction direction barely turns in a step: the local stiffness is
   // μg(1+R²/k²)/u rather than /ε, so the step can grow with u (up to hMax) at the same stability margin.
   const kMin2s = Math.min(inertia.iLow, inertia.iHigh, inertia.iInt) / inertia.massKg;
