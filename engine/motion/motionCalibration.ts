@@ -172,6 +172,8 @@ export const MOTION_CALIBRATION = Object.freeze({
    * thrown across the lane from deep inside).
    */
   straightenBelowBoards: 1.5,
+  /** A floor is flat where neighbouring lines' entries lie within this many boards of the lowest (the solver then plays its middle). */
+  floorFlatBoards: 0.5,
   /** A hold area: neighbouring parallel lines whose entries differ by at most this many boards per board of shift (a flat pattern: about 1). */
   holdSlope: 0.5,
   /** Solver tolerance on the entry board. */

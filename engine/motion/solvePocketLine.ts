@@ -143,10 +143,18 @@ function searchLine<T extends LineTrial>(
     for (let t = Math.max(lo, from); t <= Math.min(hi, to) + 1e-9; t += step) out.push(sample(d, t));
     return out;
   };
-  /** The lowest entry of a scan, refined by one parabola through it and its neighbours. */
+  /**
+   * The lowest entry of a scan, refined by one parabola through it and its neighbours; on a flat floor (neighbours
+   * within floorFlatBoards of the lowest) the middle of the flat stretch — the most forgiving line, and one that
+   * does not jump across the floor with a tenth of a board of difference.
+   */
   const floorOf = (d: number, pts: Sample[]): Sample => {
     let i = 0;
     for (let j = 1; j < pts.length; j++) if (pts[j].e < pts[i].e) i = j;
+    let a = i, b = i;
+    while (a > 0 && ok(pts[a - 1].r) && pts[a - 1].e <= pts[i].e + K.floorFlatBoards) a--;
+    while (b < pts.length - 1 && ok(pts[b + 1].r) && pts[b + 1].e <= pts[i].e + K.floorFlatBoards) b++;
+    if (b - a >= 2) return pts[Math.round((a + b) / 2)];
     if (i === 0 || i === pts.length - 1) return pts[i];
     const [p0, p1, p2] = [pts[i - 1], pts[i], pts[i + 1]];
     const den = (p1.t - p0.t) * (p1.e - p2.e) - (p1.t - p2.t) * (p1.e - p0.e);
