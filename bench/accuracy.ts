@@ -30,14 +30,16 @@ interface Case { label: string; balls: ArsenalBall[]; bowler: BowlerProfile; pat
 function cases(): Case[] {
   const out: Case[] = [];
   for (const [email, arsenal] of Object.entries(DEMO_ARSENALS)) {
-    const bowler = DEMO_USERS.find((u) => u.email === email)?.profile;
-    if (!bowler) continue;
+    const profile = DEMO_USERS.find((u) => u.email === email)?.profile;
+    if (!profile) continue;
+    const bowler: BowlerProfile = { hand: profile.hand, speedMph: profile.speedMph, revRpm: profile.revRpm, axisRotationDeg: profile.axisRotationDeg, axisTiltDeg: profile.axisTiltDeg };
     const balls: ArsenalBall[] = arsenal.map((d, i) => {
       const m = DEMO_CATALOGUE.find((x) => x.name === d.model);
       if (!m) throw new Error(`accuracy: no catalogue ball ${d.model}`);
       return {
         id: `${i + 1}`, weightLb: d.weightLb, rg: m.rg, differential: m.differential, intermediateDifferential: m.intermediateDifferential,
-        coverType: m.coverType, surfaceGrit: d.surfaceGrit ?? m.factoryGrit, polished: d.polished ?? m.factoryPolished, layout: d.layout,
+        coverType: m.coverType, surfaceGrit: d.surfaceGrit ?? m.factoryGrit, polished: d.polished ?? m.factoryPolished,
+        layout: { pinToPapIn: d.layout.pinToPapIn, ...(d.layout.drillingAngleDeg != null ? { drillingAngleDeg: d.layout.drillingAngleDeg } : {}), ...(d.layout.valAngleDeg != null ? { valAngleDeg: d.layout.valAngleDeg } : {}) },
       };
     });
     for (const pattern of DEMO_PATTERNS) for (const gamesBowled of [0, 6]) out.push({ label: `${email.split('@')[0]} · ${pattern.name} · ${gamesBowled} games`, balls, bowler, pattern, gamesBowled });

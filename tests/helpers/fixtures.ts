@@ -28,7 +28,7 @@ export async function createBall(ownerId: number, spec: Omit<BallModelInput, 'ma
   const m = await createModel(spec);
   const ball = await Ball.create({
     ownerId, ballModelId: m.id, name: m.name, maker: m.maker, nickname: null, weightLb: 15, rg: m.rg, differential: m.differential, intermediateDifferential: m.intermediateDifferential,
-    coverType: m.coverType, coreType: m.coreType, hardnessD: m.hardnessD, surfaceGrit: over.surfaceGrit ?? m.factoryGrit, polished: over.polished ?? m.factoryPolished,
+    coverType: m.coverType, coreType: m.coreType, hardnessD: m.hardnessD, approvalYear: m.releaseYear, surfaceGrit: over.surfaceGrit ?? m.factoryGrit, polished: over.polished ?? m.factoryPolished,
     layout: { pinToPapIn: 4.5, drillingAngleDeg: 45 }, gamesSinceResurface: 10, status: over.status ?? 'active',
   });
   await SurfaceEvent.create({ ballId: ball.id, fromGrit: null, fromPolished: null, toGrit: ball.surfaceGrit, toPolished: ball.polished, at: new Date(), byUserId: ownerId, note: null });

@@ -3,13 +3,16 @@ import { LRUCache } from 'lru-cache';
 import { Op } from 'sequelize';
 import { fitCalibration, shotStats, statsBy, suggestMoves } from '../../../engine/index';
 import type { Calibration, CalibrationObservation, ShotRecord } from '../../../engine/shotlog/types';
-import type { BowlerProfile, OilPattern } from '../../../engine/types';
+import type { BallSpec, BowlerProfile, LaneSurface, OilPattern } from '../../../engine/types';
 import { ballToSpec } from '../../../shared/balls';
-import type { StatsQuery, StatsResult } from '../../../shared/sessions';
+import { DEFAULT_LANE_SURFACE } from '../../../shared/centers';
+import type { PatternSummary } from '../../../shared/patterns';
+import type { CalibrationQuery, StatsQuery, StatsResult } from '../../../shared/sessions';
 import type { AuthUser } from '../../middleware/auth';
 import { AppError } from '../../lib/AppError';
 import { calibrateInWorker } from '../../lib/enginePool';
 import { Ball } from '../../models/index';
+import { centersRepository, laneOf } from '../centers/centers.repository';
 import { readableBowlerId } from '../coaching/coaching.access';
 import { patternsService } from '../patterns/patterns.service';
 import { profileService } from '../profile/profile.service';
@@ -44,9 +47,20 @@ export async function bowlerOf(userId: number): Promise<BowlerProfile> {
 export const CALIBRATION_SHOTS_PER_BALL = 30;
 
 /**
+ * A ball as it was when a shot was thrown: its surface then; its wear (games since the last resurface) is today's
+ * when the shot was thrown on today's surface (the closest record kept: the shots are recent and the cover has
+ * worn at most that much since), and left out (a fresh cover) for a shot on an earlier surface, whose wear was not
+ * recorded. The seeded demo shots are generated with the same spec, so the fit recovers their friction.
+ */
+export function specAsThrown(b: Ball, surfaceGrit: number, polished: boolean): BallSpec {
+  const sameSurface = surfaceGrit === b.surfaceGrit && polished === b.polished;
+  return ballToSpec({ ...b.get({ plain: true }), surfaceGrit, polished, gamesSinceResurface: sameSurface ? b.gamesSinceResurface : 0 });
+}
+
+/**
  * The logged first balls that say something about the ball's motion: thrown at a full rack from a known
  * feet board at a known target, with the breakpoint board or the pocket result recorded. The ball is taken
- * with the surface it had when the shot was thrown.
+ * as it was when the shot was thrown (specAsThrown).
  */
 export function observationsOf(rows: ShotRow[], balls: Map<number, Ball>): CalibrationObservation[] {
   const out: CalibrationObservation[] = [];
@@ -59,7 +73,7 @@ export function observationsOf(rows: ShotRow[], balls: Map<number, Ball>): Calib
     if (!b || (perBall.get(b.id) ?? 0) >= CALIBRATION_SHOTS_PER_BALL) continue;
     perBall.set(b.id, (perBall.get(b.id) ?? 0) + 1);
     out.push({
-      ball: { id: String(b.id), ...ballToSpec({ ...b.get({ plain: true }), surfaceGrit: r.surface_grit ?? b.surfaceGrit, polished: r.surface_polished ?? b.polished }) },
+      ball: { id: String(b.id), ...specAsThrown(b, r.surface_grit ?? b.surfaceGrit, r.surface_polished ?? b.polished) },
       laydownBoard: Math.max(1, r.feet_board - LAYDOWN_OFFSET_BOARDS),
       targetBoard: r.target_board,
       breakpointBoard: r.breakpoint_board,
@@ -75,7 +89,7 @@ const calibrationCache = new LRUCache<string, Calibration>({ max: 200 });
 /** Fits being computed, so simultaneous requests for the same input share one. */
 const inFlight = new Map<string, Promise<Calibration>>();
 
-export async function calibrate(input: { bowler: BowlerProfile; pattern: OilPattern; observations: CalibrationObservation[] }): Promise<Calibration> {
+export async function calibrate(input: { bowler: BowlerProfile; pattern: OilPattern; observations: CalibrationObservation[]; lane?: LaneSurface }): Promise<Calibration> {
   const key = createHash('sha256').update(JSON.stringify(input)).digest('base64url');
   const hit = calibrationCache.get(key);
   if (hit) return hit;
@@ -90,13 +104,51 @@ export async function calibrate(input: { bowler: BowlerProfile; pattern: OilPatt
   return result;
 }
 
-/** The bowler's calibration on a pattern from every logged shot on it. */
-export async function calibrationFor(bowlerId: number, patternId: number, known: { rows?: ShotRow[]; pattern?: OilPattern; bowler?: BowlerProfile } = {}): Promise<Calibration> {
+/**
+ * The bowler's calibration on a pattern from every logged shot on it, on a lane surface (default synthetic, medium
+ * friction): the model the fit adjusts is the one the matchup runs on those lanes.
+ */
+export async function calibrationFor(
+  bowlerId: number,
+  patternId: number,
+  known: { rows?: ShotRow[]; pattern?: OilPattern; bowler?: BowlerProfile; lane?: LaneSurface } = {},
+): Promise<Calibration> {
   const pattern = known.pattern ?? (await patternsService.engineInput(patternId)).pattern;
   const shots = known.rows ?? (await sessionsRepository.shotsForStats(bowlerId, { patternId }));
   const ids = [...new Set(shots.map((r) => r.ball_id))];
   const balls = new Map((ids.length ? await Ball.findAll({ where: { ownerId: bowlerId, id: { [Op.in]: ids } }, paranoid: false }) : []).map((b) => [b.id, b]));
-  return calibrate({ bowler: known.bowler ?? (await bowlerOf(bowlerId)), pattern, observations: observationsOf(shots, balls) });
+  const lane = known.lane ?? { ...DEFAULT_LANE_SURFACE };
+  return calibrate({ bowler: known.bowler ?? (await bowlerOf(bowlerId)), pattern, observations: observationsOf(shots, balls), lane: { kind: lane.kind, friction: lane.friction } });
+}
+
+/**
+ * What a matchup or a calibration is worked out on: a plain pattern on a lane surface, or a published condition
+ * (its pattern as published and its lane surface; the shots counted are those logged on the pattern it was
+ * published from, none when that pattern is gone). 404 for an unknown pattern or condition.
+ */
+export async function engineCondition(ref: { patternId?: number; conditionId?: number; lane?: LaneSurface }): Promise<{
+  patternId: number | null;
+  name: string;
+  pattern: OilPattern;
+  summary: PatternSummary;
+  lane: LaneSurface;
+  condition: { id: number; centerId: number; centerName: string; lanes: number[]; validFrom: string; validTo: string | null } | null;
+}> {
+  if (ref.conditionId !== undefined) {
+    const c = await centersRepository.findCondition(ref.conditionId);
+    if (!c) throw AppError.notFound('Condition');
+    return {
+      patternId: c.patternId,
+      name: c.patternName,
+      pattern: { name: c.patternName, sweeps: c.sweeps },
+      summary: c.summary,
+      lane: laneOf(c),
+      condition: { id: c.id, centerId: c.centerId, centerName: c.center.name, lanes: c.lanes, validFrom: c.validFrom, validTo: c.validTo },
+    };
+  }
+  const { id, name, pattern, summary } = await patternsService.engineInput(ref.patternId!);
+  const lane = ref.lane ?? DEFAULT_LANE_SURFACE;
+  return { patternId: id, name, pattern, summary, lane: { kind: lane.kind, friction: lane.friction }, condition: null };
 }
 
 export const statsService = {
@@ -110,9 +162,11 @@ export const statsService = {
     const { hand } = await bowlerOf(bowlerId);
     const calibrationPatternId = q.patternId ?? (await sessionsRepository.latestPatternId(bowlerId));
     let calibration: Calibration | null = null;
+    // The lanes the bowler last bowled this pattern on (a published condition's lane surface), as a matchup there would use.
+    const calibrationLane = calibrationPatternId === null ? null : ((await sessionsRepository.latestConditionLane(bowlerId, calibrationPatternId)) ?? { ...DEFAULT_LANE_SURFACE });
     if (calibrationPatternId !== null) {
       try {
-        calibration = await calibrationFor(bowlerId, calibrationPatternId, q.patternId && !q.from && !q.to && !q.ballId ? { rows } : {});
+        calibration = await calibrationFor(bowlerId, calibrationPatternId, { ...(q.patternId && !q.from && !q.to && !q.ballId ? { rows } : {}), lane: calibrationLane ?? undefined });
       } catch (err) {
         if (!(err instanceof AppError)) throw err; // an unknown pattern simply has no calibration
       }
@@ -128,11 +182,16 @@ export const statsService = {
       moves: suggestMoves({ shots: records, hand }),
       calibration,
       calibrationPatternId,
+      calibrationLane,
     };
   },
 
-  async calibration(user: AuthUser, q: { patternId: number; studentId?: number }): Promise<Calibration> {
+  /** The calibration a matchup on this pattern and lane surface (or this published condition) applies. */
+  async calibration(user: AuthUser, q: CalibrationQuery): Promise<Calibration> {
     const bowlerId = await readableBowlerId(user, q.studentId);
-    return calibrationFor(bowlerId, q.patternId);
+    const lane = q.laneKind || q.laneFriction ? { kind: q.laneKind ?? DEFAULT_LANE_SURFACE.kind, friction: q.laneFriction ?? DEFAULT_LANE_SURFACE.friction } : undefined;
+    const on = await engineCondition({ patternId: q.patternId, conditionId: q.conditionId, lane });
+    // A condition whose pattern is gone has no logged shots to fit: an empty fit, as for a pattern never bowled.
+    return calibrationFor(bowlerId, on.patternId ?? 0, { pattern: on.pattern, lane: on.lane, ...(on.patternId === null ? { rows: [] } : {}) });
   },
 };

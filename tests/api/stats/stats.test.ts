@@ -3,7 +3,7 @@ import { scoreGame } from '../../../engine/index';
 import { calibrate, calibrationFor } from '../../../server/features/stats/stats.service';
 import { sequelize } from '../../../server/models/index';
 import { api, createUser, errorOf } from '../../helpers/api';
-import { createBall, createPattern, POLISHED_PEARL, SHORT_LIGHT } from '../../helpers/fixtures';
+import { createBall, createCenter, createPattern, POLISHED_PEARL, SHORT_LIGHT } from '../../helpers/fixtures';
 import { expandGame, linkRow, logGame, randomGame, SAMPLE_GAME } from '../sessions/shotlog';
 
 interface Rate { hits: number; n: number; pct: number | null; low: number | null; high: number | null }
@@ -166,5 +166,38 @@ describe('GET /api/calibration', () => {
     const stats = await api.get('/api/stats').set(me.auth);
     expect(stats.body.item.calibration).toEqual(cal);
     expect(stats.body.item.calibrationPatternId).toBe(pattern.id);
+  });
+});
+
+describe('GET /api/calibration on a lane surface or a published condition', () => {
+  it('fits on the lanes asked for (surfaces and keptReachable per ball); a condition brings its own lanes; bad combinations are 400 by field, an unknown condition 404', async () => {
+    const { me, pattern } = await loggedBowler();
+    const plain = (await api.get(`/api/calibration?patternId=${pattern.id}`).set(me.auth)).body.item;
+    for (const b of plain.perBall) {
+      expect(Array.isArray(b.surfaces)).toBe(true);
+      expect(typeof b.keptReachable).toBe('boolean');
+    }
+    expect(plain.perBall.flatMap((b: { surfaces: string[] }) => b.surfaces)).toContain('2000 grit');
+    const same = (await api.get(`/api/calibration?patternId=${pattern.id}&laneKind=synthetic&laneFriction=medium`).set(me.auth)).body.item;
+    expect(same).toEqual(plain);
+    const high = await api.get(`/api/calibration?patternId=${pattern.id}&laneFriction=high`).set(me.auth);
+    expect(high.status).toBe(200);
+    expect(high.body.item.shots).toBe(plain.shots);
+
+    const owner = await createUser('proprietor');
+    const center = await createCenter(owner.user.id, 4);
+    const published = await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: pattern.id, lanes: [1], validFrom: new Date().toISOString().slice(0, 10), lane: { kind: 'synthetic', friction: 'high' } });
+    const onCondition = await api.get(`/api/calibration?conditionId=${published.body.item.id}`).set(me.auth);
+    expect(onCondition.status).toBe(200);
+    expect(onCondition.body.item).toEqual(high.body.item);
+
+    const bad = await api.get(`/api/calibration?patternId=${pattern.id}&laneKind=carpet&laneFriction=sticky`).set(me.auth);
+    expect(bad.status).toBe(400);
+    expect(Object.keys(errorOf(bad.body).fields ?? {}).sort()).toEqual(['query.laneFriction', 'query.laneKind']);
+    const both = await api.get(`/api/calibration?patternId=${pattern.id}&conditionId=${published.body.item.id}`).set(me.auth);
+    expect(Object.keys(errorOf(both.body).fields ?? {})).toEqual(['query.conditionId']);
+    const laneBeside = await api.get(`/api/calibration?conditionId=${published.body.item.id}&laneKind=wood`).set(me.auth);
+    expect(Object.keys(errorOf(laneBeside.body).fields ?? {})).toEqual(['query.laneKind']);
+    expect((await api.get('/api/calibration?conditionId=99999999').set(me.auth)).status).toBe(404);
   });
 });
