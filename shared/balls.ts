@@ -12,7 +12,7 @@ export const BALL_STATUSES = ['active', 'retired', 'in-shop'] as const;
 const num = (label: string) => z.number({ error: `${label} must be a number` });
 
 /**
- * Field ranges the forms accept. They are wider than the legal limits (TRADE.md 1.1) on purpose:
+ * Field ranges the forms accept. They are wider than the legal limits (USBC equipment specifications) on purpose:
  * an illegal ball can be kept in an arsenal and is flagged by the engine's legality check.
  */
 export const CoreSpecSchema = z.object({

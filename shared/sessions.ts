@@ -55,7 +55,7 @@ export const IdempotencyKeySchema = z
   .max(100, 'The Idempotency-Key must be 8–100 characters')
   .regex(/^[\x21-\x7e]+$/, 'The Idempotency-Key may hold visible ASCII characters only');
 
-/** Boards are counted 1–39 from the bowler's gutter side (TRADE.md 2); half boards allowed. */
+/** Boards are counted 1–39 from the bowler's gutter side (the lane's usual numbering, common practice); half boards allowed. */
 const board = (label: string) =>
   z
     .number({ error: `${label} must be a number` })

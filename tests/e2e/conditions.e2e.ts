@@ -4,11 +4,11 @@ import type { Browser, Page } from 'playwright-core';
 import { DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
 
 /**
- * Flow 1 of PRODUCT.md in the browser: the demo proprietor builds a pattern in the editor (numbers update as
+ * The condition publishing flow in the browser: the demo proprietor builds a pattern in the editor (numbers update as
  * sweeps are typed), saves it and publishes it for lanes 1–12 at Copperline Bowl; a visitor with no account
  * reads it on the public condition page; a follower sees it on Conditions and gets the e-mail.
  *
- * Expected numbers are worked out by hand from TRADE.md 4.1 (volume = boards covered × crossings × µL per board):
+ * Expected numbers are worked out by hand from the lane-machine volume arithmetic (volume = boards covered × crossings × µL per board):
  *   sweep 1 forward boards 2–38 (37) × 2 × 60 µL = 4 440 µL
  *   sweep 2 forward boards 8–32 (25) × 4 × 60 µL = 6 000 µL
  *   sweep 3 forward boards 13–27 (15) × 6 × 60 µL = 5 400 µL

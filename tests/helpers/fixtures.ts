@@ -39,7 +39,7 @@ const sw = (direction: Sweep['direction'], fromBoard: number, toBoard: number, e
   direction, fromBoard, toBoard, startFt: 0, endFt, crossings, microlitersPerBoard,
 });
 
-/** Test patterns whose classes follow from TRADE.md's conventions table (length ≥ 43 ft long, < 37 ft short; > 25 mL heavy, < 20 mL light). */
+/** Test patterns whose classes follow from Lanewright's conventions table (engine/README.md) (length ≥ 43 ft long, < 37 ft short; > 25 mL heavy, < 20 mL light). */
 export const LONG_HEAVY: Sweep[] = [sw('forward', 2, 38, 48, 4, 70), sw('forward', 8, 32, 45, 4, 70), sw('forward', 14, 26, 42, 4, 70), sw('reverse', 2, 38, 38, 2, 70)];
 export const SHORT_LIGHT: Sweep[] = [sw('forward', 3, 37, 33, 2, 50), sw('forward', 10, 30, 31, 2, 50), sw('reverse', 15, 25, 28, 2, 50)];
 
