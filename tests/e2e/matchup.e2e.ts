@@ -63,7 +63,7 @@ describe('matchup: the condition picker', () => {
     await page.getByRole('heading', { level: 1, name: 'Matchup' }).waitFor();
     await page.getByRole('combobox', { name: 'Condition' }).focus();
     await page.keyboard.press('Enter');
-    await page.getByRole('option', { name: /^Copperline Bowl today — / }).waitFor();
+    await page.getByRole('option', { name: /^Copperline Bowl today — Copperline House 40, lanes / }).waitFor();
     await page.getByRole('option', { name: 'Long Haul 47', exact: true }).waitFor();
     await screenshot(page, 'matchup-condition-picker-desktop');
   });

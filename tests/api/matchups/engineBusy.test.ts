@@ -42,7 +42,7 @@ describe('the ranking queue is bounded', () => {
 
   it('a task that waits longer than ENGINE_QUEUE_WAIT_MS for a thread is refused (503) at the deadline, not left to hang', async () => {
     expect(engineQueueWaitMs).toBe(300);
-    const longest = heavyInput(2, 150); // well past the 300 ms deadline on any machine this runs on
+    const longest = heavyInput(2, 1500); // about a second of ranking on this machine: well past the 300 ms deadline
     const running = settled(rankInWorker(longest));
     const started = Date.now();
     const waited = await rankInWorker(heavyInput(2.5)).then(
