@@ -54,9 +54,9 @@ const balls: ArsenalBall[] = Array.from({ length: 15 }, (_, i) => ({
 const game = [10, 10, 10, 7, 2, 8, 2, 0, 9, 10, 7, 3, 9, 0, 10, 10, 8];
 
 export const benches: Bench[] = [
-  // The full ranking: fit and motion layers, pocket solver and miss room for every ball (target of the matchup
-  // issue: at or under 30 ms median).
-  { name: 'engine: rankArsenal, 15 balls (fit + motion layers, pocket solver, miss room)', target: '< 30 ms median', iterations: 60, run: () => void rankArsenal({ balls, bowler, pattern, gamesBowled: 3 }) },
+  // The full ranking: fit and motion layers, pocket solver and miss room for every ball (target of the performance
+  // issue: at or under 8 ms median in process; its accuracy against a 1 ms step is bench/accuracy.ts).
+  { name: 'engine: rankArsenal, 15 balls (fit + motion layers, pocket solver, miss room)', target: '< 8 ms median', iterations: 60, run: () => void rankArsenal({ balls, bowler, pattern, gamesBowled: 3 }) },
   {
     name: 'engine: fit layer only (reaction against demand, suggestions), 15 balls',
     target: '< 2 ms median',

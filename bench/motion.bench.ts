@@ -93,13 +93,13 @@ export const benches: Bench[] = [
   { name: `motion: floor — bare RK4 loop, same ${steps} steps, trivial right-hand side`, run: () => void rk4Floor(steps), iterations: 300 },
   {
     name: 'motion: rankArsenal, 15 balls incl. pocket solver and miss room (fresh pattern)',
-    target: '< 30 ms median',
+    target: '< 8 ms median',
     run: () => void rankArsenal({ balls, bowler, pattern, gamesBowled: 0 }),
     iterations: 15,
   },
   {
     name: 'motion: rankArsenal, 15 balls incl. miss room, after 3 games (transition)',
-    target: '< 30 ms median',
+    target: '< 8 ms median',
     run: () => void rankArsenal({ balls, bowler, pattern, gamesBowled: 3 }),
     iterations: 15,
   },

@@ -28,7 +28,7 @@ export const HEADPIN_FT = 60;
 
 /**
  * Distance of the targeting arrows from the foul line, feet. Source: Lanewright's conventions (engine/README.md)
- * ("arrows at 15 ft"; section 2.1 notes that sources disagree, 12–17 ft).
+ * ("arrows at 15 ft"; sources disagree, 12–17 ft).
  */
 export const ARROWS_FT = 15;
 

@@ -57,6 +57,8 @@ export type { MissRoom } from './motion/missRoom';
 export { motionLayer, MOTION_LAYER_POINTS, MOTION_LAYER_WEIGHT } from './motion/motionLayer';
 export type { MotionVerdict, RankedBallWithPrediction } from './motion/motionLayer';
 export { MOTION_CALIBRATION } from './motion/motionCalibration';
+export { motionSteps, withMotionSteps } from './motion/motionSteps';
+export type { MotionSteps } from './motion/motionSteps';
 export type { CoverCalibration, LaneFriction } from './motion/motionCalibration';
 export { laneSurfaceOf, DEFAULT_LANE_SURFACE } from './motion/laneSurfaceOf';
 export { PHYSICAL_CONSTANTS } from './motion/physicalConstants';

@@ -4,7 +4,7 @@ import { inRange } from './internal/checks';
 /**
  * Length class boundaries, feet: short below `shortBelowFt`, medium from there to below
  * `longFromFt`, long from `longFromFt`. Source: common practice (Lanewright's class boundaries,
- * section 4.3: boundaries vary by author; these are Lanewright's choice).
+ * in engine/README.md: boundaries vary by author; these are Lanewright's choice).
  */
 export const LENGTH_CLASS_FT = { shortBelowFt: 37, longFromFt: 43 } as const;
 

@@ -63,7 +63,7 @@ export function rankArsenal(input: RankArsenalInput): RankedBallWithPrediction[]
   // never depend on the other balls ranked with it (the what-if and the side-by-side show the same numbers).
   const motionMap = conditionOilMap(ctx.pattern, ctx.bowler, ctx.gamesBowled, ctx.lane);
 
-  const arsenal = balls as (ArsenalBall & { label?: string })[];
+  const arsenal = balls as ArsenalBall[];
   const ranked = arsenal.map((ball) => {
     const legality = checkLegality(ball);
     const standing: 'strike' | 'spare' | 'illegal' = !legality.legal ? 'illegal' : ball.coverType === 'plastic' ? 'spare' : 'strike';

@@ -184,7 +184,8 @@ export interface Suggestion {
 }
 
 /** A ball of an arsenal: its spec plus the caller's identifier. */
-export type ArsenalBall = BallSpec & { id: string };
+/** A ball in an arsenal: its specs, a unique id, and an optional name for texts that point at it ("Or change balls: …"). */
+export type ArsenalBall = BallSpec & { id: string; label?: string };
 
 /** Input of rankArsenal. */
 export interface RankArsenalInput {

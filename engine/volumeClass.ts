@@ -3,8 +3,8 @@ import { inRange } from './internal/checks';
 
 /**
  * Volume class boundaries, mL: light below `lightBelowMl`, medium from there up to and including
- * `heavyAboveMl`, heavy above it. Source: common practice (Lanewright's class boundaries,
- * section 4.3).
+ * `heavyAboveMl`, heavy above it. Source: common practice (Lanewright's class boundaries in engine/README.md;
+ * authors draw them differently).
  */
 export const VOLUME_CLASS_ML = { lightBelowMl: 20, heavyAboveMl: 25 } as const;
 

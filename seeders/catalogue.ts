@@ -4,7 +4,7 @@ type Row = [maker: string, name: string, cover: BallModelInput['coverType'], rg:
 
 /**
  * The demo catalogue: invented makers and balls, every spec inside the current legal limits
- * (RG 2.460–2.800 in, differential ≤ 0.060 in, hardness ≥ 73 D; TRADE.md 1.1).
+ * (RG 2.460–2.800 in, differential ≤ 0.060 in, hardness ≥ 73 D; USBC equipment specifications).
  */
 const ROWS: Row[] = [
   // reactive solids — strongest in oil

@@ -41,6 +41,8 @@ export async function seedDemo(): Promise<boolean> {
       {
         centerId: center.id, patternId: house.id, patternName: house.name, sweeps: house.sweeps, summary: house.summary, lanes: Array.from({ length: 24 }, (_, i) => i + 1),
         validFrom: weekAgo.toISOString().slice(0, 10), validTo: null, notes: 'Lanes stripped and oiled every morning at 9. Approaches cleaned nightly.', publishedAt: weekAgo, publishedBy: owner.id,
+        // Synthetic panels with a textured top sheet: the ball grips hard once it leaves the oil.
+        laneKind: 'synthetic', laneFriction: 'high',
       },
       { transaction },
     );
@@ -60,7 +62,7 @@ export async function seedDemo(): Promise<boolean> {
           {
             ownerId: user.id, ballModelId: m.id, name: m.name, maker: m.maker, nickname: d.nickname ?? null, weightLb: d.weightLb, rg: m.rg,
             differential: m.differential, intermediateDifferential: m.intermediateDifferential, coverType: m.coverType, coreType: m.coreType,
-            hardnessD: m.hardnessD, surfaceGrit: grit, polished, layout: d.layout, gamesSinceResurface: d.games,
+            hardnessD: m.hardnessD, approvalYear: m.releaseYear, surfaceGrit: grit, polished, layout: d.layout, gamesSinceResurface: d.games,
           },
           { transaction },
         );

@@ -1,11 +1,11 @@
 import crypto from 'node:crypto';
 import { Op, type Transaction } from 'sequelize';
 import { buildGame, CALIBRATION, simulateShot } from '../engine/index';
-import type { BallSpec, BowlerProfile as EngineBowler, OilPattern } from '../engine/types';
-import { ballToSpec } from '../shared/balls';
+import type { BallSpec, BowlerProfile as EngineBowler, LaneSurface, OilPattern } from '../engine/types';
 import type { HitKind, LoggedDelivery } from '../engine/shotlog/types';
 import { surfaceKeyOf } from '../server/features/sessions/sessions.service';
-import { LAYDOWN_OFFSET_BOARDS } from '../server/features/stats/stats.service';
+import { LAYDOWN_OFFSET_BOARDS, specAsThrown } from '../server/features/stats/stats.service';
+import { laneOf } from '../server/features/centers/centers.repository';
 import { sessionsRepository } from '../server/features/sessions/sessions.repository';
 import { Annotation, Ball, BowlerProfile, BowlingSession, Center, CoachLink, Condition, Plan, Shot, SurfaceEvent, type User } from '../server/models/index';
 
@@ -58,6 +58,7 @@ interface StrikeLine {
   spec: BallSpec;
   bowler: EngineBowler;
   pattern: OilPattern;
+  lane: LaneSurface;
   laydownBoard: number;
   targetBoard: number;
 }
@@ -66,7 +67,7 @@ interface StrikeLine {
 function firstBall(rand: () => number, line: StrikeLine, game: number, frame: number, delivery: number): Throw {
   const miss = [-2, -1.5, -1, -0.5, 0, 0, 0.5, 1, 1.5, 2][Math.floor(rand() * 10)];
   const targetBoard = Math.min(39, Math.max(1, line.targetBoard + miss));
-  const p = simulateShot({ ball: line.spec, bowler: line.bowler, pattern: line.pattern, laydownBoard: line.laydownBoard, targetBoard, gamesBowled: game - 1, frictionScale: DEMO_FRICTION_SCALE });
+  const p = simulateShot({ ball: line.spec, bowler: line.bowler, pattern: line.pattern, lane: line.lane, laydownBoard: line.laydownBoard, targetBoard, gamesBowled: game - 1, frictionScale: DEMO_FRICTION_SCALE });
   const noise = rand() < 0.5 ? 0 : rand() < 0.5 ? -0.5 : 0.5;
   const hit = hitOf(p.entryBoard + noise);
   const kind = LEAVES[hit];
@@ -131,6 +132,7 @@ export async function seedSessions(users: Map<string, User>, transaction: Transa
     ...(prof.papRightIn != null ? { papRightIn: prof.papRightIn } : {}), ...(prof.papUpIn != null ? { papUpIn: prof.papUpIn } : {}),
   };
   const pattern: OilPattern = { name: condition.patternName, sweeps: condition.sweeps };
+  const lane = laneOf(condition);
   let seed = 7;
   let latest: BowlingSession | null = null;
   for (const [si, p] of plan.entries()) {
@@ -144,10 +146,11 @@ export async function seedSessions(users: Map<string, User>, transaction: Transa
       const surfaces = new Map<number, { grit: number; polished: boolean }>();
       for (const b of [strikeBall, spare]) surfaces.set(b.id, await surfaceOn(b, day, transaction));
       const rack = surfaces.get(strikeBall.id)!;
-      const spec = ballToSpec({ ...strikeBall.get({ plain: true }), surfaceGrit: rack.grit, polished: rack.polished });
+      // The ball as it was then (the spec the calibration reads these shots with), on the condition's lanes.
+      const spec = specAsThrown(strikeBall, rack.grit, rack.polished);
       // Dana plays the line the pocket solver finds for this ball (with her true friction), at whole boards.
-      const solved = simulateShot({ ball: spec, bowler, pattern, gamesBowled: gi, frictionScale: DEMO_FRICTION_SCALE });
-      const line: StrikeLine = { spec, bowler, pattern, laydownBoard: Math.round(solved.laydownBoard), targetBoard: Math.round(solved.targetBoard) };
+      const solved = simulateShot({ ball: spec, bowler, pattern, lane, gamesBowled: gi, frictionScale: DEMO_FRICTION_SCALE });
+      const line: StrikeLine = { spec, bowler, pattern, lane, laydownBoard: Math.round(solved.laydownBoard), targetBoard: Math.round(solved.targetBoard) };
       const game = demoGame((seed += 11), line, gi + 1);
       const prior: LoggedDelivery[] = [];
       for (const t of game) {

@@ -1,6 +1,6 @@
 import { z } from 'zod';
 import { isSafeName, UNSAFE_NAME_MESSAGE } from './text';
-import type { BallSpec, CoverType } from '../engine/types';
+import type { ArsenalBall, BallSpec, CoverType } from '../engine/types';
 import { PageQuerySchema } from './auth';
 
 export const COVER_TYPES = ['plastic', 'urethane', 'reactive-pearl', 'reactive-hybrid', 'reactive-solid'] as const satisfies readonly CoverType[];
@@ -12,7 +12,7 @@ export const BALL_STATUSES = ['active', 'retired', 'in-shop'] as const;
 const num = (label: string) => z.number({ error: `${label} must be a number` });
 
 /**
- * Field ranges the forms accept. They are wider than the legal limits (TRADE.md 1.1) on purpose:
+ * Field ranges the forms accept. They are wider than the legal limits (USBC equipment specifications) on purpose:
  * an illegal ball can be kept in an arsenal and is flagged by the engine's legality check.
  */
 export const CoreSpecSchema = z.object({
@@ -29,12 +29,66 @@ export const SurfaceSchema = z.object({
 });
 export type Surface = z.infer<typeof SurfaceSchema>;
 
+/**
+ * Pin-to-PAP as a pro shop writes it: a decimal ("4.375"), a mixed fraction ("4 3/8", "4-3/8") or a bare fraction
+ * ("3/4"), in inches; an optional trailing `in`, `"` or `″`. Returns the inches, or null when the text is not one
+ * of those (or has a zero denominator). Common practice: layout sheets give distances to the nearest 1/8 or 1/16 in.
+ */
+export function parsePinToPapIn(text: string): number | null {
+  const t = text.trim().replace(/\s*(in|inch|inches|"|″)$/i, '').trim();
+  if (/^\d+(\.\d+)?$|^\.\d+$/.test(t)) return Number(t);
+  const m = /^(?:(\d+)(?:\s+|\s*-\s*))?(\d+)\s*\/\s*(\d+)$/.exec(t);
+  if (!m) return null;
+  const whole = m[1] === undefined ? 0 : Number(m[1]);
+  const num = Number(m[2]);
+  const den = Number(m[3]);
+  if (den === 0) return null;
+  return whole + num / den;
+}
+
+/**
+ * Inches as a pro shop writes them, in eighths: 4.375 → "4 3/8", 3.5 → "3 1/2", 5 → "5", 0.25 → "1/4". A value that
+ * is not a whole number of eighths is not rounded away: sixteenths ("4 5/16") when exact, else the decimal ("3.4").
+ */
+export function formatEighths(inches: number): string {
+  for (const den of [8, 16]) {
+    const n = Math.round(inches * den);
+    if (Math.abs(inches * den - n) > 1e-6) continue;
+    const whole = Math.floor(n / den);
+    let num = n % den;
+    let d = den;
+    while (num > 0 && num % 2 === 0) {
+      num /= 2;
+      d /= 2;
+    }
+    if (num === 0) return `${whole}`;
+    return whole > 0 ? `${whole} ${num}/${d}` : `${num}/${d}`;
+  }
+  return String(Math.round(inches * 1000) / 1000);
+}
+
 export const LayoutSchema = z.object({
   pinToPapIn: num('Pin-to-PAP').min(0, 'At least 0 in').max(6.7, 'At most 6.7 in (half the circumference)'),
   drillingAngleDeg: num('Drilling angle').min(0).max(180).nullable().optional(),
   valAngleDeg: num('VAL angle').min(0).max(180).nullable().optional(),
 });
 export type Layout = z.infer<typeof LayoutSchema>;
+
+/**
+ * Pin-to-PAP typed as text (the ball form, the arsenal CSV): "4 3/8", "4-3/8", "3 3/8" or a decimal, in inches; a
+ * number passes as it is. The result has the ranges of LayoutSchema.
+ */
+export const PinToPapTextSchema = z
+  .union([z.number(), z.string()], { error: 'Pin-to-PAP is inches: 4 3/8, 4-3/8 or 4.375' })
+  .transform((v, ctx) => {
+    const n = typeof v === 'number' ? v : parsePinToPapIn(v);
+    if (n === null || !Number.isFinite(n)) {
+      ctx.addIssue({ code: 'custom', message: `Pin-to-PAP "${String(v).slice(0, 20)}" is not inches: write 4 3/8, 4-3/8 or 4.375` });
+      return z.NEVER;
+    }
+    return n;
+  })
+  .pipe(LayoutSchema.shape.pinToPapIn);
 
 // ---- catalogue -------------------------------------------------------------------------------------
 
@@ -74,9 +128,9 @@ export type CatalogueQuery = z.infer<typeof CatalogueQuerySchema>;
 
 const ballBase = {
   nickname: z.string().trim().max(60, 'At most 60 characters').refine(isSafeName, UNSAFE_NAME_MESSAGE).nullable().optional(),
-  weightLb: num('Weight').min(6, 'At least 6 lb').max(16.5, 'At most 16.5 lb'),
+  weightLb: num('Weight').min(6, 'At least 6 lb').max(18, 'At most 18 lb'),
   layout: LayoutSchema.nullable().optional(),
-  gamesSinceResurface: num('Games').int().min(0).max(100000).default(0),
+  gamesSinceResurface: num('Games').int('Whole games').min(0, 'At least 0').max(10000, 'At most 10000 games').default(0),
   status: z.enum(BALL_STATUSES).default('active'),
 };
 
@@ -101,7 +155,7 @@ export const BallPatchSchema = z
     nickname: ballBase.nickname,
     weightLb: ballBase.weightLb.optional(),
     layout: ballBase.layout,
-    gamesSinceResurface: num('Games').int().min(0).max(100000).optional(),
+    gamesSinceResurface: num('Games').int('Whole games').min(0, 'At least 0').max(10000, 'At most 10000 games').optional(),
     status: z.enum(BALL_STATUSES).optional(),
     name: z.string().trim().min(1).max(80).refine(isSafeName, UNSAFE_NAME_MESSAGE).optional(),
   })
@@ -149,6 +203,8 @@ export interface Ball {
   coverType: CoverType;
   coreType: 'symmetric' | 'asymmetric';
   hardnessD: number | null;
+  /** Year the ball model was approved: the catalogue model's release year (null for a ball entered by hand). */
+  approvalYear: number | null;
   surfaceGrit: number;
   polished: boolean;
   layout: Layout | null;
@@ -162,8 +218,18 @@ export interface Ball {
   surfaceHistory?: SurfaceEvent[];
 }
 
-/** The engine's view of a stored ball. */
-export function ballToSpec(b: Pick<Ball, 'weightLb' | 'rg' | 'differential' | 'intermediateDifferential' | 'coverType' | 'surfaceGrit' | 'polished' | 'hardnessD' | 'layout'>): BallSpec {
+/** The fields of a stored ball the engine reads. */
+export type BallSpecSource = Pick<
+  Ball,
+  'weightLb' | 'rg' | 'differential' | 'intermediateDifferential' | 'coverType' | 'surfaceGrit' | 'polished' | 'hardnessD' | 'layout' | 'gamesSinceResurface' | 'approvalYear'
+>;
+
+/**
+ * The engine's view of a stored ball: its specs, surface, layout, the games since its last resurface (the cover
+ * dulls with use) and its approval year (the hardness limit depends on it). Every screen and the server build
+ * the engine's input with this one function, so they see the same ball.
+ */
+export function ballToSpec(b: BallSpecSource): BallSpec {
   return {
     weightLb: b.weightLb,
     rg: b.rg,
@@ -173,6 +239,9 @@ export function ballToSpec(b: Pick<Ball, 'weightLb' | 'rg' | 'differential' | 'i
     surfaceGrit: b.surfaceGrit,
     polished: b.polished,
     ...(b.hardnessD != null ? { hardnessD: b.hardnessD } : {}),
+    // The engine takes 0–10000 games; a cover's wear has long levelled off by then.
+    gamesSinceResurface: Math.min(b.gamesSinceResurface, 10000),
+    ...(b.approvalYear != null ? { approvalYear: b.approvalYear } : {}),
     ...(b.layout
       ? {
           layout: {
@@ -183,4 +252,14 @@ export function ballToSpec(b: Pick<Ball, 'weightLb' | 'rg' | 'differential' | 'i
         }
       : {}),
   };
+}
+
+/** The name a bowler knows a ball by: "Nickname (Model)", else the model name. */
+export function ballLabel(ball: Pick<Ball, 'name' | 'nickname'>): string {
+  return ball.nickname ? `${ball.nickname} (${ball.name})` : ball.name;
+}
+
+/** A stored ball as one ball of rankArsenal's input: its id as a string, its label (for the engine's texts) and ballToSpec. */
+export function ballToArsenalBall(b: BallSpecSource & Pick<Ball, 'id' | 'name' | 'nickname'>): ArsenalBall & { label: string } {
+  return { id: String(b.id), label: ballLabel(b), ...ballToSpec(b) };
 }

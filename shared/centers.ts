@@ -1,7 +1,28 @@
 import { z } from 'zod';
 import { isSafeName, UNSAFE_NAME_MESSAGE } from './text';
-import type { Sweep } from '../engine/types';
+import type { LaneSurface, Sweep } from '../engine/types';
 import type { PatternSummary } from './patterns';
+
+export type { LaneSurface };
+
+export const LANE_KINDS = ['wood', 'synthetic'] as const satisfies readonly LaneSurface['kind'][];
+export const LANE_FRICTIONS = ['low', 'medium', 'high'] as const satisfies readonly LaneSurface['friction'][];
+
+/** The lane surface a condition is bowled on: its material and how much friction it has (the engine's LaneSurface). */
+export const LaneSurfaceSchema = z
+  .object({
+    kind: z.enum(LANE_KINDS, { error: 'The lanes are wood or synthetic' }),
+    friction: z.enum(LANE_FRICTIONS, { error: 'Lane friction is low, medium or high' }),
+  }, { error: 'Give the lane surface as { kind, friction }' })
+  .strict();
+
+/** The engine's default lane surface, and what a condition published before lane surfaces were recorded was bowled on. */
+export const DEFAULT_LANE_SURFACE: LaneSurface = Object.freeze({ kind: 'synthetic', friction: 'medium' });
+
+/** The lane surface in words a bowler reads: "Synthetic lanes, high friction". */
+export function laneSurfaceText(lane: LaneSurface): string {
+  return `${lane.kind === 'wood' ? 'Wood' : 'Synthetic'} lanes, ${lane.friction} friction`;
+}
 
 const isoDate = z.iso.date({ error: 'Use a date like 2026-12-01' });
 
@@ -35,6 +56,8 @@ export const PublishConditionSchema = z
     validFrom: isoDate,
     validTo: isoDate.nullable().optional(),
     notes: z.string().trim().max(2000, 'At most 2000 characters').nullable().optional(),
+    /** The lane surface of the lanes published for; default synthetic, medium friction. */
+    lane: LaneSurfaceSchema.default({ ...DEFAULT_LANE_SURFACE }),
   })
   .strict()
   .refine((c) => !c.validTo || c.validTo >= c.validFrom, { path: ['validTo'], message: 'The end date is before the start date' });
@@ -53,6 +76,10 @@ export interface Condition {
   /** Set when a later publication for overlapping lanes and dates replaced this one. */
   supersededBy: number | null;
   pattern: { id: number | null; name: string; sweeps: Sweep[]; summary: PatternSummary };
+  /** The lane surface the condition is bowled on. */
+  lane: LaneSurface;
+  /** The same in words: "Synthetic lanes, high friction". */
+  laneText: string;
 }
 
 export interface CurrentCondition {
@@ -64,4 +91,18 @@ export interface CurrentCondition {
   validFrom: string;
   validTo: string | null;
   notes: string | null;
+  /** Same as condition.lane and condition.laneText. */
+  lane: LaneSurface;
+  laneText: string;
+}
+
+/**
+ * A followed center and what is on its lanes today: `current` is the newest publication in force (null when
+ * nothing is published); `inForce` lists every publication in force with the lanes it still governs (a newer
+ * publication for some lanes leaves an older one in force on the others), newest first.
+ */
+export interface FollowedCenter {
+  center: Center;
+  current: Condition | null;
+  inForce: { condition: Condition; lanes: number[] }[];
 }

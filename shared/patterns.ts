@@ -5,7 +5,7 @@ import { PageQuerySchema } from './auth';
 
 /**
  * One sweep as the pattern editor and the API accept it: boards 1–39, 0 ≤ startFt < endFt ≤ 60 (the engine spreads
- * oil only up to the headpin, 60 ft; TRADE.md section 2).
+ * oil only up to the headpin, 60 ft; USBC lane specifications: 60 ft from the foul line to the headpin).
  */
 export const SweepSchema = z
   .object({

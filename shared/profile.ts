@@ -2,7 +2,7 @@ import { z } from 'zod';
 
 /**
  * A bowler's release parameters (the engine's BowlerProfile) plus display preferences.
- * Ranges: common practice for competitive bowlers (TRADE.md 7.3), widened for beginners and power players.
+ * Ranges: common practice for competitive bowlers, widened for beginners and power players.
  */
 export const ProfileSchema = z.object({
   hand: z.enum(['right', 'left'], { error: 'Choose right or left' }),
@@ -19,7 +19,7 @@ export type Profile = z.infer<typeof ProfileSchema>;
 export const ProfileUpdateSchema = ProfileSchema.partial().strict();
 export type ProfileUpdate = z.infer<typeof ProfileUpdateSchema>;
 
-/** Typical values a new profile starts from (TRADE.md 7.3, common practice). */
+/** Typical values a new profile starts from (common practice). */
 export const DEFAULT_PROFILE: Profile = {
   hand: 'right',
   speedMph: 17,

@@ -1,6 +1,8 @@
 import { z } from 'zod';
 import type { Calibration, GameView, HitKind, Move, ShotStats } from '../engine/shotlog/types';
+import type { LaneSurface } from '../engine/types';
 import { PageQuerySchema } from './auth';
+import { LANE_FRICTIONS, LANE_KINDS } from './centers';
 import type { Annotation } from './coaching';
 
 const isoDate = z.iso.date({ error: 'Use a date like 2026-12-01' });
@@ -53,7 +55,7 @@ export const IdempotencyKeySchema = z
   .max(100, 'The Idempotency-Key must be 8–100 characters')
   .regex(/^[\x21-\x7e]+$/, 'The Idempotency-Key may hold visible ASCII characters only');
 
-/** Boards are counted 1–39 from the bowler's gutter side (TRADE.md 2); half boards allowed. */
+/** Boards are counted 1–39 from the bowler's gutter side (the lane's usual numbering, common practice); half boards allowed. */
 const board = (label: string) =>
   z
     .number({ error: `${label} must be a number` })
@@ -170,17 +172,29 @@ export interface StatsResult {
   calibration: Calibration | null;
   /** The pattern the calibration is for (the patternId filter, else the latest session's pattern). */
   calibrationPatternId?: number | null;
+  /** The lane surface it is fitted on: the published condition's of the latest session on that pattern, else synthetic with medium friction. */
+  calibrationLane?: LaneSurface | null;
 }
 
-export const CalibrationQuerySchema = z.object({
-  patternId: queryId,
-  studentId: queryId.optional(),
-});
+/**
+ * The calibration on a plain pattern (`patternId`, on the lane surface `laneKind`/`laneFriction`, default synthetic
+ * with medium friction) or on a published condition (`conditionId`: its pattern and lane surface), as a matchup
+ * computes it.
+ */
+export const CalibrationQuerySchema = z
+  .object({
+    patternId: queryId.optional(),
+    conditionId: queryId.optional(),
+    laneKind: z.enum(LANE_KINDS, { error: 'The lanes are wood or synthetic' }).optional(),
+    laneFriction: z.enum(LANE_FRICTIONS, { error: 'Lane friction is low, medium or high' }).optional(),
+    studentId: queryId.optional(),
+  })
+  .superRefine((q, ctx) => {
+    if (q.patternId === undefined && q.conditionId === undefined) ctx.addIssue({ code: 'custom', path: ['patternId'], message: 'Choose a pattern or a published condition' });
+    if (q.patternId !== undefined && q.conditionId !== undefined) ctx.addIssue({ code: 'custom', path: ['conditionId'], message: 'Give either a pattern or a published condition, not both' });
+    if (q.conditionId !== undefined && (q.laneKind !== undefined || q.laneFriction !== undefined))
+      ctx.addIssue({ code: 'custom', path: ['laneKind'], message: 'A published condition names its own lane surface' });
+  });
 export type CalibrationQuery = z.infer<typeof CalibrationQuerySchema>;
 
-/** What a matchup says about the bowler's calibration. */
-export interface MatchupCalibration {
-  applied: boolean;
-  shots: number;
-  note: string;
-}
+export type { MatchupCalibration } from './matchups';

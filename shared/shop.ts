@@ -169,7 +169,7 @@ export function formatMoney(cents: number, currency: string): string {
 
 // ---- cautions -------------------------------------------------------------------------------------
 
-/** The cautions of PRODUCT.md for pro-shop work, by kind of service (shown in the order dialog). */
+/** Lanewright's cautions for pro-shop work, by kind of service (shown in the order dialog). */
 export const SHOP_CAUTIONS = {
   drilling:
     'Drilling, plugging and fitting are work for a qualified pro-shop technician; a new layout changes how the ball reacts, so talk the layout through with the technician first.',

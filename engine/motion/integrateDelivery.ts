@@ -3,14 +3,17 @@ import type { FrictionField } from './frictionField';
 import { assertNumber } from './assertNumber';
 import { MOTION_CALIBRATION as K } from './motionCalibration';
 import { PHYSICAL_CONSTANTS as C } from './physicalConstants';
+import { motionSteps } from './motionSteps';
 import { STATE } from './releaseState';
 
 /** Options of one integration. */
 export interface IntegrateOptions {
   /** 1 = right-hander, −1 = left-hander: only changes how boards and angles are reported (hand side). */
   hand?: 1 | -1;
-  /** RK4 step, s (default MOTION_CALIBRATION.stepS). */
+  /** RK4 step near rolling, s (default MOTION_CALIBRATION.stepS, or withMotionSteps'). */
   stepS?: number;
+  /** Longest RK4 step while the ball slides fast, s (default MOTION_CALIBRATION.maxStepS, or stepS when stepS is given; ≥ stepS). */
+  maxStepS?: number;
   /** Regularisation speed ε, m/s (default MOTION_CALIBRATION.slipEpsMs). */
   slipEpsMs?: number;
   /** Stop after this time, s. */
@@ -143,13 +146,20 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
   if (!(state0 instanceof Float64Array) || state0.length !== STATE.length) throw new TypeError(`${fn}: state must be a Float64Array of length ${STATE.length}`);
   for (let i = 0; i < STATE.length; i++) if (!Number.isFinite(state0[i])) throw new TypeError(`${fn}: state[${i}] is not finite: ${state0[i]}`);
   const eps = assertNumber(fn, 'slipEpsMs', options.slipEpsMs ?? K.slipEpsMs, 1e-6, 1);
-  let h = assertNumber(fn, 'stepS', options.stepS ?? K.stepS, 1e-5, 0.02);
+  const defaults = motionSteps();
+  let h = assertNumber(fn, 'stepS', options.stepS ?? defaults.stepS, 1e-5, 0.02);
   {
     // keep λh ≤ 2 (explicit RK4 is stable for λh ≲ 2.8), λ = μ_max g (1 + R²/k_min²)/ε
     const kMin2 = Math.min(inertia.iLow, inertia.iHigh, inertia.iInt) / inertia.massKg;
     const lambda = (field.muMax * C.g * (1 + (inertia.radiusM * inertia.radiusM) / kMin2)) / eps;
     if (lambda * h > 2) h = 2 / lambda;
   }
+  // a caller that fixes stepS without maxStepS gets a fixed step (accuracy studies, closed-form checks)
+  const hMax = Math.max(h, assertNumber(fn, 'maxStepS', options.maxStepS ?? (options.stepS !== undefined ? h : defaults.maxStepS), 1e-5, 0.05));
+  // While the slip speed u is large the friction direction barely turns in a step: the local stiffness is
+  // μg(1+R²/k²)/u rather than /ε, so the step can grow with u (up to hMax) at the same stability margin.
+  const kMin2s = Math.min(inertia.iLow, inertia.iHigh, inertia.iInt) / inertia.massKg;
+  const slipStep = K.slipStepFactor / (field.muMax * C.g * (1 + (inertia.radiusM * inertia.radiusM) / kMin2s));
   const maxT = assertNumber(fn, 'maxTimeS', options.maxTimeS ?? K.maxTimeS, h, 60);
   const stopFt = assertNumber(fn, 'stopFt', options.stopFt ?? C.headpinFt, 0.1, 200);
   const hand = options.hand ?? 1;
@@ -167,15 +177,22 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
   const carried = field.kind === 'oil' && field.carriedOil;
   const split = K.filmSplit, wB = K.carriedFilmWeight;
   const keepPerPass = Math.log(1 - K.exchangeFraction); // ln of the share kept per pass through contact
-  const absorb = Number.isFinite(field.absorptionTimeS) ? Math.exp(-h / field.absorptionTimeS) : 1;
+  const invAbsorbS = Number.isFinite(field.absorptionTimeS) ? 1 / field.absorptionTimeS : 0;
   const invTrack = 1 / (K.trackWidthIn * C.inchM);
   let ring = 0; // carried film on the track, µm
-  const hOver2Pi = h / (2 * Math.PI);
+  // the ring's rates at the start of the step (exchange per s, loss to flare and absorption per s, lane film):
+  // the step's friction reads the ring at mid-step, and the update uses the mean of the start and end rates
+  // (second order in h, like the rest of the step)
+  let exRate = 0, lossRate = invAbsorbS, laneFilm = 0;
 
   const s = Float64Array.from(state0);
   const tmp = rkTmp, k1 = rk1, k2 = rk2, k3 = rk3, k4 = rk4;
   { const qn = 1 / Math.hypot(s[7], s[8], s[9], s[10]); s[7] *= qn; s[8] *= qn; s[9] *= qn; s[10] *= qn; }
 
+  if (carried) {
+    laneFilm = bilinear(k.grid, k.rows, k.cols, k.invRowM, s[0], s[1]);
+    exRate = (-keepPerPass * Math.sqrt(s[4] * s[4] + s[5] * s[5] + s[6] * s[6])) / (2 * Math.PI);
+  }
   const ftM = C.footM, stopM = stopFt * ftM, half = C.laneHalfWidthM, R = inertia.radiusM;
   const maxSamples = Math.floor(stopFt) + 2;
   const sampleFt = new Float64Array(maxSamples), sampleBoard = new Float64Array(maxSamples), sampleSpeed = new Float64Array(maxSamples);
@@ -209,10 +226,16 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
   let gutter = Math.abs(s[1]) > half, gutterFt: number | null = gutter ? s[0] / ftM : null;
   let reached = false, entryBoard = NaN, entryAngle = NaN, tPins = NaN, vPins = NaN;
   let t = 0, steps = 0;
-  const h2 = h / 2, h6 = h / 6;
+  const hMin = h;
 
   while (t < maxT) {
-    k.carried = carried ? wB * ring : 0;
+    h = uPrev * slipStep;
+    if (h < hMin) h = hMin; else if (h > hMax) h = hMax;
+    const h2 = h / 2, h6 = h / 6;
+    if (carried) {
+      const tgt = split * laneFilm;
+      k.carried = wB * (tgt + (ring - tgt) * Math.exp(-exRate * h2)) * Math.exp(-lossRate * h2);
+    } else k.carried = 0;
     const x0 = s[0], y0 = s[1], vx0 = s[2], vy0 = s[3];
     rhs(s, k1, k);
     for (let i = 0; i < 11; i++) tmp[i] = s[i] + h2 * k1[i];
@@ -245,9 +268,13 @@ export function integrateDelivery(state0: Float64Array, inertia: BallInertia, fi
         if (carried) {
           // the track ring: passes through contact (one per revolution), fresh cover from flare, absorption
           const hLane = bilinear(k.grid, k.rows, k.cols, k.invRowM, s[0], s[1]);
-          ring += (1 - Math.exp(keepPerPass * wmag * hOver2Pi)) * (split * hLane - ring);
+          const ex1 = (-keepPerPass * wmag) / (2 * Math.PI);
+          const tgt = split * 0.5 * (laneFilm + hLane);
+          ring = tgt + (ring - tgt) * Math.exp(-0.5 * (exRate + ex1) * h);
           const fresh = R * dAxis * invTrack;
-          ring *= (fresh < 1 ? 1 - fresh : 0) * absorb;
+          const loss1 = (fresh < 1 ? -Math.log(1 - fresh) / h : Infinity) + invAbsorbS;
+          ring *= Math.exp(-0.5 * (lossRate + loss1) * h);
+          exRate = ex1; lossRate = loss1; laneFilm = hLane;
         }
       }
     }

@@ -93,6 +93,13 @@ export const MOTION_CALIBRATION = Object.freeze({
    * 3 releases × 3 lines × 4 patterns): entry board within 0.08 board, entry angle within 0.04°.
    */
   stepS: 0.006,
+  /** Longest RK4 step, s, taken while the ball slides fast (see slipStepFactor). */
+  maxStepS: 0.016,
+  /**
+   * Step growth with slip: h = slipStepFactor · u / (μ_max g (1 + R²/k²)), between stepS and maxStepS — the local
+   * stiffness of the friction direction is μg(1+R²/k²)/u while the slip u is well above ε.
+   */
+  slipStepFactor: 0.5,
   /** Regularisation speed ε of smoothed Coulomb friction, m/s (position bias ∝ ε). */
   slipEpsMs: 0.03,
   /** Slip speed, in multiples of ε, below which the ball counts as rolling; the crossing is extrapolated linearly to zero. */
@@ -159,6 +166,14 @@ export const MOTION_CALIBRATION = Object.freeze({
   solverFirstLaunchBoards: 8,
   /** The outermost target at the arrows the solver plays, boards from the gutter (a line closer to the edge leaves no room; assumption). */
   minTargetBoard: 4,
+  /**
+   * A ball whose most forgiving line at the usual launch still ends this many boards short of the pocket straightens
+   * its launch first (common practice: a ball that will not come back is played straighter up the boards, not
+   * thrown across the lane from deep inside).
+   */
+  straightenBelowBoards: 1.5,
+  /** A floor is flat where neighbouring lines' entries lie within this many boards of the lowest (the solver then plays its middle). */
+  floorFlatBoards: 0.5,
   /** A hold area: neighbouring parallel lines whose entries differ by at most this many boards per board of shift (a flat pattern: about 1). */
   holdSlope: 0.5,
   /** Solver tolerance on the entry board. */

@@ -130,7 +130,8 @@ function searchLine<T extends LineTrial>(
   const launches = K.solverLaunchBoards;
   const dMin = launches[0], dMax = launches[launches.length - 1];
   const clampD = (d: number) => Math.min(dMax, Math.max(dMin, d));
-  const tRange = (d: number): [number, number] => [Math.max(1, 1 - d), Math.min(39, 39 - d)];
+  // targets from minTargetBoard (a line closer to the gutter leaves no room) to the far side
+  const tRange = (d: number): [number, number] => [Math.max(K.minTargetBoard, 1 - d), Math.min(39, 39 - d)];
   // A gutter ball counts as ten boards past the pocket (the lane's edge walls the search in).
   const effective = (r: LineTrial): number => (ok(r) ? r.entryBoard : Math.max(r.entryBoard, P) + 10);
   const sample = (d: number, t: number): Sample => { const r = eval2(t + d, t); return { t, e: effective(r), r }; };
@@ -142,10 +143,18 @@ function searchLine<T extends LineTrial>(
     for (let t = Math.max(lo, from); t <= Math.min(hi, to) + 1e-9; t += step) out.push(sample(d, t));
     return out;
   };
-  /** The lowest entry of a scan, refined by one parabola through it and its neighbours. */
+  /**
+   * The lowest entry of a scan, refined by one parabola through it and its neighbours; on a flat floor (neighbours
+   * within floorFlatBoards of the lowest) the middle of the flat stretch — the most forgiving line, and one that
+   * does not jump across the floor with a tenth of a board of difference.
+   */
   const floorOf = (d: number, pts: Sample[]): Sample => {
     let i = 0;
     for (let j = 1; j < pts.length; j++) if (pts[j].e < pts[i].e) i = j;
+    let a = i, b = i;
+    while (a > 0 && ok(pts[a - 1].r) && pts[a - 1].e <= pts[i].e + K.floorFlatBoards) a--;
+    while (b < pts.length - 1 && ok(pts[b + 1].r) && pts[b + 1].e <= pts[i].e + K.floorFlatBoards) b++;
+    if (b - a >= 2) return pts[Math.round((a + b) / 2)];
     if (i === 0 || i === pts.length - 1) return pts[i];
     const [p0, p1, p2] = [pts[i - 1], pts[i], pts[i + 1]];
     const den = (p1.t - p0.t) * (p1.e - p2.e) - (p1.t - p2.t) * (p1.e - p0.e);
@@ -193,12 +202,14 @@ function searchLine<T extends LineTrial>(
   const valley = fl.t >= K.minTargetBoard && holdAt(pts);
 
   // 2. Open or close the launch until the floor sits on the pocket (each board of launch moves a straight line
-  //    3 boards at the pins; a secant step once two floors are known). Without a hold area only a ball that
-  //    hooks past the pocket from every line needs it; otherwise the bowler keeps the usual launch.
-  if (valley || fl.e > P + K.solverTolBoards) {
+  //    3 boards at the pins; a secant step once two floors are known). Without a hold area a ball that hooks past
+  //    the pocket from every line opens up, and one whose floor ends well short of it straightens; otherwise the
+  //    bowler keeps the usual launch.
+  const light = fl.e < P - K.straightenBelowBoards;
+  if (valley || light || fl.e > P + K.solverTolBoards) {
     let prev: { d: number; e: number } | null = null;
     for (let i = 0; i < 5 && Math.abs(fl.e - P) > 0.3; i++) {
-      if (!valley && fl.e < P) break;
+      if (!valley && !light && fl.e < P) break;
       let slope = -2.4;
       if (prev !== null && Math.abs(d - prev.d) > 1e-6) { const sl = (fl.e - prev.e) / (d - prev.d); if (sl < -0.5) slope = sl; }
       const next = clampD(d + (P - fl.e) / slope);
@@ -219,8 +230,9 @@ function searchLine<T extends LineTrial>(
     // 3d. A weak ball that falls short of the pocket from the deepest line at the usual launch: straighten the
     //     launch (the laydown moves toward the target) until it gets there.
     root((x) => eval2(x, inner.t), Math.max(1, inner.t + dMin), Math.min(39, inner.t + dMax), inner.t + d - (P - inner.e) / 2.4, 1 - arrowsToPins);
-  } else if (!valley && usual && fl.e <= P) {
-    // 3c. No hold area at the usual launch: move the line inward from the floor until the ball reaches the pocket.
+  } else if (!valley && fl.e <= P) {
+    // 3c. No hold area (at the usual launch, or the straightest one the ball needed): move the line inward from the
+    //     floor until the ball reaches the pocket.
     root((x) => eval2(x + d, x), fl.t, hi, Math.min(hi, fl.t + (P - fl.e)), 1);
   } else if (valley && fl.e < P - 1.5 && d <= dMin + 1e-6) {
     // 3b. Even the straightest launch floors well below the pocket: play the wall outside the floor (the dry

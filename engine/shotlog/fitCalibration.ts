@@ -48,6 +48,7 @@ interface Usable {
   obs: CalibrationObservation;
   spec: string;
   games: number;
+  lane: LaneSurface;
 }
 
 /**
@@ -80,7 +81,9 @@ interface Usable {
  * breakpoints ≈ 250 ms median; the same 40 as pocket results only ≈ 1.5 s (a flat-bottomed loss: the
  * interval is found by bisection, about 35 model deliveries per observation).
  *
- * @param input `bowler`, `pattern`, `observations`; optional `minShots` (integer ≥ 1, default 12).
+ * @param input `bowler`, `pattern`, `observations` (each may name the `lane` surface it was thrown on); optional
+ *   `minShots` (integer ≥ 1, default 12) and `lane` (the surface of observations that name none, and of the
+ *   reachability check: today's lanes; default synthetic, medium friction).
  * @returns Calibration: `shots` (usable observations), `enough`, `minShots`, `perBall` (ballId,
  *   frictionScale, low, high, n, enough, RMS residual before/after), `rmsBoardsBefore`/`After` (over all
  *   residuals, at scale 1 and at the fitted scales) and a plain-English `note`. Observations with no
@@ -116,21 +119,23 @@ export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPatte
       throw new TypeError(`${fn}: ${name}.hit must be one of pocket, high, light, brooklyn, miss or null, got ${show(r.hit)}`);
     }
     const games = r.gamesBowled === undefined ? 0 : inRange(fn, `${name}.gamesBowled`, r.gamesBowled, 0, 50);
+    const obsLane = r.lane === undefined || r.lane === null ? lane : laneSurfaceOf(`${fn}: ${name}`, r.lane as LaneSurface);
     const obs = o as CalibrationObservation;
     const usable = typeof obs.breakpointBoard === 'number' || (obs.hit !== undefined && obs.hit !== null && obs.hit !== 'miss');
     if (!usable) return;
     const { id, ...spec } = obs.ball;
     const list2 = byBall.get(id) ?? [];
-    list2.push({ obs, spec: JSON.stringify(spec), games });
+    list2.push({ obs, spec: JSON.stringify(spec), games, lane: obsLane });
     byBall.set(id, list2);
   });
 
-  const maps = new Map<number, LaneOilMap>();
-  const mapFor = (games: number): LaneOilMap => {
-    let m = maps.get(games);
+  const maps = new Map<string, LaneOilMap>();
+  const mapFor = (games: number, on: LaneSurface): LaneOilMap => {
+    const key = `${games}\u0000${on.kind}\u0000${on.friction}`;
+    let m = maps.get(key);
     if (!m) {
-      m = conditionOilMap(pattern, bowler, games, lane);
-      maps.set(games, m);
+      m = conditionOilMap(pattern, bowler, games, on);
+      maps.set(key, m);
     }
     return m;
   };
@@ -142,10 +147,10 @@ export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPatte
       const prepared = new Map<string, PreparedShot>();
       const out: number[] = [];
       for (const u of items) {
-        const key = `${u.spec}\u0000${u.games}`;
+        const key = `${u.spec}\u0000${u.games}\u0000${u.lane.kind}\u0000${u.lane.friction}`;
         let shot = prepared.get(key);
         if (!shot) {
-          shot = prepareShot({ ball: u.obs.ball, bowler, pattern, frictionScale: s, lane }, mapFor(u.games));
+          shot = prepareShot({ ball: u.obs.ball, bowler, pattern, frictionScale: s, lane: u.lane }, mapFor(u.games, u.lane));
           prepared.set(key, shot);
         }
         const r = shot.run(u.obs.laydownBoard, u.obs.targetBoard);
@@ -182,7 +187,7 @@ export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPatte
     let keptReachable = false;
     if (items.some((u) => u.obs.hit === 'pocket') && sHat !== 1) {
       const last = items[items.length - 1].obs.ball;
-      const reaches = (sc: number) => { const sh = prepareShot({ ball: last, bowler, pattern, frictionScale: sc, lane }, mapFor(0)); return solvePocketLine(sh.run, {}, {}, sh.preview).reached; };
+      const reaches = (sc: number) => { const sh = prepareShot({ ball: last, bowler, pattern, frictionScale: sc, lane }, mapFor(0, lane)); return solvePocketLine(sh.run, {}, {}, sh.preview).reached; };
       if (!reaches(sHat)) {
         keptReachable = true;
         let bad = sHat, good = 1;

@@ -6,7 +6,7 @@
  * counts them; a left-hander's board b is pattern board 40 − b), feet from the foul line,
  * percentages 0–100 in `Rate`, proportions 0–1 from `wilsonInterval`.
  */
-import type { BallSpec } from '../types';
+import type { BallSpec, LaneSurface } from '../types';
 
 /**
  * One logged delivery: which frame and delivery it was and the pins standing AFTER it.
@@ -177,6 +177,8 @@ export interface CalibrationObservation {
   hit?: HitKind | null;
   /** Games bowled on the pattern before this shot (default 0). */
   gamesBowled?: number;
+  /** The lane surface this shot was thrown on (default: fitCalibration's `lane`). */
+  lane?: LaneSurface;
 }
 
 /** The friction scale fitted for one ball, with its 95 % interval. */

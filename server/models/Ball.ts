@@ -18,6 +18,8 @@ export class Ball extends Model<InferAttributes<Ball>, InferCreationAttributes<B
   declare coverType: CoverType;
   declare coreType: 'symmetric' | 'asymmetric';
   declare hardnessD: number | null;
+  /** Year the ball model was approved (the catalogue model's release year; null when entered by hand): the hardness limit depends on it. */
+  declare approvalYear: CreationOptional<number | null>;
   declare surfaceGrit: number;
   declare polished: boolean;
   declare layout: Layout | null;
@@ -46,6 +48,7 @@ export class Ball extends Model<InferAttributes<Ball>, InferCreationAttributes<B
         coverType: { type: DataTypes.STRING(20), allowNull: false },
         coreType: { type: DataTypes.STRING(12), allowNull: false },
         hardnessD: { type: DataTypes.REAL, allowNull: true },
+        approvalYear: { type: DataTypes.INTEGER, allowNull: true },
         surfaceGrit: { type: DataTypes.INTEGER, allowNull: false },
         polished: { type: DataTypes.BOOLEAN, allowNull: false },
         layout: { type: DataTypes.JSONB, allowNull: true },

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import type { Sweep } from '../../engine/types';
+import type { LaneSurface, Sweep } from '../../engine/types';
 import type { PatternSummary } from '../../shared/patterns';
 
 /** A published house condition: a snapshot of the pattern, never updated (corrections are new rows). */
@@ -14,6 +14,9 @@ export class Condition extends Model<InferAttributes<Condition>, InferCreationAt
   declare validFrom: string;
   declare validTo: string | null;
   declare notes: string | null;
+  /** The lane surface the condition is bowled on (default synthetic, medium friction). */
+  declare laneKind: CreationOptional<LaneSurface['kind']>;
+  declare laneFriction: CreationOptional<LaneSurface['friction']>;
   declare publishedAt: Date;
   declare publishedBy: number | null;
   declare createdAt: CreationOptional<Date>;
@@ -32,6 +35,8 @@ export class Condition extends Model<InferAttributes<Condition>, InferCreationAt
         validFrom: { type: DataTypes.DATEONLY, allowNull: false },
         validTo: { type: DataTypes.DATEONLY, allowNull: true },
         notes: { type: DataTypes.STRING(2000), allowNull: true },
+        laneKind: { type: DataTypes.STRING(10), allowNull: false, defaultValue: 'synthetic' },
+        laneFriction: { type: DataTypes.STRING(6), allowNull: false, defaultValue: 'medium' },
         publishedAt: { type: DataTypes.DATE, allowNull: false },
         publishedBy: { type: DataTypes.INTEGER, allowNull: true },
         createdAt: DataTypes.DATE,

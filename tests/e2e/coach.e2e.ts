@@ -112,7 +112,7 @@ describe('coach: invitations, plans and the side-by-side what-if at 375 px', () 
     await choose(page, 'Ball to compare', /^Big Red/);
     await choose(page, 'Condition to compare on', 'Long Haul 47');
     await choose(page, 'Version B grit', '4000 grit');
-    const verdict = page.getByRole('status').filter({ hasText: /^B's breakpoint is \d+\.\d ft (later|earlier) than A's/ });
+    const verdict = page.getByRole('status').filter({ hasText: /^From A to B: Breakpoint (\d+\.\d ft (later|earlier)|at the same distance)/ });
     await verdict.waitFor({ timeout: 30000 });
     await page.getByRole('img', { name: /^Lane view of Long Haul 47 from above/ }).waitFor();
     expect(await page.locator('svg path[data-ball="a"]').count()).toBe(1);

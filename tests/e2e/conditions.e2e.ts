@@ -4,11 +4,11 @@ import type { Browser, Page } from 'playwright-core';
 import { DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
 
 /**
- * Flow 1 of PRODUCT.md in the browser: the demo proprietor builds a pattern in the editor (numbers update as
+ * The condition publishing flow in the browser: the demo proprietor builds a pattern in the editor (numbers update as
  * sweeps are typed), saves it and publishes it for lanes 1–12 at Copperline Bowl; a visitor with no account
  * reads it on the public condition page; a follower sees it on Conditions and gets the e-mail.
  *
- * Expected numbers are worked out by hand from TRADE.md 4.1 (volume = boards covered × crossings × µL per board):
+ * Expected numbers are worked out by hand from the lane-machine volume arithmetic (volume = boards covered × crossings × µL per board):
  *   sweep 1 forward boards 2–38 (37) × 2 × 60 µL = 4 440 µL
  *   sweep 2 forward boards 8–32 (25) × 4 × 60 µL = 6 000 µL
  *   sweep 3 forward boards 13–27 (15) × 6 × 60 µL = 5 400 µL
@@ -139,6 +139,10 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
     await dialog.getByText('12 of 24 chosen').waitFor();
     expect(await dialog.getByRole('button', { name: 'Lane 12', exact: true }).getAttribute('aria-pressed')).toBe('true');
     expect(await dialog.getByRole('button', { name: 'Lane 13', exact: true }).getAttribute('aria-pressed')).toBe('false');
+    // The lane surface of those lanes (default synthetic, medium friction): wood with low friction.
+    expect(await dialog.getByRole('radiogroup', { name: 'Lane material' }).getByRole('radio', { name: 'Synthetic' }).isChecked()).toBe(true);
+    await dialog.getByRole('radiogroup', { name: 'Lane material' }).getByText('Wood', { exact: true }).click();
+    await dialog.getByRole('radiogroup', { name: 'Lane friction' }).getByText('Low', { exact: true }).click();
     await dialog.getByLabel('Notes for bowlers (optional)').fill('Fresh oil on lanes 1–12 for the Tuesday trio league.');
     await screenshot(page, 'center-publish-form-desktop');
     await dialog.getByRole('button', { name: 'Preview' }).click();
@@ -147,6 +151,7 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
     await preview.getByText(PATTERN_NAME).first().waitFor();
     await preview.getByText('Lanes 1–12', { exact: true }).waitFor();
     await preview.getByText('18.00 mL').first().waitFor();
+    await preview.getByText('Wood lanes, low friction', { exact: true }).waitFor();
     await screenshot(page, 'center-publish-preview-desktop');
     await dialog.getByRole('button', { name: 'Publish for lanes 1–12' }).click();
 
@@ -170,6 +175,7 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
       await page.getByText('Lanes 1–12').first().waitFor();
       await page.locator('[data-number="volume"]').getByText('18.00 mL').waitFor();
       await page.getByText('Fresh oil on lanes 1–12 for the Tuesday trio league.').waitFor();
+      await page.getByTestId('condition-lane-surface').filter({ hasText: 'Wood lanes, low friction' }).waitFor();
       await page.getByText(/shoe soles makes them slippery and causes falls/).waitFor();
       await page.getByRole('img', { name: `Oil map of ${PATTERN_NAME}` }).waitFor();
       const sheet = page.getByRole('link', { name: 'Printable sheet (PDF)' });

@@ -4,7 +4,7 @@ import type { Browser, Page } from 'playwright-core';
 import { ARTIFACTS_DIR, DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
 
 /**
- * Flow 6 of PRODUCT.md in the browser: the proprietor puts a 4000-grit resurface on Copperline Bowl's price list;
+ * The resurface order flow in the browser: the proprietor puts a 4000-grit resurface on Copperline Bowl's price list;
  * the demo bowler orders it for one of her balls from the Ball page, pays on the payment service's hosted card
  * page (the project's local fake of it in tests) — first with the test card that is declined (the order stays
  * unpaid, the reason shown), then with the one that succeeds — and comes back to the order, which shows as paid

@@ -2,9 +2,9 @@ import { describe, expect, it } from 'vitest';
 import { checkLegality, USBC_BALL_LIMITS } from '../../engine/index';
 import type { BallSpec } from '../../engine/index';
 
-// Check values: current USBC limits as recorded in Lanewright's conventions (engine/README.md) and
-// section 1.1 — weight ≤ 16 lb, diameter 8.500–8.595 in, RG 2.460–2.800 in, differential ≤ 0.060 in
-// (USBC spec summary, S), hardness ≥ 73 D (2020 USBC release, P); limits for balls ≥ 13 lb.
+// Check values: the current USBC equipment specifications (docs/sources.md) — weight ≤ 16 lb, diameter
+// 8.500–8.595 in, RG 2.460–2.800 in, differential ≤ 0.060 in, hardness ≥ 73 D (the USBC release of June 2020;
+// 72 D for balls approved before 2021); limits for balls ≥ 13 lb.
 
 const legal: BallSpec = {
   weightLb: 15,

@@ -13,14 +13,20 @@ export const api = supertest(app);
 // single `npm start` process does.
 await startWorkers();
 
-/** Waits (up to `timeoutMs`) until the outbox has nothing pending or being sent: background mail work has settled. */
-export async function outboxIdle(timeoutMs = 10000): Promise<void> {
+/** Polls a count query until it answers 0 or `timeoutMs` pass; returns whether it reached 0. */
+async function untilNone(sql: string, replacements: Record<string, unknown>, timeoutMs: number): Promise<boolean> {
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
-    const [row] = await sequelize.query<{ n: string }>("SELECT count(*) AS n FROM mail_outbox WHERE status IN ('pending', 'sending')", { type: QueryTypes.SELECT });
-    if (Number(row.n) === 0) return;
+    const [row] = await sequelize.query<{ n: string }>(sql, { type: QueryTypes.SELECT, replacements });
+    if (Number(row.n) === 0) return true;
     await new Promise((r) => setTimeout(r, 50));
   }
+  return false;
+}
+
+/** Waits (up to `timeoutMs`) until the outbox has nothing pending or being sent: background mail work has settled. */
+export async function outboxIdle(timeoutMs = 10000): Promise<void> {
+  await untilNone("SELECT count(*) AS n FROM mail_outbox WHERE status IN ('pending', 'sending')", {}, timeoutMs);
 }
 
 let counter = 0;
@@ -47,13 +53,11 @@ export function errorOf(body: unknown): { code: string; message: string; fields?
   return { code: e.code, message: e.message, fields: e.fields };
 }
 
-/** Waits (up to `timeoutMs`) until no calibration fit is queued or running: the stored fits are current. */
-export async function calibrationsIdle(timeoutMs = 30000): Promise<void> {
-  const deadline = Date.now() + timeoutMs;
-  while (Date.now() < deadline) {
-    const [row] = await sequelize.query<{ n: string }>("SELECT count(*) AS n FROM pgboss.job WHERE name = 'calibration' AND state IN ('created', 'retry', 'active')", { type: QueryTypes.SELECT });
-    if (Number(row.n) === 0) return;
-    await new Promise((r) => setTimeout(r, 50));
-  }
-  throw new Error(`calibration fits still queued after ${timeoutMs} ms`);
+/**
+ * Waits (up to `timeoutMs`) until no calibration fit of this bowler is queued or running (of anyone's without a
+ * bowler): the stored fits are current. Another test file's process may have left a job of its own bowlers running.
+ */
+export async function calibrationsIdle(bowlerId?: number, timeoutMs = 15000): Promise<void> {
+  const sql = `SELECT count(*) AS n FROM pgboss.job WHERE name = 'calibration' AND state IN ('created', 'retry', 'active')${bowlerId === undefined ? '' : " AND data->>'bowlerId' = :bowler"}`;
+  if (!(await untilNone(sql, { bowler: String(bowlerId) }, timeoutMs))) throw new Error(`calibration fits still queued after ${timeoutMs} ms`);
 }

@@ -1,7 +1,7 @@
 import os from 'node:os';
 import path from 'node:path';
 import pg from 'pg';
-import { inject } from 'vitest';
+import { afterAll, inject } from 'vitest';
 
 // Runs in each test worker before a test file imports the server: point its config at the test database.
 process.env.DATABASE_URL = inject('databaseUrl');
@@ -26,3 +26,10 @@ process.env.TRUST_PROXY ??= 'loopback';
   await c.connect();
   await c.query('DELETE FROM rate_limit_hits').finally(() => c.end());
 }
+
+// At the end of each test file its process stops working the job queue, letting running jobs finish, so no job is
+// left active for the next file's process to wait out (the queue's expiry).
+afterAll(async () => {
+  const { stopJobs } = await import('../../server/lib/jobs');
+  await stopJobs(10000);
+});

@@ -28,7 +28,7 @@ export async function createBall(ownerId: number, spec: Omit<BallModelInput, 'ma
   const m = await createModel(spec);
   const ball = await Ball.create({
     ownerId, ballModelId: m.id, name: m.name, maker: m.maker, nickname: null, weightLb: 15, rg: m.rg, differential: m.differential, intermediateDifferential: m.intermediateDifferential,
-    coverType: m.coverType, coreType: m.coreType, hardnessD: m.hardnessD, surfaceGrit: over.surfaceGrit ?? m.factoryGrit, polished: over.polished ?? m.factoryPolished,
+    coverType: m.coverType, coreType: m.coreType, hardnessD: m.hardnessD, approvalYear: m.releaseYear, surfaceGrit: over.surfaceGrit ?? m.factoryGrit, polished: over.polished ?? m.factoryPolished,
     layout: { pinToPapIn: 4.5, drillingAngleDeg: 45 }, gamesSinceResurface: 10, status: over.status ?? 'active',
   });
   await SurfaceEvent.create({ ballId: ball.id, fromGrit: null, fromPolished: null, toGrit: ball.surfaceGrit, toPolished: ball.polished, at: new Date(), byUserId: ownerId, note: null });
@@ -39,7 +39,7 @@ const sw = (direction: Sweep['direction'], fromBoard: number, toBoard: number, e
   direction, fromBoard, toBoard, startFt: 0, endFt, crossings, microlitersPerBoard,
 });
 
-/** Test patterns whose classes follow from TRADE.md's conventions table (length ≥ 43 ft long, < 37 ft short; > 25 mL heavy, < 20 mL light). */
+/** Test patterns whose classes follow from Lanewright's conventions table (engine/README.md) (length ≥ 43 ft long, < 37 ft short; > 25 mL heavy, < 20 mL light). */
 export const LONG_HEAVY: Sweep[] = [sw('forward', 2, 38, 48, 4, 70), sw('forward', 8, 32, 45, 4, 70), sw('forward', 14, 26, 42, 4, 70), sw('reverse', 2, 38, 38, 2, 70)];
 export const SHORT_LIGHT: Sweep[] = [sw('forward', 3, 37, 33, 2, 50), sw('forward', 10, 30, 31, 2, 50), sw('reverse', 15, 25, 28, 2, 50)];
 

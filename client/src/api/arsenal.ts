@@ -37,7 +37,5 @@ export const arsenalApi = {
   },
 };
 
-/** The name a bowler knows a ball by: its nickname, else its model name. */
-export function ballLabel(ball: Pick<Ball, 'name' | 'nickname'>): string {
-  return ball.nickname ? `${ball.nickname} (${ball.name})` : ball.name;
-}
+/** The name a bowler knows a ball by (shared with the server, which gives it to the engine for its texts). */
+export { ballLabel } from '@shared/balls';

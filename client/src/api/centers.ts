@@ -1,12 +1,8 @@
 import type { Page } from '@shared/auth';
-import type { Center, Condition, CurrentCondition, PublishCondition } from '@shared/centers';
+import type { Center, Condition, CurrentCondition, FollowedCenter, PublishCondition } from '@shared/centers';
 import { api } from './client';
 
-/** One followed center and the condition in force there now (null when nothing is published). */
-export interface FollowedCenter {
-  center: Center;
-  current: Condition | null;
-}
+export type { FollowedCenter };
 
 /**
  * Centers and their published conditions. The list, a center, its current condition, its PDF sheet and its

@@ -1,5 +1,5 @@
 import type { Calibration } from '@engine/index';
-import type { StatsQuery, StatsResult, StatsTrendPoint } from '@shared/sessions';
+import type { CalibrationQuery, StatsQuery, StatsResult, StatsTrendPoint } from '@shared/sessions';
 import { api } from './client';
 
 export type { StatsQuery, StatsResult };
@@ -7,6 +7,6 @@ export type TrendPoint = StatsTrendPoint;
 
 export const statsApi = {
   get: (query: StatsQuery = {}, signal?: AbortSignal) => api.get<{ item: StatsResult }>('/stats', { query: { ...query }, signal }),
-  calibration: (query: { patternId?: number; studentId?: number } = {}, signal?: AbortSignal) =>
-    api.get<{ item: Calibration }>('/calibration', { query: { ...query }, signal }),
+  /** The calibration a matchup on this pattern and lane surface (or this published condition) applies. */
+  calibration: (query: CalibrationQuery, signal?: AbortSignal) => api.get<{ item: Calibration }>('/calibration', { query: { ...query }, signal }),
 };

@@ -1,53 +1,44 @@
 import { computed, ref, shallowRef } from 'vue';
+import { oilGrid, type LaneSurface, type OilGrid } from '@engine/index';
 import type { Ball } from '@shared/balls';
-import type { PatternDetail, PatternListItem } from '@shared/patterns';
+import { DEFAULT_LANE_SURFACE } from '@shared/centers';
 import { arsenalApi } from '@/api/arsenal';
 import { errorMessage } from '@/api/client';
 import { matchupsApi, type MatchupResult } from '@/api/matchups';
-import { patternsApi } from '@/api/patterns';
+import { mapMaxFt } from '@/composables/usePatternDraft';
+import { useConditionChoices } from '@/composables/useConditionChoices';
 
 /** One colour per ball in charts (distinct from the blue oil scale and the maple lane), with a legend. */
 export const BALL_COLOURS = ['#c2410c', '#7c3aed', '#be123c', '#15803d', '#0f172a', '#a21caf', '#b45309', '#0e7490', '#4d7c0f', '#9f1239'] as const;
 
 /**
- * The Matchup screen's state: the conditions to choose from, the chosen pattern (with its oil grid and
- * sweeps for the in-browser what-if), games bowled, the server's ranking, and the bowler's full ball
- * specs (the what-if re-ranks with the same engine in the browser).
+ * The Matchup screen's state: the conditions to choose from (today's publications at followed centers, and
+ * every pattern with a lane surface chosen beside it), games bowled, the server's ranking with the engine input
+ * it used (pattern sweeps, lane, bowler, calibration), and the bowler's full ball specs (the what-if re-ranks
+ * one ball with the same engine in the browser).
  */
 export function useMatchup() {
-  const patterns = shallowRef<PatternListItem[]>([]);
-  const patternsLoading = ref(false);
-  const patternsError = ref('');
-
-  const patternId = ref<number | null>(null);
-  const pattern = shallowRef<PatternDetail | null>(null);
+  const choices = useConditionChoices();
+  /** The chosen condition or pattern (useConditionChoices keys). */
+  const choiceKey = ref<string | null>(null);
+  const choice = computed(() => (choiceKey.value === null ? null : (choices.byKey.value.get(choiceKey.value) ?? null)));
+  /** The lane surface for a plain pattern (a published condition names its own). */
+  const lane = ref<LaneSurface>({ ...DEFAULT_LANE_SURFACE });
   const gamesBowled = ref(0);
 
   const result = shallowRef<MatchupResult | null>(null);
   const running = ref(false);
   const runError = ref('');
 
-  /** The bowler's balls by id, with every spec (hardness included) for the what-if. */
+  /** The bowler's balls by id, with every spec (hardness, wear, approval year) for the what-if. */
   const balls = shallowRef<Map<number, Ball>>(new Map());
-
-  async function loadPatterns(): Promise<void> {
-    patternsLoading.value = true;
-    patternsError.value = '';
-    try {
-      const res = await patternsApi.list({ sort: 'name', order: 'asc' });
-      patterns.value = res.items;
-    } catch (err) {
-      patternsError.value = errorMessage(err, 'The conditions could not be loaded.');
-    } finally {
-      patternsLoading.value = false;
-    }
-  }
 
   let controller: AbortController | null = null;
 
-  /** Runs the matchup for the chosen pattern and games bowled (the latest call wins). */
+  /** Runs the matchup for the chosen condition and games bowled (the latest call wins). */
   async function run(): Promise<void> {
-    if (patternId.value === null) {
+    const c = choice.value;
+    if (c === null) {
       runError.value = 'Choose a condition first.';
       return;
     }
@@ -56,16 +47,13 @@ export function useMatchup() {
     controller = current;
     running.value = true;
     runError.value = '';
-    const id = patternId.value;
     try {
-      const needPattern = pattern.value?.id !== id;
-      const [res, detail, arsenal] = await Promise.all([
-        matchupsApi.run({ patternId: id, gamesBowled: gamesBowled.value }, current.signal),
-        needPattern ? patternsApi.get(id, current.signal) : Promise.resolve(null),
+      const body = c.kind === 'condition' ? { conditionId: c.conditionId } : { patternId: c.patternId, lane: { ...lane.value } };
+      const [res, arsenal] = await Promise.all([
+        matchupsApi.run({ ...body, gamesBowled: gamesBowled.value }, current.signal),
         balls.value.size === 0 ? arsenalApi.list({ pageSize: 100, status: 'active' }, current.signal) : Promise.resolve(null),
       ]);
       if (controller !== current) return;
-      if (detail) pattern.value = detail.item;
       if (arsenal) balls.value = new Map(arsenal.items.map((b) => [b.id, b]));
       result.value = res;
     } catch (err) {
@@ -76,11 +64,17 @@ export function useMatchup() {
     }
   }
 
+  /** The oil on the lane the ranking was worked out for (the pattern's sweeps as the server used them). */
+  const grid = computed<OilGrid | null>(() => {
+    const p = result.value?.pattern;
+    return p ? oilGrid({ name: p.name, sweeps: p.sweeps }, { boardStep: 1, ftStep: 1, maxFt: mapMaxFt(p.summary.lengthFt) }) : null;
+  });
+
   /** A stable colour per ball: by id order, so a ball keeps its colour as the ranking changes. */
   const colours = computed<Record<number, string>>(() => {
     const ids = (result.value?.rankings ?? []).map((r) => r.ballId).sort((a, b) => a - b);
     return Object.fromEntries(ids.map((id, i) => [id, BALL_COLOURS[i % BALL_COLOURS.length]]));
   });
 
-  return { patterns, patternsLoading, patternsError, loadPatterns, patternId, pattern, gamesBowled, result, running, runError, run, balls, colours };
+  return { choices, choiceKey, choice, lane, gamesBowled, result, running, runError, run, balls, grid, colours };
 }

@@ -1,6 +1,6 @@
 import { checkLegality, type BallSpec, type CoverType, type LegalityResult } from '@engine/index';
 import type { Ball } from '@shared/balls';
-import { BALL_STATUSES, CORE_TYPES } from '@shared/balls';
+import { BALL_STATUSES, CORE_TYPES, formatEighths } from '@shared/balls';
 
 export const COVER_LABELS: Readonly<Record<CoverType, string>> = {
   plastic: 'Plastic',
@@ -41,10 +41,10 @@ export function inches3(value: number): string {
   return value.toFixed(3);
 }
 
-/** A layout in the trade's short form: "4.5 in × 50° × 40°" (pin-to-PAP × drilling angle × VAL angle). */
+/** A layout as the pro shop writes it: "4 1/2 in pin-to-PAP, 50° drilling angle, 40° VAL angle". */
 export function layoutText(layout: Ball['layout']): string {
   if (!layout) return 'Not drilled yet';
-  const parts = [`${layout.pinToPapIn} in pin-to-PAP`];
+  const parts = [`${formatEighths(layout.pinToPapIn)} in pin-to-PAP`];
   if (layout.drillingAngleDeg != null) parts.push(`${layout.drillingAngleDeg}° drilling angle`);
   if (layout.valAngleDeg != null) parts.push(`${layout.valAngleDeg}° VAL angle`);
   return parts.join(', ');

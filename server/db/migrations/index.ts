@@ -6,8 +6,10 @@ import * as m0003 from './20261201-0003-centers-conditions';
 import * as m0004 from './20261201-0004-uploads';
 import * as m0005 from './20261201-0005-sessions-coaching';
 import * as m0006 from './20261201-0006-shop';
+import * as m0007a from './20261215-0001-lane-surface-approval-year';
 import * as m0007 from './20261215-0007-account-security';
 import * as m0008 from './20261220-0008-production-service';
+import * as m0009 from './20261220-0009-calibration-fits-by-lane';
 import type { QueryInterface } from 'sequelize';
 
 export interface MigrationModule {
@@ -23,6 +25,8 @@ export const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '20261201-0004-uploads.ts', module: m0004 },
   { name: '20261201-0005-sessions-coaching.ts', module: m0005 },
   { name: '20261201-0006-shop.ts', module: m0006 },
+  { name: '20261215-0001-lane-surface-approval-year.ts', module: m0007a },
   { name: '20261215-0007-account-security.ts', module: m0007 },
   { name: '20261220-0008-production-service.ts', module: m0008 },
+  { name: '20261220-0009-calibration-fits-by-lane.ts', module: m0009 },
 ];

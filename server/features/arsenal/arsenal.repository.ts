@@ -24,6 +24,7 @@ export function toBallDto(b: BallRow): BallDto {
     coverType: b.coverType,
     coreType: b.coreType,
     hardnessD: b.hardnessD,
+    approvalYear: b.approvalYear ?? null,
     surfaceGrit: b.surfaceGrit,
     polished: b.polished,
     layout: b.layout,

@@ -1,6 +1,8 @@
 import type { Page } from '../../../shared/auth';
 import {
   BallByHandSchema,
+  LayoutSchema,
+  PinToPapTextSchema,
   type ArsenalQuery,
   type Ball as BallDto,
   type BallCreate,
@@ -12,7 +14,11 @@ import { cell, parseCsvRows } from '../../lib/upload';
 import { sequelize, Upload } from '../../models/index';
 import { decodeImage, storage } from '../../lib/storage';
 import { catalogueRepository } from '../catalogue/catalogue.repository';
+import { refitBowlerAfterCommit } from '../stats/calibrationJobs';
 import { arsenalRepository, toBallDto } from './arsenal.repository';
+
+/** A row of the arsenal CSV: a hand-entered ball whose pin-to-PAP may be written as a pro shop writes it ("4 3/8", "4-3/8", "4.375"). */
+const ArsenalCsvRowSchema = BallByHandSchema.extend({ layout: LayoutSchema.extend({ pinToPapIn: PinToPapTextSchema }).nullable().optional() });
 
 /** Lanewright's arsenal CSV columns (header row required; order free). */
 export const ARSENAL_CSV_COLUMNS = [
@@ -44,7 +50,7 @@ export const arsenalService = {
         data = {
           ownerId, ballModelId: m.id, name: m.name, maker: m.maker, nickname: input.nickname ?? null, weightLb: input.weightLb,
           rg: m.rg, differential: m.differential, intermediateDifferential: m.intermediateDifferential, coverType: m.coverType, coreType: m.coreType,
-          hardnessD: m.hardnessD, surfaceGrit: input.surfaceGrit ?? m.factoryGrit, polished: input.polished ?? m.factoryPolished,
+          hardnessD: m.hardnessD, approvalYear: m.releaseYear, surfaceGrit: input.surfaceGrit ?? m.factoryGrit, polished: input.polished ?? m.factoryPolished,
           layout: input.layout ?? null, gamesSinceResurface: input.gamesSinceResurface, status: input.status,
         };
       } else {
@@ -73,6 +79,7 @@ export const arsenalService = {
       const { version: _v, ...fields } = patch;
       b.set({ ...fields, layout: fields.layout === undefined ? b.layout : fields.layout });
       await b.save({ transaction });
+      refitBowlerAfterCommit(ownerId, transaction); // the fits read the ball's specs
       return toBallDto(b);
     });
   },
@@ -102,6 +109,7 @@ export const arsenalService = {
       );
       b.set({ surfaceGrit: change.surfaceGrit, polished: change.polished, gamesSinceResurface: 0 });
       await b.save({ transaction });
+      refitBowlerAfterCommit(ownerId, transaction); // shots on the earlier surface are read without today's wear
       const withHistory = await arsenalRepository.findOwned(ownerId, id, { withHistory: true, transaction });
       return toBallDto(withHistory!);
     });
@@ -154,8 +162,8 @@ export const arsenalService = {
 
   /** Imports hand-entered balls from CSV: all rows or none, errors by line. */
   async importCsv(ownerId: number, buf: Buffer): Promise<{ imported: number; items: BallDto[] }> {
-    const rows = parseCsvRows(buf, BallByHandSchema, (r) => {
-      const pin = cell.num(r.pinToPapIn);
+    const rows = parseCsvRows(buf, ArsenalCsvRowSchema, (r) => {
+      const pin = cell.str(r.pinToPapIn);
       return {
         name: cell.str(r.name),
         nickname: cell.str(r.nickname) ?? null,

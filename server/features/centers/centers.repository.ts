@@ -1,12 +1,18 @@
 import { Op, type Transaction } from 'sequelize';
-import type { Center as CenterDto, Condition as ConditionDto } from '../../../shared/centers';
+import { laneSurfaceText, type Center as CenterDto, type Condition as ConditionDto, type LaneSurface } from '../../../shared/centers';
 import { Center, Condition, Follow } from '../../models/index';
 
 export function toCenterDto(c: Center, following?: boolean): CenterDto {
   return { id: c.id, name: c.name, town: c.town, laneCount: c.laneCount, ownerId: c.ownerId, ...(following === undefined ? {} : { following }) };
 }
 
+/** The lane surface a publication names. */
+export function laneOf(c: Pick<Condition, 'laneKind' | 'laneFriction'>): LaneSurface {
+  return { kind: c.laneKind, friction: c.laneFriction };
+}
+
 export function toConditionDto(c: Condition, supersededBy: number | null = null): ConditionDto {
+  const lane = laneOf(c);
   return {
     id: c.id,
     centerId: c.centerId,
@@ -18,6 +24,8 @@ export function toConditionDto(c: Condition, supersededBy: number | null = null)
     publishedBy: c.publishedBy,
     supersededBy,
     pattern: { id: c.patternId, name: c.patternName, sweeps: c.sweeps, summary: c.summary },
+    lane,
+    laneText: laneSurfaceText(lane),
   };
 }
 
@@ -27,6 +35,10 @@ export const centersRepository = {
   },
   findById(id: number, transaction?: Transaction): Promise<Center | null> {
     return Center.findByPk(id, { transaction });
+  },
+  /** A publication with its center, or null. */
+  findCondition(id: number): Promise<(Condition & { center: Center }) | null> {
+    return Condition.findByPk(id, { include: [{ model: Center, as: 'center' }] }) as Promise<(Condition & { center: Center }) | null>;
   },
   /** Publications in force on `day` (YYYY-MM-DD) at one center or several, newest publication first. */
   inForce(centerId: number | number[], day: string): Promise<Condition[]> {

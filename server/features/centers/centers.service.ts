@@ -1,6 +1,6 @@
 import crypto from 'node:crypto';
 import type { Page } from '../../../shared/auth';
-import type { Center as CenterDto, CenterInput, Condition as ConditionDto, CurrentCondition, PublishCondition } from '../../../shared/centers';
+import { laneSurfaceText, type Center as CenterDto, type CenterInput, type Condition as ConditionDto, type CurrentCondition, type FollowedCenter, type PublishCondition } from '../../../shared/centers';
 import { publicUrl } from '../../lib/publicUrl';
 import { AppError } from '../../lib/AppError';
 import { audit } from '../../lib/audit';
@@ -86,7 +86,10 @@ export const centersService = {
     const [c] = await centersRepository.inForce(id, todayUtc());
     if (!c) throw new AppError(404, 'no_condition', `${center.name} has no condition in force today`);
     const dto = toConditionDto(c);
-    return { center: toCenterDto(center), condition: dto, pattern: dto.pattern, lanes: dto.lanes, validFrom: dto.validFrom, validTo: dto.validTo, notes: dto.notes };
+    return {
+      center: toCenterDto(center), condition: dto, pattern: dto.pattern, lanes: dto.lanes, validFrom: dto.validFrom, validTo: dto.validTo, notes: dto.notes,
+      lane: dto.lane, laneText: dto.laneText,
+    };
   },
 
   async history(id: number, page: number, pageSize: number): Promise<Page<ConditionDto>> {
@@ -114,10 +117,11 @@ export const centersService = {
         {
           centerId, patternId: pattern.id, patternName: pattern.name, sweeps: pattern.sweeps, summary: pattern.summary, lanes: [...new Set(input.lanes)].sort((a, b) => a - b),
           validFrom: input.validFrom, validTo: input.validTo ?? null, notes: input.notes ?? null, publishedAt: new Date(), publishedBy: actor.id,
+          laneKind: input.lane.kind, laneFriction: input.lane.friction,
         },
         { transaction },
       );
-      await audit({ actorId: actor.id, action: 'condition.published', subjectType: 'condition', subjectId: c.id, details: { centerId, patternId: pattern.id, lanes: c.lanes } }, transaction);
+      await audit({ actorId: actor.id, action: 'condition.published', subjectType: 'condition', subjectId: c.id, details: { centerId, patternId: pattern.id, lanes: c.lanes, lane: input.lane } }, transaction);
       const follows = await Follow.findAll({ where: { centerId }, include: [{ model: User, as: 'user', attributes: ['email', 'displayName'] }], transaction });
       const s = pattern.summary;
       const page = `${base}/centers/${centerId}/condition`;
@@ -131,6 +135,7 @@ export const centersService = {
             `${center.name} has published a new lane condition: ${pattern.name}.`,
             `Lanes ${laneRanges(c.lanes)}, from ${c.validFrom}${c.validTo ? ` to ${c.validTo}` : ''}.`,
             `Length ${s.lengthFt} ft, volume ${s.volumeMl.toFixed(1)} mL, ratio ${s.ratio === null ? '—' : `${s.ratio.toFixed(1)}:1`} (${s.lengthClass}, ${s.volumeClass}, ${s.ratioClass}).`,
+            `${laneSurfaceText(input.lane)}.`,
             ...(c.notes ? ['', c.notes] : []),
             '',
             `See it and your best-fit balls: ${page}`,
@@ -162,15 +167,23 @@ export const centersService = {
     await Follow.destroy({ where: { userId: user.id, centerId } });
   },
 
-  async follows(user: AuthUser): Promise<{ center: CenterDto; current: ConditionDto | null }[]> {
+  async follows(user: AuthUser): Promise<FollowedCenter[]> {
     const rows = await Follow.findAll({ where: { userId: user.id }, include: [{ model: Center, as: 'center' }], order: [['id', 'ASC']] });
     const centers = rows.map((f) => (f as Follow & { center: Center }).center);
-    // One query for every followed center; the first row per center is its newest publication in force.
-    const newest = new Map<number, Condition>();
-    if (centers.length) for (const c of await centersRepository.inForce(centers.map((x) => x.id), todayUtc())) if (!newest.has(c.centerId)) newest.set(c.centerId, c);
+    // One query for every followed center, newest publication first: the first row per center is its current
+    // condition; each older one still governs the lanes no newer publication has taken.
+    const byCenter = new Map<number, Condition[]>();
+    if (centers.length) for (const c of await centersRepository.inForce(centers.map((x) => x.id), todayUtc())) byCenter.set(c.centerId, [...(byCenter.get(c.centerId) ?? []), c]);
     return centers.map((center) => {
-      const c = newest.get(center.id);
-      return { center: toCenterDto(center, true), current: c ? toConditionDto(c) : null };
+      const list = byCenter.get(center.id) ?? [];
+      const taken = new Set<number>();
+      const inForce: FollowedCenter['inForce'] = [];
+      for (const c of list) {
+        const lanes = c.lanes.filter((n) => !taken.has(n));
+        for (const n of c.lanes) taken.add(n);
+        if (lanes.length) inForce.push({ condition: toConditionDto(c), lanes });
+      }
+      return { center: toCenterDto(center, true), current: list[0] ? toConditionDto(list[0]) : null, inForce };
     });
   },
 

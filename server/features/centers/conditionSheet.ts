@@ -19,7 +19,7 @@ function oilColour(t: number): string {
 }
 
 /**
- * The front-desk sheet of a published condition (A4, fonts embedded): center, lanes, dates, notes,
+ * The front-desk sheet of a published condition (A4, fonts embedded): center, lanes, dates, lane surface, notes,
  * the pattern's numbers and its oil map, and the approach caution.
  */
 export function conditionSheetPdf(center: Center, c: Condition): Promise<Buffer> {
@@ -40,6 +40,7 @@ export function conditionSheetPdf(center: Center, c: Condition): Promise<Buffer>
     doc.font('body').fontSize(12);
     doc.text(`Lanes: ${laneRanges(c.lanes)}`);
     doc.text(`In force: ${c.validFrom}${c.validTo ? ` to ${c.validTo}` : ' until further notice'}`);
+    doc.text(`Lane surface: ${c.laneText}`);
     doc.moveDown(0.6);
 
     const rows: [string, string][] = [

@@ -1,39 +1,24 @@
-import type { BowlerProfile, RankedBall } from '../../../engine/types';
-import { ballToSpec, type Ball as BallDto } from '../../../shared/balls';
-import type { MatchupRequest } from '../../../shared/matchups';
-import type { MatchupCalibration } from '../../../shared/sessions';
-import type { PatternSummary } from '../../../shared/patterns';
+import type { BowlerProfile, RankArsenalInput, RankedBall, Suggestion } from '../../../engine/types';
+import { ballToArsenalBall } from '../../../shared/balls';
+import { laneSurfaceText } from '../../../shared/centers';
+import type { MatchupCalibration, MatchupRanking, MatchupRequest, MatchupResult } from '../../../shared/matchups';
 import { createHash } from 'node:crypto';
 import { LRUCache } from 'lru-cache';
-import type { RankArsenalInput } from '../../../engine/types';
 import type { Calibration } from '../../../engine/shotlog/types';
 import { AppError } from '../../lib/AppError';
 import { rankInWorker } from '../../lib/enginePool';
 import { logger } from '../../lib/logger';
 import type { AuthUser } from '../../middleware/auth';
 import { arsenalRepository, toBallDto } from '../arsenal/arsenal.repository';
-import { patternsService } from '../patterns/patterns.service';
 import { readableBowlerId } from '../coaching/coaching.access';
-import { bowlerOf, calibrationFor } from '../stats/stats.service';
+import { bowlerOf, calibrationFor, engineCondition } from '../stats/stats.service';
 
-export interface MatchupRanking extends RankedBall {
-  ballId: number;
-  ball: Pick<BallDto, 'id' | 'name' | 'nickname' | 'maker' | 'coverType' | 'coreType' | 'rg' | 'differential' | 'intermediateDifferential' | 'surfaceGrit' | 'polished' | 'layout' | 'weightLb'>;
-}
-
-export interface MatchupResult {
-  pattern: { id: number; name: string; summary: PatternSummary };
-  bowler: BowlerProfile;
-  gamesBowled: number;
-  /** Whether the bowler's calibration (from their logged shots on this pattern) was applied. */
-  calibration: MatchupCalibration;
-  rankings: MatchupRanking[];
-}
+export type { MatchupRanking, MatchupResult };
 
 /**
  * The engine is deterministic, so a ranking is cached by the exact input it was computed from (balls with
- * their current specs and surfaces, the bowler's release, the pattern's sweeps, games bowled). Any change to
- * one of them is a different key; nothing has to be invalidated.
+ * their current specs, surfaces, wear and labels, the bowler's release, the pattern's sweeps, the lane surface,
+ * games bowled, the calibration). Any change to one of them is a different key; nothing has to be invalidated.
  */
 const rankingCache = new LRUCache<string, RankedBall[]>({ max: 500 });
 
@@ -46,33 +31,49 @@ async function rankCached(input: RankArsenalInput, signal?: AbortSignal): Promis
   return ranked;
 }
 
+/** A 'ball' suggestion names the engine's string id of another ball: the client gets that ball's numeric id. */
+function withNumericBallIds(suggestions: Suggestion[], ids: ReadonlyMap<string, number>): Suggestion[] {
+  return suggestions.map((s) => {
+    if (s.kind !== 'ball' || typeof s.change?.ballId !== 'string') return s;
+    const ballId = ids.get(s.change.ballId);
+    return ballId === undefined ? s : { ...s, change: { ...s.change, ballId } };
+  });
+}
+
 export const matchupsService = {
-  /** Ranks the bowler's active balls (or the chosen ones) for a pattern with the engine, in a worker thread. */
+  /**
+   * Ranks the bowler's active balls (or the chosen ones) with the engine, in a worker thread, for a plain pattern on
+   * a lane surface or for a published condition (its pattern as published and its lane surface; any signed-in user
+   * may rank on a published condition, as anyone may read it). The answer carries the engine's input as used
+   * (pattern sweeps, lane, bowler, games, calibration) so the browser's what-if reproduces the same numbers.
+   */
   async run(user: AuthUser, req: MatchupRequest, signal?: AbortSignal): Promise<MatchupResult> {
     // A linked coach ranks a student's arsenal; anyone else asking for another bowler gets 404.
     const bowlerId = await readableBowlerId(user, req.studentId);
-    const { id, name, pattern, summary } = await patternsService.engineInput(req.patternId);
+    const on = await engineCondition({ patternId: req.patternId, conditionId: req.conditionId, lane: req.lane });
+    const { pattern, lane } = on;
     const bowler: BowlerProfile = await bowlerOf(bowlerId);
     const rows = await arsenalRepository.findOwnedMany(bowlerId, req.ballIds);
     if (req.ballIds && rows.length !== new Set(req.ballIds).size) throw AppError.notFound('Ball');
     const balls = rows.filter((b) => req.ballIds || b.status === 'active').map(toBallDto);
     const byId = new Map(balls.map((b) => [String(b.id), b]));
-    // The bowler's logged shots on this pattern calibrate the model once there are enough of them.
+    const numericIds = new Map(balls.map((b) => [String(b.id), b.id]));
+    // The bowler's logged shots on this pattern calibrate the model, on these lanes, once there are enough of them.
     let fitted: Calibration | null = null;
     try {
-      fitted = await calibrationFor(bowlerId, id, { pattern, bowler });
+      fitted = await calibrationFor(bowlerId, on.patternId ?? 0, { pattern, bowler, lane, ...(on.condition ? { conditionId: on.condition.id } : {}), ...(on.patternId === null ? { rows: [] } : {}) });
     } catch (err) {
       // A calibration that cannot be fitted never blocks the ranking; it is simply not applied.
-      logger.warn({ err, bowlerId, patternId: id }, 'calibration failed; ranking without it');
+      logger.warn({ err, bowlerId, patternId: on.patternId }, 'calibration failed; ranking without it');
     }
     const calibration: MatchupCalibration = fitted
-      ? { applied: fitted.enough, shots: fitted.shots, note: fitted.note }
-      : { applied: false, shots: 0, note: 'The calibration could not be computed; the ranking uses the uncalibrated model.' };
+      ? { applied: fitted.enough, shots: fitted.shots, note: fitted.note, fit: fitted }
+      : { applied: false, shots: 0, note: 'The calibration could not be computed; the ranking uses the uncalibrated model.', fit: null };
     let ranked: RankedBall[] = [];
     try {
       if (balls.length)
         ranked = await rankCached(
-          { balls: balls.map((b) => ({ id: String(b.id), ...ballToSpec(b) })), bowler, pattern, gamesBowled: req.gamesBowled, ...(fitted?.enough ? { calibration: fitted } : {}) },
+          { balls: balls.map(ballToArsenalBall), bowler, pattern, gamesBowled: req.gamesBowled, lane, ...(fitted?.enough ? { calibration: fitted } : {}) },
           signal,
         );
     } catch (err) {
@@ -81,18 +82,23 @@ export const matchupsService = {
       throw err;
     }
     return {
-      pattern: { id, name, summary },
+      pattern: { id: on.patternId, name: on.name, summary: on.summary, sweeps: pattern.sweeps },
+      condition: on.condition,
+      lane,
+      laneText: laneSurfaceText(lane),
       bowler,
       gamesBowled: req.gamesBowled,
       calibration,
-      rankings: ranked.map((r) => {
+      rankings: ranked.map((r): MatchupRanking => {
         const b = byId.get(r.id)!;
         return {
           ...r,
+          suggestions: withNumericBallIds(r.suggestions, numericIds),
           ballId: b.id,
           ball: {
             id: b.id, name: b.name, nickname: b.nickname, maker: b.maker, coverType: b.coverType, coreType: b.coreType, rg: b.rg, differential: b.differential,
             intermediateDifferential: b.intermediateDifferential, surfaceGrit: b.surfaceGrit, polished: b.polished, layout: b.layout, weightLb: b.weightLb,
+            gamesSinceResurface: b.gamesSinceResurface,
           },
         };
       }),

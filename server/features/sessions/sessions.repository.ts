@@ -1,5 +1,6 @@
 import { Op, QueryTypes, type Transaction } from 'sequelize';
 import type { ShotRecord } from '../../../engine/shotlog/types';
+import type { LaneSurface } from '../../../engine/types';
 import type { Annotation as AnnotationDto } from '../../../shared/coaching';
 import type { Session as SessionDto, SessionKind, Shot as ShotDto } from '../../../shared/sessions';
 import { Annotation, BowlingSession, sequelize, Shot, User } from '../../models/index';
@@ -220,6 +221,16 @@ export const sessionsRepository = {
   async latestPatternId(userId: number): Promise<number | null> {
     const s = await BowlingSession.findOne({ where: { userId, patternId: { [Op.ne]: null } }, attributes: ['patternId'], order: [['date', 'DESC'], ['id', 'DESC']] });
     return s?.patternId ?? null;
+  },
+
+  /** The lane surface of the published condition of the bowler's latest session on a pattern that was bowled on one (null: none was). */
+  async latestConditionLane(userId: number, patternId: number): Promise<LaneSurface | null> {
+    const [row] = await sequelize.query<{ lane_kind: LaneSurface['kind']; lane_friction: LaneSurface['friction'] }>(
+      `SELECT c.lane_kind, c.lane_friction FROM sessions s JOIN conditions c ON c.id = s.condition_id
+       WHERE s.user_id = :userId AND s.pattern_id = :patternId AND s.deleted_at IS NULL ORDER BY s.date DESC, s.id DESC LIMIT 1`,
+      { type: QueryTypes.SELECT, replacements: { userId, patternId } },
+    );
+    return row ? { kind: row.lane_kind, friction: row.lane_friction } : null;
   },
 
   annotationsOf(sessionId: number): Promise<Annotation[]> {

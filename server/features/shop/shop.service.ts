@@ -23,6 +23,7 @@ import { stripeClient } from '../../lib/payments';
 import type { AuthUser } from '../../middleware/auth';
 import { Ball, Center, Order, Payment, sequelize, ShopService } from '../../models/index';
 import { arsenalRepository } from '../arsenal/arsenal.repository';
+import { refitBowlerAfterCommit } from '../stats/calibrationJobs';
 import { markRefunded } from './payments.service';
 import { enqueueOrderMail } from './shop.mail';
 import { shopRepository, toOrderDto, toServiceDto } from './shop.repository';
@@ -314,6 +315,7 @@ export const shopService = {
           );
           ball.set({ surfaceGrit: toGrit, polished: toPolished, ...(order.serviceKind === 'oil-extraction' ? {} : { gamesSinceResurface: 0 }) });
           await ball.save({ transaction });
+          refitBowlerAfterCommit(order.userId, transaction);
         }
       }
       await order.save({ transaction });

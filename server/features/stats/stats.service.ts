@@ -1,17 +1,20 @@
 import { createHash } from 'node:crypto';
-import { Op, type Transaction } from 'sequelize';
+import { Op } from 'sequelize';
 import { CALIBRATION, fitCalibration, shotStats, statsBy, suggestMoves } from '../../../engine/index';
 import type { Calibration, CalibrationObservation, ShotRecord } from '../../../engine/shotlog/types';
-import type { BowlerProfile, LaneSurface, OilPattern } from '../../../engine/types';
+import type { BallSpec, BowlerProfile, LaneSurface, OilPattern } from '../../../engine/types';
 import { ballToSpec } from '../../../shared/balls';
-import type { StatsQuery, StatsResult } from '../../../shared/sessions';
+import { DEFAULT_LANE_SURFACE } from '../../../shared/centers';
+import type { PatternSummary } from '../../../shared/patterns';
+import type { CalibrationQuery, StatsQuery, StatsResult } from '../../../shared/sessions';
 import type { AuthUser } from '../../middleware/auth';
 import { AppError } from '../../lib/AppError';
 import { calibrateInWorker } from '../../lib/enginePool';
-import { sendJob } from '../../lib/jobs';
 import { calibrationFitSeconds } from '../../lib/metrics';
 import { Ball, CalibrationFit } from '../../models/index';
+import { centersRepository, laneOf } from '../centers/centers.repository';
 import { readableBowlerId } from '../coaching/coaching.access';
+import { requestCalibrationFit, type FitRequest } from './calibrationJobs';
 import { patternsService } from '../patterns/patterns.service';
 import { profileService } from '../profile/profile.service';
 import { sessionsRepository, toShotRecord, type ShotRow } from '../sessions/sessions.repository';
@@ -45,9 +48,20 @@ export async function bowlerOf(userId: number): Promise<BowlerProfile> {
 export const CALIBRATION_SHOTS_PER_BALL = 30;
 
 /**
+ * A ball as it was when a shot was thrown: its surface then; its wear (games since the last resurface) is today's
+ * when the shot was thrown on today's surface (the closest record kept: the shots are recent and the cover has
+ * worn at most that much since), and left out (a fresh cover) for a shot on an earlier surface, whose wear was not
+ * recorded. The seeded demo shots are generated with the same spec, so the fit recovers their friction.
+ */
+export function specAsThrown(b: Ball, surfaceGrit: number, polished: boolean): BallSpec {
+  const sameSurface = surfaceGrit === b.surfaceGrit && polished === b.polished;
+  return ballToSpec({ ...b.get({ plain: true }), surfaceGrit, polished, gamesSinceResurface: sameSurface ? b.gamesSinceResurface : 0 });
+}
+
+/**
  * The logged first balls that say something about the ball's motion: thrown at a full rack from a known
  * feet board at a known target, with the breakpoint board or the pocket result recorded. The ball is taken
- * with the surface it had when the shot was thrown.
+ * as it was when the shot was thrown (specAsThrown).
  */
 export function observationsOf(rows: ShotRow[], balls: Map<number, Ball>): CalibrationObservation[] {
   const out: CalibrationObservation[] = [];
@@ -60,7 +74,7 @@ export function observationsOf(rows: ShotRow[], balls: Map<number, Ball>): Calib
     if (!b || (perBall.get(b.id) ?? 0) >= CALIBRATION_SHOTS_PER_BALL) continue;
     perBall.set(b.id, (perBall.get(b.id) ?? 0) + 1);
     out.push({
-      ball: { id: String(b.id), ...ballToSpec({ ...b.get({ plain: true }), surfaceGrit: r.surface_grit ?? b.surfaceGrit, polished: r.surface_polished ?? b.polished }) },
+      ball: { id: String(b.id), ...specAsThrown(b, r.surface_grit ?? b.surfaceGrit, r.surface_polished ?? b.polished) },
       laydownBoard: Math.max(1, r.feet_board - LAYDOWN_OFFSET_BOARDS),
       targetBoard: r.target_board,
       breakpointBoard: r.breakpoint_board,
@@ -71,61 +85,84 @@ export function observationsOf(rows: ShotRow[], balls: Map<number, Ball>): Calib
   return out.reverse();
 }
 
-type FitInput = { bowler: BowlerProfile; pattern: OilPattern; observations: CalibrationObservation[]; lane?: LaneSurface };
+type FitInput = { bowler: BowlerProfile; pattern: OilPattern; observations: CalibrationObservation[]; lane: LaneSurface };
 
-const inputHash = (input: FitInput) => createHash('sha256').update(JSON.stringify(input)).digest('hex');
+const sha256 = (v: unknown) => createHash('sha256').update(JSON.stringify(v)).digest('hex');
 
 /** A fit computed now, in the engine worker pool (nothing to fit is instant and stays on this thread). Used by the `calibration` job. */
-export async function calibrate(input: FitInput): Promise<Calibration> {
+export async function calibrate(input: { bowler: BowlerProfile; pattern: OilPattern; observations: CalibrationObservation[]; lane?: LaneSurface }): Promise<Calibration> {
   if (input.observations.length === 0) return fitCalibration(input);
   return calibrateInWorker(input);
 }
 
-/** The input of a bowler's fit on a pattern: their logged shots on it, the balls as thrown, the release, the pattern. */
-async function fitInput(bowlerId: number, patternId: number, known: { rows?: ShotRow[]; pattern?: OilPattern; bowler?: BowlerProfile } = {}): Promise<FitInput> {
+/** What a stored fit is about besides the bowler and the pattern id: the lane surface and the pattern's sweeps as fitted (a condition's as published). */
+function subjectOf(pattern: OilPattern, lane: LaneSurface): { laneKind: LaneSurface['kind']; laneFriction: LaneSurface['friction']; patternHash: string } {
+  return { laneKind: lane.kind, laneFriction: lane.friction, patternHash: sha256(pattern) };
+}
+
+/** The input of a bowler's fit on a pattern and lane surface: their logged shots on the pattern, the balls as thrown, the release. */
+async function fitInput(bowlerId: number, patternId: number, known: { rows?: ShotRow[]; pattern?: OilPattern; bowler?: BowlerProfile; lane?: LaneSurface } = {}): Promise<FitInput> {
   const pattern = known.pattern ?? (await patternsService.engineInput(patternId)).pattern;
   const shots = known.rows ?? (await sessionsRepository.shotsForStats(bowlerId, { patternId }));
   const ids = [...new Set(shots.map((r) => r.ball_id))];
   const balls = new Map((ids.length ? await Ball.findAll({ where: { ownerId: bowlerId, id: { [Op.in]: ids } }, paranoid: false }) : []).map((b) => [b.id, b]));
-  return { bowler: known.bowler ?? (await bowlerOf(bowlerId)), pattern, observations: observationsOf(shots, balls) };
+  const lane = known.lane ?? DEFAULT_LANE_SURFACE;
+  return { bowler: known.bowler ?? (await bowlerOf(bowlerId)), pattern, observations: observationsOf(shots, balls), lane: { kind: lane.kind, friction: lane.friction } };
 }
 
-/** Asks the worker for a fit of this bowler on this pattern (at most one queued per pair; it reads the newest shots when it runs). */
-export async function requestCalibrationFit(bowlerId: number, patternId: number, transaction?: Transaction): Promise<void> {
-  await sendJob('calibration', `${bowlerId}:${patternId}:${Date.now()}`, { bowlerId, patternId }, { transaction, singletonKey: `${bowlerId}:${patternId}` });
-}
-
-/** The `calibration` job: fits from the current input unless the stored fit already came from it, and stores it. */
-export async function runCalibrationFit(bowlerId: number, patternId: number): Promise<'fitted' | 'current' | 'gone'> {
-  let input: FitInput;
+/** The input of the fit a request names, with the pattern id its shots are logged on; null when the pattern or condition is gone. */
+async function requestedInput(req: FitRequest): Promise<{ patternId: number; input: FitInput } | null> {
   try {
-    input = await fitInput(bowlerId, patternId);
+    const on = await engineCondition('conditionId' in req ? { conditionId: req.conditionId } : { patternId: req.patternId, lane: req.lane });
+    if (on.patternId === null) return null; // the condition's pattern was deleted: no shots to fit
+    return { patternId: on.patternId, input: await fitInput(req.bowlerId, on.patternId, { pattern: on.pattern, lane: on.lane }) };
   } catch (err) {
-    if (err instanceof AppError && err.status === 404) return 'gone'; // the pattern was deleted meanwhile
+    if (err instanceof AppError && err.status === 404) return null; // the pattern or condition was deleted meanwhile
     throw err;
   }
-  const hash = inputHash(input);
-  const stored = await CalibrationFit.findOne({ where: { bowlerId, patternId }, useMaster: true });
+}
+
+/**
+ * The `calibration` job: fits from the current input unless the stored fit already came from it, and stores it.
+ * When the input changed while it was fitting (a shot or a ball change committed meanwhile), it asks for one more
+ * fit, so the stored fit never stays behind a change that a request was absorbed into.
+ */
+export async function runCalibrationFit(req: FitRequest): Promise<'fitted' | 'current' | 'gone'> {
+  const found = await requestedInput(req);
+  if (!found) return 'gone';
+  const { patternId, input } = found;
+  const hash = sha256(input);
+  const key = { bowlerId: req.bowlerId, patternId, ...subjectOf(input.pattern, input.lane) };
+  const stored = await CalibrationFit.findOne({ where: key, useMaster: true });
   if (stored?.inputHash === hash) return 'current';
   const started = Date.now();
   const fit = await calibrate(input);
   const fitMs = Date.now() - started;
-  await CalibrationFit.upsert({ bowlerId, patternId, inputHash: hash, calibration: fit as unknown as Record<string, unknown>, shots: fit.shots, fittedAt: new Date(), fitMs });
+  await CalibrationFit.upsert({ ...key, conditionId: 'conditionId' in req ? req.conditionId : null, inputHash: hash, calibration: fit as unknown as Record<string, unknown>, shots: fit.shots, fittedAt: new Date(), fitMs });
   calibrationFitSeconds.observe(fitMs / 1000);
+  const now = await requestedInput(req);
+  if (now && sha256(now.input) !== hash) await requestCalibrationFit(req);
   return 'fitted';
 }
 
 /**
- * The bowler's calibration on a pattern, as stored by the worker: readers never wait on a fit. When the stored
- * fit came from other input (new shots, a changed ball or release), it is still answered — the newer fit is
- * queued and replaces it within seconds; with no stored fit yet, the answer says it is being computed.
+ * The bowler's calibration on a pattern from every logged shot on it, on a lane surface (default synthetic, medium
+ * friction): the model the fit adjusts is the one the matchup runs on those lanes. Readers never wait on a fit:
+ * this answers the fit the worker stored. When it came from other input (new shots, a changed ball or release),
+ * it is still answered and the newer fit is queued (it replaces it within seconds); with no stored fit yet, the
+ * answer says it is being computed. `conditionId` names the published condition the pattern and lanes come from.
  */
-export async function calibrationFor(bowlerId: number, patternId: number, known: { rows?: ShotRow[]; pattern?: OilPattern; bowler?: BowlerProfile } = {}): Promise<Calibration> {
+export async function calibrationFor(
+  bowlerId: number,
+  patternId: number,
+  known: { rows?: ShotRow[]; pattern?: OilPattern; bowler?: BowlerProfile; lane?: LaneSurface; conditionId?: number } = {},
+): Promise<Calibration> {
   const input = await fitInput(bowlerId, patternId, known);
   if (input.observations.length === 0) return fitCalibration(input);
-  const hash = inputHash(input);
-  const stored = await CalibrationFit.findOne({ where: { bowlerId, patternId } });
-  if (stored?.inputHash !== hash) await requestCalibrationFit(bowlerId, patternId);
+  const stored = await CalibrationFit.findOne({ where: { bowlerId, patternId, ...subjectOf(input.pattern, input.lane) } });
+  if (stored?.inputHash !== sha256(input)) {
+    await requestCalibrationFit(known.conditionId !== undefined ? { bowlerId, conditionId: known.conditionId } : { bowlerId, patternId, lane: input.lane });
+  }
   if (stored) return stored.calibration as unknown as Calibration;
   return {
     shots: input.observations.length,
@@ -136,6 +173,36 @@ export async function calibrationFor(bowlerId: number, patternId: number, known:
     rmsBoardsAfter: null,
     note: `Your ${input.observations.length} logged shots on this pattern are being fitted; the calibration appears here within a few seconds.`,
   };
+}
+
+/**
+ * What a matchup or a calibration is worked out on: a plain pattern on a lane surface, or a published condition
+ * (its pattern as published and its lane surface; the shots counted are those logged on the pattern it was
+ * published from, none when that pattern is gone). 404 for an unknown pattern or condition.
+ */
+export async function engineCondition(ref: { patternId?: number; conditionId?: number; lane?: LaneSurface }): Promise<{
+  patternId: number | null;
+  name: string;
+  pattern: OilPattern;
+  summary: PatternSummary;
+  lane: LaneSurface;
+  condition: { id: number; centerId: number; centerName: string; lanes: number[]; validFrom: string; validTo: string | null } | null;
+}> {
+  if (ref.conditionId !== undefined) {
+    const c = await centersRepository.findCondition(ref.conditionId);
+    if (!c) throw AppError.notFound('Condition');
+    return {
+      patternId: c.patternId,
+      name: c.patternName,
+      pattern: { name: c.patternName, sweeps: c.sweeps },
+      summary: c.summary,
+      lane: laneOf(c),
+      condition: { id: c.id, centerId: c.centerId, centerName: c.center.name, lanes: c.lanes, validFrom: c.validFrom, validTo: c.validTo },
+    };
+  }
+  const { id, name, pattern, summary } = await patternsService.engineInput(ref.patternId!);
+  const lane = ref.lane ?? DEFAULT_LANE_SURFACE;
+  return { patternId: id, name, pattern, summary, lane: { kind: lane.kind, friction: lane.friction }, condition: null };
 }
 
 export const statsService = {
@@ -149,9 +216,11 @@ export const statsService = {
     const { hand } = await bowlerOf(bowlerId);
     const calibrationPatternId = q.patternId ?? (await sessionsRepository.latestPatternId(bowlerId));
     let calibration: Calibration | null = null;
+    // The lanes the bowler last bowled this pattern on (a published condition's lane surface), as a matchup there would use.
+    const calibrationLane = calibrationPatternId === null ? null : ((await sessionsRepository.latestConditionLane(bowlerId, calibrationPatternId)) ?? { ...DEFAULT_LANE_SURFACE });
     if (calibrationPatternId !== null) {
       try {
-        calibration = await calibrationFor(bowlerId, calibrationPatternId, q.patternId && !q.from && !q.to && !q.ballId ? { rows } : {});
+        calibration = await calibrationFor(bowlerId, calibrationPatternId, { ...(q.patternId && !q.from && !q.to && !q.ballId ? { rows } : {}), lane: calibrationLane ?? undefined });
       } catch (err) {
         if (!(err instanceof AppError)) throw err; // an unknown pattern simply has no calibration
       }
@@ -167,11 +236,16 @@ export const statsService = {
       moves: suggestMoves({ shots: records, hand }),
       calibration,
       calibrationPatternId,
+      calibrationLane,
     };
   },
 
-  async calibration(user: AuthUser, q: { patternId: number; studentId?: number }): Promise<Calibration> {
+  /** The calibration a matchup on this pattern and lane surface (or this published condition) applies. */
+  async calibration(user: AuthUser, q: CalibrationQuery): Promise<Calibration> {
     const bowlerId = await readableBowlerId(user, q.studentId);
-    return calibrationFor(bowlerId, q.patternId);
+    const lane = q.laneKind || q.laneFriction ? { kind: q.laneKind ?? DEFAULT_LANE_SURFACE.kind, friction: q.laneFriction ?? DEFAULT_LANE_SURFACE.friction } : undefined;
+    const on = await engineCondition({ patternId: q.patternId, conditionId: q.conditionId, lane });
+    // A condition whose pattern is gone has no logged shots to fit: an empty fit, as for a pattern never bowled.
+    return calibrationFor(bowlerId, on.patternId ?? 0, { pattern: on.pattern, lane: on.lane, ...(on.condition ? { conditionId: on.condition.id } : {}), ...(on.patternId === null ? { rows: [] } : {}) });
   },
 };

@@ -142,4 +142,24 @@ describe('POST /api/arsenal/import', () => {
     expect(Object.keys(fields).some((k) => k.startsWith('rows.2.'))).toBe(false);
     expect(await Ball.count({ where: { ownerId: me.user.id } })).toBe(0);
   });
+
+  it('reads pin-to-PAP as a pro shop writes it ("4 3/8", "4-3/8", "3 3/8" or a decimal) and refuses other text by line', async () => {
+    const me = await createUser();
+    const rows = [['Mixed', '4 3/8'], ['Dashed', '4-3/8'], ['Small', '3 3/8'], ['Decimal', '4.5']];
+    const csv = `${header}\n${rows.map(([n, pin]) => `${n},,15,reactive-solid,symmetric,2.5,0.05,0,2000,no,"${pin}",45`).join('\n')}\n`;
+    const res = await api.post('/api/arsenal/import').set(me.auth).attach('file', Buffer.from(csv), { filename: 'arsenal.csv', contentType: 'text/csv' });
+    expect(res.status).toBe(201);
+    const pins = Object.fromEntries((await Ball.findAll({ where: { ownerId: me.user.id } })).map((b) => [b.name, b.layout?.pinToPapIn]));
+    expect(pins).toEqual({ Mixed: 4.375, Dashed: 4.375, Small: 3.375, Decimal: 4.5 });
+
+    const other = await createUser();
+    const bad = `${header}\nFine,,15,urethane,symmetric,2.62,0.02,0,2000,no,4 1/2,45\nWords,,15,urethane,symmetric,2.62,0.02,0,2000,no,four and a bit,45\nZero,,15,urethane,symmetric,2.62,0.02,0,2000,no,4 3/0,45\nLong,,15,urethane,symmetric,2.62,0.02,0,2000,no,7 1/8,45\n`;
+    const refused = await api.post('/api/arsenal/import').set(other.auth).attach('file', Buffer.from(bad), { filename: 'arsenal.csv', contentType: 'text/csv' });
+    expect(refused.status).toBe(400);
+    const fields = errorOf(refused.body).fields ?? {};
+    expect(Object.keys(fields).sort()).toEqual(['rows.3.layout.pinToPapIn', 'rows.4.layout.pinToPapIn', 'rows.5.layout.pinToPapIn']);
+    expect(fields['rows.3.layout.pinToPapIn']).toMatch(/write 4 3\/8, 4-3\/8 or 4\.375/);
+    expect(fields['rows.5.layout.pinToPapIn']).toMatch(/At most 6\.7 in/);
+    expect(await Ball.count({ where: { ownerId: other.user.id } })).toBe(0);
+  });
 });

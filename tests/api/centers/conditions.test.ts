@@ -60,6 +60,61 @@ describe('publishing a condition', () => {
   });
 });
 
+describe('the lane surface of a condition', () => {
+  it('is published with the condition, stored, and shown by the current condition, the history and the sheet, in words', async () => {
+    const owner = await createUser('proprietor');
+    const center = await createCenter(owner.user.id);
+    const pattern = await createPattern(owner.user.id, LONG_HEAVY);
+    const res = await api
+      .post(`/api/centers/${center.id}/conditions`)
+      .set(owner.auth)
+      .send({ patternId: pattern.id, lanes: [1, 2], validFrom: today(), lane: { kind: 'wood', friction: 'high' } });
+    expect(res.status).toBe(201);
+    expect(res.body.item).toMatchObject({ lane: { kind: 'wood', friction: 'high' }, laneText: 'Wood lanes, high friction' });
+    const row = (await Condition.findByPk(res.body.item.id))!;
+    expect([row.laneKind, row.laneFriction]).toEqual(['wood', 'high']);
+    const current = await api.get(`/api/centers/${center.id}/conditions/current`);
+    expect(current.body).toMatchObject({ lane: { kind: 'wood', friction: 'high' }, laneText: 'Wood lanes, high friction', condition: { lane: { kind: 'wood', friction: 'high' } } });
+    expect((await api.get(`/api/centers/${center.id}/conditions`)).body.items[0]).toMatchObject({ laneText: 'Wood lanes, high friction' });
+    const pdf = await api.get(`/api/centers/${center.id}/conditions/current.pdf`).buffer(true).parse((r, cb) => {
+      const chunks: Buffer[] = [];
+      r.on('data', (c: Buffer) => chunks.push(c));
+      r.on('end', () => cb(null, Buffer.concat(chunks)));
+    });
+    const parser = new PDFParse({ data: new Uint8Array(pdf.body as Buffer) });
+    const { text } = await parser.getText();
+    await parser.destroy();
+    expect(text.replace(/\s+/g, ' ')).toContain('Lane surface: Wood lanes, high friction');
+  });
+
+  it('defaults to synthetic lanes with medium friction, and refuses an unknown kind or friction by field, storing nothing', async () => {
+    const owner = await createUser('proprietor');
+    const center = await createCenter(owner.user.id);
+    const pattern = await createPattern(owner.user.id);
+    const plain = await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: pattern.id, lanes: [1], validFrom: today() });
+    expect(plain.body.item).toMatchObject({ lane: { kind: 'synthetic', friction: 'medium' }, laneText: 'Synthetic lanes, medium friction' });
+    const bad = await api
+      .post(`/api/centers/${center.id}/conditions`)
+      .set(owner.auth)
+      .send({ patternId: pattern.id, lanes: [1], validFrom: today(), lane: { kind: 'maple', friction: 'extreme' } });
+    expect(bad.status).toBe(400);
+    expect(errorOf(bad.body).fields).toMatchObject({ 'body.lane.kind': 'The lanes are wood or synthetic', 'body.lane.friction': 'Lane friction is low, medium or high' });
+    const missing = await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: pattern.id, lanes: [1], validFrom: today(), lane: { kind: 'wood' } });
+    expect(errorOf(missing.body).fields).toHaveProperty(['body.lane.friction']);
+    expect(await Condition.count({ where: { centerId: center.id } })).toBe(1);
+  });
+
+  it('the follower e-mail names the lane surface', async () => {
+    const owner = await createUser('proprietor');
+    const center = await createCenter(owner.user.id);
+    const pattern = await createPattern(owner.user.id);
+    const fan = await createUser();
+    await api.post(`/api/centers/${center.id}/follow`).set(fan.auth);
+    await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: pattern.id, lanes: [1], validFrom: today(), lane: { kind: 'synthetic', friction: 'low' } });
+    expect((await waitForMail(fan.user.email)).text).toContain('Synthetic lanes, low friction.');
+  });
+});
+
 describe('the public current condition', () => {
   it('answers without sign-in with the center, lanes, dates, notes and the pattern summary', async () => {
     const owner = await createUser('proprietor');
@@ -177,6 +232,25 @@ describe('followers', () => {
     const items = (await api.get('/api/follows').set(me.auth)).body.items as { center: { id: number }; current: { pattern: { id: number } } | null }[];
     const byCenter = new Map(items.map((i) => [i.center.id, i.current?.pattern.id ?? null]));
     expect(byCenter).toEqual(new Map([[a.id, p1.id], [b.id, p2.id], [empty.id, null]]));
+  });
+
+  it('lists every publication still in force at a followed center with the lanes it still governs, newest first', async () => {
+    const owner = await createUser('proprietor');
+    const center = await createCenter(owner.user.id, 8);
+    const house = await createPattern(owner.user.id, LONG_HEAVY);
+    const league = await createPattern(owner.user.id, SHORT_LIGHT);
+    const me = await createUser();
+    await api.post(`/api/centers/${center.id}/follow`).set(me.auth);
+    const a = (await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: house.id, lanes: [1, 2, 3, 4, 5, 6, 7, 8], validFrom: today(), lane: { kind: 'synthetic', friction: 'high' } })).body.item;
+    const b = (await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: league.id, lanes: [1, 2, 3, 4], validFrom: today() })).body.item;
+    // Replaced everywhere it was: no longer listed.
+    await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: league.id, lanes: [5], validFrom: daysFromNow(-3), validTo: daysFromNow(-1) });
+    const [item] = (await api.get('/api/follows').set(me.auth)).body.items;
+    expect(item.current.id).toBe(b.id);
+    expect(item.inForce.map((x: { condition: { id: number; laneText: string }; lanes: number[] }) => [x.condition.id, x.lanes, x.condition.laneText])).toEqual([
+      [b.id, [1, 2, 3, 4], 'Synthetic lanes, medium friction'],
+      [a.id, [5, 6, 7, 8], 'Synthetic lanes, high friction'],
+    ]);
   });
 
   it('retries a failed delivery on a doubling schedule capped at one hour', async () => {

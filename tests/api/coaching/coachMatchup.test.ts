@@ -63,7 +63,7 @@ describe('calibration from logged shots', () => {
       expect(res.status, JSON.stringify(res.body)).toBe(201);
     }
     // The fit is computed by the job worker after the shots are logged; readers get the stored fit.
-    await calibrationsIdle();
+    await calibrationsIdle(me.user.id);
     const cal = (await api.get(`/api/calibration?patternId=${pattern.id}`).set(me.auth)).body.item;
     // Only delivery-1 shots count: frames 1–10 → 10 shots, below the engine's 12: not yet enough.
     expect(cal).toMatchObject({ shots: 10, enough: false });
@@ -78,7 +78,7 @@ describe('calibration from logged shots', () => {
         .send({ gameNumber: 2, frame: f, delivery: 1, ballId: ball.id, standing: [], feetBoard: laydown + LAYDOWN_OFFSET_BOARDS, targetBoard: target, breakpointBoard: Math.round(p.breakpoint.board * 2) / 2 });
       expect(res.status, JSON.stringify(res.body)).toBe(201);
     }
-    await calibrationsIdle();
+    await calibrationsIdle(me.user.id);
     const fitted = (await api.get(`/api/calibration?patternId=${pattern.id}`).set(me.auth)).body.item;
     expect(fitted).toMatchObject({ shots: 20, enough: true });
     const mine = fitted.perBall.find((b: { ballId: string }) => b.ballId === String(ball.id));

@@ -7,10 +7,11 @@ import { createPattern, LONG_HEAVY, SHORT_LIGHT } from '../../helpers/fixtures';
 describe('GET /api/patterns', () => {
   it('lists patterns with their summary, filterable by class', async () => {
     const me = await createUser();
-    const long = await createPattern(null, LONG_HEAVY);
-    const short = await createPattern(null, SHORT_LIGHT);
-    // Newest first: the shared test database holds patterns of every earlier test file, more than one page of long ones.
-    const res = await api.get('/api/patterns').query({ lengthClass: 'long', pageSize: 100, sort: 'createdAt', order: 'desc' }).set(me.auth);
+    // Its own patterns, found by their name: the shared list holds every other test's patterns too.
+    const stem = `Class Filter ${process.pid}-${Date.now()}`;
+    const long = await createPattern(null, LONG_HEAVY, `${stem} long`);
+    const short = await createPattern(null, SHORT_LIGHT, `${stem} short`);
+    const res = await api.get('/api/patterns').query({ q: stem, lengthClass: 'long', pageSize: 100 }).set(me.auth);
     expect(res.status).toBe(200);
     const ids = res.body.items.map((p: { id: number }) => p.id);
     expect(ids).toContain(long.id);

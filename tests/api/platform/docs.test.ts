@@ -12,7 +12,11 @@ describe('API documentation', () => {
     expect(res.body.openapi).toBe('3.1.0');
     const login = res.body.paths['/api/auth/login'].post;
     expect(login.requestBody.content['application/json'].schema.properties).toHaveProperty('email');
-    expect(res.body.paths['/api/matchups'].post.requestBody.content['application/json'].schema.required).toContain('patternId');
+    // A matchup is for a pattern (on a lane surface) or for a published condition: neither id is required on its own.
+    const matchup = res.body.paths['/api/matchups'].post.requestBody.content['application/json'].schema;
+    expect(Object.keys(matchup.properties)).toEqual(expect.arrayContaining(['patternId', 'conditionId', 'lane', 'gamesBowled']));
+    expect(matchup.properties.lane.properties.kind.enum).toEqual(['wood', 'synthetic']);
+    expect(matchup.properties.lane.properties.friction.enum).toEqual(['low', 'medium', 'high']);
     expect(res.body.paths['/api/arsenal/{id}'].get.parameters[0]).toMatchObject({ name: 'id', in: 'path', required: true });
   });
 

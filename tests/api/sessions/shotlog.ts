@@ -18,7 +18,7 @@ export interface Delivery {
 /**
  * The deliveries of a game and the pins each knocks down (scoreGame's rolls), written independently of the
  * engine from the frame-by-frame standing lists: a new rack has 10 pins; in frame 10 the rack is re-set after
- * a strike or a spare (TRADE.md 3.1).
+ * a strike or a spare (USBC playing rules).
  */
 export function expandGame(frames: FrameLog[]): { deliveries: Delivery[]; rolls: number[] } {
   const deliveries: Delivery[] = [];

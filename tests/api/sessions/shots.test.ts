@@ -70,7 +70,7 @@ describe('logged games score as scoreGame does', () => {
     }
   });
 
-  it('a fouled first ball counts, scores 0 and the rack is re-set (TRADE.md 3.3)', async () => {
+  it('a fouled first ball counts, scores 0 and the rack is re-set (USBC playing rules: a foul counts as a delivery and scores 0)', async () => {
     const me = await createUser();
     const ball = await createBall(me.user.id);
     const sid = await sessionOf(me.auth);

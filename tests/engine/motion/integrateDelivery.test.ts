@@ -34,7 +34,8 @@ describe('integrateDelivery — slide-to-roll on uniform friction (the sliding s
     const ball = isotropicBall(Math.sqrt(0.4) * 4.25);
     const r = integrateDelivery(slidingState(8), ballInertia(ball), uniformFrictionField(0.2));
     expect(Math.abs(r.speedAtPinsMph * 0.44704 - (5 / 7) * 8)).toBeLessThan(1e-6);
-    expect(Math.abs((r.rollStartFt as number) * 0.3048 - 7.9912)).toBeLessThan(0.005);
+    // production steps (up to MOTION_CALIBRATION.maxStepS while the ball slides fast) and regularised friction: ±1 cm
+    expect(Math.abs((r.rollStartFt as number) * 0.3048 - 7.9912)).toBeLessThan(0.01);
     expect(R).toBeCloseTo(0.10795, 5);
   });
 
@@ -45,11 +46,12 @@ describe('integrateDelivery — slide-to-roll on uniform friction (the sliding s
     ['over-spin ω0 = 100 rad/s', 100, 3.4198, 8.7986],
   ];
   for (const [name, w0, sStar, vStar] of rows) {
-    it(`m and m/s, uniform sphere, ${name}: rolls at s* = ${sStar} m (±1 cm) with v* = ${vStar} m/s (±1e-4)`, () => {
+    it(`m and m/s, uniform sphere, ${name}: rolls at s* = ${sStar} m (±1.5 cm) with v* = ${vStar} m/s (±1e-4)`, () => {
       const ball = isotropicBall(Math.sqrt(0.4) * 4.25);
       const r = integrateDelivery(slidingState(8, w0), ballInertia(ball), uniformFrictionField(0.2));
-      // regularised friction (ε = 0.02 m/s) blurs the roll point by a few mm (regularised friction)
-      expect(Math.abs((r.rollStartFt as number) * 0.3048 - sStar)).toBeLessThan(0.01);
+      // regularised friction (ε) and the production steps (up to MOTION_CALIBRATION.maxStepS while sliding fast)
+      // blur the roll point by up to about a centimetre
+      expect(Math.abs((r.rollStartFt as number) * 0.3048 - sStar)).toBeLessThan(0.015);
       expect(Math.abs(r.speedAtPinsMph * 0.44704 - vStar)).toBeLessThan(1e-4);
     });
   }
@@ -103,7 +105,7 @@ describe('integrateDelivery — hook deliveries on a two-zone lane (the two-zone
 });
 
 describe('integrateDelivery — invariants (rigid-body mechanics: the angular momentum about the contact point, energy, invariants, mirror symmetry)', () => {
-  it('kg·m²/s, asymmetric ball on the two-zone lane: L_P about the contact point is conserved in all components to 1e-6 relative', () => {
+  it('kg·m²/s, asymmetric ball on the two-zone lane: L_P about the contact point is conserved in all components to 1e-6 relative at a 6 ms fixed step, 5e-5 at the production steps', () => {
     for (const [ball, bowler] of [
       [asymmetricBall(), referenceBowler()],
       [asymmetricBall({ layout: { pinToPapIn: 5.5, valAngleDeg: 20 } }), referenceBowler({ revRpm: 480, axisRotationDeg: 70, axisTiltDeg: 25 })],
@@ -113,12 +115,14 @@ describe('integrateDelivery — invariants (rigid-body mechanics: the angular mo
       const s0 = releaseState(ball, bowler, 25, 12);
       const L0 = contactAngularMomentum(s0, I);
       const n0 = Math.hypot(...L0);
-      let maxDev = 0;
-      integrateDelivery(s0, I, twoZone(), { onStep: (_t, s) => {
-        const L = contactAngularMomentum(s, I);
-        maxDev = Math.max(maxDev, Math.hypot(L[0] - L0[0], L[1] - L0[1], L[2] - L0[2]) / n0);
-      } });
-      expect(maxDev).toBeLessThan(1e-6);
+      for (const [options, tol] of [[{ stepS: 0.006 }, 1e-6], [{}, 5e-5]] as const) {
+        let maxDev = 0;
+        integrateDelivery(s0, I, twoZone(), { ...options, onStep: (_t, s) => {
+          const L = contactAngularMomentum(s, I);
+          maxDev = Math.max(maxDev, Math.hypot(L[0] - L0[0], L[1] - L0[1], L[2] - L0[2]) / n0);
+        } });
+        expect(maxDev).toBeLessThan(tol);
+      }
     }
   });
 

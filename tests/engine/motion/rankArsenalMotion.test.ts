@@ -49,9 +49,10 @@ describe('rankArsenal — ball-motion layer', () => {
   const motionOf = (r: ReturnType<typeof at>, id: string) => r.find((x) => x.id === id)?.layers?.find((l) => l.name === 'motion')?.score as number;
   const scoreOf = (r: ReturnType<typeof at>, id: string) => r.find((x) => x.id === id)?.score as number;
 
-  it('points, motion layer alone, 0 → 9 games: the 500-grit solid loses points and its gap to the polished pearl widens', () => {
+  it('points, motion layer alone, 0 → 9 games: the polished pearl gains on the 500-grit solid (the solid needs a still wider launch)', () => {
     const [r0, r9] = [at(0), at(9)];
-    expect(motionOf(r9, 'solid-500')).toBeLessThan(motionOf(r0, 'solid-500'));
+    const launch = (r: ReturnType<typeof at>) => { const p = r.find((x) => x.id === 'solid-500')!.prediction; return p.laydownBoard - p.targetBoard; };
+    expect(launch(r9)).toBeGreaterThan(launch(r0));
     expect(motionOf(r9, 'pearl-polished') - motionOf(r9, 'solid-500')).toBeGreaterThan(motionOf(r0, 'pearl-polished') - motionOf(r0, 'solid-500'));
   });
 

@@ -169,6 +169,17 @@ describe('transition (common practice: the track dries, the line moves deeper)',
   });
 });
 
+describe('the line a weak release plays (common practice: a ball that will not come back is played straighter up the boards, not thrown across the lane)', () => {
+  const speedDominant = bowler({ speedMph: 18.5, revRpm: 260, axisRotationDeg: 35, axisTiltDeg: 18 });
+  it.each([['right'], ['left']] as const)('a %s-handed speed-dominant, low-rev bowler (18.5 mph, 260 rpm, 35° rotation, 18° tilt) on the house shot: a launch of at most 2° (6 boards) from no deeper than board 20, entry at least 2°', (hand) => {
+    const p = rankArsenal({ balls: [{ ...ball(), id: 'b' }], bowler: { ...speedDominant, hand }, pattern: hand === 'left' ? mirroredPattern(house) : house })[0].prediction;
+    expect(p.laydownBoard - p.targetBoard).toBeLessThanOrEqual(6);
+    expect(p.laydownBoard).toBeLessThanOrEqual(20);
+    expect(p.targetBoard).toBeGreaterThanOrEqual(4);
+    expect(p.entryAngleDeg).toBeGreaterThanOrEqual(2);
+  });
+});
+
 describe('the sizes of the reported numbers, on the pocket line (common practice)', () => {
   const cases: [string, BowlerProfile][] = [
     ['a typical right-hander (17 mph, 350 rpm)', bowler()],

@@ -95,6 +95,24 @@ describe('fitCalibration: recovers a known friction scale from the model\'s own 
     expect(Math.abs(c.perBall[0].frictionScale - 1.1)).toBeLessThan(0.08);
   }, 120_000);
 
+  it('shots thrown on different lane surfaces: each read on its own lanes gives the scale back (1.0 within ±0.08); read all on one surface, the fit is biased', () => {
+    // the same ball thrown half on high-friction and half on low-friction lanes, at the model's own friction
+    const rnd = prng(51);
+    const line = simulateShot({ ball: roughAsymSolid, bowler: typicalBowler, pattern: houseShot });
+    const observations: CalibrationObservation[] = Array.from({ length: 16 }, (_, k) => {
+      const lane = { kind: 'synthetic' as const, friction: k % 2 === 0 ? ('high' as const) : ('low' as const) };
+      const laydownBoard = line.laydownBoard + (rnd() * 2 - 1) * 3;
+      const targetBoard = line.targetBoard + (rnd() * 2 - 1) * 1.8;
+      const p = simulateShot({ ball: roughAsymSolid, bowler: typicalBowler, pattern: houseShot, laydownBoard, targetBoard, lane });
+      return { ball: roughAsymSolid, laydownBoard, targetBoard, lane, breakpointBoard: p.breakpoint.board + 0.5 * gauss(rnd) };
+    });
+    const own = fitCalibration({ bowler: typicalBowler, pattern: houseShot, observations });
+    expect(Math.abs(own.perBall[0].frictionScale - 1)).toBeLessThan(0.08);
+    const oneSurface = fitCalibration({ bowler: typicalBowler, pattern: houseShot, observations: observations.map(({ lane: _lane, ...o }) => o), lane: { kind: 'synthetic', friction: 'high' } });
+    expect(oneSurface.perBall[0].rmsBoardsAfter!).toBeGreaterThan(own.perBall[0].rmsBoardsAfter!);
+    expect(() => fitCalibration({ bowler: typicalBowler, pattern: houseShot, observations: [{ ...observations[0], lane: { kind: 'clay', friction: 'high' } as never }] })).toThrow(/fitCalibration/);
+  }, 120_000);
+
   it('too few shots: a fit with its interval, but not enough to apply', () => {
     const observations = observe(roughAsymSolid, 0.85, 6, 31);
     const c = fitCalibration({ bowler: typicalBowler, pattern: houseShot, observations });
