@@ -1,20 +1,6 @@
-import type { BowlerProfile, LaneSurface, PatternAnalysis } from './types';
+import type { BowlerProfile, ConditionDemand, DemandFactor, LaneSurface, PatternAnalysis } from './types';
 
-/** One part of a condition's demand: points above (+) or below (−) the reference condition, with its reason. */
-export interface DemandFactor {
-  /** Stable key: 'volume', 'length', 'ratio', 'lane-surface', 'transition', 'speed', 'rev-rate', 'axis-rotation', 'axis-tilt'. */
-  key: string;
-  points: number;
-  /** The condition or release value in words ("27.6 mL of oil", "375 rpm"). */
-  label: string;
-  source: string;
-}
-
-/** How much ball a condition asks of this bowler, on the matchup scale (ballReaction's), and its parts. */
-export interface ConditionDemand {
-  total: number;
-  factors: DemandFactor[];
-}
+export type { ConditionDemand, DemandFactor };
 
 /**
  * The demand side of the matchup scale (points; 5 ≈ one surface step ≈ one board of launch in the ball-motion

@@ -1,12 +1,13 @@
 /**
- * Public types of the shot log (issue 7): logged deliveries, the frame sheet built from them,
+ * Public types of the shot log: logged deliveries, the frame sheet built from them,
  * shot statistics, suggested moves and the calibration of the ball-motion model.
  *
  * Units: boards are counted from the gutter on the bowler's hand side (1–39, the way a bowler
  * counts them; a left-hander's board b is pattern board 40 − b), feet from the foul line,
  * percentages 0–100 in `Rate`, proportions 0–1 from `wilsonInterval`.
  */
-import type { BallSpec, LaneSurface } from '../types';
+import type { BallSpec } from '../types/ball';
+import type { LaneSurface } from '../types/pattern';
 
 /**
  * One logged delivery: which frame and delivery it was and the pins standing AFTER it.
