@@ -35,12 +35,15 @@ interface SetupFigures {
   shotsStored: number;
   shotsExpected: number;
   standbyReadCalls: number | null;
+  /** Calibration fits still queued or running when the night's last request was answered (the worker catches up after). */
+  calibrationBacklog: number;
   routes: Record<string, RouteFigures>;
 }
 
 async function night(setup: string, d: Deployment): Promise<SetupFigures> {
   if (d.standbyUrl) await d.standby('SELECT pg_stat_statements_reset()');
   const r: NightReport = await leagueNight(d, { lanes: LANES, perLane: PER_LANE, refunds: 6 });
+  const [backlog] = await d.primary<{ n: string }>("SELECT count(*) AS n FROM pgboss.job WHERE name = 'calibration' AND state IN ('created', 'retry', 'active')");
   const [stored] = await d.primary<{ n: string }>('SELECT count(*) AS n FROM shots WHERE session_id = ANY($1)', [r.sessionIds]);
   const standbyReadCalls = d.standbyUrl
     ? (await d.standby<{ calls: string }>("SELECT calls FROM pg_stat_statements WHERE query ILIKE 'SELECT%'")).reduce((s, x) => s + Number(x.calls), 0)
@@ -55,6 +58,7 @@ async function night(setup: string, d: Deployment): Promise<SetupFigures> {
     shotsStored: Number(stored.n),
     shotsExpected: r.bowlers * 12,
     standbyReadCalls,
+    calibrationBacklog: Number(backlog.n),
     routes: r.routes,
   };
 }
@@ -77,7 +81,7 @@ const fmt = (n: number, w = 8) => n.toFixed(0).padStart(w);
 console.log(`\nLeague night: ${LANES} lanes × ${PER_LANE} bowlers, 12 shots each, from the production build on loopback (${os.cpus().length} cores)`);
 for (const s of [scaled, single]) {
   console.log(`\n${s.setup}`);
-  console.log(`  ${s.durationS.toFixed(1)} s, ${s.requests} requests, ${s.throughput.toFixed(1)} req/s; shots stored ${s.shotsStored}/${s.shotsExpected}; read-after-write misses ${s.readAfterWriteMisses}; retries ${s.retries}${s.standbyReadCalls === null ? '' : `; SELECTs on the standby ${s.standbyReadCalls}`}`);
+  console.log(`  ${s.durationS.toFixed(1)} s, ${s.requests} requests, ${s.throughput.toFixed(1)} req/s; shots stored ${s.shotsStored}/${s.shotsExpected}; read-after-write misses ${s.readAfterWriteMisses}; retries ${s.retries}; calibration fits still queued at the end ${s.calibrationBacklog}${s.standbyReadCalls === null ? '' : `; SELECTs on the standby ${s.standbyReadCalls}`}`);
 }
 console.log(`\n${'route'.padEnd(44)} ${'scaled p50'.padStart(11)} ${'p95'.padStart(8)} ${'single p50'.padStart(11)} ${'p95'.padStart(8)}  (ms; count)`);
 for (const route of [...new Set([...Object.keys(scaled.routes), ...Object.keys(single.routes)])].sort()) {
