@@ -61,6 +61,18 @@ export default defineConfig({
       {
         extends: true,
         test: {
+          // Several processes from the production build, a primary and a hot standby (tests/scaleout/scaleOut.test.ts).
+          name: 'scaleout',
+          include: ['tests/scaleout/**/*.test.ts'],
+          environment: 'node',
+          fileParallelism: false,
+          testTimeout: 600000,
+          hookTimeout: 180000,
+        },
+      },
+      {
+        extends: true,
+        test: {
           name: 'e2e',
           include: ['tests/e2e/**/*.e2e.ts'],
           environment: 'node',

@@ -1,9 +1,8 @@
 // npm run db:start | db:stop — the project's own PostgreSQL cluster in .data/pg on DB_PORT (default 5433).
-import path from 'node:path';
 import { root } from './lib/deps.mjs';
-import { startCluster, stopCluster } from './lib/pg.mjs';
+import { projectClusterDir, startCluster, stopCluster } from './lib/pg.mjs';
 
-const dataDir = path.join(root, '.data', 'pg');
+const dataDir = projectClusterDir(root).dir;
 const port = Number(process.env.DB_PORT ?? 5433);
 const cmd = process.argv[2];
 try {

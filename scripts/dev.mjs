@@ -2,9 +2,9 @@
 import { spawn } from 'node:child_process';
 import path from 'node:path';
 import { ensureNodeModules, root, runBin } from './lib/deps.mjs';
-import { startCluster, stopCluster } from './lib/pg.mjs';
+import { projectClusterDir, startCluster, stopCluster } from './lib/pg.mjs';
 
-const dataDir = path.join(root, '.data', 'pg');
+const dataDir = projectClusterDir(root).dir;
 ensureNodeModules();
 const env = { ...process.env, PORT: process.env.PORT ?? '3000' };
 let ownCluster = false;

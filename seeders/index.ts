@@ -8,7 +8,8 @@ import { DEMO_PATTERNS } from './patterns';
 import { seedShop, seedShopIfMissing } from './shop';
 import { DEMO_PASSWORD, DEMO_USERS, seedUsers, verifyDemoUsers } from './users';
 import { config } from '../server/config/index';
-import { seedSessions } from './sessions';
+import { requestDemoCalibrations, seedSessions } from './sessions';
+import { stopJobs } from '../server/lib/jobs';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 
@@ -94,12 +95,14 @@ if (isMain) {
     const seeded = await seedDemo();
     if (!seeded) await verifyDemoUsers();
     if (!seeded && (await seedShopIfMissing())) console.log('Pro-shop price list added to Copperline Bowl.');
+    if (seeded) await requestDemoCalibrations();
     console.log(seeded ? 'Demo data loaded.' : 'Database already has data; demo seed skipped.');
     if (seeded || process.argv.includes('--print')) {
       console.log(`Demo accounts (password "${DEMO_PASSWORD}"):`);
       for (const u of DEMO_USERS) console.log(`  ${u.role.padEnd(10)} ${u.email}`);
     }
   } finally {
+    await stopJobs();
     await sequelize.close();
   }
 }

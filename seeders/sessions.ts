@@ -1,5 +1,5 @@
 import crypto from 'node:crypto';
-import { Op, type Transaction } from 'sequelize';
+import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { buildGame, CALIBRATION, simulateShot } from '../engine/index';
 import type { BallSpec, BowlerProfile as EngineBowler, LaneSurface, OilPattern } from '../engine/types';
 import type { HitKind, LoggedDelivery } from '../engine/shotlog/types';
@@ -7,7 +7,9 @@ import { surfaceKeyOf } from '../server/features/sessions/sessions.service';
 import { LAYDOWN_OFFSET_BOARDS, specAsThrown } from '../server/features/stats/stats.service';
 import { laneOf } from '../server/features/centers/centers.repository';
 import { sessionsRepository } from '../server/features/sessions/sessions.repository';
-import { Annotation, Ball, BowlerProfile, BowlingSession, Center, CoachLink, Condition, Plan, Shot, SurfaceEvent, type User } from '../server/models/index';
+import { requestCalibrationFit } from '../server/features/stats/calibrationJobs';
+import { DEFAULT_LANE_SURFACE } from '../shared/centers';
+import { Annotation, Ball, BowlerProfile, BowlingSession, Center, CoachLink, Condition, Plan, sequelize, Shot, SurfaceEvent, type User } from '../server/models/index';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 
@@ -189,4 +191,21 @@ export async function seedSessions(users: Map<string, User>, transaction: Transa
     { sessionId: latest!.id, authorId: coach.id, gameNumber: 1, frame: 4, text: 'Good move two left with the feet here: the ball stopped going light and the 10 pin went away.' },
     { transaction },
   );
+}
+
+/**
+ * Asks the job worker for the calibration fits of the seeded sessions (each bowler on each condition, or pattern on
+ * the default lanes, with first balls that carry boards), as logging those shots through the API would have: the
+ * demo's matchups and Stats then find them stored once the server has worked the queue for a few seconds.
+ */
+export async function requestDemoCalibrations(): Promise<number> {
+  const rows = await sequelize.query<{ user_id: number; condition_id: number | null; pattern_id: number }>(
+    `SELECT DISTINCT s.user_id, s.condition_id, s.pattern_id FROM sessions s JOIN shots t ON t.session_id = s.id
+      WHERE s.pattern_id IS NOT NULL AND s.deleted_at IS NULL AND t.delivery = 1 AND t.feet_board IS NOT NULL AND t.target_board IS NOT NULL`,
+    { type: QueryTypes.SELECT },
+  );
+  for (const r of rows) {
+    await requestCalibrationFit(r.condition_id ? { bowlerId: r.user_id, conditionId: r.condition_id } : { bowlerId: r.user_id, patternId: r.pattern_id, lane: DEFAULT_LANE_SURFACE });
+  }
+  return rows.length;
 }

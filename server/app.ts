@@ -19,6 +19,7 @@ import { coachRouter, plansRouter } from './features/coaching/coaching.router';
 import { paymentsRouter } from './features/shop/payments.router';
 import { ordersRouter, shopCentersRouter } from './features/shop/shop.router';
 import { mailCaptureEnabled } from './lib/mailer';
+import { metricsMiddleware } from './lib/metrics';
 import { passportInitialize } from './middleware/auth';
 import { errorHandler, notFound } from './middleware/errorHandler';
 import { uploadRateLimit } from './middleware/rateLimit';
@@ -41,6 +42,7 @@ export function createApp(): Express {
   // behind a load balancer set TRUST_PROXY to its hop count or subnet (README, Configuration).
   app.set('trust proxy', config.TRUST_PROXY);
   app.use(requestId);
+  app.use(metricsMiddleware);
   app.use(
     helmet({
       contentSecurityPolicy: {

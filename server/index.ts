@@ -4,7 +4,11 @@ import { config } from './config/index';
 import { drainBackground } from './lib/background';
 import { closeEnginePool, warmEnginePool } from './lib/enginePool';
 import { closeMailer } from './lib/mailer';
-import { startMailSender, stopMailSender } from './lib/outbox';
+import { stopJobs } from './lib/jobs';
+import { stopMailSender } from './lib/outbox';
+import { startMetricsListener } from './features/health/health.router';
+import { markStopping } from './features/health/health.router';
+import { startWorkers } from './lib/workers';
 import { logger } from './lib/logger';
 import { closePayments, paymentFake, setPaymentWebhookTarget } from './lib/payments';
 import { publicUrl, setListeningPort } from './lib/publicUrl';
@@ -24,7 +28,14 @@ const server = app.listen(config.PORT, config.HOST, () => {
     .finally(() => process.send?.({ type: 'listening', port }));
 });
 server.keepAliveTimeout = 5000;
-startMailSender();
+// One process does it all by default; with a separate worker tier (npm run worker) set JOBS_IN_PROCESS=false.
+if (config.JOBS_IN_PROCESS) {
+  startWorkers().catch((err: unknown) => {
+    logger.fatal({ err }, 'the job queue did not start (run `npm run db:migrate`)');
+    process.exit(1);
+  });
+}
+const metricsServer = startMetricsListener();
 
 const sockets = new Set<Socket>();
 server.on('connection', (s) => {
@@ -37,6 +48,7 @@ let stopping = false;
 async function shutdown(signal: string): Promise<void> {
   if (stopping) return;
   stopping = true;
+  markStopping();
   logger.info({ signal }, 'shutting down');
   const force = setTimeout(() => {
     for (const s of sockets) s.destroy();
@@ -44,8 +56,10 @@ async function shutdown(signal: string): Promise<void> {
   force.unref();
   server.closeIdleConnections();
   await new Promise<void>((resolve) => server.close(() => resolve()));
+  metricsServer?.close();
   await drainBackground();
-  await stopMailSender();
+  stopMailSender();
+  await stopJobs(10000);
   await Promise.allSettled([sequelize.close(), closeMailer(), closeEnginePool(), closePayments()]);
   clearTimeout(force);
   process.exit(0);

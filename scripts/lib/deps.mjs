@@ -13,7 +13,8 @@ export function ensureNodeModules(log = console.log) {
   const stale = fs.existsSync(lock) && fs.existsSync(marker) && fs.statSync(lock).mtimeMs > fs.statSync(marker).mtimeMs + 1000;
   if (fs.existsSync(nm) && !stale) return;
   log(stale ? 'package-lock.json changed; reinstalling dependencies (npm ci) …' : 'Installing dependencies (npm ci) …');
-  const r = spawnSync('npm', ['ci', '--no-audit', '--no-fund'], { cwd: root, stdio: 'inherit' });
+  // Development dependencies too, whatever NODE_ENV says: the build (esbuild, Vite) needs them.
+  const r = spawnSync('npm', ['ci', '--no-audit', '--no-fund', '--include=dev'], { cwd: root, stdio: 'inherit' });
   if (r.status !== 0) throw new Error('npm ci failed');
 }
 

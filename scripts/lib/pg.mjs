@@ -1,6 +1,7 @@
 // Starting and stopping the project's own PostgreSQL cluster from Debian's server binaries.
 // Used by start, dev, test and db scripts; plain Node so it runs before dependencies are installed.
 import { execFileSync, spawnSync } from 'node:child_process';
+import crypto from 'node:crypto';
 import fs from 'node:fs';
 import net from 'node:net';
 import path from 'node:path';
@@ -36,11 +37,38 @@ export function ensurePgInstalled(log = console.log) {
   return bin;
 }
 
-/** Runs a PostgreSQL binary; as root it runs as the "postgres" system user (initdb refuses root). */
-function pgRun(bin, cmd, args, opts = {}) {
+/**
+ * Runs a PostgreSQL binary; as root it runs as the "postgres" system user (initdb refuses root). It starts in
+ * "/", not in the checkout: the postgres user may not be allowed into it ("could not change directory").
+ */
+export function pgRun(bin, cmd, args, opts = {}) {
   const exe = path.join(bin, cmd);
   const full = isRoot ? ['runuser', ['-u', 'postgres', '--', exe, ...args]] : [exe, args];
-  return spawnSync(full[0], full[1], { encoding: 'utf8', ...opts });
+  return spawnSync(full[0], full[1], { encoding: 'utf8', cwd: '/', ...opts });
+}
+
+/** Whether the postgres system user can reach (search) `dir`, i.e. every folder above it lets it through. Always true when not root. */
+export function reachableByPostgres(dir) {
+  if (!isRoot) return true;
+  return spawnSync('runuser', ['-u', 'postgres', '--', 'test', '-x', dir], { cwd: '/' }).status === 0;
+}
+
+/**
+ * Where the project's own cluster lives: `<checkout>/.data/pg` — unless, running as root, the postgres user
+ * cannot reach the checkout (a clone under /root or in a private mktemp folder). The cluster then lives in
+ * /var/lib/lanewright/<folder name>-<hash of the checkout's path>/pg, the same place for every start.
+ */
+export function projectClusterDir(root) {
+  const inTree = path.join(root, '.data', 'pg');
+  fs.mkdirSync(path.join(root, '.data'), { recursive: true });
+  if (reachableByPostgres(path.join(root, '.data'))) return { dir: inTree, relocated: false };
+  const real = fs.realpathSync(root);
+  const id = `${path.basename(real).replace(/[^A-Za-z0-9._-]/g, '_')}-${crypto.createHash('sha256').update(real).digest('hex').slice(0, 10)}`;
+  const base = path.join('/var/lib/lanewright', id);
+  fs.mkdirSync(base, { recursive: true, mode: 0o755 });
+  fs.chmodSync('/var/lib/lanewright', 0o755);
+  chownToPostgres(base);
+  return { dir: path.join(base, 'pg'), relocated: true };
 }
 
 function chownToPostgres(dir) {
@@ -72,7 +100,7 @@ export function freePort() {
  * Creates (when missing) and starts a cluster in dataDir on 127.0.0.1:port, with a login role and database.
  * Returns the connection URL. Idempotent: a running cluster is reused.
  */
-export async function startCluster({ dataDir, port, user = 'lanewright', password = 'lanewright', database = 'lanewright', log = console.log }) {
+export async function startCluster({ dataDir, port, user = 'lanewright', password = 'lanewright', database = 'lanewright', log = console.log, extraOptions = '' }) {
   const bin = ensurePgInstalled(log);
   const pgdata = path.resolve(dataDir);
   fs.mkdirSync(path.dirname(pgdata), { recursive: true });
@@ -90,7 +118,7 @@ export async function startCluster({ dataDir, port, user = 'lanewright', passwor
   const running = pgRun(bin, 'pg_ctl', ['-D', pgdata, 'status']).status === 0;
   if (!running) {
     if (await portOpen(port)) throw new Error(`Port ${port} on 127.0.0.1 is taken by another program; set DB_PORT to another port.`);
-    const opts = `-p ${port} -k ${pgdata} -c listen_addresses=127.0.0.1 -c fsync=off -c full_page_writes=off`;
+    const opts = `-p ${port} -k ${pgdata} -c listen_addresses=127.0.0.1 -c fsync=off -c full_page_writes=off ${extraOptions}`.trim();
     const r = pgRun(bin, 'pg_ctl', ['-D', pgdata, '-o', opts, '-l', path.join(pgdata, 'server.log'), '-w', '-t', '60', 'start']);
     if (r.status !== 0) {
       const tail = fs.existsSync(path.join(pgdata, 'server.log')) ? fs.readFileSync(path.join(pgdata, 'server.log'), 'utf8').split('\n').slice(-15).join('\n') : '';
@@ -122,4 +150,19 @@ export function makeTempClusterDir(prefix) {
   fs.chmodSync(dir, 0o755);
   chownToPostgres(dir);
   return dir;
+}
+
+/**
+ * A hot standby of a running cluster (tests and benches): pg_basebackup over the replication protocol from
+ * 127.0.0.1:primaryPort into dataDir, with -R (standby.signal and primary_conninfo), then started on its own port.
+ * Returns the standby's URL for `database`.
+ */
+export async function startStandby({ dataDir, primaryPort, port, user = 'lanewright', password = 'lanewright', database = 'lanewright', extraOptions = '' }) {
+  const bin = ensurePgInstalled(() => undefined);
+  const pgdata = path.resolve(dataDir);
+  fs.mkdirSync(path.dirname(pgdata), { recursive: true });
+  chownToPostgres(path.dirname(pgdata));
+  const r = pgRun(bin, 'pg_basebackup', ['-h', '127.0.0.1', '-p', String(primaryPort), '-U', user, '-D', pgdata, '-R', '-X', 'stream', '-c', 'fast'], { env: { ...process.env, PGPASSWORD: password } });
+  if (r.status !== 0) throw new Error(`pg_basebackup failed:\n${r.stderr || r.stdout}`);
+  return startCluster({ dataDir: pgdata, port, user, password, database, log: () => undefined, extraOptions: `-c hot_standby=on ${extraOptions}` });
 }

@@ -69,10 +69,29 @@ const ConfigSchema = z
     STRIPE_WEBHOOK_SECRET: z.preprocess(blankToUndefined, z.string().startsWith('whsec_', 'a webhook signing secret starts with whsec_').optional()),
     /** Another API address for the SDK (e.g. the fake run alone: http://127.0.0.1:12111); unset = the real service. */
     STRIPE_API_URL: z.preprocess(blankToUndefined, z.string().url().optional()),
+    /** Replicas for reads (hot standbys), comma-separated URLs; writes and reads that follow a user's own write go to DATABASE_URL. */
+    DATABASE_REPLICA_URLS: z.preprocess(blankToUndefined, z.string().optional()),
+    /** After a user's write, that user's reads go to the primary for this long (ms): longer than the replicas' lag. */
+    READ_YOUR_WRITES_MS: z.coerce.number().int().min(0).max(600000).default(10000),
+    /** Whether this API process also works the job queue (mail, refunds, calibration fits); false when a separate `npm run worker` does. */
+    JOBS_IN_PROCESS: z.preprocess(blankToUndefined, z.enum(['true', 'false']).default('true')).transform((v) => v === 'true'),
+    JOBS_POOL_MAX: z.coerce.number().int().min(1).max(50).default(4),
+    JOBS_POLL_SECONDS: z.coerce.number().min(0.5).max(60).default(1),
+    JOBS_MAINTENANCE_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
+    /** Seconds before a running job whose worker died is retried (default per queue: mail 60, refunds 120, calibration 300). */
+    JOBS_EXPIRE_SECONDS: z.preprocess(blankToUndefined, z.coerce.number().int().min(1).max(86400).optional()),
+    /** Prometheus metrics at /api/health/metrics for `Authorization: Bearer <METRICS_TOKEN>` (unset: 404). */
+    METRICS_TOKEN: z.preprocess(blankToUndefined, z.string().min(24, 'METRICS_TOKEN must be at least 24 characters').optional()),
+    /** Prometheus metrics at /metrics on their own listener (METRICS_HOST, loopback by default), no token; unset: none. */
+    METRICS_PORT: z.preprocess(blankToUndefined, z.coerce.number().int().min(0).max(65535).optional()),
+    METRICS_HOST: z.string().default('127.0.0.1'),
     /** Port of the in-process payment fake (0 = a free one). */
     STRIPE_FAKE_PORT: z.coerce.number().int().min(0).max(65535).default(0),
   })
   .superRefine((c, ctx) => {
+    for (const u of (c.DATABASE_REPLICA_URLS ?? '').split(',').map((x) => x.trim()).filter(Boolean)) {
+      if (!URL.canParse(u) || !/^postgres(ql)?:$/.test(new URL(u).protocol)) ctx.addIssue({ code: 'custom', path: ['DATABASE_REPLICA_URLS'], message: 'a comma-separated list of postgres:// URLs' });
+    }
     if (c.JWT_SECRET && PUBLISHED_JWT_SECRETS.has(c.JWT_SECRET)) {
       ctx.addIssue({ code: 'custom', path: ['JWT_SECRET'], message: 'this JWT_SECRET was published in the repository; set a real JWT_SECRET (or leave it unset in development)' });
     }
@@ -89,10 +108,15 @@ const ConfigSchema = z
     }
   });
 
+/** Every environment variable the configuration reads (README's Configuration table lists each). */
+export const CONFIG_VARIABLES: readonly string[] = Object.keys(ConfigSchema.shape);
+
 type Parsed = z.infer<typeof ConfigSchema>;
 
 export type Config = Omit<Parsed, 'LOG_LEVEL' | 'JWT_SECRET' | 'TRUST_PROXY'> & {
   databaseUrl: string;
+  /** DATABASE_REPLICA_URLS as a list (empty: no replicas). */
+  replicaUrls: string[];
   LOG_LEVEL: 'fatal' | 'error' | 'warn' | 'info' | 'debug' | 'trace' | 'silent';
   /** The token signing secret: from the environment, else (development) this installation's generated one, else (tests) a random one per process. */
   JWT_SECRET: string;
@@ -143,6 +167,7 @@ function load(): Config {
   return {
     ...c,
     databaseUrl,
+    replicaUrls: (c.DATABASE_REPLICA_URLS ?? '').split(',').map((u) => u.trim()).filter(Boolean),
     JWT_SECRET: secret,
     jwtSecretSource,
     TRUST_PROXY: parseTrustProxy(c.TRUST_PROXY),

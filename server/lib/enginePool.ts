@@ -1,6 +1,6 @@
-import { buildSync } from 'esbuild';
 import crypto from 'node:crypto';
 import fs from 'node:fs';
+import { createRequire } from 'node:module';
 import { cpus, tmpdir } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -11,14 +11,15 @@ import type { RankArsenalInput, RankedBall } from '../../engine/types';
 import { config } from '../config/index';
 import { AppError } from './AppError';
 import { logger } from './logger';
+import { rankingSeconds } from './metrics';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 
 /**
  * Heavy engine work (ranking with the ball-motion model) runs in worker threads so a request never holds the
  * event loop. The pool stays warm and bounded:
- *  - the worker (engineWorker.ts and the engine) is compiled once per process with esbuild into one plain
- *    JavaScript file, so a thread starts without compiling TypeScript;
+ *  - the worker (engineWorker.ts and the engine) is plain JavaScript when a thread starts: the production build
+ *    ships it as dist/server/engineWorker.js; in development it is compiled once per process with esbuild;
  *  - every thread starts with the pool and none retires when idle (minThreads = maxThreads, no idle
  *    timeout): after a quiet minute the first requests do not wait for cold threads;
  *  - a task is handed to piscina only when a thread is free; at most ENGINE_QUEUE tasks wait for one, and
@@ -79,14 +80,27 @@ function acquire(signal?: AbortSignal): Promise<() => void> {
 
 async function runTask<T>(name: string, input: unknown, signal?: AbortSignal): Promise<T> {
   const done = await acquire(signal);
+  const started = Date.now();
   try {
     return (await getPool().run(input, { name })) as T;
   } finally {
     done();
+    if (name === 'rank') rankingSeconds.observe((Date.now() - started) / 1000);
   }
 }
 
+/** The production build's ranking thread, beside the bundle (or one folder up from a shared chunk). */
+function builtWorker(): string | null {
+  for (const dir of [here, path.dirname(here)]) {
+    const f = path.join(dir, 'engineWorker.js');
+    if (fs.existsSync(f)) return f;
+  }
+  return null;
+}
+
 function compileWorker(): string {
+  // Development only: esbuild is a development dependency, loaded here on demand.
+  const { buildSync } = createRequire(import.meta.url)('esbuild') as typeof import('esbuild');
   const out = path.join(tmpdir(), `lanewright-engine-worker-${process.pid}-${crypto.randomBytes(4).toString('hex')}.mjs`);
   buildSync({ entryPoints: [path.join(here, 'engineWorker.ts')], bundle: true, platform: 'node', format: 'esm', target: 'node20', outfile: out, logLevel: 'silent', legalComments: 'none' });
   return out;
@@ -95,10 +109,14 @@ function compileWorker(): string {
 function getPool(): Piscina {
   if (pool) return pool;
   const started = Date.now();
-  compiled = compileWorker();
-  const file = compiled;
-  process.once('exit', () => fs.rmSync(file, { force: true }));
-  pool = new Piscina({ filename: compiled, minThreads: engineThreads, maxThreads: engineThreads, idleTimeout: Infinity });
+  let filename = builtWorker();
+  if (!filename) {
+    compiled = compileWorker();
+    const file = compiled;
+    process.once('exit', () => fs.rmSync(file, { force: true }));
+    filename = compiled;
+  }
+  pool = new Piscina({ filename, minThreads: engineThreads, maxThreads: engineThreads, idleTimeout: Infinity });
   pool.on('error', (err: unknown) => logger.error({ err }, 'engine worker failed'));
   logger.debug({ threads: engineThreads, queue: engineQueueLimit, ms: Date.now() - started }, 'engine pool ready');
   return pool;

@@ -3,7 +3,7 @@ import pino from 'pino';
 import { config } from '../config/index';
 
 /** Per-request context (set by the requestId middleware): every log line written while serving a request carries its id. */
-export const requestContext = new AsyncLocalStorage<{ requestId: string }>();
+export const requestContext = new AsyncLocalStorage<{ requestId: string; replicaReads?: boolean }>();
 
 /** The server's one logger (JSON lines; quiet in tests unless LOG_LEVEL says otherwise). */
 export const logger = pino({

@@ -1,12 +1,14 @@
 import type { NextFunction, Request, Response } from 'express';
 import jwt from 'jsonwebtoken';
-import { LRUCache } from 'lru-cache';
 import passport from 'passport';
 import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
 import type { Role } from '../../shared/auth';
 import { config } from '../config/index';
 import { AppError } from '../lib/AppError';
-import { User } from '../models/index';
+import { QueryTypes } from 'sequelize';
+import { hasReplicas } from '../db/sequelize';
+import { requestContext } from '../lib/logger';
+import { sequelize } from '../models/index';
 
 export interface AuthUser {
   id: number;
@@ -43,15 +45,17 @@ export function signToken(user: { id: number; tokenVersion: number }): string {
 }
 
 /**
- * Signed-in users looked up in the last few seconds, by id: saves one query per request. Role changes and
- * password resets call forgetAuthUser, so they take effect at once; anything else at most AUTH_CACHE_MS later.
+ * No sign-in cache: every request reads its user from the primary (one primary-key lookup), so a role change,
+ * a password reset or a deletion takes effect at once in every process. The same query reads the user's last
+ * write (user_write_marks), which decides whether this request's reads may go to a replica.
  */
-const AUTH_CACHE_MS = 5000;
-const authCache = new LRUCache<number, { user: AuthUser; tokenVersion: number }>({ max: 10000, ttl: AUTH_CACHE_MS });
-
-/** Drops a user from the sign-in cache (after a role change, a password reset or a deletion). */
-export function forgetAuthUser(id: number): void {
-  authCache.delete(id);
+interface AuthRow {
+  id: number;
+  email: string;
+  display_name: string;
+  role: Role;
+  token_version: number;
+  wrote_at: Date | null;
 }
 
 passport.use(
@@ -65,27 +69,32 @@ passport.use(
     },
     (payload: TokenPayload, done: (err: unknown, user?: AuthUser | false) => void) => {
       const id = Number(payload.sub);
-      if (!Number.isInteger(id)) {
+      if (!Number.isInteger(id) || id <= 0 || id > 2147483647) {
         done(null, false);
         return;
       }
-      const cached = authCache.get(id);
-      if (cached) {
-        done(null, cached.tokenVersion === payload.ver ? cached.user : false);
-        return;
-      }
-      User.findByPk(id)
-        .then((u) => {
-          if (!u) return done(null, false);
-          const user: AuthUser = { id: u.id, email: u.email, displayName: u.displayName, role: u.role };
-          authCache.set(id, { user, tokenVersion: u.tokenVersion });
-          if (u.tokenVersion !== payload.ver) return done(null, false);
-          return done(null, user);
+      sequelize
+        .query<AuthRow>('SELECT u.id, u.email, u.display_name, u.role, u.token_version, w.at AS wrote_at FROM users u LEFT JOIN user_write_marks w ON w.user_id = u.id WHERE u.id = :id', {
+          replacements: { id },
+          type: QueryTypes.SELECT,
+          useMaster: true,
+        })
+        .then(([u]) => {
+          if (!u || u.token_version !== payload.ver) return done(null, false);
+          const ctx = requestContext.getStore();
+          if (ctx && u.wrote_at && Date.now() - new Date(u.wrote_at).getTime() < config.READ_YOUR_WRITES_MS) ctx.replicaReads = false;
+          return done(null, { id: u.id, email: u.email, displayName: u.display_name, role: u.role });
         })
         .catch((err: unknown) => done(err));
     },
   ),
 );
+
+/** Before a signed-in user's write: note it on the primary, so their reads for the next READ_YOUR_WRITES_MS (from any process) skip the replicas. */
+async function markWrite(req: Request, user: AuthUser): Promise<void> {
+  if (req.method === 'GET' || req.method === 'HEAD' || !hasReplicas) return;
+  await sequelize.query('INSERT INTO user_write_marks (user_id, at) VALUES (:id, now()) ON CONFLICT (user_id) DO UPDATE SET at = now()', { replacements: { id: user.id } });
+}
 
 export const passportInitialize = passport.initialize();
 
@@ -95,7 +104,7 @@ export function requireAuth(req: Request, res: Response, next: NextFunction): vo
     if (err) return next(err);
     if (!user) return next(AppError.unauthorized('Your session is missing, expired or invalid; sign in again'));
     req.user = user;
-    return next();
+    markWrite(req, user).then(() => next(), next);
   })(req, res, next);
 }
 
@@ -119,7 +128,8 @@ export function optionalAuth(req: Request, res: Response, next: NextFunction): v
   if (!req.headers.authorization) return next();
   passport.authenticate('jwt', { session: false }, (err: unknown, user: AuthUser | false) => {
     if (err) return next(err);
-    if (user) req.user = user;
-    return next();
+    if (!user) return next();
+    req.user = user;
+    markWrite(req, user).then(() => next(), next);
   })(req, res, next);
 }

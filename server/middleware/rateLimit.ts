@@ -1,15 +1,19 @@
 import rateLimit from 'express-rate-limit';
 import { config } from '../config/index';
+import { PostgresRateLimitStore } from '../lib/rateLimitStore';
 
 const tooMany = (_req: unknown, res: { status: (n: number) => { json: (b: unknown) => void } }) => {
   res.status(429).json({ error: { code: 'rate_limited', message: 'Too many attempts; wait a few minutes and try again' } });
 };
+
+/** Counters live in PostgreSQL (rate_limit_hits), shared by every API process. */
 
 /** Sign-in, reset: counts only failed attempts per client address (15 minutes), so guessing is slow and normal use is not limited. */
 export const authRateLimit = rateLimit({
   windowMs: 15 * 60 * 1000,
   limit: config.RATE_LIMIT_AUTH,
   skipSuccessfulRequests: true,
+  store: new PostgresRateLimitStore('auth'),
   standardHeaders: 'draft-8',
   legacyHeaders: false,
   handler: tooMany,
@@ -18,6 +22,7 @@ export const authRateLimit = rateLimit({
 /** Sign-up and reset-mail requests: every attempt counts, per client address (15 minutes). */
 export const signupRateLimit = rateLimit({
   windowMs: 15 * 60 * 1000,
+  store: new PostgresRateLimitStore('signup'),
   limit: config.RATE_LIMIT_AUTH,
   standardHeaders: 'draft-8',
   legacyHeaders: false,
@@ -35,6 +40,7 @@ export const uploadRateLimit = rateLimit({
   windowMs: 15 * 60 * 1000,
   limit: UPLOAD_RATE_LIMIT,
   skip: (req) => !(req.headers['content-type'] ?? '').toLowerCase().startsWith('multipart/'),
+  store: new PostgresRateLimitStore('upload'),
   standardHeaders: 'draft-8',
   legacyHeaders: false,
   handler: tooMany,

@@ -35,5 +35,6 @@ export function requestId(req: Request, res: Response, next: NextFunction): void
       else logger.info(line, 'request');
     });
   });
-  requestContext.run({ requestId: id }, () => next());
+  // A GET may read from a replica unless its user wrote a moment ago (auth.ts turns this off then).
+  requestContext.run({ requestId: id, replicaReads: req.method === 'GET' || req.method === 'HEAD' }, () => next());
 }

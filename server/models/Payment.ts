@@ -5,11 +5,16 @@ import type { Currency } from '../../shared/shop';
 export class Payment extends Model<InferAttributes<Payment>, InferCreationAttributes<Payment>> {
   declare id: CreationOptional<number>;
   declare orderId: number;
-  declare checkoutSessionId: string;
+  /** Null while the checkout is being created at the payment service (status `creating`). */
+  declare checkoutSessionId: CreationOptional<string | null>;
+  /** The idempotency key the checkout session was created with (recorded before the service is called). */
+  declare idempotencyKey: CreationOptional<string | null>;
+  /** Why this payment is being refunded automatically (set when its `refund` job is queued). */
+  declare autoRefundReason: CreationOptional<string | null>;
   declare paymentIntentId: CreationOptional<string | null>;
   declare amountCents: number;
   declare currency: Currency;
-  declare status: CreationOptional<'open' | 'paid' | 'expired' | 'refunded'>;
+  declare status: CreationOptional<'creating' | 'open' | 'paid' | 'expired' | 'refunded'>;
   declare refundId: CreationOptional<string | null>;
   declare refundedCents: CreationOptional<number>;
   declare paidAt: CreationOptional<Date | null>;
@@ -22,7 +27,9 @@ export class Payment extends Model<InferAttributes<Payment>, InferCreationAttrib
       {
         id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
         orderId: { type: DataTypes.INTEGER, allowNull: false },
-        checkoutSessionId: { type: DataTypes.STRING(255), allowNull: false, unique: true },
+        checkoutSessionId: { type: DataTypes.STRING(255), allowNull: true, unique: true },
+        idempotencyKey: { type: DataTypes.STRING(255), allowNull: true, unique: true },
+        autoRefundReason: { type: DataTypes.STRING(200), allowNull: true },
         paymentIntentId: { type: DataTypes.STRING(255), allowNull: true },
         amountCents: { type: DataTypes.INTEGER, allowNull: false },
         currency: { type: DataTypes.STRING(3), allowNull: false },

@@ -1,6 +1,7 @@
 import { sequelize } from '../db/sequelize';
 import { AuditEvent } from './AuditEvent';
 import { Ball } from './Ball';
+import { CalibrationFit } from './CalibrationFit';
 import { BallModel } from './BallModel';
 import { Pattern } from './Pattern';
 import { SurfaceEvent } from './SurfaceEvent';
@@ -51,6 +52,7 @@ Shot.initModel(sequelize);
 CoachLink.initModel(sequelize);
 Plan.initModel(sequelize);
 Annotation.initModel(sequelize);
+CalibrationFit.initModel(sequelize);
 
 User.hasOne(BowlerProfile, { foreignKey: 'userId', as: 'profile' });
 BowlerProfile.belongsTo(User, { foreignKey: 'userId', as: 'user' });
@@ -98,3 +100,4 @@ BowlingSession.hasMany(Annotation, { foreignKey: 'sessionId', as: 'annotations' 
 
 export { sequelize, Annotation, BowlingSession, CoachLink, Plan, Shot, AuditEvent, Ball, BallModel, BowlerProfile, Center, Condition, Follow, Lane, MailOutbox, EmailVerification, PasswordReset, Pattern, SurfaceEvent, Upload, User };
 export { Order, OrderEvent, Payment, PaymentEvent, ShopService };
+export { CalibrationFit };

@@ -1,6 +1,7 @@
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
+import pg from 'pg';
 import type { TestProject } from 'vitest/node';
 import { freshDatabase, root, runTsx, throwawayCluster } from './database';
 
@@ -31,6 +32,21 @@ export default async function setup(project: TestProject): Promise<() => Promise
     });
     server.on('exit', (code) => reject(new Error(`the server exited early (code ${code})`)));
   });
+  // The seed asked for the demo's calibration fits; the server works them in a few seconds. The browser tests start
+  // once they are stored, as a demo user would find them a moment after `npm start`.
+  const db = new pg.Client({ connectionString: url });
+  await db.connect();
+  try {
+    const deadline = Date.now() + 120000;
+    for (;;) {
+      const { rows } = await db.query<{ n: string }>("SELECT count(*) AS n FROM pgboss.job WHERE name = 'calibration' AND state IN ('created', 'retry', 'active')");
+      if (Number(rows[0].n) === 0) break;
+      if (Date.now() > deadline) throw new Error('the demo calibration fits were not done within 120 s');
+      await new Promise((r) => setTimeout(r, 200));
+    }
+  } finally {
+    await db.end();
+  }
   project.provide('baseUrl', `http://127.0.0.1:${port}`);
   project.provide('databaseUrl', url);
 

@@ -3,7 +3,6 @@ import { AppError } from '../../lib/AppError';
 import { audit } from '../../lib/audit';
 import { AuditEvent, sequelize } from '../../models/index';
 import { toUserDto, userRepository } from '../auth/user.repository';
-import { forgetAuthUser } from '../../middleware/auth';
 
 export interface AuditEventDto {
   id: number;
@@ -31,7 +30,6 @@ export const adminService = {
       if (from !== role) {
         await userRepository.setRole(user, role, transaction);
         await audit({ actorId, action: 'user.role_changed', subjectType: 'user', subjectId: user.id, details: { from, to: role } }, transaction);
-        transaction.afterCommit(() => forgetAuthUser(user.id));
       }
       return toUserDto(user);
     });

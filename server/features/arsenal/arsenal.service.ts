@@ -14,6 +14,7 @@ import { cell, parseCsvRows } from '../../lib/upload';
 import { sequelize, Upload } from '../../models/index';
 import { decodeImage, storage } from '../../lib/storage';
 import { catalogueRepository } from '../catalogue/catalogue.repository';
+import { refitBowlerAfterCommit } from '../stats/calibrationJobs';
 import { arsenalRepository, toBallDto } from './arsenal.repository';
 
 /** A row of the arsenal CSV: a hand-entered ball whose pin-to-PAP may be written as a pro shop writes it ("4 3/8", "4-3/8", "4.375"). */
@@ -78,6 +79,7 @@ export const arsenalService = {
       const { version: _v, ...fields } = patch;
       b.set({ ...fields, layout: fields.layout === undefined ? b.layout : fields.layout });
       await b.save({ transaction });
+      refitBowlerAfterCommit(ownerId, transaction); // the fits read the ball's specs
       return toBallDto(b);
     });
   },
@@ -107,6 +109,7 @@ export const arsenalService = {
       );
       b.set({ surfaceGrit: change.surfaceGrit, polished: change.polished, gamesSinceResurface: 0 });
       await b.save({ transaction });
+      refitBowlerAfterCommit(ownerId, transaction); // shots on the earlier surface are read without today's wear
       const withHistory = await arsenalRepository.findOwned(ownerId, id, { withHistory: true, transaction });
       return toBallDto(withHistory!);
     });

@@ -1,7 +1,6 @@
 import bcrypt from 'bcryptjs';
-import { LRUCache } from 'lru-cache';
 import crypto from 'node:crypto';
-import type { Transaction } from 'sequelize';
+import { QueryTypes, type Transaction } from 'sequelize';
 import type { AuthResponse, LoginInput, RegisterInput, RegisterResponse, User as UserDto } from '../../../shared/auth';
 import { config } from '../../config/index';
 import { AppError } from '../../lib/AppError';
@@ -9,7 +8,7 @@ import { enqueueMail } from '../../lib/outbox';
 import { assertStrongPassword } from '../../lib/passwordPolicy';
 import { linkTo } from '../../lib/publicUrl';
 import { sequelize } from '../../models/index';
-import { forgetAuthUser, signToken } from '../../middleware/auth';
+import { signToken } from '../../middleware/auth';
 import { toUserDto, userRepository } from './user.repository';
 
 const RESET_TTL_MS = 60 * 60 * 1000;
@@ -42,17 +41,29 @@ export const REGISTER_ANSWER: RegisterResponse = {
  */
 const BACKOFF_WINDOW_MS = 15 * 60 * 1000;
 const BACKOFF_MAX_MS = 15 * 60 * 1000;
-const failures = new LRUCache<string, { count: number; lastAt: number }>({ max: 100_000, ttl: BACKOFF_WINDOW_MS });
 
-function backoffUntil(email: string): number {
-  const f = failures.get(email);
+/** When the next attempt for this e-mail may be made (0: now). Kept in PostgreSQL (login_failures), shared by every process. */
+async function backoffUntil(email: string): Promise<number> {
+  const [f] = await sequelize.query<{ count: number; last_at: Date }>('SELECT count, last_at FROM login_failures WHERE email = :email AND last_at > now() - make_interval(secs => :window)', {
+    replacements: { email, window: BACKOFF_WINDOW_MS / 1000 },
+    type: QueryTypes.SELECT,
+    useMaster: true,
+  });
   if (!f || f.count < config.LOGIN_FAILURES_BEFORE_BACKOFF) return 0;
-  return f.lastAt + Math.min(BACKOFF_MAX_MS, 1000 * 2 ** (f.count - config.LOGIN_FAILURES_BEFORE_BACKOFF));
+  return new Date(f.last_at).getTime() + Math.min(BACKOFF_MAX_MS, 1000 * 2 ** (f.count - config.LOGIN_FAILURES_BEFORE_BACKOFF));
 }
 
-function noteFailure(email: string): void {
-  const f = failures.get(email);
-  failures.set(email, { count: (f?.count ?? 0) + 1, lastAt: Date.now() });
+/** One more failure within the window (a failure after the window starts a new count). */
+async function noteFailure(email: string): Promise<void> {
+  await sequelize.query(
+    `INSERT INTO login_failures (email, count, last_at) VALUES (:email, 1, now())
+     ON CONFLICT (email) DO UPDATE SET count = CASE WHEN login_failures.last_at <= now() - make_interval(secs => :window) THEN 1 ELSE login_failures.count + 1 END, last_at = now()`,
+    { replacements: { email, window: BACKOFF_WINDOW_MS / 1000 } },
+  );
+}
+
+async function clearFailures(email: string): Promise<void> {
+  await sequelize.query('DELETE FROM login_failures WHERE email = :email', { replacements: { email } });
 }
 
 async function enqueueVerification(user: { id: number; email: string; displayName: string }, transaction: Transaction): Promise<void> {
@@ -106,17 +117,17 @@ export const authService = {
   },
 
   async login(input: LoginInput): Promise<AuthResponse> {
-    const until = backoffUntil(input.email);
+    const until = await backoffUntil(input.email);
     if (until > Date.now()) {
       throw new AppError(429, 'too_many_failures', 'Too many failed sign-ins for this account; wait a moment and try again', undefined, Math.ceil((until - Date.now()) / 1000));
     }
     const user = await userRepository.findByEmail(input.email);
     const ok = await bcrypt.compare(input.password, user?.passwordHash ?? DUMMY_HASH);
     if (!user || !ok) {
-      noteFailure(input.email);
+      await noteFailure(input.email);
       throw new AppError(401, 'invalid_credentials', 'E-mail or password is not correct');
     }
-    failures.delete(input.email);
+    await clearFailures(input.email);
     return { token: signToken(user), user: toUserDto(user) };
   },
 
@@ -170,10 +181,7 @@ export const authService = {
       user.emailVerifiedAt ??= new Date();
       await user.save({ transaction });
       await userRepository.closeResets(user.id, transaction);
-      transaction.afterCommit(() => {
-        forgetAuthUser(user.id);
-        failures.delete(user.email);
-      });
+      await sequelize.query('DELETE FROM login_failures WHERE email = :email', { replacements: { email: user.email }, transaction });
     });
   },
 
@@ -189,7 +197,6 @@ export const authService = {
       await user.save({ transaction });
       v.usedAt = new Date();
       await v.save({ transaction });
-      transaction.afterCommit(() => forgetAuthUser(user.id));
       return toUserDto(user);
     });
   },

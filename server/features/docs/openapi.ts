@@ -9,7 +9,7 @@ import { CalibrationQuerySchema, SessionCreateSchema, SessionListQuerySchema, Se
 import { AnnotationCreateSchema, CoachListQuerySchema, InvitationCreateSchema, PlanCreateSchema, StudentParamSchema } from '../../../shared/coaching';
 import { CenterOrderQuerySchema, OrderCreateSchema, OrderListQuerySchema, OrderStatusChangeSchema, ServiceInputSchema, ServiceListQuerySchema, ServiceParamsSchema, ServicePatchSchema, TakingsQuerySchema } from '../../../shared/shop';
 
-type Who = 'public' | 'signed-in' | 'coach, proprietor, admin' | 'admin' | 'coach' | 'owner or linked coach';
+type Who = 'public' | 'metrics token' | 'signed-in' | 'coach, proprietor, admin' | 'admin' | 'coach' | 'owner or linked coach';
 
 interface RouteDoc {
   method: 'get' | 'post' | 'put' | 'patch' | 'delete';
@@ -25,6 +25,9 @@ interface RouteDoc {
 /** Every documented route, with the zod schemas that validate it (the single source of truth). */
 export const ROUTES: RouteDoc[] = [
   { method: 'get', path: '/api/health', summary: 'Liveness and database reachability', who: 'public' },
+  { method: 'get', path: '/api/health/live', summary: 'Liveness: the process answers (no dependency checked)', who: 'public' },
+  { method: 'get', path: '/api/health/ready', summary: 'Readiness: the primary database answers and the process is not stopping (503 otherwise)', who: 'public' },
+  { method: 'get', path: '/api/health/metrics', summary: 'Prometheus metrics (text format); only with METRICS_TOKEN configured, for that bearer token', who: 'metrics token' },
   { method: 'post', path: '/api/auth/register', summary: 'Create a bowler account and mail a verification link (the same answer whether the address is new or taken; the mail says which)', who: 'public', body: RegisterSchema },
   { method: 'post', path: '/api/auth/login', summary: 'Sign in: a bearer token and the user', who: 'public', body: LoginSchema },
   { method: 'get', path: '/api/auth/me', summary: 'The signed-in user with their role', who: 'signed-in' },

@@ -1,10 +1,81 @@
 import { Router } from 'express';
+import crypto from 'node:crypto';
+import http from 'node:http';
 import nodemailer from 'nodemailer';
 import { config } from '../../config/index';
+import { AppError } from '../../lib/AppError';
 import { mailCaptureEnabled } from '../../lib/mailer';
+import { registry } from '../../lib/metrics';
+import { logger } from '../../lib/logger';
 import { MailOutbox, sequelize } from '../../models/index';
 
 export const healthRouter = Router();
+
+let stopping = false;
+/** Called when the process begins its graceful stop: readiness answers 503 so a load balancer drains it. */
+export function markStopping(): void {
+  stopping = true;
+}
+
+/** Liveness: the process answers (no dependency checked), so an orchestrator restarts only a hung process. */
+healthRouter.get('/live', (_req, res) => {
+  res.json({ status: 'ok' });
+});
+
+/**
+ * Readiness: this process should get traffic — the primary answers and the process is not stopping. 503
+ * otherwise (a load balancer takes it out of rotation; it comes back by itself).
+ */
+healthRouter.get('/ready', async (_req, res) => {
+  if (stopping) {
+    res.status(503).json({ status: 'stopping' });
+    return;
+  }
+  const db = await withTimeout(sequelize.query('SELECT 1', { useMaster: true }), 'database check').then(
+    () => 'ok' as const,
+    () => 'unreachable' as const,
+  );
+  res.status(db === 'ok' ? 200 : 503).json({ status: db === 'ok' ? 'ready' : 'not_ready', db });
+});
+
+/** Constant-time comparison of a presented bearer token with METRICS_TOKEN. */
+function tokenMatches(header: string | undefined): boolean {
+  const sent = /^Bearer (.+)$/.exec(header ?? '')?.[1] ?? '';
+  const want = config.METRICS_TOKEN ?? '';
+  const a = crypto.createHash('sha256').update(sent).digest();
+  const b = crypto.createHash('sha256').update(want).digest();
+  return want.length > 0 && crypto.timingSafeEqual(a, b);
+}
+
+/**
+ * Prometheus metrics for `Authorization: Bearer <METRICS_TOKEN>`: 404 while no token is configured (the route
+ * does not exist then), 401 for a missing or wrong token.
+ */
+healthRouter.get('/metrics', async (req, res, next) => {
+  if (!config.METRICS_TOKEN) return next(AppError.notFound('Route'));
+  if (!tokenMatches(req.get('authorization'))) return next(AppError.unauthorized('Send the metrics token as a bearer token'));
+  res.type(registry.contentType).send(await registry.metrics());
+});
+
+/** With METRICS_PORT: /metrics on its own listener (METRICS_HOST, loopback by default), for a scraper on the same host or network. */
+export function startMetricsListener(): http.Server | null {
+  if (config.METRICS_PORT === undefined) return null;
+  const srv = http.createServer((req, res) => {
+    if (req.method !== 'GET' || req.url !== '/metrics') {
+      res.writeHead(404).end();
+      return;
+    }
+    registry.metrics().then(
+      (body) => res.writeHead(200, { 'Content-Type': registry.contentType }).end(body),
+      (err: unknown) => {
+        logger.error({ err }, 'metrics failed');
+        res.writeHead(500).end();
+      },
+    );
+  });
+  srv.listen(config.METRICS_PORT, config.METRICS_HOST, () => logger.info({ host: config.METRICS_HOST, port: config.METRICS_PORT }, 'metrics listening'));
+  return srv;
+}
 
 const CHECK_TIMEOUT_MS = 3000;
 /** The SMTP check opens a connection; its result is reused for a few seconds so polling health does not hammer the mail server. */
@@ -40,7 +111,7 @@ function checkMail(): Promise<'ok' | 'unreachable'> {
  */
 healthRouter.get('/', async (_req, res) => {
   const [db, mail] = await Promise.all([
-    withTimeout(sequelize.query('SELECT 1'), 'database check').then(
+    withTimeout(sequelize.query('SELECT 1', { useMaster: true }), 'database check').then(
       () => 'ok' as const,
       () => 'unreachable' as const,
     ),

@@ -61,7 +61,7 @@ export const matchupsService = {
     // The bowler's logged shots on this pattern calibrate the model, on these lanes, once there are enough of them.
     let fitted: Calibration | null = null;
     try {
-      fitted = await calibrationFor(bowlerId, on.patternId ?? 0, { pattern, bowler, lane, ...(on.patternId === null ? { rows: [] } : {}) });
+      fitted = await calibrationFor(bowlerId, on.patternId ?? 0, { pattern, bowler, lane, ...(on.condition ? { conditionId: on.condition.id } : {}), ...(on.patternId === null ? { rows: [] } : {}) });
     } catch (err) {
       // A calibration that cannot be fitted never blocks the ranking; it is simply not applied.
       logger.warn({ err, bowlerId, patternId: on.patternId }, 'calibration failed; ranking without it');

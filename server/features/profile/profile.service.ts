@@ -1,6 +1,7 @@
 import { DEFAULT_PROFILE, ProfileSchema, type Profile, type ProfileUpdate } from '../../../shared/profile';
 import { AppError } from '../../lib/AppError';
 import { fieldErrors } from '../../middleware/validate';
+import { refitBowlerAfterCommit } from '../stats/calibrationJobs';
 import { profileRepository, toProfileDto } from './profile.repository';
 
 export const profileService = {
@@ -14,6 +15,8 @@ export const profileService = {
     const { profile } = await this.get(userId);
     const merged = ProfileSchema.safeParse({ ...profile, ...patch });
     if (!merged.success) throw AppError.badRequest('Some fields are not valid', fieldErrors('body', merged.error));
-    return profileRepository.upsert(userId, merged.data);
+    const saved = await profileRepository.upsert(userId, merged.data);
+    refitBowlerAfterCommit(userId); // the fits are made with the bowler's release
+    return saved;
   },
 };

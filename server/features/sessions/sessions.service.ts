@@ -3,6 +3,7 @@ import { UniqueConstraintError, type Transaction } from 'sequelize';
 import { buildGame, checkDelivery, shotStats, suggestMoves } from '../../../engine/index';
 import type { LoggedDelivery } from '../../../engine/shotlog/types';
 import type { Page } from '../../../shared/auth';
+import { DEFAULT_LANE_SURFACE } from '../../../shared/centers';
 import type { AnnotationCreate, Annotation as AnnotationDto } from '../../../shared/coaching';
 import type { NumberedGame, Session as SessionDto, SessionCreate, SessionDetail, SessionListQuery, SessionPatch, ShotCreate, ShotCreated } from '../../../shared/sessions';
 import { AppError } from '../../lib/AppError';
@@ -10,6 +11,7 @@ import type { AuthUser } from '../../middleware/auth';
 import { Annotation, Ball, BowlingSession, Center, Condition, Pattern, sequelize, Shot, User } from '../../models/index';
 import { isLinkedCoach, readableBowlerId } from '../coaching/coaching.access';
 import { profileService } from '../profile/profile.service';
+import { requestCalibrationFitsAfterCommit } from '../stats/calibrationJobs';
 import { sessionsRepository, toAnnotationDto, toShotDto, toShotRecord, type ShotRow } from './sessions.repository';
 
 const notFound = () => AppError.notFound('Session');
@@ -207,6 +209,12 @@ async function insertShot(s: BowlingSession, key: string, hash: string, body: Sh
     },
     { transaction },
   );
+  // A shot that says something about the ball's motion asks the worker to refit this bowler on this pattern, on the
+  // lanes it was bowled on (the session's published condition, else the default surface), once the shot is committed.
+  if (s.patternId && body.delivery === 1 && body.feetBoard != null && body.targetBoard != null && (body.breakpointBoard != null || body.hit != null)) {
+    const patternId = s.patternId;
+    requestCalibrationFitsAfterCommit(transaction, () => [s.conditionId ? { bowlerId: s.userId, conditionId: s.conditionId } : { bowlerId: s.userId, patternId, lane: DEFAULT_LANE_SURFACE }]);
+  }
   const item = (await sessionsRepository.shotDto(row.id, transaction))!;
   const response: ShotCreated = { item, game: { ...buildGame([...prior, next]), number: body.gameNumber } };
   row.response = response as unknown as Record<string, unknown>;

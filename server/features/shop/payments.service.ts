@@ -2,6 +2,7 @@ import type Stripe from 'stripe';
 import type { Transaction } from 'sequelize';
 import { publicUrl } from '../../lib/publicUrl';
 import { audit } from '../../lib/audit';
+import { sendJob } from '../../lib/jobs';
 import { logger } from '../../lib/logger';
 import { stripeClient } from '../../lib/payments';
 import { Order, Payment, PaymentEvent, sequelize } from '../../models/index';
@@ -19,20 +20,37 @@ function orderIdOf(obj: { metadata?: Stripe.Metadata | null; client_reference_id
 
 const idOf = (v: string | { id: string } | null | undefined): string | null => (typeof v === 'string' ? v : (v?.id ?? null));
 
-/** Refunds a payment that must not stand (paid after the order was cancelled, or a second payment of one order); runs after commit. */
-function refundAfterCommit(transaction: Transaction, payment: Payment, why: string): void {
-  transaction.afterCommit(() => {
-    void (async () => {
-      try {
-        if (!payment.paymentIntentId) return;
-        const stripe = await stripeClient();
-        await stripe.refunds.create({ payment_intent: payment.paymentIntentId, reason: 'duplicate', metadata: { orderId: String(payment.orderId), why } }, { idempotencyKey: `lanewright-auto-refund-${payment.id}` });
-        await audit({ actorId: null, action: 'payment.auto_refunded', subjectType: 'order', subjectId: payment.orderId, details: { paymentId: payment.id, why } });
-      } catch (err) {
-        logger.error({ err, paymentId: payment.id }, 'automatic refund failed; refund it by hand');
-      }
-    })();
+/**
+ * Refunds a payment that must not stand (paid after the order was cancelled, or a second payment of one
+ * order): the reason is recorded on the payment and a `refund` job is sent in the caller's transaction, so the
+ * refund is as durable as the event that called for it. The job is retried until the payment service answers;
+ * its idempotency key makes every retry the same refund (exactly one in effect).
+ */
+async function queueAutoRefund(transaction: Transaction, payment: Payment, why: string): Promise<void> {
+  payment.autoRefundReason = why.slice(0, 200);
+  await payment.save({ transaction });
+  await sendJob('refund', `payment-${payment.id}`, { paymentId: payment.id, why }, { transaction });
+}
+
+/** The `refund` job: asks the payment service to refund the payment (idempotent), then records it. */
+export async function runAutoRefund(paymentId: number, why: string): Promise<'refunded' | 'nothing_to_do'> {
+  const payment = await Payment.findByPk(paymentId);
+  if (!payment?.paymentIntentId || payment.refundId || payment.status === 'refunded') return 'nothing_to_do';
+  const stripe = await stripeClient();
+  let refundId: string | null = null;
+  try {
+    const refund = await stripe.refunds.create({ payment_intent: payment.paymentIntentId, reason: 'duplicate', metadata: { orderId: String(payment.orderId), why } }, { idempotencyKey: `lanewright-auto-refund-${payment.id}` });
+    refundId = refund.id;
+  } catch (err) {
+    // Refunded already (by an earlier run whose answer was lost, or by hand at the service): done.
+    if (!(err && typeof err === 'object' && (err as { code?: string }).code === 'charge_already_refunded')) throw err;
+  }
+  await sequelize.transaction(async (transaction) => {
+    await Payment.update({ refundId: refundId ?? payment.refundId }, { where: { id: payment.id }, transaction });
+    await audit({ actorId: null, action: 'payment.auto_refunded', subjectType: 'order', subjectId: payment.orderId, details: { paymentId: payment.id, refundId, why } }, transaction);
   });
+  logger.info({ paymentId, refundId }, 'automatic refund done');
+  return 'refunded';
 }
 
 /**
@@ -109,7 +127,7 @@ async function onCompleted(session: Stripe.Checkout.Session, base: string, trans
   }
   if (order.status === 'cancelled' || others.length > 0) {
     await payment.save({ transaction });
-    refundAfterCommit(transaction, payment, order.status === 'cancelled' ? 'paid after the order was cancelled' : 'second payment of one order');
+    await queueAutoRefund(transaction, payment, order.status === 'cancelled' ? 'paid after the order was cancelled' : 'second payment of one order');
     await audit({ actorId: null, action: 'payment.refund_needed', subjectType: 'order', subjectId: order.id, details: { sessionId: session.id, intentId, orderStatus: order.status } }, transaction);
     return { orderId, outcome: order.status === 'cancelled' ? 'paid_after_cancel_refunding' : 'duplicate_payment_refunding' };
   }

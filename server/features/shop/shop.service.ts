@@ -23,6 +23,7 @@ import { stripeClient } from '../../lib/payments';
 import type { AuthUser } from '../../middleware/auth';
 import { Ball, Center, Order, Payment, sequelize, ShopService } from '../../models/index';
 import { arsenalRepository } from '../arsenal/arsenal.repository';
+import { refitBowlerAfterCommit } from '../stats/calibrationJobs';
 import { markRefunded } from './payments.service';
 import { enqueueOrderMail } from './shop.mail';
 import { shopRepository, toOrderDto, toServiceDto } from './shop.repository';
@@ -135,57 +136,110 @@ export const shopService = {
   },
 
   /**
-   * Starts (or resumes) the card payment: a hosted checkout session at the payment service. An open session
-   * of the order is reused — a double click, a second tab or "pay again" after a declined card land on the
-   * same page — and a new one is made only when there is none still open. The order row is locked for the
-   * whole step, so two requests at once get the same session.
+   * Starts (or resumes) the card payment of the bowler's unpaid order. An open checkout that still fits is
+   * reused — reloading the page, a second tab or a declined card land on the same page — and a new one is
+   * made only when there is none still open. No row lock is held while the payment service is called:
+   *  1. a short transaction locks the order, checks it can be paid and records the attempt (status
+   *     `creating`) with its idempotency key — or finds the attempt another request recorded a moment ago;
+   *  2. the payment service is called with that key, outside any transaction (two requests at once send the
+   *     same key and get the same session back: the service's idempotent replay);
+   *  3. a second short transaction stores the session on the attempt.
    */
   async checkout(user: AuthUser, id: number): Promise<CheckoutStart> {
     const o = await visibleOrder(user, id);
     if (o.userId !== user.id) throw AppError.forbidden('Only the bowler who ordered pays for the order');
     const base = publicUrl();
-    return sequelize.transaction(async (transaction) => {
+    const notPayable = (order: Order) =>
+      AppError.conflict('not_payable', order.status === 'ordered' ? 'This order is already paid' : `This order is ${order.status.replace('_', ' ')} and cannot be paid`);
+    const payable = (order: Order) => order.status === 'ordered' && order.paymentStatus !== 'paid';
+
+    let stripe: Stripe;
+    try {
+      stripe = await stripeClient();
+    } catch (err) {
+      throw paymentError(err);
+    }
+    // Open checkouts first: reuse one that still fits, close the others (each a call to the service, no lock held).
+    const open = await sequelize.transaction(async (transaction) => {
       const order = (await shopRepository.lockOrder(o.id, transaction))!;
-      if (order.status !== 'ordered' || order.paymentStatus === 'paid')
-        throw AppError.conflict('not_payable', order.status === 'ordered' ? 'This order is already paid' : `This order is ${order.status.replace('_', ' ')} and cannot be paid`);
-      let stripe: Stripe;
-      try {
-        stripe = await stripeClient();
-        for (const p of (await shopRepository.payments(order.id, transaction)).filter((x) => x.status === 'open')) {
-          const open = await stripe.checkout.sessions.retrieve(p.checkoutSessionId);
-          const usable = open.status === 'open' && open.url && open.amount_total === order.amountCents && open.currency === order.currency && open.expires_at > Date.now() / 1000 + 120;
-          if (usable) return { url: open.url!, checkoutSessionId: open.id };
-          if (open.status === 'complete') throw AppError.conflict('payment_pending', 'This order’s card payment went through and is being confirmed; reload in a moment');
-          if (open.status === 'open') await stripe.checkout.sessions.expire(open.id);
-          p.status = 'expired';
-          await p.save({ transaction });
-        }
-      } catch (err) {
-        if (err instanceof AppError) throw err;
-        throw paymentError(err);
-      }
-      let session: Stripe.Checkout.Session;
-      try {
-        session = await stripe.checkout.sessions.create({
-          mode: 'payment',
-          line_items: [{ quantity: 1, price_data: { currency: order.currency, unit_amount: order.amountCents, product_data: { name: `${order.serviceName} — ${order.ballName}`.slice(0, 250), description: `${o.center?.name ?? 'Pro shop'} order #${order.id}` } } }],
-          success_url: `${base}/orders/${order.id}?checkout=done`,
-          cancel_url: `${base}/orders/${order.id}?checkout=cancelled`,
-          client_reference_id: String(order.id),
-          customer_email: o.bowler?.email,
-          metadata: { orderId: String(order.id) },
-          payment_intent_data: { metadata: { orderId: String(order.id) }, description: `${o.center?.name ?? 'Pro shop'} order #${order.id}: ${order.serviceName}` },
-        });
-      } catch (err) {
-        throw paymentError(err);
-      }
-      if (!session.url) throw new AppError(502, 'payment_service_error', 'The card-payment service did not return a payment page');
-      await Payment.create({ orderId: order.id, checkoutSessionId: session.id, amountCents: order.amountCents, currency: order.currency }, { transaction });
-      order.paymentStatus = 'processing';
-      await order.save({ transaction });
-      await audit({ actorId: user.id, action: 'payment.checkout_started', subjectType: 'order', subjectId: order.id, details: { sessionId: session.id, amountCents: order.amountCents, currency: order.currency } }, transaction);
-      return { url: session.url, checkoutSessionId: session.id };
+      if (!payable(order)) throw notPayable(order);
+      return (await shopRepository.payments(order.id, transaction)).filter((x) => x.status === 'open' && x.checkoutSessionId);
     });
+    try {
+      for (const p of open) {
+        const s = await stripe.checkout.sessions.retrieve(p.checkoutSessionId!);
+        const usable = s.status === 'open' && s.url && s.amount_total === o.amountCents && s.currency === o.currency && s.expires_at > Date.now() / 1000 + 120;
+        if (usable) return { url: s.url!, checkoutSessionId: s.id };
+        if (s.status === 'complete') throw AppError.conflict('payment_pending', 'This order’s card payment went through and is being confirmed; reload in a moment');
+        if (s.status === 'open') await stripe.checkout.sessions.expire(s.id);
+        await Payment.update({ status: 'expired' }, { where: { id: p.id, status: 'open' } });
+      }
+    } catch (err) {
+      if (err instanceof AppError) throw err;
+      throw paymentError(err);
+    }
+
+    // 1. Record the attempt and its idempotency key (or take the one being created).
+    const attempt = await sequelize.transaction(async (transaction) => {
+      const order = (await shopRepository.lockOrder(o.id, transaction))!;
+      if (!payable(order)) throw notPayable(order);
+      const all = await shopRepository.payments(order.id, transaction);
+      const creating = all.find((x) => x.status === 'creating');
+      if (creating) return creating;
+      return Payment.create(
+        { orderId: order.id, status: 'creating', idempotencyKey: `lanewright-checkout-order-${order.id}-attempt-${all.length + 1}`, amountCents: order.amountCents, currency: order.currency },
+        { transaction },
+      );
+    });
+
+    // 2. The payment service, with no transaction open.
+    let session: Stripe.Checkout.Session;
+    try {
+      session = await stripe.checkout.sessions.create(
+        {
+          mode: 'payment',
+          line_items: [{ quantity: 1, price_data: { currency: o.currency, unit_amount: o.amountCents, product_data: { name: `${o.serviceName} — ${o.ballName}`.slice(0, 250), description: `${o.center?.name ?? 'Pro shop'} order #${o.id}` } } }],
+          success_url: `${base}/orders/${o.id}?checkout=done`,
+          cancel_url: `${base}/orders/${o.id}?checkout=cancelled`,
+          client_reference_id: String(o.id),
+          customer_email: o.bowler?.email,
+          metadata: { orderId: String(o.id) },
+          payment_intent_data: { metadata: { orderId: String(o.id) }, description: `${o.center?.name ?? 'Pro shop'} order #${o.id}: ${o.serviceName}` },
+        },
+        { idempotencyKey: attempt.idempotencyKey! },
+      );
+    } catch (err) {
+      throw paymentError(err);
+    }
+    if (!session.url) throw new AppError(502, 'payment_service_error', 'The card-payment service did not return a payment page');
+
+    // 3. Store the session on the attempt (once: a concurrent request with the same key finds it done).
+    const outcome = await sequelize.transaction(async (transaction) => {
+      const order = (await shopRepository.lockOrder(o.id, transaction))!;
+      const row = await Payment.findByPk(attempt.id, { transaction, lock: transaction.LOCK.UPDATE });
+      const other = await shopRepository.paymentBySession(session.id, transaction);
+      if (other && other.id !== attempt.id) {
+        // The session's completion arrived first and recorded the payment itself.
+        if (row?.status === 'creating') await row.destroy({ transaction });
+        return 'recorded';
+      }
+      if (!payable(order)) {
+        if (row?.status === 'creating') await row.update({ status: 'expired', checkoutSessionId: session.id }, { transaction });
+        return 'not_payable';
+      }
+      if (row && row.status === 'creating') {
+        await row.update({ status: 'open', checkoutSessionId: session.id }, { transaction });
+        order.paymentStatus = 'processing';
+        await order.save({ transaction });
+        await audit({ actorId: user.id, action: 'payment.checkout_started', subjectType: 'order', subjectId: order.id, details: { sessionId: session.id, amountCents: order.amountCents, currency: order.currency } }, transaction);
+      }
+      return 'open';
+    });
+    if (outcome === 'not_payable') {
+      await stripe.checkout.sessions.expire(session.id).catch((err: unknown) => logger.info({ err, sessionId: session.id }, 'checkout already closed'));
+      throw notPayable((await shopRepository.order(o.id))!);
+    }
+    return { url: session.url, checkoutSessionId: session.id };
   },
 
   async mine(user: AuthUser, q: OrderListQuery): Promise<Page<OrderDto>> {
@@ -209,12 +263,12 @@ export const shopService = {
       await order.save({ transaction });
       await shopRepository.addEvent(order.id, 'cancelled', user, transaction);
       await audit({ actorId: user.id, action: 'order.cancelled', subjectType: 'order', subjectId: order.id }, transaction);
-      return (await shopRepository.payments(order.id, transaction)).filter((p) => p.status === 'open');
+      return (await shopRepository.payments(order.id, transaction)).filter((p) => p.status === 'open' && p.checkoutSessionId);
     });
     if (open.length) {
       try {
         const stripe = await stripeClient();
-        for (const p of open) await stripe.checkout.sessions.expire(p.checkoutSessionId).catch((err: unknown) => logger.info({ err, sessionId: p.checkoutSessionId }, 'checkout already closed'));
+        for (const p of open) await stripe.checkout.sessions.expire(p.checkoutSessionId!).catch((err: unknown) => logger.info({ err, sessionId: p.checkoutSessionId }, 'checkout already closed'));
       } catch (err) {
         logger.warn({ err }, 'could not expire the checkout of a cancelled order');
       }
@@ -261,6 +315,7 @@ export const shopService = {
           );
           ball.set({ surfaceGrit: toGrit, polished: toPolished, ...(order.serviceKind === 'oil-extraction' ? {} : { gamesSinceResurface: 0 }) });
           await ball.save({ transaction });
+          refitBowlerAfterCommit(order.userId, transaction);
         }
       }
       await order.save({ transaction });

@@ -1,7 +1,6 @@
 import { createHash } from 'node:crypto';
-import { LRUCache } from 'lru-cache';
 import { Op } from 'sequelize';
-import { fitCalibration, shotStats, statsBy, suggestMoves } from '../../../engine/index';
+import { CALIBRATION, fitCalibration, shotStats, statsBy, suggestMoves } from '../../../engine/index';
 import type { Calibration, CalibrationObservation, ShotRecord } from '../../../engine/shotlog/types';
 import type { BallSpec, BowlerProfile, LaneSurface, OilPattern } from '../../../engine/types';
 import { ballToSpec } from '../../../shared/balls';
@@ -11,9 +10,11 @@ import type { CalibrationQuery, StatsQuery, StatsResult } from '../../../shared/
 import type { AuthUser } from '../../middleware/auth';
 import { AppError } from '../../lib/AppError';
 import { calibrateInWorker } from '../../lib/enginePool';
-import { Ball } from '../../models/index';
+import { calibrationFitSeconds } from '../../lib/metrics';
+import { Ball, CalibrationFit } from '../../models/index';
 import { centersRepository, laneOf } from '../centers/centers.repository';
 import { readableBowlerId } from '../coaching/coaching.access';
+import { requestCalibrationFit, type FitRequest } from './calibrationJobs';
 import { patternsService } from '../patterns/patterns.service';
 import { profileService } from '../profile/profile.service';
 import { sessionsRepository, toShotRecord, type ShotRow } from '../sessions/sessions.repository';
@@ -84,41 +85,94 @@ export function observationsOf(rows: ShotRow[], balls: Map<number, Ball>): Calib
   return out.reverse();
 }
 
-/** Fits are deterministic: cached by the exact input they came from (the shots, the balls as thrown, the release, the pattern). */
-const calibrationCache = new LRUCache<string, Calibration>({ max: 200 });
-/** Fits being computed, so simultaneous requests for the same input share one. */
-const inFlight = new Map<string, Promise<Calibration>>();
+type FitInput = { bowler: BowlerProfile; pattern: OilPattern; observations: CalibrationObservation[]; lane: LaneSurface };
 
+const sha256 = (v: unknown) => createHash('sha256').update(JSON.stringify(v)).digest('hex');
+
+/** A fit computed now, in the engine worker pool (nothing to fit is instant and stays on this thread). Used by the `calibration` job. */
 export async function calibrate(input: { bowler: BowlerProfile; pattern: OilPattern; observations: CalibrationObservation[]; lane?: LaneSurface }): Promise<Calibration> {
-  const key = createHash('sha256').update(JSON.stringify(input)).digest('base64url');
-  const hit = calibrationCache.get(key);
-  if (hit) return hit;
-  const running = inFlight.get(key);
-  if (running) return running;
-  // Nothing to fit is instant; a real fit runs in the engine worker pool, off the request thread.
   if (input.observations.length === 0) return fitCalibration(input);
-  const job = calibrateInWorker(input).finally(() => inFlight.delete(key));
-  inFlight.set(key, job);
-  const result = await job;
-  calibrationCache.set(key, result);
-  return result;
+  return calibrateInWorker(input);
 }
 
-/**
- * The bowler's calibration on a pattern from every logged shot on it, on a lane surface (default synthetic, medium
- * friction): the model the fit adjusts is the one the matchup runs on those lanes.
- */
-export async function calibrationFor(
-  bowlerId: number,
-  patternId: number,
-  known: { rows?: ShotRow[]; pattern?: OilPattern; bowler?: BowlerProfile; lane?: LaneSurface } = {},
-): Promise<Calibration> {
+/** What a stored fit is about besides the bowler and the pattern id: the lane surface and the pattern's sweeps as fitted (a condition's as published). */
+function subjectOf(pattern: OilPattern, lane: LaneSurface): { laneKind: LaneSurface['kind']; laneFriction: LaneSurface['friction']; patternHash: string } {
+  return { laneKind: lane.kind, laneFriction: lane.friction, patternHash: sha256(pattern) };
+}
+
+/** The input of a bowler's fit on a pattern and lane surface: their logged shots on the pattern, the balls as thrown, the release. */
+async function fitInput(bowlerId: number, patternId: number, known: { rows?: ShotRow[]; pattern?: OilPattern; bowler?: BowlerProfile; lane?: LaneSurface } = {}): Promise<FitInput> {
   const pattern = known.pattern ?? (await patternsService.engineInput(patternId)).pattern;
   const shots = known.rows ?? (await sessionsRepository.shotsForStats(bowlerId, { patternId }));
   const ids = [...new Set(shots.map((r) => r.ball_id))];
   const balls = new Map((ids.length ? await Ball.findAll({ where: { ownerId: bowlerId, id: { [Op.in]: ids } }, paranoid: false }) : []).map((b) => [b.id, b]));
-  const lane = known.lane ?? { ...DEFAULT_LANE_SURFACE };
-  return calibrate({ bowler: known.bowler ?? (await bowlerOf(bowlerId)), pattern, observations: observationsOf(shots, balls), lane: { kind: lane.kind, friction: lane.friction } });
+  const lane = known.lane ?? DEFAULT_LANE_SURFACE;
+  return { bowler: known.bowler ?? (await bowlerOf(bowlerId)), pattern, observations: observationsOf(shots, balls), lane: { kind: lane.kind, friction: lane.friction } };
+}
+
+/** The input of the fit a request names, with the pattern id its shots are logged on; null when the pattern or condition is gone. */
+async function requestedInput(req: FitRequest): Promise<{ patternId: number; input: FitInput } | null> {
+  try {
+    const on = await engineCondition('conditionId' in req ? { conditionId: req.conditionId } : { patternId: req.patternId, lane: req.lane });
+    if (on.patternId === null) return null; // the condition's pattern was deleted: no shots to fit
+    return { patternId: on.patternId, input: await fitInput(req.bowlerId, on.patternId, { pattern: on.pattern, lane: on.lane }) };
+  } catch (err) {
+    if (err instanceof AppError && err.status === 404) return null; // the pattern or condition was deleted meanwhile
+    throw err;
+  }
+}
+
+/**
+ * The `calibration` job: fits from the current input unless the stored fit already came from it, and stores it.
+ * When the input changed while it was fitting (a shot or a ball change committed meanwhile), it asks for one more
+ * fit, so the stored fit never stays behind a change that a request was absorbed into.
+ */
+export async function runCalibrationFit(req: FitRequest): Promise<'fitted' | 'current' | 'gone'> {
+  const found = await requestedInput(req);
+  if (!found) return 'gone';
+  const { patternId, input } = found;
+  const hash = sha256(input);
+  const key = { bowlerId: req.bowlerId, patternId, ...subjectOf(input.pattern, input.lane) };
+  const stored = await CalibrationFit.findOne({ where: key, useMaster: true });
+  if (stored?.inputHash === hash) return 'current';
+  const started = Date.now();
+  const fit = await calibrate(input);
+  const fitMs = Date.now() - started;
+  await CalibrationFit.upsert({ ...key, conditionId: 'conditionId' in req ? req.conditionId : null, inputHash: hash, calibration: fit as unknown as Record<string, unknown>, shots: fit.shots, fittedAt: new Date(), fitMs });
+  calibrationFitSeconds.observe(fitMs / 1000);
+  const now = await requestedInput(req);
+  if (now && sha256(now.input) !== hash) await requestCalibrationFit(req);
+  return 'fitted';
+}
+
+/**
+ * The bowler's calibration on a pattern from every logged shot on it, on a lane surface (default synthetic, medium
+ * friction): the model the fit adjusts is the one the matchup runs on those lanes. Readers never wait on a fit:
+ * this answers the fit the worker stored. When it came from other input (new shots, a changed ball or release),
+ * it is still answered and the newer fit is queued (it replaces it within seconds); with no stored fit yet, the
+ * answer says it is being computed. `conditionId` names the published condition the pattern and lanes come from.
+ */
+export async function calibrationFor(
+  bowlerId: number,
+  patternId: number,
+  known: { rows?: ShotRow[]; pattern?: OilPattern; bowler?: BowlerProfile; lane?: LaneSurface; conditionId?: number } = {},
+): Promise<Calibration> {
+  const input = await fitInput(bowlerId, patternId, known);
+  if (input.observations.length === 0) return fitCalibration(input);
+  const stored = await CalibrationFit.findOne({ where: { bowlerId, patternId, ...subjectOf(input.pattern, input.lane) } });
+  if (stored?.inputHash !== sha256(input)) {
+    await requestCalibrationFit(known.conditionId !== undefined ? { bowlerId, conditionId: known.conditionId } : { bowlerId, patternId, lane: input.lane });
+  }
+  if (stored) return stored.calibration as unknown as Calibration;
+  return {
+    shots: input.observations.length,
+    enough: false,
+    minShots: CALIBRATION.minShots,
+    perBall: [],
+    rmsBoardsBefore: null,
+    rmsBoardsAfter: null,
+    note: `Your ${input.observations.length} logged shots on this pattern are being fitted; the calibration appears here within a few seconds.`,
+  };
 }
 
 /**
@@ -192,6 +246,6 @@ export const statsService = {
     const lane = q.laneKind || q.laneFriction ? { kind: q.laneKind ?? DEFAULT_LANE_SURFACE.kind, friction: q.laneFriction ?? DEFAULT_LANE_SURFACE.friction } : undefined;
     const on = await engineCondition({ patternId: q.patternId, conditionId: q.conditionId, lane });
     // A condition whose pattern is gone has no logged shots to fit: an empty fit, as for a pattern never bowled.
-    return calibrationFor(bowlerId, on.patternId ?? 0, { pattern: on.pattern, lane: on.lane, ...(on.patternId === null ? { rows: [] } : {}) });
+    return calibrationFor(bowlerId, on.patternId ?? 0, { pattern: on.pattern, lane: on.lane, ...(on.condition ? { conditionId: on.condition.id } : {}), ...(on.patternId === null ? { rows: [] } : {}) });
   },
 };

@@ -1,6 +1,9 @@
+import fs from 'node:fs';
+import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { ROUTES } from '../../../server/features/docs/openapi';
 import { api, app } from '../../helpers/api';
+import { root } from '../../helpers/database';
 import { buildFixture, ROLES, type Actor, type Fixture } from './fixture';
 import { MATRIX, UNDOCUMENTED, type CellRequest } from './matrix';
 import { enumerateRoutes, fromOpenApi, type RouteKey } from './routes';
@@ -41,6 +44,15 @@ describe('the route list', () => {
     const undocumented = [...served].filter((k) => !documented.has(k) && !(k in UNDOCUMENTED));
     const notServed = [...documented].filter((k) => !served.has(k));
     expect({ undocumented, notServed }).toEqual({ undocumented: [], notServed: [] });
+  });
+});
+
+describe('the notes', () => {
+  it('name test files that exist, by their path from the repository root', () => {
+    const cited = Object.entries(MATRIX).flatMap(([route, e]) => [...(e.note ?? '').matchAll(/tests\/[\w./-]+/g)].map((m) => ({ route, file: m[0].replace(/[.,;)]+$/, '') })));
+    expect(cited.length).toBeGreaterThan(3);
+    const missing = cited.filter((c) => !fs.existsSync(path.join(root, c.file)) || !c.file.endsWith('.ts'));
+    expect(missing).toEqual([]);
   });
 });
 

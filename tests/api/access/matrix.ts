@@ -46,6 +46,13 @@ const SWEEP = { direction: 'forward', fromBoard: 2, toBoard: 38, startFt: 0, end
 export const MATRIX: Record<string, MatrixEntry> = {
   // ── platform ───────────────────────────────────────────────────────────────────────────────
   'GET /api/health': { req: () => ({ url: '/api/health' }), expect: all(200) },
+  'GET /api/health/live': { req: () => ({ url: '/api/health/live' }), expect: all(200) },
+  'GET /api/health/ready': { req: () => ({ url: '/api/health/ready' }), expect: all(200) },
+  'GET /api/health/metrics': {
+    req: () => ({ url: '/api/health/metrics' }),
+    expect: all(404),
+    note: 'exists only with METRICS_TOKEN, then for that bearer token alone (tests/api/platform/metrics.test.ts); the shared test server configures none',
+  },
   'GET /api/docs': { req: () => ({ url: '/api/docs' }), expect: all(200) },
   'GET /api/docs/openapi.json': { req: () => ({ url: '/api/docs/openapi.json' }), expect: all(200) },
   'GET /api/dev/mail': {

@@ -1,8 +1,7 @@
 import fc from 'fast-check';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { kickMailSender } from '../../../server/lib/outbox';
 import supertest from 'supertest';
-import { app } from '../../helpers/api';
+import { app, outboxIdle } from '../../helpers/api';
 import { buildFixture, ROLES, TINY_PNG, type Actor, type Fixture } from '../access/fixture';
 import { fakeIdle } from '../shop/shopHelpers';
 import { MATRIX, type CellRequest } from '../access/matrix';
@@ -77,8 +76,7 @@ afterAll(() => {
 /** Lets background work caused by an accepted request finish (payment-fake webhooks, the mail sender's row updates) before a snapshot. */
 async function settle(): Promise<void> {
   await fakeIdle();
-  await kickMailSender();
-  await kickMailSender();
+  await outboxIdle();
 }
 
 /** encodeURIComponent, but a lone surrogate becomes its (invalid) UTF-8 bytes instead of throwing. */

@@ -20,7 +20,19 @@ const heavyInput = (games: number, count = 60) => ({ balls: Array.from({ length:
 /** A task whose outcome (done or refused) is only waited for. */
 const settled = (p: Promise<unknown>) => p.then(() => 'ran', (e: unknown) => (e instanceof AppError ? e.code : String(e)));
 
-beforeAll(() => warmEnginePool()); // as the server does at start
+/**
+ * Balls in a ranking that holds the one thread for a second or more on this machine (3 s by a cold estimate), far past the 300 ms
+ * deadline: sized from a timed ranking, since the motion model's speed changes with the engine and the machine.
+ */
+let blockingCount = 150;
+beforeAll(async () => {
+  warmEnginePool(); // as the server does at start
+  await rankInWorker(heavyInput(0.05, 30)); // the thread's first run compiles the engine
+  const started = Date.now();
+  await rankInWorker(heavyInput(0.06, 60));
+  const msPerBall = Math.max(0.2, (Date.now() - started) / 60);
+  blockingCount = Math.min(6000, Math.max(150, Math.ceil(3000 / msPerBall)));
+}, 60000);
 
 describe('the ranking queue is bounded', () => {
   it('with 1 thread and 1 waiting, a third task is refused at once as engine_busy (503, Retry-After)', async () => {
@@ -42,7 +54,7 @@ describe('the ranking queue is bounded', () => {
 
   it('a task that waits longer than ENGINE_QUEUE_WAIT_MS for a thread is refused (503) at the deadline, not left to hang', async () => {
     expect(engineQueueWaitMs).toBe(300);
-    const longest = heavyInput(2, 1500); // about a second of ranking on this machine: well past the 300 ms deadline
+    const longest = heavyInput(2, blockingCount); // a second or more, well past the 300 ms deadline
     const running = settled(rankInWorker(longest));
     const started = Date.now();
     const waited = await rankInWorker(heavyInput(2.5)).then(
@@ -60,7 +72,7 @@ describe('the ranking queue is bounded', () => {
     const { user, auth } = await createUser();
     await createBall(user.id);
     const pattern = await createPattern(user.id);
-    const hold = [settled(rankInWorker(heavyInput(1.1, 150))), settled(rankInWorker(heavyInput(1.2)))];
+    const hold = [settled(rankInWorker(heavyInput(1.1, blockingCount))), settled(rankInWorker(heavyInput(1.2)))];
     const res = await api.post('/api/matchups').set(auth).send({ patternId: pattern.id });
     expect(res.status).toBe(503);
     expect(errorOf(res.body).code).toBe('engine_busy');

@@ -4,7 +4,7 @@ import type { BowlerProfile, LaneSurface } from '../../../engine/types';
 import { ballToSpec } from '../../../shared/balls';
 import { DEFAULT_PROFILE } from '../../../shared/profile';
 import { LAYDOWN_OFFSET_BOARDS } from '../../../server/features/stats/stats.service';
-import { api, createUser, errorOf } from '../../helpers/api';
+import { api, calibrationsIdle, createUser, errorOf } from '../../helpers/api';
 import { createBall, createCenter, createModel, createPattern, LONG_HEAVY, PLASTIC, POLISHED_PEARL, SHORT_LIGHT, STRONG_SOLID, URETHANE } from '../../helpers/fixtures';
 import { newKey } from '../sessions/shotlog';
 
@@ -288,6 +288,8 @@ describe('POST /api/matchups: the calibration on the condition’s lanes', () =>
       expect(res.status).toBe(201);
     }
 
+    // The shots queued a fit on the condition's lanes; the job worker (in this test process) stores it.
+    await calibrationsIdle(me.user.id);
     const res = await api.post('/api/matchups').set(me.auth).send({ conditionId: c.id });
     expect(res.status).toBe(200);
     expect(res.body.calibration).toMatchObject({ applied: true, shots: 12 });
@@ -300,12 +302,15 @@ describe('POST /api/matchups: the calibration on the condition’s lanes', () =>
     expect(ranked.reasons.find((r) => r.rule === 'motion-calibration')?.text).not.toMatch(/carried to today/);
     // GET /api/calibration on the same condition answers the same fit the matchup applied.
     expect((await api.get(`/api/calibration?conditionId=${c.id}`).set(me.auth)).body.item).toEqual(res.body.calibration.fit);
-    // On the default lanes the same shots give another fit (the model it adjusts is another).
+    // On the default lanes the same shots give another fit (the model it adjusts is another): asked for, then stored.
+    await api.get(`/api/calibration?patternId=${pattern.id}`).set(me.auth);
+    await calibrationsIdle(me.user.id);
     const elsewhere = (await api.get(`/api/calibration?patternId=${pattern.id}`).set(me.auth)).body.item;
     expect(elsewhere.perBall[0].frictionScale).not.toBe(fit.frictionScale);
 
     // Resurfaced to 4000 grit since: the calibration fitted at 2000 grit is carried to today's surface, and says so.
     await api.post(`/api/arsenal/${ball.id}/surface`).set(me.auth).send({ surfaceGrit: 4000, polished: false });
+    await calibrationsIdle(me.user.id); // the resurfacing asked for refits
     const after = await api.post('/api/matchups').set(me.auth).send({ conditionId: c.id });
     const note = (after.body.rankings as Ranking[]).find((r) => r.ballId === ball.id)!.reasons.find((r) => r.rule === 'motion-calibration')?.text;
     expect(note).toMatch(/Fitted on shots thrown at 2000 grit; carried to today's 4000 grit/);

@@ -1,5 +1,9 @@
+import fs from 'node:fs';
+import path from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { CONFIG_VARIABLES } from '../../../server/config/index';
 import { api } from '../../helpers/api';
+import { root } from '../../helpers/database';
 
 describe('API documentation', () => {
   it('serves an OpenAPI 3.1 document generated from the zod schemas', async () => {
@@ -21,5 +25,16 @@ describe('API documentation', () => {
     expect(res.status).toBe(200);
     expect(res.text).toContain('<table>');
     expect(res.text).toContain('/api/centers/{id}/conditions/current.pdf');
+  });
+});
+
+describe('README, Configuration', () => {
+  it('lists every environment variable server/config reads, each in the table', () => {
+    const readme = fs.readFileSync(path.join(root, 'README.md'), 'utf8');
+    const section = readme.slice(readme.indexOf('\n## Configuration'), readme.indexOf('\n## ', readme.indexOf('\n## Configuration') + 5));
+    const rows = section.split('\n').filter((l) => l.startsWith('| `'));
+    const listed = new Set(rows.flatMap((r) => [...r.split('|')[1].matchAll(/`([A-Z][A-Z0-9_]*)`/g)].map((m) => m[1])));
+    expect(CONFIG_VARIABLES.length).toBeGreaterThan(30);
+    expect(CONFIG_VARIABLES.filter((v) => !listed.has(v))).toEqual([]);
   });
 });

@@ -1,0 +1,32 @@
+// Every migration in name order. A static list (not a file glob) so the production build bundles them; a test
+// checks that it names every file of this folder. Add a new migration file here too.
+import * as m0001 from './20261201-0001-users';
+import * as m0002 from './20261201-0002-balls-patterns';
+import * as m0003 from './20261201-0003-centers-conditions';
+import * as m0004 from './20261201-0004-uploads';
+import * as m0005 from './20261201-0005-sessions-coaching';
+import * as m0006 from './20261201-0006-shop';
+import * as m0007a from './20261215-0001-lane-surface-approval-year';
+import * as m0007 from './20261215-0007-account-security';
+import * as m0008 from './20261220-0008-production-service';
+import * as m0009 from './20261220-0009-calibration-fits-by-lane';
+import type { QueryInterface } from 'sequelize';
+
+export interface MigrationModule {
+  up: (args: { context: QueryInterface }) => Promise<void>;
+  down: (args: { context: QueryInterface }) => Promise<void>;
+}
+
+/** Names keep the `.ts` ending umzug's glob gave them, so databases migrated before stay in step. */
+export const MIGRATIONS: { name: string; module: MigrationModule }[] = [
+  { name: '20261201-0001-users.ts', module: m0001 },
+  { name: '20261201-0002-balls-patterns.ts', module: m0002 },
+  { name: '20261201-0003-centers-conditions.ts', module: m0003 },
+  { name: '20261201-0004-uploads.ts', module: m0004 },
+  { name: '20261201-0005-sessions-coaching.ts', module: m0005 },
+  { name: '20261201-0006-shop.ts', module: m0006 },
+  { name: '20261215-0001-lane-surface-approval-year.ts', module: m0007a },
+  { name: '20261215-0007-account-security.ts', module: m0007 },
+  { name: '20261220-0008-production-service.ts', module: m0008 },
+  { name: '20261220-0009-calibration-fits-by-lane.ts', module: m0009 },
+];
