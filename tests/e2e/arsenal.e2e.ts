@@ -1,8 +1,8 @@
-import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
-import { DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
+import { appUrl, DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
 
-const baseUrl = inject('baseUrl');
+const baseUrl = appUrl();
 let browser: Browser;
 let session: Session | null = null;
 

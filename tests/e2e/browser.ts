@@ -2,6 +2,16 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 
+/**
+ * The address of this test file's own server (started on its own copy of the seeded demo database by
+ * tests/helpers/e2eServer.ts before the file runs).
+ */
+export function appUrl(): string {
+  const url = process.env.LW_E2E_BASE_URL;
+  if (!url) throw new Error('no server for this browser test file: run it in the Vitest project "e2e" (tests/helpers/e2eServer.ts starts one)');
+  return url;
+}
+
 /** Debian's Chromium; the test setup installs it with apt when missing. No browser is downloaded. */
 export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
 

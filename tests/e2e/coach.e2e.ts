@@ -1,8 +1,8 @@
-import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { DEMO, DEMO_PASSWORD, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, uniqueEmail, type Session } from './browser';
+import { appUrl, DEMO, DEMO_PASSWORD, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, uniqueEmail, type Session } from './browser';
 
-const baseUrl = inject('baseUrl');
+const baseUrl = appUrl();
 let browser: Browser;
 const sessions: Session[] = [];
 

@@ -1,7 +1,7 @@
 import fs from 'node:fs';
-import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
+import { appUrl, DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
 
 /**
  * Flow 1 of PRODUCT.md in the browser: the demo proprietor builds a pattern in the editor (numbers update as
@@ -17,7 +17,7 @@ import { DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession,
  * only sweep 1's 120 µL → 8.00 : 1. Length: the largest end, 40 ft.
  */
 
-const baseUrl = inject('baseUrl');
+const baseUrl = appUrl();
 let browser: Browser;
 const sessions: Session[] = [];
 

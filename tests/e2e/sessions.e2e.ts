@@ -1,11 +1,11 @@
 import path from 'node:path';
-import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page, Route } from 'playwright-core';
 // The engine is the reference for scores (pure code, no I/O): the sheet's total must equal scoreGame of the same rolls.
 import { scoreGame } from '../../engine/index';
-import { ARTIFACTS_DIR, DEMO, DEMO_PASSWORD, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session } from './browser';
+import { appUrl, ARTIFACTS_DIR, DEMO, DEMO_PASSWORD, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session } from './browser';
 
-const baseUrl = inject('baseUrl');
+const baseUrl = appUrl();
 let browser: Browser;
 let session: Session | null = null;
 /** The session the bowler logs in the first test; the coach reads and annotates it in the second. */

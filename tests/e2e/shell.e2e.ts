@@ -1,6 +1,7 @@
-import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
 import {
+  appUrl,
   DEMO,
   DESKTOP,
   MOBILE,
@@ -14,7 +15,7 @@ import {
   type Viewport,
 } from './browser';
 
-const baseUrl = inject('baseUrl');
+const baseUrl = appUrl();
 let browser: Browser;
 let session: Session | null = null;
 

@@ -1,7 +1,7 @@
 import path from 'node:path';
-import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { ARTIFACTS_DIR, DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
+import { appUrl, ARTIFACTS_DIR, DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
 
 /**
  * Flow 6 of PRODUCT.md in the browser: the proprietor puts a 4000-grit resurface on Copperline Bowl's price list;
@@ -16,7 +16,7 @@ import { ARTIFACTS_DIR, DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowse
  * documents for its test mode, which the fake follows (CONTRACT-8).
  */
 
-const baseUrl = inject('baseUrl');
+const baseUrl = appUrl();
 let browser: Browser;
 const sessions: Session[] = [];
 

@@ -1,42 +1,31 @@
-import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import type { TestProject } from 'vitest/node';
 import { freshDatabase, root, runTsx, throwawayCluster } from './database';
+import './apiSetup'; // the ProvidedContext keys
+
+/** The template every browser test file's server gets its own copy of. */
+export const E2E_TEMPLATE = 'lw_e2e';
 
 /**
- * Global setup of the browser tests: database `lw_e2e` with the demo seed, the client built by Vite,
- * and the real server listening on a free loopback port; its URL is provided as `baseUrl`.
+ * Global setup of the browser tests: database `lw_e2e` migrated and seeded with the demo data, and the client built
+ * once by Vite. Neither is used directly: each browser test file starts the real server on its own copy of the
+ * seeded database (tests/helpers/e2eServer.ts), so what one file does to the demo accounts (a role changed, a ball
+ * resurfaced, a profile saved) is never seen by another, whatever order the files run in.
  */
-export default async function setup(project: TestProject): Promise<() => Promise<void>> {
+export default async function setup(project: TestProject): Promise<() => void> {
   const cluster = await throwawayCluster();
-  const url = await freshDatabase(cluster.adminUrl, 'lw_e2e');
+  const url = await freshDatabase(cluster.adminUrl, E2E_TEMPLATE);
   runTsx(['seeders/index.ts'], url);
   const distDir = path.join(root, 'dist', `e2e-client-${process.pid}`);
   const build = spawnSync(path.join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'error', '--outDir', distDir], { cwd: root, encoding: 'utf8' });
   if (build.status !== 0) throw new Error(`vite build failed:\n${build.stdout}\n${build.stderr}`);
+  project.provide('pgAdminUrl', cluster.adminUrl);
+  project.provide('e2eTemplate', E2E_TEMPLATE);
+  project.provide('e2eClientDist', distDir);
 
-  const server: ChildProcess = spawn(path.join(root, 'node_modules', '.bin', 'tsx'), ['server/index.ts'], {
-    cwd: root,
-    env: { ...process.env, DATABASE_URL: url, NODE_ENV: 'test', PORT: '0', CLIENT_DIST: distDir, RATE_LIMIT_AUTH: '500', LOG_LEVEL: 'warn', STRIPE_SECRET_KEY: '', STRIPE_WEBHOOK_SECRET: '', STRIPE_API_URL: '' },
-    stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
-  });
-  const port = await new Promise<number>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error('the server did not start within 60 s')), 60000);
-    server.on('message', (m: { type?: string; port?: number }) => {
-      if (m?.type === 'listening' && m.port) {
-        clearTimeout(timer);
-        resolve(m.port);
-      }
-    });
-    server.on('exit', (code) => reject(new Error(`the server exited early (code ${code})`)));
-  });
-  project.provide('baseUrl', `http://127.0.0.1:${port}`);
-  project.provide('databaseUrl', url);
-
-  return async () => {
-    server.kill('SIGTERM');
-    await new Promise((r) => server.once('exit', r));
+  return () => {
     fs.rmSync(distDir, { recursive: true, force: true });
     cluster.stop();
   };
