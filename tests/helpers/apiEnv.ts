@@ -1,13 +1,14 @@
 import os from 'node:os';
 import path from 'node:path';
 import { inject } from 'vitest';
-import { cloneDatabase } from './database';
+import { cloneDatabase, databaseUrl } from './database';
 
 // Runs in each test worker before a test file imports the server: the file gets a database of its own, copied from
 // the migrated template (a file-level copy, tens of milliseconds), so its rows and counts never meet another file's
 // whatever order the files run in (`npm test -- --shuffle`). The copies go with the throwaway cluster at the end.
-const own = await cloneDatabase(inject('pgAdminUrl'), inject('apiTemplate'));
-process.env.DATABASE_URL = own.url;
+// TEST_SHARED_DB=1 puts every file on the one database instead, as a check that each test queries only its own rows.
+process.env.DATABASE_URL =
+  process.env.TEST_SHARED_DB === '1' ? databaseUrl(inject('pgAdminUrl'), inject('apiTemplate')) : (await cloneDatabase(inject('pgAdminUrl'), inject('apiTemplate'))).url;
 process.env.NODE_ENV = 'test';
 // Card payments always go to the project's own fake in tests, whatever the shell has configured.
 process.env.STRIPE_SECRET_KEY = '';
