@@ -1,6 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { expect } from 'vitest';
 
 /**
  * The address of this test file's own server (started on its own copy of the seeded demo database by
@@ -57,10 +58,24 @@ export interface Session {
   pageErrors: string[];
 }
 
+/** How long a wait for something on the page may take at most (locators, navigation, `eventually`). */
+export const WAIT_MS = 30000;
+
+/**
+ * Reads a value until it passes the assertion that follows (`await eventually(() => rows.count()).toBe(3)`), for
+ * state the page reaches after an answer or a re-render: the same as waiting for a text, for counts and values.
+ */
+export function eventually<T>(read: () => Promise<T>, timeout = WAIT_MS) {
+  return expect.poll(read, { timeout, interval: 100 });
+}
+
 /** A fresh context (no cookies, no localStorage) and one page at the given viewport. */
 export async function openSession(browser: Browser, baseURL: string, viewport: Viewport = DESKTOP): Promise<Session> {
   const context = await browser.newContext({ baseURL, viewport, deviceScaleFactor: 1, locale: 'en-US', timezoneId: 'UTC' });
-  context.setDefaultTimeout(10000);
+  // Upper bounds for waiting on what the page shows: a healthy run sees it in milliseconds, a loaded 2-core machine
+  // (another test run, `npm start` beside it) may take many seconds. Nothing waits for a fixed time.
+  context.setDefaultTimeout(WAIT_MS);
+  context.setDefaultNavigationTimeout(2 * WAIT_MS);
   const page = await context.newPage();
   const pageErrors: string[] = [];
   page.on('pageerror', (err) => pageErrors.push(err.message));
@@ -71,9 +86,10 @@ export async function openSession(browser: Browser, baseURL: string, viewport: V
 export async function screenshot(page: Page, name: string): Promise<string> {
   fs.mkdirSync(ARTIFACTS_DIR, { recursive: true });
   const file = path.join(ARTIFACTS_DIR, `${name}.png`);
-  // Let transitions (drawer, dialog, notifications) settle before the picture.
-  await page.waitForTimeout(350);
-  await page.screenshot({ path: file, fullPage: true });
+  // Transitions (drawer, dialog, notifications) are finished for the picture rather than waited out: Playwright
+  // runs finite CSS animations and transitions to their end; the web fonts are loaded first.
+  await page.evaluate(() => document.fonts.ready.then(() => undefined));
+  await page.screenshot({ path: file, fullPage: true, animations: 'disabled' });
   return file;
 }
 
@@ -94,5 +110,5 @@ export async function hasHorizontalScroll(page: Page): Promise<boolean> {
 let counter = 0;
 export function uniqueEmail(tag: string): string {
   counter += 1;
-  return `${tag}-${Date.now()}-${counter}@example.test`;
+  return `${tag}-${process.pid}-${Date.now()}-${counter}@example.test`;
 }

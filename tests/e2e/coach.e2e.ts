@@ -1,6 +1,6 @@
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { appUrl, DEMO, DEMO_PASSWORD, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, uniqueEmail, type Session } from './browser';
+import { appUrl, DEMO, DEMO_PASSWORD, MOBILE, eventually, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, uniqueEmail, type Session } from './browser';
 
 const baseUrl = appUrl();
 let browser: Browser;
@@ -112,17 +112,17 @@ describe('coach: invitations, plans and the side-by-side what-if at 375 px', () 
     await choose(page, 'Condition to compare on', 'Long Haul 47');
     await choose(page, 'Version B grit', '4000 grit');
     const verdict = page.getByRole('status').filter({ hasText: /^B's breakpoint is \d+\.\d ft (later|earlier) than A's/ });
-    await verdict.waitFor({ timeout: 30000 });
+    await verdict.waitFor({ timeout: 60000 });
     await page.getByRole('img', { name: /^Lane view of Long Haul 47 from above/ }).waitFor();
-    expect(await page.locator('svg path[data-ball="a"]').count()).toBe(1);
-    expect(await page.locator('svg path[data-ball="b"]').count()).toBe(1);
+    await eventually(() => page.locator('svg path[data-ball="a"]').count()).toBe(1);
+    await eventually(() => page.locator('svg path[data-ball="b"]').count()).toBe(1);
     await screenshot(page, 'coach-what-if-mobile');
     expect(await hasHorizontalScroll(page)).toBe(false);
 
     // The student's stats, read by the coach.
     await page.getByRole('link', { name: "Dana Holloway's stats and calibration" }).click();
     await page.getByRole('heading', { level: 1, name: 'Stats — Dana Holloway' }).waitFor();
-    await page.getByRole('heading', { level: 2, name: /^(Overall|Calibration)$/ }).or(page.getByText('No shots logged for this choice yet.')).first().waitFor({ timeout: 60000 });
+    await page.getByRole('heading', { level: 2, name: /^(Overall|Calibration)$/ }).or(page.getByText('No shots logged for this choice yet.')).first().waitFor({ timeout: 90000 });
     expect(await page.locator('.el-alert--error').count()).toBe(0);
     expect(await hasHorizontalScroll(page)).toBe(false);
   });

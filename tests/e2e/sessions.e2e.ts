@@ -3,7 +3,7 @@ import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page, Route } from 'playwright-core';
 // The engine is the reference for scores (pure code, no I/O): the sheet's total must equal scoreGame of the same rolls.
 import { scoreGame } from '../../engine/index';
-import { appUrl, ARTIFACTS_DIR, DEMO, DEMO_PASSWORD, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session } from './browser';
+import { appUrl, ARTIFACTS_DIR, DEMO, DEMO_PASSWORD, DESKTOP, MOBILE, eventually, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session } from './browser';
 
 const baseUrl = appUrl();
 let browser: Browser;
@@ -219,7 +219,7 @@ describe('sessions: shot entry on a phone', () => {
 
     // Back online: the queue is sent in order on the 'online' event.
     await context.setOffline(false);
-    await syncStatus(page).filter({ hasText: 'All shots saved.' }).waitFor({ timeout: 15000 });
+    await syncStatus(page).filter({ hasText: 'All shots saved.' }).waitFor({ timeout: 60000 });
 
     // The server cannot be reached for shots and the page is reloaded: nothing queued is lost.
     const refuse = async (route: Route) => (route.request().method() === 'POST' ? route.abort('internetdisconnected') : route.continue());
@@ -240,7 +240,7 @@ describe('sessions: shot entry on a phone', () => {
     expect(await hasHorizontalScroll(page)).toBe(false);
     await screenshot(page, 'sessions-list-mobile');
     await page.locator(`a[href="/sessions/${sessionId}"]`).first().click();
-    await syncStatus(page).filter({ hasText: 'All shots saved.' }).waitFor({ timeout: 15000 });
+    await syncStatus(page).filter({ hasText: 'All shots saved.' }).waitFor({ timeout: 60000 });
     await entryHeading(page).filter({ hasText: /^Game 1 · frame 9, ball 1$/ }).waitFor();
 
     // The answer to one shot is lost after the server stored it: the retry with the same key stores nothing new.
@@ -256,7 +256,7 @@ describe('sessions: shot entry on a phone', () => {
     });
     await log(page, 13);
     await syncStatus(page).filter({ hasText: '1 shot waiting to sync' }).waitFor();
-    await syncStatus(page).filter({ hasText: 'All shots saved.' }).waitFor({ timeout: 15000 });
+    await syncStatus(page).filter({ hasText: 'All shots saved.' }).waitFor({ timeout: 60000 });
     expect(lost).toBe(1);
     await page.unroute('**/api/sessions/*/shots');
 
@@ -301,7 +301,7 @@ describe('sessions: shot entry on a phone', () => {
     expect(byOrder[0].feetBoard).toBe(25);
     expect(byOrder[0].breakpointBoard).toBe(8);
     expect(byOrder[0].hit).toBe('pocket');
-    expect(await page.evaluate((id) => window.localStorage.getItem(`lanewright.shotQueue.${id}`), sessionId)).toBeNull();
+    await eventually(() => page.evaluate((id) => window.localStorage.getItem(`lanewright.shotQueue.${id}`), sessionId)).toBeNull();
 
     // Game 2: a foul on the first ball scores F; undo takes the stored shot back after asking.
     await page.getByRole('button', { name: 'Foul', exact: true }).click();

@@ -5,6 +5,7 @@ import {
   DEMO,
   DESKTOP,
   MOBILE,
+  eventually,
   hasHorizontalScroll,
   launchBrowser,
   openSession,
@@ -28,17 +29,16 @@ interface MailBox {
   items: { to: string[]; subject: string; text: string }[];
 }
 
-/** The reset link mailed to `email`, read from the project's own test mailbox (`/api/dev/mail`). */
+/** The reset link in the mail to `email`, if it has arrived in the project's own test mailbox (`/api/dev/mail`). */
+async function resetLinkFor(email: string): Promise<string | undefined> {
+  const box = (await (await fetch(`${baseUrl}/api/dev/mail`)).json()) as MailBox;
+  return box.items.find((m) => m.to.includes(email))?.text.match(/https?:\/\/\S+\/reset-password\?token=\S+/)?.[0];
+}
+
+/** Waits until the outbox sender has delivered the reset mail to `email`; returns its link. */
 async function waitForResetLink(email: string): Promise<string> {
-  for (let attempt = 0; attempt < 50; attempt += 1) {
-    const res = await fetch(`${baseUrl}/api/dev/mail`);
-    const box = (await res.json()) as MailBox;
-    const mail = box.items.find((m) => m.to.includes(email));
-    const link = mail?.text.match(/https?:\/\/\S+\/reset-password\?token=\S+/)?.[0];
-    if (link) return link;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error(`no reset mail for ${email}`);
+  await eventually(() => resetLinkFor(email)).toMatch(/reset-password\?token=/);
+  return (await resetLinkFor(email))!;
 }
 
 beforeAll(async () => {
@@ -144,7 +144,8 @@ describe('client shell: profile', () => {
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Profile' }).click();
     await page.getByRole('heading', { level: 1, name: 'Profile' }).waitFor();
     const rev = page.getByLabel('Rev rate (rpm)');
-    await rev.waitFor();
+    // The form shows the typical starting values until the saved profile has arrived: read it after that.
+    await page.getByRole('status').filter({ hasText: 'Profile loaded.' }).waitFor({ state: 'attached' });
     expect(await rev.inputValue()).toBe('380');
     expect(await page.getByRole('radio', { name: 'Right' }).isChecked()).toBe(true);
 
@@ -190,7 +191,7 @@ describe('client shell: profile', () => {
     await signIn(page, DEMO.lee);
     await page.goto('/profile');
     const speed = page.getByLabel('Ball speed (km/h)');
-    await speed.waitFor();
+    await page.getByRole('status').filter({ hasText: 'Profile loaded.' }).waitFor({ state: 'attached' });
     // 18.5 mph × 1.609344 = 29.77 km/h, shown to one decimal.
     expect(await speed.inputValue()).toBe('29.8');
     // 4.75 in × 2.54 = 12.065 cm.

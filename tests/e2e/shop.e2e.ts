@@ -69,7 +69,7 @@ async function matchupRowOf(page: Page, ballId: number): Promise<MatchupRow> {
   await page.getByRole('heading', { level: 1, name: 'Matchup' }).waitFor();
   await choose(page, page, 'Condition', 'Short Sprint 34');
   await page.getByRole('button', { name: 'Rank my arsenal' }).click();
-  await page.getByRole('heading', { level: 2, name: /^Ranking for Short Sprint 34, after 0 games/ }).waitFor({ timeout: 30000 });
+  await page.getByRole('heading', { level: 2, name: /^Ranking for Short Sprint 34, after 0 games/ }).waitFor({ timeout: 60000 });
   const row = page.locator(`tr[data-ball-id="${ballId}"]`);
   await row.waitFor();
   const surface = ((await row.locator('.matchup-ranking-table__sub').textContent()) ?? '').trim();
@@ -182,7 +182,7 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
     await payWithCard(page, '4242 4242 4242 4242');
     await page.waitForURL(/\/orders\/\d+\?checkout=done/);
     expect(Number(/\/orders\/(\d+)/.exec(page.url())?.[1])).toBe(flow.orderId);
-    await page.getByRole('alert').filter({ hasText: 'Payment confirmed' }).waitFor({ timeout: 30000 });
+    await page.getByRole('alert').filter({ hasText: 'Payment confirmed' }).waitFor({ timeout: 60000 });
     expect(await page.locator('.app-page-header .order-status-tag').innerText()).toBe('Paid');
     await page.getByText('The payment did not go through').waitFor({ state: 'detached' });
     expect(await page.getByRole('list', { name: 'Order progress' }).innerText()).toContain('Paid');
@@ -232,7 +232,7 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
     const { page } = await open();
     await signIn(page, DEMO.dana);
     await page.goto(`/orders/${flow.orderId}`);
-    expect(await page.locator('.app-page-header .order-status-tag').innerText()).toBe('Ready to collect');
+    await page.locator('.app-page-header .order-status-tag').filter({ hasText: 'Ready to collect' }).waitFor();
     await page.getByText('Your ball is ready to collect at Copperline Bowl.').waitFor();
 
     await page.goto(`/arsenal/${flow.ballId}`);
@@ -263,7 +263,7 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
     await page.getByRole('heading', { level: 1, name: 'Matchup' }).waitFor();
     await choose(page, page, 'Condition', 'Long Haul 47');
     await page.getByRole('button', { name: 'Rank my arsenal' }).click();
-    await page.getByRole('heading', { level: 2, name: /^Ranking for Long Haul 47/ }).waitFor({ timeout: 30000 });
+    await page.getByRole('heading', { level: 2, name: /^Ranking for Long Haul 47/ }).waitFor({ timeout: 60000 });
     // Open the reasons ball by ball until one has a surface suggestion the shop can do.
     const whys = page.getByRole('button', { name: /^Why: / });
     const order = page.getByRole('button', { name: /^Order at the pro shop: / }).first();
@@ -283,9 +283,8 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
     // Either the price list's matching resurface is chosen, or the dialog says the list has none for that grit.
     if (await hint.count()) expect(await hint.innerText()).toContain(`${grit} grit`);
     else expect(serviceText).toContain(`${grit} grit`);
-    // The page under it is long (every reason open): a picture of the dialog alone.
-    await page.waitForTimeout(350);
-    await dialog.locator('.el-dialog').screenshot({ path: path.join(ARTIFACTS_DIR, 'shop-order-from-suggestion-desktop.png') });
+    // The page under it is long (every reason open): a picture of the dialog alone, its opening transition run to the end.
+    await dialog.locator('.el-dialog').screenshot({ path: path.join(ARTIFACTS_DIR, 'shop-order-from-suggestion-desktop.png'), animations: 'disabled' });
   });
 });
 
@@ -313,7 +312,7 @@ describe('pro shop: a card that asks for authentication, a refund, and what anot
     await bowler.page.getByRole('button', { name: 'Approve' }).click();
     await bowler.page.waitForURL(/\/orders\/\d+\?checkout=done/);
     const orderId = Number(/\/orders\/(\d+)/.exec(bowler.page.url())?.[1]);
-    await bowler.page.getByRole('alert').filter({ hasText: 'Payment confirmed' }).waitFor({ timeout: 30000 });
+    await bowler.page.getByRole('alert').filter({ hasText: 'Payment confirmed' }).waitFor({ timeout: 60000 });
 
     const owner = await open();
     await signIn(owner.page, DEMO.proprietor);
@@ -329,7 +328,7 @@ describe('pro shop: a card that asks for authentication, a refund, and what anot
     expect(await row.innerText()).toContain('Paid');
     await owner.page.getByRole('button', { name: `Refund order ${orderId}` }).click();
     await confirm.getByRole('button', { name: 'Refund', exact: true }).click();
-    await row.getByText('Refunded', { exact: true }).waitFor({ timeout: 20000 });
+    await row.getByText('Refunded', { exact: true }).waitFor();
     await screenshot(owner.page, 'shop-orders-board-refunded-desktop');
 
     await owner.page.getByRole('tab', { name: 'Takings' }).click();
