@@ -1,6 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { chromium, type Browser, type BrowserContext, type Locator, type Page } from 'playwright-core';
 import { expect } from 'vitest';
 
 /**
@@ -67,6 +67,19 @@ export const WAIT_MS = 30000;
  */
 export function eventually<T>(read: () => Promise<T>, timeout = WAIT_MS) {
   return expect.poll(read, { timeout, interval: 100 });
+}
+
+/**
+ * Picks `option` in an Element Plus select. The select keeps its combobox input visually hidden, so it is opened by
+ * keyboard — once it is enabled: a select waiting for what it depends on (the order dialog's services wait for
+ * the centers) is disabled, and Enter on it opens nothing. Options still loading appear in the open list.
+ */
+export async function chooseOption(page: Page, combobox: Locator, option: string | RegExp, opts: { exact?: boolean; first?: boolean } = {}): Promise<void> {
+  await eventually(() => combobox.getAttribute('aria-disabled')).not.toBe('true');
+  await combobox.focus();
+  await page.keyboard.press('Enter');
+  const item = page.getByRole('option', { name: option, exact: opts.exact ?? typeof option === 'string' });
+  await (opts.first ? item.first() : item).click();
 }
 
 /** A fresh context (no cookies, no localStorage) and one page at the given viewport. */

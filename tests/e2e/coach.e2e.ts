@@ -1,6 +1,6 @@
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { appUrl, DEMO, DEMO_PASSWORD, MOBILE, eventually, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, uniqueEmail, type Session } from './browser';
+import { appUrl, chooseOption, DEMO, DEMO_PASSWORD, MOBILE, eventually, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, uniqueEmail, type Session } from './browser';
 
 const baseUrl = appUrl();
 let browser: Browser;
@@ -29,11 +29,9 @@ afterAll(async () => {
   await browser?.close();
 });
 
-/** Element Plus keeps a select's combobox input visually hidden: open it by keyboard, then pick the option. */
+/** Picks an option of an Element Plus select (see chooseOption: it waits for the select to be enabled). */
 async function choose(page: Page, combobox: string, option: string | RegExp): Promise<void> {
-  await page.getByRole('combobox', { name: combobox }).focus();
-  await page.keyboard.press('Enter');
-  await page.getByRole('option', { name: option }).first().click();
+  await chooseOption(page, page.getByRole('combobox', { name: combobox }), option, { exact: false, first: true });
 }
 
 async function login(email: string): Promise<string> {

@@ -3,7 +3,7 @@ import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page, Route } from 'playwright-core';
 // The engine is the reference for scores (pure code, no I/O): the sheet's total must equal scoreGame of the same rolls.
 import { scoreGame } from '../../engine/index';
-import { appUrl, ARTIFACTS_DIR, DEMO, DEMO_PASSWORD, DESKTOP, MOBILE, eventually, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session } from './browser';
+import { appUrl, chooseOption, ARTIFACTS_DIR, DEMO, DEMO_PASSWORD, DESKTOP, MOBILE, eventually, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session } from './browser';
 
 const baseUrl = appUrl();
 let browser: Browser;
@@ -78,11 +78,9 @@ async function ensureLinked(coachToken: string): Promise<void> {
   expect(accepted.status).toBe(200);
 }
 
-/** Element Plus keeps a select's combobox input visually hidden: open it by keyboard, then pick the option. */
+/** Picks an option of an Element Plus select (see chooseOption: it waits for the select to be enabled). */
 async function choose(page: Page, combobox: string, option: string): Promise<void> {
-  await page.getByRole('combobox', { name: combobox }).focus();
-  await page.keyboard.press('Enter');
-  await page.getByRole('option', { name: option, exact: true }).click();
+  await chooseOption(page, page.getByRole('combobox', { name: combobox }), option);
 }
 
 const deck = (page: Page) => page.getByRole('group', { name: 'Pins left standing' });

@@ -1,7 +1,7 @@
 import path from 'node:path';
 import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { appUrl, ARTIFACTS_DIR, DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
+import { appUrl, chooseOption, eventually, ARTIFACTS_DIR, DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
 
 /**
  * Flow 6 of PRODUCT.md in the browser: the proprietor puts a 4000-grit resurface on Copperline Bowl's price list;
@@ -51,11 +51,9 @@ const BALL = 'Big Red';
 /** State carried from one step of the flow to the next. */
 const flow = { ballId: 0, orderId: 0, before: null as null | MatchupRow };
 
-/** Element Plus keeps a select's combobox input visually hidden: open it by keyboard, then pick the option. */
+/** Picks an option of an Element Plus select (see chooseOption: it waits for the select to be enabled). */
 async function choose(page: Page, scope: Page | ReturnType<Page['getByRole']>, combobox: string, option: string | RegExp): Promise<void> {
-  await scope.getByRole('combobox', { name: combobox }).focus();
-  await page.keyboard.press('Enter');
-  await page.getByRole('option', { name: option, exact: typeof option === 'string' }).click();
+  await chooseOption(page, scope.getByRole('combobox', { name: combobox }), option);
 }
 
 interface MatchupRow {
@@ -277,12 +275,12 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
     // The ball is fixed to the one of the suggestion.
     expect(await dialog.getByRole('combobox', { name: 'Ball' }).isDisabled()).toBe(true);
     const grit = /(\d+) grit/.exec(label)?.[1];
-    await page.waitForFunction(() => document.querySelector('.shop-order-dialog [aria-label="Service"]:not([aria-disabled="true"])') !== null || document.querySelector('.shop-order-dialog__empty') !== null);
-    const serviceText = await dialog.locator('.el-select').nth(1).innerText();
+    expect(grit).toMatch(/^\d+$/);
+    // Once the price list has arrived, either its matching resurface is chosen, or the dialog says the list has none
+    // for that grit (until then the select reads 'Choose a service' and there is no hint).
     const hint = dialog.locator('.shop-order-dialog__hint');
-    // Either the price list's matching resurface is chosen, or the dialog says the list has none for that grit.
-    if (await hint.count()) expect(await hint.innerText()).toContain(`${grit} grit`);
-    else expect(serviceText).toContain(`${grit} grit`);
+    const outcome = async () => ((await hint.count()) ? `hint: ${await hint.innerText()}` : `service: ${await dialog.locator('.el-select').nth(1).innerText()}`);
+    await eventually(outcome).toContain(`${grit} grit`);
     // The page under it is long (every reason open): a picture of the dialog alone, its opening transition run to the end.
     await dialog.locator('.el-dialog').screenshot({ path: path.join(ARTIFACTS_DIR, 'shop-order-from-suggestion-desktop.png'), animations: 'disabled' });
   });
