@@ -76,10 +76,13 @@ export default defineConfig({
           name: 'e2e',
           include: ['tests/e2e/**/*.e2e.ts'],
           environment: 'node',
+          // The seeded template database and the built client, once; then each file's own server on its own copy.
           globalSetup: ['tests/helpers/e2eSetup.ts'],
+          setupFiles: ['tests/helpers/e2eServer.ts'],
           fileParallelism: false,
-          testTimeout: 60000,
-          hookTimeout: 120000,
+          // Upper bounds for a loaded 2-core machine; the tests wait on what the page shows, never on fixed sleeps.
+          testTimeout: 180000,
+          hookTimeout: 180000,
         },
       },
     ],

@@ -8,7 +8,34 @@ import { freePort, makeTempClusterDir, startCluster, stopCluster } from './lib/p
 const log = (m) => console.log(`[test] ${m}`);
 const args = process.argv.slice(2);
 const quick = args.includes('--quick'); // skip type-check and lint
-const vitestArgs = args.filter((a) => a !== '--quick');
+
+/**
+ * `--shuffle` runs the test files in a random order (Vitest's sequence.shuffle.files) to hunt tests that depend on
+ * what another file left behind; `--seed N` (or TEST_SEED=N) replays one order, and implies --shuffle. TEST_SHUFFLE=1
+ * does the same as --shuffle. Without a seed one is drawn and printed, so a failing order can be run again.
+ */
+function shuffleArgs(list) {
+  const rest = [];
+  let shuffle = process.env.TEST_SHUFFLE === '1' || process.env.TEST_SHUFFLE === 'true';
+  let seed = process.env.TEST_SEED || null;
+  for (let i = 0; i < list.length; i++) {
+    const a = list[i];
+    if (a === '--shuffle') shuffle = true;
+    else if (a === '--seed') seed = list[++i] ?? '';
+    else if (a.startsWith('--seed=')) seed = a.slice('--seed='.length);
+    else rest.push(a);
+  }
+  if (seed !== null && !/^\d+$/.test(seed)) {
+    console.error(`[test] --seed takes a whole number (got "${seed}")`);
+    process.exit(2);
+  }
+  if (!shuffle && seed === null) return { rest, order: [] };
+  seed ??= String(Math.floor(Math.random() * 1e6));
+  log(`Test files in a random order, seed ${seed} (replay it: npm test -- --seed ${seed})`);
+  return { rest, order: ['--sequence.shuffle.files', `--sequence.seed=${seed}`] };
+}
+const { rest, order } = shuffleArgs(args.filter((a) => a !== '--quick'));
+const vitestArgs = [...order, ...rest];
 
 function ensureChromium() {
   if (fs.existsSync('/usr/bin/chromium')) return;

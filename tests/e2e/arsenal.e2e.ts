@@ -1,8 +1,8 @@
-import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
-import { DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
+import { appUrl, DEMO, DESKTOP, MOBILE, eventually, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
 
-const baseUrl = inject('baseUrl');
+const baseUrl = appUrl();
 let browser: Browser;
 let session: Session | null = null;
 
@@ -113,8 +113,9 @@ describe('arsenal screen', () => {
     await dialog.getByLabel('Nickname (optional)').fill('Big Red II');
     await dialog.getByRole('button', { name: 'Save changes' }).click();
     await dialog.getByText('was changed somewhere else').waitFor();
-    expect(await dialog.getByLabel('Games since resurface').inputValue()).toBe('31');
-    expect(await dialog.getByLabel('Nickname (optional)').inputValue()).toBe('Big Red');
+    // The dialog reloads the ball after saying so: the other save's value arrives, the unsaved nickname goes.
+    await eventually(() => dialog.getByLabel('Games since resurface').inputValue()).toBe('31');
+    await eventually(() => dialog.getByLabel('Nickname (optional)').inputValue()).toBe('Big Red');
     await screenshot(page, 'ball-stale-edit-mobile');
     await dialog.getByRole('button', { name: 'Cancel' }).click();
   });

@@ -1,6 +1,17 @@
 import fs from 'node:fs';
 import path from 'node:path';
-import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { chromium, type Browser, type BrowserContext, type Locator, type Page } from 'playwright-core';
+import { expect } from 'vitest';
+
+/**
+ * The address of this test file's own server (started on its own copy of the seeded demo database by
+ * tests/helpers/e2eServer.ts before the file runs).
+ */
+export function appUrl(): string {
+  const url = process.env.LW_E2E_BASE_URL;
+  if (!url) throw new Error('no server for this browser test file: run it in the Vitest project "e2e" (tests/helpers/e2eServer.ts starts one)');
+  return url;
+}
 
 /** Debian's Chromium; the test setup installs it with apt when missing. No browser is downloaded. */
 export const CHROMIUM_PATH = process.env.CHROMIUM_PATH ?? '/usr/bin/chromium';
@@ -47,10 +58,37 @@ export interface Session {
   pageErrors: string[];
 }
 
+/** How long a wait for something on the page may take at most (locators, navigation, `eventually`). */
+export const WAIT_MS = 30000;
+
+/**
+ * Reads a value until it passes the assertion that follows (`await eventually(() => rows.count()).toBe(3)`), for
+ * state the page reaches after an answer or a re-render: the same as waiting for a text, for counts and values.
+ */
+export function eventually<T>(read: () => Promise<T>, timeout = WAIT_MS) {
+  return expect.poll(read, { timeout, interval: 100 });
+}
+
+/**
+ * Picks `option` in an Element Plus select. The select keeps its combobox input visually hidden, so it is opened by
+ * keyboard — once it is enabled: a select waiting for what it depends on (the order dialog's services wait for
+ * the centers) is disabled, and Enter on it opens nothing. Options still loading appear in the open list.
+ */
+export async function chooseOption(page: Page, combobox: Locator, option: string | RegExp, opts: { exact?: boolean; first?: boolean } = {}): Promise<void> {
+  await eventually(() => combobox.getAttribute('aria-disabled')).not.toBe('true');
+  await combobox.focus();
+  await page.keyboard.press('Enter');
+  const item = page.getByRole('option', { name: option, exact: opts.exact ?? typeof option === 'string' });
+  await (opts.first ? item.first() : item).click();
+}
+
 /** A fresh context (no cookies, no localStorage) and one page at the given viewport. */
 export async function openSession(browser: Browser, baseURL: string, viewport: Viewport = DESKTOP): Promise<Session> {
   const context = await browser.newContext({ baseURL, viewport, deviceScaleFactor: 1, locale: 'en-US', timezoneId: 'UTC' });
-  context.setDefaultTimeout(10000);
+  // Upper bounds for waiting on what the page shows: a healthy run sees it in milliseconds, a loaded 2-core machine
+  // (another test run, `npm start` beside it) may take many seconds. Nothing waits for a fixed time.
+  context.setDefaultTimeout(WAIT_MS);
+  context.setDefaultNavigationTimeout(2 * WAIT_MS);
   const page = await context.newPage();
   const pageErrors: string[] = [];
   page.on('pageerror', (err) => pageErrors.push(err.message));
@@ -61,9 +99,10 @@ export async function openSession(browser: Browser, baseURL: string, viewport: V
 export async function screenshot(page: Page, name: string): Promise<string> {
   fs.mkdirSync(ARTIFACTS_DIR, { recursive: true });
   const file = path.join(ARTIFACTS_DIR, `${name}.png`);
-  // Let transitions (drawer, dialog, notifications) settle before the picture.
-  await page.waitForTimeout(350);
-  await page.screenshot({ path: file, fullPage: true });
+  // Transitions (drawer, dialog, notifications) are finished for the picture rather than waited out: Playwright
+  // runs finite CSS animations and transitions to their end; the web fonts are loaded first.
+  await page.evaluate(() => document.fonts.ready.then(() => undefined));
+  await page.screenshot({ path: file, fullPage: true, animations: 'disabled' });
   return file;
 }
 
@@ -84,7 +123,7 @@ export async function hasHorizontalScroll(page: Page): Promise<boolean> {
 let counter = 0;
 export function uniqueEmail(tag: string): string {
   counter += 1;
-  return `${tag}-${Date.now()}-${counter}@example.test`;
+  return `${tag}-${process.pid}-${Date.now()}-${counter}@example.test`;
 }
 
 /** Signs in through the API and returns the bearer token. */
@@ -104,12 +143,10 @@ export async function devMailbox(baseUrl: string): Promise<{ to: string[]; subje
 /** Waits for a link to `path` (e.g. '/verify-email') in a mail to `email` and returns the whole link. */
 export async function mailedLink(baseUrl: string, email: string, path: string): Promise<string> {
   const re = new RegExp(`https?://\\S+${path.replace(/[/]/g, '\\/')}\\?token=[\\w-]+`);
-  for (let attempt = 0; attempt < 50; attempt += 1) {
-    const link = (await devMailbox(baseUrl)).filter((m) => m.to.includes(email)).map((m) => re.exec(m.text)?.[0]).find(Boolean);
-    if (link) return link;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error(`no ${path} link mailed to ${email}`);
+  const find = async () => (await devMailbox(baseUrl)).filter((m) => m.to.includes(email)).map((m) => re.exec(m.text)?.[0]).find(Boolean);
+  // the outbox sends within milliseconds normally, many seconds on a loaded machine: poll, never sleep a fixed time
+  await eventually(find).toBeTruthy();
+  return (await find())!;
 }
 
 /** Confirms a newly registered address the way its owner would: the token of the mailed verification link. */

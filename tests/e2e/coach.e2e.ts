@@ -1,8 +1,8 @@
-import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { DEMO, DEMO_PASSWORD, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, uniqueEmail, verifyByMail, type Session } from './browser';
+import { appUrl, chooseOption, DEMO, DEMO_PASSWORD, MOBILE, eventually, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, uniqueEmail, verifyByMail, type Session } from './browser';
 
-const baseUrl = inject('baseUrl');
+const baseUrl = appUrl();
 let browser: Browser;
 const sessions: Session[] = [];
 
@@ -29,11 +29,9 @@ afterAll(async () => {
   await browser?.close();
 });
 
-/** Element Plus keeps a select's combobox input visually hidden: open it by keyboard, then pick the option. */
+/** Picks an option of an Element Plus select (see chooseOption: it waits for the select to be enabled). */
 async function choose(page: Page, combobox: string, option: string | RegExp): Promise<void> {
-  await page.getByRole('combobox', { name: combobox }).focus();
-  await page.keyboard.press('Enter');
-  await page.getByRole('option', { name: option }).first().click();
+  await chooseOption(page, page.getByRole('combobox', { name: combobox }), option, { exact: false, first: true });
 }
 
 async function login(email: string): Promise<string> {
@@ -113,17 +111,17 @@ describe('coach: invitations, plans and the side-by-side what-if at 375 px', () 
     await choose(page, 'Condition to compare on', 'Long Haul 47');
     await choose(page, 'Version B grit', '4000 grit');
     const verdict = page.getByRole('status').filter({ hasText: /^From A to B: Breakpoint (\d+\.\d ft (later|earlier)|at the same distance)/ });
-    await verdict.waitFor({ timeout: 30000 });
+    await verdict.waitFor({ timeout: 60000 });
     await page.getByRole('img', { name: /^Lane view of Long Haul 47 from above/ }).waitFor();
-    expect(await page.locator('svg path[data-ball="a"]').count()).toBe(1);
-    expect(await page.locator('svg path[data-ball="b"]').count()).toBe(1);
+    await eventually(() => page.locator('svg path[data-ball="a"]').count()).toBe(1);
+    await eventually(() => page.locator('svg path[data-ball="b"]').count()).toBe(1);
     await screenshot(page, 'coach-what-if-mobile');
     expect(await hasHorizontalScroll(page)).toBe(false);
 
     // The student's stats, read by the coach.
     await page.getByRole('link', { name: "Dana Holloway's stats and calibration" }).click();
     await page.getByRole('heading', { level: 1, name: 'Stats — Dana Holloway' }).waitFor();
-    await page.getByRole('heading', { level: 2, name: /^(Overall|Calibration)$/ }).or(page.getByText('No shots logged for this choice yet.')).first().waitFor({ timeout: 60000 });
+    await page.getByRole('heading', { level: 2, name: /^(Overall|Calibration)$/ }).or(page.getByText('No shots logged for this choice yet.')).first().waitFor({ timeout: 90000 });
     expect(await page.locator('.el-alert--error').count()).toBe(0);
     expect(await hasHorizontalScroll(page)).toBe(false);
   });

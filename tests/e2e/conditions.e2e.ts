@@ -1,7 +1,7 @@
 import fs from 'node:fs';
-import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
+import { appUrl, DEMO, DESKTOP, devMailbox, MOBILE, eventually, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
 
 /**
  * The condition publishing flow in the browser: the demo proprietor builds a pattern in the editor (numbers update as
@@ -17,7 +17,7 @@ import { DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession,
  * only sweep 1's 120 µL → 8.00 : 1. Length: the largest end, 40 ft.
  */
 
-const baseUrl = inject('baseUrl');
+const baseUrl = appUrl();
 let browser: Browser;
 const sessions: Session[] = [];
 
@@ -46,11 +46,18 @@ async function fillSweep(page: Page, n: number, values: Partial<Record<'from boa
   }
 }
 
+/** The id of a center of the demo seed, looked up by name through the public list, page by page. */
+async function centerNamed(name: string): Promise<number> {
+  for (let page = 1; ; page += 1) {
+    const body = (await (await fetch(`${baseUrl}/api/centers?page=${page}&pageSize=100`)).json()) as { items: { id: number; name: string }[]; total: number };
+    const hit = body.items.find((c) => c.name === name);
+    if (hit || page * 100 >= body.total) return hit?.id ?? 0;
+  }
+}
+
 beforeAll(async () => {
   browser = await launchBrowser();
-  const res = await fetch(`${baseUrl}/api/centers`);
-  const body = (await res.json()) as { items: { id: number; name: string }[] };
-  centerId = body.items.find((c) => c.name === 'Copperline Bowl')?.id ?? 0;
+  centerId = await centerNamed('Copperline Bowl');
 });
 
 afterEach(async () => {
@@ -88,7 +95,7 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
     await page.getByRole('button', { name: 'Add sweep' }).click();
     await fillSweep(page, 3, { 'to board': '41' });
     await page.getByText('Board 1 to 39').waitFor();
-    expect(await page.getByLabel('Sweep 3 to board', { exact: true }).getAttribute('aria-invalid')).toBe('true');
+    await eventually(() => page.getByLabel('Sweep 3 to board', { exact: true }).getAttribute('aria-invalid')).toBe('true');
     await page.getByText('One sweep with errors is left out of the map and the numbers.').waitFor();
     await expectNumber(page, 'volume', '10.44 mL');
     await fillSweep(page, 3, { 'from board': '13', 'to board': '27', 'end (ft)': '36', crossings: '6' });
@@ -213,13 +220,16 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
     await page.goto('/dev/mail');
     await page.getByRole('heading', { level: 1, name: 'Dev mailbox' }).waitFor();
     await page.getByLabel('Filter by recipient or subject').fill(DEMO.dana);
-    // The outbox sender delivers after the publication commits: refresh until the message is there.
-    const subject = page.getByText(`Copperline Bowl: new lane condition — ${PATTERN_NAME}`);
-    for (let attempt = 0; attempt < 30 && (await subject.count()) === 0; attempt += 1) {
-      await page.waitForTimeout(500);
-      await page.getByRole('button', { name: 'Refresh' }).click();
-    }
-    await subject.waitFor();
+    // The outbox sender delivers after the publication commits (and retries every few seconds): wait until the
+    // message is in the mailbox, then refresh the page once and find it there.
+    const subjectText = `Copperline Bowl: new lane condition — ${PATTERN_NAME}`;
+    const delivered = async () => {
+      const box = await devMailbox(baseUrl);
+      return box.some((m) => m.subject === subjectText && m.to.includes(DEMO.dana));
+    };
+    await eventually(delivered, 60000).toBe(true);
+    await page.getByRole('button', { name: 'Refresh' }).click();
+    await page.getByText(subjectText).waitFor();
     await screenshot(page, 'dev-mail-desktop');
 
     await page.setViewportSize(MOBILE);
@@ -299,8 +309,8 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
     // Reordering with the keyboard: the moved row keeps the focus; the order does not change the numbers.
     await page.getByRole('button', { name: 'Move sweep 4 up' }).focus();
     await page.keyboard.press('Enter');
-    expect(await page.getByLabel('Sweep 3 direction').inputValue()).toBe('reverse');
-    expect(await page.evaluate(() => document.activeElement?.getAttribute('aria-label'))).toBe('Move sweep 3 up');
+    await eventually(() => page.getByLabel('Sweep 3 direction').inputValue()).toBe('reverse');
+    await eventually(() => page.evaluate(() => document.activeElement?.getAttribute('aria-label'))).toBe('Move sweep 3 up');
     await expectNumber(page, 'volume', '18.00 mL');
     await page.getByText('Unsaved changes').waitFor();
   });

@@ -1,8 +1,8 @@
-import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
+import { appUrl, chooseOption, DEMO, DESKTOP, MOBILE, eventually, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
 
-const baseUrl = inject('baseUrl');
+const baseUrl = appUrl();
 let browser: Browser;
 const sessions: Session[] = [];
 
@@ -29,11 +29,9 @@ afterAll(async () => {
   await browser?.close();
 });
 
-/** Element Plus keeps a select's combobox input visually hidden: open it by keyboard, then pick the option. */
+/** Picks an option of an Element Plus select (see chooseOption: it waits for the select to be enabled); a pattern picks the first match. */
 async function choose(page: Page, combobox: string, option: string | RegExp): Promise<void> {
-  await page.getByRole('combobox', { name: combobox }).focus();
-  await page.keyboard.press('Enter');
-  await (typeof option === 'string' ? page.getByRole('option', { name: option, exact: true }) : page.getByRole('option', { name: option }).first()).click();
+  await chooseOption(page, page.getByRole('combobox', { name: combobox }), option, { first: typeof option !== 'string' });
 }
 
 async function rankOnLongHaul(page: Page): Promise<void> {
@@ -42,7 +40,7 @@ async function rankOnLongHaul(page: Page): Promise<void> {
   await page.getByText(/long, heavy/).waitFor();
   await page.getByRole('button', { name: 'Rank my arsenal' }).click();
   try {
-    await page.getByRole('heading', { level: 2, name: 'Ranking for Long Haul 47, after 0 games' }).waitFor({ timeout: 30000 });
+    await page.getByRole('heading', { level: 2, name: 'Ranking for Long Haul 47, after 0 games' }).waitFor({ timeout: 60000 });
   } catch (e) {
     await screenshot(page, 'debug-matchup');
     throw e;
@@ -102,9 +100,9 @@ describe('matchup: the demo bowler from catalogue to what-if', () => {
     // The lane view: an image with a text alternative, paths for the top balls, a table of the same numbers.
     const lane = page.getByRole('img', { name: /^Lane view of Long Haul 47 from above/ });
     await lane.waitFor();
-    expect(await page.locator('svg path[data-ball]').count()).toBe(3);
+    await eventually(() => page.locator('svg path[data-ball]').count()).toBe(3);
     await page.getByText('The lane view as a table').click();
-    expect(await page.getByRole('row').filter({ hasText: order[0] }).count()).toBeGreaterThanOrEqual(2);
+    await eventually(() => page.getByRole('row').filter({ hasText: order[0] }).count()).toBeGreaterThanOrEqual(2);
 
     // Toggle one more ball onto the lane from the table.
     await page.getByRole('checkbox', { name: `Show ${order[3]} on the lane` }).check();
@@ -140,7 +138,7 @@ describe('matchup: the demo bowler from catalogue to what-if', () => {
     // Transition: more games bowled re-runs the matchup.
     await page.getByRole('slider', { name: 'Games already bowled' }).focus();
     for (let i = 0; i < 6; i += 1) await page.keyboard.press('ArrowRight');
-    await page.getByRole('heading', { level: 2, name: 'Ranking for Long Haul 47, after 6 games' }).waitFor({ timeout: 30000 });
+    await page.getByRole('heading', { level: 2, name: 'Ranking for Long Haul 47, after 6 games' }).waitFor({ timeout: 60000 });
     await page.getByRole('status').filter({ hasText: 'Ranked 8 balls for Long Haul 47 after 6 games.' }).waitFor();
     await screenshot(page, 'matchup-transition-desktop');
   });

@@ -1,11 +1,11 @@
 import path from 'node:path';
-import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page, Route } from 'playwright-core';
 // The engine is the reference for scores (pure code, no I/O): the sheet's total must equal scoreGame of the same rolls.
 import { scoreGame } from '../../engine/index';
-import { ARTIFACTS_DIR, DEMO, DEMO_PASSWORD, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session } from './browser';
+import { appUrl, chooseOption, ARTIFACTS_DIR, DEMO, DEMO_PASSWORD, DESKTOP, MOBILE, eventually, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session } from './browser';
 
-const baseUrl = inject('baseUrl');
+const baseUrl = appUrl();
 let browser: Browser;
 let session: Session | null = null;
 /** The session the bowler logs in the first test; the coach reads and annotates it in the second. */
@@ -78,11 +78,9 @@ async function ensureLinked(coachToken: string): Promise<void> {
   expect(accepted.status).toBe(200);
 }
 
-/** Element Plus keeps a select's combobox input visually hidden: open it by keyboard, then pick the option. */
+/** Picks an option of an Element Plus select (see chooseOption: it waits for the select to be enabled). */
 async function choose(page: Page, combobox: string, option: string): Promise<void> {
-  await page.getByRole('combobox', { name: combobox }).focus();
-  await page.keyboard.press('Enter');
-  await page.getByRole('option', { name: option, exact: true }).click();
+  await chooseOption(page, page.getByRole('combobox', { name: combobox }), option);
 }
 
 const deck = (page: Page) => page.getByRole('group', { name: 'Pins left standing' });
@@ -219,7 +217,7 @@ describe('sessions: shot entry on a phone', () => {
 
     // Back online: the queue is sent in order on the 'online' event.
     await context.setOffline(false);
-    await syncStatus(page).filter({ hasText: 'All shots saved.' }).waitFor({ timeout: 15000 });
+    await syncStatus(page).filter({ hasText: 'All shots saved.' }).waitFor({ timeout: 60000 });
 
     // The server cannot be reached for shots and the page is reloaded: nothing queued is lost.
     const refuse = async (route: Route) => (route.request().method() === 'POST' ? route.abort('internetdisconnected') : route.continue());
@@ -240,7 +238,7 @@ describe('sessions: shot entry on a phone', () => {
     expect(await hasHorizontalScroll(page)).toBe(false);
     await screenshot(page, 'sessions-list-mobile');
     await page.locator(`a[href="/sessions/${sessionId}"]`).first().click();
-    await syncStatus(page).filter({ hasText: 'All shots saved.' }).waitFor({ timeout: 15000 });
+    await syncStatus(page).filter({ hasText: 'All shots saved.' }).waitFor({ timeout: 60000 });
     await entryHeading(page).filter({ hasText: /^Game 1 · frame 9, ball 1$/ }).waitFor();
 
     // The answer to one shot is lost after the server stored it: the retry with the same key stores nothing new.
@@ -256,7 +254,7 @@ describe('sessions: shot entry on a phone', () => {
     });
     await log(page, 13);
     await syncStatus(page).filter({ hasText: '1 shot waiting to sync' }).waitFor();
-    await syncStatus(page).filter({ hasText: 'All shots saved.' }).waitFor({ timeout: 15000 });
+    await syncStatus(page).filter({ hasText: 'All shots saved.' }).waitFor({ timeout: 60000 });
     expect(lost).toBe(1);
     await page.unroute('**/api/sessions/*/shots');
 
@@ -301,7 +299,7 @@ describe('sessions: shot entry on a phone', () => {
     expect(byOrder[0].feetBoard).toBe(25);
     expect(byOrder[0].breakpointBoard).toBe(8);
     expect(byOrder[0].hit).toBe('pocket');
-    expect(await page.evaluate((id) => window.localStorage.getItem(`lanewright.shotQueue.${id}`), sessionId)).toBeNull();
+    await eventually(() => page.evaluate((id) => window.localStorage.getItem(`lanewright.shotQueue.${id}`), sessionId)).toBeNull();
 
     // Game 2: a foul on the first ball scores F; undo takes the stored shot back after asking.
     await page.getByRole('button', { name: 'Foul', exact: true }).click();

@@ -1,6 +1,7 @@
-import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser } from 'playwright-core';
 import {
+  appUrl,
   DEMO,
   DESKTOP,
   MOBILE,
@@ -15,7 +16,7 @@ import {
   type Viewport,
 } from './browser';
 
-const baseUrl = inject('baseUrl');
+const baseUrl = appUrl();
 let browser: Browser;
 let session: Session | null = null;
 
@@ -139,7 +140,8 @@ describe('client shell: profile', () => {
     await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Profile' }).click();
     await page.getByRole('heading', { level: 1, name: 'Profile' }).waitFor();
     const rev = page.getByLabel('Rev rate (rpm)');
-    await rev.waitFor();
+    // The form shows the typical starting values until the saved profile has arrived: read it after that.
+    await page.getByRole('status').filter({ hasText: 'Profile loaded.' }).waitFor({ state: 'attached' });
     expect(await rev.inputValue()).toBe('380');
     expect(await page.getByRole('radio', { name: 'Right' }).isChecked()).toBe(true);
 
@@ -185,7 +187,7 @@ describe('client shell: profile', () => {
     await signIn(page, DEMO.lee);
     await page.goto('/profile');
     const speed = page.getByLabel('Ball speed (km/h)');
-    await speed.waitFor();
+    await page.getByRole('status').filter({ hasText: 'Profile loaded.' }).waitFor({ state: 'attached' });
     // 18.5 mph × 1.609344 = 29.77 km/h, shown to one decimal.
     expect(await speed.inputValue()).toBe('29.8');
     // 4.75 in × 2.54 = 12.065 cm.

@@ -1,7 +1,7 @@
 import path from 'node:path';
-import { afterAll, afterEach, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
 import type { Browser, Page } from 'playwright-core';
-import { ARTIFACTS_DIR, DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
+import { appUrl, chooseOption, eventually, ARTIFACTS_DIR, DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
 
 /**
  * The resurface order flow in the browser: the proprietor puts a 4000-grit resurface on Copperline Bowl's price list;
@@ -16,7 +16,7 @@ import { ARTIFACTS_DIR, DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowse
  * documents for its test mode, which the fake follows (CONTRACT-8).
  */
 
-const baseUrl = inject('baseUrl');
+const baseUrl = appUrl();
 let browser: Browser;
 const sessions: Session[] = [];
 
@@ -51,11 +51,9 @@ const BALL = 'Big Red';
 /** State carried from one step of the flow to the next. */
 const flow = { ballId: 0, orderId: 0, before: null as null | MatchupRow };
 
-/** Element Plus keeps a select's combobox input visually hidden: open it by keyboard, then pick the option. */
+/** Picks an option of an Element Plus select (see chooseOption: it waits for the select to be enabled). */
 async function choose(page: Page, scope: Page | ReturnType<Page['getByRole']>, combobox: string, option: string | RegExp): Promise<void> {
-  await scope.getByRole('combobox', { name: combobox }).focus();
-  await page.keyboard.press('Enter');
-  await page.getByRole('option', { name: option, exact: typeof option === 'string' }).click();
+  await chooseOption(page, scope.getByRole('combobox', { name: combobox }), option);
 }
 
 interface MatchupRow {
@@ -69,7 +67,7 @@ async function matchupRowOf(page: Page, ballId: number): Promise<MatchupRow> {
   await page.getByRole('heading', { level: 1, name: 'Matchup' }).waitFor();
   await choose(page, page, 'Condition', 'Short Sprint 34');
   await page.getByRole('button', { name: 'Rank my arsenal' }).click();
-  await page.getByRole('heading', { level: 2, name: /^Ranking for Short Sprint 34, after 0 games/ }).waitFor({ timeout: 30000 });
+  await page.getByRole('heading', { level: 2, name: /^Ranking for Short Sprint 34, after 0 games/ }).waitFor({ timeout: 60000 });
   const row = page.locator(`tr[data-ball-id="${ballId}"]`);
   await row.waitFor();
   const surface = ((await row.locator('.matchup-ranking-table__sub').textContent()) ?? '').trim();
@@ -182,7 +180,7 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
     await payWithCard(page, '4242 4242 4242 4242');
     await page.waitForURL(/\/orders\/\d+\?checkout=done/);
     expect(Number(/\/orders\/(\d+)/.exec(page.url())?.[1])).toBe(flow.orderId);
-    await page.getByRole('alert').filter({ hasText: 'Payment confirmed' }).waitFor({ timeout: 30000 });
+    await page.getByRole('alert').filter({ hasText: 'Payment confirmed' }).waitFor({ timeout: 60000 });
     expect(await page.locator('.app-page-header .order-status-tag').innerText()).toBe('Paid');
     await page.getByText('The payment did not go through').waitFor({ state: 'detached' });
     expect(await page.getByRole('list', { name: 'Order progress' }).innerText()).toContain('Paid');
@@ -232,7 +230,7 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
     const { page } = await open();
     await signIn(page, DEMO.dana);
     await page.goto(`/orders/${flow.orderId}`);
-    expect(await page.locator('.app-page-header .order-status-tag').innerText()).toBe('Ready to collect');
+    await page.locator('.app-page-header .order-status-tag').filter({ hasText: 'Ready to collect' }).waitFor();
     await page.getByText('Your ball is ready to collect at Copperline Bowl.').waitFor();
 
     await page.goto(`/arsenal/${flow.ballId}`);
@@ -263,7 +261,7 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
     await page.getByRole('heading', { level: 1, name: 'Matchup' }).waitFor();
     await choose(page, page, 'Condition', 'Long Haul 47');
     await page.getByRole('button', { name: 'Rank my arsenal' }).click();
-    await page.getByRole('heading', { level: 2, name: /^Ranking for Long Haul 47/ }).waitFor({ timeout: 30000 });
+    await page.getByRole('heading', { level: 2, name: /^Ranking for Long Haul 47/ }).waitFor({ timeout: 60000 });
     // Open the reasons ball by ball until one has a surface suggestion the shop can do.
     const whys = page.getByRole('button', { name: /^Why: / });
     const order = page.getByRole('button', { name: /^Order at the pro shop: / }).first();
@@ -277,15 +275,14 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
     // The ball is fixed to the one of the suggestion.
     expect(await dialog.getByRole('combobox', { name: 'Ball' }).isDisabled()).toBe(true);
     const grit = /(\d+) grit/.exec(label)?.[1];
-    await page.waitForFunction(() => document.querySelector('.shop-order-dialog [aria-label="Service"]:not([aria-disabled="true"])') !== null || document.querySelector('.shop-order-dialog__empty') !== null);
-    const serviceText = await dialog.locator('.el-select').nth(1).innerText();
+    expect(grit).toMatch(/^\d+$/);
+    // Once the price list has arrived, either its matching resurface is chosen, or the dialog says the list has none
+    // for that grit (until then the select reads 'Choose a service' and there is no hint).
     const hint = dialog.locator('.shop-order-dialog__hint');
-    // Either the price list's matching resurface is chosen, or the dialog says the list has none for that grit.
-    if (await hint.count()) expect(await hint.innerText()).toContain(`${grit} grit`);
-    else expect(serviceText).toContain(`${grit} grit`);
-    // The page under it is long (every reason open): a picture of the dialog alone.
-    await page.waitForTimeout(350);
-    await dialog.locator('.el-dialog').screenshot({ path: path.join(ARTIFACTS_DIR, 'shop-order-from-suggestion-desktop.png') });
+    const outcome = async () => ((await hint.count()) ? `hint: ${await hint.innerText()}` : `service: ${await dialog.locator('.el-select').nth(1).innerText()}`);
+    await eventually(outcome).toContain(`${grit} grit`);
+    // The page under it is long (every reason open): a picture of the dialog alone, its opening transition run to the end.
+    await dialog.locator('.el-dialog').screenshot({ path: path.join(ARTIFACTS_DIR, 'shop-order-from-suggestion-desktop.png'), animations: 'disabled' });
   });
 });
 
@@ -313,7 +310,7 @@ describe('pro shop: a card that asks for authentication, a refund, and what anot
     await bowler.page.getByRole('button', { name: 'Approve' }).click();
     await bowler.page.waitForURL(/\/orders\/\d+\?checkout=done/);
     const orderId = Number(/\/orders\/(\d+)/.exec(bowler.page.url())?.[1]);
-    await bowler.page.getByRole('alert').filter({ hasText: 'Payment confirmed' }).waitFor({ timeout: 30000 });
+    await bowler.page.getByRole('alert').filter({ hasText: 'Payment confirmed' }).waitFor({ timeout: 60000 });
 
     const owner = await open();
     await signIn(owner.page, DEMO.proprietor);
@@ -329,7 +326,7 @@ describe('pro shop: a card that asks for authentication, a refund, and what anot
     expect(await row.innerText()).toContain('Paid');
     await owner.page.getByRole('button', { name: `Refund order ${orderId}` }).click();
     await confirm.getByRole('button', { name: 'Refund', exact: true }).click();
-    await row.getByText('Refunded', { exact: true }).waitFor({ timeout: 20000 });
+    await row.getByText('Refunded', { exact: true }).waitFor();
     await screenshot(owner.page, 'shop-orders-board-refunded-desktop');
 
     await owner.page.getByRole('tab', { name: 'Takings' }).click();

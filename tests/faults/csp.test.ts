@@ -82,7 +82,9 @@ describe('Content-Security-Policy', () => {
       for (const p of paths) {
         await s.page.goto(p);
         await s.page.locator('h1').first().waitFor();
-        await s.page.waitForTimeout(700); // lazy chunks, fonts, charts and images of the screen load
+        // Every request of the screen (lazy chunks, fonts, API answers, images) has finished, so any resource the
+        // policy would refuse has been tried: Playwright's network-idle state (no request for 500 ms).
+        await s.page.waitForLoadState('networkidle');
         visited += 1;
       }
       expect(s.pageErrors, `${email}: page errors`).toEqual([]);

@@ -36,12 +36,28 @@ export function uniqueEmail(tag = 'user'): string {
   return `${tag}-${process.pid}-${Date.now()}-${counter}@example.test`;
 }
 
+let markers = 0;
+/**
+ * A text no other record has (`Class Filter 4711-lq3x9a-1`): put it in the names of the records a test creates and
+ * query the list by it (`q`), so the answer holds only the test's own records, never a page of someone else's.
+ */
+export function uniqueMarker(tag = 'Marker'): string {
+  markers += 1;
+  return `${tag} ${process.pid}-${Date.now().toString(36)}-${markers}`;
+}
+
 const hashCache = new Map<string, Promise<string>>();
 
 /** Inserts a user with the given role straight into the database and returns it with a valid token (address verified unless `verified: false`). */
-export async function createUser(role: Role = 'bowler', password = 'correct-horse-battery', opts: { verified?: boolean } = {}): Promise<{ user: User; token: string; password: string; auth: { Authorization: string } }> {
+export async function createUser(
+  role: Role = 'bowler',
+  password = 'correct-horse-battery',
+  opts: { verified?: boolean; displayName?: string } = {},
+): Promise<{ user: User; token: string; password: string; auth: { Authorization: string } }> {
   if (!hashCache.has(password)) hashCache.set(password, hashPassword(password));
-  const user = await User.create({ email: uniqueEmail(role), passwordHash: await hashCache.get(password)!, displayName: `Test ${role}`, role, emailVerifiedAt: opts.verified === false ? null : new Date() });
+  const user = await User.create({
+    email: uniqueEmail(role), passwordHash: await hashCache.get(password)!, displayName: opts.displayName ?? `Test ${role}`, role, emailVerifiedAt: opts.verified === false ? null : new Date(),
+  });
   const token = signToken(user);
   return { user, token, password, auth: { Authorization: `Bearer ${token}` } };
 }

@@ -24,6 +24,9 @@ export async function throwawayCluster(): Promise<{ adminUrl: string; stop: () =
   };
 }
 
+/** The URL of database `name` on the cluster of `adminUrl`. */
+export const databaseUrl = (adminUrl: string, name: string): string => adminUrl.replace(/\/[^/]+$/, `/${name}`);
+
 /** Drops and creates database `name` on the cluster, migrates it with the project's migrations, returns its URL. */
 export async function freshDatabase(adminUrl: string, name: string): Promise<string> {
   const client = new pg.Client({ connectionString: adminUrl });
@@ -34,9 +37,41 @@ export async function freshDatabase(adminUrl: string, name: string): Promise<str
   } finally {
     await client.end();
   }
-  const url = adminUrl.replace(/\/[^/]+$/, `/${name}`);
+  const url = databaseUrl(adminUrl, name);
   runTsx(['server/db/migrate.ts', 'up'], url);
   return url;
+}
+
+let clones = 0;
+
+/**
+ * A new database copied from `template` (PostgreSQL `CREATE DATABASE … TEMPLATE`, a file-level copy: tens of
+ * milliseconds, no migrations to run again), named `<template>_<pid>_<n>`; returns its name and URL. The template
+ * must have no open connection while it is copied, so nothing but this function ever connects to a template.
+ */
+export async function cloneDatabase(adminUrl: string, template: string): Promise<{ name: string; url: string }> {
+  clones += 1;
+  const name = `${template}_${process.pid}_${clones}`;
+  const client = new pg.Client({ connectionString: adminUrl });
+  await client.connect();
+  try {
+    await client.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
+    await client.query(`CREATE DATABASE ${name} TEMPLATE ${template}`);
+  } finally {
+    await client.end();
+  }
+  return { name, url: databaseUrl(adminUrl, name) };
+}
+
+/** Drops database `name` (closing any connection still open to it). */
+export async function dropDatabase(adminUrl: string, name: string): Promise<void> {
+  const client = new pg.Client({ connectionString: adminUrl });
+  await client.connect();
+  try {
+    await client.query(`DROP DATABASE IF EXISTS ${name} WITH (FORCE)`);
+  } finally {
+    await client.end();
+  }
 }
 
 /** Runs a TypeScript entry point of the project with DATABASE_URL set; throws with its output on failure. */

@@ -1,7 +1,7 @@
 import { capturedMail, type CapturedMail } from '../../server/dev/mailCapture';
 
-/** Waits (up to 5 s) for a message to `to` in the development SMTP server's mailbox. */
-export async function waitForMail(to: string, timeoutMs = 5000, subject?: RegExp): Promise<CapturedMail> {
+/** Waits for a message to `to` (and with a subject matching `subject`) in the development SMTP server's mailbox (milliseconds normally; up to 20 s on a loaded machine). */
+export async function waitForMail(to: string, timeoutMs = 20000, subject?: RegExp): Promise<CapturedMail> {
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
     const m = capturedMail().find((x) => x.to.includes(to) && (!subject || subject.test(x.subject)));

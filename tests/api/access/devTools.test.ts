@@ -1,7 +1,7 @@
 import { build } from 'esbuild';
 import jwt from 'jsonwebtoken';
 import path from 'node:path';
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { api, createUser, errorOf } from '../../helpers/api';
 import { root } from '../../helpers/database';
 import { call, startServer, type ServerProcess } from '../../faults/harness';
@@ -68,7 +68,7 @@ describe('a production server', () => {
   beforeAll(async () => {
     server = await startServer({
       NODE_ENV: 'production',
-      DATABASE_URL: inject('databaseUrl'),
+      DATABASE_URL: process.env.DATABASE_URL!,
       JWT_SECRET: 'production-test-secret-0123456789abcdef',
       PUBLIC_URL: 'https://lanes.example',
       SMTP_URL: 'smtp://127.0.0.1:9',

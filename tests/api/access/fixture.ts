@@ -2,7 +2,7 @@ import crypto from 'node:crypto';
 import { api, createUser } from '../../helpers/api';
 import { createBall, createCenter, createModel, createPattern } from '../../helpers/fixtures';
 import { Condition, EmailVerification, Follow, ShopService } from '../../../server/models/index';
-import { event, getOrder, listenForWebhooks, payByWebhook, signature, submitCard, waitFor } from '../shop/shopHelpers';
+import { event, getOrder, listenForWebhooks, signature, submitCard, waitFor } from '../shop/shopHelpers';
 import type { Ball, Center, Pattern, User } from '../../../server/models/index';
 
 /** The columns of the access matrix, in table order. */
@@ -52,8 +52,12 @@ export interface Fixture {
   /** A new coaching link of a new coach to owner: pending, or accepted by owner. */
   freshLink(accepted: boolean): Promise<number>;
   freshServiceId(): Promise<{ id: number; version: number }>;
-  /** A new order of owner at center, unpaid or paid (through a signed webhook, as the payment service would). */
-  freshOrderId(paid?: false | 'webhook' | 'card'): Promise<number>;
+  /**
+   * A new order of owner at center, unpaid or paid by card on the payment fake's page. Paid orders are always paid
+   * through the fake, never by a made-up webhook alone: the payment service must know every payment in this
+   * database, or a refund that a fuzzed id happens to reach is refused upstream (502).
+   */
+  freshOrderId(paid?: false | 'card'): Promise<number>;
   /** Stops the loopback listener the payment fake delivers webhooks to. */
   close(): Promise<void>;
   /** A ball of the given actor (for routes that need one of the caller's balls). */
@@ -143,7 +147,6 @@ export async function buildFixture(): Promise<Fixture> {
     },
     async freshOrderId(paid = false) {
       const o = await newOrder((await createBall(owner.user.id)).id);
-      if (paid === 'webhook') await payByWebhook(o);
       if (paid === 'card') {
         const co = await api.post(`/api/orders/${o.id}/checkout`).set(owner.auth);
         if (co.status !== 200) throw new Error(`fixture: checkout answered ${co.status} ${JSON.stringify(co.body)}`);

@@ -197,7 +197,7 @@ export const MATRIX: Record<string, MatrixEntry> = {
   'GET /api/orders/:id': { req: (f) => ({ url: `/api/orders/${f.orderId}` }), expect: [401, 200, 404, 404, 404, 200, 404, 404], note: 'the bowler, and the proprietor of the order’s center' },
   'POST /api/orders/:id/checkout': { req: async (f) => ({ url: `/api/orders/${await f.freshOrderId()}/checkout` }), expect: [401, 200, 404, 404, 404, 403, 404, 404], note: 'the center’s proprietor sees the order (403, nothing leaks) but only the bowler pays' },
   'POST /api/orders/:id/cancel': { req: async (f) => ({ url: `/api/orders/${await f.freshOrderId()}/cancel` }), expect: [401, 200, 404, 404, 404, 403, 404, 404] },
-  'PATCH /api/orders/:id/status': { req: async (f) => ({ url: `/api/orders/${await f.freshOrderId('webhook')}/status`, body: { status: 'in_progress' } }), expect: [401, 403, 404, 404, 404, 200, 404, 404] },
+  'PATCH /api/orders/:id/status': { req: async (f) => ({ url: `/api/orders/${await f.freshOrderId('card')}/status`, body: { status: 'in_progress' } }), expect: [401, 403, 404, 404, 404, 200, 404, 404] },
   'POST /api/orders/:id/refund': { req: async (f) => ({ url: `/api/orders/${await f.freshOrderId('card')}/refund` }), expect: [401, 403, 404, 404, 404, 200, 404, 404] },
   'POST /api/payments/webhook': {
     req: (f) => { const e = f.signedEvent(); return { url: '/api/payments/webhook', headers: { 'Content-Type': 'application/json', 'Stripe-Signature': e.header }, body: e.payload }; },

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { AuditEvent, User } from '../../../server/models/index';
-import { api, createUser, errorOf } from '../../helpers/api';
+import { api, createUser, errorOf, uniqueMarker } from '../../helpers/api';
 
 describe('PATCH /api/admin/users/:id/role', () => {
   it('lets an admin grant coach, stores it, and records an audit event', async () => {
@@ -57,15 +57,24 @@ describe('PATCH /api/admin/users/:id/role', () => {
 describe('GET /api/admin/users', () => {
   it('pages, filters by role and searches by text', async () => {
     const admin = await createUser('admin');
-    const coach = await createUser('coach');
-    const res = await api.get('/api/admin/users').query({ role: 'coach', pageSize: 2, page: 1, sort: 'createdAt', order: 'desc' }).set(admin.auth);
-    expect(res.status).toBe(200);
-    expect(res.body.items.length).toBeLessThanOrEqual(2);
-    expect(res.body.items.every((u: { role: string }) => u.role === 'coach')).toBe(true);
-    expect(res.body.total).toBe(await User.count({ where: { role: 'coach' } }));
-    expect(res.body.items[0].id).toBe(coach.user.id);
-    const search = await api.get('/api/admin/users').query({ q: coach.user.email }).set(admin.auth);
-    expect(search.body.items.map((u: { id: number }) => u.id)).toEqual([coach.user.id]);
+    // Three coaches and a bowler share a marker in their names; every query asks for it, so only they can answer.
+    const tag = uniqueMarker('Roster');
+    const coaches = [];
+    for (const n of [1, 2, 3]) coaches.push(await createUser('coach', undefined, { displayName: `${tag} Coach ${n}` }));
+    const bowler = await createUser('bowler', undefined, { displayName: `${tag} Bowler` });
+    const page = (p: number) => api.get('/api/admin/users').query({ q: tag, role: 'coach', pageSize: 2, page: p, sort: 'displayName', order: 'desc' }).set(admin.auth);
+    const first = await page(1);
+    expect(first.status).toBe(200);
+    expect(first.body).toMatchObject({ total: 3, page: 1, pageSize: 2 });
+    expect(first.body.items.map((u: { id: number; role: string }) => [u.id, u.role])).toEqual([
+      [coaches[2].user.id, 'coach'],
+      [coaches[1].user.id, 'coach'],
+    ]);
+    expect((await page(2)).body.items.map((u: { id: number }) => u.id)).toEqual([coaches[0].user.id]);
+    const anyRole = await api.get('/api/admin/users').query({ q: tag, sort: 'displayName' }).set(admin.auth);
+    expect(anyRole.body.items.map((u: { id: number }) => u.id)).toEqual([bowler.user.id, ...coaches.map((c) => c.user.id)]);
+    const search = await api.get('/api/admin/users').query({ q: coaches[0].user.email }).set(admin.auth);
+    expect(search.body.items.map((u: { id: number }) => u.id)).toEqual([coaches[0].user.id]);
   });
 
   it('refuses a page size over 100', async () => {

@@ -1,5 +1,4 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { inject } from 'vitest';
 import { config } from '../../../server/config/index';
 import { api, createUser, errorOf, uniqueEmail } from '../../helpers/api';
 import { call, startServer, type ServerProcess } from '../../faults/harness';
@@ -45,7 +44,7 @@ describe('per-account backoff after failed sign-ins', () => {
 describe('with the default TRUST_PROXY (none), X-Forwarded-For does not change the client address', () => {
   let server: ServerProcess;
   beforeAll(async () => {
-    server = await startServer({ DATABASE_URL: inject('databaseUrl'), TRUST_PROXY: '', RATE_LIMIT_AUTH: '5' });
+    server = await startServer({ DATABASE_URL: process.env.DATABASE_URL!, TRUST_PROXY: '', RATE_LIMIT_AUTH: '5' });
   }, 90000);
   afterAll(async () => server?.kill());
 

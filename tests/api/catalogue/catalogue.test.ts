@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { BallModel } from '../../../server/models/index';
-import { api, createUser, errorOf } from '../../helpers/api';
+import { api, createUser, errorOf, uniqueMarker } from '../../helpers/api';
 import { createModel, PLASTIC, POLISHED_PEARL } from '../../helpers/fixtures';
 
 const CSV_HEADER = 'maker,name,coverType,coreType,rg,differential,intermediateDifferential,factoryGrit,factoryPolished,hardnessD,releaseYear';
@@ -8,15 +8,19 @@ const CSV_HEADER = 'maker,name,coverType,coreType,rg,differential,intermediateDi
 describe('GET /api/catalogue', () => {
   it('filters by cover type, RG and differential ranges and text, paged', async () => {
     const { auth } = await createUser();
-    const pearl = await createModel(POLISHED_PEARL, `Filter Pearl ${Date.now()}`);
-    await createModel(PLASTIC);
-    const res = await api.get('/api/catalogue').query({ coverType: 'reactive-pearl', rgMin: 2.55, rgMax: 2.57, diffMin: 0.03, diffMax: 0.04, q: 'Filter Pearl' }).set(auth);
+    // Both models carry one marker and every query asks for it: the answers hold these two and nothing else.
+    const tag = uniqueMarker('Filter');
+    const pearl = await createModel(POLISHED_PEARL, `${tag} Pearl`);
+    const plastic = await createModel(PLASTIC, `${tag} Plastic`);
+    const res = await api.get('/api/catalogue').query({ coverType: 'reactive-pearl', rgMin: 2.55, rgMax: 2.57, diffMin: 0.03, diffMax: 0.04, q: tag }).set(auth);
     expect(res.status).toBe(200);
     expect(res.body.items.map((m: { id: number }) => m.id)).toEqual([pearl.id]);
     expect(res.body.total).toBe(1);
-    const page = await api.get('/api/catalogue').query({ pageSize: 1, page: 2, sort: 'rg', order: 'desc' }).set(auth);
-    expect(page.body.items).toHaveLength(1);
-    expect(page.body.total).toBe(await BallModel.count());
+    expect((await api.get('/api/catalogue').query({ q: tag, rgMin: 2.6 }).set(auth)).body.items.map((m: { id: number }) => m.id)).toEqual([plastic.id]);
+    // Paged by RG, highest first: the plastic (2.70) on page 1, the pearl (2.56) on page 2.
+    const page = await api.get('/api/catalogue').query({ q: tag, pageSize: 1, page: 2, sort: 'rg', order: 'desc' }).set(auth);
+    expect(page.body).toMatchObject({ total: 2, page: 2, pageSize: 1 });
+    expect(page.body.items.map((m: { id: number }) => m.id)).toEqual([pearl.id]);
   });
 
   it('refuses a non-numeric range and an unknown cover type by field', async () => {
@@ -43,7 +47,7 @@ describe('GET /api/catalogue', () => {
 describe('catalogue editing (admin)', () => {
   it('creates and edits a model; a stale version gets 409', async () => {
     const admin = await createUser('admin');
-    const created = await api.post('/api/catalogue').set(admin.auth).send({ maker: 'Test Foundry', name: `Edit Me ${Date.now()}`, ...POLISHED_PEARL });
+    const created = await api.post('/api/catalogue').set(admin.auth).send({ maker: 'Test Foundry', name: uniqueMarker('Edit Me'), ...POLISHED_PEARL });
     expect(created.status).toBe(201);
     const { id, version } = created.body.item;
     const edit = await api.patch(`/api/catalogue/${id}`).set(admin.auth).send({ version, differential: 0.04 });
@@ -68,7 +72,7 @@ describe('catalogue editing (admin)', () => {
 describe('POST /api/catalogue/import', () => {
   it('imports every row of a good CSV', async () => {
     const admin = await createUser('admin');
-    const t = Date.now();
+    const t = uniqueMarker('Batch');
     const csv = `${CSV_HEADER}\nTest Foundry,Import A ${t},reactive-solid,asymmetric,2.49,0.052,0.015,2000,false,76,2026\nTest Foundry,Import B ${t},plastic,symmetric,2.7,0.008,,5000,true,83,\n`;
     const res = await api.post('/api/catalogue/import').set(admin.auth).attach('file', Buffer.from(csv), { filename: 'models.csv', contentType: 'text/csv' });
     expect(res.status).toBe(201);
@@ -78,15 +82,14 @@ describe('POST /api/catalogue/import', () => {
 
   it('reports each bad row by line and imports nothing', async () => {
     const admin = await createUser('admin');
-    const before = await BallModel.count();
-    const t = Date.now();
+    const t = uniqueMarker('Batch');
     const csv = `${CSV_HEADER}\nTest Foundry,Good ${t},reactive-solid,asymmetric,2.49,0.052,0.015,2000,false,76,2026\nTest Foundry,Bad RG ${t},reactive-solid,symmetric,abc,0.05,0,2000,false,76,2026\n,No Maker ${t},glass,symmetric,2.5,0.05,0,2000,false,76,2026\n`;
     const res = await api.post('/api/catalogue/import').set(admin.auth).attach('file', Buffer.from(csv), { filename: 'models.csv', contentType: 'text/csv' });
     expect(res.status).toBe(400);
     const e = errorOf(res.body);
     expect(e.code).toBe('csv_invalid_rows');
     expect(Object.keys(e.fields ?? {}).sort()).toEqual(['rows.3.rg', 'rows.4.coverType', 'rows.4.maker']);
-    expect(await BallModel.count()).toBe(before);
+    expect(await BallModel.count({ where: { name: [`Good ${t}`, `Bad RG ${t}`, `No Maker ${t}`] } })).toBe(0);
   });
 
   it('refuses a file that is not CSV, and a missing file', async () => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { analyzePattern } from '../../../engine/index';
 import { Pattern } from '../../../server/models/index';
-import { api, createUser, errorOf } from '../../helpers/api';
+import { api, createUser, errorOf, uniqueMarker } from '../../helpers/api';
 import { createPattern, LONG_HEAVY } from '../../helpers/fixtures';
 
 const upload = (auth: { Authorization: string }, name: string, body: string, type = name.endsWith('.json') ? 'application/json' : 'text/csv') =>
@@ -25,12 +25,12 @@ describe('pattern files', () => {
 
   it('rejects a JSON file with bad sweeps, naming each line, and saves nothing', async () => {
     const coach = await createUser('coach');
-    const before = await Pattern.count();
+    const name = uniqueMarker('Broken JSON');
     const text = [
       '{',
       '  "format": "lanewright-pattern",',
       '  "version": 1,',
-      '  "name": "Broken",',
+      `  "name": ${JSON.stringify(name)},`,
       '  "sweeps": [',
       '    { "direction": "forward", "fromBoard": 2, "toBoard": 38, "startFt": 0, "endFt": 40, "crossings": 2, "microlitersPerBoard": 50 },',
       '    { "direction": "sideways", "fromBoard": 2, "toBoard": 38, "startFt": 0, "endFt": 40, "crossings": 2, "microlitersPerBoard": 50 },',
@@ -43,7 +43,7 @@ describe('pattern files', () => {
     const e = errorOf(res.body);
     expect(e.code).toBe('invalid_pattern_file');
     expect(Object.keys(e.fields ?? {}).sort()).toEqual(['lines.7.sweeps.1.direction', 'lines.8.sweeps.2.fromBoard']);
-    expect(await Pattern.count()).toBe(before);
+    expect(await Pattern.count({ where: { name } })).toBe(0);
   });
 
   it('rejects malformed JSON with the line of the fault', async () => {
@@ -55,12 +55,12 @@ describe('pattern files', () => {
 
   it('rejects a CSV with bad lines, naming each line, and saves nothing', async () => {
     const coach = await createUser('coach');
-    const before = await Pattern.count();
-    const csv = '# lanewright-pattern v1\n# name: Bad CSV\ndirection,fromBoard,toBoard,startFt,endFt,crossings,microlitersPerBoard\nforward,2,38,0,40,2,50\nforward,2,38,30,12,2,50\nreverse,2,38,0,40,0,50\n';
+    const name = uniqueMarker('Bad CSV');
+    const csv = `# lanewright-pattern v1\n# name: ${name}\n` + 'direction,fromBoard,toBoard,startFt,endFt,crossings,microlitersPerBoard\nforward,2,38,0,40,2,50\nforward,2,38,30,12,2,50\nreverse,2,38,0,40,0,50\n';
     const res = await upload(coach.auth, 'bad.csv', csv);
     expect(res.status).toBe(400);
     expect(Object.keys(errorOf(res.body).fields ?? {}).sort()).toEqual(['lines.5.endFt', 'lines.6.crossings']);
-    expect(await Pattern.count()).toBe(before);
+    expect(await Pattern.count({ where: { name } })).toBe(0);
   });
 
   it('refuses another file type and a bowler', async () => {

@@ -1,22 +1,27 @@
 import { describe, expect, it } from 'vitest';
 import { analyzePattern, oilAt } from '../../../engine/index';
 import { Pattern } from '../../../server/models/index';
-import { api, createUser, errorOf } from '../../helpers/api';
+import { api, createUser, errorOf, uniqueMarker } from '../../helpers/api';
 import { createPattern, LONG_HEAVY, SHORT_LIGHT } from '../../helpers/fixtures';
 
 describe('GET /api/patterns', () => {
   it('lists patterns with their summary, filterable by class', async () => {
     const me = await createUser();
-    // Its own patterns, found by their name: the shared list holds every other test's patterns too.
-    const stem = `Class Filter ${process.pid}-${Date.now()}`;
-    const long = await createPattern(null, LONG_HEAVY, `${stem} long`);
-    const short = await createPattern(null, SHORT_LIGHT, `${stem} short`);
-    const res = await api.get('/api/patterns').query({ q: stem, lengthClass: 'long', pageSize: 100 }).set(me.auth);
+    // Both patterns carry one marker and the list is asked for it: the answer holds these two and nothing else.
+    const tag = uniqueMarker('Class Filter');
+    const long = await createPattern(null, LONG_HEAVY, `${tag} long`);
+    const short = await createPattern(null, SHORT_LIGHT, `${tag} short`);
+    const both = await api.get('/api/patterns').query({ q: tag }).set(me.auth);
+    expect(both.status).toBe(200);
+    expect(both.body).toMatchObject({ total: 2, page: 1 });
+    expect(both.body.items.map((p: { id: number }) => p.id)).toEqual([long.id, short.id]);
+    expect(both.body.items[0].summary).toEqual(long.summary);
+    const res = await api.get('/api/patterns').query({ q: tag, lengthClass: 'long' }).set(me.auth);
     expect(res.status).toBe(200);
-    const ids = res.body.items.map((p: { id: number }) => p.id);
-    expect(ids).toContain(long.id);
-    expect(ids).not.toContain(short.id);
-    expect(res.body.items.every((p: { summary: { lengthClass: string } }) => p.summary.lengthClass === 'long')).toBe(true);
+    expect(res.body.total).toBe(1);
+    expect(res.body.items.map((p: { id: number; summary: { lengthClass: string } }) => [p.id, p.summary.lengthClass])).toEqual([[long.id, 'long']]);
+    const shortOnes = await api.get('/api/patterns').query({ q: tag, lengthClass: 'short' }).set(me.auth);
+    expect(shortOnes.body.items.map((p: { id: number }) => p.id)).toEqual([short.id]);
   });
 
   it('gives one pattern with its sweeps, the engine summary and an oil grid', async () => {

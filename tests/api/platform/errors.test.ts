@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { User } from '../../../server/models/index';
-import { api, errorOf } from '../../helpers/api';
+import { api, errorOf, uniqueEmail } from '../../helpers/api';
 
 describe('errors everywhere share one shape', () => {
   it('answers an unknown API route with 404 in the error shape', async () => {
@@ -12,14 +12,14 @@ describe('errors everywhere share one shape', () => {
   });
 
   it('answers an oversized JSON body with 413 and stores nothing', async () => {
-    const before = await User.count();
+    const email = uniqueEmail('big');
     const res = await api
       .post('/api/auth/register')
       .set('Content-Type', 'application/json')
-      .send(JSON.stringify({ email: 'big@example.test', password: 'long-enough-pass', displayName: 'x'.repeat(200 * 1024) }));
+      .send(JSON.stringify({ email, password: 'long-enough-pass', displayName: 'x'.repeat(200 * 1024) }));
     expect(res.status).toBe(413);
     expect(errorOf(res.body).code).toBe('payload_too_large');
-    expect(await User.count()).toBe(before);
+    expect(await User.count({ where: { email } })).toBe(0);
   });
 
   it('answers malformed JSON with 400, not a stack trace', async () => {

@@ -1,7 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import pg from 'pg';
-import { describe, expect, inject, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { MIGRATIONS } from '../../../server/db/migrations/index';
 import { root } from '../../helpers/database';
 
@@ -32,7 +32,7 @@ describe('the migration list (server/db/migrations/index.ts)', () => {
   });
 
   it('is what `db:migrate` applied to the test database, in order', async () => {
-    const c = new pg.Client({ connectionString: inject('databaseUrl') });
+    const c = new pg.Client({ connectionString: process.env.DATABASE_URL! });
     await c.connect();
     try {
       const applied = (await c.query<{ name: string }>('SELECT name FROM migrations ORDER BY name')).rows.map((r) => r.name);

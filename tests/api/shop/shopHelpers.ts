@@ -7,6 +7,7 @@ import { Order, Payment, ShopService } from '../../../server/models/index';
 import type { Order as OrderDto } from '../../../shared/shop';
 import { api, app, createUser } from '../../helpers/api';
 import { createBall, createCenter, URETHANE } from '../../helpers/fixtures';
+export { waitFor } from '../../helpers/wait';
 
 export type TestUser = Awaited<ReturnType<typeof createUser>>;
 
@@ -117,17 +118,6 @@ export async function submitCard(url: string, card: string, extra: Record<string
     redirect: 'manual',
   });
   return { status: res.status, location: res.headers.get('location'), html: await res.text() };
-}
-
-export async function waitFor<T>(fn: () => Promise<T>, ok: (v: T) => boolean, timeoutMs = 8000): Promise<T> {
-  const deadline = Date.now() + timeoutMs;
-  let last = await fn();
-  while (!ok(last)) {
-    if (Date.now() > deadline) throw new Error(`condition not met within ${timeoutMs} ms: ${JSON.stringify(last)}`);
-    await new Promise((r) => setTimeout(r, 50));
-    last = await fn();
-  }
-  return last;
 }
 
 export const orderRow = (id: number) => Order.findByPk(id);
