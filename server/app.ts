@@ -8,6 +8,7 @@ import { arsenalRouter } from './features/arsenal/arsenal.router';
 import { authRouter } from './features/auth/auth.router';
 import { catalogueRouter } from './features/catalogue/catalogue.router';
 import { centersRouter, followsRouter, unsubscribeRouter } from './features/centers/centers.router';
+import { coverageRouter, layoutLabRouter, trialsRouter } from './features/decisions/decisions.router';
 import { docsRouter } from './features/docs/docs.router';
 import { matchupsRouter } from './features/matchups/matchups.router';
 import { patternsRouter } from './features/patterns/patterns.router';
@@ -86,6 +87,9 @@ export function createApp(): Express {
   api.use('/calibration', calibrationRouter);
   api.use('/coach', coachRouter);
   api.use('/plans', plansRouter);
+  api.use('/trials', trialsRouter);
+  api.use('/coverage', coverageRouter);
+  api.use('/layout-lab', layoutLabRouter);
   api.use('/unsubscribe', unsubscribeRouter);
   api.use('/docs', docsRouter);
   if (devTools) api.use('/dev', devTools.devRouter);

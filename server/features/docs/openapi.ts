@@ -7,6 +7,7 @@ import { MatchupRequestSchema } from '../../../shared/matchups';
 import { CenterInputSchema, CenterPatchSchema, PublishConditionSchema } from '../../../shared/centers';
 import { CalibrationQuerySchema, SessionCreateSchema, SessionListQuerySchema, SessionPatchSchema, ShotCreateSchema, ShotParamsSchema, StatsQuerySchema } from '../../../shared/sessions';
 import { AnnotationCreateSchema, CoachListQuerySchema, InvitationCreateSchema, PlanCreateSchema, StudentParamSchema } from '../../../shared/coaching';
+import { LayoutLabSchema, TrialCreateSchema, TrialListQuerySchema } from '../../../shared/decisions';
 import { CenterOrderQuerySchema, OrderCreateSchema, OrderListQuerySchema, OrderStatusChangeSchema, ServiceInputSchema, ServiceListQuerySchema, ServiceParamsSchema, ServicePatchSchema, TakingsQuerySchema } from '../../../shared/shop';
 
 type Who = 'public' | 'metrics token' | 'signed-in' | 'coach, proprietor, admin' | 'admin' | 'coach' | 'owner or linked coach';
@@ -99,6 +100,12 @@ export const ROUTES: RouteDoc[] = [
   { method: 'get', path: '/api/coach/students/{studentId}/plans', summary: 'The plans I sent a student', who: 'coach', params: StudentParamSchema, query: CoachListQuerySchema },
   { method: 'post', path: '/api/coach/students/{studentId}/plans', summary: 'Send a student a surface, layout or line plan (mailed; audited)', who: 'coach', params: StudentParamSchema, body: PlanCreateSchema },
   { method: 'get', path: '/api/plans', summary: 'My coaches’ plans for me, newest first', who: 'signed-in', query: CoachListQuerySchema },
+  { method: 'get', path: '/api/trials', summary: 'My equipment trials (or a linked coach’s student’s with studentId), newest first', who: 'signed-in', query: TrialListQuerySchema },
+  { method: 'post', path: '/api/trials', summary: 'Open an equipment trial of two to four balls or surfaces (a linked coach for a student with studentId)', who: 'signed-in', body: TrialCreateSchema },
+  { method: 'get', path: '/api/trials/{id}', summary: 'A trial with each arm’s figures and the verdict', who: 'owner or linked coach', params: IdParamSchema },
+  { method: 'delete', path: '/api/trials/{id}', summary: 'Delete a trial (the shots stay in their sessions)', who: 'owner or linked coach', params: IdParamSchema },
+  { method: 'get', path: '/api/coverage', summary: 'Arsenal coverage across the followed centers’ lane groups: gaps, twins and catalogue suggestions', who: 'signed-in', query: TrialListQuerySchema },
+  { method: 'post', path: '/api/layout-lab', summary: 'Candidate layouts of one of my balls, drawn with their flare rings and simulated on a condition', who: 'signed-in', body: LayoutLabSchema },
   { method: 'get', path: '/api/centers/{id}/services', summary: 'A center’s pro-shop price list (active entries; its proprietor sees inactive ones too with ?all=1)', who: 'signed-in', params: IdParamSchema, query: ServiceListQuerySchema },
   { method: 'post', path: '/api/centers/{id}/services', summary: 'Add a price-list entry (the center’s proprietor; integer cents)', who: 'signed-in', params: IdParamSchema, body: ServiceInputSchema },
   { method: 'patch', path: '/api/centers/{id}/services/{serviceId}', summary: 'Edit or retire a price-list entry (the center’s proprietor; stale version → 409)', who: 'signed-in', params: ServiceParamsSchema, body: ServicePatchSchema },
