@@ -83,9 +83,13 @@ export const LayoutLabSchema = z
   .strict()
   .refine((v) => (v.patternId === undefined) !== (v.conditionId === undefined), { message: 'Choose a pattern or a published condition', path: ['patternId'] });
 export type LayoutLabRequest = z.infer<typeof LayoutLabSchema>;
+/** What a client sends (pin-to-PAP may be text as the pro shop writes it). */
+export type LayoutLabInput = z.input<typeof LayoutLabSchema>;
 
 export interface LayoutLabResult {
   ball: { id: number; label: string };
+  /** The bowler's hand (the paths' boards count from that side's gutter). */
+  hand: 'right' | 'left';
   condition: { name: string };
   items: LayoutLabEntry[];
 }

@@ -149,7 +149,7 @@ function verdict(arms: TrialArmResult[]): TrialVerdict {
   const p1 = lead.n > 0 ? lead.hits / lead.n : 0, p2 = next.n > 0 ? next.hits / next.n : 0;
   const needed = p1 !== p2 ? shotsPerArm(p1, p2, R.alpha, R.power) : shotsPerArm(Math.min(0.95, p2 + R.smallestDifference), p2, R.alpha, R.power);
   const more = Math.max(0, needed - fewest.n);
-  const pctP = `${Math.round(probability * 100)} %`;
+  const pctP = probability >= 0.995 ? 'over 99 %' : probability <= 0.005 ? 'under 1 %' : `${Math.round(probability * 100)} %`;
   if (fewest.n < R.minFirstBalls) {
     return {
       kind: 'not-enough', leaderId: lead.n > 0 && lead.post !== next.post ? lead.id : null, runnerUpId: next.id, probability, test,
@@ -160,7 +160,7 @@ function verdict(arms: TrialArmResult[]): TrialVerdict {
   if (probability >= R.clearProbability) {
     return {
       kind: 'clear', leaderId: lead.id, runnerUpId: next.id, probability, test, moreShotsPerArm: null,
-      text: `${lead.label} strikes more often than ${next.label}: ${lead.hits} of ${lead.n} against ${next.hits} of ${next.n}, a ${pctP} probability that it is truly better.`,
+      text: `${lead.label} strikes more often than ${next.label}: ${lead.hits} of ${lead.n} against ${next.hits} of ${next.n}, a probability of ${pctP} that it is truly better.`,
     };
   }
   const tied = lead.post === next.post;
@@ -168,6 +168,6 @@ function verdict(arms: TrialArmResult[]): TrialVerdict {
     kind: 'not-enough', leaderId: tied ? null : lead.id, runnerUpId: next.id, probability, test, moreShotsPerArm: more,
     text: tied
       ? `Not enough shots yet: no difference so far; telling a ${Math.round(R.smallestDifference * 100)}-point difference apart needs about ${needed} first balls in each arm.`
-      : `Not enough shots yet: ${lead.label} leads (${pctP} probability that it is better); at these rates about ${needed} first balls in each arm would settle it, ${more} more.`,
+      : `Not enough shots yet: ${lead.label} leads (a probability of ${pctP} that it is better); at these rates about ${needed} first balls in each arm would settle it, ${more} more.`,
   };
 }

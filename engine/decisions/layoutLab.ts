@@ -28,11 +28,11 @@ export interface LayoutLabEntry {
   axes: MapPoint[];
   /** The track rings from release to the pins: each a closed polyline on the map (points past the map edge dropped). */
   rings: MapPoint[][];
-  prediction: Pick<ShotPrediction, 'path' | 'breakpoint' | 'entryBoard' | 'entryAngleDeg' | 'skidFt' | 'laydownBoard' | 'targetBoard'>;
+  prediction: ShotPrediction;
 }
 
-/** The drawing's extent: distances from the PAP up to this many inches are drawn (the map distorts beyond). */
-export const LAYOUT_MAP_RADIUS_IN = 9;
+/** The drawing's extent: the whole ball, up to the point opposite the PAP (half the circumference of a full-size 8.595 in ball). */
+export const LAYOUT_MAP_RADIUS_IN = 13.5;
 
 const norm = (v: Vec): Vec => { const n = Math.hypot(v[0], v[1], v[2]); return [v[0] / n, v[1] / n, v[2] / n]; };
 const cross = (a: Vec, b: Vec): Vec => [a[1] * b[2] - a[2] * b[1], a[2] * b[0] - a[0] * b[2], a[0] * b[1] - a[1] * b[0]];
@@ -148,7 +148,7 @@ export function layoutLab(input: {
       pap: map(g.pap), pin: map(g.pin),
       massBias: ball.intermediateDifferential > 0 || layout.valAngleDeg !== undefined ? map(g.psa) : null,
       ...flareRings(g, p.flareIn, input.bowler.axisTiltDeg, radius, hand, count),
-      prediction: { path: p.path, breakpoint: p.breakpoint, entryBoard: p.entryBoard, entryAngleDeg: p.entryAngleDeg, skidFt: p.skidFt, laydownBoard: p.laydownBoard, targetBoard: p.targetBoard },
+      prediction: p,
     };
   });
 }

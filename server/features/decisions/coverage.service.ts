@@ -70,6 +70,6 @@ export const decisionsService = {
         layout: { pinToPapIn: l.pinToPapIn, ...(l.drillingAngleDeg != null ? { drillingAngleDeg: l.drillingAngleDeg } : {}), ...(l.valAngleDeg != null ? { valAngleDeg: l.valAngleDeg } : {}) },
       })),
     });
-    return { ball: { id: ball.id, label: ballLabel(ball) }, condition: { name: on.name }, items };
+    return { ball: { id: ball.id, label: ballLabel(ball) }, hand: bowler.hand, condition: { name: on.name }, items };
   },
 };
