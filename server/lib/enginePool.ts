@@ -12,6 +12,7 @@ import { config } from '../config/index';
 import { AppError } from './AppError';
 import { logger } from './logger';
 import { rankingSeconds } from './metrics';
+import type { RankTask } from './engineWorker';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 
@@ -127,14 +128,27 @@ export function warmEnginePool(): void {
   getPool();
 }
 
-/** rankArsenal in a worker thread; an aborted signal (the client went away) drops the task while it waits. */
+/**
+ * rankArsenal in a worker thread. An aborted signal (the client went away) drops the task while it waits, and once it
+ * runs raises a flag the thread reads between balls: the ranking stops there and the thread takes the next task
+ * (a thread is never terminated, so no ranking waits for a new one to start).
+ */
 export function rankInWorker(input: RankArsenalInput, signal?: AbortSignal): Promise<RankedBall[]> {
-  return runTask<RankedBall[]>('rank', input, signal);
+  const abort = new Int32Array(new SharedArrayBuffer(4));
+  const raise = () => Atomics.store(abort, 0, 1);
+  signal?.addEventListener('abort', raise, { once: true });
+  const task: RankTask = { input, abort };
+  return runTask<RankedBall[]>('rank', task, signal).finally(() => signal?.removeEventListener('abort', raise));
 }
 
 /** fitCalibration in a worker thread (about 25 ms of model deliveries per logged shot: too slow for the request thread). */
 export function calibrateInWorker(input: Parameters<typeof fitCalibration>[0], signal?: AbortSignal): Promise<Calibration> {
   return runTask<Calibration>('calibrate', input, signal);
+}
+
+/** The ids of the pool's threads (tests: a thread is never replaced after an aborted ranking). */
+export function engineThreadIds(): number[] {
+  return (pool?.threads ?? []).map((t) => t.threadId);
 }
 
 /** Tasks waiting for a thread and threads in use (health and tests). */
