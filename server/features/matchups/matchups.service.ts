@@ -4,7 +4,9 @@ import { laneSurfaceText } from '../../../shared/centers';
 import type { MatchupCalibration, MatchupRanking, MatchupRequest, MatchupResult } from '../../../shared/matchups';
 import { createHash } from 'node:crypto';
 import { LRUCache } from 'lru-cache';
+import simplify from 'simplify-js';
 import type { Calibration } from '../../../engine/shotlog/types';
+import type { ShotPrediction } from '../../../engine/index';
 import { AppError } from '../../lib/AppError';
 import { rankInWorker } from '../../lib/enginePool';
 import { logger } from '../../lib/logger';
@@ -29,6 +31,30 @@ async function rankCached(input: RankArsenalInput, signal?: AbortSignal): Promis
   const ranked = await rankInWorker(input, signal);
   rankingCache.set(key, ranked);
   return ranked;
+}
+
+/**
+ * A predicted path at the resolution the lane view draws: the lane view (client MatchupLaneView, 300 × 660 px) gives
+ * a board about 6 px and a foot about 10 px, so points a straight line through their neighbours passes within
+ * PATH_TOLERANCE_BOARDS of are dropped (Ramer–Douglas–Peucker, simplify-js) and the rest rounded to a hundredth of
+ * a board and a tenth of a foot and of a mph. The first and last points always stay. Every other figure of the
+ * prediction (entry, breakpoint, roll) is the engine's, unrounded.
+ */
+export const PATH_TOLERANCE_BOARDS = 0.05;
+
+export function pathForLaneView(path: ShotPrediction['path']): ShotPrediction['path'] {
+  if (path.length <= 2) return path;
+  const byPoint = new Map<{ x: number; y: number }, ShotPrediction['path'][number]>();
+  const pts = path.map((p) => {
+    const q = { x: p.board, y: p.ft };
+    byPoint.set(q, p);
+    return q;
+  });
+  const r = (x: number, k: number) => Math.round(x * k) / k;
+  return simplify(pts, PATH_TOLERANCE_BOARDS, true).map((q) => {
+    const p = byPoint.get(q)!;
+    return { ft: r(p.ft, 10), board: r(p.board, 100), speedMph: r(p.speedMph, 10) };
+  });
 }
 
 /** A 'ball' suggestion names the engine's string id of another ball: the client gets that ball's numeric id. */
@@ -91,8 +117,10 @@ export const matchupsService = {
       calibration,
       rankings: ranked.map((r): MatchupRanking => {
         const b = byId.get(r.id)!;
+        const prediction = (r as RankedBall & { prediction?: ShotPrediction }).prediction;
         return {
           ...r,
+          ...(prediction ? { prediction: { ...prediction, path: pathForLaneView(prediction.path) } } : {}),
           suggestions: withNumericBallIds(r.suggestions, numericIds),
           ballId: b.id,
           ball: {
