@@ -21,7 +21,7 @@ import { logger } from './logger';
 const CHANNEL = 'lanewright_changes';
 const RECONNECT_MS = 1000;
 
-type Kind = 'user' | 'balls';
+type Kind = 'user' | 'balls' | 'shots';
 
 const caches = new Map<Kind, ScopedCache<unknown>[]>();
 let client: pg.Client | null = null;
@@ -92,6 +92,8 @@ async function connect(): Promise<void> {
   c.on('notification', onNotification);
   try {
     await c.connect();
+    // The feed never keeps a process alive on its own (a script that imports the server exits when its work is done).
+    (c as unknown as { connection?: { stream?: { unref?: () => void } } }).connection?.stream?.unref?.();
     await c.query(`LISTEN ${CHANNEL}`);
     if (client !== c) return;
     // Anything cached before this point may have missed a notification.
@@ -102,7 +104,7 @@ async function connect(): Promise<void> {
   }
 }
 
-/** Starts listening (the first cache does this itself); caches answer once the connection is up. */
+/** Starts listening (the first read of a cache does this itself); caches answer once the connection is up. */
 export function startChangeFeed(): void {
   stopped = false;
   void connect();
@@ -120,6 +122,15 @@ export async function stopChangeFeed(): Promise<void> {
   await c?.end().catch(() => undefined);
 }
 
+/**
+ * Drops this process's cached entries of `kind:id` when the transaction commits (at once without one): the writer's
+ * own process sees its change on the next request; the others hear the notification the triggers send.
+ */
+export function changedAfterCommit(kind: Kind, id: number | string, transaction?: { afterCommit: (fn: () => void) => void } | null): void {
+  bump(kind, String(id));
+  transaction?.afterCommit(() => bump(kind, String(id)));
+}
+
 /** A read's ticket: store its answer only if its id did not change while it ran. */
 export interface CacheTicket {
   id: string;
@@ -130,17 +141,19 @@ export interface CacheTicket {
 export class ScopedCache<V> {
   private readonly entries: LRUCache<string, Map<string, V>>;
 
-  constructor(
-    private readonly kind: Kind,
-    opts: { ttlMs: number; maxIds: number; maxPerId?: number },
-  ) {
+  private readonly kinds: Kind[];
+
+  /** `kind`: what a change of drops an id's entries (several kinds: a change of any; the first is the one `invalidate` bumps). */
+  constructor(kind: Kind | Kind[], opts: { ttlMs: number; maxIds: number; maxPerId?: number }) {
+    this.kinds = Array.isArray(kind) ? kind : [kind];
     this.entries = new LRUCache<string, Map<string, V>>({ max: opts.maxIds, ttl: Math.max(1, opts.ttlMs), ttlAutopurge: false });
     this.maxPerId = opts.maxPerId ?? 32;
     this.enabled = opts.ttlMs > 0;
-    const list = caches.get(kind) ?? [];
-    list.push(this as ScopedCache<unknown>);
-    caches.set(kind, list);
-    if (this.enabled) startChangeFeed();
+    for (const k of this.kinds) {
+      const list = caches.get(k) ?? [];
+      list.push(this as ScopedCache<unknown>);
+      caches.set(k, list);
+    }
   }
 
   private readonly maxPerId: number;
@@ -152,7 +165,11 @@ export class ScopedCache<V> {
   }
 
   get(id: number | string, key = ''): V | undefined {
-    if (!this.live) return undefined;
+    if (!this.live) {
+      // The first read starts the feed (scripts that only import the server never connect).
+      if (this.enabled && !client && !stopped) startChangeFeed();
+      return undefined;
+    }
     return this.entries.get(String(id))?.get(key);
   }
 
@@ -163,8 +180,7 @@ export class ScopedCache<V> {
 
   set(ticket: CacheTicket, key: string, value: V): void {
     if (!this.live) return;
-    const g = generations.get(`${this.kind}:${ticket.id}`) ?? floor;
-    if (g > ticket.generation) return; // changed while it was read
+    for (const k of this.kinds) if ((generations.get(`${k}:${ticket.id}`) ?? floor) > ticket.generation) return; // changed while it was read
     let m = this.entries.get(ticket.id);
     if (!m) {
       m = new Map();
@@ -176,7 +192,7 @@ export class ScopedCache<V> {
 
   /** Drops this id's entries here at once (the writer's own process; the others hear the notification). */
   invalidate(id: number | string): void {
-    bump(this.kind, String(id));
+    bump(this.kinds[0], String(id));
   }
 
   /** @internal used by the feed */
@@ -188,6 +204,15 @@ export class ScopedCache<V> {
   clear(): void {
     this.entries.clear();
   }
+}
+
+/**
+ * Resolves once every change committed before the call has been heard (PostgreSQL hands a listening connection its
+ * pending notifications before answering its next query). Another process hears a change within that delivery
+ * time — milliseconds — after it commits; tests use this to wait for exactly that, not for a guessed time.
+ */
+export async function syncChangeFeed(): Promise<void> {
+  if (client && listening) await client.query('SELECT 1');
 }
 
 /** Whether the change feed is up (health and tests). */

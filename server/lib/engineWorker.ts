@@ -1,9 +1,9 @@
 // Worker-thread entry for heavy engine calls (see enginePool.ts).
 import { createHash } from 'node:crypto';
 import { LRUCache } from 'lru-cache';
-import { fitCalibration, rankArsenal } from '../../engine/index';
+import { fitCalibration, rankArsenal, shotStats, statsBy, suggestMoves } from '../../engine/index';
 import type { PocketLineHint } from '../../engine/index';
-import type { Calibration } from '../../engine/shotlog/types';
+import type { Calibration, ShotRecord } from '../../engine/shotlog/types';
 import type { RankArsenalInput, RankedBall } from '../../engine/types';
 
 /**
@@ -46,6 +46,23 @@ export function rank(task: RankTask): RankedBall[] {
     aborted: abort ? () => Atomics.load(abort, 0) === 1 : undefined,
   });
 }
+
+/** A season's shots and the bowler's hand: the statistics GET /api/stats shows. */
+export interface StatsTask {
+  records: ShotRecord[];
+  hand: 'right' | 'left';
+}
+
+export function stats({ records, hand }: StatsTask) {
+  return {
+    overall: shotStats(records),
+    byBall: statsBy(records, 'ballId'),
+    bySurface: statsBy(records, ['ballId', 'surfaceKey']),
+    bySession: statsBy(records, 'sessionId'),
+    moves: suggestMoves({ shots: records, hand }),
+  };
+}
+export type StatsParts = ReturnType<typeof stats>;
 
 export function calibrate(input: Parameters<typeof fitCalibration>[0]): Calibration {
   return fitCalibration(input);
