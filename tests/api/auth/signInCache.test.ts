@@ -1,14 +1,18 @@
 import pg from 'pg';
 import { describe, expect, it } from 'vitest';
-import { changeFeedListening } from '../../../server/lib/changeFeed';
+import { changeFeedListening, startChangeFeed, syncChangeFeed } from '../../../server/lib/changeFeed';
 import { api, createUser, uniqueMarker } from '../../helpers/api';
 import { waitFor } from '../../helpers/wait';
 
 // The signed-in user's row and the arsenal pages are cached in the process (CACHE_TTL_MS, 10 s by default) while
 // it hears the database's change feed. These tests show the caches answer, and that a change still takes effect on
-// the very next request: made through the API (this process), or written by another connection (another process).
+// the very next request: made through the API (this process, dropped when it commits), or written by another
+// connection (another process: heard through the feed as soon as PostgreSQL delivers the notification).
 
-/** Runs SQL on a connection of its own, as another API process, the job worker or psql would. */
+/**
+ * Runs SQL on a connection of its own, as another API process, the job worker or psql would, then waits until this
+ * process has heard every change committed so far (the feed's delivery: milliseconds, not a guessed sleep).
+ */
 async function elsewhere(sql: string, params: unknown[] = []): Promise<void> {
   const c = new pg.Client({ connectionString: process.env.DATABASE_URL });
   await c.connect();
@@ -17,13 +21,20 @@ async function elsewhere(sql: string, params: unknown[] = []): Promise<void> {
   } finally {
     await c.end();
   }
+  await syncChangeFeed();
+}
+
+/** The caches answer only while the process hears the change feed: wait until it does. */
+async function feedUp(): Promise<void> {
+  startChangeFeed();
+  await waitFor(async () => changeFeedListening(), (up) => up);
 }
 
 const students = (auth: { Authorization: string }) => api.get('/api/coach/students').set(auth);
 
 describe('signed-in user cache', () => {
   it('is in use: a change that skipped the change feed is not seen within the cache’s lifetime', async () => {
-    await waitFor(async () => changeFeedListening(), (up) => up);
+    await feedUp();
     const coach = await createUser('coach');
     expect((await students(coach.auth)).status).toBe(200); // cached now
     // The same demotion with the feed's trigger switched off: nobody tells the process.
@@ -32,11 +43,11 @@ describe('signed-in user cache', () => {
     expect((await students(coach.auth)).status).toBe(200);
     // Any later change of the row reaches it through the feed.
     await elsewhere('UPDATE users SET updated_at = now() WHERE id = $1', [coach.user.id]);
-    await waitFor(async () => (await students(coach.auth)).status, (s) => s === 403);
+    expect((await students(coach.auth)).status).toBe(403);
   });
 
   it('refuses a demoted coach on the next request (role changed through the API)', async () => {
-    await waitFor(async () => changeFeedListening(), (up) => up);
+    await feedUp();
     const admin = await createUser('admin');
     const coach = await createUser('coach');
     expect((await students(coach.auth)).status).toBe(200);
@@ -49,7 +60,7 @@ describe('signed-in user cache', () => {
   });
 
   it('refuses a demoted coach on the next request (role changed by another process)', async () => {
-    await waitFor(async () => changeFeedListening(), (up) => up);
+    await feedUp();
     const coach = await createUser('coach');
     expect((await students(coach.auth)).status).toBe(200);
     await elsewhere("UPDATE users SET role = 'bowler' WHERE id = $1", [coach.user.id]);
@@ -57,7 +68,7 @@ describe('signed-in user cache', () => {
   });
 
   it('refuses a token of an older version on the next request (a password reset elsewhere ends every session)', async () => {
-    await waitFor(async () => changeFeedListening(), (up) => up);
+    await feedUp();
     const { user, auth } = await createUser('bowler');
     expect((await api.get('/api/auth/me').set(auth)).status).toBe(200);
     await elsewhere('UPDATE users SET token_version = token_version + 1 WHERE id = $1', [user.id]);
@@ -65,7 +76,7 @@ describe('signed-in user cache', () => {
   });
 
   it('shows a new ball in the arsenal list at once, and drops a ball another process deleted', async () => {
-    await waitFor(async () => changeFeedListening(), (up) => up);
+    await feedUp();
     const { auth } = await createUser('bowler');
     const name = uniqueMarker('Cached list');
     const list = async () => (await api.get('/api/arsenal').query({ q: name }).set(auth)).body as { items: { id: number; name: string; nickname: string | null }[]; total: number };
