@@ -1,34 +1,11 @@
-import pg from 'pg';
 import { describe, expect, it } from 'vitest';
-import { changeFeedListening, startChangeFeed, syncChangeFeed } from '../../../server/lib/changeFeed';
+import { elsewhere, feedUp } from '../../helpers/changeFeed';
 import { api, createUser, uniqueMarker } from '../../helpers/api';
-import { waitFor } from '../../helpers/wait';
 
 // The signed-in user's row and the arsenal pages are cached in the process (CACHE_TTL_MS, 10 s by default) while
 // it hears the database's change feed. These tests show the caches answer, and that a change still takes effect on
 // the very next request: made through the API (this process, dropped when it commits), or written by another
 // connection (another process: heard through the feed as soon as PostgreSQL delivers the notification).
-
-/**
- * Runs SQL on a connection of its own, as another API process, the job worker or psql would, then waits until this
- * process has heard every change committed so far (the feed's delivery: milliseconds, not a guessed sleep).
- */
-async function elsewhere(sql: string, params: unknown[] = []): Promise<void> {
-  const c = new pg.Client({ connectionString: process.env.DATABASE_URL });
-  await c.connect();
-  try {
-    await c.query(sql, params);
-  } finally {
-    await c.end();
-  }
-  await syncChangeFeed();
-}
-
-/** The caches answer only while the process hears the change feed: wait until it does. */
-async function feedUp(): Promise<void> {
-  startChangeFeed();
-  await waitFor(async () => changeFeedListening(), (up) => up);
-}
 
 const students = (auth: { Authorization: string }) => api.get('/api/coach/students').set(auth);
 

@@ -1,26 +1,11 @@
-import pg from 'pg';
 import { describe, expect, it } from 'vitest';
-import { changeFeedListening, startChangeFeed, syncChangeFeed } from '../../../server/lib/changeFeed';
+import { elsewhere, feedUp } from '../../helpers/changeFeed';
 import { api, createUser } from '../../helpers/api';
 import { createBall, createPattern } from '../../helpers/fixtures';
-import { waitFor } from '../../helpers/wait';
 import { expandGame, logGame, randomGame, SAMPLE_GAME } from '../sessions/shotlog';
 
 // GET /api/stats keeps each bowler's computed statistics until their shots, sessions or balls change (from any
 // process: the database's change feed). A page shown again is answered from it; a change shows on the next request.
-
-async function feedUp(): Promise<void> {
-  startChangeFeed();
-  await waitFor(async () => changeFeedListening(), (up) => up);
-}
-
-/** SQL on a connection of its own (another process), then wait until this process has heard it. */
-async function elsewhere(sql: string, params: unknown[]): Promise<void> {
-  const c = new pg.Client({ connectionString: process.env.DATABASE_URL });
-  await c.connect();
-  await c.query(sql, params).finally(() => c.end());
-  await syncChangeFeed();
-}
 
 describe('GET /api/stats — kept until the shots change', () => {
   it('counts a shot logged through the API and a session deleted by another process on the very next request', async () => {
