@@ -76,10 +76,13 @@ export const matchupsService = {
   async run(user: AuthUser, req: MatchupRequest, signal?: AbortSignal): Promise<MatchupResult> {
     // A linked coach ranks a student's arsenal; anyone else asking for another bowler gets 404.
     const bowlerId = await readableBowlerId(user, req.studentId);
-    const on = await engineCondition({ patternId: req.patternId, conditionId: req.conditionId, lane: req.lane });
+    // The condition, the release and the balls are independent reads: asked for together.
+    const [on, bowler, rows] = await Promise.all([
+      engineCondition({ patternId: req.patternId, conditionId: req.conditionId, lane: req.lane }),
+      bowlerOf(bowlerId) as Promise<BowlerProfile>,
+      arsenalRepository.findOwnedMany(bowlerId, req.ballIds),
+    ]);
     const { pattern, lane } = on;
-    const bowler: BowlerProfile = await bowlerOf(bowlerId);
-    const rows = await arsenalRepository.findOwnedMany(bowlerId, req.ballIds);
     if (req.ballIds && rows.length !== new Set(req.ballIds).size) throw AppError.notFound('Ball');
     const balls = rows.filter((b) => req.ballIds || b.status === 'active').map(toBallDto);
     const byId = new Map(balls.map((b) => [String(b.id), b]));
