@@ -178,9 +178,14 @@ export class ScopedCache<V> {
     return { id: String(id), generation: counter };
   }
 
+  /** Whether the ticket's id changed (or the feed dropped) since the ticket was taken. */
+  changedSince(ticket: CacheTicket): boolean {
+    return this.kinds.some((k) => (generations.get(`${k}:${ticket.id}`) ?? floor) > ticket.generation);
+  }
+
   set(ticket: CacheTicket, key: string, value: V): void {
     if (!this.live) return;
-    for (const k of this.kinds) if ((generations.get(`${k}:${ticket.id}`) ?? floor) > ticket.generation) return; // changed while it was read
+    if (this.changedSince(ticket)) return; // changed while it was read
     let m = this.entries.get(ticket.id);
     if (!m) {
       m = new Map();

@@ -1,4 +1,5 @@
 import { createHash } from 'node:crypto';
+import pLimit from 'p-limit';
 import { Op, type Transaction } from 'sequelize';
 import { CALIBRATION, fitCalibration } from '../../../engine/index';
 import type { Calibration, CalibrationObservation, ShotRecord } from '../../../engine/shotlog/types';
@@ -236,6 +237,38 @@ export async function engineCondition(ref: { patternId?: number; conditionId?: n
 type StatsParts = Omit<StatsResult, 'calibration' | 'calibrationPatternId' | 'calibrationLane'>;
 const statsCache = new ScopedCache<StatsParts>(['shots', 'balls'], { ttlMs: config.CACHE_TTL_MS, maxIds: 2_000, maxPerId: 8 });
 
+/** Season computations running at once in this process (one reading its shots while one is on the stats thread). */
+export const SEASONS_AT_ONCE = 2;
+const seasonLimit = pLimit(SEASONS_AT_ONCE);
+const inFlight = new Map<string, { ticket: CacheTicket; answer: Promise<{ parts: StatsParts; rowsForCalibration?: { rows: ShotRow[]; ticket: CacheTicket } }> }>();
+
+/**
+ * The statistics of the bowler's shots under a filter: the bowler's shots read once (shared with the calibration,
+ * whose pattern's rows are handed back), computed on the stats thread, kept.
+ */
+async function computeParts(bowlerId: number, q: StatsQuery, key: string, hand: 'right' | 'left', calibrationPatternId: number | null, ticket: CacheTicket) {
+  const kept = statsCache.get(bowlerId, key); // a computation that finished while this one waited for its turn
+  if (kept) return { parts: kept };
+  const all = await sessionsRepository.shotsForStats(bowlerId, {});
+  const rows = all.filter((r) => (!q.from || r.date! >= q.from) && (!q.to || r.date! <= q.to) && (!q.ballId || r.ball_id === q.ballId) && (!q.patternId || r.pattern_id === q.patternId));
+  const records: ShotRecord[] = rows.map((r) => toShotRecord(r, r.date!));
+  const computed = await statsInWorker({ records, hand });
+  const names = new Map(rows.map((r) => [String(r.ball_id), r.ball_name]));
+  const dates = new Map(rows.map((r) => [String(r.session_id), r.date!]));
+  const parts: StatsParts = {
+    overall: computed.overall,
+    byBall: computed.byBall.map((g) => ({ ballId: Number(g.key), name: names.get(g.key) ?? '', stats: g.stats })),
+    // Grouped within each full game, so a spare thrown with another ball keeps its leave.
+    bySurface: computed.bySurface.map((g) => ({ ballId: Number(g.keys.ballId), name: names.get(g.keys.ballId!) ?? '', surfaceKey: g.keys.surfaceKey!, stats: g.stats })),
+    trend: computed.bySession
+      .map((g) => ({ sessionId: Number(g.key), date: dates.get(g.key)!, games: g.stats.games, average: g.stats.average, strikePct: g.stats.strike.pct, sparePct: g.stats.spare.pct }))
+      .sort((a, b) => a.date.localeCompare(b.date) || a.sessionId - b.sessionId),
+    moves: computed.moves,
+  };
+  if (!hasReplicas) statsCache.set(ticket, key, parts);
+  return { parts, ...(calibrationPatternId !== null ? { rowsForCalibration: { rows: all.filter((r) => r.pattern_id === calibrationPatternId), ticket } } : {}) };
+}
+
 // A session saved, deleted or restored in this process drops its bowler's kept statistics when it commits.
 for (const hook of ['afterSave', 'afterDestroy', 'afterRestore'] as const) {
   BowlingSession.addHook(hook, (session: BowlingSession, options: { transaction?: Transaction | null }) => changedAfterCommit('shots', session.userId, options.transaction));
@@ -257,25 +290,24 @@ export const statsService = {
     let parts = statsCache.get(bowlerId, key);
     let rowsForCalibration: { rows: ShotRow[]; ticket: CacheTicket } | undefined;
     if (!parts) {
-      const ticket = statsCache.ticket(bowlerId);
-      const all = await sessionsRepository.shotsForStats(bowlerId, {});
-      const rows = all.filter((r) => (!q.from || r.date! >= q.from) && (!q.to || r.date! <= q.to) && (!q.ballId || r.ball_id === q.ballId) && (!q.patternId || r.pattern_id === q.patternId));
-      const records: ShotRecord[] = rows.map((r) => toShotRecord(r, r.date!));
-      const computed = await statsInWorker({ records, hand });
-      const names = new Map(rows.map((r) => [String(r.ball_id), r.ball_name]));
-      const dates = new Map(rows.map((r) => [String(r.session_id), r.date!]));
-      parts = {
-        overall: computed.overall,
-        byBall: computed.byBall.map((g) => ({ ballId: Number(g.key), name: names.get(g.key) ?? '', stats: g.stats })),
-        // Grouped within each full game, so a spare thrown with another ball keeps its leave.
-        bySurface: computed.bySurface.map((g) => ({ ballId: Number(g.keys.ballId), name: names.get(g.keys.ballId!) ?? '', surfaceKey: g.keys.surfaceKey!, stats: g.stats })),
-        trend: computed.bySession
-          .map((g) => ({ sessionId: Number(g.key), date: dates.get(g.key)!, games: g.stats.games, average: g.stats.average, strikePct: g.stats.strike.pct, sparePct: g.stats.spare.pct }))
-          .sort((a, b) => a.date.localeCompare(b.date) || a.sessionId - b.sessionId),
-        moves: computed.moves,
-      };
-      if (!hasReplicas) statsCache.set(ticket, key, parts);
-      if (calibrationPatternId !== null) rowsForCalibration = { rows: all.filter((r) => r.pattern_id === calibrationPatternId), ticket };
+      // One computation per bowler and filter at a time (a request that finds one running waits for its answer), and
+      // at most SEASONS_AT_ONCE in the process: each holds a season of rows, so memory stays bounded under any load.
+      // A running computation is joined only if nothing of the bowler's changed since it started.
+      const flightKey = `${bowlerId}:${key}`;
+      const running = inFlight.get(flightKey);
+      if (running && !statsCache.changedSince(running.ticket)) {
+        ({ parts } = await running.answer);
+      } else {
+        const ticket = statsCache.ticket(bowlerId);
+        const answer = seasonLimit(() => computeParts(bowlerId, q, key, hand, calibrationPatternId, ticket));
+        const flight = { ticket, answer };
+        inFlight.set(flightKey, flight);
+        try {
+          ({ parts, rowsForCalibration } = await answer);
+        } finally {
+          if (inFlight.get(flightKey) === flight) inFlight.delete(flightKey);
+        }
+      }
     }
     let calibration: Calibration | null = null;
     // The lanes the bowler last bowled this pattern on (a published condition's lane surface), as a matchup there would use.
