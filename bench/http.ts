@@ -83,7 +83,8 @@ async function main(): Promise<void> {
     const port = await freePort();
     // ENGINE_QUEUE 16: all 10 connections' rankings wait their turn (the default, 8 per thread, refuses the tenth with
     // a fast 503 that would flatter the latency); the server's own log stays quiet below errors.
-    server = spawn(bin('tsx'), ['server/index.ts'], { cwd: root, env: { ...env, PORT: String(port), CLIENT_DIST: distDir, RATE_LIMIT_AUTH: '100000', ENGINE_QUEUE: '16', LOG_LEVEL: 'error' }, stdio: ['ignore', 'inherit', 'inherit'] });
+    // Started as `node --import tsx` so server.pid is the server itself (its peak memory is read from /proc).
+    server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { cwd: root, env: { ...env, PORT: String(port), CLIENT_DIST: distDir, RATE_LIMIT_AUTH: '100000', ENGINE_QUEUE: '16', LOG_LEVEL: 'error' }, stdio: ['ignore', 'inherit', 'inherit'] });
     const base = `http://127.0.0.1:${port}`;
     for (let i = 0; i < 100; i++) {
       try {
@@ -148,7 +149,49 @@ async function main(): Promise<void> {
     });
     const answerKb = wire.length / 1024;
     const answerJsonKb = zlib.gunzipSync(wire).length / 1024;
-    const errors = matchups.non2xx + list.non2xx + listBig.non2xx + cold.non2xx + matchups.errors + list.errors + listBig.errors + cold.errors;
+    // Statistics over 10 000 logged shots (lee's: copies of a demo session's games, written straight to the database).
+    const db2 = new pg.Client({ connectionString: adminUrl });
+    await db2.connect();
+    const template = (await db2.query<{ id: number; pattern_id: number | null; n: number }>(
+      'SELECT s.id, s.pattern_id, count(*)::int AS n FROM sessions s JOIN shots sh ON sh.session_id = s.id WHERE s.deleted_at IS NULL GROUP BY s.id ORDER BY n DESC LIMIT 1',
+    )).rows[0];
+    const copies = Math.ceil(10000 / template.n);
+    await db2.query(
+      `WITH lee AS (SELECT u.id AS uid, (SELECT min(b.id) FROM balls b WHERE b.owner_id = u.id) AS ball FROM users u WHERE u.email = 'lee@copperline.example'),
+       made AS (INSERT INTO sessions (user_id, date, kind, pattern_id, notes, version, created_at, updated_at)
+         SELECT lee.uid, date '2025-01-01' + g, 'practice', $2, '', 0, now(), now() FROM lee, generate_series(1, $3) g RETURNING id)
+       INSERT INTO shots (session_id, game_number, frame, delivery, ball_id, surface_grit, surface_polished, surface_key, feet_board, target_board, breakpoint_board,
+         standing, foul, hit, note, idempotency_key, request_hash, response, created_at, updated_at)
+       SELECT made.id, t.game_number, t.frame, t.delivery, lee.ball, t.surface_grit, t.surface_polished, t.surface_key, t.feet_board, t.target_board, t.breakpoint_board,
+         t.standing, t.foul, t.hit, '', 'bench-' || made.id || '-' || t.id, '', '{}'::jsonb, now(), now()
+       FROM made, lee, shots t WHERE t.session_id = $1`,
+      [template.id, template.pattern_id, copies],
+    );
+    const statShots = Number((await db2.query(`SELECT count(*)::int AS n FROM shots sh JOIN sessions s ON s.id = sh.session_id JOIN users u ON u.id = s.user_id WHERE u.email = 'lee@copperline.example' AND s.deleted_at IS NULL`)).rows[0].n);
+    await db2.end();
+    const peakRssMb = () => {
+      const m = /VmHWM:\s+(\d+) kB/.exec(fs.readFileSync(`/proc/${server!.pid}/status`, 'utf8'));
+      return m ? Number(m[1]) / 1024 : NaN;
+    };
+    // The first request computes (off the main thread); the ones after it are answered from what was kept.
+    const t0 = performance.now();
+    const firstStats = await fetch(`${base}/api/stats`, { headers: big });
+    const statsColdMs = performance.now() - t0;
+    if (!firstStats.ok) throw new Error(`GET /api/stats answered ${firstStats.status}`);
+    const statsWarm = await load({ url: `${base}/api/stats`, headers: big, connections: 10, duration: 10 });
+    // Every request a different filter (a later `to` date), so every one computes: another route timed alongside.
+    let day = 0;
+    const statsColdLoad = load({
+      url: `${base}/api/stats`,
+      connections: 10,
+      duration: 10,
+      requests: [{ method: 'GET', headers: big, setupRequest: (req) => ({ ...req, path: `/api/stats?to=${new Date(Date.UTC(2030, 0, 1) + day++ * 86400000).toISOString().slice(0, 10)}` }) }],
+    });
+    const beside = await load({ url: `${base}/api/arsenal`, headers: auth, connections: 1, duration: 10 });
+    const statsCold = await statsColdLoad;
+    const rssMb = peakRssMb();
+
+    const errors = [matchups, list, listBig, cold, statsWarm, statsCold, beside].reduce((n, r) => n + r.non2xx + r.errors, 0);
     const ratio = (x: number, f: number) => Math.round((x / f) * 1000) / 1000;
 
     const http = [
@@ -160,6 +203,12 @@ async function main(): Promise<void> {
       { name: 'POST /api/matchups answer (15 balls), JSON', value: answerJsonKb, unit: 'kB', target: null, floor: null, ratio: null, ok: null },
       { name: `GET /api/arsenal requests/s (10 concurrent, ${(listBody as { total: number }).total} balls)`, value: list.requests.average, unit: 'req/s', target: '≥ 0.5 × floor', floor: floor.rps, ratio: ratio(list.requests.average, floor.rps), ok: list.requests.average >= 0.5 * floor.rps },
       { name: `GET /api/arsenal requests/s (10 concurrent, ${bigBody.total} balls)`, value: listBig.requests.average, unit: 'req/s', target: '≥ 0.3 × floor', floor: floorBig.rps, ratio: ratio(listBig.requests.average, floorBig.rps), ok: listBig.requests.average >= 0.3 * floorBig.rps },
+      { name: `GET /api/stats (${statShots} shots), first request (computes)`, value: statsColdMs, unit: 'ms', target: null, floor: null, ratio: null, ok: null },
+      { name: `GET /api/stats (${statShots} shots, 10 concurrent) p95, kept`, value: statsWarm.p95, unit: 'ms', target: '≤ 100 ms', floor: floor.p95, ratio: null, ok: statsWarm.p95 <= 100 },
+      { name: `GET /api/stats (${statShots} shots, 10 concurrent) p95, every filter new`, value: statsCold.p95, unit: 'ms', target: '≤ 100 ms', floor: floor.p95, ratio: null, ok: statsCold.p95 <= 100 },
+      { name: 'GET /api/stats every filter new: requests/s', value: statsCold.requests.average, unit: 'req/s', target: null, floor: null, ratio: null, ok: null },
+      { name: 'GET /api/arsenal p95 beside 10 stats computing', value: beside.p95, unit: 'ms', target: '≤ 50 ms', floor: floor.p95, ratio: null, ok: beside.p95 <= 50 },
+      { name: 'server peak RSS (VmHWM) after the stats load', value: rssMb, unit: 'MB', target: '< 400 MB', floor: null, ratio: null, ok: rssMb < 400 },
       { name: 'client initial JS (gzip)', value: jsKb, unit: 'kB', target: '≤ 350', floor: null, ratio: null, ok: jsKb <= 350 },
     ];
     const loadAvg = os.loadavg().map((x) => Math.round(x * 100) / 100);
