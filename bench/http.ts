@@ -173,6 +173,13 @@ async function main(): Promise<void> {
       const m = /VmHWM:\s+(\d+) kB/.exec(fs.readFileSync(`/proc/${server!.pid}/status`, 'utf8'));
       return m ? Number(m[1]) / 1024 : NaN;
     };
+    // Linux: writing 5 to clear_refs resets the peak (VmHWM), so the stats load's own peak is read apart.
+    const rssBeforeStatsMb = peakRssMb();
+    try {
+      fs.writeFileSync(`/proc/${server.pid}/clear_refs`, '5');
+    } catch {
+      /* not allowed here: the peak then covers the whole run */
+    }
     // The first request computes (off the main thread); the ones after it are answered from what was kept.
     const t0 = performance.now();
     const firstStats = await fetch(`${base}/api/stats`, { headers: big });
@@ -208,7 +215,8 @@ async function main(): Promise<void> {
       { name: `GET /api/stats (${statShots} shots, 10 concurrent) p95, every filter new`, value: statsCold.p95, unit: 'ms', target: '≤ 100 ms', floor: floor.p95, ratio: null, ok: statsCold.p95 <= 100 },
       { name: 'GET /api/stats every filter new: requests/s', value: statsCold.requests.average, unit: 'req/s', target: null, floor: null, ratio: null, ok: null },
       { name: 'GET /api/arsenal p95 beside 10 stats computing', value: beside.p95, unit: 'ms', target: '≤ 50 ms', floor: floor.p95, ratio: null, ok: beside.p95 <= 50 },
-      { name: 'server peak RSS (VmHWM) after the stats load', value: rssMb, unit: 'MB', target: '< 400 MB', floor: null, ratio: null, ok: rssMb < 400 },
+      { name: 'server peak RSS (VmHWM) during the stats loads', value: rssMb, unit: 'MB', target: '< 400 MB', floor: null, ratio: null, ok: rssMb < 400 },
+      { name: 'server peak RSS (VmHWM) before them (lists, matchups)', value: rssBeforeStatsMb, unit: 'MB', target: null, floor: null, ratio: null, ok: null },
       { name: 'client initial JS (gzip)', value: jsKb, unit: 'kB', target: '≤ 350', floor: null, ratio: null, ok: jsKb <= 350 },
     ];
     const loadAvg = os.loadavg().map((x) => Math.round(x * 100) / 100);

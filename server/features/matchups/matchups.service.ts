@@ -22,17 +22,6 @@ export type { MatchupRanking, MatchupResult };
  * their current specs, surfaces, wear and labels, the bowler's release, the pattern's sweeps, the lane surface,
  * games bowled, the calibration). Any change to one of them is a different key; nothing has to be invalidated.
  */
-const rankingCache = new LRUCache<string, RankedBall[]>({ max: 500 });
-
-async function rankCached(input: RankArsenalInput, signal?: AbortSignal): Promise<RankedBall[]> {
-  const key = createHash('sha256').update(JSON.stringify(input)).digest('base64url');
-  const hit = rankingCache.get(key);
-  if (hit) return hit;
-  const ranked = await rankInWorker(input, signal);
-  rankingCache.set(key, ranked);
-  return ranked;
-}
-
 /**
  * A predicted path at the resolution the lane view draws: the lane view (client MatchupLaneView, 300 × 660 px) gives
  * a board about 6 px and a foot about 10 px, so points a straight line through their neighbours passes within
@@ -55,6 +44,26 @@ export function pathForLaneView(path: ShotPrediction['path']): ShotPrediction['p
     const p = byPoint.get(q)!;
     return { ft: r(p.ft, 10), board: r(p.board, 100), speedMph: r(p.speedMph, 10) };
   });
+}
+
+const rankingCache = new LRUCache<string, RankedBall[]>({ max: 500, maxSize: 3_000, sizeCalculation: (ranked) => Math.max(1, ranked.length) });
+
+/** A ranking as kept and sent: each path at the lane view's resolution (pathForLaneView). */
+function trimmed(ranked: RankedBall[]): RankedBall[] {
+  return ranked.map((r) => {
+    const prediction = (r as RankedBall & { prediction?: ShotPrediction | null }).prediction;
+    return prediction ? ({ ...r, prediction: { ...prediction, path: pathForLaneView(prediction.path) } } as RankedBall) : r;
+  });
+}
+
+/** At most 3 000 ranked balls are kept (200 rankings of 15), their paths trimmed: a few megabytes, whatever the load. */
+async function rankCached(input: RankArsenalInput, signal?: AbortSignal): Promise<RankedBall[]> {
+  const key = createHash('sha256').update(JSON.stringify(input)).digest('base64url');
+  const hit = rankingCache.get(key);
+  if (hit) return hit;
+  const ranked = trimmed(await rankInWorker(input, signal));
+  rankingCache.set(key, ranked);
+  return ranked;
 }
 
 /** A 'ball' suggestion names the engine's string id of another ball: the client gets that ball's numeric id. */
@@ -120,10 +129,8 @@ export const matchupsService = {
       calibration,
       rankings: ranked.map((r): MatchupRanking => {
         const b = byId.get(r.id)!;
-        const prediction = (r as RankedBall & { prediction?: ShotPrediction }).prediction;
         return {
           ...r,
-          ...(prediction ? { prediction: { ...prediction, path: pathForLaneView(prediction.path) } } : {}),
           suggestions: withNumericBallIds(r.suggestions, numericIds),
           ballId: b.id,
           ball: {
