@@ -58,8 +58,9 @@ export function signToken(user: { id: number; tokenVersion: number }): string {
  * this process. The cache answers only while this process hears the database's change feed
  * (server/lib/changeFeed.ts): a change of the user's row (role, e-mail, name, token version: a password reset, a
  * sign-out everywhere, a deletion) or of their write mark, made by any process, drops the entry when it commits,
- * so a demoted user or a reset password takes effect at once in every process; the token's version is still
- * compared with the row's on every request.
+ * so a demoted user or a reset password takes effect at once in every process (in the writer's when the change
+ * commits, in the others within the notification's delivery, milliseconds); the token's version is still compared
+ * with the row's on every request. With replicas configured nothing is cached.
  */
 interface AuthRow {
   id: number;
@@ -80,7 +81,9 @@ async function authRow(id: number): Promise<AuthRow | null> {
     'SELECT u.id, u.email, u.display_name, u.role, u.token_version, w.at AS wrote_at FROM users u LEFT JOIN user_write_marks w ON w.user_id = u.id WHERE u.id = :id',
     { replacements: { id }, type: QueryTypes.SELECT, useMaster: true },
   );
-  if (u) authRows.set(ticket, '', u); // an unknown id is never cached: only a committed user row is
+  // An unknown id is never cached (only a committed user row is); nor is anything with replicas, where the write mark
+  // must be read fresh on every request so a user's reads after their own write (in any process) skip the replicas.
+  if (u && !hasReplicas) authRows.set(ticket, '', u);
   return u ?? null;
 }
 
