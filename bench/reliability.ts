@@ -19,6 +19,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { productionEnv } from './lib/productionEnv';
 import { freePort, makeTempClusterDir, startCluster, stopCluster } from '../scripts/lib/pg.mjs';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
@@ -107,18 +108,7 @@ async function main(): Promise<void> {
   let server: ReturnType<typeof spawn> | null = null;
   try {
     const url = await startCluster({ dataDir: `${dir}/pg`, port: await freePort(), log: () => undefined });
-    const env = {
-      ...process.env,
-      DATABASE_URL: url,
-      NODE_ENV: 'production' as const,
-      JWT_SECRET: `reliability-bench-${Date.now()}-0123456789abcdef`,
-      PUBLIC_URL: 'http://127.0.0.1',
-      SMTP_URL: 'smtp://127.0.0.1:9',
-      STRIPE_SECRET_KEY: 'sk_test_reliability_bench',
-      STRIPE_WEBHOOK_SECRET: 'whsec_reliability_bench',
-      STRIPE_API_URL: 'http://127.0.0.1:9',
-      LOG_LEVEL: 'warn',
-    };
+    const env = productionEnv(url);
     run(bin('tsx'), ['server/db/migrate.ts', 'up'], env);
     run(bin('tsx'), ['seeders/index.ts'], { ...env, NODE_ENV: 'test' }); // the demo data, loaded as a test database would be (never into production)
     const port = await freePort();

@@ -35,6 +35,7 @@ export type { WeightedLayer } from './combineLayers';
 export { SCORING_LAYERS } from './scoringLayers';
 export type { ScoringLayer } from './scoringLayers';
 export { rankArsenal } from './rankArsenal';
+export type { RankArsenalOptions } from './rankArsenal';
 export { rankTransition } from './rankTransition';
 export {
   BOARD_COUNT,

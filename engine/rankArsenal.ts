@@ -11,6 +11,20 @@ import { MOTION_LAYER_WEIGHT, motionLayer, type RankedBallWithPrediction } from 
 import { prepareShot } from './motion/prepareShot';
 import type { LaneOilMap } from './motion/laneOilMap';
 import type { ShotPrediction } from './motion/shotPrediction';
+import type { PocketLineHint } from './motion/solvePocketLine';
+
+/** How a caller may steer one ranking's work (none of it changes what a ball's entry means). */
+export interface RankArsenalOptions {
+  /**
+   * Where each ball's line search settled on a nearby condition (the same ball and release, a little more or less
+   * play on the lane), by ball id: the search starts there instead of scanning the lane (solvePocketLine's warm start).
+   */
+  hints?: ReadonlyMap<string, PocketLineHint>;
+  /** Told where each ball's line search settled, to warm-start a later ranking. */
+  onSettled?: (ballId: string, settled: PocketLineHint) => void;
+  /** Asked before each ball; true stops the ranking with an Error named 'AbortError' (the caller went away). */
+  aborted?: () => boolean;
+}
 
 /** Order of the standings in a ranking: strike balls, then spare balls, then balls outside the limits. */
 const STANDING_ORDER = { strike: 0, spare: 1, illegal: 2 } as const;
@@ -39,11 +53,14 @@ const STANDING_ORDER = { strike: 0, spare: 1, illegal: 2 } as const;
  * @returns one RankedBall per ball: `id`, `score` 0–100, `standing`, `fit` (strength, demand, gap, verdict),
  *   `reasons` (the fit's parts, then the motion model's), `suggestions`, `layers`, `prediction` (on the pocket
  *   line), `missRoom`, and `legality` for an illegal ball. An empty arsenal gives [].
- * @throws TypeError/RangeError for malformed input or duplicate ids, naming 'rankArsenal'.
+ * @param options `hints` warm-start each ball's line search from where it settled on a nearby condition, `onSettled`
+ *   hears where each settled, `aborted` is asked between balls (RankArsenalOptions).
+ * @throws TypeError/RangeError for malformed input or duplicate ids, naming 'rankArsenal'; an Error named
+ *   'AbortError' when `aborted()` answers true.
  * @example
  * rankArsenal({ balls, bowler, pattern })[0].id; // => the best ball's id
  */
-export function rankArsenal(input: RankArsenalInput): RankedBallWithPrediction[] {
+export function rankArsenal(input: RankArsenalInput, options: RankArsenalOptions = {}): RankedBallWithPrediction[] {
   const fn = 'rankArsenal';
   const inp = record(fn, 'input', input);
   const balls = list(fn, 'balls', inp.balls);
@@ -56,6 +73,11 @@ export function rankArsenal(input: RankArsenalInput): RankedBallWithPrediction[]
     ids.add(id);
   });
   const ctx = matchupContext(input.bowler, input.pattern, input.gamesBowled ?? 0, fn, input.lane);
+  // Options are optional help: anything that is not what they describe is ignored.
+  const opt = (options !== null && typeof options === 'object' ? options : {}) as Partial<Record<keyof RankArsenalOptions, unknown>>;
+  const hints = opt.hints instanceof Map ? (opt.hints as ReadonlyMap<string, PocketLineHint>) : undefined;
+  const onSettled = typeof opt.onSettled === 'function' ? (opt.onSettled as NonNullable<RankArsenalOptions['onSettled']>) : undefined;
+  const aborted = typeof opt.aborted === 'function' ? (opt.aborted as NonNullable<RankArsenalOptions['aborted']>) : undefined;
   const scales = calibrationScales(fn, inp.calibration);
 
   const scorers = SCORING_LAYERS.map((layer) => ({ layer, score: layer.prepare(ctx) }));
@@ -65,11 +87,18 @@ export function rankArsenal(input: RankArsenalInput): RankedBallWithPrediction[]
 
   const arsenal = balls as ArsenalBall[];
   const ranked = arsenal.map((ball) => {
+    if (aborted?.()) {
+      const err = new Error(`${fn}: stopped before ball ${JSON.stringify(ball.id)}: the caller went away`);
+      err.name = 'AbortError';
+      throw err;
+    }
     const legality = checkLegality(ball);
     const standing: 'strike' | 'spare' | 'illegal' = !legality.legal ? 'illegal' : ball.coverType === 'plastic' ? 'spare' : 'strike';
     const layers = scorers.map(({ layer, score }) => ({ name: layer.name, weight: layer.weight, result: score(ball) }));
     const scale = scales.get(ball.id);
-    const verdict = motionLayer(ball, ctx.bowler, ctx.pattern, motionMap, ctx.gamesBowled, scale?.frictionScale ?? 1, { lane: ctx.lane });
+    const hint = hints?.get(ball.id);
+    const verdict = motionLayer(ball, ctx.bowler, ctx.pattern, motionMap, ctx.gamesBowled, scale?.frictionScale ?? 1, { lane: ctx.lane, ...(hint ? { hint } : {}) });
+    if (verdict.settled) onSettled?.(ball.id, verdict.settled);
     layers.push({ name: 'motion', weight: MOTION_LAYER_WEIGHT, result: verdict.result });
     const { score, reasons, suggestions } = combineLayers(layers);
     if (verdict.pocketReached) addSameLineFigures(suggestions, ball, ctx.bowler, ctx.pattern, motionMap, scale?.frictionScale ?? 1, ctx.lane, verdict.prediction);

@@ -4,6 +4,7 @@ import { config } from './config/index';
 import { drainBackground } from './lib/background';
 import { closeEnginePool, warmEnginePool } from './lib/enginePool';
 import { closeMailer } from './lib/mailer';
+import { stopChangeFeed } from './lib/changeFeed';
 import { stopJobs } from './lib/jobs';
 import { stopMailSender } from './lib/outbox';
 import { startMetricsListener } from './features/health/health.router';
@@ -60,7 +61,7 @@ async function shutdown(signal: string): Promise<void> {
   await drainBackground();
   stopMailSender();
   await stopJobs(10000);
-  await Promise.allSettled([sequelize.close(), closeMailer(), closeEnginePool(), closePayments()]);
+  await Promise.allSettled([sequelize.close(), closeMailer(), closeEnginePool(), closePayments(), stopChangeFeed()]);
   clearTimeout(force);
   process.exit(0);
 }

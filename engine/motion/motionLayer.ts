@@ -16,6 +16,8 @@ export interface MotionVerdict {
   pocketReached: boolean;
   /** Laydown − target of the line found, boards (3 ≈ 1°). */
   launchBoards: number;
+  /** Where the line search settled: passed back as `hint`, it warm-starts the search of this ball on a nearby condition. */
+  settled?: PocketLineHint;
 }
 
 /** A ranked ball of rankArsenal with the ball-motion model's prediction and miss room. */
@@ -130,5 +132,5 @@ export function motionLayer(
   const suggestions: Suggestion[] = line.reached && ball.coverType !== 'plastic'
     ? [{ kind: 'line', text: `Model's line: lay down on board ${f1(line.laydownBoard)} and aim over board ${f1(line.targetBoard)} at the arrows.`, change: { laydownBoard: Math.round(line.laydownBoard * 10) / 10, targetBoard: Math.round(line.targetBoard * 10) / 10 } }]
     : [];
-  return { result: { score, reasons, suggestions }, prediction, missRoom: room, pocketReached: line.reached, launchBoards: line.launchBoards };
+  return { result: { score, reasons, suggestions }, prediction, missRoom: room, pocketReached: line.reached, launchBoards: line.launchBoards, ...(line.settled ? { settled: line.settled } : {}) };
 }

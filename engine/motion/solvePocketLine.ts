@@ -19,12 +19,22 @@ export interface PocketLine {
    * every line tried: too much ball), 'light' (never gets back to it), or null when a line reaches it.
    */
   miss: 'high' | 'light' | null;
+  /** Where the search settled (absent when one side of the line was given): a hint that starts the next search of this ball on a nearby condition there. */
+  settled?: PocketLineHint;
 }
 
-/** Hints that start the search near a known answer (the ball's previous line, or a similar ball's). */
+/**
+ * Where to start the search, as a search of the same ball on a nearby condition left it (PocketLine.settled): the
+ * launch it settled on, the target its last walk to the valley floor started from, and what its scan found (a hold
+ * area, a ball well short of the pocket). With both boards given the search skips the scan across the lane and the
+ * launch steps already taken, and repeats only that last walk (a warm start: on the same condition it takes the same
+ * steps to the same line); otherwise it starts cold.
+ */
 export interface PocketLineHint {
   launchBoards?: number;
   targetBoard?: number;
+  valley?: boolean;
+  light?: boolean;
 }
 
 /** The little of a delivery the line search reads (a full delivery or a preview). */
@@ -84,6 +94,7 @@ export function solvePocketLine(
   return {
     laydownBoard: b.l, targetBoard: guide.targetBoard, result: b.r, reached, evaluations, launchBoards: b.l - guide.targetBoard,
     reason: reached ? '' : guide.reason || 'No line found that reaches the pocket.', miss: reached ? null : guide.miss ?? (b.r.entryBoard > P ? 'high' : 'light'),
+    ...(guide.settled ? { settled: guide.settled } : {}),
   };
 }
 
@@ -107,13 +118,14 @@ function searchLine<T extends LineTrial>(
     if (choosing && (chosen === null || m < chosen.m)) chosen = { l, t, r, m };
     return r;
   };
+  let settled: PocketLineHint | undefined;
   const finish = (miss: 'high' | 'light' | null, reason: string): Omit<PocketLine, 'result'> & { result: T } => {
     const c = chosen as { l: number; t: number; r: T; m: number } | null;
     const b = (c !== null && c.m <= K.solverTolBoards ? c : best) as unknown as { l: number; t: number; r: T; m: number };
     const reached = Math.abs(b.r.entryBoard - P) <= K.solverTolBoards && ok(b.r);
     return {
       laydownBoard: b.l, targetBoard: b.t, result: b.r, reached, evaluations, launchBoards: b.l - b.t,
-      reason: reached ? '' : reason, miss: reached ? null : miss ?? (b.r.entryBoard > P ? 'high' : 'light'),
+      reason: reached ? '' : reason, miss: reached ? null : miss ?? (b.r.entryBoard > P ? 'high' : 'light'), ...(settled ? { settled } : {}),
     };
   };
   const arrowsToPins = C.headpinFt / C.arrowsFt;
@@ -178,15 +190,21 @@ function searchLine<T extends LineTrial>(
     return { fl: floorOf(d, pts), pts };
   };
 
-  // 1. The bowler's usual launch: look across the lane for the lowest entry (the floor of the valley).
-  let d = clampD(hint.launchBoards ?? K.solverFirstLaunchBoards);
+  // 1. The bowler's usual launch: look across the lane for the lowest entry (the floor of the valley); warm: walk
+  //    to the floor from where the last search of this ball settled.
+  const usualD = clampD(K.solverFirstLaunchBoards);
+  const warm = hint.launchBoards !== undefined && hint.targetBoard !== undefined && Number.isFinite(hint.launchBoards) && Number.isFinite(hint.targetBoard);
+  let d = warm ? clampD(hint.launchBoards!) : usualD;
   let pts: Sample[];
   let fl: Sample;
-  if (hint.targetBoard === undefined) {
+  /** The target the last walk to the floor started from (undefined: the floor is the scan's). */
+  let walkFrom: number | undefined;
+  if (!warm) {
     pts = scan(d, 4, 29, 5);
     fl = floorOf(d, pts);
   } else {
-    ({ fl, pts } = floorNear(d, hint.targetBoard));
+    walkFrom = hint.targetBoard!;
+    ({ fl, pts } = floorNear(d, walkFrom));
   }
   // A hold area: somewhere at least minTargetBoard from the gutter, two neighbouring lines on the lane whose entries
   // differ by at most holdSlope boards per board of shift (a miss outward finds friction and comes back, a miss
@@ -199,13 +217,13 @@ function searchLine<T extends LineTrial>(
     }
     return false;
   };
-  const valley = fl.t >= K.minTargetBoard && holdAt(pts);
+  const valley = fl.t >= K.minTargetBoard && (warm && hint.valley !== undefined ? hint.valley : holdAt(pts));
 
   // 2. Open or close the launch until the floor sits on the pocket (each board of launch moves a straight line
   //    3 boards at the pins; a secant step once two floors are known). Without a hold area a ball that hooks past
   //    the pocket from every line opens up, and one whose floor ends well short of it straightens; otherwise the
   //    bowler keeps the usual launch.
-  const light = fl.e < P - K.straightenBelowBoards;
+  const light = warm && hint.light !== undefined ? hint.light : fl.e < P - K.straightenBelowBoards;
   if (valley || light || fl.e > P + K.solverTolBoards) {
     let prev: { d: number; e: number } | null = null;
     for (let i = 0; i < 5 && Math.abs(fl.e - P) > 0.3; i++) {
@@ -216,16 +234,21 @@ function searchLine<T extends LineTrial>(
       if (Math.abs(next - d) < 1e-3) break; // pinned at an end of the launch range
       prev = { d, e: fl.e };
       d = next;
-      ({ fl, pts } = floorNear(d, fl.t));
+      walkFrom = fl.t;
+      ({ fl, pts } = floorNear(d, walkFrom));
     }
   }
+  // A later search of this ball starts from here when the launch moved (a floor the scan found is found by scanning).
+  if (walkFrom !== undefined) settled = { launchBoards: d, targetBoard: walkFrom, valley, light };
   if (fl.e > P + 0.3 && d >= dMax - 1e-6) {
     return finish('high', `Hooks past the pocket from every line, even launched ${Math.round(dMax / 3)}° out across the lane: too much ball for this condition and release.`);
   }
   const [lo, hi] = tRange(d);
+  const usual = Math.abs(d - usualD) < 1e-6;
+  // the deepest line of the scan at the usual launch (a warm start did not scan: it throws that one line)
+  const scanTop = (): number => { const from = Math.max(lo, 4); return from + 5 * Math.floor((Math.min(hi, 29) + 1e-9 - from) / 5); };
+  const inner = warm && !valley && usual && fl.e <= P ? sample(d, scanTop()) : pts.reduce((m, q) => (q.t > m.t ? q : m));
   choosing = true;
-  const usual = Math.abs(d - clampD(hint.launchBoards ?? K.solverFirstLaunchBoards)) < 1e-6;
-  const inner = pts.reduce((m, q) => (q.t > m.t ? q : m));
   if (!valley && usual && fl.e <= P && inner.e < P && ok(inner.r)) {
     // 3d. A weak ball that falls short of the pocket from the deepest line at the usual launch: straighten the
     //     launch (the laydown moves toward the target) until it gets there.

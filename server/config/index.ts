@@ -85,6 +85,8 @@ const ConfigSchema = z
     /** Prometheus metrics at /metrics on their own listener (METRICS_HOST, loopback by default), no token; unset: none. */
     METRICS_PORT: z.preprocess(blankToUndefined, z.coerce.number().int().min(0).max(65535).optional()),
     METRICS_HOST: z.string().default('127.0.0.1'),
+    /** How long a process keeps a signed-in user's row and a user's list pages (ms); entries are dropped at once when the rows change (PostgreSQL's change feed). 0 = no caching. */
+    CACHE_TTL_MS: z.coerce.number().int().min(0).max(600000).default(10000),
     /** Port of the in-process payment fake (0 = a free one). */
     STRIPE_FAKE_PORT: z.coerce.number().int().min(0).max(65535).default(0),
   })

@@ -12,6 +12,7 @@ import { config } from '../config/index';
 import { AppError } from './AppError';
 import { logger } from './logger';
 import { rankingSeconds } from './metrics';
+import type { RankTask, StatsParts, StatsTask } from './engineWorker';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 
@@ -106,16 +107,22 @@ function compileWorker(): string {
   return out;
 }
 
-function getPool(): Piscina {
-  if (pool) return pool;
-  const started = Date.now();
-  let filename = builtWorker();
-  if (!filename) {
+/** The worker's file: the build's, else (development) compiled once per process. */
+function workerFile(): string {
+  const built = builtWorker();
+  if (built) return built;
+  if (!compiled) {
     compiled = compileWorker();
     const file = compiled;
     process.once('exit', () => fs.rmSync(file, { force: true }));
-    filename = compiled;
   }
+  return compiled;
+}
+
+function getPool(): Piscina {
+  if (pool) return pool;
+  const started = Date.now();
+  const filename = workerFile();
   pool = new Piscina({ filename, minThreads: engineThreads, maxThreads: engineThreads, idleTimeout: Infinity });
   pool.on('error', (err: unknown) => logger.error({ err }, 'engine worker failed'));
   logger.debug({ threads: engineThreads, queue: engineQueueLimit, ms: Date.now() - started }, 'engine pool ready');
@@ -127,14 +134,38 @@ export function warmEnginePool(): void {
   getPool();
 }
 
-/** rankArsenal in a worker thread; an aborted signal (the client went away) drops the task while it waits. */
+/**
+ * rankArsenal in a worker thread. An aborted signal (the client went away) drops the task while it waits, and once it
+ * runs raises a flag the thread reads between balls: the ranking stops there and the thread takes the next task
+ * (a thread is never terminated, so no ranking waits for a new one to start).
+ */
 export function rankInWorker(input: RankArsenalInput, signal?: AbortSignal): Promise<RankedBall[]> {
-  return runTask<RankedBall[]>('rank', input, signal);
+  const abort = new Int32Array(new SharedArrayBuffer(4));
+  const raise = () => Atomics.store(abort, 0, 1);
+  signal?.addEventListener('abort', raise, { once: true });
+  const task: RankTask = { input, abort };
+  return runTask<RankedBall[]>('rank', task, signal).finally(() => signal?.removeEventListener('abort', raise));
 }
 
 /** fitCalibration in a worker thread (about 25 ms of model deliveries per logged shot: too slow for the request thread). */
 export function calibrateInWorker(input: Parameters<typeof fitCalibration>[0], signal?: AbortSignal): Promise<Calibration> {
   return runTask<Calibration>('calibrate', input, signal);
+}
+
+/**
+ * Shot statistics over a season (thousands of shots: hundreds of milliseconds) run on a thread of their own, one at a
+ * time, so they hold neither the event loop nor the ranking threads. Started on first use; it stays.
+ */
+let statsPool: Piscina | null = null;
+
+export function statsInWorker(task: StatsTask): Promise<StatsParts> {
+  statsPool ??= new Piscina({ filename: workerFile(), minThreads: 1, maxThreads: 1, idleTimeout: Infinity });
+  return statsPool.run(task, { name: 'stats' }) as Promise<StatsParts>;
+}
+
+/** The ids of the pool's threads (tests: a thread is never replaced after an aborted ranking). */
+export function engineThreadIds(): number[] {
+  return (pool?.threads ?? []).map((t) => t.threadId);
 }
 
 /** Tasks waiting for a thread and threads in use (health and tests). */
@@ -146,6 +177,11 @@ export async function closeEnginePool(): Promise<void> {
   if (pool) {
     const p = pool;
     pool = null;
+    await p.destroy();
+  }
+  if (statsPool) {
+    const p = statsPool;
+    statsPool = null;
     await p.destroy();
   }
   if (compiled) {

@@ -1,6 +1,8 @@
-import { Op, literal, type CreationAttributes, type InferAttributes, type Transaction, type WhereOptions } from 'sequelize';
+import { QueryTypes, type CreationAttributes, type InferAttributes, type Transaction } from 'sequelize';
 import type { ArsenalQuery, Ball as BallDto, SurfaceEvent as SurfaceEventDto } from '../../../shared/balls';
-import { Ball, SurfaceEvent } from '../../models/index';
+import { config } from '../../config/index';
+import { ScopedCache } from '../../lib/changeFeed';
+import { Ball, sequelize, SurfaceEvent } from '../../models/index';
 import { likeText } from '../catalogue/catalogue.repository';
 
 export function toSurfaceEventDto(e: SurfaceEvent): SurfaceEventDto {
@@ -40,24 +42,56 @@ export function toBallDto(b: BallRow): BallDto {
 
 type BallCreation = CreationAttributes<Ball>;
 
+/** The columns toBallDto reads, named as the model's attributes. */
+const BALL_COLUMNS = [
+  'id', 'ball_model_id AS "ballModelId"', 'maker', 'name', 'nickname', 'weight_lb AS "weightLb"', 'rg', 'differential',
+  'intermediate_differential AS "intermediateDifferential"', 'cover_type AS "coverType"', 'core_type AS "coreType"', 'hardness_d AS "hardnessD"',
+  'approval_year AS "approvalYear"', 'surface_grit AS "surfaceGrit"', 'polished', 'layout', 'photo_upload_id AS "photoUploadId"',
+  'games_since_resurface AS "gamesSinceResurface"', 'status', 'version', 'created_at AS "createdAt"', 'updated_at AS "updatedAt"',
+].join(', ');
+
+/** The sorts the arsenal list offers, as columns (each has an index led by owner_id). */
+const ARSENAL_SORT: Record<ArsenalQuery['sort'], string> = {
+  name: 'name', coverType: 'cover_type', rg: 'rg', differential: 'differential', surfaceGrit: 'surface_grit', gamesSinceResurface: 'games_since_resurface', createdAt: 'created_at',
+};
+
+/**
+ * Each owner's arsenal pages as answered (server/lib/changeFeed.ts: dropped when any of the owner's balls changes,
+ * in this process when the change commits, in the others by the database's change feed).
+ */
+export const arsenalPages = new ScopedCache<{ rows: BallRow[]; count: number }>('balls', { ttlMs: config.CACHE_TTL_MS, maxIds: 5_000 });
+
+// Every saved, deleted or restored ball drops its owner's pages when the change commits.
+const forgetOwner = (b: Ball, options: { transaction?: Transaction | null }) => {
+  arsenalPages.invalidate(b.ownerId);
+  options.transaction?.afterCommit(() => arsenalPages.invalidate(b.ownerId));
+};
+for (const hook of ['afterSave', 'afterDestroy', 'afterRestore'] as const) Ball.addHook(hook, forgetOwner);
+Ball.addHook('afterBulkCreate', (balls: Ball[], options: { transaction?: Transaction | null }) => {
+  for (const b of balls) forgetOwner(b, options);
+});
+
 export const arsenalRepository = {
-  /** One page and the total in one query (COUNT(*) OVER ()), as plain rows: the arsenal list is the hottest read. */
+  /**
+   * One page of the owner's arsenal and the total, as plain rows (no model instances: building them cost more than the
+   * query). The page reads only its rows in sort order (an index per sort, migration 20261222-0010); the total is
+   * counted apart from it.
+   */
   async list(ownerId: number, q: ArsenalQuery): Promise<{ rows: BallRow[]; count: number }> {
-    const where: Record<string | symbol, unknown> = { ownerId };
-    if (q.coverType) where.coverType = q.coverType;
-    if (q.status) where.status = q.status;
-    if (q.q) where[Op.or] = [{ name: { [Op.iLike]: likeText(q.q) } }, { nickname: { [Op.iLike]: likeText(q.q) } }, { maker: { [Op.iLike]: likeText(q.q) } }];
-    const rows = (await Ball.findAll({
-      where: where as WhereOptions<Ball>,
-      attributes: { include: [[literal('COUNT(*) OVER ()'), 'fullCount']] },
-      order: [[q.sort, q.order.toUpperCase()], ['id', 'ASC']],
-      limit: q.pageSize,
-      offset: (q.page - 1) * q.pageSize,
-      raw: true,
-    })) as unknown as (BallRow & { fullCount: string })[];
-    // Past the last page there is no row to carry the total: count separately.
-    const count = rows.length ? Number(rows[0].fullCount) : await Ball.count({ where: where as WhereOptions<Ball> });
-    return { rows, count };
+    const conds = ['owner_id = :ownerId', 'deleted_at IS NULL'];
+    if (q.coverType) conds.push('cover_type = :coverType');
+    if (q.status) conds.push('status = :status');
+    if (q.q) conds.push('(name ILIKE :like OR nickname ILIKE :like OR maker ILIKE :like)');
+    const where = conds.join(' AND ');
+    const replacements = { ownerId, coverType: q.coverType ?? null, status: q.status ?? null, like: q.q ? likeText(q.q) : null, limit: q.pageSize, offset: (q.page - 1) * q.pageSize };
+    const [rows, counted] = await Promise.all([
+      sequelize.query<BallRow>(
+        `SELECT ${BALL_COLUMNS} FROM balls WHERE ${where} ORDER BY ${ARSENAL_SORT[q.sort]} ${q.order === 'desc' ? 'DESC' : 'ASC'}, id ASC LIMIT :limit OFFSET :offset`,
+        { replacements, type: QueryTypes.SELECT },
+      ),
+      sequelize.query<{ n: number }>(`SELECT count(*)::int AS n FROM balls WHERE ${where}`, { replacements, type: QueryTypes.SELECT }),
+    ]);
+    return { rows, count: counted[0]?.n ?? 0 };
   },
   /** The owner's ball, or null (also for another owner's ball, so existence never leaks). */
   findOwned(ownerId: number, id: number, opts: { withHistory?: boolean; transaction?: Transaction; paranoid?: boolean } = {}): Promise<Ball | null> {

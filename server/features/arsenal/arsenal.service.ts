@@ -15,7 +15,8 @@ import { sequelize, Upload } from '../../models/index';
 import { decodeImage, storage } from '../../lib/storage';
 import { catalogueRepository } from '../catalogue/catalogue.repository';
 import { refitBowlerAfterCommit } from '../stats/calibrationJobs';
-import { arsenalRepository, toBallDto } from './arsenal.repository';
+import { hasReplicas } from '../../db/sequelize';
+import { arsenalPages, arsenalRepository, toBallDto } from './arsenal.repository';
 
 /** A row of the arsenal CSV: a hand-entered ball whose pin-to-PAP may be written as a pro shop writes it ("4 3/8", "4-3/8", "4.375"). */
 const ArsenalCsvRowSchema = BallByHandSchema.extend({ layout: LayoutSchema.extend({ pinToPapIn: PinToPapTextSchema }).nullable().optional() });
@@ -30,7 +31,14 @@ const notFound = () => AppError.notFound('Ball');
 
 export const arsenalService = {
   async list(ownerId: number, q: ArsenalQuery): Promise<Page<BallDto>> {
-    const { rows, count } = await arsenalRepository.list(ownerId, q);
+    const key = JSON.stringify(q);
+    let page = arsenalPages.get(ownerId, key);
+    if (!page) {
+      const ticket = arsenalPages.ticket(ownerId);
+      page = await arsenalRepository.list(ownerId, q);
+      if (!hasReplicas) arsenalPages.set(ticket, key, page); // a replica's read may lag a change already heard
+    }
+    const { rows, count } = page;
     return { items: rows.map(toBallDto), total: count, page: q.page, pageSize: q.pageSize };
   },
 

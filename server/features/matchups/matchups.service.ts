@@ -4,7 +4,9 @@ import { laneSurfaceText } from '../../../shared/centers';
 import type { MatchupCalibration, MatchupRanking, MatchupRequest, MatchupResult } from '../../../shared/matchups';
 import { createHash } from 'node:crypto';
 import { LRUCache } from 'lru-cache';
+import simplify from 'simplify-js';
 import type { Calibration } from '../../../engine/shotlog/types';
+import type { ShotPrediction } from '../../../engine/index';
 import { AppError } from '../../lib/AppError';
 import { rankInWorker } from '../../lib/enginePool';
 import { logger } from '../../lib/logger';
@@ -20,13 +22,46 @@ export type { MatchupRanking, MatchupResult };
  * their current specs, surfaces, wear and labels, the bowler's release, the pattern's sweeps, the lane surface,
  * games bowled, the calibration). Any change to one of them is a different key; nothing has to be invalidated.
  */
-const rankingCache = new LRUCache<string, RankedBall[]>({ max: 500 });
+/**
+ * A predicted path at the resolution the lane view draws: the lane view (client MatchupLaneView, 300 × 660 px) gives
+ * a board about 6 px and a foot about 10 px, so points a straight line through their neighbours passes within
+ * PATH_TOLERANCE_BOARDS of are dropped (Ramer–Douglas–Peucker, simplify-js) and the rest rounded to a hundredth of
+ * a board and a tenth of a foot and of a mph. The first and last points always stay. Every other figure of the
+ * prediction (entry, breakpoint, roll) is the engine's, unrounded.
+ */
+export const PATH_TOLERANCE_BOARDS = 0.05;
 
+export function pathForLaneView(path: ShotPrediction['path']): ShotPrediction['path'] {
+  if (path.length <= 2) return path;
+  const byPoint = new Map<{ x: number; y: number }, ShotPrediction['path'][number]>();
+  const pts = path.map((p) => {
+    const q = { x: p.board, y: p.ft };
+    byPoint.set(q, p);
+    return q;
+  });
+  const r = (x: number, k: number) => Math.round(x * k) / k;
+  return simplify(pts, PATH_TOLERANCE_BOARDS, true).map((q) => {
+    const p = byPoint.get(q)!;
+    return { ft: r(p.ft, 10), board: r(p.board, 100), speedMph: r(p.speedMph, 10) };
+  });
+}
+
+const rankingCache = new LRUCache<string, RankedBall[]>({ max: 500, maxSize: 3_000, sizeCalculation: (ranked) => Math.max(1, ranked.length) });
+
+/** A ranking as kept and sent: each path at the lane view's resolution (pathForLaneView). */
+function trimmed(ranked: RankedBall[]): RankedBall[] {
+  return ranked.map((r) => {
+    const prediction = (r as RankedBall & { prediction?: ShotPrediction | null }).prediction;
+    return prediction ? ({ ...r, prediction: { ...prediction, path: pathForLaneView(prediction.path) } } as RankedBall) : r;
+  });
+}
+
+/** At most 3 000 ranked balls are kept (200 rankings of 15), their paths trimmed: a few megabytes, whatever the load. */
 async function rankCached(input: RankArsenalInput, signal?: AbortSignal): Promise<RankedBall[]> {
   const key = createHash('sha256').update(JSON.stringify(input)).digest('base64url');
   const hit = rankingCache.get(key);
   if (hit) return hit;
-  const ranked = await rankInWorker(input, signal);
+  const ranked = trimmed(await rankInWorker(input, signal));
   rankingCache.set(key, ranked);
   return ranked;
 }
@@ -50,10 +85,13 @@ export const matchupsService = {
   async run(user: AuthUser, req: MatchupRequest, signal?: AbortSignal): Promise<MatchupResult> {
     // A linked coach ranks a student's arsenal; anyone else asking for another bowler gets 404.
     const bowlerId = await readableBowlerId(user, req.studentId);
-    const on = await engineCondition({ patternId: req.patternId, conditionId: req.conditionId, lane: req.lane });
+    // The condition, the release and the balls are independent reads: asked for together.
+    const [on, bowler, rows] = await Promise.all([
+      engineCondition({ patternId: req.patternId, conditionId: req.conditionId, lane: req.lane }),
+      bowlerOf(bowlerId) as Promise<BowlerProfile>,
+      arsenalRepository.findOwnedMany(bowlerId, req.ballIds),
+    ]);
     const { pattern, lane } = on;
-    const bowler: BowlerProfile = await bowlerOf(bowlerId);
-    const rows = await arsenalRepository.findOwnedMany(bowlerId, req.ballIds);
     if (req.ballIds && rows.length !== new Set(req.ballIds).size) throw AppError.notFound('Ball');
     const balls = rows.filter((b) => req.ballIds || b.status === 'active').map(toBallDto);
     const byId = new Map(balls.map((b) => [String(b.id), b]));

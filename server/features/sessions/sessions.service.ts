@@ -1,4 +1,5 @@
 import { createHash } from 'node:crypto';
+import { changedAfterCommit } from '../../lib/changeFeed';
 import { UniqueConstraintError, type Transaction } from 'sequelize';
 import { buildGame, checkDelivery, shotStats, suggestMoves } from '../../../engine/index';
 import type { LoggedDelivery } from '../../../engine/shotlog/types';
@@ -157,6 +158,7 @@ export const sessionsService = {
         if (!s || s.userId !== user.id) throw notFound();
         const raced = await sessionsRepository.findShotByKey(sessionId, key, transaction);
         if (raced) return replay(raced);
+        changedAfterCommit('shots', s.userId, transaction); // the bowler's kept statistics
         return { status: 201 as const, body: await insertShot(s, key, hash, body, transaction) };
       });
     } catch (err) {
@@ -178,6 +180,7 @@ export const sessionsService = {
       const game = await sessionsRepository.gameShots(sessionId, shot.gameNumber, transaction);
       if (game.at(-1)!.id !== shot.id) throw AppError.conflict('not_last_shot', `Only the last delivery of game ${shot.gameNumber} can be undone`);
       await shot.destroy({ transaction });
+      changedAfterCommit('shots', s.userId, transaction); // the bowler's kept statistics
     });
   },
 

@@ -1,6 +1,7 @@
 import { createHash } from 'node:crypto';
-import { Op } from 'sequelize';
-import { CALIBRATION, fitCalibration, shotStats, statsBy, suggestMoves } from '../../../engine/index';
+import pLimit from 'p-limit';
+import { Op, type Transaction } from 'sequelize';
+import { CALIBRATION, fitCalibration } from '../../../engine/index';
 import type { Calibration, CalibrationObservation, ShotRecord } from '../../../engine/shotlog/types';
 import type { BallSpec, BowlerProfile, LaneSurface, OilPattern } from '../../../engine/types';
 import { ballToSpec } from '../../../shared/balls';
@@ -9,9 +10,12 @@ import type { PatternSummary } from '../../../shared/patterns';
 import type { CalibrationQuery, StatsQuery, StatsResult } from '../../../shared/sessions';
 import type { AuthUser } from '../../middleware/auth';
 import { AppError } from '../../lib/AppError';
-import { calibrateInWorker } from '../../lib/enginePool';
+import { config } from '../../config/index';
+import { hasReplicas } from '../../db/sequelize';
+import { changedAfterCommit, ScopedCache, type CacheTicket } from '../../lib/changeFeed';
+import { calibrateInWorker, statsInWorker } from '../../lib/enginePool';
 import { calibrationFitSeconds } from '../../lib/metrics';
-import { Ball, CalibrationFit } from '../../models/index';
+import { Ball, BowlingSession, CalibrationFit } from '../../models/index';
 import { centersRepository, laneOf } from '../centers/centers.repository';
 import { readableBowlerId } from '../coaching/coaching.access';
 import { requestCalibrationFit, type FitRequest } from './calibrationJobs';
@@ -100,14 +104,38 @@ function subjectOf(pattern: OilPattern, lane: LaneSurface): { laneKind: LaneSurf
   return { laneKind: lane.kind, laneFriction: lane.friction, patternHash: sha256(pattern) };
 }
 
-/** The input of a bowler's fit on a pattern and lane surface: their logged shots on the pattern, the balls as thrown, the release. */
-async function fitInput(bowlerId: number, patternId: number, known: { rows?: ShotRow[]; pattern?: OilPattern; bowler?: BowlerProfile; lane?: LaneSurface } = {}): Promise<FitInput> {
-  const pattern = known.pattern ?? (await patternsService.engineInput(patternId)).pattern;
-  const shots = known.rows ?? (await sessionsRepository.shotsForStats(bowlerId, { patternId }));
+/**
+ * A bowler's calibration observations on a pattern (at most CALIBRATION_SHOTS_PER_BALL per ball), kept while none of
+ * their shots, sessions or balls change (server/lib/changeFeed.ts): a page that shows the calibration reads no shots.
+ */
+const observationsCache = new ScopedCache<CalibrationObservation[]>(['shots', 'balls'], { ttlMs: config.CACHE_TTL_MS, maxIds: 5_000 });
+
+/** The observations of the bowler's shots on a pattern, from rows already read (`rows`) or read now. */
+async function observationsFor(bowlerId: number, patternId: number, rows?: { rows: ShotRow[]; ticket: CacheTicket }): Promise<CalibrationObservation[]> {
+  const key = String(patternId);
+  if (!rows) {
+    const hit = observationsCache.get(bowlerId, key);
+    if (hit) return hit;
+  }
+  const ticket = rows?.ticket ?? observationsCache.ticket(bowlerId);
+  const shots = rows?.rows ?? (await sessionsRepository.shotsForStats(bowlerId, { patternId }));
   const ids = [...new Set(shots.map((r) => r.ball_id))];
   const balls = new Map((ids.length ? await Ball.findAll({ where: { ownerId: bowlerId, id: { [Op.in]: ids } }, paranoid: false }) : []).map((b) => [b.id, b]));
+  const observations = observationsOf(shots, balls);
+  if (!hasReplicas) observationsCache.set(ticket, key, observations);
+  return observations;
+}
+
+/** The input of a bowler's fit on a pattern and lane surface: their logged shots on the pattern, the balls as thrown, the release. */
+async function fitInput(
+  bowlerId: number,
+  patternId: number,
+  known: { rows?: ShotRow[]; rowsTicket?: CacheTicket; pattern?: OilPattern; bowler?: BowlerProfile; lane?: LaneSurface } = {},
+): Promise<FitInput> {
+  const pattern = known.pattern ?? (await patternsService.engineInput(patternId)).pattern;
+  const observations = await observationsFor(bowlerId, patternId, known.rows ? { rows: known.rows, ticket: known.rowsTicket ?? observationsCache.ticket(bowlerId) } : undefined);
   const lane = known.lane ?? DEFAULT_LANE_SURFACE;
-  return { bowler: known.bowler ?? (await bowlerOf(bowlerId)), pattern, observations: observationsOf(shots, balls), lane: { kind: lane.kind, friction: lane.friction } };
+  return { bowler: known.bowler ?? (await bowlerOf(bowlerId)), pattern, observations, lane: { kind: lane.kind, friction: lane.friction } };
 }
 
 /** The input of the fit a request names, with the pattern id its shots are logged on; null when the pattern or condition is gone. */
@@ -155,7 +183,7 @@ export async function runCalibrationFit(req: FitRequest): Promise<'fitted' | 'cu
 export async function calibrationFor(
   bowlerId: number,
   patternId: number,
-  known: { rows?: ShotRow[]; pattern?: OilPattern; bowler?: BowlerProfile; lane?: LaneSurface; conditionId?: number } = {},
+  known: { rows?: ShotRow[]; rowsTicket?: CacheTicket; pattern?: OilPattern; bowler?: BowlerProfile; lane?: LaneSurface; conditionId?: number } = {},
 ): Promise<Calibration> {
   const input = await fitInput(bowlerId, patternId, known);
   if (input.observations.length === 0) return fitCalibration(input);
@@ -205,39 +233,93 @@ export async function engineCondition(ref: { patternId?: number; conditionId?: n
   return { patternId: id, name, pattern, summary, lane: { kind: lane.kind, friction: lane.friction }, condition: null };
 }
 
+/** The computed statistics of a bowler per filter and hand (dropped when their shots, sessions or balls change). */
+type StatsParts = Omit<StatsResult, 'calibration' | 'calibrationPatternId' | 'calibrationLane'>;
+const statsCache = new ScopedCache<StatsParts>(['shots', 'balls'], { ttlMs: config.CACHE_TTL_MS, maxIds: 2_000, maxPerId: 8 });
+
+/** Season computations running at once in this process (one reading its shots while one is on the stats thread). */
+export const SEASONS_AT_ONCE = 2;
+const seasonLimit = pLimit(SEASONS_AT_ONCE);
+const inFlight = new Map<string, { ticket: CacheTicket; answer: Promise<{ parts: StatsParts; rowsForCalibration?: { rows: ShotRow[]; ticket: CacheTicket } }> }>();
+
+/**
+ * The statistics of the bowler's shots under a filter: the bowler's shots read once (shared with the calibration,
+ * whose pattern's rows are handed back), computed on the stats thread, kept.
+ */
+async function computeParts(bowlerId: number, q: StatsQuery, key: string, hand: 'right' | 'left', calibrationPatternId: number | null, ticket: CacheTicket) {
+  const kept = statsCache.get(bowlerId, key); // a computation that finished while this one waited for its turn
+  if (kept) return { parts: kept };
+  const all = await sessionsRepository.shotsForStats(bowlerId, {});
+  const rows = all.filter((r) => (!q.from || r.date! >= q.from) && (!q.to || r.date! <= q.to) && (!q.ballId || r.ball_id === q.ballId) && (!q.patternId || r.pattern_id === q.patternId));
+  const records: ShotRecord[] = rows.map((r) => toShotRecord(r, r.date!));
+  const computed = await statsInWorker({ records, hand });
+  const names = new Map(rows.map((r) => [String(r.ball_id), r.ball_name]));
+  const dates = new Map(rows.map((r) => [String(r.session_id), r.date!]));
+  const parts: StatsParts = {
+    overall: computed.overall,
+    byBall: computed.byBall.map((g) => ({ ballId: Number(g.key), name: names.get(g.key) ?? '', stats: g.stats })),
+    // Grouped within each full game, so a spare thrown with another ball keeps its leave.
+    bySurface: computed.bySurface.map((g) => ({ ballId: Number(g.keys.ballId), name: names.get(g.keys.ballId!) ?? '', surfaceKey: g.keys.surfaceKey!, stats: g.stats })),
+    trend: computed.bySession
+      .map((g) => ({ sessionId: Number(g.key), date: dates.get(g.key)!, games: g.stats.games, average: g.stats.average, strikePct: g.stats.strike.pct, sparePct: g.stats.spare.pct }))
+      .sort((a, b) => a.date.localeCompare(b.date) || a.sessionId - b.sessionId),
+    moves: computed.moves,
+  };
+  if (!hasReplicas) statsCache.set(ticket, key, parts);
+  return { parts, ...(calibrationPatternId !== null ? { rowsForCalibration: { rows: all.filter((r) => r.pattern_id === calibrationPatternId), ticket } } : {}) };
+}
+
+// A session saved, deleted or restored in this process drops its bowler's kept statistics when it commits.
+for (const hook of ['afterSave', 'afterDestroy', 'afterRestore'] as const) {
+  BowlingSession.addHook(hook, (session: BowlingSession, options: { transaction?: Transaction | null }) => changedAfterCommit('shots', session.userId, options.transaction));
+}
+
 export const statsService = {
-  /** Statistics over the filtered shots (one query for all sessions), per ball, per ball and surface, per session, with moves and the calibration. */
+  /**
+   * Statistics over the filtered shots, per ball, per ball and surface, per session, with moves and the calibration.
+   * At most one shot query per request, shared by the statistics and the calibration (the bowler's shots, filtered
+   * here); the statistics are computed on their own thread (statsInWorker: a season of shots takes hundreds of
+   * milliseconds) and kept per bowler, filter and hand until the bowler's shots, sessions or balls change, so a page
+   * shown again reads no shots at all.
+   */
   async stats(user: AuthUser, q: StatsQuery): Promise<StatsResult> {
     const bowlerId = await readableBowlerId(user, q.studentId);
-    const rows = await sessionsRepository.shotsForStats(bowlerId, q);
-    const records: ShotRecord[] = rows.map((r) => toShotRecord(r, r.date!));
-    const names = new Map(rows.map((r) => [String(r.ball_id), r.ball_name]));
-    const dates = new Map(rows.map((r) => [String(r.session_id), r.date!]));
-    const { hand } = await bowlerOf(bowlerId);
-    const calibrationPatternId = q.patternId ?? (await sessionsRepository.latestPatternId(bowlerId));
+    const [{ hand }, latestPattern] = await Promise.all([bowlerOf(bowlerId), q.patternId ? Promise.resolve(q.patternId) : sessionsRepository.latestPatternId(bowlerId)]);
+    const calibrationPatternId = latestPattern;
+    const key = JSON.stringify({ from: q.from, to: q.to, ballId: q.ballId, patternId: q.patternId, hand });
+    let parts = statsCache.get(bowlerId, key);
+    let rowsForCalibration: { rows: ShotRow[]; ticket: CacheTicket } | undefined;
+    if (!parts) {
+      // One computation per bowler and filter at a time (a request that finds one running waits for its answer), and
+      // at most SEASONS_AT_ONCE in the process: each holds a season of rows, so memory stays bounded under any load.
+      // A running computation is joined only if nothing of the bowler's changed since it started.
+      const flightKey = `${bowlerId}:${key}`;
+      const running = inFlight.get(flightKey);
+      if (running && !statsCache.changedSince(running.ticket)) {
+        ({ parts } = await running.answer);
+      } else {
+        const ticket = statsCache.ticket(bowlerId);
+        const answer = seasonLimit(() => computeParts(bowlerId, q, key, hand, calibrationPatternId, ticket));
+        const flight = { ticket, answer };
+        inFlight.set(flightKey, flight);
+        try {
+          ({ parts, rowsForCalibration } = await answer);
+        } finally {
+          if (inFlight.get(flightKey) === flight) inFlight.delete(flightKey);
+        }
+      }
+    }
     let calibration: Calibration | null = null;
     // The lanes the bowler last bowled this pattern on (a published condition's lane surface), as a matchup there would use.
     const calibrationLane = calibrationPatternId === null ? null : ((await sessionsRepository.latestConditionLane(bowlerId, calibrationPatternId)) ?? { ...DEFAULT_LANE_SURFACE });
     if (calibrationPatternId !== null) {
       try {
-        calibration = await calibrationFor(bowlerId, calibrationPatternId, { ...(q.patternId && !q.from && !q.to && !q.ballId ? { rows } : {}), lane: calibrationLane ?? undefined });
+        calibration = await calibrationFor(bowlerId, calibrationPatternId, { ...(rowsForCalibration ? { rows: rowsForCalibration.rows, rowsTicket: rowsForCalibration.ticket } : {}), lane: calibrationLane ?? undefined });
       } catch (err) {
         if (!(err instanceof AppError)) throw err; // an unknown pattern simply has no calibration
       }
     }
-    return {
-      overall: shotStats(records),
-      byBall: statsBy(records, 'ballId').map((g) => ({ ballId: Number(g.key), name: names.get(g.key) ?? '', stats: g.stats })),
-      // Grouped within each full game, so a spare thrown with another ball keeps its leave.
-      bySurface: statsBy(records, ['ballId', 'surfaceKey']).map((g) => ({ ballId: Number(g.keys.ballId), name: names.get(g.keys.ballId!) ?? '', surfaceKey: g.keys.surfaceKey!, stats: g.stats })),
-      trend: statsBy(records, 'sessionId')
-        .map((g) => ({ sessionId: Number(g.key), date: dates.get(g.key)!, games: g.stats.games, average: g.stats.average, strikePct: g.stats.strike.pct, sparePct: g.stats.spare.pct }))
-        .sort((a, b) => a.date.localeCompare(b.date) || a.sessionId - b.sessionId),
-      moves: suggestMoves({ shots: records, hand }),
-      calibration,
-      calibrationPatternId,
-      calibrationLane,
-    };
+    return { ...parts, calibration, calibrationPatternId, calibrationLane };
   },
 
   /** The calibration a matchup on this pattern and lane surface (or this published condition) applies. */

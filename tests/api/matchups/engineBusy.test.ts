@@ -9,7 +9,7 @@ vi.hoisted(() => {
 
 const { api, createUser, errorOf } = await import('../../helpers/api');
 const { createBall, createPattern } = await import('../../helpers/fixtures');
-const { engineQueueLimit, engineQueueWaitMs, engineThreads, rankInWorker, warmEnginePool } = await import('../../../server/lib/enginePool');
+const { engineLoad, engineQueueLimit, engineQueueWaitMs, engineThreadIds, engineThreads, rankInWorker, warmEnginePool } = await import('../../../server/lib/enginePool');
 const { AppError } = await import('../../../server/lib/AppError');
 const { longHeavy, polishedPearl, roughAsymSolid, typicalBowler, urethaneBall } = await import('../../engine/fixtures');
 
@@ -66,6 +66,23 @@ describe('the ranking queue is bounded', () => {
     expect(ms).toBeGreaterThanOrEqual(250);
     expect(ms).toBeLessThan(1500);
     await running;
+  }, 60000);
+
+  it('a ranking whose client went away stops between balls, and the same thread ranks the next one', async () => {
+    const threads = engineThreadIds();
+    expect(threads).toHaveLength(1);
+    const gone = new AbortController();
+    const started = Date.now();
+    const running = rankInWorker(heavyInput(3, blockingCount), gone.signal).then(
+      () => 'ran',
+      (e: unknown) => (e instanceof Error ? e.message : String(e)),
+    );
+    expect(engineLoad().threads).toBe(1); // it has the thread: only the check between balls can stop it now
+    gone.abort();
+    expect(await running).toMatch(/stopped before ball .*went away/);
+    expect(Date.now() - started).toBeLessThan(1500); // the whole ranking holds the thread for seconds
+    expect((await rankInWorker(heavyInput(3.5, 6))).length).toBe(6);
+    expect(engineThreadIds()).toEqual(threads);
   }, 60000);
 
   it('over HTTP: while the thread and the queue are taken, a matchup gets 503 with Retry-After in the error shape; afterwards 200', async () => {
