@@ -34,7 +34,8 @@ export { combineLayers } from './combineLayers';
 export type { WeightedLayer } from './combineLayers';
 export { SCORING_LAYERS } from './scoringLayers';
 export type { ScoringLayer } from './scoringLayers';
-export { rankArsenal } from './rankArsenal';
+export { rankArsenal, compareRanked } from './rankArsenal';
+export type { RankedPlace } from './rankArsenal';
 export { rankTransition } from './rankTransition';
 export {
   BOARD_COUNT,
