@@ -9,6 +9,7 @@ import { patternsApi } from './patterns';
  * Server state shared by the screens: each list is fetched once and kept for STALE_MS; any write through the API
  * client marks every cached read out of date (main.ts wires `onWrite`), and signing out empties the cache.
  * Answers are never retried on their own: a screen shows the error and its "Try again" refetches.
+ * Cache keys carry the user's id, so one user's answers can never be read for another's.
  */
 export const STALE_MS = 30_000;
 
@@ -16,51 +17,55 @@ export const queryClient = new QueryClient({
   defaultOptions: { queries: { staleTime: STALE_MS, retry: false, refetchOnWindowFocus: false } },
 });
 
-/** Cache keys carry the user's id, so one user's answers can never be read for another's. */
-function useUserKey() {
-  const auth = useAuthStore();
-  return computed(() => auth.user?.id ?? null);
-}
+type UserId = number | null;
 
-/**
- * The signed-in bowler's whole arsenal (up to 100 balls, every status): Session, Matchup, Shop order, Stats.
- * `when` holds it back (a coach reading a student's session has no arsenal of their own to load).
- */
-export function useArsenalQuery(when: MaybeRefOrGetter<boolean> = true) {
-  const user = useUserKey();
-  return useQuery({
-    queryKey: computed(() => ['arsenal', user.value] as const),
-    queryFn: ({ signal }) => arsenalApi.list({ pageSize: 100 }, signal).then((r) => r.items),
-    enabled: computed(() => user.value !== null && toValue(when)),
-  });
-}
-
+/** The signed-in bowler's whole arsenal (up to 100 balls, every status): Session, Matchup, Shop order, Stats. */
+const arsenalQuery = (user: UserId) => ({
+  queryKey: ['arsenal', user] as const,
+  queryFn: ({ signal }: { signal: AbortSignal }) => arsenalApi.list({ pageSize: 100 }, signal).then((r) => r.items),
+});
 /** Every pattern by name (the pickers of Matchup, Coach, Session, Stats and the publish dialog). */
-export function usePatternsQuery() {
-  const user = useUserKey();
-  return useQuery({
-    queryKey: computed(() => ['patterns', user.value] as const),
-    queryFn: ({ signal }) => patternsApi.list({ pageSize: 100, sort: 'name', order: 'asc' }, signal).then((r) => r.items),
-    enabled: computed(() => user.value !== null),
-  });
-}
-
-/** One pattern with its sweeps (null: none chosen). */
-export function usePatternQuery(id: MaybeRefOrGetter<number | null>) {
-  const user = useUserKey();
-  return useQuery({
-    queryKey: computed(() => ['pattern', user.value, toValue(id)] as const),
-    queryFn: ({ signal }) => patternsApi.get(toValue(id) as number, signal).then((r) => r.item),
-    enabled: computed(() => user.value !== null && toValue(id) !== null),
-  });
-}
-
+const patternsQuery = (user: UserId) => ({
+  queryKey: ['patterns', user] as const,
+  queryFn: ({ signal }: { signal: AbortSignal }) => patternsApi.list({ pageSize: 100, sort: 'name', order: 'asc' }, signal).then((r) => r.items),
+});
+/** One pattern with its sweeps. */
+const patternQuery = (user: UserId, id: number) => ({
+  queryKey: ['pattern', user, id] as const,
+  queryFn: ({ signal }: { signal: AbortSignal }) => patternsApi.get(id, signal).then((r) => r.item),
+});
 /** The centers the signed-in user follows, with the conditions in force today. */
-export function useFollowsQuery() {
-  const user = useUserKey();
-  return useQuery({
-    queryKey: computed(() => ['follows', user.value] as const),
-    queryFn: ({ signal }) => centersApi.follows(signal).then((r) => r.items),
-    enabled: computed(() => user.value !== null),
-  });
+const followsQuery = (user: UserId) => ({
+  queryKey: ['follows', user] as const,
+  queryFn: ({ signal }: { signal: AbortSignal }) => centersApi.follows(signal).then((r) => r.items),
+});
+
+function useUserId() {
+  const auth = useAuthStore();
+  return computed<UserId>(() => auth.user?.id ?? null);
 }
+const currentUserId = (): UserId => useAuthStore().user?.id ?? null;
+
+/** The arsenal as a reactive query; `when` holds it back (a coach reading a student's session has no arsenal to load). */
+export function useArsenalQuery(when: MaybeRefOrGetter<boolean> = true) {
+  const user = useUserId();
+  return useQuery(computed(() => ({ ...arsenalQuery(user.value), enabled: user.value !== null && toValue(when) })));
+}
+export function usePatternsQuery() {
+  const user = useUserId();
+  return useQuery(computed(() => ({ ...patternsQuery(user.value), enabled: user.value !== null })));
+}
+export function usePatternQuery(id: MaybeRefOrGetter<number | null>) {
+  const user = useUserId();
+  return useQuery(computed(() => ({ ...patternQuery(user.value, toValue(id) ?? 0), enabled: user.value !== null && toValue(id) !== null })));
+}
+export function useFollowsQuery() {
+  const user = useUserId();
+  return useQuery(computed(() => ({ ...followsQuery(user.value), enabled: user.value !== null })));
+}
+
+/** The same answers awaited once, from the cache when fresh (screens that load step by step). */
+export const fetchArsenal = () => queryClient.fetchQuery(arsenalQuery(currentUserId()));
+export const fetchPatterns = () => queryClient.fetchQuery(patternsQuery(currentUserId()));
+export const fetchPattern = (id: number) => queryClient.fetchQuery(patternQuery(currentUserId(), id));
+export const fetchFollows = () => queryClient.fetchQuery(followsQuery(currentUserId()));
