@@ -155,6 +155,15 @@ export async function signIn(page: Page, email: string, password = DEMO_PASSWORD
   await page.getByRole('heading', { level: 1, name: /^Welcome,/ }).waitFor();
 }
 
+/** Starts a session from the Sessions screen with the New session dialog's defaults (today, practice) and returns its id. */
+export async function startSession(page: Page): Promise<number> {
+  await page.goto('/sessions');
+  await page.getByRole('button', { name: 'New session' }).click();
+  await page.getByRole('dialog', { name: 'New session' }).getByRole('button', { name: 'Start session' }).click();
+  await page.waitForURL(/\/sessions\/\d+$/);
+  return Number(/\/sessions\/(\d+)$/.exec(page.url())![1]);
+}
+
 /** True when the page is wider than the viewport (a horizontal scrollbar). */
 export async function hasHorizontalScroll(page: Page): Promise<boolean> {
   return page.evaluate(() => document.documentElement.scrollWidth > document.documentElement.clientWidth);

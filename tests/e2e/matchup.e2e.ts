@@ -241,12 +241,14 @@ describe('matchup: the what-if keeps the page answering while it works', () => {
     const longest = Math.max(0, ...during);
     expect(longest, `long tasks while the what-if worked: ${during.map((d) => d.toFixed(0)).join(', ') || 'none'}`).toBeLessThan(50);
 
-    // The measurement sees a long task when there is one: 120 ms of work on the main thread is reported.
+    // The measurement sees a long task when there is one: 120 ms of work in one of the page's own tasks is reported.
     await page.evaluate(() => {
-      const start = performance.now();
-      while (performance.now() - start < 120) {
-        /* busy on purpose */
-      }
+      setTimeout(() => {
+        const start = performance.now();
+        while (performance.now() - start < 120) {
+          /* busy on purpose */
+        }
+      }, 0);
     });
     await eventually(async () => Math.max(0, ...(await longTasks()))).toBeGreaterThanOrEqual(100);
   });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { Page, Route } from 'playwright-core';
-import { chooseOption, DEMO, DESKTOP, screenshot, signIn, useBrowser } from './browser';
+import { chooseOption, DEMO, DESKTOP, screenshot, signIn, startSession, useBrowser } from './browser';
 
 /**
  * A shared device (a center's tablet, a family laptop): signing out leaves nothing of the bowler behind — no cached
@@ -21,11 +21,7 @@ describe('shared device: signing out clears the user’s cached data and queued 
     await signIn(page, DEMO.dana);
 
     // Dana's data in the page: her arsenal (the session's ball list), a session with a shot that cannot reach the server.
-    await page.goto('/sessions');
-    await page.getByRole('button', { name: 'New session' }).click();
-    await page.getByRole('dialog', { name: 'New session' }).getByRole('button', { name: 'Start session' }).click();
-    await page.waitForURL(/\/sessions\/\d+$/);
-    const sessionId = Number(/\/sessions\/(\d+)$/.exec(page.url())![1]);
+    const sessionId = await startSession(page);
     await chooseOption(page, page.getByRole('combobox', { name: 'Ball' }), 'Big Red (Thunderhead Talon)');
     await page.route('**/api/sessions/*/shots', refuseShots);
     await page.getByRole('button', { name: 'Strike', exact: true }).click();
@@ -53,9 +49,7 @@ describe('shared device: signing out clears the user’s cached data and queued 
     expect(await page.locator(`a[href="/sessions/${sessionId}"]`).count()).toBe(0);
 
     // Lee's own session: the ball list (the cached arsenal) is Lee's.
-    await page.getByRole('button', { name: 'New session' }).click();
-    await page.getByRole('dialog', { name: 'New session' }).getByRole('button', { name: 'Start session' }).click();
-    await page.waitForURL(/\/sessions\/\d+$/);
+    await startSession(page);
     const ball = page.getByRole('combobox', { name: 'Ball' });
     await ball.focus();
     await page.keyboard.press('Enter');
