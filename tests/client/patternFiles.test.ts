@@ -10,7 +10,12 @@ describe('pattern files', () => {
   });
 
   it('lists a refused import line by line, in order, naming each field as the sweeps table does', () => {
-    const lines = importErrorLines({ 'lines.7.endFt': 'At most 70', 'lines.3': 'Not a sweep', 'lines.3.microlitersPerBoard': 'Must be a number', 'lines.12.somethingNew': 'Unknown' });
+    const lines = importErrorLines({
+      'lines.7.endFt': 'At most 70',
+      'lines.3': 'Not a sweep',
+      'lines.3.microlitersPerBoard': 'Must be a number',
+      'lines.12.somethingNew': 'Unknown',
+    });
     expect(lines).toHaveLength(4);
     expect(lines.map((l) => l.line)).toEqual([3, 3, 7, 12]);
     expect(lines).toContainEqual({ line: 3, text: 'oil per board (µL): Must be a number' });

@@ -37,11 +37,23 @@ function shot(frame: number): QueuedShot {
   return {
     key: `key-${frame}`,
     queuedAt: new Date(Date.UTC(2026, 0, 1, 19, frame)).toISOString(),
-    body: { gameNumber: 1, frame, delivery: 1, ballId: 7, feetBoard: 20, targetBoard: 10, breakpointBoard: null, standing: [], foul: false, hit: null },
+    body: {
+      gameNumber: 1,
+      frame,
+      delivery: 1,
+      ballId: 7,
+      feetBoard: 20,
+      targetBoard: 10,
+      breakpointBoard: null,
+      standing: [],
+      foul: false,
+      hit: null,
+    },
   };
 }
 
-const user = (id: number): User => ({ id, email: `bowler${id}@example.test`, displayName: `Bowler ${id}`, role: 'bowler', emailVerified: true }) as User;
+const user = (id: number): User =>
+  ({ id, email: `bowler${id}@example.test`, displayName: `Bowler ${id}`, role: 'bowler', emailVerified: true }) as User;
 
 describe('profile store and useUnits', () => {
   it('applies the units of the profile set once to every formatter made from it', async () => {

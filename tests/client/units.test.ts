@@ -74,7 +74,9 @@ describe('texts built with the formatter', () => {
   it('layoutText names the pin-to-PAP in the bowler’s units and keeps the angles', () => {
     const layout = { pinToPapIn: 4.5, drillingAngleDeg: 50, valAngleDeg: 40 };
     expect(layoutText(layout)).toBe('4 1/2 in pin-to-PAP, 50° drilling angle, 40° VAL angle');
-    expect(layoutText(layout, unitFormatter('metric'))).toBe(`${(4.5 * CM_PER_IN).toFixed(1)} cm pin-to-PAP, 50° drilling angle, 40° VAL angle`);
+    expect(layoutText(layout, unitFormatter('metric'))).toBe(
+      `${(4.5 * CM_PER_IN).toFixed(1)} cm pin-to-PAP, 50° drilling angle, 40° VAL angle`,
+    );
     expect(layoutText(null, unitFormatter('metric'))).toBe('Not drilled yet');
   });
 });

@@ -33,7 +33,18 @@ function mountQueue(sessionId: number) {
   return { queue, stored };
 }
 
-const body = (frame: number): ShotInput => ({ gameNumber: 1, frame, delivery: 1, ballId: 3, feetBoard: null, targetBoard: null, breakpointBoard: null, standing: [], foul: false, hit: null });
+const body = (frame: number): ShotInput => ({
+  gameNumber: 1,
+  frame,
+  delivery: 1,
+  ballId: 3,
+  feetBoard: null,
+  targetBoard: null,
+  breakpointBoard: null,
+  standing: [],
+  foul: false,
+  hit: null,
+});
 
 async function settled(queue: ReturnType<typeof useShotQueue>): Promise<void> {
   await queue.flush();
@@ -67,7 +78,10 @@ describe('useShotQueue without a connection', () => {
   });
 
   it('picks up shots left on the device by an earlier visit', async () => {
-    window.localStorage.setItem(queueStorageKey(23), JSON.stringify([{ key: 'left-before', body: body(1), queuedAt: '2026-01-01T19:00:00.000Z' }]));
+    window.localStorage.setItem(
+      queueStorageKey(23),
+      JSON.stringify([{ key: 'left-before', body: body(1), queuedAt: '2026-01-01T19:00:00.000Z' }]),
+    );
     const { queue } = mountQueue(23);
     expect(queue.items.value.map((s) => s.key)).toEqual(['left-before']);
     await settled(queue);

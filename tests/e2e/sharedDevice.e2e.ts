@@ -11,7 +11,11 @@ const { open } = useBrowser(DESKTOP);
 
 /** Every localStorage key the app wrote (they all start with "lanewright."). */
 const appKeys = (page: Page) =>
-  page.evaluate(() => Array.from({ length: window.localStorage.length }, (_, i) => window.localStorage.key(i) ?? '').filter((k) => k.startsWith('lanewright.')));
+  page.evaluate(() =>
+    Array.from({ length: window.localStorage.length }, (_, i) => window.localStorage.key(i) ?? '').filter((k) =>
+      k.startsWith('lanewright.'),
+    ),
+  );
 
 const refuseShots = async (route: Route) => (route.request().method() === 'POST' ? route.abort('internetdisconnected') : route.continue());
 
@@ -27,7 +31,9 @@ describe('shared device: signing out clears the user’s cached data and queued 
     await page.getByRole('button', { name: 'Strike', exact: true }).click();
     await page.locator('[data-sync-status]').filter({ hasText: '1 shot waiting to sync' }).waitFor();
     const before = await appKeys(page);
-    expect(before).toEqual(expect.arrayContaining(['lanewright.token', `lanewright.shotQueue.${sessionId}`, `lanewright.session.${sessionId}`]));
+    expect(before).toEqual(
+      expect.arrayContaining(['lanewright.token', `lanewright.shotQueue.${sessionId}`, `lanewright.session.${sessionId}`]),
+    );
 
     // Signing out names the unsent shot first, then removes everything.
     await page.getByRole('button', { name: 'Account menu for Dana Holloway' }).click();
@@ -44,7 +50,10 @@ describe('shared device: signing out clears the user’s cached data and queued 
     await signIn(page, DEMO.lee);
     await page.goto('/sessions');
     await page.getByRole('heading', { level: 1, name: 'Sessions' }).waitFor();
-    await page.getByRole('status').filter({ hasText: /\d+ sessions?\.$/ }).waitFor();
+    await page
+      .getByRole('status')
+      .filter({ hasText: /\d+ sessions?\.$/ })
+      .waitFor();
     expect(await page.getByText('Shots waiting to sync on this device').count()).toBe(0);
     expect(await page.locator(`a[href="/sessions/${sessionId}"]`).count()).toBe(0);
 

@@ -35,7 +35,8 @@ async function chooseUnits(email: string, units: 'metric' | 'imperial'): Promise
   return saved.json.profile;
 }
 
-const text = async (page: Page, selector: string) => ((await page.locator(selector).first().textContent()) ?? '').replace(/\s+/g, ' ').trim();
+const text = async (page: Page, selector: string) =>
+  ((await page.locator(selector).first().textContent()) ?? '').replace(/\s+/g, ' ').trim();
 
 describe('units: a metric bowler sees km/h, kg, cm and m on Matchup, Ball, Session and Coach', () => {
   it('Matchup: the pattern, the ranking, the lane view and the what-if in metric units', async () => {
@@ -46,7 +47,10 @@ describe('units: a metric bowler sees km/h, kg, cm and m on Matchup, Ball, Sessi
     await page.getByRole('heading', { level: 1, name: 'Matchup' }).waitFor();
     await chooseOption(page, page.getByRole('combobox', { name: 'Condition' }), 'Long Haul 47');
     // 47 ft of oil = 14.3 m
-    await page.locator('.matchup__pattern').filter({ hasText: `${(47 * M_PER_FT).toFixed(1)} m · ` }).waitFor();
+    await page
+      .locator('.matchup__pattern')
+      .filter({ hasText: `${(47 * M_PER_FT).toFixed(1)} m · ` })
+      .waitFor();
     await page.getByRole('button', { name: 'Rank my arsenal' }).click();
     await page.getByRole('heading', { level: 2, name: 'Ranking for Long Haul 47, after 0 games' }).waitFor({ timeout: 60000 });
 
@@ -67,12 +71,17 @@ describe('units: a metric bowler sees km/h, kg, cm and m on Matchup, Ball, Sessi
 
     // The lane view's scale and table.
     const note = await text(page, '.matchup-lane-view__note');
-    expect(note).toContain(`Arrows at ${(15 * M_PER_FT).toFixed(1)} m, dots at ${(7 * M_PER_FT).toFixed(1)} m, headpin at ${(60 * M_PER_FT).toFixed(1)} m.`);
+    expect(note).toContain(
+      `Arrows at ${(15 * M_PER_FT).toFixed(1)} m, dots at ${(7 * M_PER_FT).toFixed(1)} m, headpin at ${(60 * M_PER_FT).toFixed(1)} m.`,
+    );
     expect(note).not.toMatch(IMPERIAL);
 
     // The what-if: Big Red (4 1/2 in pin-to-PAP = 11.4 cm), its pin-to-PAP field in centimetres, the breakpoint in metres.
     await chooseOption(page, page.getByRole('combobox', { name: 'What-if ball' }), 'Big Red (Thunderhead Talon)');
-    await page.locator('.matchup-what-if__now').filter({ hasText: `${(4.5 * CM_PER_IN).toFixed(1)} cm pin-to-PAP` }).waitFor();
+    await page
+      .locator('.matchup-what-if__now')
+      .filter({ hasText: `${(4.5 * CM_PER_IN).toFixed(1)} cm pin-to-PAP` })
+      .waitFor();
     await page.getByText('Pin-to-PAP (cm)').waitFor();
     expect(await page.getByLabel('What-if pin-to-PAP').inputValue()).toBe((4.5 * CM_PER_IN).toFixed(1));
     await chooseOption(page, page.getByRole('combobox', { name: 'What-if grit' }), '4000 grit');

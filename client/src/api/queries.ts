@@ -27,7 +27,8 @@ const arsenalQuery = (user: UserId) => ({
 /** Every pattern by name (the pickers of Matchup, Coach, Session, Stats and the publish dialog). */
 const patternsQuery = (user: UserId) => ({
   queryKey: ['patterns', user] as const,
-  queryFn: ({ signal }: { signal: AbortSignal }) => patternsApi.list({ pageSize: 100, sort: 'name', order: 'asc' }, signal).then((r) => r.items),
+  queryFn: ({ signal }: { signal: AbortSignal }) =>
+    patternsApi.list({ pageSize: 100, sort: 'name', order: 'asc' }, signal).then((r) => r.items),
 });
 /** One pattern with its sweeps. */
 const patternQuery = (user: UserId, id: number) => ({
@@ -57,7 +58,9 @@ export function usePatternsQuery() {
 }
 export function usePatternQuery(id: MaybeRefOrGetter<number | null>) {
   const user = useUserId();
-  return useQuery(computed(() => ({ ...patternQuery(user.value, toValue(id) ?? 0), enabled: user.value !== null && toValue(id) !== null })));
+  return useQuery(
+    computed(() => ({ ...patternQuery(user.value, toValue(id) ?? 0), enabled: user.value !== null && toValue(id) !== null })),
+  );
 }
 export function useFollowsQuery() {
   const user = useUserId();

@@ -53,7 +53,10 @@ export function useSessionDetail(sessionId: number) {
         apply(old);
         fromCache.value = true;
       } else {
-        loadError.value = isApiRequestError(err) && err.status === 404 ? 'This session does not exist or is not yours to see.' : errorMessage(err, 'The session could not be loaded.');
+        loadError.value =
+          isApiRequestError(err) && err.status === 404
+            ? 'This session does not exist or is not yours to see.'
+            : errorMessage(err, 'The session could not be loaded.');
       }
     } finally {
       loading.value = false;

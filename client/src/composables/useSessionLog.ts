@@ -1,5 +1,14 @@
 import { computed, type Ref } from 'vue';
-import { buildGame, shotStats, suggestMoves, type GameView, type LoggedDelivery, type Move, type ShotRecord, type ShotStats } from '@engine/index';
+import {
+  buildGame,
+  shotStats,
+  suggestMoves,
+  type GameView,
+  type LoggedDelivery,
+  type Move,
+  type ShotRecord,
+  type ShotStats,
+} from '@engine/index';
 import type { Ball } from '@shared/balls';
 import type { HitKind, SessionDetail, Shot } from '@/api/sessions';
 import type { QueuedShot } from '@/stores/shotQueue';
@@ -95,7 +104,12 @@ export function useSessionLog(input: SessionLogInput) {
     return [...done, ...pending];
   });
 
-  const toLogged = (e: Entry): LoggedDelivery => ({ frame: e.frame, delivery: e.delivery, standing: e.standing, ...(e.foul ? { foul: true } : {}) });
+  const toLogged = (e: Entry): LoggedDelivery => ({
+    frame: e.frame,
+    delivery: e.delivery,
+    standing: e.standing,
+    ...(e.foul ? { foul: true } : {}),
+  });
   const deliveriesOf = (n: number) => entries.value.filter((e) => e.gameNumber === n).map(toLogged);
 
   const games = computed<LocalGame[]>(() => {
@@ -127,7 +141,8 @@ export function useSessionLog(input: SessionLogInput) {
   /** Sheets newest game first, the one in progress on top. */
   const sheets = computed(() => {
     const list = games.value.slice();
-    if (!list.some((g) => g.number === currentNumber.value) && isOwner.value) list.push({ number: currentNumber.value, view: buildGame([]), error: '', pending: 0 });
+    if (!list.some((g) => g.number === currentNumber.value) && isOwner.value)
+      list.push({ number: currentNumber.value, view: buildGame([]), error: '', pending: 0 });
     return list.reverse();
   });
 

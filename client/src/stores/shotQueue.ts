@@ -12,9 +12,7 @@ export interface QueuedShot {
 
 /** How one run through a session's queue ended. */
 export type SendOutcome =
-  | { kind: 'done' }
-  | { kind: 'waiting'; message: string }
-  | { kind: 'refused'; shot: QueuedShot; message: string; code: string };
+  { kind: 'done' } | { kind: 'waiting'; message: string } | { kind: 'refused'; shot: QueuedShot; message: string; code: string };
 
 /** Told about every shot the server stored (201, or 200 for a key it had stored before), in order. */
 export type StoredListener = (result: ShotCreated, shot: QueuedShot) => void;

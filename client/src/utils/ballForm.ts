@@ -66,10 +66,16 @@ export function ballFormSchemas(basePin: Ref<{ text: string; inches: number } | 
   };
   const common = {
     nickname: z.string().trim().max(60, 'At most 60 characters'),
-    weightLb: z.number({ error: req('Weight') }).min(6, 'At least 6 lb').max(18, 'At most 18 lb'),
+    weightLb: z
+      .number({ error: req('Weight') })
+      .min(6, 'At least 6 lb')
+      .max(18, 'At most 18 lb'),
     surfaceGrit: SurfaceSchema.shape.surfaceGrit,
     polished: z.boolean(),
-    gamesSinceResurface: z.number({ error: req('Games') }).int('Whole games').min(0, 'At least 0'),
+    gamesSinceResurface: z
+      .number({ error: req('Games') })
+      .int('Whole games')
+      .min(0, 'At least 0'),
     status: z.enum(BALL_STATUSES),
     ...layoutFields,
   };
@@ -79,7 +85,10 @@ export function ballFormSchemas(basePin: Ref<{ text: string; inches: number } | 
     coreType: CoreTypeSchema,
   };
 
-  const layoutRule = (v: { pinToPapIn: number | null; drillingAngleDeg: number | null; valAngleDeg: number | null }, ctx: z.RefinementCtx) => {
+  const layoutRule = (
+    v: { pinToPapIn: number | null; drillingAngleDeg: number | null; valAngleDeg: number | null },
+    ctx: z.RefinementCtx,
+  ) => {
     if (v.pinToPapIn === null && (v.drillingAngleDeg !== null || v.valAngleDeg !== null)) {
       ctx.addIssue({ code: 'custom', path: ['pinToPapIn'], message: 'Enter the pin-to-PAP distance to save a layout' });
     }

@@ -2,7 +2,12 @@ import type { PatternFileFormat } from '@/api/patterns';
 
 /** A pattern's export file name: its name as a slug, then ".lanewright.json" or ".lanewright.csv". */
 export function patternFileName(name: string, format: PatternFileFormat): string {
-  const slug = name.trim().toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'pattern';
+  const slug =
+    name
+      .trim()
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, '-')
+      .replace(/^-|-$/g, '') || 'pattern';
   return `${slug}.lanewright.${format}`;
 }
 
