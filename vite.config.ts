@@ -36,6 +36,17 @@ export default defineConfig({
       {
         extends: true,
         test: {
+          // The client's composables, stores and unit formatting, in a browser-like page (happy-dom) whose API
+          // address answers nothing: what needs a real server is proven by the e2e project.
+          name: 'client',
+          include: ['tests/client/**/*.test.ts'],
+          environment: 'happy-dom',
+          environmentOptions: { happyDOM: { url: 'http://127.0.0.1:9/' } },
+        },
+      },
+      {
+        extends: true,
+        test: {
           name: 'api',
           include: ['tests/api/**/*.test.ts'],
           environment: 'node',

@@ -34,8 +34,8 @@ export { combineLayers } from './combineLayers';
 export type { WeightedLayer } from './combineLayers';
 export { SCORING_LAYERS } from './scoringLayers';
 export type { ScoringLayer } from './scoringLayers';
-export { rankArsenal } from './rankArsenal';
-export type { RankArsenalOptions } from './rankArsenal';
+export { rankArsenal, compareRanked } from './rankArsenal';
+export type { RankArsenalOptions, RankedPlace } from './rankArsenal';
 export { rankTransition } from './rankTransition';
 export {
   BOARD_COUNT,

@@ -29,6 +29,22 @@ export interface RankArsenalOptions {
 /** Order of the standings in a ranking: strike balls, then spare balls, then balls outside the limits. */
 const STANDING_ORDER = { strike: 0, spare: 1, illegal: 2 } as const;
 
+/** One ranked ball as far as its place in the ranking goes. */
+export interface RankedPlace {
+  standing?: keyof typeof STANDING_ORDER;
+  score: number;
+  id: string;
+}
+
+/**
+ * rankArsenal's order, for anyone who re-orders a ranking after changing one ball's score (the what-if): standing
+ * (strike, spare, outside the limits), then score (highest first), then id.
+ */
+export function compareRanked(a: RankedPlace, b: RankedPlace): number {
+  const sa = STANDING_ORDER[a.standing ?? 'strike'], sb = STANDING_ORDER[b.standing ?? 'strike'];
+  return sa - sb || b.score - a.score || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0);
+}
+
 /**
  * Ranks a bowler's arsenal for a condition, best first, with the reasons and what to change.
  *
@@ -147,10 +163,7 @@ export function rankArsenal(input: RankArsenalInput, options: RankArsenalOptions
     }
   }
 
-  ranked.sort((a, b) => {
-    const sa = STANDING_ORDER[a.entry.standing ?? 'strike'], sb = STANDING_ORDER[b.entry.standing ?? 'strike'];
-    return sa - sb || b.entry.score - a.entry.score || (a.ball.id < b.ball.id ? -1 : a.ball.id > b.ball.id ? 1 : 0);
-  });
+  ranked.sort((a, b) => compareRanked({ ...a.entry, id: a.ball.id }, { ...b.entry, id: b.ball.id }));
   return ranked.map((r) => r.entry);
 }
 

@@ -1,32 +1,7 @@
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { appUrl, DEMO, DESKTOP, MOBILE, eventually, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
+import { describe, expect, it } from 'vitest';
+import { DEMO, DESKTOP, MOBILE, eventually, hasHorizontalScroll, screenshot, signIn, useBrowser } from './browser';
 
-const baseUrl = appUrl();
-let browser: Browser;
-let session: Session | null = null;
-
-async function open(viewport: Viewport = DESKTOP): Promise<Session> {
-  session = await openSession(browser, baseUrl, viewport);
-  return session;
-}
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-
-afterEach(async () => {
-  if (session) {
-    const errors = session.pageErrors;
-    await session.context.close();
-    session = null;
-    expect(errors, 'uncaught errors in the page').toEqual([]);
-  }
-});
-
-afterAll(async () => {
-  await browser?.close();
-});
+const { baseUrl, open } = useBrowser(DESKTOP);
 
 describe('arsenal screen', () => {
   it('lists the demo bowler her balls; deleting one and pressing Undo brings it back', async () => {

@@ -1,7 +1,7 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Locator, type Page } from 'playwright-core';
-import { expect } from 'vitest';
+import { afterAll, afterEach, beforeAll, expect } from 'vitest';
 
 /**
  * The address of this test file's own server (started on its own copy of the seeded demo database by
@@ -95,6 +95,46 @@ export async function openSession(browser: Browser, baseURL: string, viewport: V
   return { context, page, pageErrors };
 }
 
+/** What a browser test file works with: its server's address and fresh sessions (context + page) in one Chromium. */
+export interface BrowserFixture {
+  /** This file's own server (tests/helpers/e2eServer.ts). */
+  baseUrl: string;
+  /** A fresh context (no cookies, no localStorage) and page; closed after the test, its page errors checked. */
+  open: (viewport?: Viewport) => Promise<Session>;
+}
+
+/**
+ * The browser setup every e2e file shares: registers the file's hooks — Debian's Chromium launched once before the
+ * file (playwright-core, no downloaded browser), every session opened in a test closed after it with the test
+ * failing on any uncaught page error, the browser closed after the file. Call it once at the top of the file:
+ * `const { baseUrl, open } = useBrowser(MOBILE);`
+ */
+export function useBrowser(defaultViewport: Viewport = DESKTOP): BrowserFixture {
+  const baseUrl = appUrl();
+  let browser: Browser | null = null;
+  const sessions: Session[] = [];
+
+  beforeAll(async () => {
+    browser = await launchBrowser();
+  });
+  afterEach(async () => {
+    const errors = sessions.flatMap((s) => s.pageErrors);
+    for (const s of sessions.splice(0)) await s.context.close();
+    expect(errors, 'uncaught errors in the page').toEqual([]);
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+
+  async function open(viewport: Viewport = defaultViewport): Promise<Session> {
+    if (!browser) throw new Error('useBrowser(): open a session inside a test (the browser starts in beforeAll)');
+    const s = await openSession(browser, baseUrl, viewport);
+    sessions.push(s);
+    return s;
+  }
+  return { baseUrl, open };
+}
+
 /** Saves a full-page screenshot to tests/e2e/artifacts/<name>.png and returns its path. */
 export async function screenshot(page: Page, name: string): Promise<string> {
   fs.mkdirSync(ARTIFACTS_DIR, { recursive: true });
@@ -113,6 +153,15 @@ export async function signIn(page: Page, email: string, password = DEMO_PASSWORD
   await page.getByLabel('Password').fill(password);
   await page.getByRole('button', { name: 'Sign in', exact: true }).click();
   await page.getByRole('heading', { level: 1, name: /^Welcome,/ }).waitFor();
+}
+
+/** Starts a session from the Sessions screen with the New session dialog's defaults (today, practice) and returns its id. */
+export async function startSession(page: Page): Promise<number> {
+  await page.goto('/sessions');
+  await page.getByRole('button', { name: 'New session' }).click();
+  await page.getByRole('dialog', { name: 'New session' }).getByRole('button', { name: 'Start session' }).click();
+  await page.waitForURL(/\/sessions\/\d+$/);
+  return Number(/\/sessions\/(\d+)$/.exec(page.url())![1]);
 }
 
 /** True when the page is wider than the viewport (a horizontal scrollbar). */

@@ -1,33 +1,8 @@
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { appUrl, chooseOption, DEMO, DEMO_PASSWORD, MOBILE, eventually, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, uniqueEmail, verifyByMail, type Session } from './browser';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { chooseOption, DEMO, DEMO_PASSWORD, MOBILE, eventually, hasHorizontalScroll, screenshot, signIn, uniqueEmail, verifyByMail, useBrowser } from './browser';
 
-const baseUrl = appUrl();
-let browser: Browser;
-const sessions: Session[] = [];
-
-async function open(): Promise<Session> {
-  const s = await openSession(browser, baseUrl, MOBILE);
-  sessions.push(s);
-  return s;
-}
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-
-afterEach(async () => {
-  const errors: string[] = [];
-  for (const s of sessions.splice(0)) {
-    errors.push(...s.pageErrors);
-    await s.context.close();
-  }
-  expect(errors, 'uncaught errors in the page').toEqual([]);
-});
-
-afterAll(async () => {
-  await browser?.close();
-});
+const { baseUrl, open } = useBrowser(MOBILE);
 
 /** Picks an option of an Element Plus select (see chooseOption: it waits for the select to be enabled). */
 async function choose(page: Page, combobox: string, option: string | RegExp): Promise<void> {

@@ -1,7 +1,7 @@
 import fs from 'node:fs';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { appUrl, DEMO, DESKTOP, devMailbox, MOBILE, eventually, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
+import { beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { DEMO, DESKTOP, devMailbox, MOBILE, eventually, hasHorizontalScroll, screenshot, signIn, useBrowser } from './browser';
 
 /**
  * The condition publishing flow in the browser: the demo proprietor builds a pattern in the editor (numbers update as
@@ -17,15 +17,7 @@ import { appUrl, DEMO, DESKTOP, devMailbox, MOBILE, eventually, hasHorizontalScr
  * only sweep 1's 120 µL → 8.00 : 1. Length: the largest end, 40 ft.
  */
 
-const baseUrl = appUrl();
-let browser: Browser;
-const sessions: Session[] = [];
-
-async function open(viewport: Viewport = DESKTOP): Promise<Session> {
-  const s = await openSession(browser, baseUrl, viewport);
-  sessions.push(s);
-  return s;
-}
+const { baseUrl, open } = useBrowser(DESKTOP);
 
 const PATTERN_NAME = `Tideline Trial ${Date.now() % 100000}`;
 let centerId = 0;
@@ -56,18 +48,7 @@ async function centerNamed(name: string): Promise<number> {
 }
 
 beforeAll(async () => {
-  browser = await launchBrowser();
   centerId = await centerNamed('Copperline Bowl');
-});
-
-afterEach(async () => {
-  const errors = sessions.flatMap((s) => s.pageErrors);
-  for (const s of sessions.splice(0)) await s.context.close();
-  expect(errors, 'uncaught errors in the page').toEqual([]);
-});
-
-afterAll(async () => {
-  await browser?.close();
 });
 
 describe('conditions: build a pattern, publish it, read it publicly and as a follower', () => {

@@ -1,31 +1,8 @@
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { apiToken, appUrl, DEMO, DESKTOP, hasHorizontalScroll, launchBrowser, MOBILE, openSession, screenshot, signIn, uniqueEmail, verifyByMail, type Session, type Viewport } from './browser';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { apiToken, DEMO, DESKTOP, hasHorizontalScroll, MOBILE, screenshot, signIn, uniqueEmail, useBrowser, verifyByMail } from './browser';
 
-const baseUrl = appUrl();
-let browser: Browser;
-const sessions: Session[] = [];
-
-async function open(viewport: Viewport): Promise<Session> {
-  const s = await openSession(browser, baseUrl, viewport);
-  sessions.push(s);
-  return s;
-}
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-afterEach(async () => {
-  const errors: string[] = [];
-  for (const s of sessions.splice(0)) {
-    errors.push(...s.pageErrors);
-    await s.context.close();
-  }
-  expect(errors, 'uncaught errors in the page').toEqual([]);
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const { baseUrl, open } = useBrowser(DESKTOP);
 
 /** The API as a signed-in user (JSON in and out; fails loudly on an unexpected status). */
 function client(token: string) {
@@ -125,13 +102,14 @@ describe('decide: trials, the layout lab and coverage', () => {
     await page.goto('/decide?tab=layouts');
     await choose(page, 'Ball', /Big Red/);
     await choose(page, 'Pattern', /./);
-    await page.getByLabel('Layout 2 pin-to-PAP in inches').fill('2');
+    await page.getByLabel('Layout 2 pin-to-PAP').fill('2');
+    await page.getByLabel('Layout 2 pin-to-PAP').blur();
     await page.getByRole('button', { name: 'Compare layouts' }).click();
     const drawings = page.getByRole('img', { name: /track rings spreading/ });
     await expect.poll(() => drawings.count()).toBe(2);
     const names = await drawings.evaluateAll((els) => els.map((e) => e.getAttribute('aria-label') ?? ''));
     const flare = names.map((n) => Number(/spreading ([\d.]+) in/.exec(n)![1]));
-    expect(names[0]).toMatch(/^As drilled: pin 4.5 in from the PAP/);
+    expect(names[0]).toMatch(/^As drilled: pin 4 1\/2 in from the PAP/);
     expect(flare[0]).toBeGreaterThan(flare[1]); // the pin at 2 in flares less than at 4 1/2 in
     await page.getByText('Drilling, plugging and fitting are work for a qualified pro-shop technician.').waitFor();
     await screenshot(page, 'decide-layout-lab-desktop');

@@ -1,37 +1,13 @@
 import path from 'node:path';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page, Route } from 'playwright-core';
+import { describe, expect, it } from 'vitest';
+import type { Page, Route } from 'playwright-core';
 // The engine is the reference for scores (pure code, no I/O): the sheet's total must equal scoreGame of the same rolls.
 import { scoreGame } from '../../engine/index';
-import { appUrl, chooseOption, ARTIFACTS_DIR, DEMO, DEMO_PASSWORD, DESKTOP, MOBILE, eventually, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session } from './browser';
+import { chooseOption, ARTIFACTS_DIR, DEMO, DEMO_PASSWORD, DESKTOP, MOBILE, eventually, hasHorizontalScroll, screenshot, signIn, useBrowser } from './browser';
 
-const baseUrl = appUrl();
-let browser: Browser;
-let session: Session | null = null;
+const { baseUrl, open } = useBrowser(MOBILE);
 /** The session the bowler logs in the first test; the coach reads and annotates it in the second. */
 let sessionId = 0;
-
-async function open(): Promise<Session> {
-  session = await openSession(browser, baseUrl, MOBILE);
-  return session;
-}
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-
-afterEach(async () => {
-  if (session) {
-    const errors = session.pageErrors;
-    await session.context.close();
-    session = null;
-    expect(errors, 'uncaught errors in the page').toEqual([]);
-  }
-});
-
-afterAll(async () => {
-  await browser?.close();
-});
 
 interface StoredShot {
   id: number;

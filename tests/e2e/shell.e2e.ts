@@ -1,49 +1,10 @@
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser } from 'playwright-core';
-import {
-  appUrl,
-  DEMO,
-  DESKTOP,
-  MOBILE,
-  hasHorizontalScroll,
-  launchBrowser,
-  mailedLink,
-  openSession,
-  screenshot,
-  signIn,
-  uniqueEmail,
-  type Session,
-  type Viewport,
-} from './browser';
+import { describe, expect, it } from 'vitest';
+import { DEMO, DESKTOP, MOBILE, hasHorizontalScroll, mailedLink, screenshot, signIn, uniqueEmail, useBrowser } from './browser';
 
-const baseUrl = appUrl();
-let browser: Browser;
-let session: Session | null = null;
-
-async function open(viewport: Viewport = DESKTOP): Promise<Session> {
-  session = await openSession(browser, baseUrl, viewport);
-  return session;
-}
+const { baseUrl, open } = useBrowser(DESKTOP);
 
 /** The reset link mailed to `email`, read from the project's own test mailbox (`/api/dev/mail`, as the admin). */
 const waitForResetLink = (email: string): Promise<string> => mailedLink(baseUrl, email, '/reset-password');
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-
-afterEach(async () => {
-  if (session) {
-    const errors = session.pageErrors;
-    await session.context.close();
-    session = null;
-    expect(errors, 'uncaught errors in the page').toEqual([]);
-  }
-});
-
-afterAll(async () => {
-  await browser?.close();
-});
 
 describe('client shell: sign-up, sign-in, sign-out', () => {
   it('sign-up: a new visitor creates an account, lands on Home signed in as a bowler, then signs out from the account menu', async () => {

@@ -1,7 +1,7 @@
 import path from 'node:path';
-import { afterAll, afterEach, beforeAll, describe, expect, it } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { appUrl, chooseOption, eventually, ARTIFACTS_DIR, DEMO, DESKTOP, MOBILE, hasHorizontalScroll, launchBrowser, openSession, screenshot, signIn, type Session, type Viewport } from './browser';
+import { describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { chooseOption, eventually, ARTIFACTS_DIR, DEMO, DESKTOP, MOBILE, hasHorizontalScroll, screenshot, signIn, useBrowser } from './browser';
 
 /**
  * The resurface order flow in the browser: the proprietor puts a 4000-grit resurface on Copperline Bowl's price list;
@@ -16,31 +16,7 @@ import { appUrl, chooseOption, eventually, ARTIFACTS_DIR, DEMO, DESKTOP, MOBILE,
  * documents for its test mode, which the fake follows (CONTRACT-8).
  */
 
-const baseUrl = appUrl();
-let browser: Browser;
-const sessions: Session[] = [];
-
-async function open(viewport: Viewport = DESKTOP): Promise<Session> {
-  const s = await openSession(browser, baseUrl, viewport);
-  sessions.push(s);
-  return s;
-}
-
-beforeAll(async () => {
-  browser = await launchBrowser();
-});
-
-afterEach(async () => {
-  for (const s of sessions.splice(0)) {
-    const errors = s.pageErrors;
-    await s.context.close();
-    expect(errors, 'uncaught errors in the page').toEqual([]);
-  }
-});
-
-afterAll(async () => {
-  await browser?.close();
-});
+const { open } = useBrowser(DESKTOP);
 
 const RUN = Date.now() % 100000;
 const SERVICE_NAME = `Resurface to 4000 grit, e2e ${RUN}`;

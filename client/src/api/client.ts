@@ -50,11 +50,15 @@ export interface RequestOptions {
   asBlob?: boolean;
   /** Extra request headers (e.g. `Idempotency-Key`); they cannot replace Accept, Authorization or Content-Type. */
   headers?: Readonly<Record<string, string>>;
+  /** A POST that only computes an answer (a matchup run): it changes nothing, so cached reads stay valid. */
+  readOnly?: boolean;
 }
 
 interface ClientConfig {
   getToken: () => string | null;
   onUnauthorized: () => void;
+  /** After every successful write (any method but GET, unless marked `readOnly`): cached reads are out of date. */
+  onWrite?: () => void;
 }
 
 let config: ClientConfig = {
@@ -111,6 +115,7 @@ export async function request<T>(method: HttpMethod, path: string, options: Requ
     throw new ApiRequestError(0, 'network_error', 'Lanewright could not be reached. Check your connection and try again.');
   }
 
+  if (res.ok && method !== 'GET' && !options.readOnly) config.onWrite?.();
   if (res.ok && options.asBlob) return (await res.blob()) as T;
   const data = await readJson(res);
   if (res.ok) return data as T;

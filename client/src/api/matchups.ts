@@ -8,5 +8,5 @@ export type MatchupParams = Omit<MatchupRequest, 'gamesBowled' | 'studentId'> & 
 
 export const matchupsApi = {
   /** A plain pattern (`patternId`, optional `lane`) or a published condition (`conditionId`: its own lane surface). */
-  run: (body: MatchupParams, signal?: AbortSignal) => api.post<MatchupResult>('/matchups', body, { signal }),
+  run: (body: MatchupParams, signal?: AbortSignal) => api.post<MatchupResult>('/matchups', body, { signal, readOnly: true }),
 };

@@ -1,10 +1,9 @@
-import { computed, ref, shallowRef } from 'vue';
+import { computed } from 'vue';
 import type { Sweep } from '@engine/index';
 import type { Condition, FollowedCenter, LaneSurface } from '@shared/centers';
 import type { PatternListItem, PatternSummary } from '@shared/patterns';
-import { centersApi } from '@/api/centers';
 import { errorMessage } from '@/api/client';
-import { patternsApi } from '@/api/patterns';
+import { useFollowsQuery, usePatternsQuery } from '@/api/queries';
 import { formatLaneRanges } from '@/utils/lanes';
 
 /** A published condition in force today at a followed center: its pattern as published and its own lane surface. */
@@ -60,26 +59,18 @@ function conditionChoice(center: FollowedCenter['center'], c: Condition, lanes: 
  * A failed follow list leaves the patterns; a failed pattern list is an error to show.
  */
 export function useConditionChoices() {
-  const follows = shallowRef<FollowedCenter[]>([]);
-  const patterns = shallowRef<PatternListItem[]>([]);
-  const loading = ref(false);
-  const error = ref('');
+  const followsQuery = useFollowsQuery();
+  const patternsQuery = usePatternsQuery();
+  // A failed follow list leaves the picker with every pattern.
+  const follows = computed<FollowedCenter[]>(() => (followsQuery.isError.value ? [] : (followsQuery.data.value ?? [])));
+  const patterns = computed<PatternListItem[]>(() => patternsQuery.data.value ?? []);
+  const loading = computed(() => patternsQuery.isFetching.value || followsQuery.isFetching.value);
+  const error = computed(() => (patternsQuery.isError.value ? errorMessage(patternsQuery.error.value, 'The conditions could not be loaded.') : ''));
 
+  /** Waits for both lists (from the cache when fresh); after an error it asks the server again. */
   async function load(): Promise<void> {
-    loading.value = true;
-    error.value = '';
-    const followsLoad = centersApi
-      .follows()
-      .then((r) => (follows.value = r.items))
-      .catch(() => (follows.value = [])); // the picker still lists every pattern
-    try {
-      const [res] = await Promise.all([patternsApi.list({ pageSize: 100, sort: 'name', order: 'asc' }), followsLoad]);
-      patterns.value = res.items;
-    } catch (err) {
-      error.value = errorMessage(err, 'The conditions could not be loaded.');
-    } finally {
-      loading.value = false;
-    }
+    const settle = (q: typeof patternsQuery | typeof followsQuery) => (q.isError.value ? q.refetch() : q.suspense()).catch(() => undefined);
+    await Promise.all([settle(patternsQuery), settle(followsQuery)]);
   }
 
   const conditions = computed<ConditionChoice[]>(() =>

@@ -2,9 +2,9 @@ import { computed, ref, shallowRef } from 'vue';
 import { oilGrid, type LaneSurface, type OilGrid } from '@engine/index';
 import type { Ball } from '@shared/balls';
 import { DEFAULT_LANE_SURFACE } from '@shared/centers';
-import { arsenalApi } from '@/api/arsenal';
 import { errorMessage } from '@/api/client';
 import { matchupsApi, type MatchupResult } from '@/api/matchups';
+import { useArsenalQuery } from '@/api/queries';
 import { mapMaxFt } from '@/composables/usePatternDraft';
 import { useConditionChoices } from '@/composables/useConditionChoices';
 
@@ -30,8 +30,9 @@ export function useMatchup() {
   const running = ref(false);
   const runError = ref('');
 
-  /** The bowler's balls by id, with every spec (hardness, wear, approval year) for the what-if. */
-  const balls = shallowRef<Map<number, Ball>>(new Map());
+  /** The bowler's balls in the bag by id, with every spec (hardness, wear, approval year) for the what-if. */
+  const arsenal = useArsenalQuery();
+  const balls = computed(() => new Map<number, Ball>((arsenal.data.value ?? []).filter((b) => b.status === 'active').map((b) => [b.id, b])));
 
   let controller: AbortController | null = null;
 
@@ -49,12 +50,8 @@ export function useMatchup() {
     runError.value = '';
     try {
       const body = c.kind === 'condition' ? { conditionId: c.conditionId } : { patternId: c.patternId, lane: { ...lane.value } };
-      const [res, arsenal] = await Promise.all([
-        matchupsApi.run({ ...body, gamesBowled: gamesBowled.value }, current.signal),
-        balls.value.size === 0 ? arsenalApi.list({ pageSize: 100, status: 'active' }, current.signal) : Promise.resolve(null),
-      ]);
+      const [res] = await Promise.all([matchupsApi.run({ ...body, gamesBowled: gamesBowled.value }, current.signal), arsenal.suspense()]);
       if (controller !== current) return;
-      if (arsenal) balls.value = new Map(arsenal.items.map((b) => [b.id, b]));
       result.value = res;
     } catch (err) {
       if (controller !== current || current.signal.aborted) return;

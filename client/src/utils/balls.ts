@@ -1,6 +1,7 @@
 import { checkLegality, type BallSpec, type CoverType, type LegalityResult } from '@engine/index';
 import type { Ball } from '@shared/balls';
-import { BALL_STATUSES, CORE_TYPES, formatEighths } from '@shared/balls';
+import { BALL_STATUSES, CORE_TYPES } from '@shared/balls';
+import { unitFormatter, type UnitFormatter } from './units';
 
 export const COVER_LABELS: Readonly<Record<CoverType, string>> = {
   plastic: 'Plastic',
@@ -41,10 +42,10 @@ export function inches3(value: number): string {
   return value.toFixed(3);
 }
 
-/** A layout as the pro shop writes it: "4 1/2 in pin-to-PAP, 50° drilling angle, 40° VAL angle". */
-export function layoutText(layout: Ball['layout']): string {
+/** A layout as the pro shop writes it: "4 1/2 in pin-to-PAP, 50° drilling angle, 40° VAL angle" (or "11.4 cm pin-to-PAP, …"). */
+export function layoutText(layout: Ball['layout'], u: Pick<UnitFormatter, 'pinToPap'> = unitFormatter('imperial')): string {
   if (!layout) return 'Not drilled yet';
-  const parts = [`${formatEighths(layout.pinToPapIn)} in pin-to-PAP`];
+  const parts = [`${u.pinToPap(layout.pinToPapIn)} pin-to-PAP`];
   if (layout.drillingAngleDeg != null) parts.push(`${layout.drillingAngleDeg}° drilling angle`);
   if (layout.valAngleDeg != null) parts.push(`${layout.valAngleDeg}° VAL angle`);
   return parts.join(', ');

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { formatEighths } from '@shared/balls';
 import { ProfileSchema, type Profile } from '@shared/profile';
 
 /**
@@ -105,3 +106,71 @@ export function profileFormSchema(units: Units) {
     papUpIn: metricNumber(shape.papUpIn.unwrap(), CM_PER_IN, 'cm').nullable(),
   });
 }
+
+/* ---- display formatting: every screen shows the stored trade units in the bowler's chosen units ------------------- */
+
+export const KG_PER_LB = 0.45359237;
+export const M_PER_FT = 0.3048;
+
+/** The unit each kind of quantity is shown in. */
+export const DISPLAY_UNITS: Readonly<Record<Units, { speed: string; weight: string; length: string; distance: string }>> = {
+  imperial: { speed: 'mph', weight: 'lb', length: 'in', distance: 'ft' },
+  metric: { speed: 'km/h', weight: 'kg', length: 'cm', distance: 'm' },
+};
+
+/** A ball speed stored in mph, in the chosen units (number only). */
+export function speedValue(mph: number, units: Units): number {
+  return units === 'metric' ? mph * KMH_PER_MPH : mph;
+}
+/** A weight stored in pounds, in the chosen units (number only). */
+export function weightValue(lb: number, units: Units): number {
+  return units === 'metric' ? lb * KG_PER_LB : lb;
+}
+/** A short length stored in inches (RG, pin-to-PAP), in the chosen units (number only). */
+export function lengthValue(inches: number, units: Units): number {
+  return units === 'metric' ? inches * CM_PER_IN : inches;
+}
+/** A distance down the lane stored in feet, in the chosen units (number only). */
+export function distanceValue(ft: number, units: Units): number {
+  return units === 'metric' ? ft * M_PER_FT : ft;
+}
+
+/** A number with a fixed count of decimals, the minus sign typographic. */
+function fixed(value: number, decimals: number): string {
+  const text = value.toFixed(decimals);
+  return Number(text) === 0 ? (0).toFixed(decimals) : text.replace('-', '−');
+}
+
+/**
+ * Formatters for one choice of units: `speed(17)` → "17.0 mph" or "27.4 km/h"; `weight(15)` → "15 lb" or "6.8 kg";
+ * `length(2.5)` → "2.500 in" or "6.35 cm"; `distance(41)` → "41.0 ft" or "12.5 m". The number-only variants (`…Number`)
+ * are for tables whose header names the unit.
+ */
+export function unitFormatter(units: Units) {
+  const u = DISPLAY_UNITS[units];
+  const metric = units === 'metric';
+  const speedNumber = (mph: number, decimals = 1) => fixed(speedValue(mph, units), decimals);
+  const weightNumber = (lb: number) => (metric ? fixed(weightValue(lb, units), 1) : String(Math.round(lb * 100) / 100));
+  /** Inches keep the spec sheet's three decimals; centimetres two. */
+  const lengthNumber = (inches: number, decimals = metric ? 2 : 3) => fixed(lengthValue(inches, units), decimals);
+  const distanceNumber = (ft: number, decimals = 1) => fixed(distanceValue(ft, units), decimals);
+  return {
+    units,
+    labels: u,
+    speedNumber,
+    weightNumber,
+    lengthNumber,
+    distanceNumber,
+    speed: (mph: number, decimals = 1) => `${speedNumber(mph, decimals)} ${u.speed}`,
+    weight: (lb: number) => `${weightNumber(lb)} ${u.weight}`,
+    length: (inches: number, decimals?: number) => `${lengthNumber(inches, decimals)} ${u.length}`,
+    /** Pin-to-PAP: eighths of an inch as the pro shop writes them ("4 1/2 in"), or centimetres to one decimal. */
+    pinToPap: (inches: number) => (metric ? `${fixed(inches * CM_PER_IN, 1)} cm` : `${formatEighths(inches)} in`),
+    distance: (ft: number, decimals = 1) => `${distanceNumber(ft, decimals)} ${u.distance}`,
+    /** An input's value in display units and back (pin-to-PAP fields): inches ↔ centimetres. */
+    lengthIn: (inches: number | null) => (inches === null ? null : metric ? Math.round(inches * CM_PER_IN * 10) / 10 : inches),
+    lengthOut: (shown: number | null) => (shown === null ? null : metric ? Math.round((shown / CM_PER_IN) * 1000) / 1000 : shown),
+  };
+}
+
+export type UnitFormatter = ReturnType<typeof unitFormatter>;

@@ -1,5 +1,6 @@
 import type { ShotPrediction } from '@engine/index';
 import type { Ball } from '@shared/balls';
+import { unitFormatter, type UnitFormatter } from './units';
 
 /** A version of a ball to try: a surface (grit and polish) and a pin-to-PAP distance (null: undrilled). */
 export interface BallVariant {
@@ -41,16 +42,16 @@ export function applyVariant(ball: Ball, v: BallVariant): Ball {
 const f1 = (v: number) => v.toFixed(1);
 
 /**
- * How the breakpoint moves from one prediction to another, in one sentence both what-ifs print:
- * "Breakpoint 1.8 ft later and 0.7 boards deeper: board 8.1 at 41.0 ft → board 8.8 at 42.8 ft."
+ * How the breakpoint moves from one prediction to another, in one sentence both what-ifs print, distances in the
+ * bowler's units: "Breakpoint 1.8 ft later and 0.7 boards deeper: board 8.1 at 41.0 ft → board 8.8 at 42.8 ft."
  * Boards count from the bowler's hand-side gutter, so more boards is deeper (toward the middle).
  */
-export function breakpointChange(from: ShotPrediction, to: ShotPrediction): string {
+export function breakpointChange(from: ShotPrediction, to: ShotPrediction, u: Pick<UnitFormatter, 'distance'> = unitFormatter('imperial')): string {
   const dFt = to.breakpoint.ft - from.breakpoint.ft;
   const dBoard = to.breakpoint.board - from.breakpoint.board;
-  const ft = Math.abs(dFt) < 0.05 ? 'at the same distance' : `${f1(Math.abs(dFt))} ft ${dFt > 0 ? 'later' : 'earlier'}`;
+  const ft = Math.abs(dFt) < 0.05 ? 'at the same distance' : `${u.distance(Math.abs(dFt))} ${dFt > 0 ? 'later' : 'earlier'}`;
   const boards = Math.abs(dBoard) < 0.05 ? 'on the same board' : `${f1(Math.abs(dBoard))} boards ${dBoard > 0 ? 'deeper' : 'farther out'}`;
-  return `Breakpoint ${ft} and ${boards}: board ${f1(from.breakpoint.board)} at ${f1(from.breakpoint.ft)} ft → board ${f1(to.breakpoint.board)} at ${f1(to.breakpoint.ft)} ft.`;
+  return `Breakpoint ${ft} and ${boards}: board ${f1(from.breakpoint.board)} at ${u.distance(from.breakpoint.ft)} → board ${f1(to.breakpoint.board)} at ${u.distance(to.breakpoint.ft)}.`;
 }
 
 /** The fit of a ranked ball in words: "too strong by 5.6", "suits", "too weak by 6.1". */

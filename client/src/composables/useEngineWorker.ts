@@ -1,0 +1,29 @@
+import { wrap, type Remote } from 'comlink';
+import type { RankArsenalInput, RankedBallWithPrediction } from '@engine/index';
+import type { EngineWorker } from '@/workers/engine.worker';
+
+let remote: Remote<EngineWorker> | null = null;
+
+/** The one engine worker of the page, started on first use (Vite bundles it as its own module chunk). */
+function engineWorker(): Remote<EngineWorker> {
+  remote ??= wrap<EngineWorker>(new Worker(new URL('../workers/engine.worker.ts', import.meta.url), { type: 'module' }));
+  return remote;
+}
+
+/** rankArsenal in the engine worker; the input is copied as plain data first (reactive proxies cannot cross to a worker). */
+export async function rankInWorker(input: RankArsenalInput): Promise<RankedBallWithPrediction[]> {
+  return engineWorker().rankArsenal(JSON.parse(JSON.stringify(input)) as RankArsenalInput);
+}
+
+/**
+ * Keeps only the newest of overlapping runs: `const run = latestOnly()`, then `const r = await run(() => work())` is
+ * `{ value, stale }`, `stale` when a newer run started meanwhile (its answer is then dropped by the caller).
+ */
+export function latestOnly() {
+  let calls = 0;
+  return async <T>(work: () => Promise<T>): Promise<{ value: T; stale: boolean }> => {
+    const call = ++calls;
+    const value = await work();
+    return { value, stale: call !== calls };
+  };
+}

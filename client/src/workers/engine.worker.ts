@@ -1,0 +1,16 @@
+import { expose } from 'comlink';
+import { rankArsenal, type RankArsenalInput } from '@engine/index';
+
+/**
+ * The engine off the main thread: the what-if and the coach's side by side rank their changed balls here, so the
+ * page keeps answering input while a prediction (about 150 ms per ball on a slow machine) runs.
+ */
+const engine = {
+  rankArsenal(input: RankArsenalInput) {
+    return rankArsenal(input);
+  },
+};
+
+export type EngineWorker = typeof engine;
+
+expose(engine);
