@@ -1,18 +1,8 @@
-import type { Page, Role, User as UserDto, UserListQuery } from '../../../shared/auth';
+import type { AuditEvent as AuditEventDto, Page, Role, User as UserDto, UserListQuery } from '../../../shared/auth';
 import { AppError } from '../../lib/AppError';
 import { audit } from '../../lib/audit';
 import { AuditEvent, sequelize } from '../../models/index';
 import { toUserDto, userRepository } from '../auth/user.repository';
-
-export interface AuditEventDto {
-  id: number;
-  actorId: number | null;
-  action: string;
-  subjectType: string;
-  subjectId: string;
-  details: Record<string, unknown>;
-  createdAt: string;
-}
 
 export const adminService = {
   async listUsers(q: UserListQuery): Promise<Page<UserDto>> {

@@ -68,6 +68,10 @@ export const arsenalRepository = {
       paranoid: opts.paranoid ?? true,
     });
   },
+  /** Locks a ball of the owner for the rest of the transaction, a removed one too (a shop's work on it still lands). */
+  lockOwnedEvenRemoved(ownerId: number, id: number, transaction: Transaction): Promise<Ball | null> {
+    return Ball.findOne({ where: { id, ownerId }, paranoid: false, transaction, lock: transaction.LOCK.UPDATE });
+  },
   findOwnedMany(ownerId: number, ids?: number[]): Promise<Ball[]> {
     return Ball.findAll({ where: { ownerId, ...(ids ? { id: ids } : {}) }, order: [['id', 'ASC']] });
   },

@@ -142,12 +142,12 @@ export const sessionsService = {
    * session are serialised by a row lock on the session, and the unique (session, key) and (session, game,
    * frame, delivery) constraints make a second row impossible even without it.
    */
-  async addShot(user: AuthUser, sessionId: number, key: string, body: ShotCreate): Promise<{ status: 200 | 201; body: ShotCreated }> {
+  async addShot(user: AuthUser, sessionId: number, key: string, body: ShotCreate): Promise<{ replayed: boolean; shot: ShotCreated }> {
     await sessionFor(user, sessionId, 'write');
     const hash = requestHash(body);
-    const replay = (row: Shot): { status: 200; body: ShotCreated } => {
+    const replay = (row: Shot): { replayed: true; shot: ShotCreated } => {
       if (row.requestHash !== hash) throw AppError.conflict('idempotency_conflict', 'This Idempotency-Key was already used for a different shot; send a new key for a new shot');
-      return { status: 200, body: row.response as unknown as ShotCreated };
+      return { replayed: true, shot: row.response as unknown as ShotCreated };
     };
     const earlier = await sessionsRepository.findShotByKey(sessionId, key);
     if (earlier) return replay(earlier);
@@ -157,7 +157,7 @@ export const sessionsService = {
         if (!s || s.userId !== user.id) throw notFound();
         const raced = await sessionsRepository.findShotByKey(sessionId, key, transaction);
         if (raced) return replay(raced);
-        return { status: 201 as const, body: await insertShot(s, key, hash, body, transaction) };
+        return { replayed: false, shot: await insertShot(s, key, hash, body, transaction) };
       });
     } catch (err) {
       if (!(err instanceof UniqueConstraintError)) throw err;

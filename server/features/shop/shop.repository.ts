@@ -1,4 +1,4 @@
-import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import { Op, type CreationAttributes, type Transaction, type WhereOptions } from 'sequelize';
 import { SERVICE_KINDS, type Order as OrderDto, type OrderStatus, type ShopService as ShopServiceDto } from '../../../shared/shop';
 import { Center, Order, OrderEvent, Payment, ShopService, User } from '../../models/index';
 
@@ -54,6 +54,16 @@ export const shopRepository = {
   service(id: number, transaction?: Transaction): Promise<ShopService | null> {
     return ShopService.findByPk(id, { transaction });
   },
+  createService(data: CreationAttributes<ShopService>, transaction: Transaction): Promise<ShopService> {
+    return ShopService.create(data, { transaction });
+  },
+  /** Locks one price-list entry of a center for the rest of the transaction. */
+  lockService(centerId: number, id: number, transaction: Transaction): Promise<ShopService | null> {
+    return ShopService.findOne({ where: { id, centerId }, transaction, lock: transaction.LOCK.UPDATE });
+  },
+  createOrder(data: CreationAttributes<Order>, transaction: Transaction): Promise<Order> {
+    return Order.create(data, { transaction });
+  },
   /** One order with its bowler, center and history. */
   order(id: number, transaction?: Transaction): Promise<OrderRow | null> {
     return Order.findByPk(id, { include: orderIncludes, transaction }) as Promise<OrderRow | null>;
@@ -73,6 +83,19 @@ export const shopRepository = {
   },
   payments(orderId: number, transaction?: Transaction): Promise<Payment[]> {
     return Payment.findAll({ where: { orderId }, order: [['id', 'ASC']], transaction });
+  },
+  createPayment(data: CreationAttributes<Payment>, transaction: Transaction): Promise<Payment> {
+    return Payment.create(data, { transaction });
+  },
+  lockPayment(id: number, transaction: Transaction): Promise<Payment | null> {
+    return Payment.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+  },
+  /** Marks a checkout attempt expired if it is still open. */
+  async expireOpenPayment(id: number): Promise<void> {
+    await Payment.update({ status: 'expired' }, { where: { id, status: 'open' } });
+  },
+  async setRefundId(id: number, refundId: string): Promise<void> {
+    await Payment.update({ refundId }, { where: { id } });
   },
   paymentBySession(sessionId: string, transaction?: Transaction): Promise<Payment | null> {
     return Payment.findOne({ where: { checkoutSessionId: sessionId }, transaction });
