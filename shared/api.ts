@@ -14,3 +14,4 @@ export const itemsOf = <T extends z.ZodType>(item: T) => z.object({ items: z.arr
 export const engineValue = <T>(description: string) => z.custom<T>(() => true).meta({ type: 'object', description });
 
 export const OkSchema = z.object({ ok: z.literal(true) });
+export type Ok = z.infer<typeof OkSchema>;

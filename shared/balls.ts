@@ -121,6 +121,9 @@ export const BallModelSchema = z.object({
 });
 export type BallModel = z.infer<typeof BallModelSchema>;
 
+/** The answer of a CSV import into the catalogue: every row or none. */
+export const CatalogueImportResultSchema = z.object({ imported: z.number().int(), items: z.array(BallModelSchema) });
+
 const rangeNum = z.coerce.number({ error: 'Must be a number' }).finite();
 export const CatalogueQuerySchema = PageQuerySchema.extend({
   q: z.string().trim().max(100).optional(),
@@ -231,6 +234,10 @@ export const BallSchema = z.object({
   surfaceHistory: z.array(SurfaceEventSchema).optional(),
 });
 export type Ball = z.infer<typeof BallSchema>;
+
+/** The answer of a CSV import of an arsenal: every row or none. */
+export const ArsenalImportResultSchema = z.object({ imported: z.number().int(), items: z.array(BallSchema) });
+export type ArsenalImportResult = z.infer<typeof ArsenalImportResultSchema>;
 
 /** The fields of a stored ball the engine reads. */
 export type BallSpecSource = Pick<

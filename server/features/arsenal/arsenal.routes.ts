@@ -1,7 +1,6 @@
-import { z } from 'zod';
 import { IdParamSchema } from '../../../shared/auth';
 import { itemOf, pageOf } from '../../../shared/api';
-import { ArsenalQuerySchema, BallCreateSchema, ballCreateSchemaFor, BallPatchSchema, BallSchema, SurfaceChangeSchema } from '../../../shared/balls';
+import { ArsenalImportResultSchema, ArsenalQuerySchema, BallCreateSchema, ballCreateSchemaFor, BallPatchSchema, BallSchema, SurfaceChangeSchema } from '../../../shared/balls';
 import { csvFile, imageFile, uploadedFile } from '../../lib/upload';
 import { requireAuth } from '../../middleware/auth';
 import { NO_CONTENT, route, type RouteGroup } from '../../http/route';
@@ -21,7 +20,7 @@ export const arsenalRoutes: RouteGroup = {
     }),
     route({
       method: 'post', path: '/import', status: 201, summary: 'Import hand-entered balls from CSV (all rows or none)', access: 'signed-in',
-      upload: csvFile, response: z.object({ imported: z.number().int(), items: z.array(BallSchema) }),
+      upload: csvFile, response: ArsenalImportResultSchema,
       handler: ({ user, req }) => arsenalService.importCsv(user.id, uploadedFile(req).buffer),
     }),
     route({

@@ -1,7 +1,6 @@
-import { z } from 'zod';
 import { IdParamSchema } from '../../../shared/auth';
 import { itemOf, pageOf } from '../../../shared/api';
-import { BallModelInputSchema, BallModelPatchSchema, BallModelSchema, CatalogueQuerySchema } from '../../../shared/balls';
+import { BallModelInputSchema, CatalogueImportResultSchema, BallModelPatchSchema, BallModelSchema, CatalogueQuerySchema } from '../../../shared/balls';
 import { csvFile, uploadedFile } from '../../lib/upload';
 import { requireAuth } from '../../middleware/auth';
 import { route, type RouteGroup } from '../../http/route';
@@ -26,7 +25,7 @@ export const catalogueRoutes: RouteGroup = {
     }),
     route({
       method: 'post', path: '/import', status: 201, summary: 'Import catalogue balls from CSV (all rows or none)', access: admin,
-      upload: csvFile, response: z.object({ imported: z.number().int(), items: z.array(BallModelSchema) }),
+      upload: csvFile, response: CatalogueImportResultSchema,
       handler: ({ user, req }) => catalogueService.importCsv(user.id, uploadedFile(req).buffer),
     }),
     route({

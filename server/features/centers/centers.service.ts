@@ -1,3 +1,4 @@
+import esc from 'escape-html';
 import crypto from 'node:crypto';
 import type { Page } from '../../../shared/auth';
 import { laneSurfaceText, type Center as CenterDto, type CenterInput, type Condition as ConditionDto, type CurrentCondition, type FollowedCenter, type PublishCondition } from '../../../shared/centers';
@@ -20,7 +21,6 @@ function supersededBy(c: Condition, later: Condition[]): number | null {
   return hit ? hit.id : null;
 }
 
-const esc = (s: string) => s.replace(/[&<>"']/g, (ch) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[ch]!);
 
 async function centerOr404(id: number): Promise<Center> {
   const c = await centersRepository.findById(id);

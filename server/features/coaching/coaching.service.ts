@@ -1,3 +1,4 @@
+import esc from 'escape-html';
 import { UniqueConstraintError } from 'sequelize';
 import type { Page } from '../../../shared/auth';
 import type { CoachLink as CoachLinkDto, Plan as PlanDto, PlanCreate, StudentDetail, StudentSummary } from '../../../shared/coaching';
@@ -13,7 +14,6 @@ import { profileService } from '../profile/profile.service';
 import { isLinkedCoach } from './coaching.access';
 import { coachingRepository, toLinkDto, toPlanDto } from './coaching.repository';
 
-const esc = (s: string) => s.replace(/[&<>"']/g, (ch) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[ch]!);
 
 function mailBody(lines: string[], link: { href: string; label: string }): { text: string; html: string } {
   return { text: [...lines, '', `${link.label}: ${link.href}`].join('\n'), html: `<p>${lines.map(esc).join('<br>')}</p><p><a href="${esc(link.href)}">${esc(link.label)}</a></p>` };

@@ -1,6 +1,6 @@
 import { createHash } from 'node:crypto';
 import { UniqueConstraintError, type Transaction } from 'sequelize';
-import { buildGame, checkDelivery, shotStats, suggestMoves } from '../../../engine/index';
+import { buildGame, checkDelivery, isCalibrationShot, shotStats, suggestMoves, surfaceWords } from '../../../engine/index';
 import type { LoggedDelivery } from '../../../engine/shotlog/types';
 import type { Page } from '../../../shared/auth';
 import { DEFAULT_LANE_SURFACE } from '../../../shared/centers';
@@ -16,10 +16,6 @@ import { sessionsRepository, toAnnotationDto, toShotDto, toShotRecord, type Shot
 
 const notFound = () => AppError.notFound('Session');
 
-/** How a shot's surface is named in statistics: the grit, and "polished" when it is. */
-export function surfaceKeyOf(grit: number, polished: boolean): string {
-  return `${grit} grit${polished ? ' polished' : ''}`;
-}
 
 /**
  * The session for a request: its owner reaches it for anything; a linked coach may read it (and annotate);
@@ -202,7 +198,7 @@ async function insertShot(s: BowlingSession, key: string, hash: string, body: Sh
   const row = await Shot.create(
     {
       sessionId: s.id, gameNumber: body.gameNumber, frame: body.frame, delivery: body.delivery, ballId: ball.id,
-      surfaceGrit: ball.surfaceGrit, surfacePolished: ball.polished, surfaceKey: surfaceKeyOf(ball.surfaceGrit, ball.polished),
+      surfaceGrit: ball.surfaceGrit, surfacePolished: ball.polished, surfaceKey: surfaceWords(ball.surfaceGrit, ball.polished),
       feetBoard: body.feetBoard ?? null, targetBoard: body.targetBoard ?? null, breakpointBoard: body.breakpointBoard ?? null,
       standing: [...body.standing].sort((a, b) => a - b), foul: body.foul ?? false, hit: body.hit ?? null, note: body.note ?? '',
       idempotencyKey: key, requestHash: hash,
@@ -211,7 +207,7 @@ async function insertShot(s: BowlingSession, key: string, hash: string, body: Sh
   );
   // A shot that says something about the ball's motion asks the worker to refit this bowler on this pattern, on the
   // lanes it was bowled on (the session's published condition, else the default surface), once the shot is committed.
-  if (s.patternId && body.delivery === 1 && body.feetBoard != null && body.targetBoard != null && (body.breakpointBoard != null || body.hit != null)) {
+  if (s.patternId && isCalibrationShot(body)) {
     const patternId = s.patternId;
     requestCalibrationFitsAfterCommit(transaction, () => [s.conditionId ? { bowlerId: s.userId, conditionId: s.conditionId } : { bowlerId: s.userId, patternId, lane: DEFAULT_LANE_SURFACE }]);
   }

@@ -1,9 +1,9 @@
+import esc from 'escape-html';
 import type { Transaction } from 'sequelize';
 import { formatMoney } from '../../../shared/shop';
 import { enqueueMail } from '../../lib/outbox';
 import { Center, User, type Order } from '../../models/index';
 
-const esc = (s: string) => s.replace(/[&<>"']/g, (ch) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[ch]!);
 
 type Kind = 'receipt' | 'ready' | 'refunded';
 
