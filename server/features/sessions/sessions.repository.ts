@@ -1,4 +1,4 @@
-import { Op, QueryTypes, type Transaction } from 'sequelize';
+import { Op, QueryTypes, type CreationAttributes, type Transaction } from 'sequelize';
 import type { ShotRecord } from '../../../engine/shotlog/types';
 import type { LaneSurface } from '../../../engine/types';
 import { ballLabel } from '../../../shared/balls';
@@ -135,6 +135,18 @@ export function toAnnotationDto(a: Annotation & { author?: User }): AnnotationDt
 }
 
 export const sessionsRepository = {
+  create(data: CreationAttributes<BowlingSession>): Promise<BowlingSession> {
+    return BowlingSession.create(data);
+  },
+  createShot(data: CreationAttributes<Shot>, transaction: Transaction): Promise<Shot> {
+    return Shot.create(data, { transaction });
+  },
+  findShot(sessionId: number, id: number, transaction: Transaction): Promise<Shot | null> {
+    return Shot.findOne({ where: { id, sessionId }, transaction });
+  },
+  createAnnotation(data: CreationAttributes<Annotation>): Promise<Annotation> {
+    return Annotation.create(data);
+  },
   /** One page of a bowler's sessions, newest first, and the total, in one statement. */
   async list(userId: number, q: { page: number; pageSize: number; from?: string; to?: string }): Promise<{ rows: SessionDto[]; count: number }> {
     const where = ['s.user_id = :userId', 's.deleted_at IS NULL'];

@@ -8,7 +8,11 @@ import type { AnnotationCreate, Annotation as AnnotationDto } from '../../../sha
 import type { NumberedGame, Session as SessionDto, SessionCreate, SessionDetail, SessionListQuery, SessionPatch, ShotCreate, ShotCreated } from '../../../shared/sessions';
 import { AppError } from '../../lib/AppError';
 import type { AuthUser } from '../../middleware/auth';
-import { Annotation, Ball, BowlingSession, Center, Condition, Pattern, sequelize, Shot, User } from '../../models/index';
+import { sequelize, type BowlingSession, type Shot, type User } from '../../models/index';
+import { arsenalRepository } from '../arsenal/arsenal.repository';
+import { userRepository } from '../auth/user.repository';
+import { centersRepository } from '../centers/centers.repository';
+import { patternsRepository } from '../patterns/patterns.repository';
 import { isLinkedCoach, readableBowlerId } from '../coaching/coaching.access';
 import { profileService } from '../profile/profile.service';
 import { requestCalibrationFitsAfterCommit } from '../stats/calibrationJobs';
@@ -66,7 +70,7 @@ export const sessionsService = {
     let patternName: string | null = null;
     const conditionId = input.conditionId ?? null;
     if (conditionId !== null) {
-      const c = await Condition.findByPk(conditionId);
+      const c = await centersRepository.findConditionById(conditionId);
       if (!c) throw AppError.badRequest('That condition does not exist', { 'body.conditionId': 'Unknown condition' });
       if (centerId !== null && centerId !== c.centerId) throw AppError.badRequest('The condition is not one of that center’s', { 'body.conditionId': 'This condition was published by another center' });
       if (patternId !== null && c.patternId !== patternId) throw AppError.badRequest('The condition has another pattern', { 'body.patternId': 'Leave the pattern out or choose the condition’s own' });
@@ -74,13 +78,13 @@ export const sessionsService = {
       patternId = c.patternId;
       patternName = c.patternName;
     }
-    if (centerId !== null && !(await Center.findByPk(centerId, { attributes: ['id'] }))) throw AppError.badRequest('That center does not exist', { 'body.centerId': 'Unknown center' });
+    if (centerId !== null && !(await centersRepository.findById(centerId))) throw AppError.badRequest('That center does not exist', { 'body.centerId': 'Unknown center' });
     if (patternId !== null && patternName === null) {
-      const p = await Pattern.findByPk(patternId, { attributes: ['id', 'name'] });
+      const p = await patternsRepository.findById(patternId);
       if (!p) throw AppError.badRequest('That pattern does not exist', { 'body.patternId': 'Unknown pattern' });
       patternName = p.name;
     }
-    const s = await BowlingSession.create({ userId: user.id, date: input.date, kind: input.kind, centerId, conditionId, patternId, patternName, notes: input.notes ?? '' });
+    const s = await sessionsRepository.create({ userId: user.id, date: input.date, kind: input.kind, centerId, conditionId, patternId, patternName, notes: input.notes ?? '' });
     return (await sessionsRepository.findDto(s.id))!;
   },
 
@@ -96,7 +100,7 @@ export const sessionsService = {
       sessionsRepository.findDto(id),
       sessionsRepository.shotsOf(id),
       sessionsRepository.annotationsOf(id),
-      User.findByPk(s.userId, { attributes: ['id', 'displayName'] }),
+      userRepository.findById(s.userId),
       profileService.get(s.userId),
     ]);
     const records = shots.map((r) => toShotRecord(r, s.date));
@@ -169,7 +173,7 @@ export const sessionsService = {
     await sequelize.transaction(async (transaction) => {
       const s = await sessionsRepository.findModel(sessionId, { transaction, lock: true });
       if (!s) throw notFound();
-      const shot = await Shot.findOne({ where: { id: shotId, sessionId }, transaction });
+      const shot = await sessionsRepository.findShot(sessionId, shotId, transaction);
       if (!shot) throw AppError.notFound('Shot');
       const game = await sessionsRepository.gameShots(sessionId, shot.gameNumber, transaction);
       if (game.at(-1)!.id !== shot.id) throw AppError.conflict('not_last_shot', `Only the last delivery of game ${shot.gameNumber} can be undone`);
@@ -181,13 +185,13 @@ export const sessionsService = {
   async annotate(user: AuthUser, sessionId: number, input: AnnotationCreate): Promise<AnnotationDto> {
     await sessionFor(user, sessionId, 'read');
     if (input.frame != null && input.gameNumber == null) throw AppError.badRequest('Name the game of the frame', { 'body.gameNumber': 'Give the game the frame belongs to' });
-    const a = await Annotation.create({ sessionId, authorId: user.id, gameNumber: input.gameNumber ?? null, frame: input.frame ?? null, text: input.text });
+    const a = await sessionsRepository.createAnnotation({ sessionId, authorId: user.id, gameNumber: input.gameNumber ?? null, frame: input.frame ?? null, text: input.text });
     return toAnnotationDto(Object.assign(a, { author: { displayName: user.displayName } as User }));
   },
 };
 
 async function insertShot(s: BowlingSession, key: string, hash: string, body: ShotCreate, transaction: Transaction): Promise<ShotCreated> {
-  const ball = await Ball.findOne({ where: { id: body.ballId, ownerId: s.userId }, transaction });
+  const ball = await arsenalRepository.findOwned(s.userId, body.ballId, { transaction });
   if (!ball) throw invalidShot('ballId', 'This ball is not in your arsenal');
   const last = await sessionsRepository.lastGameNumber(s.id, transaction);
   if (body.gameNumber > last + 1) throw invalidShot('gameNumber', `game ${body.gameNumber} cannot start yet: the next new game is game ${last + 1}`);
@@ -195,7 +199,7 @@ async function insertShot(s: BowlingSession, key: string, hash: string, body: Sh
   const next: LoggedDelivery = { frame: body.frame, delivery: body.delivery, standing: body.standing, foul: body.foul ?? false };
   const check = checkDelivery(prior, next);
   if (!check.ok) throw invalidShot(check.field, check.reason);
-  const row = await Shot.create(
+  const row = await sessionsRepository.createShot(
     {
       sessionId: s.id, gameNumber: body.gameNumber, frame: body.frame, delivery: body.delivery, ballId: ball.id,
       surfaceGrit: ball.surfaceGrit, surfacePolished: ball.polished, surfaceKey: surfaceWords(ball.surfaceGrit, ball.polished),
@@ -203,7 +207,7 @@ async function insertShot(s: BowlingSession, key: string, hash: string, body: Sh
       standing: [...body.standing].sort((a, b) => a - b), foul: body.foul ?? false, hit: body.hit ?? null, note: body.note ?? '',
       idempotencyKey: key, requestHash: hash,
     },
-    { transaction },
+    transaction,
   );
   // A shot that says something about the ball's motion asks the worker to refit this bowler on this pattern, on the
   // lanes it was bowled on (the session's published condition, else the default surface), once the shot is committed.
