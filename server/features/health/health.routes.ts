@@ -6,7 +6,8 @@ import { AppError } from '../../lib/AppError';
 import { mailCaptureEnabled } from '../../lib/mailer';
 import { registry } from '../../lib/metrics';
 import { logger } from '../../lib/logger';
-import { MailOutbox, sequelize } from '../../models/index';
+import { pingPrimary } from '../../db/sequelize';
+import { outboxSummary } from '../../lib/outbox';
 import { Reply, route, type RouteGroup } from '../../http/route';
 import { z } from 'zod';
 
@@ -114,7 +115,7 @@ function checkMail(): Promise<'ok' | 'unreachable'> {
  * (`outbox.pending`) and goes out when the mail server answers again.
  */
 function dbCheck(): Promise<'ok' | 'unreachable'> {
-  return withTimeout(sequelize.query('SELECT 1', { useMaster: true }), 'database check').then(
+  return withTimeout(pingPrimary(), 'database check').then(
     () => 'ok' as const,
     () => 'unreachable' as const,
   );
@@ -132,17 +133,11 @@ const health = route({
   method: 'get', path: '/', summary: 'Liveness and database reachability', access: 'public',
   response: HealthSchema, alsoAnswers: { 503: 'Degraded: the database does not answer' },
   handler: async () => {
-  const [db, mail] = await Promise.all([dbCheck(), checkMail()]);
-  const mailMode = mailCaptureEnabled || !config.SMTP_URL ? ('capture' as const) : ('smtp' as const);
-  if (db !== 'ok') return new Reply(503, { status: 'degraded' as const, db: 'unreachable' as const, mail, mailMode });
-  const outbox = await withTimeout(
-    Promise.all([MailOutbox.count({ where: { status: 'pending' } }), MailOutbox.count({ where: { status: 'failed' } }), MailOutbox.min('createdAt', { where: { status: 'pending' } })]),
-    'outbox check',
-  ).then(
-    ([pending, failed, oldest]) => ({ pending, failed, oldestPendingSeconds: oldest ? Math.round((Date.now() - new Date(oldest as Date).getTime()) / 1000) : null }),
-    () => null,
-  );
-  return { status: 'ok' as const, db: 'ok' as const, mail, mailMode, outbox };
+    const [db, mail] = await Promise.all([dbCheck(), checkMail()]);
+    const mailMode = mailCaptureEnabled || !config.SMTP_URL ? ('capture' as const) : ('smtp' as const);
+    if (db !== 'ok') return new Reply(503, { status: 'degraded' as const, db: 'unreachable' as const, mail, mailMode });
+    const outbox = await withTimeout(outboxSummary(), 'outbox check').catch(() => null);
+    return { status: 'ok' as const, db: 'ok' as const, mail, mailMode, outbox };
   },
 });
 
