@@ -1,7 +1,8 @@
 import { z } from 'zod';
 
 /** A page of a list: `{ items, total, page, pageSize }`. */
-export const pageOf = <T extends z.ZodType>(item: T) => z.object({ items: z.array(item), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() });
+export const pageOf = <T extends z.ZodType>(item: T) =>
+  z.object({ items: z.array(item), total: z.number().int(), page: z.number().int(), pageSize: z.number().int() });
 /** A single record: `{ item }`. */
 export const itemOf = <T extends z.ZodType>(item: T) => z.object({ item });
 /** A list without paging: `{ items }`. */

@@ -103,17 +103,22 @@ export const BallModelInputSchema = CoreSpecSchema.extend({
 export type BallModelInput = z.infer<typeof BallModelInputSchema>;
 export const BallModelPatchSchema = BallModelInputSchema.partial().extend({ version: z.number().int().min(0) });
 
-/** A catalogue ball as the API answers it. */
-export const BallModelSchema = z.object({
-  id: z.number().int(),
-  maker: z.string(),
-  name: z.string(),
+/** A ball's core and cover as stored (catalogue and arsenal answers). */
+const storedSpec = {
   rg: z.number(),
   differential: z.number(),
   intermediateDifferential: z.number(),
   coverType: CoverTypeSchema,
   coreType: CoreTypeSchema,
   hardnessD: z.number().nullable(),
+};
+
+/** A catalogue ball as the API answers it. */
+export const BallModelSchema = z.object({
+  id: z.number().int(),
+  maker: z.string(),
+  name: z.string(),
+  ...storedSpec,
   factoryGrit: z.number().int(),
   factoryPolished: z.boolean(),
   releaseYear: z.number().int().nullable(),
@@ -213,12 +218,7 @@ export const BallSchema = z.object({
   name: z.string(),
   nickname: z.string().nullable(),
   weightLb: z.number(),
-  rg: z.number(),
-  differential: z.number(),
-  intermediateDifferential: z.number(),
-  coverType: CoverTypeSchema,
-  coreType: CoreTypeSchema,
-  hardnessD: z.number().nullable(),
+  ...storedSpec,
   /** Year the ball model was approved: the catalogue model's release year (null for a ball entered by hand). */
   approvalYear: z.number().int().nullable(),
   surfaceGrit: z.number().int(),

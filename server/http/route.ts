@@ -80,9 +80,13 @@ export interface RouteSpec<P = unknown, Q = unknown, B = unknown, R = unknown, A
 export type AnyRoute = RouteSpec<z.ZodType | undefined, z.ZodType | undefined, z.ZodType | undefined, ResponseDoc, Access>;
 
 /** Declares one route; the handler's input and output types come from the schemas. */
-export function route<P extends z.ZodType | undefined = undefined, Q extends z.ZodType | undefined = undefined, B extends z.ZodType | undefined = undefined, R extends ResponseDoc = ResponseDoc, const A extends Access = Access>(
-  spec: RouteSpec<P, Q, B, R, A>,
-): AnyRoute {
+export function route<
+  P extends z.ZodType | undefined = undefined,
+  Q extends z.ZodType | undefined = undefined,
+  B extends z.ZodType | undefined = undefined,
+  R extends ResponseDoc = ResponseDoc,
+  const A extends Access = Access,
+>(spec: RouteSpec<P, Q, B, R, A>): AnyRoute {
   return spec as unknown as AnyRoute;
 }
 

@@ -26,10 +26,17 @@ export function readBody(req: IncomingMessage, limit = 256 * 1024): Promise<stri
 export function intParam(v: FormValue | undefined, param: string, required = true): number | undefined {
   const s = str(v);
   if (s === undefined) {
-    if (required) throw new ApiError(400, { type: 'invalid_request_error', code: 'parameter_missing', message: `Missing required param: ${param}.`, param });
+    if (required)
+      throw new ApiError(400, {
+        type: 'invalid_request_error',
+        code: 'parameter_missing',
+        message: `Missing required param: ${param}.`,
+        param,
+      });
     return undefined;
   }
-  if (!/^\d+$/.test(s)) throw new ApiError(400, { type: 'invalid_request_error', code: 'parameter_invalid_integer', message: `Invalid integer: ${s}`, param });
+  if (!/^\d+$/.test(s))
+    throw new ApiError(400, { type: 'invalid_request_error', code: 'parameter_invalid_integer', message: `Invalid integer: ${s}`, param });
   return Number(s);
 }
 
@@ -43,29 +50,74 @@ export function apiHandler(opts: Pick<StripeFakeOptions, 'apiKey'>, state: FakeS
   const sessionOr404 = (id: string) => state.sessionOr404(id);
 
   function createSession(p: Record<string, FormValue>): Obj {
-    if (str(p.mode) !== 'payment') throw new ApiError(400, { type: 'invalid_request_error', code: 'parameter_invalid', message: 'Only mode=payment is supported here.', param: 'mode' });
+    if (str(p.mode) !== 'payment')
+      throw new ApiError(400, {
+        type: 'invalid_request_error',
+        code: 'parameter_invalid',
+        message: 'Only mode=payment is supported here.',
+        param: 'mode',
+      });
     const successUrl = str(p.success_url);
-    if (!successUrl) throw new ApiError(400, { type: 'invalid_request_error', code: 'parameter_missing', message: 'Missing required param: success_url.', param: 'success_url' });
+    if (!successUrl)
+      throw new ApiError(400, {
+        type: 'invalid_request_error',
+        code: 'parameter_missing',
+        message: 'Missing required param: success_url.',
+        param: 'success_url',
+      });
     const items = Array.isArray(p.line_items) ? p.line_items : [];
-    if (!items.length) throw new ApiError(400, { type: 'invalid_request_error', code: 'parameter_missing', message: 'Missing required param: line_items.', param: 'line_items' });
+    if (!items.length)
+      throw new ApiError(400, {
+        type: 'invalid_request_error',
+        code: 'parameter_missing',
+        message: 'Missing required param: line_items.',
+        param: 'line_items',
+      });
     let amount = 0;
     let currency: string | null = null;
     const names: string[] = [];
     items.forEach((raw, i) => {
       const it = (raw && typeof raw === 'object' && !Array.isArray(raw) ? raw : {}) as Record<string, FormValue>;
-      const pd = (it.price_data && typeof it.price_data === 'object' && !Array.isArray(it.price_data) ? it.price_data : {}) as Record<string, FormValue>;
+      const pd = (it.price_data && typeof it.price_data === 'object' && !Array.isArray(it.price_data) ? it.price_data : {}) as Record<
+        string,
+        FormValue
+      >;
       const cur = str(pd.currency);
-      if (!cur) throw new ApiError(400, { type: 'invalid_request_error', code: 'parameter_missing', message: 'Missing required param: line_items[0][price_data][currency].', param: `line_items[${i}][price_data][currency]` });
-      if (currency && cur !== currency) throw new ApiError(400, { type: 'invalid_request_error', code: 'parameter_invalid', message: 'All line items must share a currency.', param: `line_items[${i}][price_data][currency]` });
+      if (!cur)
+        throw new ApiError(400, {
+          type: 'invalid_request_error',
+          code: 'parameter_missing',
+          message: 'Missing required param: line_items[0][price_data][currency].',
+          param: `line_items[${i}][price_data][currency]`,
+        });
+      if (currency && cur !== currency)
+        throw new ApiError(400, {
+          type: 'invalid_request_error',
+          code: 'parameter_invalid',
+          message: 'All line items must share a currency.',
+          param: `line_items[${i}][price_data][currency]`,
+        });
       currency = cur.toLowerCase();
       const unit = intParam(pd.unit_amount, `line_items[${i}][price_data][unit_amount]`)!;
       const qty = intParam(it.quantity, `line_items[${i}][quantity]`)!;
-      const product = (pd.product_data && typeof pd.product_data === 'object' && !Array.isArray(pd.product_data) ? pd.product_data : {}) as Record<string, FormValue>;
+      const product = (
+        pd.product_data && typeof pd.product_data === 'object' && !Array.isArray(pd.product_data) ? pd.product_data : {}
+      ) as Record<string, FormValue>;
       names.push(str(product.name) ?? 'Item');
       amount += unit * qty;
     });
-    if (amount < 50) throw new ApiError(400, { type: 'invalid_request_error', code: 'amount_too_small', message: 'The Checkout Session\'s total amount due must add up to at least $0.50 usd', param: 'line_items' });
-    const pid = (p.payment_intent_data && typeof p.payment_intent_data === 'object' && !Array.isArray(p.payment_intent_data) ? p.payment_intent_data : {}) as Record<string, FormValue>;
+    if (amount < 50)
+      throw new ApiError(400, {
+        type: 'invalid_request_error',
+        code: 'amount_too_small',
+        message: "The Checkout Session's total amount due must add up to at least $0.50 usd",
+        param: 'line_items',
+      });
+    const pid = (
+      p.payment_intent_data && typeof p.payment_intent_data === 'object' && !Array.isArray(p.payment_intent_data)
+        ? p.payment_intent_data
+        : {}
+    ) as Record<string, FormValue>;
     const id = newId('cs');
     const created = now();
     const s: Obj = {
@@ -90,13 +142,22 @@ export function apiHandler(opts: Pick<StripeFakeOptions, 'apiKey'>, state: FakeS
       // Not part of the real object: what the hosted page shows and what the intent carries.
     };
     sessions.set(id, s);
-    sessionExtras.set(id, { productName: names.join(', '), intentMetadata: strMap(pid.metadata), description: str(pid.description) ?? null });
+    sessionExtras.set(id, {
+      productName: names.join(', '),
+      intentMetadata: strMap(pid.metadata),
+      description: str(pid.description) ?? null,
+    });
     return s;
   }
 
   function expireSession(id: string): Obj {
     const s = sessionOr404(id);
-    if (s.status !== 'open') throw new ApiError(400, { type: 'invalid_request_error', code: 'checkout_session_not_open', message: `Only Checkout Sessions with a status in ["open"] can be expired. This Checkout Session has a status of "${String(s.status)}".` });
+    if (s.status !== 'open')
+      throw new ApiError(400, {
+        type: 'invalid_request_error',
+        code: 'checkout_session_not_open',
+        message: `Only Checkout Sessions with a status in ["open"] can be expired. This Checkout Session has a status of "${String(s.status)}".`,
+      });
     s.status = 'expired';
     s.url = null;
     void emit('checkout.session.expired', s);
@@ -109,21 +170,53 @@ export function apiHandler(opts: Pick<StripeFakeOptions, 'apiKey'>, state: FakeS
     const chId = str(p.charge);
     if (piId) {
       const pi = intents.get(piId);
-      if (!pi) throw new ApiError(404, { type: 'invalid_request_error', code: 'resource_missing', message: `No such payment_intent: '${piId}'`, param: 'payment_intent' });
+      if (!pi)
+        throw new ApiError(404, {
+          type: 'invalid_request_error',
+          code: 'resource_missing',
+          message: `No such payment_intent: '${piId}'`,
+          param: 'payment_intent',
+        });
       if (!pi.latest_charge || pi.status !== 'succeeded')
-        throw new ApiError(400, { type: 'invalid_request_error', code: 'charge_not_refundable', message: 'This PaymentIntent does not have a successful charge to refund.', param: 'payment_intent' });
+        throw new ApiError(400, {
+          type: 'invalid_request_error',
+          code: 'charge_not_refundable',
+          message: 'This PaymentIntent does not have a successful charge to refund.',
+          param: 'payment_intent',
+        });
       charge = charges.get(String(pi.latest_charge));
     } else if (chId) {
       charge = charges.get(chId);
-      if (!charge) throw new ApiError(404, { type: 'invalid_request_error', code: 'resource_missing', message: `No such charge: '${chId}'`, param: 'charge' });
+      if (!charge)
+        throw new ApiError(404, {
+          type: 'invalid_request_error',
+          code: 'resource_missing',
+          message: `No such charge: '${chId}'`,
+          param: 'charge',
+        });
     } else {
-      throw new ApiError(400, { type: 'invalid_request_error', code: 'parameter_missing', message: 'One of the following params should be provided for this request: payment_intent or charge.' });
+      throw new ApiError(400, {
+        type: 'invalid_request_error',
+        code: 'parameter_missing',
+        message: 'One of the following params should be provided for this request: payment_intent or charge.',
+      });
     }
     const c = charge!;
     const left = Number(c.amount) - Number(c.amount_refunded);
-    if (left <= 0) throw new ApiError(400, { type: 'invalid_request_error', code: 'charge_already_refunded', message: `Charge ${String(c.id)} has already been refunded.` });
+    if (left <= 0)
+      throw new ApiError(400, {
+        type: 'invalid_request_error',
+        code: 'charge_already_refunded',
+        message: `Charge ${String(c.id)} has already been refunded.`,
+      });
     const amount = intParam(p.amount, 'amount', false) ?? left;
-    if (amount > left || amount <= 0) throw new ApiError(400, { type: 'invalid_request_error', code: 'amount_too_large', message: `Refund amount (${amount}) is greater than unrefunded amount on charge (${left})`, param: 'amount' });
+    if (amount > left || amount <= 0)
+      throw new ApiError(400, {
+        type: 'invalid_request_error',
+        code: 'amount_too_large',
+        message: `Refund amount (${amount}) is greater than unrefunded amount on charge (${left})`,
+        param: 'amount',
+      });
     const r: Obj = {
       id: newId('re'),
       object: 'refund',
@@ -147,10 +240,16 @@ export function apiHandler(opts: Pick<StripeFakeOptions, 'apiKey'>, state: FakeS
   return async function api(req: IncomingMessage, res: ServerResponse, path: string): Promise<void> {
     const auth = req.headers.authorization ?? '';
     const key = /^Bearer (sk_test_\S+)$/.exec(auth)?.[1];
-    if (!key || (opts.apiKey !== undefined && !crypto.timingSafeEqual(crypto.createHash('sha256').update(key).digest(), crypto.createHash('sha256').update(opts.apiKey).digest()))) {
+    if (
+      !key ||
+      (opts.apiKey !== undefined &&
+        !crypto.timingSafeEqual(crypto.createHash('sha256').update(key).digest(), crypto.createHash('sha256').update(opts.apiKey).digest()))
+    ) {
       throw new ApiError(401, {
         type: 'invalid_request_error',
-        message: auth ? 'Invalid API Key provided (test mode keys start with sk_test_).' : 'You did not provide an API key. Provide it in the Authorization header (Authorization: Bearer YOUR_SECRET_KEY).',
+        message: auth
+          ? 'Invalid API Key provided (test mode keys start with sk_test_).'
+          : 'You did not provide an API key. Provide it in the Authorization header (Authorization: Bearer YOUR_SECRET_KEY).',
       });
     }
     const method = req.method ?? 'GET';
@@ -159,7 +258,12 @@ export function apiHandler(opts: Pick<StripeFakeOptions, 'apiKey'>, state: FakeS
     const idemKey = typeof idem === 'string' ? `${key}:${path}:${idem}` : null;
     if (idemKey && idempotent.has(idemKey)) {
       const hit = idempotent.get(idemKey)!;
-      res.writeHead(hit.status, { 'Content-Type': 'application/json', 'Request-Id': newId('req'), 'Idempotency-Key': String(idem), 'Idempotent-Replayed': 'true' });
+      res.writeHead(hit.status, {
+        'Content-Type': 'application/json',
+        'Request-Id': newId('req'),
+        'Idempotency-Key': String(idem),
+        'Idempotent-Replayed': 'true',
+      });
       res.end(hit.body);
       return;
     }
@@ -171,17 +275,37 @@ export function apiHandler(opts: Pick<StripeFakeOptions, 'apiKey'>, state: FakeS
     else if (method === 'POST' && (m = /^\/v1\/checkout\/sessions\/([\w]+)\/expire$/.exec(path))) out = expireSession(m[1]);
     else if (method === 'GET' && (m = /^\/v1\/payment_intents\/([\w]+)$/.exec(path))) {
       const pi = intents.get(m[1]);
-      if (!pi) throw new ApiError(404, { type: 'invalid_request_error', code: 'resource_missing', message: `No such payment_intent: '${m[1]}'`, param: 'intent' });
+      if (!pi)
+        throw new ApiError(404, {
+          type: 'invalid_request_error',
+          code: 'resource_missing',
+          message: `No such payment_intent: '${m[1]}'`,
+          param: 'intent',
+        });
       out = pi;
     } else if (method === 'POST' && path === '/v1/refunds') out = createRefund(p);
     else if (method === 'GET' && (m = /^\/v1\/refunds\/([\w]+)$/.exec(path))) {
       const r = refunds.get(m[1]);
-      if (!r) throw new ApiError(404, { type: 'invalid_request_error', code: 'resource_missing', message: `No such refund: '${m[1]}'`, param: 'id' });
+      if (!r)
+        throw new ApiError(404, {
+          type: 'invalid_request_error',
+          code: 'resource_missing',
+          message: `No such refund: '${m[1]}'`,
+          param: 'id',
+        });
       out = r;
-    } else throw new ApiError(404, { type: 'invalid_request_error', message: `Unrecognized request URL (${method}: ${path}). This local test service implements only the calls Lanewright makes.` });
+    } else
+      throw new ApiError(404, {
+        type: 'invalid_request_error',
+        message: `Unrecognized request URL (${method}: ${path}). This local test service implements only the calls Lanewright makes.`,
+      });
     const body = JSON.stringify(out, null, 2);
     if (idemKey) idempotent.set(idemKey, { status: 200, body });
-    res.writeHead(200, { 'Content-Type': 'application/json', 'Request-Id': newId('req'), 'Stripe-Version': String(req.headers['stripe-version'] ?? API_VERSION) });
+    res.writeHead(200, {
+      'Content-Type': 'application/json',
+      'Request-Id': newId('req'),
+      'Stripe-Version': String(req.headers['stripe-version'] ?? API_VERSION),
+    });
     res.end(body);
   };
 }

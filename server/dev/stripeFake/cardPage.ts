@@ -22,7 +22,11 @@ function luhn(num: string): boolean {
 }
 
 export const html = (res: ServerResponse, status: number, body: string) => {
-  res.writeHead(status, { 'Content-Type': 'text/html; charset=utf-8', 'Cache-Control': 'no-store', 'Content-Security-Policy': "default-src 'none'; style-src 'unsafe-inline'; form-action *; frame-ancestors 'none'" });
+  res.writeHead(status, {
+    'Content-Type': 'text/html; charset=utf-8',
+    'Cache-Control': 'no-store',
+    'Content-Security-Policy': "default-src 'none'; style-src 'unsafe-inline'; form-action *; frame-ancestors 'none'",
+  });
   res.end(body);
 };
 
@@ -37,7 +41,13 @@ export function cardPageHandler(opts: Pick<StripeFakeOptions, 'redirectWaitMs'>,
   const emit = (type: string, object: Obj) => webhooks.emit(type, object);
 
   function pageInfo(s: Obj) {
-    return { id: String(s.id), productName: sessionExtras.get(String(s.id))?.productName ?? 'Payment', amount: Number(s.amount_total), currency: String(s.currency), email: (s.customer_email as string | null) ?? null };
+    return {
+      id: String(s.id),
+      productName: sessionExtras.get(String(s.id))?.productName ?? 'Payment',
+      amount: Number(s.amount_total),
+      currency: String(s.currency),
+      email: (s.customer_email as string | null) ?? null,
+    };
   }
 
   function newIntent(s: Obj): Obj {
@@ -107,14 +117,20 @@ export function cardPageHandler(opts: Pick<StripeFakeOptions, 'redirectWaitMs'>,
     if (!m || !s) return html(res, 404, closedPage('missing', null));
     const sub = m[2] ?? '';
     if (sub === '/cancel') return s.cancel_url ? redirect(res, String(s.cancel_url)) : html(res, 200, closedPage(String(s.status), null));
-    if (s.status !== 'open') return html(res, s.status === 'complete' ? 200 : 410, closedPage(String(s.status), s.status === 'complete' ? successUrl(s) : ((s.cancel_url as string | null) ?? null)));
+    if (s.status !== 'open')
+      return html(
+        res,
+        s.status === 'complete' ? 200 : 410,
+        closedPage(String(s.status), s.status === 'complete' ? successUrl(s) : ((s.cancel_url as string | null) ?? null)),
+      );
     if ((req.method ?? 'GET') === 'GET') return html(res, 200, cardPage(pageInfo(s)));
     if (req.method !== 'POST') return html(res, 405, closedPage('missing', null));
     const form = new URLSearchParams(await readBody(req, 16 * 1024));
 
     if (sub === '/challenge') {
       const pi = intents.get(form.get('payment_intent') ?? '');
-      if (!pi || pi.status !== 'requires_action' || s.payment_intent !== pi.id) return html(res, 400, cardPage(pageInfo(s), 'This confirmation is no longer valid; enter your card again.'));
+      if (!pi || pi.status !== 'requires_action' || s.payment_intent !== pi.id)
+        return html(res, 400, cardPage(pageInfo(s), 'This confirmation is no longer valid; enter your card again.'));
       if (form.get('outcome') === 'approve') {
         await succeed(s, pi, '3155');
         return redirect(res, successUrl(s));
@@ -148,7 +164,13 @@ export function cardPageHandler(opts: Pick<StripeFakeOptions, 'redirectWaitMs'>,
       return html(res, 402, cardPage(pageInfo(s), `${msg} Try another card.`, values));
     }
     if (number === CARD_3DS) {
-      Object.assign(pi, { status: 'requires_action', next_action: { type: 'redirect_to_url', redirect_to_url: { url: `${state.base}/pay/${String(s.id)}/challenge`, return_url: successUrl(s) } } });
+      Object.assign(pi, {
+        status: 'requires_action',
+        next_action: {
+          type: 'redirect_to_url',
+          redirect_to_url: { url: `${state.base}/pay/${String(s.id)}/challenge`, return_url: successUrl(s) },
+        },
+      });
       return html(res, 200, challengePage(pageInfo(s), String(pi.id)));
     }
     return html(res, 402, cardPage(pageInfo(s), 'Your card number is incorrect. In test mode use one of the test cards below.', values));

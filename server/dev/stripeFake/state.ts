@@ -97,14 +97,21 @@ export class FakeState {
   }
 
   private get stores() {
-    return { sessions: this.sessions, intents: this.intents, charges: this.charges, refunds: this.refunds, sessionExtras: this.sessionExtras } as const;
+    return {
+      sessions: this.sessions,
+      intents: this.intents,
+      charges: this.charges,
+      refunds: this.refunds,
+      sessionExtras: this.sessionExtras,
+    } as const;
   }
 
   private load(): void {
     if (!this.stateFile || !fs.existsSync(this.stateFile)) return;
     try {
       const saved = JSON.parse(fs.readFileSync(this.stateFile, 'utf8')) as Record<string, [string, never][]>;
-      for (const [name, map] of Object.entries(this.stores)) for (const [k, v] of saved[name] ?? []) (map as Map<string, unknown>).set(k, v);
+      for (const [name, map] of Object.entries(this.stores))
+        for (const [k, v] of saved[name] ?? []) (map as Map<string, unknown>).set(k, v);
     } catch {
       // An unreadable state file starts the fake empty.
     }
@@ -120,7 +127,13 @@ export class FakeState {
 
   sessionOr404(id: string): Obj {
     const s = this.sessions.get(id);
-    if (!s) throw new ApiError(404, { type: 'invalid_request_error', code: 'resource_missing', message: `No such checkout.session: '${id}'`, param: 'id' });
+    if (!s)
+      throw new ApiError(404, {
+        type: 'invalid_request_error',
+        code: 'resource_missing',
+        message: `No such checkout.session: '${id}'`,
+        param: 'id',
+      });
     return s;
   }
 }

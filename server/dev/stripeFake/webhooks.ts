@@ -44,7 +44,11 @@ export class Webhooks {
     try {
       const res = await fetch(this.url, {
         method: 'POST',
-        headers: { 'Content-Type': 'application/json; charset=utf-8', 'Stripe-Signature': this.sign(payload), 'User-Agent': 'Stripe/1.0 (+https://stripe.com/docs/webhooks)' },
+        headers: {
+          'Content-Type': 'application/json; charset=utf-8',
+          'Stripe-Signature': this.sign(payload),
+          'User-Agent': 'Stripe/1.0 (+https://stripe.com/docs/webhooks)',
+        },
         body: payload,
         signal: AbortSignal.timeout(10000),
       });
@@ -58,13 +62,16 @@ export class Webhooks {
     if (ok) ev.pending_webhooks = 0;
     if (!ok && attempt <= this.retryDelays.length && !this.closed) {
       this.pending += 1;
-      const timer = setTimeout(() => {
-        this.timers.delete(timer);
-        void this.deliver(ev, attempt + 1).finally(() => {
-          this.pending -= 1;
-          this.settle();
-        });
-      }, this.retryDelays[attempt - 1]);
+      const timer = setTimeout(
+        () => {
+          this.timers.delete(timer);
+          void this.deliver(ev, attempt + 1).finally(() => {
+            this.pending -= 1;
+            this.settle();
+          });
+        },
+        this.retryDelays[attempt - 1],
+      );
       this.timers.add(timer);
     }
     return ok;

@@ -12,8 +12,16 @@ export const devRoutes: RouteGroup = {
   devOnly: true,
   routes: [
     route({
-      method: 'get', path: '/mail', summary: 'The mail the capture SMTP server received (development and tests)', access: ['admin'],
-      response: z.object({ items: z.array(z.custom<CapturedMail>(() => true).meta({ type: 'object', description: 'A captured message: envelope, headers, text and links' })), total: z.number().int() }),
+      method: 'get',
+      path: '/mail',
+      summary: 'The mail the capture SMTP server received (development and tests)',
+      access: ['admin'],
+      response: z.object({
+        items: z.array(
+          z.custom<CapturedMail>(() => true).meta({ type: 'object', description: 'A captured message: envelope, headers, text and links' }),
+        ),
+        total: z.number().int(),
+      }),
       handler: () => {
         const items = capturedMail();
         return { items, total: items.length };

@@ -11,13 +11,19 @@ export function docsRoutes(tableOf: () => readonly RouteGroup[]): RouteGroup {
     prefix: '/docs',
     routes: [
       route({
-        method: 'get', path: '/openapi.json', summary: 'The OpenAPI 3.1 document of this API, generated from the route table', access: 'public',
+        method: 'get',
+        path: '/openapi.json',
+        summary: 'The OpenAPI 3.1 document of this API, generated from the route table',
+        access: 'public',
         response: DocumentSchema,
         handler: () => openApiDocument(tableOf()),
       }),
       /** A readable page of the API (no scripts, no external assets); the document itself for a client asking for JSON. */
       route({
-        method: 'get', path: '/', summary: 'A readable page listing every route (the OpenAPI document with Accept: application/json)', access: 'public',
+        method: 'get',
+        path: '/',
+        summary: 'A readable page listing every route (the OpenAPI document with Accept: application/json)',
+        access: 'public',
         response: { contentType: 'text/html', description: 'The route list as a page' },
         handler: ({ req, res }) => {
           if (req.accepts(['html', 'json']) === 'json') {
@@ -25,7 +31,10 @@ export function docsRoutes(tableOf: () => readonly RouteGroup[]): RouteGroup {
             return;
           }
           const rows = documentedRoutes(tableOf())
-            .map(({ path, route: r }) => `<tr><td><code>${r.method.toUpperCase()}</code></td><td><code>${escapeHtml(toOpenApiPath(path))}</code></td><td>${escapeHtml(r.summary)}</td><td>${escapeHtml(whoOf(r))}</td></tr>`)
+            .map(
+              ({ path, route: r }) =>
+                `<tr><td><code>${r.method.toUpperCase()}</code></td><td><code>${escapeHtml(toOpenApiPath(path))}</code></td><td>${escapeHtml(r.summary)}</td><td>${escapeHtml(whoOf(r))}</td></tr>`,
+            )
             .join('\n');
           res.type('html').send(`<!doctype html><html lang="en"><head><meta charset="utf-8"><title>Lanewright API</title>
 <meta name="viewport" content="width=device-width, initial-scale=1">

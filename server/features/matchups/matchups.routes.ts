@@ -9,9 +9,13 @@ export const matchupsRoutes: RouteGroup = {
   guard: [requireAuth],
   routes: [
     route({
-      method: 'post', path: '/', access: 'signed-in',
-      summary: 'Rank your arsenal for a pattern on a lane surface, or for a published condition (its pattern and lane surface); illegal balls are listed apart',
-      body: MatchupRequestSchema, response: MatchupResultSchema,
+      method: 'post',
+      path: '/',
+      access: 'signed-in',
+      summary:
+        'Rank your arsenal for a pattern on a lane surface, or for a published condition (its pattern and lane surface); illegal balls are listed apart',
+      body: MatchupRequestSchema,
+      response: MatchupResultSchema,
       handler: async ({ user, body, res }) => {
         // A client that gives up (closed tab, new slider value) should not keep a worker busy.
         const gone = new AbortController();

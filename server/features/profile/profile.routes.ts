@@ -10,13 +10,20 @@ export const profileRoutes: RouteGroup = {
   guard: [requireAuth],
   routes: [
     route({
-      method: 'get', path: '/', summary: 'The bowler profile (typical values when never saved)', access: 'signed-in',
+      method: 'get',
+      path: '/',
+      summary: 'The bowler profile (typical values when never saved)',
+      access: 'signed-in',
       response: z.object({ profile: ProfileSchema, saved: z.boolean() }),
       handler: ({ user }) => profileService.get(user.id),
     }),
     route({
-      method: 'put', path: '/', summary: 'Save bowler parameters (any subset)', access: 'signed-in',
-      body: ProfileUpdateSchema, response: z.object({ profile: ProfileSchema, saved: z.literal(true) }),
+      method: 'put',
+      path: '/',
+      summary: 'Save bowler parameters (any subset)',
+      access: 'signed-in',
+      body: ProfileUpdateSchema,
+      response: z.object({ profile: ProfileSchema, saved: z.literal(true) }),
       handler: async ({ user, body }) => ({ profile: await profileService.update(user.id, body), saved: true as const }),
     }),
   ],

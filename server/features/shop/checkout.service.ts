@@ -28,7 +28,10 @@ export const checkoutService = {
     if (o.userId !== user.id) throw AppError.forbidden('Only the bowler who ordered pays for the order');
     const base = publicUrl();
     const notPayable = (order: Order) =>
-      AppError.conflict('not_payable', order.status === 'ordered' ? 'This order is already paid' : `This order is ${order.status.replace('_', ' ')} and cannot be paid`);
+      AppError.conflict(
+        'not_payable',
+        order.status === 'ordered' ? 'This order is already paid' : `This order is ${order.status.replace('_', ' ')} and cannot be paid`,
+      );
     const payable = (order: Order) => order.status === 'ordered' && order.paymentStatus !== 'paid';
 
     let stripe: Stripe;
@@ -46,9 +49,15 @@ export const checkoutService = {
     try {
       for (const p of open) {
         const s = await stripe.checkout.sessions.retrieve(p.checkoutSessionId!);
-        const usable = s.status === 'open' && s.url && s.amount_total === o.amountCents && s.currency === o.currency && s.expires_at > Date.now() / 1000 + 120;
+        const usable =
+          s.status === 'open' &&
+          s.url &&
+          s.amount_total === o.amountCents &&
+          s.currency === o.currency &&
+          s.expires_at > Date.now() / 1000 + 120;
         if (usable) return { url: s.url!, checkoutSessionId: s.id };
-        if (s.status === 'complete') throw AppError.conflict('payment_pending', 'This order’s card payment went through and is being confirmed; reload in a moment');
+        if (s.status === 'complete')
+          throw AppError.conflict('payment_pending', 'This order’s card payment went through and is being confirmed; reload in a moment');
         if (s.status === 'open') await stripe.checkout.sessions.expire(s.id);
         await shopRepository.expireOpenPayment(p.id);
       }
@@ -65,7 +74,13 @@ export const checkoutService = {
       const creating = all.find((x) => x.status === 'creating');
       if (creating) return creating;
       return shopRepository.createPayment(
-        { orderId: order.id, status: 'creating', idempotencyKey: `lanewright-checkout-order-${order.id}-attempt-${all.length + 1}`, amountCents: order.amountCents, currency: order.currency },
+        {
+          orderId: order.id,
+          status: 'creating',
+          idempotencyKey: `lanewright-checkout-order-${order.id}-attempt-${all.length + 1}`,
+          amountCents: order.amountCents,
+          currency: order.currency,
+        },
         transaction,
       );
     });
@@ -76,13 +91,28 @@ export const checkoutService = {
       session = await stripe.checkout.sessions.create(
         {
           mode: 'payment',
-          line_items: [{ quantity: 1, price_data: { currency: o.currency, unit_amount: o.amountCents, product_data: { name: `${o.serviceName} — ${o.ballName}`.slice(0, 250), description: `${o.center?.name ?? 'Pro shop'} order #${o.id}` } } }],
+          line_items: [
+            {
+              quantity: 1,
+              price_data: {
+                currency: o.currency,
+                unit_amount: o.amountCents,
+                product_data: {
+                  name: `${o.serviceName} — ${o.ballName}`.slice(0, 250),
+                  description: `${o.center?.name ?? 'Pro shop'} order #${o.id}`,
+                },
+              },
+            },
+          ],
           success_url: `${base}/orders/${o.id}?checkout=done`,
           cancel_url: `${base}/orders/${o.id}?checkout=cancelled`,
           client_reference_id: String(o.id),
           customer_email: o.bowler?.email,
           metadata: { orderId: String(o.id) },
-          payment_intent_data: { metadata: { orderId: String(o.id) }, description: `${o.center?.name ?? 'Pro shop'} order #${o.id}: ${o.serviceName}` },
+          payment_intent_data: {
+            metadata: { orderId: String(o.id) },
+            description: `${o.center?.name ?? 'Pro shop'} order #${o.id}: ${o.serviceName}`,
+          },
         },
         { idempotencyKey: attempt.idempotencyKey! },
       );
@@ -109,12 +139,23 @@ export const checkoutService = {
         await row.update({ status: 'open', checkoutSessionId: session.id }, { transaction });
         order.paymentStatus = 'processing';
         await order.save({ transaction });
-        await audit({ actorId: user.id, action: 'payment.checkout_started', subjectType: 'order', subjectId: order.id, details: { sessionId: session.id, amountCents: order.amountCents, currency: order.currency } }, transaction);
+        await audit(
+          {
+            actorId: user.id,
+            action: 'payment.checkout_started',
+            subjectType: 'order',
+            subjectId: order.id,
+            details: { sessionId: session.id, amountCents: order.amountCents, currency: order.currency },
+          },
+          transaction,
+        );
       }
       return 'open';
     });
     if (outcome === 'not_payable') {
-      await stripe.checkout.sessions.expire(session.id).catch((err: unknown) => logger.info({ err, sessionId: session.id }, 'checkout already closed'));
+      await stripe.checkout.sessions
+        .expire(session.id)
+        .catch((err: unknown) => logger.info({ err, sessionId: session.id }, 'checkout already closed'));
       throw notPayable((await shopRepository.order(o.id))!);
     }
     return { url: session.url, checkoutSessionId: session.id };
@@ -124,10 +165,20 @@ export const checkoutService = {
   async refund(actor: AuthUser, id: number): Promise<OrderDto> {
     const o = await visibleOrder(actor, id);
     if (o.center?.ownerId !== actor.id) throw AppError.forbidden('Only the shop refunds an order');
-    if (!canRefund(o.status)) throw AppError.conflict('not_refundable', o.status === 'refunded' ? 'This order is already refunded' : `A ${o.status.replace('_', ' ')} order cannot be refunded`);
+    if (!canRefund(o.status))
+      throw AppError.conflict(
+        'not_refundable',
+        o.status === 'refunded' ? 'This order is already refunded' : `A ${o.status.replace('_', ' ')} order cannot be refunded`,
+      );
     const payment = (await shopRepository.payments(o.id)).find((p) => p.status === 'paid' && p.paymentIntentId);
     if (!payment) throw AppError.conflict('not_refundable', 'No card payment of this order is on record');
-    await audit({ actorId: actor.id, action: 'refund.requested', subjectType: 'order', subjectId: o.id, details: { intentId: payment.paymentIntentId, amountCents: o.amountCents, currency: o.currency } });
+    await audit({
+      actorId: actor.id,
+      action: 'refund.requested',
+      subjectType: 'order',
+      subjectId: o.id,
+      details: { intentId: payment.paymentIntentId, amountCents: o.amountCents, currency: o.currency },
+    });
     let refund: Stripe.Refund | null = null;
     try {
       const stripe = await stripeClient();
@@ -141,7 +192,17 @@ export const checkoutService = {
     }
     if (!refund || refund.status === 'succeeded') {
       await sequelize.transaction((transaction) =>
-        markRefunded(o.id, { intentId: payment.paymentIntentId, refundId: refund?.id ?? null, amountCents: refund?.amount ?? o.amountCents, actor, base: publicUrl() }, transaction),
+        markRefunded(
+          o.id,
+          {
+            intentId: payment.paymentIntentId,
+            refundId: refund?.id ?? null,
+            amountCents: refund?.amount ?? o.amountCents,
+            actor,
+            base: publicUrl(),
+          },
+          transaction,
+        ),
       );
     } else {
       await shopRepository.setRefundId(payment.id, refund.id);

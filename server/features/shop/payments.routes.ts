@@ -17,7 +17,10 @@ export const paymentsRoutes: RouteGroup = {
   rawBody: true,
   routes: [
     route({
-      method: 'post', path: '/webhook', access: 'token', who: 'public (Stripe-Signature)',
+      method: 'post',
+      path: '/webhook',
+      access: 'token',
+      who: 'public (Stripe-Signature)',
       summary: 'Payment-service events (raw body, Stripe-Signature verified; each event id processed once)',
       before: [express.raw({ type: () => true, limit: '1mb' })],
       response: z.object({ received: z.literal(true), duplicate: z.literal(true).optional() }),

@@ -13,7 +13,11 @@ export const takingsService = {
     await ownedCenter(actor, centerId);
     const from = new Date(`${date}T00:00:00Z`);
     const to = new Date(from.getTime() + 86400000);
-    const [paid, refunded, services] = await Promise.all([shopRepository.paidBetween(centerId, from, to), shopRepository.refundedBetween(centerId, from, to), shopRepository.services(centerId, true)]);
+    const [paid, refunded, services] = await Promise.all([
+      shopRepository.paidBetween(centerId, from, to),
+      shopRepository.refundedBetween(centerId, from, to),
+      shopRepository.services(centerId, true),
+    ]);
     const currency = paid[0]?.currency ?? refunded[0]?.currency ?? services[0]?.currency ?? 'usd';
     const inCur = (os: Order[]) => os.filter((x) => x.currency === currency);
     const byService = new Map<number, { serviceId: number; name: string; count: number; cents: number }>();
@@ -26,6 +30,14 @@ export const takingsService = {
     }
     const paidCents = inCur(paid).reduce((s, x) => s + x.amountCents, 0);
     const refundedCents = inCur(refunded).reduce((s, x) => s + x.amountCents, 0);
-    return { date, currency, orders: inCur(paid).length, paidCents, refundedCents, netCents: paidCents - refundedCents, byService: [...byService.values()].sort((a, b) => b.cents - a.cents || a.serviceId - b.serviceId) };
+    return {
+      date,
+      currency,
+      orders: inCur(paid).length,
+      paidCents,
+      refundedCents,
+      netCents: paidCents - refundedCents,
+      byService: [...byService.values()].sort((a, b) => b.cents - a.cents || a.serviceId - b.serviceId),
+    };
   },
 };

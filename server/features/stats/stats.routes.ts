@@ -10,8 +10,13 @@ export const statsRoutes: RouteGroup = {
   guard: [requireAuth],
   routes: [
     route({
-      method: 'get', path: '/', summary: 'Shot statistics overall, per ball, per surface and per session, with moves and the calibration', access: 'signed-in', who: 'owner or linked coach',
-      query: StatsQuerySchema, response: itemOf(StatsResultSchema),
+      method: 'get',
+      path: '/',
+      summary: 'Shot statistics overall, per ball, per surface and per session, with moves and the calibration',
+      access: 'signed-in',
+      who: 'owner or linked coach',
+      query: StatsQuerySchema,
+      response: itemOf(StatsResultSchema),
       handler: async ({ user, query }) => ({ item: await statsService.stats(user, query) }),
     }),
   ],
@@ -23,9 +28,13 @@ export const calibrationRoutes: RouteGroup = {
   guard: [requireAuth],
   routes: [
     route({
-      method: 'get', path: '/', access: 'signed-in', who: 'owner or linked coach',
+      method: 'get',
+      path: '/',
+      access: 'signed-in',
+      who: 'owner or linked coach',
       summary: 'The ball-motion calibration from my logged shots on a pattern and lane surface, or on a published condition',
-      query: CalibrationQuerySchema, response: itemOf(CalibrationSchema),
+      query: CalibrationQuerySchema,
+      response: itemOf(CalibrationSchema),
       handler: async ({ user, query }) => ({ item: await statsService.calibration(user, query) }),
     }),
   ],
