@@ -19,6 +19,7 @@ import {
   type Order,
   type OrderCreate,
   type OrderHistoryEntry,
+  type OrderListQuery,
   type OrderStatus,
   type PaymentStatus,
   type ServiceInput,
@@ -35,11 +36,7 @@ export type { CheckoutStart, Order, OrderCreate, OrderHistoryEntry, OrderStatus,
 /** The order's life (the shop's next move, refunds) and money formatting are the shared rules the server applies. */
 export { canRefund, formatMoney, nextShopMove as nextMove };
 
-export interface OrderListParams {
-  page?: number;
-  pageSize?: number;
-  status?: OrderStatus;
-}
+export type OrderListParams = Partial<OrderListQuery>;
 
 export const shopApi = {
   /** Active services of a center (`all`: the owner sees inactive ones too). */
