@@ -1,7 +1,7 @@
 import crypto from 'node:crypto';
 import type { IncomingMessage, ServerResponse } from 'node:http';
 import { parseForm, str, strMap, type FormValue } from './form';
-import { API_VERSION, ApiError, newId, now, type FakeState, type Obj, type StripeFakeOptions } from './state';
+import { API_VERSION, ApiError, missing, newId, now, type FakeState, type Obj, type StripeFakeOptions } from './state';
 import type { Webhooks } from './webhooks';
 
 /** Reads a request body up to `limit` bytes (413 in the API's error shape beyond it). */
@@ -170,13 +170,7 @@ export function apiHandler(opts: Pick<StripeFakeOptions, 'apiKey'>, state: FakeS
     const chId = str(p.charge);
     if (piId) {
       const pi = intents.get(piId);
-      if (!pi)
-        throw new ApiError(404, {
-          type: 'invalid_request_error',
-          code: 'resource_missing',
-          message: `No such payment_intent: '${piId}'`,
-          param: 'payment_intent',
-        });
+      if (!pi) throw missing('payment_intent', piId, 'payment_intent');
       if (!pi.latest_charge || pi.status !== 'succeeded')
         throw new ApiError(400, {
           type: 'invalid_request_error',
@@ -187,13 +181,7 @@ export function apiHandler(opts: Pick<StripeFakeOptions, 'apiKey'>, state: FakeS
       charge = charges.get(String(pi.latest_charge));
     } else if (chId) {
       charge = charges.get(chId);
-      if (!charge)
-        throw new ApiError(404, {
-          type: 'invalid_request_error',
-          code: 'resource_missing',
-          message: `No such charge: '${chId}'`,
-          param: 'charge',
-        });
+      if (!charge) throw missing('charge', chId, 'charge');
     } else {
       throw new ApiError(400, {
         type: 'invalid_request_error',
@@ -275,24 +263,12 @@ export function apiHandler(opts: Pick<StripeFakeOptions, 'apiKey'>, state: FakeS
     else if (method === 'POST' && (m = /^\/v1\/checkout\/sessions\/([\w]+)\/expire$/.exec(path))) out = expireSession(m[1]);
     else if (method === 'GET' && (m = /^\/v1\/payment_intents\/([\w]+)$/.exec(path))) {
       const pi = intents.get(m[1]);
-      if (!pi)
-        throw new ApiError(404, {
-          type: 'invalid_request_error',
-          code: 'resource_missing',
-          message: `No such payment_intent: '${m[1]}'`,
-          param: 'intent',
-        });
+      if (!pi) throw missing('payment_intent', m[1], 'intent');
       out = pi;
     } else if (method === 'POST' && path === '/v1/refunds') out = createRefund(p);
     else if (method === 'GET' && (m = /^\/v1\/refunds\/([\w]+)$/.exec(path))) {
       const r = refunds.get(m[1]);
-      if (!r)
-        throw new ApiError(404, {
-          type: 'invalid_request_error',
-          code: 'resource_missing',
-          message: `No such refund: '${m[1]}'`,
-          param: 'id',
-        });
+      if (!r) throw missing('refund', m[1], 'id');
       out = r;
     } else
       throw new ApiError(404, {

@@ -70,6 +70,10 @@ export class ApiError extends Error {
   }
 }
 
+/** The service's 404 for an unknown object: `No such <what>: '<id>'`, naming the parameter that carried the id. */
+export const missing = (what: string, id: string, param: string) =>
+  new ApiError(404, { type: 'invalid_request_error', code: 'resource_missing', message: `No such ${what}: '${id}'`, param });
+
 export const now = () => Math.floor(Date.now() / 1000);
 export const newId = (prefix: string) => `${prefix}_test_${crypto.randomBytes(12).toString('base64url').replace(/[-_]/g, 'x')}`;
 
@@ -127,13 +131,7 @@ export class FakeState {
 
   sessionOr404(id: string): Obj {
     const s = this.sessions.get(id);
-    if (!s)
-      throw new ApiError(404, {
-        type: 'invalid_request_error',
-        code: 'resource_missing',
-        message: `No such checkout.session: '${id}'`,
-        param: 'id',
-      });
+    if (!s) throw missing('checkout.session', id, 'id');
     return s;
   }
 }
