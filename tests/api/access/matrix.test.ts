@@ -15,6 +15,14 @@ const routes = tableRoutes();
 const RESPONSES = new Map<string, z.ZodType>(
   SERVED_GROUPS.flatMap((g) => g.routes.map((r) => [`${r.method.toUpperCase()} ${fullPath(g, r)}`, r.response] as const)).flatMap(([k, doc]) => (doc instanceof z.ZodType ? [[k, doc] as const] : [])),
 );
+/** Paths of the answer that parsing with the schema dropped: fields the server sends and the schema does not declare. */
+function droppedKeys(sent: unknown, kept: unknown, at = 'body'): string[] {
+  if (Array.isArray(sent) && Array.isArray(kept)) return sent.flatMap((x, i) => droppedKeys(x, kept[i], `${at}[${i}]`)).slice(0, 5);
+  if (!sent || typeof sent !== 'object' || !kept || typeof kept !== 'object') return [];
+  const k = kept as Record<string, unknown>;
+  return Object.entries(sent as Record<string, unknown>).flatMap(([key, v]) => (key in k ? droppedKeys(v, k[key], `${at}.${key}`) : [`${at}.${key}`]));
+}
+
 let f: Fixture;
 
 beforeAll(async () => {
@@ -99,6 +107,7 @@ describe('access matrix (route × actor → status, real database)', () => {
           checkedBodies += 1;
           const parsed = schema.safeParse(res.body);
           if (!parsed.success) offSchema.push(`${route.key} as ${actor}: ${parsed.error.issues.map((x) => `${x.path.join('.')}: ${x.message}`).join('; ').slice(0, 300)}`);
+          else for (const k of droppedKeys(res.body, parsed.data)) offSchema.push(`${route.key} as ${actor}: ${k} is answered but not in the response schema`);
         }
         if (res.status !== row[i]) mismatches.push(`${route.key} as ${actor}: expected ${row[i]}, got ${res.status} ${res.status >= 400 ? JSON.stringify(res.body).slice(0, 160) : ''}`);
       }
