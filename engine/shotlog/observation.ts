@@ -1,3 +1,4 @@
+import { finite, record } from '../internal/checks';
 import type { HitKind } from './types';
 
 /**
@@ -10,7 +11,7 @@ export const LAYDOWN_OFFSET_BOARDS = 6;
 
 /** The laydown board of a shot from the board the bowler's feet were on (at least board 1). */
 export function laydownBoardOf(feetBoard: number): number {
-  return Math.max(1, feetBoard - LAYDOWN_OFFSET_BOARDS);
+  return Math.max(1, finite('laydownBoardOf', 'feetBoard', feetBoard) - LAYDOWN_OFFSET_BOARDS);
 }
 
 /** The fields of a logged delivery that decide whether it says something about the ball's motion. */
@@ -27,5 +28,6 @@ export interface LoggedLine {
  * board at a known target, with its breakpoint board or its pocket result recorded.
  */
 export function isCalibrationShot(s: LoggedLine): boolean {
+  record('isCalibrationShot', 'shot', s);
   return s.delivery === 1 && s.feetBoard != null && s.targetBoard != null && (s.breakpointBoard != null || s.hit != null);
 }

@@ -18,4 +18,9 @@ describe('calibration observations (common coaching practice: the ball lays down
     expect(isCalibrationShot({ ...line, feetBoard: null, breakpointBoard: 6 })).toBe(false);
     expect(isCalibrationShot({ ...line, targetBoard: undefined, hit: 'high' })).toBe(false);
   });
+
+  it('refuses input that is not a shot or a board, naming the function', () => {
+    expect(() => laydownBoardOf(Number.NaN)).toThrow(/laydownBoardOf: feetBoard/);
+    expect(() => isCalibrationShot(null as never)).toThrow(/isCalibrationShot: shot/);
+  });
 });
