@@ -66,13 +66,14 @@ export const checkoutService = {
       throw paymentError(err);
     }
 
-    // 1. Record the attempt and its idempotency key (or take the one being created).
+    // 1. Record the attempt and its idempotency key (or take the one being created, or opened a moment ago by a
+    //    request that started at the same time: a double click gets one session).
     const attempt = await sequelize.transaction(async (transaction) => {
       const order = (await shopRepository.lockOrder(o.id, transaction))!;
       if (!payable(order)) throw notPayable(order);
       const all = await shopRepository.payments(order.id, transaction);
-      const creating = all.find((x) => x.status === 'creating');
-      if (creating) return creating;
+      const current = all.find((x) => x.status === 'creating') ?? all.find((x) => x.status === 'open' && x.checkoutSessionId);
+      if (current) return current;
       return shopRepository.createPayment(
         {
           orderId: order.id,
@@ -84,6 +85,16 @@ export const checkoutService = {
         transaction,
       );
     });
+
+    if (attempt.status === 'open' && attempt.checkoutSessionId) {
+      let opened: Stripe.Checkout.Session;
+      try {
+        opened = await stripe.checkout.sessions.retrieve(attempt.checkoutSessionId);
+      } catch (err) {
+        throw paymentError(err);
+      }
+      if (opened.status === 'open' && opened.url) return { url: opened.url, checkoutSessionId: opened.id };
+    }
 
     // 2. The payment service, with no transaction open.
     let session: Stripe.Checkout.Session;
