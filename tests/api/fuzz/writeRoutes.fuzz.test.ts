@@ -47,7 +47,9 @@ type Case =
   | { kind: 'file'; buffer: Buffer; filename: string; contentType: string; field: string };
 
 // Role changes last: a fuzzed id may hit a fixture user and change what that actor may do on the routes after it.
-const LAST = new Set(['PATCH /api/admin/users/:id/role']);
+// Deletes of patterns and balls just before them: a fuzzed id may hit the fixture's pattern or ball, which the
+// fresh sessions of later routes are started on.
+const LAST = new Set(['DELETE /api/arsenal/:id', 'DELETE /api/patterns/:id', 'PATCH /api/admin/users/:id/role']);
 const routes = tableRoutes()
   .filter(isWrite)
   .sort((a, b) => Number(LAST.has(a.key)) - Number(LAST.has(b.key)));
