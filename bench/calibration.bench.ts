@@ -6,6 +6,7 @@
 import type { Bench } from './run';
 import { fitCalibration, simulateShot } from '../engine/index';
 import type { ArsenalBall, BowlerProfile, CalibrationObservation, OilPattern, Sweep } from '../engine/index';
+import { mulberry32 as prng } from '../shared/random';
 
 const sweep = (fromBoard: number, toBoard: number, endFt: number, crossings: number): Sweep => ({
   direction: 'forward', fromBoard, toBoard, startFt: 0, endFt, crossings, microlitersPerBoard: 60,
@@ -22,16 +23,6 @@ const pearl: ArsenalBall = {
   polished: true, layout: { pinToPapIn: 4 },
 };
 
-/** mulberry32 (bench-side only; the engine has no randomness). */
-function prng(seed: number): () => number {
-  let a = seed;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function observe(ball: ArsenalBall, scale: number, seed: number): CalibrationObservation[] {
   const rnd = prng(seed);

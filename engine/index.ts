@@ -102,6 +102,8 @@ export { statsBy, STATS_KEYS } from './shotlog/statsBy';
 export type { StatsKey } from './shotlog/statsBy';
 export { suggestMoves, MOVE_THRESHOLDS } from './shotlog/suggestMoves';
 export { spareAdjustment, THREE_SIX_NINE } from './shotlog/spareAdjustment';
+export { isCalibrationShot, LAYDOWN_OFFSET_BOARDS, laydownBoardOf } from './shotlog/observation';
+export type { LoggedLine } from './shotlog/observation';
 export { fitCalibration, CALIBRATION } from './shotlog/fitCalibration';
 // ── end shot log ───────────────────────────────────────────────────────────────────────────────
 

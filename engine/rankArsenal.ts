@@ -1,4 +1,5 @@
 import type { ArsenalBall, RankArsenalInput, RuleResult, Suggestion } from './types';
+import { surfaceWords } from './ballReaction';
 import { checkLegality } from './checkLegality';
 import { combineLayers } from './combineLayers';
 import { matchupContext } from './matchupContext';
@@ -200,7 +201,7 @@ interface AppliedScale {
 /** The 'motion-calibration' reason: the scale, and the shift to today's surface when the shots were thrown with another. */
 function calibrationReason(scale: AppliedScale, ball: ArsenalBall): RuleResult {
   const pct = Math.round((scale.frictionScale - 1) * 100);
-  const today = ball.polished ? `${ball.surfaceGrit} grit polished` : `${ball.surfaceGrit} grit`;
+  const today = surfaceWords(ball.surfaceGrit, ball.polished);
   const other = scale.surfaces.length > 0 && !scale.surfaces.includes(today);
   const shift = other
     ? ` Fitted on shots thrown at ${scale.surfaces.join(' and ')}; carried to today's ${today}, where the model's own surface change applies on top of it.`

@@ -1,29 +1,18 @@
 import crypto from 'node:crypto';
 import { Op, QueryTypes, type Transaction } from 'sequelize';
-import { buildGame, CALIBRATION, simulateShot } from '../engine/index';
+import { buildGame, CALIBRATION, LAYDOWN_OFFSET_BOARDS, simulateShot, surfaceWords } from '../engine/index';
 import type { BallSpec, BowlerProfile as EngineBowler, LaneSurface, OilPattern } from '../engine/types';
 import type { HitKind, LoggedDelivery } from '../engine/shotlog/types';
-import { surfaceKeyOf } from '../server/features/sessions/sessions.service';
-import { LAYDOWN_OFFSET_BOARDS, specAsThrown } from '../server/features/stats/stats.service';
+import { specAsThrown } from '../server/features/stats/stats.service';
 import { laneOf } from '../server/features/centers/centers.repository';
 import { sessionsRepository } from '../server/features/sessions/sessions.repository';
 import { requestCalibrationFit } from '../server/features/stats/calibrationJobs';
 import { DEFAULT_LANE_SURFACE } from '../shared/centers';
 import { Annotation, Ball, BowlerProfile, BowlingSession, Center, CoachLink, Condition, Plan, sequelize, Shot, SurfaceEvent, type User } from '../server/models/index';
+import { mulberry32 as rng } from '../shared/random';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 
-/** A small seeded generator (mulberry32): the demo is the same on every install. */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 interface Throw extends LoggedDelivery {
   feetBoard: number | null;
@@ -162,7 +151,7 @@ export async function seedSessions(users: Map<string, User>, transaction: Transa
         const row = await Shot.create(
           {
             sessionId: s.id, gameNumber: gi + 1, frame: t.frame, delivery: t.delivery, ballId: ball.id, surfaceGrit: surf.grit, surfacePolished: surf.polished,
-            surfaceKey: surfaceKeyOf(surf.grit, surf.polished), feetBoard: t.feetBoard, targetBoard: t.targetBoard, breakpointBoard: t.breakpointBoard,
+            surfaceKey: surfaceWords(surf.grit, surf.polished), feetBoard: t.feetBoard, targetBoard: t.targetBoard, breakpointBoard: t.breakpointBoard,
             standing: [...t.standing].sort((a, b) => a - b), foul: false, hit: t.hit, note: '', idempotencyKey: `seed-${si}-${gi}-${t.frame}-${t.delivery}`,
             requestHash: crypto.createHash('sha256').update(`seed-${si}-${gi}-${t.frame}-${t.delivery}`).digest('hex'), createdAt: day, updatedAt: day,
           },

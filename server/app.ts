@@ -4,22 +4,8 @@ import helmet from 'helmet';
 import fs from 'node:fs';
 import path from 'node:path';
 import { config } from './config/index';
-import { adminRouter } from './features/admin/admin.router';
-import { arsenalRouter } from './features/arsenal/arsenal.router';
-import { authRouter } from './features/auth/auth.router';
-import { catalogueRouter } from './features/catalogue/catalogue.router';
-import { centersRouter, followsRouter, unsubscribeRouter } from './features/centers/centers.router';
-import { coverageRouter, layoutLabRouter, trialsRouter } from './features/decisions/decisions.router';
-import { docsRouter } from './features/docs/docs.router';
-import { matchupsRouter } from './features/matchups/matchups.router';
-import { patternsRouter } from './features/patterns/patterns.router';
-import { healthRouter } from './features/health/health.router';
-import { profileRouter } from './features/profile/profile.router';
-import { sessionsRouter } from './features/sessions/sessions.router';
-import { calibrationRouter, statsRouter } from './features/stats/stats.router';
-import { coachRouter, plansRouter } from './features/coaching/coaching.router';
-import { paymentsRouter } from './features/shop/payments.router';
-import { ordersRouter, shopCentersRouter } from './features/shop/shop.router';
+import { groupRouter, type RouteGroup } from './http/route';
+import { ROUTE_TABLE } from './routes';
 import { mailCaptureEnabled } from './lib/mailer';
 import { metricsMiddleware } from './lib/metrics';
 import { passportInitialize } from './middleware/auth';
@@ -32,7 +18,7 @@ import { requestId } from './middleware/requestId';
  * Developer tools (the admin's dev mailbox) exist only outside production, and only while the in-process
  * capture SMTP server is in use: a dynamic import, so a production process never loads their code.
  */
-const devTools = mailCaptureEnabled && config.NODE_ENV !== 'production' ? await import('./features/dev/dev.router') : null;
+const devTools = mailCaptureEnabled && config.NODE_ENV !== 'production' ? await import('./features/dev/dev.routes') : null;
 
 /** Builds the Express app: the API under /api and, when built, the client. Listening is index.ts's job. */
 export function createApp(): Express {
@@ -68,34 +54,13 @@ export function createApp(): Express {
   app.use(compression());
   app.use(passportInitialize);
 
+  const groups: RouteGroup[] = [...ROUTE_TABLE, ...(devTools ? [devTools.devRoutes] : [])];
   // The payment webhook reads its body raw (the signature covers the exact bytes): before the JSON parser.
-  app.use('/api/payments', paymentsRouter);
+  for (const g of groups.filter((x) => x.rawBody)) app.use(`/api${g.prefix}`, groupRouter(g));
   const api = express.Router();
   api.use(express.json({ limit: config.BODY_LIMIT, verify: jsonDepthGuard }));
   api.use(uploadRateLimit);
-  api.use('/health', healthRouter);
-  api.use('/auth', authRouter);
-  api.use('/profile', profileRouter);
-  api.use('/admin', adminRouter);
-  api.use('/catalogue', catalogueRouter);
-  api.use('/arsenal', arsenalRouter);
-  api.use('/patterns', patternsRouter);
-  api.use('/matchups', matchupsRouter);
-  api.use('/centers', centersRouter);
-  api.use('/centers', shopCentersRouter);
-  api.use('/orders', ordersRouter);
-  api.use('/follows', followsRouter);
-  api.use('/sessions', sessionsRouter);
-  api.use('/stats', statsRouter);
-  api.use('/calibration', calibrationRouter);
-  api.use('/coach', coachRouter);
-  api.use('/plans', plansRouter);
-  api.use('/trials', trialsRouter);
-  api.use('/coverage', coverageRouter);
-  api.use('/layout-lab', layoutLabRouter);
-  api.use('/unsubscribe', unsubscribeRouter);
-  api.use('/docs', docsRouter);
-  if (devTools) api.use('/dev', devTools.devRouter);
+  for (const g of groups.filter((x) => !x.rawBody)) api.use(g.prefix, groupRouter(g));
   api.use(notFound);
   api.use(errorHandler);
   app.use('/api', api);

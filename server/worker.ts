@@ -1,7 +1,7 @@
 // The job worker tier: `npm run worker` (built: `node dist/server/worker.js`). It works the mail, refund and
 // calibration queues (server/lib/jobs.ts) and runs no HTTP API; start as many as needed beside the API
 // processes (set JOBS_IN_PROCESS=false on those). SIGTERM lets running jobs finish (10 s at most).
-import { startMetricsListener } from './features/health/health.router';
+import { startMetricsListener } from './features/health/health.routes';
 import { closeEnginePool, warmEnginePool } from './lib/enginePool';
 import { stopJobs } from './lib/jobs';
 import { logger } from './lib/logger';

@@ -80,6 +80,18 @@ export interface Page<T> {
   pageSize: number;
 }
 
+/** An entry of the audit log. */
+export const AuditEventSchema = z.object({
+  id: z.number().int(),
+  actorId: z.number().int().nullable(),
+  action: z.string(),
+  subjectType: z.string(),
+  subjectId: z.string(),
+  details: z.record(z.string(), z.unknown()),
+  createdAt: z.string(),
+});
+export type AuditEvent = z.infer<typeof AuditEventSchema>;
+
 export const ForgotSchema = z.object({ email: EmailSchema });
 export type ForgotInput = z.infer<typeof ForgotSchema>;
 

@@ -103,12 +103,31 @@ export const BallModelInputSchema = CoreSpecSchema.extend({
 export type BallModelInput = z.infer<typeof BallModelInputSchema>;
 export const BallModelPatchSchema = BallModelInputSchema.partial().extend({ version: z.number().int().min(0) });
 
-export interface BallModel extends BallModelInput {
-  id: number;
-  hardnessD: number | null;
-  releaseYear: number | null;
-  version: number;
-}
+/** A ball's core and cover as stored (catalogue and arsenal answers). */
+const storedSpec = {
+  rg: z.number(),
+  differential: z.number(),
+  intermediateDifferential: z.number(),
+  coverType: CoverTypeSchema,
+  coreType: CoreTypeSchema,
+  hardnessD: z.number().nullable(),
+};
+
+/** A catalogue ball as the API answers it. */
+export const BallModelSchema = z.object({
+  id: z.number().int(),
+  maker: z.string(),
+  name: z.string(),
+  ...storedSpec,
+  factoryGrit: z.number().int(),
+  factoryPolished: z.boolean(),
+  releaseYear: z.number().int().nullable(),
+  version: z.number().int(),
+});
+export type BallModel = z.infer<typeof BallModelSchema>;
+
+/** The answer of a CSV import into the catalogue: every row or none. */
+export const CatalogueImportResultSchema = z.object({ imported: z.number().int(), items: z.array(BallModelSchema) });
 
 const rangeNum = z.coerce.number({ error: 'Must be a number' }).finite();
 export const CatalogueQuerySchema = PageQuerySchema.extend({
@@ -179,44 +198,46 @@ export const ArsenalQuerySchema = PageQuerySchema.extend({
 });
 export type ArsenalQuery = z.infer<typeof ArsenalQuerySchema>;
 
-export interface SurfaceEvent {
-  id: number;
-  fromGrit: number | null;
-  fromPolished: boolean | null;
-  toGrit: number;
-  toPolished: boolean;
-  at: string;
-  byUserId: number | null;
-  note: string | null;
-}
+export const SurfaceEventSchema = z.object({
+  id: z.number().int(),
+  fromGrit: z.number().int().nullable(),
+  fromPolished: z.boolean().nullable(),
+  toGrit: z.number().int(),
+  toPolished: z.boolean(),
+  at: z.string(),
+  byUserId: z.number().int().nullable(),
+  note: z.string().nullable(),
+});
+export type SurfaceEvent = z.infer<typeof SurfaceEventSchema>;
 
-export interface Ball {
-  id: number;
-  ballModelId: number | null;
-  maker: string | null;
-  name: string;
-  nickname: string | null;
-  weightLb: number;
-  rg: number;
-  differential: number;
-  intermediateDifferential: number;
-  coverType: CoverType;
-  coreType: 'symmetric' | 'asymmetric';
-  hardnessD: number | null;
+/** A ball of an arsenal as the API answers it. */
+export const BallSchema = z.object({
+  id: z.number().int(),
+  ballModelId: z.number().int().nullable(),
+  maker: z.string().nullable(),
+  name: z.string(),
+  nickname: z.string().nullable(),
+  weightLb: z.number(),
+  ...storedSpec,
   /** Year the ball model was approved: the catalogue model's release year (null for a ball entered by hand). */
-  approvalYear: number | null;
-  surfaceGrit: number;
-  polished: boolean;
-  layout: Layout | null;
-  gamesSinceResurface: number;
-  status: (typeof BALL_STATUSES)[number];
+  approvalYear: z.number().int().nullable(),
+  surfaceGrit: z.number().int(),
+  polished: z.boolean(),
+  layout: z.object({ pinToPapIn: z.number(), drillingAngleDeg: z.number().nullable().optional(), valAngleDeg: z.number().nullable().optional() }).nullable(),
+  gamesSinceResurface: z.number().int(),
+  status: z.enum(BALL_STATUSES),
   /** True when the owner uploaded a photo: GET /api/arsenal/:id/photo (with the bearer token). */
-  hasPhoto: boolean;
-  version: number;
-  createdAt: string;
-  updatedAt: string;
-  surfaceHistory?: SurfaceEvent[];
-}
+  hasPhoto: z.boolean(),
+  version: z.number().int(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+  surfaceHistory: z.array(SurfaceEventSchema).optional(),
+});
+export type Ball = z.infer<typeof BallSchema>;
+
+/** The answer of a CSV import of an arsenal: every row or none. */
+export const ArsenalImportResultSchema = z.object({ imported: z.number().int(), items: z.array(BallSchema) });
+export type ArsenalImportResult = z.infer<typeof ArsenalImportResultSchema>;
 
 /** The fields of a stored ball the engine reads. */
 export type BallSpecSource = Pick<

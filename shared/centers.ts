@@ -1,7 +1,7 @@
 import { z } from 'zod';
 import { isSafeName, UNSAFE_NAME_MESSAGE } from './text';
-import type { LaneSurface, Sweep } from '../engine/types';
-import type { PatternSummary } from './patterns';
+import type { LaneSurface } from '../engine/types';
+import { PatternSummarySchema, SweepSchema } from './patterns';
 
 export type { LaneSurface };
 
@@ -37,14 +37,15 @@ export const CenterInputSchema = z
 export type CenterInput = z.infer<typeof CenterInputSchema>;
 export const CenterPatchSchema = CenterInputSchema.partial().strict();
 
-export interface Center {
-  id: number;
-  name: string;
-  town: string;
-  laneCount: number;
-  ownerId: number | null;
-  following?: boolean;
-}
+export const CenterSchema = z.object({
+  id: z.number().int(),
+  name: z.string(),
+  town: z.string(),
+  laneCount: z.number().int(),
+  ownerId: z.number().int().nullable(),
+  following: z.boolean().optional(),
+});
+export type Center = z.infer<typeof CenterSchema>;
 
 export const PublishConditionSchema = z
   .object({
@@ -64,45 +65,50 @@ export const PublishConditionSchema = z
 export type PublishCondition = z.infer<typeof PublishConditionSchema>;
 
 /** A published condition. The pattern's sweeps and numbers are a snapshot taken when it was published. */
-export interface Condition {
-  id: number;
-  centerId: number;
-  lanes: number[];
-  validFrom: string;
-  validTo: string | null;
-  notes: string | null;
-  publishedAt: string;
-  publishedBy: number | null;
-  /** Set when a later publication for overlapping lanes and dates replaced this one. */
-  supersededBy: number | null;
-  pattern: { id: number | null; name: string; sweeps: Sweep[]; summary: PatternSummary };
-  /** The lane surface the condition is bowled on. */
-  lane: LaneSurface;
-  /** The same in words: "Synthetic lanes, high friction". */
-  laneText: string;
-}
+const ConditionPatternSchema = z.object({ id: z.number().int().nullable(), name: z.string(), sweeps: z.array(SweepSchema), summary: PatternSummarySchema });
 
-export interface CurrentCondition {
-  center: Center;
-  condition: Condition;
+export const ConditionSchema = z.object({
+  id: z.number().int(),
+  centerId: z.number().int(),
+  lanes: z.array(z.number().int()),
+  validFrom: z.string(),
+  validTo: z.string().nullable(),
+  notes: z.string().nullable(),
+  publishedAt: z.string(),
+  publishedBy: z.number().int().nullable(),
+  /** Set when a later publication for overlapping lanes and dates replaced this one. */
+  supersededBy: z.number().int().nullable(),
+  pattern: ConditionPatternSchema,
+  /** The lane surface the condition is bowled on. */
+  lane: LaneSurfaceSchema,
+  /** The same in words: "Synthetic lanes, high friction". */
+  laneText: z.string(),
+});
+export type Condition = z.infer<typeof ConditionSchema>;
+
+export const CurrentConditionSchema = z.object({
+  center: CenterSchema,
+  condition: ConditionSchema,
   /** Same as condition.pattern, at the top level for convenience. */
-  pattern: Condition['pattern'];
-  lanes: number[];
-  validFrom: string;
-  validTo: string | null;
-  notes: string | null;
+  pattern: ConditionPatternSchema,
+  lanes: z.array(z.number().int()),
+  validFrom: z.string(),
+  validTo: z.string().nullable(),
+  notes: z.string().nullable(),
   /** Same as condition.lane and condition.laneText. */
-  lane: LaneSurface;
-  laneText: string;
-}
+  lane: LaneSurfaceSchema,
+  laneText: z.string(),
+});
+export type CurrentCondition = z.infer<typeof CurrentConditionSchema>;
 
 /**
  * A followed center and what is on its lanes today: `current` is the newest publication in force (null when
  * nothing is published); `inForce` lists every publication in force with the lanes it still governs (a newer
  * publication for some lanes leaves an older one in force on the others), newest first.
  */
-export interface FollowedCenter {
-  center: Center;
-  current: Condition | null;
-  inForce: { condition: Condition; lanes: number[] }[];
-}
+export const FollowedCenterSchema = z.object({
+  center: CenterSchema,
+  current: ConditionSchema.nullable(),
+  inForce: z.array(z.object({ condition: ConditionSchema, lanes: z.array(z.number().int()) })),
+});
+export type FollowedCenter = z.infer<typeof FollowedCenterSchema>;

@@ -1,8 +1,8 @@
 import { z } from 'zod';
 import { isSafeName, UNSAFE_NAME_MESSAGE } from './text';
 import { EmailSchema, PageQuerySchema } from './auth';
-import type { Ball } from './balls';
-import type { Profile } from './profile';
+import { BallSchema } from './balls';
+import { ProfileSchema } from './profile';
 
 const queryId = z.coerce.number({ error: 'Must be a number' }).int('Must be a whole number').positive('Must be positive').max(2147483647);
 
@@ -35,59 +35,58 @@ export type AnnotationCreate = z.infer<typeof AnnotationCreateSchema>;
 
 export const CoachListQuerySchema = PageQuerySchema.extend({ pageSize: z.coerce.number().int().min(1).max(100).default(50) });
 
-export type CoachLinkStatus = 'pending' | 'active' | 'revoked';
+export const COACH_LINK_STATUSES = ['pending', 'active', 'revoked'] as const;
+export type CoachLinkStatus = (typeof COACH_LINK_STATUSES)[number];
 
-export interface PersonRef {
-  id: number;
-  displayName: string;
-  email: string;
-}
+export const PersonRefSchema = z.object({ id: z.number().int(), displayName: z.string(), email: z.string() });
+export type PersonRef = z.infer<typeof PersonRefSchema>;
 
-export interface CoachLink {
-  id: number;
-  coach: PersonRef;
+export const CoachLinkSchema = z.object({
+  id: z.number().int(),
+  coach: PersonRefSchema,
   /** null while the invited e-mail has no account yet. */
-  student: PersonRef | null;
-  email: string;
-  status: CoachLinkStatus;
-  createdAt: string;
-  acceptedAt: string | null;
-}
+  student: PersonRefSchema.nullable(),
+  email: z.string(),
+  status: z.enum(COACH_LINK_STATUSES),
+  createdAt: z.string(),
+  acceptedAt: z.string().nullable(),
+});
+export type CoachLink = z.infer<typeof CoachLinkSchema>;
 
-export interface StudentSummary {
-  linkId: number;
-  student: PersonRef;
-  since: string;
-  sessions: number;
-  lastSessionDate: string | null;
-}
+export const StudentSummarySchema = z.object({
+  linkId: z.number().int(),
+  student: PersonRefSchema,
+  since: z.string(),
+  sessions: z.number().int(),
+  lastSessionDate: z.string().nullable(),
+});
+export type StudentSummary = z.infer<typeof StudentSummarySchema>;
 
-export interface StudentDetail {
-  student: PersonRef;
-  profile: Profile;
-  arsenal: Ball[];
-}
+export const StudentDetailSchema = z.object({ student: PersonRefSchema, profile: ProfileSchema, arsenal: z.array(BallSchema) });
+export type StudentDetail = z.infer<typeof StudentDetailSchema>;
 
-export interface Plan {
-  id: number;
-  coachId: number;
-  coachName: string;
-  studentId: number;
-  title: string;
-  kind: PlanKind;
-  body: string;
-  ballId: number | null;
-  ballName: string | null;
-  createdAt: string;
-}
+export const PlanSchema = z.object({
+  id: z.number().int(),
+  coachId: z.number().int(),
+  coachName: z.string(),
+  studentId: z.number().int(),
+  title: z.string(),
+  kind: z.enum(PLAN_KINDS),
+  body: z.string(),
+  ballId: z.number().int().nullable(),
+  ballName: z.string().nullable(),
+  createdAt: z.string(),
+});
+export type Plan = z.infer<typeof PlanSchema>;
 
-export interface Annotation {
-  id: number;
-  sessionId: number;
-  authorId: number;
-  authorName: string;
-  gameNumber: number | null;
-  frame: number | null;
-  text: string;
-  createdAt: string;
-}
+export const AnnotationSchema = z.object({
+  id: z.number().int(),
+  sessionId: z.number().int(),
+  authorId: z.number().int(),
+  authorName: z.string(),
+  gameNumber: z.number().int().nullable(),
+  frame: z.number().int().nullable(),
+  text: z.string(),
+  createdAt: z.string(),
+});
+export type Annotation = z.infer<typeof AnnotationSchema>;

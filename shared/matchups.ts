@@ -1,11 +1,12 @@
 import { z } from 'zod';
-import type { BowlerProfile, LaneSurface, RankedBall, Sweep } from '../engine/types';
+import type { BowlerProfile, RankedBall } from '../engine/types';
 import type { MissRoom } from '../engine/motion/missRoom';
 import type { ShotPrediction } from '../engine/motion/shotPrediction';
 import type { Calibration } from '../engine/shotlog/types';
-import type { Ball } from './balls';
+import { engineValue } from './api';
+import { BallSchema } from './balls';
 import { LaneSurfaceSchema } from './centers';
-import type { PatternSummary } from './patterns';
+import { PatternSummarySchema, SweepSchema } from './patterns';
 
 const id = (label: string, what: string) => z.number({ error: `${label} must be ${what} (a number)` }).int(`${label} must be a whole number`).positive(`${label} must be positive`).max(2147483647);
 
@@ -36,45 +37,65 @@ export const MatchupRequestSchema = z
 export type MatchupRequest = z.infer<typeof MatchupRequestSchema>;
 
 /** The ball's own fields a ranking carries for display. */
-export type MatchupBall = Pick<
-  Ball,
-  'id' | 'name' | 'nickname' | 'maker' | 'coverType' | 'coreType' | 'rg' | 'differential' | 'intermediateDifferential' | 'surfaceGrit' | 'polished' | 'layout' | 'weightLb' | 'gamesSinceResurface'
->;
+export const MatchupBallSchema = BallSchema.pick({
+  id: true,
+  name: true,
+  nickname: true,
+  maker: true,
+  coverType: true,
+  coreType: true,
+  rg: true,
+  differential: true,
+  intermediateDifferential: true,
+  surfaceGrit: true,
+  polished: true,
+  layout: true,
+  weightLb: true,
+  gamesSinceResurface: true,
+});
+export type MatchupBall = z.infer<typeof MatchupBallSchema>;
 
 /**
  * One ranked ball of a matchup: the engine's RankedBall (score, standing, fit, reasons, suggestions, prediction,
  * miss room) with the ball's numeric id. A 'ball' suggestion's `change.ballId` is that other ball's numeric id.
  */
-export interface MatchupRanking extends RankedBall {
+export type MatchupRanking = RankedBall & {
   ballId: number;
   ball: MatchupBall;
   prediction?: ShotPrediction | null;
   missRoom?: MissRoom | null;
   /** The calibrated friction multiplier the ball-motion model used; absent when uncalibrated. */
   frictionScale?: number;
-}
+};
+export const MatchupRankingSchema = engineValue<MatchupRanking>(
+  "The engine's ranked ball (score, standing, fit, reasons, suggestions, prediction, miss room) with ballId, the ball's fields and the friction scale used",
+);
 
 /** What a matchup says about the bowler's calibration, and the fit itself (the what-if passes it to the engine as the server did). */
-export interface MatchupCalibration {
-  applied: boolean;
-  shots: number;
-  note: string;
+export const MatchupCalibrationSchema = z.object({
+  applied: z.boolean(),
+  shots: z.number().int(),
+  note: z.string(),
   /** fitCalibration's answer on this pattern and lane surface (null when it could not be computed); applied when `applied`. */
-  fit: Calibration | null;
-}
+  fit: engineValue<Calibration>("The engine's calibration fit").nullable(),
+});
+export type MatchupCalibration = z.infer<typeof MatchupCalibrationSchema>;
 
 /** The answer of POST /api/matchups: the engine's input as the server used it, and the ranking. */
-export interface MatchupResult {
+export const MatchupResultSchema = z.object({
   /** The pattern ranked on (for a condition: its snapshot as published; `id` is the pattern it was published from, if it still exists). */
-  pattern: { id: number | null; name: string; summary: PatternSummary; sweeps: Sweep[] };
+  pattern: z.object({ id: z.number().int().nullable(), name: z.string(), summary: PatternSummarySchema, sweeps: z.array(SweepSchema) }),
   /** The published condition, when the matchup was for one. */
-  condition: { id: number; centerId: number; centerName: string; lanes: number[]; validFrom: string; validTo: string | null } | null;
-  lane: LaneSurface;
+  condition: z
+    .object({ id: z.number().int(), centerId: z.number().int(), centerName: z.string(), lanes: z.array(z.number().int()), validFrom: z.string(), validTo: z.string().nullable() })
+    .nullable(),
+  lane: LaneSurfaceSchema,
   /** The lane surface in words: "Synthetic lanes, high friction". */
-  laneText: string;
-  bowler: BowlerProfile;
-  gamesBowled: number;
-  calibration: MatchupCalibration;
+  laneText: z.string(),
+  bowler: engineValue<BowlerProfile>("The engine's bowler profile the ranking used"),
+  gamesBowled: z.number(),
+  calibration: MatchupCalibrationSchema,
   /** Strike balls by score, then spare balls, then balls outside the USBC limits (standing 'illegal'). */
-  rankings: MatchupRanking[];
-}
+  rankings: z.array(MatchupRankingSchema),
+});
+export type MatchupResult = z.infer<typeof MatchupResultSchema>;

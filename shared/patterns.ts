@@ -40,29 +40,35 @@ export const PatternQuerySchema = PageQuerySchema.extend({
 });
 export type PatternQuery = z.infer<typeof PatternQuerySchema>;
 
-export interface PatternSummary {
-  lengthFt: number;
-  volumeMl: number;
-  forwardMl: number;
-  reverseMl: number;
+/** The file format of a pattern download. */
+export const PatternExportQuerySchema = z.object({ format: z.enum(['json', 'csv']).default('json') });
+
+export const PatternSummarySchema = z.object({
+  lengthFt: z.number(),
+  volumeMl: z.number(),
+  forwardMl: z.number(),
+  reverseMl: z.number(),
   /** null when no oil reaches the outside boards (an unbounded ratio). */
-  ratio: number | null;
-  lengthClass: 'short' | 'medium' | 'long';
-  volumeClass: 'light' | 'medium' | 'heavy';
-  ratioClass: 'sport' | 'challenge' | 'recreation';
-}
+  ratio: z.number().nullable(),
+  lengthClass: z.enum(['short', 'medium', 'long']),
+  volumeClass: z.enum(['light', 'medium', 'heavy']),
+  ratioClass: z.enum(['sport', 'challenge', 'recreation']),
+});
+export type PatternSummary = z.infer<typeof PatternSummarySchema>;
 
-export interface PatternListItem {
-  id: number;
-  name: string;
-  description: string | null;
-  ownerId: number | null;
-  summary: PatternSummary;
-  version: number;
-  createdAt: string;
-}
+export const PatternListItemSchema = z.object({
+  id: z.number().int(),
+  name: z.string(),
+  description: z.string().nullable(),
+  ownerId: z.number().int().nullable(),
+  summary: PatternSummarySchema,
+  version: z.number().int(),
+  createdAt: z.string(),
+});
+export type PatternListItem = z.infer<typeof PatternListItemSchema>;
 
-export interface PatternDetail extends PatternListItem {
-  sweeps: Sweep[];
-  grid: { boards: number[]; ft: number[]; values: number[][] };
-}
+export const PatternDetailSchema = PatternListItemSchema.extend({
+  sweeps: z.array(SweepSchema),
+  grid: z.object({ boards: z.array(z.number()), ft: z.array(z.number()), values: z.array(z.array(z.number())) }),
+});
+export type PatternDetail = z.infer<typeof PatternDetailSchema>;

@@ -1,9 +1,9 @@
 import { z } from 'zod';
 import type { Calibration, GameView, HitKind, Move, ShotStats } from '../engine/shotlog/types';
-import type { LaneSurface } from '../engine/types';
+import { engineValue } from './api';
 import { PageQuerySchema } from './auth';
-import { LANE_FRICTIONS, LANE_KINDS } from './centers';
-import type { Annotation } from './coaching';
+import { LANE_FRICTIONS, LANE_KINDS, LaneSurfaceSchema } from './centers';
+import { AnnotationSchema } from './coaching';
 
 const isoDate = z.iso.date({ error: 'Use a date like 2026-12-01' });
 const id = (label: string) => z.number({ error: `${label} must be an id (a number)` }).int(`${label} must be a whole number`).positive(`${label} must be positive`).max(2147483647);
@@ -87,61 +87,67 @@ export const ShotCreateSchema = z
   .strict();
 export type ShotCreate = z.infer<typeof ShotCreateSchema>;
 
-export interface Session {
-  id: number;
-  userId: number;
-  date: string;
-  kind: SessionKind;
-  centerId: number | null;
-  centerName: string | null;
-  conditionId: number | null;
-  patternId: number | null;
-  patternName: string | null;
-  notes: string;
+export const SessionSchema = z.object({
+  id: z.number().int(),
+  userId: z.number().int(),
+  date: z.string(),
+  kind: z.enum(SESSION_KINDS),
+  centerId: z.number().int().nullable(),
+  centerName: z.string().nullable(),
+  conditionId: z.number().int().nullable(),
+  patternId: z.number().int().nullable(),
+  patternName: z.string().nullable(),
+  notes: z.string(),
   /** How many games have at least one shot. */
-  games: number;
-  shots: number;
-  createdAt: string;
-}
+  games: z.number().int(),
+  shots: z.number().int(),
+  createdAt: z.string(),
+});
+export type Session = z.infer<typeof SessionSchema>;
 
-export interface Shot {
-  id: number;
-  sessionId: number;
-  gameNumber: number;
-  frame: number;
-  delivery: number;
-  ballId: number;
-  ballName: string;
+export const ShotSchema = z.object({
+  id: z.number().int(),
+  sessionId: z.number().int(),
+  gameNumber: z.number().int(),
+  frame: z.number().int(),
+  delivery: z.number().int(),
+  ballId: z.number().int(),
+  ballName: z.string(),
   /** The ball's surface when the shot was thrown, e.g. "2000 grit" or "3000 grit polished". */
-  surfaceKey: string;
-  feetBoard: number | null;
-  targetBoard: number | null;
-  breakpointBoard: number | null;
-  standing: number[];
-  foul: boolean;
-  hit: HitKind | null;
-  note: string;
-  createdAt: string;
-}
+  surfaceKey: z.string(),
+  feetBoard: z.number().nullable(),
+  targetBoard: z.number().nullable(),
+  breakpointBoard: z.number().nullable(),
+  standing: z.array(z.number().int()),
+  foul: z.boolean(),
+  hit: z.enum(HIT_KINDS).nullable(),
+  note: z.string(),
+  createdAt: z.string(),
+});
+export type Shot = z.infer<typeof ShotSchema>;
 
 export type NumberedGame = GameView & { number: number };
+const NumberedGameSchema = engineValue<NumberedGame>("A game's frame sheet as the engine scores it, with its number");
 
 /** The answer of POST /api/sessions/:id/shots (also returned verbatim for a retried request). */
-export interface ShotCreated {
-  item: Shot;
-  game: NumberedGame;
-}
+export const ShotCreatedSchema = z.object({ item: ShotSchema, game: NumberedGameSchema });
+export type ShotCreated = z.infer<typeof ShotCreatedSchema>;
+
+const ShotStatsSchema = engineValue<ShotStats>("The engine's shot statistics");
+const MoveSchema = engineValue<Move>('A move the engine suggests from the logged shots');
+const CalibrationSchema = engineValue<Calibration>("The engine's ball-motion calibration");
 
 /** A session with everything on it. `shots` is the list here (the count is `shotCount`); `games` stays the count, the frame sheets are `gameViews`. */
-export interface SessionDetail extends Omit<Session, 'shots'> {
-  shotCount: number;
-  gameViews: NumberedGame[];
-  shots: Shot[];
-  stats: ShotStats;
-  moves: Move[];
-  annotations: Annotation[];
-  owner: { id: number; displayName: string };
-}
+export const SessionDetailSchema = SessionSchema.omit({ shots: true }).extend({
+  shotCount: z.number().int(),
+  gameViews: z.array(NumberedGameSchema),
+  shots: z.array(ShotSchema),
+  stats: ShotStatsSchema,
+  moves: z.array(MoveSchema),
+  annotations: z.array(AnnotationSchema),
+  owner: z.object({ id: z.number().int(), displayName: z.string() }),
+});
+export type SessionDetail = z.infer<typeof SessionDetailSchema>;
 
 export const StatsQuerySchema = z
   .object({
@@ -154,27 +160,30 @@ export const StatsQuerySchema = z
   .refine((q) => !q.from || !q.to || q.to >= q.from, { path: ['to'], message: 'The end date is before the start date' });
 export type StatsQuery = z.infer<typeof StatsQuerySchema>;
 
-export interface StatsTrendPoint {
-  sessionId: number;
-  date: string;
-  games: number;
-  average: number | null;
-  strikePct: number | null;
-  sparePct: number | null;
-}
+export const StatsTrendPointSchema = z.object({
+  sessionId: z.number().int(),
+  date: z.string(),
+  games: z.number().int(),
+  average: z.number().nullable(),
+  strikePct: z.number().nullable(),
+  sparePct: z.number().nullable(),
+});
+export type StatsTrendPoint = z.infer<typeof StatsTrendPointSchema>;
 
-export interface StatsResult {
-  overall: ShotStats;
-  byBall: { ballId: number; name: string; stats: ShotStats }[];
-  bySurface: { ballId: number; name: string; surfaceKey: string; stats: ShotStats }[];
-  trend: StatsTrendPoint[];
-  moves: Move[];
-  calibration: Calibration | null;
+export const StatsResultSchema = z.object({
+  overall: ShotStatsSchema,
+  byBall: z.array(z.object({ ballId: z.number().int(), name: z.string(), stats: ShotStatsSchema })),
+  bySurface: z.array(z.object({ ballId: z.number().int(), name: z.string(), surfaceKey: z.string(), stats: ShotStatsSchema })),
+  trend: z.array(StatsTrendPointSchema),
+  moves: z.array(MoveSchema),
+  calibration: CalibrationSchema.nullable(),
   /** The pattern the calibration is for (the patternId filter, else the latest session's pattern). */
-  calibrationPatternId?: number | null;
+  calibrationPatternId: z.number().int().nullable().optional(),
   /** The lane surface it is fitted on: the published condition's of the latest session on that pattern, else synthetic with medium friction. */
-  calibrationLane?: LaneSurface | null;
-}
+  calibrationLane: LaneSurfaceSchema.nullable().optional(),
+});
+export type StatsResult = z.infer<typeof StatsResultSchema>;
+export { CalibrationSchema };
 
 /**
  * The calibration on a plain pattern (`patternId`, on the lane surface `laneKind`/`laneFriction`, default synthetic

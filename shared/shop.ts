@@ -62,19 +62,20 @@ export const ServiceParamsSchema = z.object({
   serviceId: z.coerce.number({ error: 'Must be a number' }).int().positive().max(2147483647),
 });
 
-export interface ShopService {
-  id: number;
-  centerId: number;
-  kind: ServiceKind;
-  name: string;
+export const ShopServiceSchema = z.object({
+  id: z.number().int(),
+  centerId: z.number().int(),
+  kind: z.enum(SERVICE_KINDS),
+  name: z.string(),
   /** Target grit of a resurface (null for other services). */
-  grit: number | null;
-  description: string | null;
-  priceCents: number;
-  currency: Currency;
-  active: boolean;
-  version: number;
-}
+  grit: z.number().int().nullable(),
+  description: z.string().nullable(),
+  priceCents: z.number().int(),
+  currency: z.enum(CURRENCIES),
+  active: z.boolean(),
+  version: z.number().int(),
+});
+export type ShopService = z.infer<typeof ShopServiceSchema>;
 
 // ---- orders ---------------------------------------------------------------------------------------
 
@@ -111,60 +112,96 @@ export const CenterOrderQuerySchema = OrderListQuerySchema.extend({ date: isoDat
 export type CenterOrderQuery = z.infer<typeof CenterOrderQuerySchema>;
 export const TakingsQuerySchema = z.object({ date: isoDate.optional() });
 
-export interface OrderHistoryEntry {
-  status: OrderStatus;
-  at: string;
+export const OrderHistoryEntrySchema = z.object({
+  status: OrderStatusSchema,
+  at: z.string(),
   /** Who made the change (display name); null for the payment service. */
-  by: string | null;
-}
+  by: z.string().nullable(),
+});
+export type OrderHistoryEntry = z.infer<typeof OrderHistoryEntrySchema>;
 
-export interface Order {
-  id: number;
-  userId: number;
-  bowlerName: string;
-  centerId: number;
-  centerName: string;
-  serviceId: number;
-  serviceKind: ServiceKind;
-  serviceName: string;
-  grit: number | null;
-  ballId: number;
-  ballName: string;
-  amountCents: number;
-  currency: Currency;
-  status: OrderStatus;
-  notes: string | null;
-  paymentStatus: PaymentStatus;
-  lastPaymentError: string | null;
-  createdAt: string;
-  paidAt: string | null;
-  readyAt: string | null;
-  collectedAt: string | null;
-  refundedAt: string | null;
-  cancelledAt: string | null;
-  history: OrderHistoryEntry[];
-}
+export const OrderSchema = z.object({
+  id: z.number().int(),
+  userId: z.number().int(),
+  bowlerName: z.string(),
+  centerId: z.number().int(),
+  centerName: z.string(),
+  serviceId: z.number().int(),
+  serviceKind: z.enum(SERVICE_KINDS),
+  serviceName: z.string(),
+  grit: z.number().int().nullable(),
+  ballId: z.number().int(),
+  ballName: z.string(),
+  amountCents: z.number().int(),
+  currency: z.enum(CURRENCIES),
+  status: OrderStatusSchema,
+  notes: z.string().nullable(),
+  paymentStatus: z.enum(PAYMENT_STATUSES),
+  lastPaymentError: z.string().nullable(),
+  createdAt: z.string(),
+  paidAt: z.string().nullable(),
+  readyAt: z.string().nullable(),
+  collectedAt: z.string().nullable(),
+  refundedAt: z.string().nullable(),
+  cancelledAt: z.string().nullable(),
+  history: z.array(OrderHistoryEntrySchema),
+});
+export type Order = z.infer<typeof OrderSchema>;
 
-export interface CheckoutStart {
+export const CheckoutStartSchema = z.object({
   /** Where the browser goes to pay (the payment service's hosted page). */
-  url: string;
-  checkoutSessionId: string;
-}
+  url: z.string(),
+  checkoutSessionId: z.string(),
+});
+export type CheckoutStart = z.infer<typeof CheckoutStartSchema>;
 
-export interface Takings {
-  date: string;
-  currency: Currency;
+export const TakingsSchema = z.object({
+  date: z.string(),
+  currency: z.enum(CURRENCIES),
   /** Orders paid on the day. */
-  orders: number;
-  paidCents: number;
-  refundedCents: number;
-  netCents: number;
-  byService: { serviceId: number; name: string; count: number; cents: number }[];
+  orders: z.number().int(),
+  paidCents: z.number().int(),
+  refundedCents: z.number().int(),
+  netCents: z.number().int(),
+  byService: z.array(z.object({ serviceId: z.number().int(), name: z.string(), count: z.number().int(), cents: z.number().int() })),
+});
+export type Takings = z.infer<typeof TakingsSchema>;
+
+/** "$45.00" style text for integer cents (the amount and the code when the currency is unknown to Intl). */
+export function formatMoney(cents: number, currency = 'usd', locale = 'en-US'): string {
+  try {
+    return new Intl.NumberFormat(locale, { style: 'currency', currency: currency.toUpperCase() }).format(cents / 100);
+  } catch {
+    return `${(cents / 100).toFixed(2)} ${currency.toUpperCase()}`;
+  }
 }
 
-/** "$45.00" style text for integer cents. */
-export function formatMoney(cents: number, currency: string): string {
-  return new Intl.NumberFormat('en-US', { style: 'currency', currency: currency.toUpperCase() }).format(cents / 100);
+// ---- the order's life ------------------------------------------------------------------------------
+
+/**
+ * How far along an order is: ordered → paid → in progress → ready → collected; cancelled and refunded are
+ * ends off that line. The shop moves a paid order forward ('ready' may skip 'in progress'); 'collected'
+ * comes only after 'ready'.
+ */
+const ORDER_STEP: Readonly<Record<OrderStatus, number>> = { ordered: 0, paid: 1, in_progress: 2, ready: 3, collected: 4, cancelled: -1, refunded: -1 };
+export type ShopMove = (typeof SHOP_STATUS_MOVES)[number];
+
+/** Whether the shop may move an order from `from` to `to`. */
+export function canShopMove(from: OrderStatus, to: ShopMove): boolean {
+  return ORDER_STEP[from] >= 1 && ORDER_STEP[to] > ORDER_STEP[from] && !(to === 'collected' && from !== 'ready');
+}
+
+/** The shop's next step for an order in this status (the one button of the orders board), or null. */
+export function nextShopMove(status: OrderStatus): ShopMove | null {
+  if (status === 'paid') return 'in_progress';
+  if (status === 'in_progress') return 'ready';
+  if (status === 'ready') return 'collected';
+  return null;
+}
+
+/** A paid order not yet collected can be refunded. */
+export function canRefund(status: OrderStatus): boolean {
+  return status === 'paid' || status === 'in_progress' || status === 'ready';
 }
 
 // ---- cautions -------------------------------------------------------------------------------------

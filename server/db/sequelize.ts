@@ -39,3 +39,8 @@ sequelize.addHook('beforePoolAcquire', (options: { useMaster?: boolean }) => {
 
 /** Whether reads may go to a replica at all (replicas configured). */
 export const hasReplicas = config.replicaUrls.length > 0;
+
+/** A trivial query on the primary (health and readiness checks). */
+export async function pingPrimary(): Promise<void> {
+  await sequelize.query('SELECT 1', { useMaster: true });
+}

@@ -103,3 +103,13 @@ export function stopMailSender(): void {
   if (sweep) clearInterval(sweep);
   sweep = null;
 }
+
+/** What the health check reports of the outbox: mails waiting, mails given up on, and the age of the oldest waiting one. */
+export async function outboxSummary(): Promise<{ pending: number; failed: number; oldestPendingSeconds: number | null }> {
+  const [pending, failed, oldest] = await Promise.all([
+    MailOutbox.count({ where: { status: 'pending' } }),
+    MailOutbox.count({ where: { status: 'failed' } }),
+    MailOutbox.min('createdAt', { where: { status: 'pending' } }),
+  ]);
+  return { pending, failed, oldestPendingSeconds: oldest ? Math.round((Date.now() - new Date(oldest as Date).getTime()) / 1000) : null };
+}

@@ -126,3 +126,9 @@ export const cell = {
     return v === undefined || v === '' ? undefined : v;
   },
 };
+
+/** The file the upload middleware accepted (it answers 400 file_required before the handler when there is none). */
+export function uploadedFile(req: Request): Express.Multer.File {
+  if (!req.file) throw new AppError(400, 'file_required', 'Attach a file in the field "file"', { file: 'A file is required' });
+  return req.file;
+}

@@ -86,7 +86,8 @@ describe('SMTP down during publishing', () => {
     // The sender tried, failed, and keeps the message for a retry.
     const tried = await until(
       () => cluster.query<{ status: string; attempts: number; last_error: string | null }>(`SELECT status, attempts, last_error FROM mail_outbox WHERE to_address = $1`, [follower.email]),
-      (rows) => rows.length === 1 && rows[0].attempts >= 1,
+      // An attempt counts from its claim ('sending'); wait until it has ended, then it must be pending again.
+      (rows) => rows.length === 1 && rows[0].attempts >= 1 && rows[0].status !== 'sending',
       15000,
     );
     expect(tried).toHaveLength(1);

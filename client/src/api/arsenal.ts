@@ -1,13 +1,9 @@
 import type { Page } from '@shared/auth';
-import type { ArsenalQuery, Ball, BallCreate, BallPatch, SurfaceChange } from '@shared/balls';
+import type { ArsenalImportResult, ArsenalQuery, Ball, BallCreate, BallPatch, SurfaceChange } from '@shared/balls';
 import { api } from './client';
 
 export type ArsenalParams = Partial<ArsenalQuery>;
-
-export interface ArsenalImportResult {
-  imported: number;
-  items: Ball[];
-}
+export type { ArsenalImportResult };
 
 /** The signed-in bowler's own balls. */
 export const arsenalApi = {

@@ -1,9 +1,8 @@
 import type { AuthResponse, ForgotInput, LoginInput, RegisterInput, RegisterResponse, ResetInput, User, VerifyEmailInput } from '@shared/auth';
+import type { Ok } from '@shared/api';
 import { api } from './client';
 
-export interface OkResponse {
-  ok: true;
-}
+export type OkResponse = Ok;
 
 export const authApi = {
   /** The same answer for a new or a taken address; the mail tells the owner what happened. */

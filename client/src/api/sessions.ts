@@ -1,6 +1,6 @@
 import type { HitKind } from '@engine/index';
 import type { Page } from '@shared/auth';
-import type { Annotation } from '@shared/coaching';
+import type { Annotation, AnnotationCreate } from '@shared/coaching';
 import {
   HIT_KINDS,
   SESSION_KINDS,
@@ -22,11 +22,8 @@ export type { Annotation, HitKind, NumberedGame, Session, SessionCreate, Session
 /** The body of `POST /api/sessions/:id/shots` (sent with an `Idempotency-Key` header). */
 export type ShotInput = ShotCreate;
 
-export interface AnnotationInput {
-  text: string;
-  gameNumber?: number | null;
-  frame?: number | null;
-}
+/** The body of `POST /api/sessions/:id/annotations`. */
+export type AnnotationInput = AnnotationCreate;
 
 export const sessionsApi = {
   /** The signed-in bowler's sessions, newest first; `studentId` for a linked coach (else 404). */

@@ -11,31 +11,32 @@ import {
   ORDER_STATUSES,
   SERVICE_KINDS,
   SURFACE_KINDS,
+  canRefund,
   cautionsFor,
+  formatMoney,
+  nextShopMove,
   type CheckoutStart,
   type Order,
   type OrderCreate,
   type OrderHistoryEntry,
+  type OrderListQuery,
   type OrderStatus,
   type PaymentStatus,
   type ServiceInput,
   type ServiceKind,
   type ServicePatch,
+  type ShopMove,
   type ShopService,
   type Takings,
 } from '@shared/shop';
 
 export { ORDER_STATUSES, SERVICE_KINDS, SURFACE_KINDS, cautionsFor };
-export type { CheckoutStart, Order, OrderCreate, OrderHistoryEntry, OrderStatus, PaymentStatus, ServiceInput, ServiceKind, ServicePatch, ShopService, Takings };
+export type { CheckoutStart, Order, OrderCreate, OrderHistoryEntry, OrderStatus, PaymentStatus, ServiceInput, ServiceKind, ServicePatch, ShopMove, ShopService, Takings };
 
-/** The moves the shop makes on a paid order, in order. */
-export type ShopMove = 'in_progress' | 'ready' | 'collected';
+/** The order's life (the shop's next move, refunds) and money formatting are the shared rules the server applies. */
+export { canRefund, formatMoney, nextShopMove as nextMove };
 
-export interface OrderListParams {
-  page?: number;
-  pageSize?: number;
-  status?: OrderStatus;
-}
+export type OrderListParams = Partial<OrderListQuery>;
 
 export const shopApi = {
   /** Active services of a center (`all`: the owner sees inactive ones too). */
@@ -98,32 +99,12 @@ export const ORDER_STATUS_TAGS: Readonly<Record<OrderStatus, 'info' | 'primary' 
   refunded: 'danger',
 };
 
-/** The next move the shop can make from a status (null: none). */
-export function nextMove(status: OrderStatus): ShopMove | null {
-  if (status === 'paid') return 'in_progress';
-  if (status === 'in_progress') return 'ready';
-  if (status === 'ready') return 'collected';
-  return null;
-}
-
+/** The button text of each shop move. */
 export const MOVE_LABELS: Readonly<Record<ShopMove, string>> = {
   in_progress: 'Mark in progress',
   ready: 'Mark ready',
   collected: 'Mark collected',
 };
-
-export function canRefund(status: OrderStatus): boolean {
-  return status === 'paid' || status === 'in_progress' || status === 'ready';
-}
-
-/** Integer cents in the order's currency, e.g. "$45.00". */
-export function formatMoney(cents: number, currency = 'usd'): string {
-  try {
-    return new Intl.NumberFormat(undefined, { style: 'currency', currency: currency.toUpperCase() }).format(cents / 100);
-  } catch {
-    return `${(cents / 100).toFixed(2)} ${currency.toUpperCase()}`;
-  }
-}
 
 /** "Resurface to 4000 grit — $45.00". */
 export function serviceLabel(s: Pick<ShopService, 'name' | 'priceCents' | 'currency'>): string {

@@ -3,6 +3,7 @@ import {
   buildGame,
   shotStats,
   suggestMoves,
+  surfaceWords,
   type GameView,
   type LoggedDelivery,
   type Move,
@@ -66,7 +67,7 @@ export function useSessionLog(input: SessionLogInput) {
   function surfaceKeyOf(id: number): string {
     const b = balls.value.find((x) => x.id === id);
     if (!b) return 'unknown';
-    return b.polished ? `${b.surfaceGrit} grit polished` : `${b.surfaceGrit} grit`;
+    return surfaceWords(b.surfaceGrit, b.polished);
   }
 
   const entries = computed<Entry[]>(() => {

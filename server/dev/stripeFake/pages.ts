@@ -1,10 +1,9 @@
 /** The hosted pages of the payment fake: card form, authentication challenge, closed checkout. Plain HTML, no script. */
+import esc from 'escape-html';
+import { formatMoney } from '../../../shared/shop';
 
-const esc = (s: string) => s.replace(/[&<>"']/g, (ch) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[ch]!);
-
-export function money(cents: number, currency: string): string {
-  return new Intl.NumberFormat('en-US', { style: 'currency', currency: currency.toUpperCase() }).format(cents / 100);
-}
+/** "$45.00": the amount as the hosted page shows it. */
+export const money = (cents: number, currency: string): string => formatMoney(cents, currency);
 
 function layout(title: string, body: string): string {
   return `<!doctype html>

@@ -1,18 +1,9 @@
-import type { Page, Role, User as UserDto, UserListQuery } from '../../../shared/auth';
+import type { AuditEvent as AuditEventDto, Page, Role, User as UserDto, UserListQuery } from '../../../shared/auth';
 import { AppError } from '../../lib/AppError';
 import { audit } from '../../lib/audit';
-import { AuditEvent, sequelize } from '../../models/index';
+import { sequelize } from '../../models/index';
+import { adminRepository } from './admin.repository';
 import { toUserDto, userRepository } from '../auth/user.repository';
-
-export interface AuditEventDto {
-  id: number;
-  actorId: number | null;
-  action: string;
-  subjectType: string;
-  subjectId: string;
-  details: Record<string, unknown>;
-  createdAt: string;
-}
 
 export const adminService = {
   async listUsers(q: UserListQuery): Promise<Page<UserDto>> {
@@ -36,7 +27,7 @@ export const adminService = {
   },
 
   async listAudit(page: number, pageSize: number): Promise<Page<AuditEventDto>> {
-    const { rows, count } = await AuditEvent.findAndCountAll({ order: [['createdAt', 'DESC'], ['id', 'DESC']], limit: pageSize, offset: (page - 1) * pageSize });
+    const { rows, count } = await adminRepository.auditPage(page, pageSize);
     return {
       items: rows.map((e) => ({ id: Number(e.id), actorId: e.actorId, action: e.action, subjectType: e.subjectType, subjectId: e.subjectId, details: e.details, createdAt: e.createdAt.toISOString() })),
       total: count,

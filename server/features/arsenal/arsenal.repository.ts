@@ -2,7 +2,7 @@ import { QueryTypes, type CreationAttributes, type InferAttributes, type Transac
 import type { ArsenalQuery, Ball as BallDto, SurfaceEvent as SurfaceEventDto } from '../../../shared/balls';
 import { config } from '../../config/index';
 import { ScopedCache } from '../../lib/changeFeed';
-import { Ball, sequelize, SurfaceEvent } from '../../models/index';
+import { Ball, sequelize, SurfaceEvent, Upload } from '../../models/index';
 import { likeText } from '../catalogue/catalogue.repository';
 
 export function toSurfaceEventDto(e: SurfaceEvent): SurfaceEventDto {
@@ -101,6 +101,17 @@ export const arsenalRepository = {
       transaction: opts.transaction,
       paranoid: opts.paranoid ?? true,
     });
+  },
+  /** Locks a ball of the owner for the rest of the transaction, a removed one too (a shop's work on it still lands). */
+  lockOwnedEvenRemoved(ownerId: number, id: number, transaction: Transaction): Promise<Ball | null> {
+    return Ball.findOne({ where: { id, ownerId }, paranoid: false, transaction, lock: transaction.LOCK.UPDATE });
+  },
+  /** A stored upload (a ball's photo). */
+  upload(id: number): Promise<Upload | null> {
+    return Upload.findByPk(id);
+  },
+  createUpload(data: CreationAttributes<Upload>, transaction: Transaction): Promise<Upload> {
+    return Upload.create(data, { transaction });
   },
   findOwnedMany(ownerId: number, ids?: number[]): Promise<Ball[]> {
     return Ball.findAll({ where: { ownerId, ...(ids ? { id: ids } : {}) }, order: [['id', 'ASC']] });

@@ -11,7 +11,7 @@ import {
 } from '../../../shared/balls';
 import { AppError } from '../../lib/AppError';
 import { cell, parseCsvRows } from '../../lib/upload';
-import { sequelize, Upload } from '../../models/index';
+import { sequelize } from '../../models/index';
 import { decodeImage, storage } from '../../lib/storage';
 import { catalogueRepository } from '../catalogue/catalogue.repository';
 import { refitBowlerAfterCommit } from '../stats/calibrationJobs';
@@ -131,9 +131,9 @@ export const arsenalService = {
     if (!kind) throw new AppError(400, 'unsupported_file', 'The file is not a readable PNG, JPEG or WebP image', { file: 'Not a readable PNG, JPEG or WebP image (at most 24 megapixels)' });
     const key = await storage.put(file.buffer, kind.ext);
     try {
-      const old = b.photoUploadId ? await Upload.findByPk(b.photoUploadId) : null;
+      const old = b.photoUploadId ? await arsenalRepository.upload(b.photoUploadId) : null;
       await sequelize.transaction(async (transaction) => {
-        const up = await Upload.create({ ownerId, storageKey: key, contentType: kind.type, sizeBytes: file.buffer.length, originalName: file.originalname.slice(0, 200) }, { transaction });
+        const up = await arsenalRepository.createUpload({ ownerId, storageKey: key, contentType: kind.type, sizeBytes: file.buffer.length, originalName: file.originalname.slice(0, 200) }, transaction);
         b.photoUploadId = up.id;
         await b.save({ transaction });
         if (old) await old.destroy({ transaction });
@@ -148,7 +148,7 @@ export const arsenalService = {
 
   async getPhoto(ownerId: number, id: number): Promise<{ bytes: Buffer; type: string }> {
     const b = await arsenalRepository.findOwned(ownerId, id);
-    const up = b?.photoUploadId ? await Upload.findByPk(b.photoUploadId) : null;
+    const up = b?.photoUploadId ? await arsenalRepository.upload(b.photoUploadId) : null;
     if (!up) throw AppError.notFound('Photo');
     return { bytes: await storage.get(up.storageKey), type: up.contentType };
   },
@@ -156,7 +156,7 @@ export const arsenalService = {
   async removePhoto(ownerId: number, id: number): Promise<BallDto> {
     const b = await arsenalRepository.findOwned(ownerId, id);
     if (!b) throw notFound();
-    const up = b.photoUploadId ? await Upload.findByPk(b.photoUploadId) : null;
+    const up = b.photoUploadId ? await arsenalRepository.upload(b.photoUploadId) : null;
     if (up) {
       await sequelize.transaction(async (transaction) => {
         b.photoUploadId = null;

@@ -1,6 +1,6 @@
-import { Op, type Transaction } from 'sequelize';
+import { Op, type CreationAttributes, type Transaction } from 'sequelize';
 import { laneSurfaceText, type Center as CenterDto, type Condition as ConditionDto, type LaneSurface } from '../../../shared/centers';
-import { Center, Condition, Follow } from '../../models/index';
+import { Center, Condition, Follow, Lane, User } from '../../models/index';
 
 export function toCenterDto(c: Center, following?: boolean): CenterDto {
   return { id: c.id, name: c.name, town: c.town, laneCount: c.laneCount, ownerId: c.ownerId, ...(following === undefined ? {} : { following }) };
@@ -29,7 +29,37 @@ export function toConditionDto(c: Condition, supersededBy: number | null = null)
   };
 }
 
+type FollowWith<K extends string, T> = Follow & Record<K, T>;
+
 export const centersRepository = {
+  create(data: CreationAttributes<Center>, transaction: Transaction): Promise<Center> {
+    return Center.create(data, { transaction });
+  },
+  /** The center's lanes, numbered 1 to its lane count (replacing any there were). */
+  async replaceLanes(c: Center, transaction: Transaction): Promise<void> {
+    await Lane.destroy({ where: { centerId: c.id }, transaction });
+    await Lane.bulkCreate(Array.from({ length: c.laneCount }, (_, i) => ({ centerId: c.id, number: i + 1, notes: null })), { transaction });
+  },
+  createCondition(data: CreationAttributes<Condition>, transaction: Transaction): Promise<Condition> {
+    return Condition.create(data, { transaction });
+  },
+  /** The center's followers with their address and name (the publication e-mails). */
+  followersOf(centerId: number, transaction: Transaction): Promise<FollowWith<'user', User>[]> {
+    return Follow.findAll({ where: { centerId }, include: [{ model: User, as: 'user', attributes: ['email', 'displayName'] }], transaction }) as Promise<FollowWith<'user', User>[]>;
+  },
+  async follow(userId: number, centerId: number, unsubscribeToken: string): Promise<void> {
+    await Follow.findOrCreate({ where: { userId, centerId }, defaults: { userId, centerId, unsubscribeToken } });
+  },
+  async unfollow(userId: number, centerId: number): Promise<void> {
+    await Follow.destroy({ where: { userId, centerId } });
+  },
+  /** The user's follows with their centers, in the order followed. */
+  followsOf(userId: number): Promise<FollowWith<'center', Center>[]> {
+    return Follow.findAll({ where: { userId }, include: [{ model: Center, as: 'center' }], order: [['id', 'ASC']] }) as Promise<FollowWith<'center', Center>[]>;
+  },
+  followByToken(token: string): Promise<FollowWith<'center', Center> | null> {
+    return Follow.findOne({ where: { unsubscribeToken: token }, include: [{ model: Center, as: 'center' }] }) as Promise<FollowWith<'center', Center> | null>;
+  },
   list(opts: { ownerId?: number; limit: number; offset: number }): Promise<{ rows: Center[]; count: number }> {
     return Center.findAndCountAll({ where: opts.ownerId ? { ownerId: opts.ownerId } : {}, order: [['name', 'ASC'], ['id', 'ASC']], limit: opts.limit, offset: opts.offset });
   },
@@ -37,6 +67,9 @@ export const centersRepository = {
     return Center.findByPk(id, { transaction });
   },
   /** A publication with its center, or null. */
+  findConditionById(id: number): Promise<Condition | null> {
+    return Condition.findByPk(id);
+  },
   findCondition(id: number): Promise<(Condition & { center: Center }) | null> {
     return Condition.findByPk(id, { include: [{ model: Center, as: 'center' }] }) as Promise<(Condition & { center: Center }) | null>;
   },

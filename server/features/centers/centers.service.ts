@@ -1,3 +1,4 @@
+import esc from 'escape-html';
 import crypto from 'node:crypto';
 import type { Page } from '../../../shared/auth';
 import { laneSurfaceText, type Center as CenterDto, type CenterInput, type Condition as ConditionDto, type CurrentCondition, type FollowedCenter, type PublishCondition } from '../../../shared/centers';
@@ -6,7 +7,9 @@ import { AppError } from '../../lib/AppError';
 import { audit } from '../../lib/audit';
 import { enqueueMail } from '../../lib/outbox';
 import type { AuthUser } from '../../middleware/auth';
-import { Center, Condition, Follow, Lane, Pattern, sequelize, User } from '../../models/index';
+import { sequelize, type Center, type Condition } from '../../models/index';
+import { userRepository } from '../auth/user.repository';
+import { patternsRepository } from '../patterns/patterns.repository';
 import { centersRepository, toCenterDto, toConditionDto } from './centers.repository';
 import { datesOverlap, laneRanges } from './lanes';
 
@@ -20,7 +23,6 @@ function supersededBy(c: Condition, later: Condition[]): number | null {
   return hit ? hit.id : null;
 }
 
-const esc = (s: string) => s.replace(/[&<>"']/g, (ch) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[ch]!);
 
 async function centerOr404(id: number): Promise<Center> {
   const c = await centersRepository.findById(id);
@@ -50,8 +52,8 @@ export const centersService = {
   async create(actor: AuthUser, input: CenterInput): Promise<CenterDto> {
     return sequelize.transaction(async (transaction) => {
       if (input.ownerId) await assertProprietor(input.ownerId);
-      const c = await Center.create({ name: input.name, town: input.town, laneCount: input.laneCount, ownerId: input.ownerId ?? null }, { transaction });
-      await Lane.bulkCreate(Array.from({ length: c.laneCount }, (_, i) => ({ centerId: c.id, number: i + 1, notes: null })), { transaction });
+      const c = await centersRepository.create({ name: input.name, town: input.town, laneCount: input.laneCount, ownerId: input.ownerId ?? null }, transaction);
+      await centersRepository.replaceLanes(c, transaction);
       await audit({ actorId: actor.id, action: 'center.created', subjectType: 'center', subjectId: c.id, details: { ownerId: c.ownerId } }, transaction);
       return toCenterDto(c);
     });
@@ -71,8 +73,7 @@ export const centersService = {
       c.set(patch);
       await c.save({ transaction });
       if (patch.laneCount !== undefined) {
-        await Lane.destroy({ where: { centerId: c.id }, transaction });
-        await Lane.bulkCreate(Array.from({ length: c.laneCount }, (_, i) => ({ centerId: c.id, number: i + 1, notes: null })), { transaction });
+        await centersRepository.replaceLanes(c, transaction);
       }
       if (patch.ownerId !== undefined && patch.ownerId !== before)
         await audit({ actorId: actor.id, action: 'center.owner_assigned', subjectType: 'center', subjectId: c.id, details: { from: before, to: patch.ownerId } }, transaction);
@@ -109,25 +110,25 @@ export const centersService = {
     if (center.ownerId !== actor.id) throw AppError.forbidden('Only this center’s proprietor can publish its condition');
     const bad = input.lanes.filter((n) => n > center.laneCount);
     if (bad.length) throw AppError.badRequest('Some lanes do not exist', { 'body.lanes': `${center.name} has lanes 1–${center.laneCount}; not ${bad.join(', ')}` });
-    const pattern = await Pattern.findByPk(input.patternId);
+    const pattern = await patternsRepository.findById(input.patternId);
     if (!pattern) throw AppError.badRequest('That pattern does not exist', { 'body.patternId': 'Unknown pattern' });
     const base = publicUrl();
     return sequelize.transaction(async (transaction) => {
-      const c = await Condition.create(
+      const c = await centersRepository.createCondition(
         {
           centerId, patternId: pattern.id, patternName: pattern.name, sweeps: pattern.sweeps, summary: pattern.summary, lanes: [...new Set(input.lanes)].sort((a, b) => a - b),
           validFrom: input.validFrom, validTo: input.validTo ?? null, notes: input.notes ?? null, publishedAt: new Date(), publishedBy: actor.id,
           laneKind: input.lane.kind, laneFriction: input.lane.friction,
         },
-        { transaction },
+        transaction,
       );
       await audit({ actorId: actor.id, action: 'condition.published', subjectType: 'condition', subjectId: c.id, details: { centerId, patternId: pattern.id, lanes: c.lanes, lane: input.lane } }, transaction);
-      const follows = await Follow.findAll({ where: { centerId }, include: [{ model: User, as: 'user', attributes: ['email', 'displayName'] }], transaction });
+      const follows = await centersRepository.followersOf(centerId, transaction);
       const s = pattern.summary;
       const page = `${base}/centers/${centerId}/condition`;
       await enqueueMail(
         follows.map((f) => {
-          const u = (f as Follow & { user: User }).user;
+          const u = f.user;
           const unsubscribe = `${base}/api/unsubscribe?token=${f.unsubscribeToken}`;
           const lines = [
             `Hello ${u.displayName},`,
@@ -159,17 +160,16 @@ export const centersService = {
 
   async follow(user: AuthUser, centerId: number): Promise<void> {
     await centerOr404(centerId);
-    await Follow.findOrCreate({ where: { userId: user.id, centerId }, defaults: { userId: user.id, centerId, unsubscribeToken: crypto.randomBytes(24).toString('base64url') } });
+    await centersRepository.follow(user.id, centerId, crypto.randomBytes(24).toString('base64url'));
   },
 
   async unfollow(user: AuthUser, centerId: number): Promise<void> {
     await centerOr404(centerId);
-    await Follow.destroy({ where: { userId: user.id, centerId } });
+    await centersRepository.unfollow(user.id, centerId);
   },
 
   async follows(user: AuthUser): Promise<FollowedCenter[]> {
-    const rows = await Follow.findAll({ where: { userId: user.id }, include: [{ model: Center, as: 'center' }], order: [['id', 'ASC']] });
-    const centers = rows.map((f) => (f as Follow & { center: Center }).center);
+    const centers = (await centersRepository.followsOf(user.id)).map((f) => f.center);
     // One query for every followed center, newest publication first: the first row per center is its current
     // condition; each older one still governs the lanes no newer publication has taken.
     const byCenter = new Map<number, Condition[]>();
@@ -189,16 +189,16 @@ export const centersService = {
 
   /** Removes the follow behind an e-mail's unsubscribe link (no sign-in); returns the center's name, or null for an unknown token. */
   async unsubscribe(token: string): Promise<string | null> {
-    const f = await Follow.findOne({ where: { unsubscribeToken: token }, include: [{ model: Center, as: 'center' }] });
+    const f = await centersRepository.followByToken(token);
     if (!f) return null;
-    const name = (f as Follow & { center: Center }).center.name;
+    const name = f.center.name;
     await f.destroy();
     return name;
   },
 };
 
 async function assertProprietor(userId: number): Promise<void> {
-  const u = await User.findByPk(userId);
+  const u = await userRepository.findById(userId);
   if (!u) throw AppError.badRequest('That user does not exist', { 'body.ownerId': 'Unknown user' });
   if (u.role !== 'proprietor') throw AppError.badRequest('The owner must have the proprietor role', { 'body.ownerId': 'Grant the proprietor role first' });
 }

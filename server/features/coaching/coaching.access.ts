@@ -1,7 +1,7 @@
 import type { Transaction } from 'sequelize';
 import { AppError } from '../../lib/AppError';
 import type { AuthUser } from '../../middleware/auth';
-import { CoachLink } from '../../models/index';
+import { coachingRepository } from './coaching.repository';
 
 /**
  * Who may read whose logs: a bowler their own; a coach a student whose invitation is accepted and not
@@ -9,7 +9,7 @@ import { CoachLink } from '../../models/index';
  */
 export async function isLinkedCoach(coach: AuthUser, studentId: number, transaction?: Transaction): Promise<boolean> {
   if (coach.role !== 'coach') return false;
-  const link = await CoachLink.findOne({ where: { coachId: coach.id, studentId, status: 'active' }, attributes: ['id'], transaction });
+  const link = await coachingRepository.activeLink(coach.id, studentId, transaction);
   return link !== null;
 }
 

@@ -1,4 +1,4 @@
-import { Op, QueryTypes, type Transaction } from 'sequelize';
+import { Op, QueryTypes, type CreationAttributes, type Transaction } from 'sequelize';
 import type { CoachLink as CoachLinkDto, Plan as PlanDto, StudentSummary } from '../../../shared/coaching';
 import { Ball, CoachLink, Plan, sequelize, User } from '../../models/index';
 
@@ -72,8 +72,18 @@ export const coachingRepository = {
   liveLink(coachId: number, email: string, transaction?: Transaction): Promise<CoachLink | null> {
     return CoachLink.findOne({ where: { coachId, email, status: { [Op.in]: ['pending', 'active'] } }, transaction });
   },
-  activeLink(coachId: number, studentId: number): Promise<CoachLink | null> {
-    return CoachLink.findOne({ where: { coachId, studentId, status: 'active' } });
+  activeLink(coachId: number, studentId: number, transaction?: Transaction): Promise<CoachLink | null> {
+    return CoachLink.findOne({ where: { coachId, studentId, status: 'active' }, attributes: ['id'], transaction });
+  },
+  createLink(data: CreationAttributes<CoachLink>, transaction: Transaction): Promise<CoachLink> {
+    return CoachLink.create(data, { transaction });
+  },
+  createPlan(data: CreationAttributes<Plan>, transaction: Transaction): Promise<Plan> {
+    return Plan.create(data, { transaction });
+  },
+  /** A ball's name, a removed ball's too (a plan keeps naming it). */
+  async ballName(id: number, transaction?: Transaction): Promise<string | null> {
+    return (await Ball.findByPk(id, { attributes: ['name'], paranoid: false, transaction }))?.name ?? null;
   },
   /** A coach's active students with their session count and last session date, in one statement. */
   async students(coachId: number, page: number, pageSize: number): Promise<{ rows: StudentSummary[]; count: number }> {

@@ -1,3 +1,4 @@
+import esc from 'escape-html';
 import { UniqueConstraintError } from 'sequelize';
 import type { Page } from '../../../shared/auth';
 import type { CoachLink as CoachLinkDto, Plan as PlanDto, PlanCreate, StudentDetail, StudentSummary } from '../../../shared/coaching';
@@ -7,13 +8,13 @@ import { AppError } from '../../lib/AppError';
 import { audit } from '../../lib/audit';
 import { enqueueMail } from '../../lib/outbox';
 import type { AuthUser } from '../../middleware/auth';
-import { Ball, CoachLink, Plan, sequelize, User } from '../../models/index';
+import { sequelize, type CoachLink, type User } from '../../models/index';
+import { userRepository } from '../auth/user.repository';
 import { arsenalRepository, toBallDto } from '../arsenal/arsenal.repository';
 import { profileService } from '../profile/profile.service';
 import { isLinkedCoach } from './coaching.access';
 import { coachingRepository, toLinkDto, toPlanDto } from './coaching.repository';
 
-const esc = (s: string) => s.replace(/[&<>"']/g, (ch) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[ch]!);
 
 function mailBody(lines: string[], link: { href: string; label: string }): { text: string; html: string } {
   return { text: [...lines, '', `${link.label}: ${link.href}`].join('\n'), html: `<p>${lines.map(esc).join('<br>')}</p><p><a href="${esc(link.href)}">${esc(link.label)}</a></p>` };
@@ -22,7 +23,7 @@ function mailBody(lines: string[], link: { href: string; label: string }): { tex
 /** The student of a linked coach (404 when not linked, so the student's existence never leaks). */
 async function linkedStudent(coach: AuthUser, studentId: number): Promise<User> {
   if (!(await isLinkedCoach(coach, studentId))) throw AppError.notFound('Student');
-  return (await User.findByPk(studentId))!;
+  return (await userRepository.findById(studentId))!;
 }
 
 const DAY_MS = 24 * 60 * 60 * 1000;
@@ -53,7 +54,7 @@ export const coachingService = {
         }
         const live = await coachingRepository.liveLink(coach.id, address, transaction);
         if (live) throw AppError.conflict(live.status === 'active' ? 'already_linked' : 'already_invited', live.status === 'active' ? 'This bowler is already your student' : 'This bowler already has an invitation from you');
-        const link = await CoachLink.create({ coachId: coach.id, studentId: null, email: address, status: 'pending', acceptedAt: null, revokedAt: null, revokedBy: null }, { transaction });
+        const link = await coachingRepository.createLink({ coachId: coach.id, studentId: null, email: address, status: 'pending', acceptedAt: null, revokedAt: null, revokedBy: null }, transaction);
         await audit({ actorId: coach.id, action: 'coach.invited', subjectType: 'coach_link', subjectId: link.id, details: { email: address } }, transaction);
         const body = mailBody(
           [
@@ -78,7 +79,7 @@ export const coachingService = {
   },
 
   async links(user: AuthUser, page: number, pageSize: number): Promise<Page<CoachLinkDto>> {
-    const me = await User.findByPk(user.id, { attributes: ['id', 'emailVerifiedAt'] });
+    const me = await userRepository.findById(user.id);
     const { rows, count } = await coachingRepository.links({ ...user, emailVerified: Boolean(me?.emailVerifiedAt) }, page, pageSize);
     return { items: rows.map(toLinkDto), total: count, page, pageSize };
   },
@@ -90,7 +91,7 @@ export const coachingService = {
       if (!l || !isInvitee(user, l) || l.status === 'revoked') throw AppError.notFound('Invitation');
       if (l.status === 'active') return;
       // Holding an account with the invited address is not enough: the address must be proven (the mailed link).
-      const me = await User.findByPk(user.id, { attributes: ['id', 'emailVerifiedAt'], transaction });
+      const me = await userRepository.findById(user.id, transaction);
       if (!me?.emailVerifiedAt) throw new AppError(403, 'email_unverified', 'Confirm your e-mail address (the link we mailed you) before accepting an invitation');
       l.set({ status: 'active', studentId: user.id, acceptedAt: new Date() });
       await l.save({ transaction });
@@ -130,11 +131,11 @@ export const coachingService = {
       throw AppError.badRequest('That ball is not in the student’s arsenal', { 'body.ballId': 'Choose one of the student’s balls' });
     const base = publicUrl();
     const id = await sequelize.transaction(async (transaction) => {
-      const p = await Plan.create({ coachId: coach.id, studentId: s.id, title: input.title, kind: input.kind, body: input.body, ballId: input.ballId ?? null }, { transaction });
+      const p = await coachingRepository.createPlan({ coachId: coach.id, studentId: s.id, title: input.title, kind: input.kind, body: input.body, ballId: input.ballId ?? null }, transaction);
       await audit({ actorId: coach.id, action: 'coach.plan_sent', subjectType: 'plan', subjectId: p.id, details: { studentId: s.id, kind: p.kind, ballId: p.ballId } }, transaction);
-      const ball = p.ballId ? await Ball.findByPk(p.ballId, { attributes: ['name'], transaction }) : null;
+      const ballName = p.ballId ? await coachingRepository.ballName(p.ballId, transaction) : null;
       const body = mailBody(
-        [`Hello ${s.displayName},`, '', `${coach.displayName} sent you a ${p.kind} plan${ball ? ` for ${ball.name}` : ''}: ${p.title}.`, '', ...p.body.split('\n')],
+        [`Hello ${s.displayName},`, '', `${coach.displayName} sent you a ${p.kind} plan${ballName ? ` for ${ballName}` : ''}: ${p.title}.`, '', ...p.body.split('\n')],
         { href: `${base}/`, label: 'See it on your Lanewright home' },
       );
       await enqueueMail([{ to: s.email, kind: 'coach_plan', ref: String(p.id), subject: `A plan from ${coach.displayName}: ${p.title}`.slice(0, 200), ...body }], transaction);

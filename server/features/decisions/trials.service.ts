@@ -1,6 +1,6 @@
 import { Op } from 'sequelize';
 import { median } from 'simple-statistics';
-import { compareTrial, simulateShot } from '../../../engine/index';
+import { compareTrial, laydownBoardOf, simulateShot } from '../../../engine/index';
 import type { BowlerProfile, OilPattern } from '../../../engine/types';
 import { ballLabel, ballToSpec } from '../../../shared/balls';
 import type { Trial as TrialDto, TrialCreate, TrialListQuery, TrialResult } from '../../../shared/decisions';
@@ -10,7 +10,7 @@ import { Ball, Pattern, Trial } from '../../models/index';
 import { isLinkedCoach, readableBowlerId } from '../coaching/coaching.access';
 import { patternsService } from '../patterns/patterns.service';
 import { sessionsRepository, toShotRecord, type ShotRow } from '../sessions/sessions.repository';
-import { bowlerOf, LAYDOWN_OFFSET_BOARDS } from '../stats/stats.service';
+import { bowlerOf } from '../stats/stats.service';
 
 const todayUtc = () => new Date().toISOString().slice(0, 10);
 
@@ -60,7 +60,7 @@ function predictedBreakpoint(ball: Ball, rows: ShotRow[], bowler: BowlerProfile,
   const lined = rows.filter((r) => r.delivery === 1 && r.feet_board != null && r.target_board != null);
   const spec = ballToSpec(ball.get({ plain: true }));
   const line = lined.length
-    ? { laydownBoard: Math.max(1, median(lined.map((r) => r.feet_board as number)) - LAYDOWN_OFFSET_BOARDS), targetBoard: median(lined.map((r) => r.target_board as number)) }
+    ? { laydownBoard: laydownBoardOf(median(lined.map((r) => r.feet_board as number))), targetBoard: median(lined.map((r) => r.target_board as number)) }
     : {};
   return Math.round(simulateShot({ ball: spec, bowler, pattern, ...line }).breakpoint.board * 10) / 10;
 }

@@ -1,6 +1,7 @@
-import { Op, QueryTypes, type Transaction } from 'sequelize';
+import { Op, QueryTypes, type CreationAttributes, type Transaction } from 'sequelize';
 import type { ShotRecord } from '../../../engine/shotlog/types';
 import type { LaneSurface } from '../../../engine/types';
+import { ballLabel } from '../../../shared/balls';
 import type { Annotation as AnnotationDto } from '../../../shared/coaching';
 import type { Session as SessionDto, SessionKind, Shot as ShotDto } from '../../../shared/sessions';
 import { Annotation, BowlingSession, sequelize, Shot, User } from '../../models/index';
@@ -55,7 +56,9 @@ export interface ShotRow {
   frame: number;
   delivery: number;
   ball_id: number;
-  ball_name: string;
+  /** The ball's model name and nickname, for its label (ballLabel). */
+  ball_model_name: string;
+  ball_nickname: string | null;
   surface_key: string;
   feet_board: number | null;
   target_board: number | null;
@@ -80,7 +83,7 @@ export function toShotDto(r: ShotRow): ShotDto {
     frame: r.frame,
     delivery: r.delivery,
     ballId: r.ball_id,
-    ballName: r.ball_name,
+    ballName: shotBallName(r),
     surfaceKey: r.surface_key,
     feetBoard: r.feet_board,
     targetBoard: r.target_board,
@@ -112,10 +115,10 @@ export function toShotRecord(r: ShotRow, date: string): ShotRecord {
   };
 }
 
-/** The name the shot list shows for a ball: its nickname in quotes after the model name when it has one. */
-export const BALL_NAME_SQL = `CASE WHEN b.nickname IS NULL OR b.nickname = '' THEN b.name ELSE b.name || ' “' || b.nickname || '”' END`;
+/** The name a shot's ball is shown by: the one ball label of shared/balls. */
+export const shotBallName = (r: Pick<ShotRow, 'ball_model_name' | 'ball_nickname'>): string => ballLabel({ name: r.ball_model_name, nickname: r.ball_nickname });
 
-const SHOT_COLUMNS = `sh.id, sh.session_id, sh.game_number, sh.frame, sh.delivery, sh.ball_id, ${BALL_NAME_SQL} AS ball_name, sh.surface_key,
+const SHOT_COLUMNS = `sh.id, sh.session_id, sh.game_number, sh.frame, sh.delivery, sh.ball_id, b.name AS ball_model_name, b.nickname AS ball_nickname, sh.surface_key,
   sh.feet_board, sh.target_board, sh.breakpoint_board, sh.standing, sh.foul, sh.hit, sh.note, sh.created_at, sh.surface_grit, sh.surface_polished`;
 
 export function toAnnotationDto(a: Annotation & { author?: User }): AnnotationDto {
@@ -132,6 +135,18 @@ export function toAnnotationDto(a: Annotation & { author?: User }): AnnotationDt
 }
 
 export const sessionsRepository = {
+  create(data: CreationAttributes<BowlingSession>): Promise<BowlingSession> {
+    return BowlingSession.create(data);
+  },
+  createShot(data: CreationAttributes<Shot>, transaction: Transaction): Promise<Shot> {
+    return Shot.create(data, { transaction });
+  },
+  findShot(sessionId: number, id: number, transaction: Transaction): Promise<Shot | null> {
+    return Shot.findOne({ where: { id, sessionId }, transaction });
+  },
+  createAnnotation(data: CreationAttributes<Annotation>): Promise<Annotation> {
+    return Annotation.create(data);
+  },
   /** One page of a bowler's sessions, newest first, and the total, in one statement. */
   async list(userId: number, q: { page: number; pageSize: number; from?: string; to?: string }): Promise<{ rows: SessionDto[]; count: number }> {
     const where = ['s.user_id = :userId', 's.deleted_at IS NULL'];

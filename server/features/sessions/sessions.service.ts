@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import { changedAfterCommit } from '../../lib/changeFeed';
 import { UniqueConstraintError, type Transaction } from 'sequelize';
-import { buildGame, checkDelivery, shotStats, suggestMoves } from '../../../engine/index';
+import { buildGame, checkDelivery, isCalibrationShot, shotStats, suggestMoves, surfaceWords } from '../../../engine/index';
 import type { LoggedDelivery } from '../../../engine/shotlog/types';
 import type { Page } from '../../../shared/auth';
 import { DEFAULT_LANE_SURFACE } from '../../../shared/centers';
@@ -9,7 +9,11 @@ import type { AnnotationCreate, Annotation as AnnotationDto } from '../../../sha
 import type { NumberedGame, Session as SessionDto, SessionCreate, SessionDetail, SessionListQuery, SessionPatch, ShotCreate, ShotCreated } from '../../../shared/sessions';
 import { AppError } from '../../lib/AppError';
 import type { AuthUser } from '../../middleware/auth';
-import { Annotation, Ball, BowlingSession, Center, Condition, Pattern, sequelize, Shot, User } from '../../models/index';
+import { sequelize, type BowlingSession, type Shot, type User } from '../../models/index';
+import { arsenalRepository } from '../arsenal/arsenal.repository';
+import { userRepository } from '../auth/user.repository';
+import { centersRepository } from '../centers/centers.repository';
+import { patternsRepository } from '../patterns/patterns.repository';
 import { isLinkedCoach, readableBowlerId } from '../coaching/coaching.access';
 import { profileService } from '../profile/profile.service';
 import { requestCalibrationFitsAfterCommit } from '../stats/calibrationJobs';
@@ -17,10 +21,6 @@ import { sessionsRepository, toAnnotationDto, toShotDto, toShotRecord, type Shot
 
 const notFound = () => AppError.notFound('Session');
 
-/** How a shot's surface is named in statistics: the grit, and "polished" when it is. */
-export function surfaceKeyOf(grit: number, polished: boolean): string {
-  return `${grit} grit${polished ? ' polished' : ''}`;
-}
 
 /**
  * The session for a request: its owner reaches it for anything; a linked coach may read it (and annotate);
@@ -71,7 +71,7 @@ export const sessionsService = {
     let patternName: string | null = null;
     const conditionId = input.conditionId ?? null;
     if (conditionId !== null) {
-      const c = await Condition.findByPk(conditionId);
+      const c = await centersRepository.findConditionById(conditionId);
       if (!c) throw AppError.badRequest('That condition does not exist', { 'body.conditionId': 'Unknown condition' });
       if (centerId !== null && centerId !== c.centerId) throw AppError.badRequest('The condition is not one of that center’s', { 'body.conditionId': 'This condition was published by another center' });
       if (patternId !== null && c.patternId !== patternId) throw AppError.badRequest('The condition has another pattern', { 'body.patternId': 'Leave the pattern out or choose the condition’s own' });
@@ -79,13 +79,13 @@ export const sessionsService = {
       patternId = c.patternId;
       patternName = c.patternName;
     }
-    if (centerId !== null && !(await Center.findByPk(centerId, { attributes: ['id'] }))) throw AppError.badRequest('That center does not exist', { 'body.centerId': 'Unknown center' });
+    if (centerId !== null && !(await centersRepository.findById(centerId))) throw AppError.badRequest('That center does not exist', { 'body.centerId': 'Unknown center' });
     if (patternId !== null && patternName === null) {
-      const p = await Pattern.findByPk(patternId, { attributes: ['id', 'name'] });
+      const p = await patternsRepository.findById(patternId);
       if (!p) throw AppError.badRequest('That pattern does not exist', { 'body.patternId': 'Unknown pattern' });
       patternName = p.name;
     }
-    const s = await BowlingSession.create({ userId: user.id, date: input.date, kind: input.kind, centerId, conditionId, patternId, patternName, notes: input.notes ?? '' });
+    const s = await sessionsRepository.create({ userId: user.id, date: input.date, kind: input.kind, centerId, conditionId, patternId, patternName, notes: input.notes ?? '' });
     return (await sessionsRepository.findDto(s.id))!;
   },
 
@@ -101,7 +101,7 @@ export const sessionsService = {
       sessionsRepository.findDto(id),
       sessionsRepository.shotsOf(id),
       sessionsRepository.annotationsOf(id),
-      User.findByPk(s.userId, { attributes: ['id', 'displayName'] }),
+      userRepository.findById(s.userId),
       profileService.get(s.userId),
     ]);
     const records = shots.map((r) => toShotRecord(r, s.date));
@@ -143,12 +143,12 @@ export const sessionsService = {
    * session are serialised by a row lock on the session, and the unique (session, key) and (session, game,
    * frame, delivery) constraints make a second row impossible even without it.
    */
-  async addShot(user: AuthUser, sessionId: number, key: string, body: ShotCreate): Promise<{ status: 200 | 201; body: ShotCreated }> {
+  async addShot(user: AuthUser, sessionId: number, key: string, body: ShotCreate): Promise<{ replayed: boolean; shot: ShotCreated }> {
     await sessionFor(user, sessionId, 'write');
     const hash = requestHash(body);
-    const replay = (row: Shot): { status: 200; body: ShotCreated } => {
+    const replay = (row: Shot): { replayed: true; shot: ShotCreated } => {
       if (row.requestHash !== hash) throw AppError.conflict('idempotency_conflict', 'This Idempotency-Key was already used for a different shot; send a new key for a new shot');
-      return { status: 200, body: row.response as unknown as ShotCreated };
+      return { replayed: true, shot: row.response as unknown as ShotCreated };
     };
     const earlier = await sessionsRepository.findShotByKey(sessionId, key);
     if (earlier) return replay(earlier);
@@ -159,7 +159,7 @@ export const sessionsService = {
         const raced = await sessionsRepository.findShotByKey(sessionId, key, transaction);
         if (raced) return replay(raced);
         changedAfterCommit('shots', s.userId, transaction); // the bowler's kept statistics
-        return { status: 201 as const, body: await insertShot(s, key, hash, body, transaction) };
+        return { replayed: false, shot: await insertShot(s, key, hash, body, transaction) };
       });
     } catch (err) {
       if (!(err instanceof UniqueConstraintError)) throw err;
@@ -175,7 +175,7 @@ export const sessionsService = {
     await sequelize.transaction(async (transaction) => {
       const s = await sessionsRepository.findModel(sessionId, { transaction, lock: true });
       if (!s) throw notFound();
-      const shot = await Shot.findOne({ where: { id: shotId, sessionId }, transaction });
+      const shot = await sessionsRepository.findShot(sessionId, shotId, transaction);
       if (!shot) throw AppError.notFound('Shot');
       const game = await sessionsRepository.gameShots(sessionId, shot.gameNumber, transaction);
       if (game.at(-1)!.id !== shot.id) throw AppError.conflict('not_last_shot', `Only the last delivery of game ${shot.gameNumber} can be undone`);
@@ -188,13 +188,13 @@ export const sessionsService = {
   async annotate(user: AuthUser, sessionId: number, input: AnnotationCreate): Promise<AnnotationDto> {
     await sessionFor(user, sessionId, 'read');
     if (input.frame != null && input.gameNumber == null) throw AppError.badRequest('Name the game of the frame', { 'body.gameNumber': 'Give the game the frame belongs to' });
-    const a = await Annotation.create({ sessionId, authorId: user.id, gameNumber: input.gameNumber ?? null, frame: input.frame ?? null, text: input.text });
+    const a = await sessionsRepository.createAnnotation({ sessionId, authorId: user.id, gameNumber: input.gameNumber ?? null, frame: input.frame ?? null, text: input.text });
     return toAnnotationDto(Object.assign(a, { author: { displayName: user.displayName } as User }));
   },
 };
 
 async function insertShot(s: BowlingSession, key: string, hash: string, body: ShotCreate, transaction: Transaction): Promise<ShotCreated> {
-  const ball = await Ball.findOne({ where: { id: body.ballId, ownerId: s.userId }, transaction });
+  const ball = await arsenalRepository.findOwned(s.userId, body.ballId, { transaction });
   if (!ball) throw invalidShot('ballId', 'This ball is not in your arsenal');
   const last = await sessionsRepository.lastGameNumber(s.id, transaction);
   if (body.gameNumber > last + 1) throw invalidShot('gameNumber', `game ${body.gameNumber} cannot start yet: the next new game is game ${last + 1}`);
@@ -202,19 +202,19 @@ async function insertShot(s: BowlingSession, key: string, hash: string, body: Sh
   const next: LoggedDelivery = { frame: body.frame, delivery: body.delivery, standing: body.standing, foul: body.foul ?? false };
   const check = checkDelivery(prior, next);
   if (!check.ok) throw invalidShot(check.field, check.reason);
-  const row = await Shot.create(
+  const row = await sessionsRepository.createShot(
     {
       sessionId: s.id, gameNumber: body.gameNumber, frame: body.frame, delivery: body.delivery, ballId: ball.id,
-      surfaceGrit: ball.surfaceGrit, surfacePolished: ball.polished, surfaceKey: surfaceKeyOf(ball.surfaceGrit, ball.polished),
+      surfaceGrit: ball.surfaceGrit, surfacePolished: ball.polished, surfaceKey: surfaceWords(ball.surfaceGrit, ball.polished),
       feetBoard: body.feetBoard ?? null, targetBoard: body.targetBoard ?? null, breakpointBoard: body.breakpointBoard ?? null,
       standing: [...body.standing].sort((a, b) => a - b), foul: body.foul ?? false, hit: body.hit ?? null, note: body.note ?? '',
       idempotencyKey: key, requestHash: hash,
     },
-    { transaction },
+    transaction,
   );
   // A shot that says something about the ball's motion asks the worker to refit this bowler on this pattern, on the
   // lanes it was bowled on (the session's published condition, else the default surface), once the shot is committed.
-  if (s.patternId && body.delivery === 1 && body.feetBoard != null && body.targetBoard != null && (body.breakpointBoard != null || body.hit != null)) {
+  if (s.patternId && isCalibrationShot(body)) {
     const patternId = s.patternId;
     requestCalibrationFitsAfterCommit(transaction, () => [s.conditionId ? { bowlerId: s.userId, conditionId: s.conditionId } : { bowlerId: s.userId, patternId, lane: DEFAULT_LANE_SURFACE }]);
   }

@@ -5,7 +5,7 @@ import { audit } from '../../lib/audit';
 import { sendJob } from '../../lib/jobs';
 import { logger } from '../../lib/logger';
 import { stripeClient } from '../../lib/payments';
-import { Order, Payment, PaymentEvent, sequelize } from '../../models/index';
+import { sequelize, type Order, type Payment } from '../../models/index';
 import { enqueueOrderMail } from './shop.mail';
 import { shopRepository } from './shop.repository';
 
@@ -34,7 +34,7 @@ async function queueAutoRefund(transaction: Transaction, payment: Payment, why: 
 
 /** The `refund` job: asks the payment service to refund the payment (idempotent), then records it. */
 export async function runAutoRefund(paymentId: number, why: string): Promise<'refunded' | 'nothing_to_do'> {
-  const payment = await Payment.findByPk(paymentId);
+  const payment = await shopRepository.payment(paymentId);
   if (!payment?.paymentIntentId || payment.refundId || payment.status === 'refunded') return 'nothing_to_do';
   const stripe = await stripeClient();
   let refundId: string | null = null;
@@ -46,7 +46,7 @@ export async function runAutoRefund(paymentId: number, why: string): Promise<'re
     if (!(err && typeof err === 'object' && (err as { code?: string }).code === 'charge_already_refunded')) throw err;
   }
   await sequelize.transaction(async (transaction) => {
-    await Payment.update({ refundId: refundId ?? payment.refundId }, { where: { id: payment.id }, transaction });
+    await shopRepository.setRefundId(payment.id, refundId ?? payment.refundId, transaction);
     await audit({ actorId: null, action: 'payment.auto_refunded', subjectType: 'order', subjectId: payment.orderId, details: { paymentId: payment.id, refundId, why } }, transaction);
   });
   logger.info({ paymentId, refundId }, 'automatic refund done');
@@ -103,7 +103,7 @@ async function onCompleted(session: Stripe.Checkout.Session, base: string, trans
   const now = new Date();
   const intentId = idOf(session.payment_intent);
   let payment = await shopRepository.paymentBySession(session.id, transaction);
-  payment ??= await Payment.create({ orderId, checkoutSessionId: session.id, amountCents: order.amountCents, currency: order.currency }, { transaction });
+  payment ??= await shopRepository.createPayment({ orderId, checkoutSessionId: session.id, amountCents: order.amountCents, currency: order.currency }, transaction);
   const others = (await shopRepository.payments(orderId, transaction)).filter((p) => p.id !== payment.id && p.paidAt);
   payment.set({ paymentIntentId: intentId, paidAt: payment.paidAt ?? now, ...(payment.status === 'refunded' ? {} : { status: 'paid' }) });
 
@@ -191,11 +191,7 @@ async function onChargeRefunded(charge: Stripe.Charge, base: string, transaction
 export async function handlePaymentEvent(event: Stripe.Event): Promise<'processed' | 'duplicate'> {
   const base = publicUrl();
   return sequelize.transaction(async (transaction) => {
-    const [rows] = await sequelize.query('INSERT INTO payment_events (event_id, type, received_at) VALUES (:id, :type, now()) ON CONFLICT (event_id) DO NOTHING RETURNING event_id', {
-      replacements: { id: event.id, type: event.type },
-      transaction,
-    });
-    if ((rows as unknown[]).length === 0) return 'duplicate';
+    if (!(await shopRepository.claimEvent(event.id, event.type, transaction))) return 'duplicate';
     let result: { orderId: number | null; outcome: string };
     switch (event.type) {
       case 'checkout.session.completed':
@@ -219,7 +215,7 @@ export async function handlePaymentEvent(event: Stripe.Event): Promise<'processe
       default:
         result = { orderId: null, outcome: 'ignored' };
     }
-    await PaymentEvent.update({ orderId: result.orderId, outcome: result.outcome }, { where: { eventId: event.id }, transaction });
+    await shopRepository.recordEventOutcome(event.id, result.orderId, result.outcome, transaction);
     logger.info({ eventId: event.id, type: event.type, ...result }, 'payment event processed');
     return 'processed';
   });

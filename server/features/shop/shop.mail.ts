@@ -1,9 +1,10 @@
+import esc from 'escape-html';
 import type { Transaction } from 'sequelize';
 import { formatMoney } from '../../../shared/shop';
 import { enqueueMail } from '../../lib/outbox';
-import { Center, User, type Order } from '../../models/index';
+import type { Order } from '../../models/index';
+import { shopRepository } from './shop.repository';
 
-const esc = (s: string) => s.replace(/[&<>"']/g, (ch) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[ch]!);
 
 type Kind = 'receipt' | 'ready' | 'refunded';
 
@@ -15,7 +16,7 @@ const SUBJECT: Record<Kind, (o: Order, center: string) => string> = {
 
 /** The receipt (on payment) and status mails (ready, refunded) to the bowler, through the outbox in the caller's transaction. */
 export async function enqueueOrderMail(kind: Kind, order: Order, base: string, transaction: Transaction): Promise<void> {
-  const [bowler, center] = await Promise.all([User.findByPk(order.userId, { transaction }), Center.findByPk(order.centerId, { transaction })]);
+  const [bowler, center] = await shopRepository.orderParties(order, transaction);
   if (!bowler || !center) return;
   const amount = formatMoney(order.amountCents, order.currency);
   const page = `${base}/orders/${order.id}`;

@@ -1,6 +1,6 @@
-import { Op, type Transaction, type WhereOptions } from 'sequelize';
+import { Op, type CreationAttributes, type Transaction, type WhereOptions } from 'sequelize';
 import { SERVICE_KINDS, type Order as OrderDto, type OrderStatus, type ShopService as ShopServiceDto } from '../../../shared/shop';
-import { Center, Order, OrderEvent, Payment, ShopService, User } from '../../models/index';
+import { Center, Order, OrderEvent, Payment, PaymentEvent, sequelize, ShopService, User } from '../../models/index';
 
 export function toServiceDto(s: ShopService): ShopServiceDto {
   return { id: s.id, centerId: s.centerId, kind: s.kind, name: s.name, grit: s.grit, description: s.description, priceCents: s.priceCents, currency: s.currency, active: s.active, version: s.version };
@@ -54,6 +54,16 @@ export const shopRepository = {
   service(id: number, transaction?: Transaction): Promise<ShopService | null> {
     return ShopService.findByPk(id, { transaction });
   },
+  createService(data: CreationAttributes<ShopService>, transaction: Transaction): Promise<ShopService> {
+    return ShopService.create(data, { transaction });
+  },
+  /** Locks one price-list entry of a center for the rest of the transaction. */
+  lockService(centerId: number, id: number, transaction: Transaction): Promise<ShopService | null> {
+    return ShopService.findOne({ where: { id, centerId }, transaction, lock: transaction.LOCK.UPDATE });
+  },
+  createOrder(data: CreationAttributes<Order>, transaction: Transaction): Promise<Order> {
+    return Order.create(data, { transaction });
+  },
   /** One order with its bowler, center and history. */
   order(id: number, transaction?: Transaction): Promise<OrderRow | null> {
     return Order.findByPk(id, { include: orderIncludes, transaction }) as Promise<OrderRow | null>;
@@ -73,6 +83,37 @@ export const shopRepository = {
   },
   payments(orderId: number, transaction?: Transaction): Promise<Payment[]> {
     return Payment.findAll({ where: { orderId }, order: [['id', 'ASC']], transaction });
+  },
+  createPayment(data: CreationAttributes<Payment>, transaction: Transaction): Promise<Payment> {
+    return Payment.create(data, { transaction });
+  },
+  lockPayment(id: number, transaction: Transaction): Promise<Payment | null> {
+    return Payment.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
+  },
+  payment(id: number): Promise<Payment | null> {
+    return Payment.findByPk(id);
+  },
+  /** Records a payment-service event id; false when it was recorded before (a duplicate delivery). */
+  async claimEvent(eventId: string, type: string, transaction: Transaction): Promise<boolean> {
+    const [rows] = await sequelize.query('INSERT INTO payment_events (event_id, type, received_at) VALUES (:id, :type, now()) ON CONFLICT (event_id) DO NOTHING RETURNING event_id', {
+      replacements: { id: eventId, type },
+      transaction,
+    });
+    return (rows as unknown[]).length > 0;
+  },
+  async recordEventOutcome(eventId: string, orderId: number | null, outcome: string, transaction: Transaction): Promise<void> {
+    await PaymentEvent.update({ orderId, outcome }, { where: { eventId }, transaction });
+  },
+  /** The bowler and the center of an order (its mails). */
+  async orderParties(order: Pick<Order, 'userId' | 'centerId'>, transaction?: Transaction): Promise<[User | null, Center | null]> {
+    return Promise.all([User.findByPk(order.userId, { transaction }), Center.findByPk(order.centerId, { transaction })]);
+  },
+  /** Marks a checkout attempt expired if it is still open. */
+  async expireOpenPayment(id: number): Promise<void> {
+    await Payment.update({ status: 'expired' }, { where: { id, status: 'open' } });
+  },
+  async setRefundId(id: number, refundId: string | null, transaction?: Transaction): Promise<void> {
+    await Payment.update({ refundId }, { where: { id }, transaction });
   },
   paymentBySession(sessionId: string, transaction?: Transaction): Promise<Payment | null> {
     return Payment.findOne({ where: { checkoutSessionId: sessionId }, transaction });

@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import pLimit from 'p-limit';
 import { Op, type Transaction } from 'sequelize';
-import { CALIBRATION, fitCalibration } from '../../../engine/index';
+import { CALIBRATION, fitCalibration, isCalibrationShot, laydownBoardOf } from '../../../engine/index';
 import type { Calibration, CalibrationObservation, ShotRecord } from '../../../engine/shotlog/types';
 import type { BallSpec, BowlerProfile, LaneSurface, OilPattern } from '../../../engine/types';
 import { ballToSpec } from '../../../shared/balls';
@@ -21,15 +21,7 @@ import { readableBowlerId } from '../coaching/coaching.access';
 import { requestCalibrationFit, type FitRequest } from './calibrationJobs';
 import { patternsService } from '../patterns/patterns.service';
 import { profileService } from '../profile/profile.service';
-import { sessionsRepository, toShotRecord, type ShotRow } from '../sessions/sessions.repository';
-
-/**
- * Where the ball lands relative to where the bowler stands: a right-hander's ball is laid down a few boards
- * outside the slide foot (toward the hand-side gutter), so the laydown board is the feet board minus this.
- * Source: common coaching practice (from memory: "the ball lays down about 5–7 boards outside the slide foot");
- * the calibration fits the friction scale on top of it.
- */
-export const LAYDOWN_OFFSET_BOARDS = 6;
+import { sessionsRepository, shotBallName, toShotRecord, type ShotRow } from '../sessions/sessions.repository';
 
 export async function bowlerOf(userId: number): Promise<BowlerProfile> {
   const { profile } = await profileService.get(userId);
@@ -72,14 +64,14 @@ export function observationsOf(rows: ShotRow[], balls: Map<number, Ball>): Calib
   const perBall = new Map<number, number>();
   // Newest first, so each ball keeps its most recent shots.
   for (const r of [...rows].reverse()) {
-    if (r.delivery !== 1 || r.feet_board == null || r.target_board == null) continue;
-    if (r.breakpoint_board == null && r.hit == null) continue;
+    if (r.feet_board == null || r.target_board == null) continue;
+    if (!isCalibrationShot({ delivery: r.delivery, feetBoard: r.feet_board, targetBoard: r.target_board, breakpointBoard: r.breakpoint_board, hit: r.hit })) continue;
     const b = balls.get(r.ball_id);
     if (!b || (perBall.get(b.id) ?? 0) >= CALIBRATION_SHOTS_PER_BALL) continue;
     perBall.set(b.id, (perBall.get(b.id) ?? 0) + 1);
     out.push({
       ball: { id: String(b.id), ...specAsThrown(b, r.surface_grit ?? b.surfaceGrit, r.surface_polished ?? b.polished) },
-      laydownBoard: Math.max(1, r.feet_board - LAYDOWN_OFFSET_BOARDS),
+      laydownBoard: laydownBoardOf(r.feet_board),
       targetBoard: r.target_board,
       breakpointBoard: r.breakpoint_board,
       hit: r.hit,
@@ -253,7 +245,7 @@ async function computeParts(bowlerId: number, q: StatsQuery, key: string, hand: 
   const rows = all.filter((r) => (!q.from || r.date! >= q.from) && (!q.to || r.date! <= q.to) && (!q.ballId || r.ball_id === q.ballId) && (!q.patternId || r.pattern_id === q.patternId));
   const records: ShotRecord[] = rows.map((r) => toShotRecord(r, r.date!));
   const computed = await statsInWorker({ records, hand });
-  const names = new Map(rows.map((r) => [String(r.ball_id), r.ball_name]));
+  const names = new Map(rows.map((r) => [String(r.ball_id), shotBallName(r)]));
   const dates = new Map(rows.map((r) => [String(r.session_id), r.date!]));
   const parts: StatsParts = {
     overall: computed.overall,

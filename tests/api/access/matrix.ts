@@ -214,12 +214,3 @@ export const MATRIX: Record<string, MatrixEntry> = {
   },
 };
 
-/**
- * Routes the router serves that ROUTES (the OpenAPI document) leaves out on purpose, with the reason.
- * Anything else missing from ROUTES fails the cross-check.
- */
-export const UNDOCUMENTED: Record<string, string> = {
-  'GET /api/docs': 'the documentation page itself',
-  'GET /api/docs/openapi.json': 'the document itself',
-  'GET /api/dev/mail': 'development-only mailbox, absent in production',
-};

@@ -1,4 +1,7 @@
 import type { Express } from 'express';
+import { devRoutes } from '../../../server/features/dev/dev.routes';
+import { fullPath, type RouteGroup } from '../../../server/http/route';
+import { ROUTE_TABLE } from '../../../server/routes';
 
 /** One API route as the Express router knows it: `GET /api/arsenal/:id`. */
 export interface RouteKey {
@@ -58,6 +61,21 @@ export function enumerateRoutes(app: Express, only = /^\/api(\/|$)/): RouteKey[]
     }
   };
   walk(root.stack, '');
+  return [...out.values()].sort((a, b) => a.key.localeCompare(b.key));
+}
+
+/** The route table's groups as the test server mounts them (the development mailbox included). */
+export const SERVED_GROUPS: readonly RouteGroup[] = [...ROUTE_TABLE, devRoutes];
+
+/** Every route of the route table (the one list app.ts registers, the docs and the matrix read), sorted. */
+export function tableRoutes(groups: readonly RouteGroup[] = SERVED_GROUPS): RouteKey[] {
+  const out = new Map<string, RouteKey>();
+  for (const g of groups)
+    for (const r of g.routes) {
+      const method = r.method.toUpperCase() as RouteKey['method'];
+      const path = fullPath(g, r);
+      out.set(`${method} ${path}`, { method, path, key: `${method} ${path}` });
+    }
   return [...out.values()].sort((a, b) => a.key.localeCompare(b.key));
 }
 

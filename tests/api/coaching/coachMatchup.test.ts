@@ -3,7 +3,7 @@ import { simulateShot } from '../../../engine/index';
 import type { BowlerProfile } from '../../../engine/types';
 import { ballToSpec } from '../../../shared/balls';
 import { DEFAULT_PROFILE } from '../../../shared/profile';
-import { LAYDOWN_OFFSET_BOARDS } from '../../../server/features/stats/stats.service';
+import { LAYDOWN_OFFSET_BOARDS } from '../../../engine/index';
 import { api, calibrationsIdle, createUser } from '../../helpers/api';
 import { createBall, createPattern, URETHANE } from '../../helpers/fixtures';
 import { linkRow, newKey } from '../sessions/shotlog';

@@ -3,7 +3,7 @@ import { simulateShot } from '../../../engine/index';
 import type { BowlerProfile, LaneSurface } from '../../../engine/types';
 import { ballToSpec } from '../../../shared/balls';
 import { DEFAULT_PROFILE } from '../../../shared/profile';
-import { LAYDOWN_OFFSET_BOARDS } from '../../../server/features/stats/stats.service';
+import { LAYDOWN_OFFSET_BOARDS } from '../../../engine/index';
 import { api, calibrationsIdle, createUser, errorOf } from '../../helpers/api';
 import { createBall, createCenter, createModel, createPattern, LONG_HEAVY, PLASTIC, POLISHED_PEARL, SHORT_LIGHT, STRONG_SOLID, URETHANE } from '../../helpers/fixtures';
 import { newKey } from '../sessions/shotlog';

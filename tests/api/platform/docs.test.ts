@@ -20,6 +20,24 @@ describe('API documentation', () => {
     expect(res.body.paths['/api/arsenal/{id}'].get.parameters[0]).toMatchObject({ name: 'id', in: 'path', required: true });
   });
 
+  it('documents each answer with the response schema of its route in the table', async () => {
+    const res = await api.get('/api/docs/openapi.json');
+    const ball = res.body.paths['/api/arsenal/{id}'].get.responses['200'].content['application/json'].schema.properties.item;
+    expect(Object.keys(ball.properties)).toEqual(expect.arrayContaining(['id', 'surfaceGrit', 'polished', 'layout', 'version']));
+    // The matchup answer carries the calibration the client's what-if uses.
+    const matchup = res.body.paths['/api/matchups'].post.responses['200'].content['application/json'].schema;
+    expect(matchup.properties.calibration.properties.fit).toBeDefined();
+    expect(matchup.required).toEqual(expect.arrayContaining(['pattern', 'lane', 'calibration', 'rankings']));
+    // A second success status and a no-content answer are documented as such.
+    const shot = res.body.paths['/api/sessions/{id}/shots'].post;
+    expect(Object.keys(shot.responses)).toEqual(expect.arrayContaining(['200', '201', '400', '401']));
+    expect(shot.parameters.find((p: { in: string }) => p.in === 'header')).toMatchObject({ name: 'idempotency-key', required: true });
+    expect(res.body.paths['/api/arsenal/{id}'].delete.responses['204'].content).toBeUndefined();
+    // Public routes carry no bearer requirement; signed-in ones do.
+    expect(res.body.paths['/api/centers'].get.security).toBeUndefined();
+    expect(res.body.paths['/api/arsenal'].get.security).toEqual([{ bearer: [] }]);
+  });
+
   it('serves a readable page listing the routes', async () => {
     const res = await api.get('/api/docs').set('Accept', 'text/html');
     expect(res.status).toBe(200);

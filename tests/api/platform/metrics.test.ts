@@ -11,7 +11,7 @@ const TOKEN = vi.hoisted(() => {
 });
 
 const { api, errorOf } = await import('../../helpers/api');
-const { startMetricsListener } = await import('../../../server/features/health/health.router');
+const { startMetricsListener } = await import('../../../server/features/health/health.routes');
 
 const listener = startMetricsListener()!;
 afterAll(() => new Promise<void>((r) => listener.close(() => r())));

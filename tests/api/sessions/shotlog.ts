@@ -2,6 +2,7 @@
 import { randomUUID } from 'node:crypto';
 import { CoachLink } from '../../../server/models/index';
 import { api } from '../../helpers/api';
+import { mulberry32 as rng } from '../../../shared/random';
 
 export const ALL_PINS = [1, 2, 3, 4, 5, 6, 7, 8, 9, 10];
 
@@ -48,17 +49,6 @@ export const SAMPLE_GAME: FrameLog[] = [
   [[], [3, 6], []], // X 8 /
 ];
 
-/** A small seeded generator (mulberry32), so a failing random game can be replayed. */
-export function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const subset = (pins: number[], rand: () => number, keep: number) => pins.filter(() => rand() < keep);
 

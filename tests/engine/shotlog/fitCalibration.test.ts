@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { CALIBRATION, fitCalibration, rankArsenal, simulateShot, type ArsenalBall, type CalibrationObservation, type HitKind } from '../../../engine/index';
 import { houseShot, polishedPearl, roughAsymSolid, typicalBowler } from '../fixtures';
+import { mulberry32 as prng } from '../../../shared/random';
 
 // Calibration test (issue 7 "Must show"): observations generated from the ball-motion model itself
 // with a known frictionScale plus seeded Gaussian noise must give that scale back. Tolerances are ours:
@@ -10,16 +11,6 @@ import { houseShot, polishedPearl, roughAsymSolid, typicalBowler } from '../fixt
 // of them. Coverage study (CALIBRATION_STUDY=1, below): 16 fixed lines, 20 noise seeds — pearl at 1.2:
 // mean 1.2000, SD 0.038, interval held the truth 19/20; solid at 0.85: mean 0.8506, SD 0.018, 19/20.
 
-/** mulberry32: a small seeded PRNG (test-side only; the engine has no randomness). */
-function prng(seed: number): () => number {
-  let a = seed;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 /** Box–Muller normal deviates from the PRNG. */
 function gauss(rnd: () => number): number {

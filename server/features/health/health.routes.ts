@@ -1,4 +1,3 @@
-import { Router } from 'express';
 import crypto from 'node:crypto';
 import http from 'node:http';
 import nodemailer from 'nodemailer';
@@ -7,9 +6,10 @@ import { AppError } from '../../lib/AppError';
 import { mailCaptureEnabled } from '../../lib/mailer';
 import { registry } from '../../lib/metrics';
 import { logger } from '../../lib/logger';
-import { MailOutbox, sequelize } from '../../models/index';
-
-export const healthRouter = Router();
+import { pingPrimary } from '../../db/sequelize';
+import { outboxSummary } from '../../lib/outbox';
+import { Reply, route, type RouteGroup } from '../../http/route';
+import { z } from 'zod';
 
 let stopping = false;
 /** Called when the process begins its graceful stop: readiness answers 503 so a load balancer drains it. */
@@ -18,24 +18,25 @@ export function markStopping(): void {
 }
 
 /** Liveness: the process answers (no dependency checked), so an orchestrator restarts only a hung process. */
-healthRouter.get('/live', (_req, res) => {
-  res.json({ status: 'ok' });
+const live = route({
+  method: 'get', path: '/live', summary: 'Liveness: the process answers (no dependency checked)', access: 'public',
+  response: z.object({ status: z.literal('ok') }),
+  handler: () => ({ status: 'ok' as const }),
 });
 
 /**
  * Readiness: this process should get traffic — the primary answers and the process is not stopping. 503
  * otherwise (a load balancer takes it out of rotation; it comes back by itself).
  */
-healthRouter.get('/ready', async (_req, res) => {
-  if (stopping) {
-    res.status(503).json({ status: 'stopping' });
-    return;
-  }
-  const db = await withTimeout(sequelize.query('SELECT 1', { useMaster: true }), 'database check').then(
-    () => 'ok' as const,
-    () => 'unreachable' as const,
-  );
-  res.status(db === 'ok' ? 200 : 503).json({ status: db === 'ok' ? 'ready' : 'not_ready', db });
+const ReadySchema = z.object({ status: z.enum(['ready', 'not_ready', 'stopping']), db: z.enum(['ok', 'unreachable']).optional() });
+const ready = route({
+  method: 'get', path: '/ready', summary: 'Readiness: the primary database answers and the process is not stopping (503 otherwise)', access: 'public',
+  response: ReadySchema, alsoAnswers: { 503: 'Not ready: stopping, or the database does not answer' },
+  handler: async () => {
+    if (stopping) return new Reply(503, { status: 'stopping' as const });
+    const db = await dbCheck();
+    return db === 'ok' ? { status: 'ready' as const, db } : new Reply(503, { status: 'not_ready' as const, db });
+  },
 });
 
 /** Constant-time comparison of a presented bearer token with METRICS_TOKEN. */
@@ -51,10 +52,14 @@ function tokenMatches(header: string | undefined): boolean {
  * Prometheus metrics for `Authorization: Bearer <METRICS_TOKEN>`: 404 while no token is configured (the route
  * does not exist then), 401 for a missing or wrong token.
  */
-healthRouter.get('/metrics', async (req, res, next) => {
-  if (!config.METRICS_TOKEN) return next(AppError.notFound('Route'));
-  if (!tokenMatches(req.get('authorization'))) return next(AppError.unauthorized('Send the metrics token as a bearer token'));
-  res.type(registry.contentType).send(await registry.metrics());
+const metrics = route({
+  method: 'get', path: '/metrics', summary: 'Prometheus metrics (text format); only with METRICS_TOKEN configured, for that bearer token', access: 'token', who: 'metrics token',
+  response: { contentType: 'text/plain', description: 'The Prometheus text format' },
+  handler: async ({ req, res }) => {
+    if (!config.METRICS_TOKEN) throw AppError.notFound('Route');
+    if (!tokenMatches(req.get('authorization'))) throw AppError.unauthorized('Send the metrics token as a bearer token');
+    res.type(registry.contentType).send(await registry.metrics());
+  },
 });
 
 /** With METRICS_PORT: /metrics on its own listener (METRICS_HOST, loopback by default), for a scraper on the same host or network. */
@@ -109,25 +114,32 @@ function checkMail(): Promise<'ok' | 'unreachable'> {
  * check is reported beside them and does not make the service degraded — mail waits in the outbox
  * (`outbox.pending`) and goes out when the mail server answers again.
  */
-healthRouter.get('/', async (_req, res) => {
-  const [db, mail] = await Promise.all([
-    withTimeout(sequelize.query('SELECT 1', { useMaster: true }), 'database check').then(
-      () => 'ok' as const,
-      () => 'unreachable' as const,
-    ),
-    checkMail(),
-  ]);
-  const mailMode = mailCaptureEnabled || !config.SMTP_URL ? 'capture' : 'smtp';
-  if (db !== 'ok') {
-    res.status(503).json({ status: 'degraded', db: 'unreachable', mail, mailMode });
-    return;
-  }
-  const outbox = await withTimeout(
-    Promise.all([MailOutbox.count({ where: { status: 'pending' } }), MailOutbox.count({ where: { status: 'failed' } }), MailOutbox.min('createdAt', { where: { status: 'pending' } })]),
-    'outbox check',
-  ).then(
-    ([pending, failed, oldest]) => ({ pending, failed, oldestPendingSeconds: oldest ? Math.round((Date.now() - new Date(oldest as Date).getTime()) / 1000) : null }),
-    () => null,
+function dbCheck(): Promise<'ok' | 'unreachable'> {
+  return withTimeout(pingPrimary(), 'database check').then(
+    () => 'ok' as const,
+    () => 'unreachable' as const,
   );
-  res.json({ status: 'ok', db: 'ok', mail, mailMode, outbox });
+}
+
+const HealthSchema = z.object({
+  status: z.enum(['ok', 'degraded']),
+  db: z.enum(['ok', 'unreachable']),
+  mail: z.enum(['ok', 'unreachable']),
+  mailMode: z.enum(['capture', 'smtp']),
+  outbox: z.object({ pending: z.number().int(), failed: z.number().int(), oldestPendingSeconds: z.number().nullable() }).nullable().optional(),
 });
+
+const health = route({
+  method: 'get', path: '/', summary: 'Liveness and database reachability', access: 'public',
+  response: HealthSchema, alsoAnswers: { 503: 'Degraded: the database does not answer' },
+  handler: async () => {
+    const [db, mail] = await Promise.all([dbCheck(), checkMail()]);
+    const mailMode = mailCaptureEnabled || !config.SMTP_URL ? ('capture' as const) : ('smtp' as const);
+    if (db !== 'ok') return new Reply(503, { status: 'degraded' as const, db: 'unreachable' as const, mail, mailMode });
+    const outbox = await withTimeout(outboxSummary(), 'outbox check').catch(() => null);
+    return { status: 'ok' as const, db: 'ok' as const, mail, mailMode, outbox };
+  },
+});
+
+/** Health, liveness, readiness and metrics (public; metrics behind its own token). */
+export const healthRoutes: RouteGroup = { prefix: '/health', routes: [health, live, ready, metrics] };

@@ -1,0 +1,190 @@
+import { Op, type WhereOptions } from 'sequelize';
+import type { Page } from '../../../shared/auth';
+import { ballLabel } from '../../../shared/balls';
+import {
+  canShopMove,
+  formatMoney,
+  SURFACE_KINDS,
+  type CenterOrderQuery,
+  type Order as OrderDto,
+  type OrderCreate,
+  type OrderListQuery,
+  type OrderStatus,
+  type ShopMove,
+} from '../../../shared/shop';
+import { AppError } from '../../lib/AppError';
+import { audit } from '../../lib/audit';
+import { logger } from '../../lib/logger';
+import { stripeClient } from '../../lib/payments';
+import { publicUrl } from '../../lib/publicUrl';
+import type { AuthUser } from '../../middleware/auth';
+import { sequelize, type Order } from '../../models/index';
+import { arsenalRepository } from '../arsenal/arsenal.repository';
+import { refitBowlerAfterCommit } from '../stats/calibrationJobs';
+import { freshOrder, ownedCenter, visibleOrder } from './shop.common';
+import { enqueueOrderMail } from './shop.mail';
+import { shopRepository, toOrderDto } from './shop.repository';
+
+/** Pro-shop orders: the bowler orders and cancels, the shop moves an order along its life. */
+export const ordersService = {
+  /** A new order: the price comes from the price list (never from the client); the ball must be the caller's. */
+  async createOrder(user: AuthUser, input: OrderCreate): Promise<OrderDto> {
+    const id = await sequelize.transaction(async (transaction) => {
+      const service = await shopRepository.service(input.serviceId, transaction);
+      if (!service || !service.active)
+        throw AppError.badRequest('That service is not on the price list', { 'body.serviceId': 'Not on the price list' });
+      if (input.expectedAmountCents !== undefined && input.expectedAmountCents !== service.priceCents) {
+        throw new AppError(
+          400,
+          'price_mismatch',
+          `The price of ${service.name} is ${formatMoney(service.priceCents, service.currency)}; review the order and try again`,
+          {
+            'body.expectedAmountCents': `The price is now ${formatMoney(service.priceCents, service.currency)}`,
+          },
+        );
+      }
+      const ball = await arsenalRepository.findOwned(user.id, input.ballId, { transaction });
+      if (!ball) throw AppError.badRequest('That ball is not in your arsenal', { 'body.ballId': 'Not in your arsenal' });
+      const o = await shopRepository.createOrder(
+        {
+          userId: user.id,
+          centerId: service.centerId,
+          serviceId: service.id,
+          ballId: ball.id,
+          serviceKind: service.kind,
+          serviceName: service.name,
+          grit: service.grit,
+          ballName: ballLabel(ball).slice(0, 150),
+          amountCents: service.priceCents,
+          currency: service.currency,
+          notes: input.notes ?? null,
+        },
+        transaction,
+      );
+      await shopRepository.addEvent(o.id, 'ordered', user, transaction);
+      await audit(
+        {
+          actorId: user.id,
+          action: 'order.created',
+          subjectType: 'order',
+          subjectId: o.id,
+          details: { centerId: o.centerId, serviceId: service.id, ballId: ball.id, amountCents: o.amountCents, currency: o.currency },
+        },
+        transaction,
+      );
+      return o.id;
+    });
+    return freshOrder(id);
+  },
+
+  async mine(user: AuthUser, q: OrderListQuery): Promise<Page<OrderDto>> {
+    const where: WhereOptions<Order> = { userId: user.id, ...(q.status ? { status: q.status } : {}) };
+    const { rows, count } = await shopRepository.page(where, q.page, q.pageSize);
+    return { items: rows.map(toOrderDto), total: count, page: q.page, pageSize: q.pageSize };
+  },
+
+  async get(user: AuthUser, id: number): Promise<OrderDto> {
+    return toOrderDto(await visibleOrder(user, id));
+  },
+
+  /** The bowler cancels an unpaid order; an open checkout is expired so it can no longer be paid. */
+  async cancel(user: AuthUser, id: number): Promise<OrderDto> {
+    const o = await visibleOrder(user, id);
+    if (o.userId !== user.id) throw AppError.forbidden('Only the bowler who ordered can cancel; the shop refunds instead');
+    const open = await sequelize.transaction(async (transaction) => {
+      const order = (await shopRepository.lockOrder(id, transaction))!;
+      if (order.status !== 'ordered' || order.paymentStatus === 'paid')
+        throw AppError.conflict('not_cancellable', 'Only an unpaid order can be cancelled; ask the shop for a refund');
+      order.set({
+        status: 'cancelled',
+        cancelledAt: new Date(),
+        paymentStatus: order.paymentStatus === 'processing' ? 'unpaid' : order.paymentStatus,
+      });
+      await order.save({ transaction });
+      await shopRepository.addEvent(order.id, 'cancelled', user, transaction);
+      await audit({ actorId: user.id, action: 'order.cancelled', subjectType: 'order', subjectId: order.id }, transaction);
+      return (await shopRepository.payments(order.id, transaction)).filter((p) => p.status === 'open' && p.checkoutSessionId);
+    });
+    if (open.length) {
+      try {
+        const stripe = await stripeClient();
+        for (const p of open)
+          await stripe.checkout.sessions
+            .expire(p.checkoutSessionId!)
+            .catch((err: unknown) => logger.info({ err, sessionId: p.checkoutSessionId }, 'checkout already closed'));
+      } catch (err) {
+        logger.warn({ err }, 'could not expire the checkout of a cancelled order');
+      }
+    }
+    return freshOrder(id);
+  },
+
+  async centerOrders(actor: AuthUser, centerId: number, q: CenterOrderQuery): Promise<Page<OrderDto>> {
+    await ownedCenter(actor, centerId);
+    const where: Record<string | symbol, unknown> = { centerId, ...(q.status ? { status: q.status } : {}) };
+    if (q.date) {
+      const from = new Date(`${q.date}T00:00:00Z`);
+      where.createdAt = { [Op.gte]: from, [Op.lt]: new Date(from.getTime() + 86400000) };
+    }
+    const { rows, count } = await shopRepository.page(where as WhereOptions<Order>, q.page, q.pageSize);
+    return { items: rows.map(toOrderDto), total: count, page: q.page, pageSize: q.pageSize };
+  },
+
+  /**
+   * The shop moves a paid order forward (paid → in progress → ready → collected; 'ready' may skip 'in progress').
+   * 'ready' on a surface service records the ball's surface event and sets its surface in the same
+   * transaction, so the next matchup ranks the ball with it.
+   */
+  async setStatus(actor: AuthUser, id: number, status: ShopMove): Promise<OrderDto> {
+    const o = await visibleOrder(actor, id);
+    if (o.center?.ownerId !== actor.id) throw AppError.forbidden('Only the shop moves an order along');
+    await sequelize.transaction(async (transaction) => {
+      const order = (await shopRepository.lockOrder(id, transaction))!;
+      const from: OrderStatus = order.status;
+      if (!canShopMove(from, status))
+        throw AppError.conflict(
+          'bad_transition',
+          from === 'ordered' ? 'The order is not paid yet' : `A ${from.replace('_', ' ')} order cannot move to ${status.replace('_', ' ')}`,
+        );
+      const now = new Date();
+      order.status = status;
+      if (status === 'ready') order.readyAt = now;
+      if (status === 'collected') order.collectedAt = now;
+      if (status === 'ready' && SURFACE_KINDS.includes(order.serviceKind) && order.ballId) {
+        const ball = await arsenalRepository.lockOwnedEvenRemoved(order.userId, order.ballId, transaction);
+        if (ball) {
+          const toGrit = order.serviceKind === 'resurface' && order.grit ? order.grit : ball.surfaceGrit;
+          const toPolished = order.serviceKind === 'polish' ? true : order.serviceKind === 'resurface' ? false : ball.polished;
+          await arsenalRepository.addSurfaceEvent(
+            {
+              ballId: ball.id,
+              fromGrit: ball.surfaceGrit,
+              fromPolished: ball.polished,
+              toGrit,
+              toPolished,
+              at: now,
+              byUserId: actor.id,
+              note: `${o.center?.name ?? 'Pro shop'}: ${order.serviceName} (order #${order.id})`.slice(0, 500),
+            },
+            transaction,
+          );
+          ball.set({
+            surfaceGrit: toGrit,
+            polished: toPolished,
+            ...(order.serviceKind === 'oil-extraction' ? {} : { gamesSinceResurface: 0 }),
+          });
+          await ball.save({ transaction });
+          refitBowlerAfterCommit(order.userId, transaction);
+        }
+      }
+      await order.save({ transaction });
+      await shopRepository.addEvent(order.id, status, actor, transaction);
+      await audit(
+        { actorId: actor.id, action: 'order.status_changed', subjectType: 'order', subjectId: order.id, details: { from, to: status } },
+        transaction,
+      );
+      if (status === 'ready') await enqueueOrderMail('ready', order, publicUrl(), transaction);
+    });
+    return freshOrder(id);
+  },
+};
