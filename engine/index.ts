@@ -106,3 +106,13 @@ export { isCalibrationShot, LAYDOWN_OFFSET_BOARDS, laydownBoardOf } from './shot
 export type { LoggedLine } from './shotlog/observation';
 export { fitCalibration, CALIBRATION } from './shotlog/fitCalibration';
 // ── end shot log ───────────────────────────────────────────────────────────────────────────────
+
+// ── Decisions: equipment trials, the layout lab and arsenal coverage (engine/decisions) ─────────
+export { probabilityBetter, twoProportionTest, shotsPerArm } from './decisions/proportions';
+export type { Count } from './decisions/proportions';
+export { compareTrial, TRIAL_RULES } from './decisions/compareTrial';
+export type { TrialArmInput, TrialArmResult, TrialVerdict, TrialComparison, MeanWithInterval } from './decisions/compareTrial';
+export { layoutLab, LAYOUT_MAP_RADIUS_IN } from './decisions/layoutLab';
+export type { LayoutLabEntry, MapPoint } from './decisions/layoutLab';
+export { arsenalCoverage, COVERAGE_RULES } from './decisions/arsenalCoverage';
+export type { ArsenalCoverage, CoverageCell, CoverageGap, CoverageDuplicate, CoverageCondition, CatalogueCandidate } from './decisions/arsenalCoverage';

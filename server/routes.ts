@@ -4,6 +4,7 @@ import { authRoutes } from './features/auth/auth.routes';
 import { catalogueRoutes } from './features/catalogue/catalogue.routes';
 import { centersRoutes, followsRoutes, unsubscribeRoutes } from './features/centers/centers.routes';
 import { coachRoutes, plansRoutes } from './features/coaching/coaching.routes';
+import { coverageRoutes, layoutLabRoutes, trialsRoutes } from './features/decisions/decisions.routes';
 import { docsRoutes } from './features/docs/docs.routes';
 import { healthRoutes } from './features/health/health.routes';
 import { matchupsRoutes } from './features/matchups/matchups.routes';
@@ -39,6 +40,9 @@ export const ROUTE_TABLE: readonly RouteGroup[] = [
   calibrationRoutes,
   coachRoutes,
   plansRoutes,
+  trialsRoutes,
+  coverageRoutes,
+  layoutLabRoutes,
   unsubscribeRoutes,
   docsRoutes(() => ROUTE_TABLE),
 ];

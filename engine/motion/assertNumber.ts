@@ -1,9 +1,9 @@
 /**
- * The engine's invalid-input policy for the motion model (STYLE.md item 3): a value that is not a
+ * The engine's invalid-input policy for the motion model: a value that is not a
  * finite number throws a `TypeError`, a finite number outside `[min, max]` a `RangeError`; both
  * messages name the function and the bad value.
  *
- * Source: STYLE.md item 3. Units: those of the checked value. Edge cases: `min`/`max` inclusive;
+ * Source: engine/README.md, invalid-input policy. Units: those of the checked value. Edge cases: `min`/`max` inclusive;
  * NaN and ±Infinity are TypeErrors. Example: `assertNumber('simulateShot', 'speedMph', 99, 5, 30)`
  * throws `RangeError: simulateShot: speedMph must be in [5, 30], got 99`.
  */

@@ -3,9 +3,9 @@ import { join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
 
-// The engine's own rules (STYLE.md item 1; engine/README.md): no imports from server/, client/ or
-// shared/, no I/O, clocks, logging or randomness; the only runtime dependency may be
-// simple-statistics. This test reads the first layer's source files (engine/motion has its own
+// The engine's own rules (engine/README.md): no imports from server/, client/ or shared/, no I/O,
+// clocks, logging or randomness; the only runtime dependencies may be simple-statistics and the
+// stdlib-js distribution functions (@stdlib/…). This test reads the first layer's source files (engine/motion has its own
 // owner and tests).
 
 const engineDir = fileURLToPath(new URL('../../engine', import.meta.url));
@@ -25,11 +25,11 @@ describe('engine purity', () => {
     expect(files.length).toBeGreaterThan(20);
   });
 
-  it('every file imports only engine files or simple-statistics (none from server/, client/, shared/)', () => {
+  it('every file imports only engine files, simple-statistics or stdlib-js functions (none from server/, client/, shared/)', () => {
     const offenders = files.flatMap((f) =>
       [...f.text.matchAll(/from\s+'([^']+)'/g)]
         .map((m) => m[1])
-        .filter((s) => !(s.startsWith('./') || s.startsWith('../') || s === 'simple-statistics') || /(^|\/)(server|client|shared)(\/|$)/.test(s))
+        .filter((s) => !(s.startsWith('./') || s.startsWith('../') || s === 'simple-statistics' || s.startsWith('@stdlib/')) || /(^|\/)(server|client|shared)(\/|$)/.test(s))
         .map((s) => `${f.path}: ${s}`),
     );
     expect(offenders).toEqual([]);

@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 // (engine/README.md), never a notes file that is not in the repository.
 
 const root = join(__dirname, '..', '..');
-const notes = ['TRADE', 'PHYSICS', 'PRODUCT'].map((n) => `${n}.md`);
+const notes = ['TRADE', 'PHYSICS', 'PRODUCT', 'STYLE'].map((n) => `${n}.md`);
 
 describe('sources', () => {
   it('no tracked file cites a notes file outside the repository', () => {

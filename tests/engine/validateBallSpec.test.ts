@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { COVER_TYPES, validateBallSpec } from '../../engine/index';
 import { polishedPearl } from './fixtures';
 
-// Policy: engine/README.md invalid-input policy (STYLE.md item 3).
+// Policy: engine/README.md invalid-input policy.
 
 describe('validateBallSpec', () => {
   it('accepts a well-formed ball, also one over the USBC limits (legality is checkLegality’s job)', () => {

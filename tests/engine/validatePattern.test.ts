@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { validatePattern } from '../../engine/index';
 import { sweep, workedExample } from './fixtures';
 
-// Policy: engine/README.md invalid-input policy (STYLE.md item 3): TypeError for a wrong type,
+// Policy: engine/README.md invalid-input policy: TypeError for a wrong type,
 // RangeError for a value out of range, message naming the function and the value.
 
 describe('validatePattern', () => {

@@ -21,6 +21,7 @@ export const NAV_ITEMS: readonly AppLayoutNavItem[] = [
   { name: 'conditions', label: 'Conditions' },
   { name: 'sessions', label: 'Sessions' },
   { name: 'stats', label: 'Stats' },
+  { name: 'decisions', label: 'Decide' },
   { name: 'coach', label: 'Coach' },
   { name: 'orders', label: 'Orders' },
   { name: 'center-admin', label: 'Center admin', roles: ['proprietor', 'admin'] },

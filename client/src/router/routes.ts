@@ -23,6 +23,8 @@ export const ROUTE_NAMES = [
   'session',
   'stats',
   'coach',
+  'decisions',
+  'trial',
   'orders',
   'order',
   'dev-mail',
@@ -103,6 +105,9 @@ export const routes: AppRouteRecord[] = [
       { path: 'stats', name: 'stats', component: () => import('@/views/StatsView.vue'), meta: { title: 'Stats' } },
       // Coaches and admins see their students; every bowler sees their coaches and invitations here.
       { path: 'coach', name: 'coach', component: () => import('@/views/CoachView.vue'), meta: { title: 'Coach' } },
+      // Equipment trials, the layout lab and arsenal coverage (tab in ?tab=).
+      { path: 'decide', name: 'decisions', component: () => import('@/views/DecisionsView.vue'), meta: { title: 'Decide' } },
+      { path: 'decide/trials/:id(\\d+)', name: 'trial', component: () => import('@/views/TrialView.vue'), meta: { title: 'Trial' } },
       {
         // Development and tests only, for the admin: the page says so when the API has no mailbox (production).
         path: 'dev/mail',

@@ -52,6 +52,8 @@ export interface Fixture {
   /** A new coaching link of a new coach to owner: pending, or accepted by owner. */
   freshLink(accepted: boolean): Promise<number>;
   freshServiceId(): Promise<{ id: number; version: number }>;
+  /** A new equipment trial of owner: one fresh ball on two surfaces. */
+  freshTrial(): Promise<number>;
   /**
    * A new order of owner at center, unpaid or paid by card on the payment fake's page. Paid orders are always paid
    * through the fake, never by a made-up webhook alone: the payment service must know every payment in this
@@ -140,6 +142,12 @@ export async function buildFixture(): Promise<Fixture> {
       if (inv.status !== 201) throw new Error(`fixture: invitation answered ${inv.status} ${JSON.stringify(inv.body)}`);
       if (accepted) await api.post(`/api/coach/links/${inv.body.item.id}/accept`).set(owner.auth).expect(200);
       return inv.body.item.id as number;
+    },
+    async freshTrial() {
+      const b = await createBall(owner.user.id);
+      const r = await api.post('/api/trials').set(owner.auth).send({ name: `Trial ${crypto.randomUUID().slice(0, 8)}`, arms: [{ ballId: b.id, surfaceKey: '2000 grit' }, { ballId: b.id, surfaceKey: '4000 grit' }] });
+      if (r.status !== 201) throw new Error(`fixture: trial answered ${r.status} ${JSON.stringify(r.body)}`);
+      return r.body.item.id as number;
     },
     async freshServiceId() {
       const sv = await ShopService.create({ centerId: center.id, kind: 'polish', name: `Polish ${crypto.randomUUID().slice(0, 8)}`, grit: null, description: null, priceCents: 2500, currency: 'usd' });

@@ -186,6 +186,14 @@ export const MATRIX: Record<string, MatrixEntry> = {
   },
   'GET /api/plans': { req: () => ({ url: '/api/plans' }), expect: signedIn(200) },
 
+  // ── decisions: trials (owner's; a linked coach reads), coverage, the layout lab ───────────────
+  'GET /api/trials': { req: () => ({ url: '/api/trials' }), expect: signedIn(200) },
+  'POST /api/trials': { req: async (f, actor) => { const b = await f.ballOf(actor); return { url: '/api/trials', body: { name: 'Matrix trial', arms: [{ ballId: b, surfaceKey: '2000 grit' }, { ballId: b, surfaceKey: '4000 grit' }] } }; }, expect: signedIn(201), note: 'each caller compares a ball of their own' },
+  'GET /api/trials/:id': { req: async (f) => ({ url: `/api/trials/${await f.freshTrial()}` }), expect: (f) => [401, 200, 404, f.coachLinked ? 200 : 404, 404, 404, 404, 404] },
+  'DELETE /api/trials/:id': { req: async (f) => ({ url: `/api/trials/${await f.freshTrial()}` }), expect: (f) => ownerWritesCoachReads(f, 204) },
+  'GET /api/coverage': { req: () => ({ url: '/api/coverage' }), expect: signedIn(200) },
+  'POST /api/layout-lab': { req: async (f, actor) => ({ url: '/api/layout-lab', body: { ballId: await f.ballOf(actor), patternId: f.pattern.id, layouts: [{ label: 'Pin up', pinToPapIn: '4 3/8' }] } }), expect: signedIn(200), note: 'each caller with a ball of their own' },
+
   // ── pro shop (center = proprietorThis's; orders = owner's) ─────────────────────────────────
   'GET /api/centers/:id/services': { req: (f) => ({ url: `/api/centers/${f.center.id}/services` }), expect: signedIn(200) },
   'POST /api/centers/:id/services': { req: (f) => ({ url: `/api/centers/${f.center.id}/services`, body: { kind: 'drill', name: `Drill ${uniq()}`, priceCents: 6000 } }), expect: [401, 403, 403, 403, 403, 201, 403, 403] },
