@@ -2,7 +2,17 @@ import pluginVue from 'eslint-plugin-vue';
 import { defineConfigWithVueTs, vueTsConfigs } from '@vue/eslint-config-typescript';
 
 export default defineConfigWithVueTs(
-  { ignores: ['dist/**', 'node_modules/**', '.data/**', 'coverage/**', 'tests/e2e/artifacts/**', 'bench/results.json', 'scripts/**/*.d.mts'] },
+  {
+    ignores: [
+      'dist/**',
+      'node_modules/**',
+      '.data/**',
+      'coverage/**',
+      'tests/e2e/artifacts/**',
+      'bench/results.json',
+      'scripts/**/*.d.mts',
+    ],
+  },
   pluginVue.configs['flat/recommended'],
   vueTsConfigs.recommended,
   {
@@ -25,19 +35,35 @@ export default defineConfigWithVueTs(
   {
     files: ['engine/**/*.ts'],
     rules: {
-      'no-restricted-imports': ['error', { patterns: [{ group: ['**/server/**', '**/client/**', '**/shared/**', 'node:*'], message: 'engine/ is pure: it imports nothing from server, client or shared, and no Node modules' }] }],
+      'no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              group: ['**/server/**', '**/client/**', '**/shared/**', 'node:*'],
+              message: 'engine/ is pure: it imports nothing from server, client or shared, and no Node modules',
+            },
+          ],
+        },
+      ],
     },
   },
   {
     files: ['shared/**/*.ts'],
     rules: {
-      'no-restricted-imports': ['error', { patterns: [{ group: ['**/server/**', '**/client/**', 'node:*'], message: 'shared/ imports only zod and engine types' }] }],
+      'no-restricted-imports': [
+        'error',
+        { patterns: [{ group: ['**/server/**', '**/client/**', 'node:*'], message: 'shared/ imports only zod and engine types' }] },
+      ],
     },
   },
   {
     files: ['client/**/*.ts', 'client/**/*.vue'],
     rules: {
-      'no-restricted-imports': ['error', { patterns: [{ group: ['**/server/**', 'node:*'], message: 'the client never imports server code' }] }],
+      'no-restricted-imports': [
+        'error',
+        { patterns: [{ group: ['**/server/**', 'node:*'], message: 'the client never imports server code' }] },
+      ],
     },
   },
 );

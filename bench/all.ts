@@ -14,7 +14,11 @@ const PARTS = ['run.ts', 'accuracy.ts', 'http.ts', 'reliability.ts', 'engineLoad
 const missed: string[] = [];
 for (const part of PARTS) {
   console.log(`\n=== bench/${part} ===`);
-  const r = spawnSync(path.join(root, 'node_modules', '.bin', 'tsx'), [path.join('bench', part), ...(part === 'run.ts' ? process.argv.slice(2) : [])], { cwd: root, stdio: 'inherit' });
+  const r = spawnSync(
+    path.join(root, 'node_modules', '.bin', 'tsx'),
+    [path.join('bench', part), ...(part === 'run.ts' ? process.argv.slice(2) : [])],
+    { cwd: root, stdio: 'inherit' },
+  );
   if (r.status !== 0) missed.push(`bench/${part} (exit ${r.status ?? r.signal})`);
 }
 console.log(missed.length ? `\nmissed a target or failed: ${missed.join(', ')}` : '\nevery bench ran and met its targets');

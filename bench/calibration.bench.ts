@@ -9,20 +9,42 @@ import type { ArsenalBall, BowlerProfile, CalibrationObservation, OilPattern, Sw
 import { mulberry32 as prng } from '../shared/random';
 
 const sweep = (fromBoard: number, toBoard: number, endFt: number, crossings: number): Sweep => ({
-  direction: 'forward', fromBoard, toBoard, startFt: 0, endFt, crossings, microlitersPerBoard: 60,
+  direction: 'forward',
+  fromBoard,
+  toBoard,
+  startFt: 0,
+  endFt,
+  crossings,
+  microlitersPerBoard: 60,
 });
 /** The invented 40 ft house-style pattern of bench/motion.bench.ts. */
-const pattern: OilPattern = { name: 'Bench House 40', sweeps: [sweep(2, 38, 40, 2), sweep(8, 32, 38, 4), sweep(12, 28, 36, 6), sweep(15, 25, 32, 4)] };
+const pattern: OilPattern = {
+  name: 'Bench House 40',
+  sweeps: [sweep(2, 38, 40, 2), sweep(8, 32, 38, 4), sweep(12, 28, 36, 6), sweep(15, 25, 32, 4)],
+};
 const bowler: BowlerProfile = { hand: 'right', speedMph: 17.5, revRpm: 320, axisRotationDeg: 45, axisTiltDeg: 12 };
 const solid: ArsenalBall = {
-  id: 'bench-solid', weightLb: 15, rg: 2.49, differential: 0.052, intermediateDifferential: 0.014, coverType: 'reactive-solid', surfaceGrit: 2000,
-  polished: false, layout: { pinToPapIn: 3.4, valAngleDeg: 45 },
+  id: 'bench-solid',
+  weightLb: 15,
+  rg: 2.49,
+  differential: 0.052,
+  intermediateDifferential: 0.014,
+  coverType: 'reactive-solid',
+  surfaceGrit: 2000,
+  polished: false,
+  layout: { pinToPapIn: 3.4, valAngleDeg: 45 },
 };
 const pearl: ArsenalBall = {
-  id: 'bench-pearl', weightLb: 15, rg: 2.55, differential: 0.045, intermediateDifferential: 0.008, coverType: 'reactive-pearl', surfaceGrit: 2000,
-  polished: true, layout: { pinToPapIn: 4 },
+  id: 'bench-pearl',
+  weightLb: 15,
+  rg: 2.55,
+  differential: 0.045,
+  intermediateDifferential: 0.008,
+  coverType: 'reactive-pearl',
+  surfaceGrit: 2000,
+  polished: true,
+  layout: { pinToPapIn: 4 },
 };
-
 
 function observe(ball: ArsenalBall, scale: number, seed: number): CalibrationObservation[] {
   const rnd = prng(seed);

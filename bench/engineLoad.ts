@@ -66,10 +66,25 @@ function summary(answers: Answer[]) {
     refusedWithoutRetryAfter: by((a) => a.status === 503 && !a.retryAfter),
     other: by((a) => a.status !== 503 && (a.status < 200 || a.status >= 300)),
     timeouts: by((a) => a.status === -1),
-    p50Ms: Math.round(pct(answers.map((a) => a.ms), 50)),
-    p95Ms: Math.round(pct(answers.map((a) => a.ms), 95)),
+    p50Ms: Math.round(
+      pct(
+        answers.map((a) => a.ms),
+        50,
+      ),
+    ),
+    p95Ms: Math.round(
+      pct(
+        answers.map((a) => a.ms),
+        95,
+      ),
+    ),
     maxMs: Math.round(Math.max(...answers.map((a) => a.ms))),
-    okP95Ms: Math.round(pct(ok.map((a) => a.ms), 95)),
+    okP95Ms: Math.round(
+      pct(
+        ok.map((a) => a.ms),
+        95,
+      ),
+    ),
   };
 }
 
@@ -83,7 +98,11 @@ async function main(): Promise<void> {
     run(bin('tsx'), ['server/db/migrate.ts', 'up'], env);
     run(bin('tsx'), ['seeders/index.ts'], { ...env, NODE_ENV: 'test' }); // the demo data, loaded as a test database would be
     let out = '';
-    server = spawn(bin('tsx'), ['server/index.ts'], { cwd: root, env: { ...env, PORT: String(port), RATE_LIMIT_AUTH: '100000' }, stdio: ['ignore', 'pipe', 'pipe'] });
+    server = spawn(bin('tsx'), ['server/index.ts'], {
+      cwd: root,
+      env: { ...env, PORT: String(port), RATE_LIMIT_AUTH: '100000' },
+      stdio: ['ignore', 'pipe', 'pipe'],
+    });
     server.stdout!.on('data', (d: Buffer) => (out += d.toString()));
     server.stderr!.on('data', (d: Buffer) => (out += d.toString()));
     const base = `http://127.0.0.1:${port}`;
@@ -91,18 +110,28 @@ async function main(): Promise<void> {
       if ((await send(`${base}/api/health`, {})).status === 200) break;
       await new Promise((r) => setTimeout(r, 200));
     }
-    const login = (await (await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'dana@copperline.example', password: 'lanewright-demo' }) })).json()) as { token: string };
+    const login = (await (
+      await fetch(`${base}/api/auth/login`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ email: 'dana@copperline.example', password: 'lanewright-demo' }),
+      })
+    ).json()) as { token: string };
     const headers = { authorization: `Bearer ${login.token}`, 'content-type': 'application/json' };
-    const patterns = ((await (await fetch(`${base}/api/patterns`, { headers })).json()) as { items: { id: number }[] }).items.map((p) => p.id);
+    const patterns = ((await (await fetch(`${base}/api/patterns`, { headers })).json()) as { items: { id: number }[] }).items.map(
+      (p) => p.id,
+    );
     let n = 0;
     /** A matchup no earlier request asked for (pattern × gamesBowled in steps of 0.01). */
     const nextBody = () => {
       n += 1;
-      return JSON.stringify({ patternId: patterns[n % patterns.length], gamesBowled: Math.round((n / 100) % 30 * 100) / 100 });
+      return JSON.stringify({ patternId: patterns[n % patterns.length], gamesBowled: Math.round(((n / 100) % 30) * 100) / 100 });
     };
     const matchup = () => send(`${base}/api/matchups`, { method: 'POST', headers, body: nextBody() });
 
-    console.log(`\nEngine load (production server, ${os.cpus().length} cores): idle ${IDLE_S} s, then ${BURST} matchups at once; then ${CONNECTIONS} clients × ${DURATION_S} s`);
+    console.log(
+      `\nEngine load (production server, ${os.cpus().length} cores): idle ${IDLE_S} s, then ${BURST} matchups at once; then ${CONNECTIONS} clients × ${DURATION_S} s`,
+    );
     await new Promise((r) => setTimeout(r, IDLE_S * 1000));
     const burst = summary(await Promise.all(Array.from({ length: BURST }, matchup)));
     console.log(`after idle: ${JSON.stringify(burst)}`);
@@ -125,24 +154,65 @@ async function main(): Promise<void> {
     };
     await Promise.all([...Array.from({ length: CONNECTIONS }, client), poll()]);
     const load = { ...summary(sustained), rps: Math.round((sustained.length / DURATION_S) * 10) / 10 };
-    const healthFig = { requests: health.length, notOk: health.filter((h) => h.status !== 200).length, p50Ms: Math.round(pct(health.map((h) => h.ms), 50)), p95Ms: Math.round(pct(health.map((h) => h.ms), 95)), maxMs: Math.round(Math.max(...health.map((h) => h.ms))) };
+    const healthFig = {
+      requests: health.length,
+      notOk: health.filter((h) => h.status !== 200).length,
+      p50Ms: Math.round(
+        pct(
+          health.map((h) => h.ms),
+          50,
+        ),
+      ),
+      p95Ms: Math.round(
+        pct(
+          health.map((h) => h.ms),
+          95,
+        ),
+      ),
+      maxMs: Math.round(Math.max(...health.map((h) => h.ms))),
+    };
     console.log(`sustained:  ${JSON.stringify(load)}`);
     console.log(`health:     ${JSON.stringify(healthFig)}`);
 
     const failures: string[] = [];
-    for (const [name, s] of [['after idle', burst], ['sustained', load]] as const) {
+    for (const [name, s] of [
+      ['after idle', burst],
+      ['sustained', load],
+    ] as const) {
       if (s.timeouts) failures.push(`${name}: ${s.timeouts} requests waited past 10 s`);
       if (s.maxMs >= TIMEOUT_MS) failures.push(`${name}: a request took ${s.maxMs} ms`);
       if (s.refusedWithoutRetryAfter) failures.push(`${name}: ${s.refusedWithoutRetryAfter} refusals without Retry-After`);
       if (s.other) failures.push(`${name}: ${s.other} answers neither 2xx nor 503`);
     }
     if (!(healthFig.p95Ms < 200)) failures.push(`/api/health p95 ${healthFig.p95Ms} ms (target < 200 ms)`);
-    console.log(failures.length ? `NOT MET:\n  ${failures.join('\n  ')}` : 'targets met: no request past 10 s, refusals are 503 with Retry-After, health p95 < 200 ms');
-    if (failures.length) console.log(out.split('\n').filter((x) => x.includes('"level":50')).slice(0, 5).join('\n'));
+    console.log(
+      failures.length
+        ? `NOT MET:\n  ${failures.join('\n  ')}`
+        : 'targets met: no request past 10 s, refusals are 503 with Retry-After, health p95 < 200 ms',
+    );
+    if (failures.length)
+      console.log(
+        out
+          .split('\n')
+          .filter((x) => x.includes('"level":50'))
+          .slice(0, 5)
+          .join('\n'),
+      );
 
     const file = path.join(here, 'results.json');
     const prev = fs.existsSync(file) ? (JSON.parse(fs.readFileSync(file, 'utf8')) as Record<string, unknown>) : {};
-    const engineLoad = { date: new Date().toISOString(), machine: { cpus: os.cpus().length, cpu: os.cpus()[0]?.model, node: process.version }, idleS: IDLE_S, burst: BURST, connections: CONNECTIONS, durationS: DURATION_S, afterIdle: burst, sustained: load, health: healthFig, failures };
+    const engineLoad = {
+      date: new Date().toISOString(),
+      machine: { cpus: os.cpus().length, cpu: os.cpus()[0]?.model, node: process.version },
+      idleS: IDLE_S,
+      burst: BURST,
+      connections: CONNECTIONS,
+      durationS: DURATION_S,
+      afterIdle: burst,
+      sustained: load,
+      health: healthFig,
+      failures,
+    };
     fs.writeFileSync(file, `${JSON.stringify({ ...prev, engineLoad }, null, 2)}\n`);
     console.log('wrote bench/results.json (engineLoad)');
     if (failures.length) process.exitCode = 1;

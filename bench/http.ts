@@ -86,7 +86,11 @@ async function main(): Promise<void> {
     // ENGINE_QUEUE 16: all 10 connections' rankings wait their turn (the default, 8 per thread, refuses the tenth with
     // a fast 503 that would flatter the latency); the server's own log stays quiet below errors.
     // Started as `node --import tsx` so server.pid is the server itself (its peak memory is read from /proc).
-    server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], { cwd: root, env: { ...env, PORT: String(port), CLIENT_DIST: distDir, RATE_LIMIT_AUTH: '100000', ENGINE_QUEUE: '16', LOG_LEVEL: 'error' }, stdio: ['ignore', 'inherit', 'inherit'] });
+    server = spawn(process.execPath, ['--import', 'tsx', 'server/index.ts'], {
+      cwd: root,
+      env: { ...env, PORT: String(port), CLIENT_DIST: distDir, RATE_LIMIT_AUTH: '100000', ENGINE_QUEUE: '16', LOG_LEVEL: 'error' },
+      stdio: ['ignore', 'inherit', 'inherit'],
+    });
     const base = `http://127.0.0.1:${port}`;
     for (let i = 0; i < 100; i++) {
       try {
@@ -97,15 +101,28 @@ async function main(): Promise<void> {
       await new Promise((r) => setTimeout(r, 200));
     }
     const signIn = async (email: string) => {
-      const login = (await (await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email, password: 'lanewright-demo' }) })).json()) as { token: string };
+      const login = (await (
+        await fetch(`${base}/api/auth/login`, {
+          method: 'POST',
+          headers: { 'content-type': 'application/json' },
+          body: JSON.stringify({ email, password: 'lanewright-demo' }),
+        })
+      ).json()) as { token: string };
       return { authorization: `Bearer ${login.token}`, 'content-type': 'application/json' };
     };
     const auth = await signIn('dana@copperline.example');
     // Bring dana's arsenal to 15 balls from the catalogue.
     const arsenal = (await (await fetch(`${base}/api/arsenal`, { headers: auth })).json()) as { total: number };
-    const cat = (await (await fetch(`${base}/api/catalogue?pageSize=40`, { headers: auth })).json()) as { items: { id: number; coverType: string }[] };
+    const cat = (await (await fetch(`${base}/api/catalogue?pageSize=40`, { headers: auth })).json()) as {
+      items: { id: number; coverType: string }[];
+    };
     const extra = cat.items.filter((m) => m.coverType !== 'plastic').slice(0, Math.max(0, 15 - arsenal.total));
-    for (const m of extra) await fetch(`${base}/api/arsenal`, { method: 'POST', headers: auth, body: JSON.stringify({ ballModelId: m.id, weightLb: 15, layout: { pinToPapIn: 4.5, drillingAngleDeg: 45 } }) });
+    for (const m of extra)
+      await fetch(`${base}/api/arsenal`, {
+        method: 'POST',
+        headers: auth,
+        body: JSON.stringify({ ballModelId: m.id, weightLb: 15, layout: { pinToPapIn: 4.5, drillingAngleDeg: 45 } }),
+      });
     const patterns = (await (await fetch(`${base}/api/patterns`, { headers: auth })).json()) as { items: { id: number; name: string }[] };
     const heavy = patterns.items.find((p) => /Long/.test(p.name)) ?? patterns.items[0];
     // A second bowler with 1 000 balls (copies of his own, written straight to the database).
@@ -129,15 +146,35 @@ async function main(): Promise<void> {
     const floorBig = await bareFloor(bigBody);
     const listBig = await load({ url: `${base}/api/arsenal`, headers: big, connections: 10, duration: 10 });
 
-    await load({ url: `${base}/api/matchups`, method: 'POST', headers: auth, body: JSON.stringify({ patternId: heavy.id }), connections: 2, duration: 2 }); // warm the workers
-    const matchups = await load({ url: `${base}/api/matchups`, method: 'POST', headers: auth, body: JSON.stringify({ patternId: heavy.id }), connections: 10, duration: 10 });
+    await load({
+      url: `${base}/api/matchups`,
+      method: 'POST',
+      headers: auth,
+      body: JSON.stringify({ patternId: heavy.id }),
+      connections: 2,
+      duration: 2,
+    }); // warm the workers
+    const matchups = await load({
+      url: `${base}/api/matchups`,
+      method: 'POST',
+      headers: auth,
+      body: JSON.stringify({ patternId: heavy.id }),
+      connections: 10,
+      duration: 10,
+    });
     // Cold: every request a different input (games bowled in steps of 0.001), so the ranking cache never answers.
     let n = 0;
     const cold = await load({
       url: `${base}/api/matchups`,
       connections: 10,
       duration: 10,
-      requests: [{ method: 'POST', headers: auth, setupRequest: (req) => ({ ...req, body: JSON.stringify({ patternId: heavy.id, gamesBowled: ((n++ % 29000) + 1) / 1000 }) }) }],
+      requests: [
+        {
+          method: 'POST',
+          headers: auth,
+          setupRequest: (req) => ({ ...req, body: JSON.stringify({ patternId: heavy.id, gamesBowled: ((n++ % 29000) + 1) / 1000 }) }),
+        },
+      ],
     });
     // The answer's size: its JSON, and the bytes on the wire for a client that accepts gzip (every browser).
     const wire = await new Promise<Buffer>((resolve, reject) => {
@@ -154,9 +191,11 @@ async function main(): Promise<void> {
     // Statistics over 10 000 logged shots (lee's: copies of a demo session's games, written straight to the database).
     const db2 = new pg.Client({ connectionString: adminUrl });
     await db2.connect();
-    const template = (await db2.query<{ id: number; pattern_id: number | null; n: number }>(
-      'SELECT s.id, s.pattern_id, count(*)::int AS n FROM sessions s JOIN shots sh ON sh.session_id = s.id WHERE s.deleted_at IS NULL GROUP BY s.id ORDER BY n DESC LIMIT 1',
-    )).rows[0];
+    const template = (
+      await db2.query<{ id: number; pattern_id: number | null; n: number }>(
+        'SELECT s.id, s.pattern_id, count(*)::int AS n FROM sessions s JOIN shots sh ON sh.session_id = s.id WHERE s.deleted_at IS NULL GROUP BY s.id ORDER BY n DESC LIMIT 1',
+      )
+    ).rows[0];
     const copies = Math.ceil(10000 / template.n);
     await db2.query(
       `WITH lee AS (SELECT u.id AS uid, (SELECT min(b.id) FROM balls b WHERE b.owner_id = u.id) AS ball FROM users u WHERE u.email = 'lee@copperline.example'),
@@ -169,7 +208,13 @@ async function main(): Promise<void> {
        FROM made, lee, shots t WHERE t.session_id = $1`,
       [template.id, template.pattern_id, copies],
     );
-    const statShots = Number((await db2.query(`SELECT count(*)::int AS n FROM shots sh JOIN sessions s ON s.id = sh.session_id JOIN users u ON u.id = s.user_id WHERE u.email = 'lee@copperline.example' AND s.deleted_at IS NULL`)).rows[0].n);
+    const statShots = Number(
+      (
+        await db2.query(
+          `SELECT count(*)::int AS n FROM shots sh JOIN sessions s ON s.id = sh.session_id JOIN users u ON u.id = s.user_id WHERE u.email = 'lee@copperline.example' AND s.deleted_at IS NULL`,
+        )
+      ).rows[0].n,
+    );
     await db2.end();
     const peakRssMb = () => {
       const m = /VmHWM:\s+(\d+) kB/.exec(fs.readFileSync(`/proc/${server!.pid}/status`, 'utf8'));
@@ -194,7 +239,16 @@ async function main(): Promise<void> {
       url: `${base}/api/stats`,
       connections: 10,
       duration: 10,
-      requests: [{ method: 'GET', headers: big, setupRequest: (req) => ({ ...req, path: `/api/stats?to=${new Date(Date.UTC(2030, 0, 1) + day++ * 86400000).toISOString().slice(0, 10)}` }) }],
+      requests: [
+        {
+          method: 'GET',
+          headers: big,
+          setupRequest: (req) => ({
+            ...req,
+            path: `/api/stats?to=${new Date(Date.UTC(2030, 0, 1) + day++ * 86400000).toISOString().slice(0, 10)}`,
+          }),
+        },
+      ],
     });
     const beside = await load({ url: `${base}/api/arsenal`, headers: auth, connections: 1, duration: 10 });
     const statsCold = await statsColdLoad;
@@ -204,31 +258,159 @@ async function main(): Promise<void> {
     const ratio = (x: number, f: number) => Math.round((x / f) * 1000) / 1000;
 
     const http = [
-      { name: 'POST /api/matchups (15 balls, 10 concurrent) p95, repeated input', value: matchups.p95, unit: 'ms', target: '≤ 300 ms', floor: floor.p95, ratio: null, ok: matchups.p95 <= 300 },
-      { name: 'POST /api/matchups (15 balls, 10 concurrent) p95, cold (every input new)', value: cold.p95, unit: 'ms', target: '≤ 150 ms', floor: floor.p95, ratio: null, ok: cold.p95 <= 150 },
-      { name: 'POST /api/matchups cold median latency', value: cold.latency.p50, unit: 'ms', target: null, floor: null, ratio: null, ok: null },
-      { name: 'POST /api/matchups cold requests/s', value: cold.requests.average, unit: 'req/s', target: null, floor: null, ratio: null, ok: null },
-      { name: 'POST /api/matchups answer (15 balls), gzip on the wire', value: answerKb, unit: 'kB', target: '≤ 40 kB', floor: null, ratio: null, ok: answerKb <= 40 },
-      { name: 'POST /api/matchups answer (15 balls), JSON', value: answerJsonKb, unit: 'kB', target: null, floor: null, ratio: null, ok: null },
-      { name: `GET /api/arsenal requests/s (10 concurrent, ${(listBody as { total: number }).total} balls)`, value: list.requests.average, unit: 'req/s', target: '≥ 0.5 × floor', floor: floor.rps, ratio: ratio(list.requests.average, floor.rps), ok: list.requests.average >= 0.5 * floor.rps },
-      { name: `GET /api/arsenal requests/s (10 concurrent, ${bigBody.total} balls)`, value: listBig.requests.average, unit: 'req/s', target: '≥ 0.3 × floor', floor: floorBig.rps, ratio: ratio(listBig.requests.average, floorBig.rps), ok: listBig.requests.average >= 0.3 * floorBig.rps },
-      { name: `GET /api/stats (${statShots} shots), first request (computes)`, value: statsColdMs, unit: 'ms', target: null, floor: null, ratio: null, ok: null },
-      { name: `GET /api/stats (${statShots} shots, 10 concurrent) p95, kept`, value: statsWarm.p95, unit: 'ms', target: '≤ 100 ms', floor: floor.p95, ratio: null, ok: statsWarm.p95 <= 100 },
-      { name: `GET /api/stats (${statShots} shots, 10 concurrent) p95, every filter new`, value: statsCold.p95, unit: 'ms', target: '≤ 100 ms', floor: floor.p95, ratio: null, ok: statsCold.p95 <= 100 },
-      { name: 'GET /api/stats every filter new: requests/s', value: statsCold.requests.average, unit: 'req/s', target: null, floor: null, ratio: null, ok: null },
-      { name: 'GET /api/arsenal p95 beside 10 stats computing', value: beside.p95, unit: 'ms', target: '≤ 50 ms', floor: floor.p95, ratio: null, ok: beside.p95 <= 50 },
-      { name: 'server peak RSS (VmHWM) during the stats loads', value: rssMb, unit: 'MB', target: '< 400 MB', floor: null, ratio: null, ok: rssMb < 400 },
-      { name: 'server peak RSS (VmHWM) before them (lists, matchups)', value: rssBeforeStatsMb, unit: 'MB', target: null, floor: null, ratio: null, ok: null },
+      {
+        name: 'POST /api/matchups (15 balls, 10 concurrent) p95, repeated input',
+        value: matchups.p95,
+        unit: 'ms',
+        target: '≤ 300 ms',
+        floor: floor.p95,
+        ratio: null,
+        ok: matchups.p95 <= 300,
+      },
+      {
+        name: 'POST /api/matchups (15 balls, 10 concurrent) p95, cold (every input new)',
+        value: cold.p95,
+        unit: 'ms',
+        target: '≤ 150 ms',
+        floor: floor.p95,
+        ratio: null,
+        ok: cold.p95 <= 150,
+      },
+      {
+        name: 'POST /api/matchups cold median latency',
+        value: cold.latency.p50,
+        unit: 'ms',
+        target: null,
+        floor: null,
+        ratio: null,
+        ok: null,
+      },
+      {
+        name: 'POST /api/matchups cold requests/s',
+        value: cold.requests.average,
+        unit: 'req/s',
+        target: null,
+        floor: null,
+        ratio: null,
+        ok: null,
+      },
+      {
+        name: 'POST /api/matchups answer (15 balls), gzip on the wire',
+        value: answerKb,
+        unit: 'kB',
+        target: '≤ 40 kB',
+        floor: null,
+        ratio: null,
+        ok: answerKb <= 40,
+      },
+      {
+        name: 'POST /api/matchups answer (15 balls), JSON',
+        value: answerJsonKb,
+        unit: 'kB',
+        target: null,
+        floor: null,
+        ratio: null,
+        ok: null,
+      },
+      {
+        name: `GET /api/arsenal requests/s (10 concurrent, ${(listBody as { total: number }).total} balls)`,
+        value: list.requests.average,
+        unit: 'req/s',
+        target: '≥ 0.5 × floor',
+        floor: floor.rps,
+        ratio: ratio(list.requests.average, floor.rps),
+        ok: list.requests.average >= 0.5 * floor.rps,
+      },
+      {
+        name: `GET /api/arsenal requests/s (10 concurrent, ${bigBody.total} balls)`,
+        value: listBig.requests.average,
+        unit: 'req/s',
+        target: '≥ 0.3 × floor',
+        floor: floorBig.rps,
+        ratio: ratio(listBig.requests.average, floorBig.rps),
+        ok: listBig.requests.average >= 0.3 * floorBig.rps,
+      },
+      {
+        name: `GET /api/stats (${statShots} shots), first request (computes)`,
+        value: statsColdMs,
+        unit: 'ms',
+        target: null,
+        floor: null,
+        ratio: null,
+        ok: null,
+      },
+      {
+        name: `GET /api/stats (${statShots} shots, 10 concurrent) p95, kept`,
+        value: statsWarm.p95,
+        unit: 'ms',
+        target: '≤ 100 ms',
+        floor: floor.p95,
+        ratio: null,
+        ok: statsWarm.p95 <= 100,
+      },
+      {
+        name: `GET /api/stats (${statShots} shots, 10 concurrent) p95, every filter new`,
+        value: statsCold.p95,
+        unit: 'ms',
+        target: '≤ 100 ms',
+        floor: floor.p95,
+        ratio: null,
+        ok: statsCold.p95 <= 100,
+      },
+      {
+        name: 'GET /api/stats every filter new: requests/s',
+        value: statsCold.requests.average,
+        unit: 'req/s',
+        target: null,
+        floor: null,
+        ratio: null,
+        ok: null,
+      },
+      {
+        name: 'GET /api/arsenal p95 beside 10 stats computing',
+        value: beside.p95,
+        unit: 'ms',
+        target: '≤ 50 ms',
+        floor: floor.p95,
+        ratio: null,
+        ok: beside.p95 <= 50,
+      },
+      {
+        name: 'server peak RSS (VmHWM) during the stats loads',
+        value: rssMb,
+        unit: 'MB',
+        target: '< 400 MB',
+        floor: null,
+        ratio: null,
+        ok: rssMb < 400,
+      },
+      {
+        name: 'server peak RSS (VmHWM) before them (lists, matchups)',
+        value: rssBeforeStatsMb,
+        unit: 'MB',
+        target: null,
+        floor: null,
+        ratio: null,
+        ok: null,
+      },
       { name: 'client initial JS (gzip)', value: jsKb, unit: 'kB', target: '≤ 350', floor: null, ratio: null, ok: jsKb <= 350 },
     ];
     const loadAvg = os.loadavg().map((x) => Math.round(x * 100) / 100);
-    console.log(`\nHTTP (autocannon on loopback; floor = bare Express answering the same body, same run; load average ${loadAvg.join(' ')})`);
-    for (const h of http) console.log(`${h.name.padEnd(72)} ${h.value.toFixed(1).padStart(9)} ${h.unit.padEnd(6)} ${h.floor === null ? ''.padEnd(16) : `floor ${h.floor.toFixed(1)}`.padEnd(16)} ${h.ratio === null ? ''.padEnd(9) : `${h.ratio.toFixed(3)} ×`.padEnd(9)} ${h.target ?? ''} ${h.ok === null ? '' : h.ok ? 'ok' : 'MISSED'}`);
+    console.log(
+      `\nHTTP (autocannon on loopback; floor = bare Express answering the same body, same run; load average ${loadAvg.join(' ')})`,
+    );
+    for (const h of http)
+      console.log(
+        `${h.name.padEnd(72)} ${h.value.toFixed(1).padStart(9)} ${h.unit.padEnd(6)} ${h.floor === null ? ''.padEnd(16) : `floor ${h.floor.toFixed(1)}`.padEnd(16)} ${h.ratio === null ? ''.padEnd(9) : `${h.ratio.toFixed(3)} ×`.padEnd(9)} ${h.target ?? ''} ${h.ok === null ? '' : h.ok ? 'ok' : 'MISSED'}`,
+      );
     if (errors) console.log(`non-2xx or errors during the load: ${errors}`);
 
     const file = path.join(here, 'results.json');
     const prev = fs.existsSync(file) ? (JSON.parse(fs.readFileSync(file, 'utf8')) as Record<string, unknown>) : {};
-    fs.writeFileSync(file, `${JSON.stringify({ ...prev, http: { date: new Date().toISOString(), loadAverage: loadAvg, cores: os.cpus().length, errors, results: http } }, null, 2)}\n`);
+    fs.writeFileSync(
+      file,
+      `${JSON.stringify({ ...prev, http: { date: new Date().toISOString(), loadAverage: loadAvg, cores: os.cpus().length, errors, results: http } }, null, 2)}\n`,
+    );
     console.log('wrote bench/results.json (http)');
   } finally {
     server?.kill('SIGTERM');

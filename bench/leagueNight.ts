@@ -43,10 +43,15 @@ interface SetupFigures {
 async function night(setup: string, d: Deployment): Promise<SetupFigures> {
   if (d.standbyUrl) await d.standby('SELECT pg_stat_statements_reset()');
   const r: NightReport = await leagueNight(d, { lanes: LANES, perLane: PER_LANE, refunds: 6 });
-  const [backlog] = await d.primary<{ n: string }>("SELECT count(*) AS n FROM pgboss.job WHERE name = 'calibration' AND state IN ('created', 'retry', 'active')");
+  const [backlog] = await d.primary<{ n: string }>(
+    "SELECT count(*) AS n FROM pgboss.job WHERE name = 'calibration' AND state IN ('created', 'retry', 'active')",
+  );
   const [stored] = await d.primary<{ n: string }>('SELECT count(*) AS n FROM shots WHERE session_id = ANY($1)', [r.sessionIds]);
   const standbyReadCalls = d.standbyUrl
-    ? (await d.standby<{ calls: string }>("SELECT calls FROM pg_stat_statements WHERE query ILIKE 'SELECT%'")).reduce((s, x) => s + Number(x.calls), 0)
+    ? (await d.standby<{ calls: string }>("SELECT calls FROM pg_stat_statements WHERE query ILIKE 'SELECT%'")).reduce(
+        (s, x) => s + Number(x.calls),
+        0,
+      )
     : null;
   return {
     setup,
@@ -78,20 +83,31 @@ const scaled = await run('scaled out (2 API + worker + standby)', { apis: 2, wor
 const single = await run('single process (jobs in process, primary only)', { apis: 1, worker: false, standby: false });
 
 const fmt = (n: number, w = 8) => n.toFixed(0).padStart(w);
-console.log(`\nLeague night: ${LANES} lanes × ${PER_LANE} bowlers, 12 shots each, from the production build on loopback (${os.cpus().length} cores)`);
+console.log(
+  `\nLeague night: ${LANES} lanes × ${PER_LANE} bowlers, 12 shots each, from the production build on loopback (${os.cpus().length} cores)`,
+);
 for (const s of [scaled, single]) {
   console.log(`\n${s.setup}`);
-  console.log(`  ${s.durationS.toFixed(1)} s, ${s.requests} requests, ${s.throughput.toFixed(1)} req/s; shots stored ${s.shotsStored}/${s.shotsExpected}; read-after-write misses ${s.readAfterWriteMisses}; retries ${s.retries}; calibration fits still queued at the end ${s.calibrationBacklog}${s.standbyReadCalls === null ? '' : `; SELECTs on the standby ${s.standbyReadCalls}`}`);
+  console.log(
+    `  ${s.durationS.toFixed(1)} s, ${s.requests} requests, ${s.throughput.toFixed(1)} req/s; shots stored ${s.shotsStored}/${s.shotsExpected}; read-after-write misses ${s.readAfterWriteMisses}; retries ${s.retries}; calibration fits still queued at the end ${s.calibrationBacklog}${s.standbyReadCalls === null ? '' : `; SELECTs on the standby ${s.standbyReadCalls}`}`,
+  );
 }
-console.log(`\n${'route'.padEnd(44)} ${'scaled p50'.padStart(11)} ${'p95'.padStart(8)} ${'single p50'.padStart(11)} ${'p95'.padStart(8)}  (ms; count)`);
+console.log(
+  `\n${'route'.padEnd(44)} ${'scaled p50'.padStart(11)} ${'p95'.padStart(8)} ${'single p50'.padStart(11)} ${'p95'.padStart(8)}  (ms; count)`,
+);
 for (const route of [...new Set([...Object.keys(scaled.routes), ...Object.keys(single.routes)])].sort()) {
   const a = scaled.routes[route];
   const b = single.routes[route];
-  console.log(`${route.padEnd(44)} ${a ? fmt(a.p50, 11) : ''.padStart(11)} ${a ? fmt(a.p95) : ''.padStart(8)} ${b ? fmt(b.p50, 11) : ''.padStart(11)} ${b ? fmt(b.p95) : ''.padStart(8)}  (${a?.count ?? 0}; ${b?.count ?? 0})`);
+  console.log(
+    `${route.padEnd(44)} ${a ? fmt(a.p50, 11) : ''.padStart(11)} ${a ? fmt(a.p95) : ''.padStart(8)} ${b ? fmt(b.p50, 11) : ''.padStart(11)} ${b ? fmt(b.p95) : ''.padStart(8)}  (${a?.count ?? 0}; ${b?.count ?? 0})`,
+  );
 }
 
 const file = path.join(here, 'results.json');
 const prev = fs.existsSync(file) ? (JSON.parse(fs.readFileSync(file, 'utf8')) as Record<string, unknown>) : {};
-fs.writeFileSync(file, `${JSON.stringify({ ...prev, leagueNight: { date: new Date().toISOString(), lanes: LANES, perLane: PER_LANE, cores: os.cpus().length, results: [scaled, single] } }, null, 2)}\n`);
+fs.writeFileSync(
+  file,
+  `${JSON.stringify({ ...prev, leagueNight: { date: new Date().toISOString(), lanes: LANES, perLane: PER_LANE, cores: os.cpus().length, results: [scaled, single] } }, null, 2)}\n`,
+);
 console.log('\nwrote bench/results.json (leagueNight)');
 process.exit(0);

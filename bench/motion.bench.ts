@@ -5,20 +5,42 @@
  */
 import type { Bench } from './run';
 import {
-  ballInertia, conditionOilMap, coverFriction, integrateDelivery, MOTION_CALIBRATION, oilFrictionField, rankArsenal,
-  releaseState, uniformFrictionField,
+  ballInertia,
+  conditionOilMap,
+  coverFriction,
+  integrateDelivery,
+  MOTION_CALIBRATION,
+  oilFrictionField,
+  rankArsenal,
+  releaseState,
+  uniformFrictionField,
 } from '../engine/index';
 import type { ArsenalBall, BallSpec, BowlerProfile, OilPattern, Sweep } from '../engine/index';
 
 const sweep = (fromBoard: number, toBoard: number, endFt: number, crossings: number): Sweep => ({
-  direction: 'forward', fromBoard, toBoard, startFt: 0, endFt, crossings, microlitersPerBoard: 60,
+  direction: 'forward',
+  fromBoard,
+  toBoard,
+  startFt: 0,
+  endFt,
+  crossings,
+  microlitersPerBoard: 60,
 });
 /** An invented 40 ft house-style pattern (≈ 19 mL). */
-const pattern: OilPattern = { name: 'Bench House 40', sweeps: [sweep(2, 38, 40, 2), sweep(8, 32, 38, 4), sweep(12, 28, 36, 6), sweep(15, 25, 32, 4)] };
+const pattern: OilPattern = {
+  name: 'Bench House 40',
+  sweeps: [sweep(2, 38, 40, 2), sweep(8, 32, 38, 4), sweep(12, 28, 36, 6), sweep(15, 25, 32, 4)],
+};
 const bowler: BowlerProfile = { hand: 'right', speedMph: 17.5, revRpm: 320, axisRotationDeg: 45, axisTiltDeg: 12 };
 const strong: BallSpec = {
-  weightLb: 15, rg: 2.49, differential: 0.052, intermediateDifferential: 0.014, coverType: 'reactive-solid', surfaceGrit: 2000,
-  polished: false, layout: { pinToPapIn: 3.4, valAngleDeg: 45 },
+  weightLb: 15,
+  rg: 2.49,
+  differential: 0.052,
+  intermediateDifferential: 0.014,
+  coverType: 'reactive-solid',
+  surfaceGrit: 2000,
+  polished: false,
+  layout: { pinToPapIn: 3.4, valAngleDeg: 45 },
 };
 
 // One delivery: the oil map with the oil carried on the ball's track, the default step.
@@ -30,15 +52,32 @@ const steps = integrateDelivery(state0, inertia, field, { hand: 1 }).steps;
 // Position error at the default step against the closed form of the sliding sphere (isotropic ball, uniform μ,
 // ψ = 0): skid y(t) = ½ μ g (s⊥/|u₀|) t² until ∫μ dt = α|u₀|/((1+α)g), then a straight line at v*.
 function closedFormError(): { yPinsMm: number; xRollMm: number } {
-  const iso: BallSpec = { weightLb: 16, diameterIn: 8.5, rg: 2.5, differential: 0, intermediateDifferential: 0, coverType: 'reactive-solid', surfaceGrit: 2000, polished: false };
+  const iso: BallSpec = {
+    weightLb: 16,
+    diameterIn: 8.5,
+    rg: 2.5,
+    differential: 0,
+    intermediateDifferential: 0,
+    coverType: 'reactive-solid',
+    surfaceGrit: 2000,
+    polished: false,
+  };
   const b: BowlerProfile = { hand: 'right', speedMph: 8 / 0.44704, revRpm: 300, axisRotationDeg: 45, axisTiltDeg: 15 };
-  const I = ballInertia(iso), R = I.radiusM, mu = 0.2, g = 9.80665, L = 18.288;
+  const I = ballInertia(iso),
+    R = I.radiusM,
+    mu = 0.2,
+    g = 9.80665,
+    L = 18.288;
   const s = releaseState(iso, b, 20, 20);
   const a = I.iLow / (I.massKg * R * R);
-  const ux = s[2] - R * s[5], uy = s[3] + R * s[4], u = Math.hypot(ux, uy);
+  const ux = s[2] - R * s[5],
+    uy = s[3] + R * s[4],
+    u = Math.hypot(ux, uy);
   const t = (a * u) / ((1 + a) * mu * g);
-  const xr = s[2] * t - 0.5 * mu * g * (ux / u) * t * t, yr = s[3] * t - 0.5 * mu * g * (uy / u) * t * t;
-  const vx = (s[2] + a * R * s[5]) / (1 + a), vy = (s[3] - a * R * s[4]) / (1 + a);
+  const xr = s[2] * t - 0.5 * mu * g * (ux / u) * t * t,
+    yr = s[3] * t - 0.5 * mu * g * (uy / u) * t * t;
+  const vx = (s[2] + a * R * s[5]) / (1 + a),
+    vy = (s[3] - a * R * s[4]) / (1 + a);
   const yPins = yr + (vy / vx) * (L - xr);
   const r = integrateDelivery(s, I, uniformFrictionField(mu));
   const bw = (41.5 / 39) * 0.0254;
@@ -47,19 +86,33 @@ function closedFormError(): { yPinsMm: number; xRollMm: number } {
 const err = closedFormError();
 
 /** The floor: a bare RK4 loop over the same 11-value state and the same step count, trivial right-hand side. */
-const fs = new Float64Array(11), ft = new Float64Array(11), f1 = new Float64Array(11), f2 = new Float64Array(11), f3 = new Float64Array(11), f4 = new Float64Array(11);
+const fs = new Float64Array(11),
+  ft = new Float64Array(11),
+  f1 = new Float64Array(11),
+  f2 = new Float64Array(11),
+  f3 = new Float64Array(11),
+  f4 = new Float64Array(11);
 function bare(a: Float64Array, d: Float64Array): void {
-  d[0] = a[2]; d[1] = a[3]; d[2] = -0.01 * a[2]; d[3] = -0.01 * a[3];
+  d[0] = a[2];
+  d[1] = a[3];
+  d[2] = -0.01 * a[2];
+  d[3] = -0.01 * a[3];
   for (let i = 4; i < 11; i++) d[i] = -0.001 * a[i];
 }
 function rk4Floor(n: number): number {
-  fs.fill(0); fs[2] = 8; fs[7] = 1;
+  fs.fill(0);
+  fs[2] = 8;
+  fs[7] = 1;
   const h = MOTION_CALIBRATION.stepS;
   for (let k = 0; k < n; k++) {
-    bare(fs, f1); for (let i = 0; i < 11; i++) ft[i] = fs[i] + 0.5 * h * f1[i];
-    bare(ft, f2); for (let i = 0; i < 11; i++) ft[i] = fs[i] + 0.5 * h * f2[i];
-    bare(ft, f3); for (let i = 0; i < 11; i++) ft[i] = fs[i] + h * f3[i];
-    bare(ft, f4); for (let i = 0; i < 11; i++) fs[i] += (h / 6) * (f1[i] + 2 * (f2[i] + f3[i]) + f4[i]);
+    bare(fs, f1);
+    for (let i = 0; i < 11; i++) ft[i] = fs[i] + 0.5 * h * f1[i];
+    bare(ft, f2);
+    for (let i = 0; i < 11; i++) ft[i] = fs[i] + 0.5 * h * f2[i];
+    bare(ft, f3);
+    for (let i = 0; i < 11; i++) ft[i] = fs[i] + h * f3[i];
+    bare(ft, f4);
+    for (let i = 0; i < 11; i++) fs[i] += (h / 6) * (f1[i] + 2 * (f2[i] + f3[i]) + f4[i]);
   }
   return fs[0];
 }
@@ -67,18 +120,51 @@ function rk4Floor(n: number): number {
 // Fifteen invented balls, strong to weak.
 const mk = (id: string, o: Partial<BallSpec>): ArsenalBall => ({ ...strong, ...o, id });
 const balls: ArsenalBall[] = [
-  mk('b01', { surfaceGrit: 500 }), mk('b02', { surfaceGrit: 1000 }), mk('b03', {}), mk('b04', { surfaceGrit: 3000 }),
+  mk('b01', { surfaceGrit: 500 }),
+  mk('b02', { surfaceGrit: 1000 }),
+  mk('b03', {}),
+  mk('b04', { surfaceGrit: 3000 }),
   mk('b05', { coverType: 'reactive-hybrid', rg: 2.52, differential: 0.046, intermediateDifferential: 0.008 }),
-  mk('b06', { coverType: 'reactive-hybrid', rg: 2.52, differential: 0.046, intermediateDifferential: 0.008, surfaceGrit: 1500, polished: true }),
+  mk('b06', {
+    coverType: 'reactive-hybrid',
+    rg: 2.52,
+    differential: 0.046,
+    intermediateDifferential: 0.008,
+    surfaceGrit: 1500,
+    polished: true,
+  }),
   mk('b07', { coverType: 'reactive-pearl', rg: 2.55, differential: 0.045, intermediateDifferential: 0 }),
   mk('b08', { coverType: 'reactive-pearl', rg: 2.55, differential: 0.045, intermediateDifferential: 0, surfaceGrit: 1500, polished: true }),
-  mk('b09', { coverType: 'reactive-pearl', rg: 2.6, differential: 0.025, intermediateDifferential: 0, surfaceGrit: 3000, polished: true, layout: { pinToPapIn: 5.5 } }),
+  mk('b09', {
+    coverType: 'reactive-pearl',
+    rg: 2.6,
+    differential: 0.025,
+    intermediateDifferential: 0,
+    surfaceGrit: 3000,
+    polished: true,
+    layout: { pinToPapIn: 5.5 },
+  }),
   mk('b10', { rg: 2.54, differential: 0.048, intermediateDifferential: 0 }),
   mk('b11', { rg: 2.58, differential: 0.02, intermediateDifferential: 0, surfaceGrit: 3000 }),
   mk('b12', { coverType: 'urethane', rg: 2.6, differential: 0.02, intermediateDifferential: 0, surfaceGrit: 1000 }),
   mk('b13', { coverType: 'urethane', rg: 2.65, differential: 0.015, intermediateDifferential: 0 }),
-  mk('b14', { coverType: 'reactive-hybrid', rg: 2.62, differential: 0.035, intermediateDifferential: 0, surfaceGrit: 4000, polished: true }),
-  mk('b15', { coverType: 'plastic', rg: 2.7, differential: 0.008, intermediateDifferential: 0, surfaceGrit: 4000, polished: true, layout: { pinToPapIn: 1 } }),
+  mk('b14', {
+    coverType: 'reactive-hybrid',
+    rg: 2.62,
+    differential: 0.035,
+    intermediateDifferential: 0,
+    surfaceGrit: 4000,
+    polished: true,
+  }),
+  mk('b15', {
+    coverType: 'plastic',
+    rg: 2.7,
+    differential: 0.008,
+    intermediateDifferential: 0,
+    surfaceGrit: 4000,
+    polished: true,
+    layout: { pinToPapIn: 1 },
+  }),
 ];
 
 const fmt = (x: number): string => (x < 0.1 ? x.toFixed(3) : x.toFixed(2));

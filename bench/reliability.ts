@@ -75,13 +75,28 @@ async function measure(load: Load): Promise<Figures> {
         connections: CONNECTIONS,
         duration: DURATION,
         timeout: 10,
-        requests: [{ method: load.method, headers: load.headers, ...(load.body ? { setupRequest: (req: autocannon.Request) => ({ ...req, body: load.body!() }) } : {}) }],
+        requests: [
+          {
+            method: load.method,
+            headers: load.headers,
+            ...(load.body ? { setupRequest: (req: autocannon.Request) => ({ ...req, body: load.body!() }) } : {}),
+          },
+        ],
       },
       (err, res) => (err ? reject(err) : resolve(res)),
     );
     inst.on('response', (_client: unknown, statusCode: number, _bytes: number, responseTime: number) => {
       latencies.push(responseTime);
-      const k = statusCode >= 200 && statusCode < 300 ? '2xx' : statusCode >= 400 && statusCode < 500 ? '4xx' : statusCode === 503 ? '503' : statusCode >= 500 ? '5xx' : 'other';
+      const k =
+        statusCode >= 200 && statusCode < 300
+          ? '2xx'
+          : statusCode >= 400 && statusCode < 500
+            ? '4xx'
+            : statusCode === 503
+              ? '503'
+              : statusCode >= 500
+                ? '5xx'
+                : 'other';
       status[k] += 1;
     });
   });
@@ -113,7 +128,11 @@ async function main(): Promise<void> {
     run(bin('tsx'), ['seeders/index.ts'], { ...env, NODE_ENV: 'test' }); // the demo data, loaded as a test database would be (never into production)
     const port = await freePort();
     let out = '';
-    server = spawn(bin('tsx'), ['server/index.ts'], { cwd: root, env: { ...env, PORT: String(port), RATE_LIMIT_AUTH: '100000' }, stdio: ['ignore', 'pipe', 'pipe'] });
+    server = spawn(bin('tsx'), ['server/index.ts'], {
+      cwd: root,
+      env: { ...env, PORT: String(port), RATE_LIMIT_AUTH: '100000' },
+      stdio: ['ignore', 'pipe', 'pipe'],
+    });
     server.stdout!.on('data', (d: Buffer) => (out += d.toString()));
     server.stderr!.on('data', (d: Buffer) => (out += d.toString()));
     const base = `http://127.0.0.1:${port}`;
@@ -125,7 +144,13 @@ async function main(): Promise<void> {
       }
       await new Promise((r) => setTimeout(r, 200));
     }
-    const login = (await (await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ email: 'dana@copperline.example', password: 'lanewright-demo' }) })).json()) as { token: string };
+    const login = (await (
+      await fetch(`${base}/api/auth/login`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json' },
+        body: JSON.stringify({ email: 'dana@copperline.example', password: 'lanewright-demo' }),
+      })
+    ).json()) as { token: string };
     const auth = { authorization: `Bearer ${login.token}`, 'content-type': 'application/json' };
     const centers = (await (await fetch(`${base}/api/centers`)).json()) as { items: { id: number; name: string }[] };
     const patterns = (await (await fetch(`${base}/api/patterns`, { headers: auth })).json()) as { items: { id: number; name: string }[] };
@@ -135,13 +160,32 @@ async function main(): Promise<void> {
 
     const loads: Load[] = [
       { name: 'GET /api/arsenal', method: 'GET', url: `${base}/api/arsenal`, headers: auth },
-      { name: 'GET /api/centers/:id/conditions/current', method: 'GET', url: `${base}/api/centers/${center.id}/conditions/current`, headers: {} },
-      { name: 'POST /api/matchups', method: 'POST', url: `${base}/api/matchups`, headers: auth, body: () => JSON.stringify({ patternId: pattern.id }) },
+      {
+        name: 'GET /api/centers/:id/conditions/current',
+        method: 'GET',
+        url: `${base}/api/centers/${center.id}/conditions/current`,
+        headers: {},
+      },
+      {
+        name: 'POST /api/matchups',
+        method: 'POST',
+        url: `${base}/api/matchups`,
+        headers: auth,
+        body: () => JSON.stringify({ patternId: pattern.id }),
+      },
       // Speeds in steps of 0.1 mph: every write changes the row.
-      { name: 'PUT /api/profile', method: 'PUT', url: `${base}/api/profile`, headers: auth, body: () => JSON.stringify({ speedMph: 15 + ((n++ % 40) / 10) }) },
+      {
+        name: 'PUT /api/profile',
+        method: 'PUT',
+        url: `${base}/api/profile`,
+        headers: auth,
+        body: () => JSON.stringify({ speedMph: 15 + (n++ % 40) / 10 }),
+      },
     ];
     const figures: Figures[] = [];
-    console.log(`\nReliability (autocannon on loopback, ${CONNECTIONS} connections × ${DURATION} s per route; p95 from every response's latency)`);
+    console.log(
+      `\nReliability (autocannon on loopback, ${CONNECTIONS} connections × ${DURATION} s per route; p95 from every response's latency)`,
+    );
     for (const l of loads) {
       const f = await measure(l);
       figures.push(f);
@@ -150,11 +194,26 @@ async function main(): Promise<void> {
       );
     }
     const bad = figures.reduce((a, f) => a + f.bad, 0);
-    if (bad) console.log(`answers outside 2xx/4xx, errors and timeouts: ${bad} (target 0)\n${out.split('\n').filter((x) => x.includes('"level":50')).slice(0, 5).join('\n')}`);
+    if (bad)
+      console.log(
+        `answers outside 2xx/4xx, errors and timeouts: ${bad} (target 0)\n${out
+          .split('\n')
+          .filter((x) => x.includes('"level":50'))
+          .slice(0, 5)
+          .join('\n')}`,
+      );
 
     const file = path.join(here, 'results.json');
     const prev = fs.existsSync(file) ? (JSON.parse(fs.readFileSync(file, 'utf8')) as Record<string, unknown>) : {};
-    const reliability = { date: new Date().toISOString(), machine: { cpus: os.cpus().length, cpu: os.cpus()[0]?.model, node: process.version }, connections: CONNECTIONS, durationS: DURATION, target: '0 answers outside 2xx/4xx', bad, results: figures };
+    const reliability = {
+      date: new Date().toISOString(),
+      machine: { cpus: os.cpus().length, cpu: os.cpus()[0]?.model, node: process.version },
+      connections: CONNECTIONS,
+      durationS: DURATION,
+      target: '0 answers outside 2xx/4xx',
+      bad,
+      results: figures,
+    };
     fs.writeFileSync(file, `${JSON.stringify({ ...prev, reliability }, null, 2)}\n`);
     console.log('wrote bench/results.json (reliability)');
     if (bad) process.exitCode = 1;

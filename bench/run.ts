@@ -127,7 +127,16 @@ async function main(): Promise<void> {
       } catch (err: unknown) {
         const error = err instanceof Error ? `${err.name}: ${err.message}` : String(err);
         console.error(`bench: "${bench.name}" (${file}) threw ${error}`);
-        results.push({ name: bench.name, medianMs: Number.NaN, p95Ms: Number.NaN, target: bench.target ?? null, samples: 0, batch: 0, file, error });
+        results.push({
+          name: bench.name,
+          medianMs: Number.NaN,
+          p95Ms: Number.NaN,
+          target: bench.target ?? null,
+          samples: 0,
+          batch: 0,
+          file,
+          error,
+        });
       }
     }
   }

@@ -46,8 +46,16 @@ export interface BallReaction {
  */
 export const REACTION_SCALE = Object.freeze({
   benchmark: 50,
-  cover: Object.freeze({ plastic: -35, urethane: -8, 'reactive-pearl': -3, 'reactive-hybrid': 0, 'reactive-solid': 3 }) as Readonly<Record<CoverType, number>>,
-  surfaceResponse: Object.freeze({ plastic: 0.2, urethane: 0.7, 'reactive-pearl': 1, 'reactive-hybrid': 1, 'reactive-solid': 1 }) as Readonly<Record<CoverType, number>>,
+  cover: Object.freeze({ plastic: -35, urethane: -8, 'reactive-pearl': -3, 'reactive-hybrid': 0, 'reactive-solid': 3 }) as Readonly<
+    Record<CoverType, number>
+  >,
+  surfaceResponse: Object.freeze({
+    plastic: 0.2,
+    urethane: 0.7,
+    'reactive-pearl': 1,
+    'reactive-hybrid': 1,
+    'reactive-solid': 1,
+  }) as Readonly<Record<CoverType, number>>,
   surfaceReferenceGrit: 3000,
   surfacePerDoubling: 5.5,
   polish: 5,
@@ -108,28 +116,64 @@ export function reactionUnchecked(ball: BallSpec): BallReaction {
   const factors: ReactionFactor[] = [];
   const add = (key: string, points: number, label: string, source: string) => factors.push({ key, points: round1(points), label, source });
 
-  add('cover', W.cover[ball.coverType], COVER_WORDS[ball.coverType], 'common practice (cover types: plastic, urethane, pearl, hybrid, solid)');
+  add(
+    'cover',
+    W.cover[ball.coverType],
+    COVER_WORDS[ball.coverType],
+    'common practice (cover types: plastic, urethane, pearl, hybrid, solid)',
+  );
   const surface = (W.surfacePerDoubling * Math.log2(W.surfaceReferenceGrit / ball.surfaceGrit) - (ball.polished ? W.polish : 0)) * response;
-  add('surface', surface, surfaceWords(ball.surfaceGrit, ball.polished), 'common practice (a lower grit reads oil earlier; polish adds length)');
+  add(
+    'surface',
+    surface,
+    surfaceWords(ball.surfaceGrit, ball.polished),
+    'common practice (a lower grit reads oil earlier; polish adds length)',
+  );
   const games = ball.gamesSinceResurface ?? 0;
   if (games > 0) {
-    add('wear', (-W.wearMax * games * response) / (games + W.wearHalfGames), `${games} games since the last resurface`, 'common practice (a cover soaks up oil and dulls with use; resurface every 60–100 games)');
+    add(
+      'wear',
+      (-W.wearMax * games * response) / (games + W.wearHalfGames),
+      `${games} games since the last resurface`,
+      'common practice (a cover soaks up oil and dulls with use; resurface every 60–100 games)',
+    );
   }
-  add('rg', -W.rgPerInch * (ball.rg - W.rgReferenceIn), `RG ${ball.rg.toFixed(3)} in`, 'common practice (a lower RG revs up and reads earlier)');
+  add(
+    'rg',
+    -W.rgPerInch * (ball.rg - W.rgReferenceIn),
+    `RG ${ball.rg.toFixed(3)} in`,
+    'common practice (a lower RG revs up and reads earlier)',
+  );
   const diameter = ball.diameterIn ?? DEFAULT_BALL_DIAMETER_IN;
   const share = ball.layout ? flareShare(ball.layout.pinToPapIn, diameter) : W.flareReference / 0.045;
   const flare = ball.differential * share;
   const flareLabel = ball.layout
     ? `differential ${ball.differential.toFixed(3)} in with the pin ${ball.layout.pinToPapIn} in from the PAP (${Math.round(share * 100)} % of its flare)`
     : `differential ${ball.differential.toFixed(3)} in (no layout entered)`;
-  add('flare', (W.flarePerFullDifferential * (flare - W.flareReference)) / 0.06, flareLabel, 'rigid-body mechanics (flare ∝ differential × sin 2θ, largest 45° from the PAP) and the USBC 0.060 in differential limit');
+  add(
+    'flare',
+    (W.flarePerFullDifferential * (flare - W.flareReference)) / 0.06,
+    flareLabel,
+    'rigid-body mechanics (flare ∝ differential × sin 2θ, largest 45° from the PAP) and the USBC 0.060 in differential limit',
+  );
   if (ball.intermediateDifferential > 0) {
-    add('asymmetry', Math.min(W.asymmetryMax, (W.asymmetryPerFull * ball.intermediateDifferential) / W.asymmetryFullIn), `asymmetric core (intermediate differential ${ball.intermediateDifferential.toFixed(3)} in)`, 'common practice (an asymmetric core responds quicker to friction)');
+    add(
+      'asymmetry',
+      Math.min(W.asymmetryMax, (W.asymmetryPerFull * ball.intermediateDifferential) / W.asymmetryFullIn),
+      `asymmetric core (intermediate differential ${ball.intermediateDifferential.toFixed(3)} in)`,
+      'common practice (an asymmetric core responds quicker to friction)',
+    );
   }
   const da = ball.layout?.drillingAngleDeg;
   if (da !== undefined) {
     const p = Math.max(-W.drillingAngleMax, Math.min(W.drillingAngleMax, (W.drillingAnglePer30Deg * (45 - da)) / 30));
-    if (Math.abs(p) >= 0.05) add('drilling-angle', p, `drilling angle ${da}°`, 'common practice (layouts by drilling angle, pin-to-PAP and VAL angle: a smaller drilling angle reads earlier and smoother)');
+    if (Math.abs(p) >= 0.05)
+      add(
+        'drilling-angle',
+        p,
+        `drilling angle ${da}°`,
+        'common practice (layouts by drilling angle, pin-to-PAP and VAL angle: a smaller drilling angle reads earlier and smoother)',
+      );
   }
   factors.sort((a, b) => Math.abs(b.points) - Math.abs(a.points) || a.key.localeCompare(b.key));
   const total = round1(W.benchmark + factors.reduce((s, f) => s + f.points, 0));

@@ -65,7 +65,12 @@ const round1 = (x: number) => Math.round(x * 10) / 10;
  * @example
  * conditionDemand({ analysis: analyzePattern(heavy), bowler, gamesBowled: 0 }).total; // => about 70
  */
-export function conditionDemand(input: { analysis: PatternAnalysis; bowler: BowlerProfile; lane?: LaneSurface; gamesBowled?: number }): ConditionDemand {
+export function conditionDemand(input: {
+  analysis: PatternAnalysis;
+  bowler: BowlerProfile;
+  lane?: LaneSurface;
+  gamesBowled?: number;
+}): ConditionDemand {
   const W = DEMAND_SCALE;
   const { analysis: a, bowler: b } = input;
   const lane = input.lane ?? { kind: 'synthetic', friction: 'medium' };
@@ -74,20 +79,57 @@ export function conditionDemand(input: { analysis: PatternAnalysis; bowler: Bowl
   const add = (key: string, points: number, label: string, source: string) => {
     if (Math.abs(points) >= 0.05) factors.push({ key, points: round1(points), label, source });
   };
-  add('volume', W.perMl * (a.volumeMl - W.referenceMl), `${a.volumeMl.toFixed(1)} mL of oil`, 'common practice (more oil asks for more ball)');
-  add('length', W.perFt * (a.lengthFt - W.referenceFt), `a ${a.lengthFt} ft pattern`, 'common practice (a longer pattern asks for more ball)');
-  const ratioPts = Number.isFinite(a.ratio) ? Math.max(W.ratioCap.low, Math.min(W.ratioCap.high, -W.perRatioDoubling * Math.log2(Math.max(a.ratio, 1e-6) / W.referenceRatio))) : W.ratioCap.low;
+  add(
+    'volume',
+    W.perMl * (a.volumeMl - W.referenceMl),
+    `${a.volumeMl.toFixed(1)} mL of oil`,
+    'common practice (more oil asks for more ball)',
+  );
+  add(
+    'length',
+    W.perFt * (a.lengthFt - W.referenceFt),
+    `a ${a.lengthFt} ft pattern`,
+    'common practice (a longer pattern asks for more ball)',
+  );
+  const ratioPts = Number.isFinite(a.ratio)
+    ? Math.max(W.ratioCap.low, Math.min(W.ratioCap.high, -W.perRatioDoubling * Math.log2(Math.max(a.ratio, 1e-6) / W.referenceRatio)))
+    : W.ratioCap.low;
   const ratioWords = Number.isFinite(a.ratio) ? `a ${a.ratio.toFixed(1)}:1 ratio` : 'no oil outside';
   add('ratio', ratioPts, ratioWords, 'common practice (friction outside brings the ball back; the USBC sport limit is 3:1)');
-  add('lane-surface', W.laneFriction[lane.friction], `a ${lane.friction}-friction ${lane.kind} lane`, 'common practice (a grippy lane surface asks for less ball)');
+  add(
+    'lane-surface',
+    W.laneFriction[lane.friction],
+    `a ${lane.friction}-friction ${lane.kind} lane`,
+    'common practice (a grippy lane surface asks for less ball)',
+  );
   if (games > 0) {
     const t = -Math.min(W.transitionMax, W.perGame * games * (lane.kind === 'wood' ? W.woodFactor : 1));
-    add('transition', t, `${games} ${games === 1 ? 'game' : 'games'} already bowled${lane.kind === 'wood' ? ' on wood' : ''}`, 'common practice (the track dries and the lane hooks earlier as games are bowled)');
+    add(
+      'transition',
+      t,
+      `${games} ${games === 1 ? 'game' : 'games'} already bowled${lane.kind === 'wood' ? ' on wood' : ''}`,
+      'common practice (the track dries and the lane hooks earlier as games are bowled)',
+    );
   }
-  add('speed', W.perMph * (b.speedMph - W.referenceMph), `${b.speedMph} mph`, 'common practice (more speed takes the ball farther before it reads)');
+  add(
+    'speed',
+    W.perMph * (b.speedMph - W.referenceMph),
+    `${b.speedMph} mph`,
+    'common practice (more speed takes the ball farther before it reads)',
+  );
   add('rev-rate', W.perRpm * (b.revRpm - W.referenceRpm), `${b.revRpm} rpm`, 'common practice (more revs hook more)');
-  add('axis-rotation', W.perRotationDeg * (b.axisRotationDeg - W.referenceRotationDeg), `${b.axisRotationDeg}° of axis rotation`, 'common practice (more side roll hooks more at the back)');
-  add('axis-tilt', W.perTiltDeg * (b.axisTiltDeg - W.referenceTiltDeg), `${b.axisTiltDeg}° of axis tilt`, 'common practice (more tilt gives more length and less hook)');
+  add(
+    'axis-rotation',
+    W.perRotationDeg * (b.axisRotationDeg - W.referenceRotationDeg),
+    `${b.axisRotationDeg}° of axis rotation`,
+    'common practice (more side roll hooks more at the back)',
+  );
+  add(
+    'axis-tilt',
+    W.perTiltDeg * (b.axisTiltDeg - W.referenceTiltDeg),
+    `${b.axisTiltDeg}° of axis tilt`,
+    'common practice (more tilt gives more length and less hook)',
+  );
   factors.sort((x, y) => Math.abs(y.points) - Math.abs(x.points) || x.key.localeCompare(y.key));
   const total = round1(W.reference + factors.reduce((s, f) => s + f.points, 0));
   return { total, factors };

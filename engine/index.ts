@@ -115,4 +115,11 @@ export type { TrialArmInput, TrialArmResult, TrialVerdict, TrialComparison, Mean
 export { layoutLab, LAYOUT_MAP_RADIUS_IN } from './decisions/layoutLab';
 export type { LayoutLabEntry, MapPoint } from './decisions/layoutLab';
 export { arsenalCoverage, COVERAGE_RULES } from './decisions/arsenalCoverage';
-export type { ArsenalCoverage, CoverageCell, CoverageGap, CoverageDuplicate, CoverageCondition, CatalogueCandidate } from './decisions/arsenalCoverage';
+export type {
+  ArsenalCoverage,
+  CoverageCell,
+  CoverageGap,
+  CoverageDuplicate,
+  CoverageCondition,
+  CatalogueCandidate,
+} from './decisions/arsenalCoverage';

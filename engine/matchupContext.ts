@@ -22,12 +22,25 @@ import { validatePattern } from './validatePattern';
  * @example
  * matchupContext(bowler, pattern, 3).demand.total; // => the demand after three games
  */
-export function matchupContext(bowler: BowlerProfile, pattern: OilPattern, gamesBowled = 0, fn = 'matchupContext', lane?: LaneSurface): MatchupContext {
+export function matchupContext(
+  bowler: BowlerProfile,
+  pattern: OilPattern,
+  gamesBowled = 0,
+  fn = 'matchupContext',
+  lane?: LaneSurface,
+): MatchupContext {
   validateBowlerProfile(bowler, fn);
   validatePattern(pattern, fn);
   const g = finite(fn, 'gamesBowled', gamesBowled);
   if (g < 0) throw new RangeError(`${fn}: gamesBowled must be 0 or more, got ${g}`);
   const surface = laneSurfaceOf(fn, lane);
   const analysis = analyzePattern(pattern);
-  return { bowler, pattern, analysis, gamesBowled: g, lane: surface, demand: conditionDemand({ analysis, bowler, lane: surface, gamesBowled: g }) };
+  return {
+    bowler,
+    pattern,
+    analysis,
+    gamesBowled: g,
+    lane: surface,
+    demand: conditionDemand({ analysis, bowler, lane: surface, gamesBowled: g }),
+  };
 }

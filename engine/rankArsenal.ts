@@ -42,7 +42,8 @@ export interface RankedPlace {
  * (strike, spare, outside the limits), then score (highest first), then id.
  */
 export function compareRanked(a: RankedPlace, b: RankedPlace): number {
-  const sa = STANDING_ORDER[a.standing ?? 'strike'], sb = STANDING_ORDER[b.standing ?? 'strike'];
+  const sa = STANDING_ORDER[a.standing ?? 'strike'],
+    sb = STANDING_ORDER[b.standing ?? 'strike'];
   return sa - sb || b.score - a.score || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0);
 }
 
@@ -114,15 +115,24 @@ export function rankArsenal(input: RankArsenalInput, options: RankArsenalOptions
     const layers = scorers.map(({ layer, score }) => ({ name: layer.name, weight: layer.weight, result: score(ball) }));
     const scale = scales.get(ball.id);
     const hint = hints?.get(ball.id);
-    const verdict = motionLayer(ball, ctx.bowler, ctx.pattern, motionMap, ctx.gamesBowled, scale?.frictionScale ?? 1, { lane: ctx.lane, ...(hint ? { hint } : {}) });
+    const verdict = motionLayer(ball, ctx.bowler, ctx.pattern, motionMap, ctx.gamesBowled, scale?.frictionScale ?? 1, {
+      lane: ctx.lane,
+      ...(hint ? { hint } : {}),
+    });
     if (verdict.settled) onSettled?.(ball.id, verdict.settled);
     layers.push({ name: 'motion', weight: MOTION_LAYER_WEIGHT, result: verdict.result });
     const { score, reasons, suggestions } = combineLayers(layers);
-    if (verdict.pocketReached) addSameLineFigures(suggestions, ball, ctx.bowler, ctx.pattern, motionMap, scale?.frictionScale ?? 1, ctx.lane, verdict.prediction);
+    if (verdict.pocketReached)
+      addSameLineFigures(suggestions, ball, ctx.bowler, ctx.pattern, motionMap, scale?.frictionScale ?? 1, ctx.lane, verdict.prediction);
     if (scale !== undefined) reasons.push(calibrationReason(scale, ball));
     if (standing === 'illegal') {
       const broken = legality.violations.map((v) => `${v.field} ${v.limit}`).join(', ');
-      reasons.unshift({ rule: 'legality', effect: 0, text: `Outside the USBC limits (${broken}): listed apart and not ranked for strikes.`, source: 'USBC equipment specifications' });
+      reasons.unshift({
+        rule: 'legality',
+        effect: 0,
+        text: `Outside the USBC limits (${broken}): listed apart and not ranked for strikes.`,
+        source: 'USBC equipment specifications',
+      });
     }
     const fit = strengthFit(ball, ctx);
     const entry: RankedBallWithPrediction = {
@@ -174,19 +184,29 @@ export function rankArsenal(input: RankArsenalInput, options: RankArsenalOptions
  * advice says how much, not only which way. Internal to rankArsenal.
  */
 function addSameLineFigures(
-  suggestions: Suggestion[], ball: ArsenalBall, bowler: RankArsenalInput['bowler'], pattern: RankArsenalInput['pattern'],
-  map: LaneOilMap, frictionScale: number, lane: RankArsenalInput['lane'], before: ShotPrediction,
+  suggestions: Suggestion[],
+  ball: ArsenalBall,
+  bowler: RankArsenalInput['bowler'],
+  pattern: RankArsenalInput['pattern'],
+  map: LaneOilMap,
+  frictionScale: number,
+  lane: RankArsenalInput['lane'],
+  before: ShotPrediction,
 ): void {
   for (const s of suggestions) {
     if ((s.kind !== 'surface' && s.kind !== 'layout') || !s.change || Object.keys(s.change).length === 0) continue;
-    const changed = s.kind === 'layout'
-      ? { ...ball, layout: { ...(ball.layout ?? { pinToPapIn: 4 }), ...(s.change as { pinToPapIn: number }) } }
-      : { ...ball, ...(s.change as object), gamesSinceResurface: 0 };
+    const changed =
+      s.kind === 'layout'
+        ? { ...ball, layout: { ...(ball.layout ?? { pinToPapIn: 4 }), ...(s.change as { pinToPapIn: number }) } }
+        : { ...ball, ...(s.change as object), gamesSinceResurface: 0 };
     const r = prepareShot({ ball: changed, bowler, pattern, frictionScale, lane }, map).run(before.laydownBoard, before.targetBoard);
     const dBp = Math.round((r.breakpointFt - before.breakpoint.ft) * 10) / 10 || 0;
     const dEntry = Math.round((r.entryBoard - before.entryBoard) * 10) / 10 || 0;
     const bp = Math.abs(dBp) < 0.1 ? 'about where it is' : `${Math.abs(dBp).toFixed(1)} ft ${dBp > 0 ? 'later' : 'earlier'}`;
-    const entry = Math.abs(dEntry) < 0.1 ? 'the same board' : `${Math.abs(dEntry).toFixed(1)} boards ${dEntry > 0 ? 'higher (more hook)' : 'lighter (less hook)'}`;
+    const entry =
+      Math.abs(dEntry) < 0.1
+        ? 'the same board'
+        : `${Math.abs(dEntry).toFixed(1)} boards ${dEntry > 0 ? 'higher (more hook)' : 'lighter (less hook)'}`;
     s.text = `${s.text} On your present line the model puts the breakpoint ${bp} and the ball ${entry} at the headpin.`;
     s.change = { ...s.change, sameLine: { breakpointShiftFt: dBp, entryBoardShift: dEntry } };
   }
@@ -228,11 +248,15 @@ function calibrationScales(fn: string, calibration: unknown): Map<string, Applie
   if (!c.enough) return out;
   perBall.forEach((p, i) => {
     const b = record(fn, `calibration.perBall[${i}]`, p);
-    if (typeof b.ballId !== 'string') throw new TypeError(`${fn}: calibration.perBall[${i}].ballId must be a string, got ${String(b.ballId)}`);
+    if (typeof b.ballId !== 'string')
+      throw new TypeError(`${fn}: calibration.perBall[${i}].ballId must be a string, got ${String(b.ballId)}`);
     const scale = b.frictionScale;
-    if (typeof scale !== 'number' || !Number.isFinite(scale)) throw new TypeError(`${fn}: calibration.perBall[${i}].frictionScale must be a finite number, got ${String(scale)}`);
-    if (scale < 0.1 || scale > 10) throw new RangeError(`${fn}: calibration.perBall[${i}].frictionScale must be in [0.1, 10], got ${scale}`);
-    const enough = b.enough === undefined ? (typeof b.n === 'number' && typeof c.minShots === 'number' && b.n >= c.minShots) : b.enough === true;
+    if (typeof scale !== 'number' || !Number.isFinite(scale))
+      throw new TypeError(`${fn}: calibration.perBall[${i}].frictionScale must be a finite number, got ${String(scale)}`);
+    if (scale < 0.1 || scale > 10)
+      throw new RangeError(`${fn}: calibration.perBall[${i}].frictionScale must be in [0.1, 10], got ${scale}`);
+    const enough =
+      b.enough === undefined ? typeof b.n === 'number' && typeof c.minShots === 'number' && b.n >= c.minShots : b.enough === true;
     const surfaces = Array.isArray(b.surfaces) ? (b.surfaces as unknown[]).filter((x): x is string => typeof x === 'string') : [];
     if (enough) out.set(b.ballId, { frictionScale: scale, surfaces });
   });

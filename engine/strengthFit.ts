@@ -63,7 +63,8 @@ export function strengthFit(ball: BallSpec, ctx: MatchupContext): StrengthFit {
   const dir = Math.sign(gap);
   // the parts that push the gap's way, and how much
   const push = (ballSide: boolean, pts: number) => (verdict === 'suits' ? 0 : Math.max(0, (ballSide ? 1 : -1) * dir * pts));
-  const total = reaction.factors.reduce((s, f) => s + push(true, f.points), 0) + demand.factors.reduce((s, f) => s + push(false, f.points), 0);
+  const total =
+    reaction.factors.reduce((s, f) => s + push(true, f.points), 0) + demand.factors.reduce((s, f) => s + push(false, f.points), 0);
   const shareOf = (ballSide: boolean, pts: number) => (total > 0 ? round1((-lost * push(ballSide, pts)) / total) : 0);
   const why = verdict === 'too-strong' ? 'too strong' : 'too weak';
   const reasons: RuleResult[] = [];
@@ -71,7 +72,8 @@ export function strengthFit(ball: BallSpec, ctx: MatchupContext): StrengthFit {
     const effect = shareOf(true, f.points);
     let text = `${cap(f.label)}: ${signed(f.points)} reaction against a benchmark ball`;
     if (effect < 0) text += ` — part of why this ball is ${why} for this condition.`;
-    else if (verdict !== 'suits' && f.points !== 0 && push(true, f.points) === 0) text += ` — this part already pulls toward the condition.`;
+    else if (verdict !== 'suits' && f.points !== 0 && push(true, f.points) === 0)
+      text += ` — this part already pulls toward the condition.`;
     else text += '.';
     reasons.push({ rule: `reaction-${f.key}`, effect, text, source: f.source });
   }

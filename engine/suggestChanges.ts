@@ -62,7 +62,11 @@ const round1 = (x: number) => Math.round(x * 10) / 10;
 export function suggestChanges(ball: BallSpec, ctx: MatchupContext, fit: StrengthFit): Suggestion[] {
   const out: Suggestion[] = [];
   if (ball.coverType === 'plastic') {
-    out.push({ kind: 'line', text: 'Use this ball for corner spares: throw it straight at the 7 and 10 pins, cross-lane.', change: { spareTargets: [7, 10] } });
+    out.push({
+      kind: 'line',
+      text: 'Use this ball for corner spares: throw it straight at the 7 and 10 pins, cross-lane.',
+      change: { spareTargets: [7, 10] },
+    });
     return out;
   }
   if (fit.verdict === 'suits') return out;
@@ -115,7 +119,11 @@ export function suggestChanges(ball: BallSpec, ctx: MatchupContext, fit: Strengt
       });
     }
   } else {
-    out.push({ kind: 'layout', text: `Enter this ball's layout (pin-to-PAP distance) so its flare is counted; without it the benchmark's flare is assumed.`, change: {} });
+    out.push({
+      kind: 'layout',
+      text: `Enter this ball's layout (pin-to-PAP distance) so its flare is counted; without it the benchmark's flare is assumed.`,
+      change: {},
+    });
   }
 
   // Release: a clear gap also calls for a speed change.
@@ -138,8 +146,16 @@ export function suggestChanges(ball: BallSpec, ctx: MatchupContext, fit: Strengt
   const outward = ctx.bowler.hand === 'right' ? 'right' : 'left';
   out.push(
     strong
-      ? { kind: 'line', text: `Until then, move deeper: feet 2 boards and target 1 board ${deeper} (2-and-1), to give this ball more oil before it reads.`, change: { feetBoards: 2, targetBoards: 1 } }
-      : { kind: 'line', text: `Until then, move toward the friction: feet 2 boards and target 1 board ${outward} (2-and-1), so this ball finds the drier outside.`, change: { feetBoards: -2, targetBoards: -1 } },
+      ? {
+          kind: 'line',
+          text: `Until then, move deeper: feet 2 boards and target 1 board ${deeper} (2-and-1), to give this ball more oil before it reads.`,
+          change: { feetBoards: 2, targetBoards: 1 },
+        }
+      : {
+          kind: 'line',
+          text: `Until then, move toward the friction: feet 2 boards and target 1 board ${outward} (2-and-1), so this ball finds the drier outside.`,
+          change: { feetBoards: -2, targetBoards: -1 },
+        },
   );
   return out;
 }

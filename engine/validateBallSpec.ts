@@ -3,13 +3,7 @@ import { DEFAULT_BALL_DIAMETER_IN } from './constants';
 import { bool, inRange, oneOf, positive, record } from './internal/checks';
 
 /** The cover types the engine knows, weakest-reading to strongest-reading in oil (common practice). */
-export const COVER_TYPES: readonly CoverType[] = [
-  'plastic',
-  'urethane',
-  'reactive-pearl',
-  'reactive-hybrid',
-  'reactive-solid',
-];
+export const COVER_TYPES: readonly CoverType[] = ['plastic', 'urethane', 'reactive-pearl', 'reactive-hybrid', 'reactive-solid'];
 
 /**
  * Checks that a value is a well-formed BallSpec and throws if it is not.

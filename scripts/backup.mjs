@@ -15,7 +15,10 @@ fs.mkdirSync(path.dirname(file), { recursive: true });
 
 const c = connection(url);
 const tmp = `${file}.partial`;
-const r = spawnSync(pgTool('pg_dump'), [...c.args, '--format=custom', '--compress=6', '--no-owner', '--no-privileges', '--file', tmp], { env: c.env, encoding: 'utf8' });
+const r = spawnSync(pgTool('pg_dump'), [...c.args, '--format=custom', '--compress=6', '--no-owner', '--no-privileges', '--file', tmp], {
+  env: c.env,
+  encoding: 'utf8',
+});
 if (r.status !== 0) {
   fs.rmSync(tmp, { force: true });
   console.error(`[backup] pg_dump of ${c.label} failed:\n${r.stderr || r.stdout}`);

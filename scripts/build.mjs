@@ -28,7 +28,9 @@ function serverStale() {
   const stamp = path.join(SERVER_OUT, '.built');
   if (!fs.existsSync(stamp)) return true;
   const built = fs.statSync(stamp).mtimeMs;
-  return Math.max(newestMtime(['server', 'engine', 'shared', 'seeders']), fs.statSync(path.join(root, 'package-lock.json')).mtimeMs) >= built;
+  return (
+    Math.max(newestMtime(['server', 'engine', 'shared', 'seeders']), fs.statSync(path.join(root, 'package-lock.json')).mtimeMs) >= built
+  );
 }
 
 async function buildServer(opts = { ifStale, log }) {

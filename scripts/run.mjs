@@ -14,7 +14,8 @@ if (!SOURCES[name]) {
 }
 const built = path.join(root, 'dist', 'server', `${name}.js`);
 const stamp = path.join(root, 'dist', 'server', '.built');
-const current = fs.existsSync(built) && fs.existsSync(stamp) && fs.statSync(stamp).mtimeMs > newestMtime(['server', 'engine', 'shared', 'seeders']);
+const current =
+  fs.existsSync(built) && fs.existsSync(stamp) && fs.statSync(stamp).mtimeMs > newestMtime(['server', 'engine', 'shared', 'seeders']);
 const tsx = path.join(root, 'node_modules', '.bin', 'tsx');
 let r;
 if (current || !fs.existsSync(tsx)) {

@@ -35,7 +35,11 @@ try {
   if ((env.NODE_ENV || 'development') === 'development') runBuilt('seed', ['--print'], env);
   else log(`NODE_ENV=${env.NODE_ENV}: no demo data is seeded (npm run db:seed loads it into a development database).`);
 
-  const server = spawn(process.execPath, ['--enable-source-maps', built('index')], { cwd: root, env, stdio: ['ignore', 'inherit', 'inherit', 'ipc'] });
+  const server = spawn(process.execPath, ['--enable-source-maps', built('index')], {
+    cwd: root,
+    env,
+    stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
+  });
   server.on('message', (m) => {
     if (m && m.type === 'listening') log(`Open http://127.0.0.1:${m.port} — Ctrl-C stops.`);
   });

@@ -43,7 +43,8 @@ function ensureChromium() {
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
   spawnSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
   const r = spawnSync('apt-get', ['install', '-y', '-qq', 'chromium', 'fonts-dejavu-core'], { stdio: 'inherit', env });
-  if (r.status !== 0 || !fs.existsSync('/usr/bin/chromium')) throw new Error('Could not install Chromium with apt-get; browser tests need /usr/bin/chromium.');
+  if (r.status !== 0 || !fs.existsSync('/usr/bin/chromium'))
+    throw new Error('Could not install Chromium with apt-get; browser tests need /usr/bin/chromium.');
 }
 
 let dir = null;
@@ -73,6 +74,8 @@ try {
     runBin('vue-tsc', ['--noEmit', '-p', 'tsconfig.json']);
     log('Linting (eslint) …');
     runBin('eslint', ['.', '--max-warnings=0']);
+    log('Checking formatting (prettier) …');
+    runBin('prettier', ['--check', '.', '--log-level', 'warn']);
   }
   dir = makeTempClusterDir('lanewright-test-');
   const port = await freePort();

@@ -15,10 +15,28 @@ export interface DemoBall {
 /** The demo bowlers' arsenals (catalogue names from catalogue.ts). */
 export const DEMO_ARSENALS: Record<string, DemoBall[]> = {
   'dana@copperline.example': [
-    { model: 'Thunderhead Talon', nickname: 'Big Red', weightLb: 15, surfaceGrit: 2000, polished: false, layout: { pinToPapIn: 4.5, drillingAngleDeg: 50, valAngleDeg: 40 }, games: 24,
-      history: [[2000, false, 120, 'Out of the box'], [4000, false, 60, 'Took it to 4000 for the summer league'], [2000, false, 14, 'Back to 2000 for the heavier fall shot']] },
+    {
+      model: 'Thunderhead Talon',
+      nickname: 'Big Red',
+      weightLb: 15,
+      surfaceGrit: 2000,
+      polished: false,
+      layout: { pinToPapIn: 4.5, drillingAngleDeg: 50, valAngleDeg: 40 },
+      games: 24,
+      history: [
+        [2000, false, 120, 'Out of the box'],
+        [4000, false, 60, 'Took it to 4000 for the summer league'],
+        [2000, false, 14, 'Back to 2000 for the heavier fall shot'],
+      ],
+    },
     { model: 'Crosswind Falchion', weightLb: 15, layout: { pinToPapIn: 5, drillingAngleDeg: 45, valAngleDeg: 45 }, games: 40 },
-    { model: 'Skylark Arc', nickname: 'Backend', weightLb: 15, layout: { pinToPapIn: 3.5, drillingAngleDeg: 60, valAngleDeg: 30 }, games: 12 },
+    {
+      model: 'Skylark Arc',
+      nickname: 'Backend',
+      weightLb: 15,
+      layout: { pinToPapIn: 3.5, drillingAngleDeg: 60, valAngleDeg: 30 },
+      games: 12,
+    },
     { model: 'Deep Root', weightLb: 15, surfaceGrit: 1000, polished: false, layout: { pinToPapIn: 5.5, drillingAngleDeg: 40 }, games: 8 },
     { model: 'Silver Birch Snap', weightLb: 15, layout: { pinToPapIn: 4, drillingAngleDeg: 70 }, games: 55 },
     { model: 'Old Growth', nickname: 'Control', weightLb: 15, layout: { pinToPapIn: 5, drillingAngleDeg: 45 }, games: 30 },

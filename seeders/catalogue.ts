@@ -1,6 +1,17 @@
 import type { BallModelInput } from '../shared/balls';
 
-type Row = [maker: string, name: string, cover: BallModelInput['coverType'], rg: number, diff: number, intDiff: number, grit: number, polished: boolean, hardness: number, year: number];
+type Row = [
+  maker: string,
+  name: string,
+  cover: BallModelInput['coverType'],
+  rg: number,
+  diff: number,
+  intDiff: number,
+  grit: number,
+  polished: boolean,
+  hardness: number,
+  year: number,
+];
 
 /**
  * The demo catalogue: invented makers and balls, every spec inside the current legal limits
@@ -49,16 +60,18 @@ const ROWS: Row[] = [
   ['Kestrel Works', 'Dusk Hover', 'reactive-pearl', 2.57, 0.034, 0, 4000, true, 79, 2023],
 ];
 
-export const DEMO_CATALOGUE: BallModelInput[] = ROWS.map(([maker, name, coverType, rg, differential, intermediateDifferential, factoryGrit, factoryPolished, hardnessD, releaseYear]) => ({
-  maker,
-  name,
-  coverType,
-  coreType: intermediateDifferential > 0 ? 'asymmetric' : 'symmetric',
-  rg,
-  differential,
-  intermediateDifferential,
-  factoryGrit,
-  factoryPolished,
-  hardnessD,
-  releaseYear,
-}));
+export const DEMO_CATALOGUE: BallModelInput[] = ROWS.map(
+  ([maker, name, coverType, rg, differential, intermediateDifferential, factoryGrit, factoryPolished, hardnessD, releaseYear]) => ({
+    maker,
+    name,
+    coverType,
+    coreType: intermediateDifferential > 0 ? 'asymmetric' : 'symmetric',
+    rg,
+    differential,
+    intermediateDifferential,
+    factoryGrit,
+    factoryPolished,
+    hardnessD,
+    releaseYear,
+  }),
+);

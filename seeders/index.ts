@@ -18,7 +18,10 @@ export async function seedDemo(): Promise<boolean> {
   if ((await User.count()) > 0) return false;
   await sequelize.transaction(async (transaction) => {
     const users = await seedUsers(transaction);
-    const models = await BallModel.bulkCreate(DEMO_CATALOGUE.map((m) => ({ ...m, hardnessD: m.hardnessD ?? null, releaseYear: m.releaseYear ?? null })), { transaction });
+    const models = await BallModel.bulkCreate(
+      DEMO_CATALOGUE.map((m) => ({ ...m, hardnessD: m.hardnessD ?? null, releaseYear: m.releaseYear ?? null })),
+      { transaction },
+    );
     const byName = new Map(models.map((m) => [m.name, m]));
 
     const owner = users.get('owner@copperline.example')!;
@@ -28,27 +31,45 @@ export async function seedDemo(): Promise<boolean> {
       for (const k of ['lengthClass', 'volumeClass', 'ratioClass'] as const) {
         if (summary[k] !== p.expect[k]) throw new Error(`demo pattern ${p.name}: ${k} is ${summary[k]}, designed as ${p.expect[k]}`);
       }
-      patterns.push(await Pattern.create({ ownerId: owner.id, name: p.name, description: p.description, sweeps: p.sweeps, summary }, { transaction }));
+      patterns.push(
+        await Pattern.create({ ownerId: owner.id, name: p.name, description: p.description, sweeps: p.sweeps, summary }, { transaction }),
+      );
     }
 
     // Copperline Bowl, Harrow Bay: 24 lanes, the house shot in force on 1–20 and the sport pattern on 21–24.
     const center = await Center.create({ name: 'Copperline Bowl', town: 'Harrow Bay', laneCount: 24, ownerId: owner.id }, { transaction });
-    await Lane.bulkCreate(Array.from({ length: 24 }, (_, i) => ({ centerId: center.id, number: i + 1, notes: null })), { transaction });
+    await Lane.bulkCreate(
+      Array.from({ length: 24 }, (_, i) => ({ centerId: center.id, number: i + 1, notes: null })),
+      { transaction },
+    );
     await Center.create({ name: 'Gullwing Lanes', town: 'Stonereach', laneCount: 16, ownerId: null }, { transaction });
     await seedShop(center.id, transaction);
     const weekAgo = new Date(Date.now() - 7 * DAY_MS);
     const house = patterns[0];
     await Condition.create(
       {
-        centerId: center.id, patternId: house.id, patternName: house.name, sweeps: house.sweeps, summary: house.summary, lanes: Array.from({ length: 24 }, (_, i) => i + 1),
-        validFrom: weekAgo.toISOString().slice(0, 10), validTo: null, notes: 'Lanes stripped and oiled every morning at 9. Approaches cleaned nightly.', publishedAt: weekAgo, publishedBy: owner.id,
+        centerId: center.id,
+        patternId: house.id,
+        patternName: house.name,
+        sweeps: house.sweeps,
+        summary: house.summary,
+        lanes: Array.from({ length: 24 }, (_, i) => i + 1),
+        validFrom: weekAgo.toISOString().slice(0, 10),
+        validTo: null,
+        notes: 'Lanes stripped and oiled every morning at 9. Approaches cleaned nightly.',
+        publishedAt: weekAgo,
+        publishedBy: owner.id,
         // Synthetic panels with a textured top sheet: the ball grips hard once it leaves the oil.
-        laneKind: 'synthetic', laneFriction: 'high',
+        laneKind: 'synthetic',
+        laneFriction: 'high',
       },
       { transaction },
     );
     for (const email of ['dana@copperline.example', 'lee@copperline.example', 'coach@copperline.example']) {
-      await Follow.create({ userId: users.get(email)!.id, centerId: center.id, unsubscribeToken: crypto.randomBytes(24).toString('base64url') }, { transaction });
+      await Follow.create(
+        { userId: users.get(email)!.id, centerId: center.id, unsubscribeToken: crypto.randomBytes(24).toString('base64url') },
+        { transaction },
+      );
     }
 
     const now = Date.now();
@@ -61,9 +82,23 @@ export async function seedDemo(): Promise<boolean> {
         const polished = d.polished ?? m.factoryPolished;
         const ball = await Ball.create(
           {
-            ownerId: user.id, ballModelId: m.id, name: m.name, maker: m.maker, nickname: d.nickname ?? null, weightLb: d.weightLb, rg: m.rg,
-            differential: m.differential, intermediateDifferential: m.intermediateDifferential, coverType: m.coverType, coreType: m.coreType,
-            hardnessD: m.hardnessD, approvalYear: m.releaseYear, surfaceGrit: grit, polished, layout: d.layout, gamesSinceResurface: d.games,
+            ownerId: user.id,
+            ballModelId: m.id,
+            name: m.name,
+            maker: m.maker,
+            nickname: d.nickname ?? null,
+            weightLb: d.weightLb,
+            rg: m.rg,
+            differential: m.differential,
+            intermediateDifferential: m.intermediateDifferential,
+            coverType: m.coverType,
+            coreType: m.coreType,
+            hardnessD: m.hardnessD,
+            approvalYear: m.releaseYear,
+            surfaceGrit: grit,
+            polished,
+            layout: d.layout,
+            gamesSinceResurface: d.games,
           },
           { transaction },
         );
@@ -71,7 +106,16 @@ export async function seedDemo(): Promise<boolean> {
         let prev: [number, boolean] | null = null;
         for (const [g, pol, daysAgo, note] of history) {
           await SurfaceEvent.create(
-            { ballId: ball.id, fromGrit: prev?.[0] ?? null, fromPolished: prev?.[1] ?? null, toGrit: g, toPolished: pol, at: new Date(now - daysAgo * DAY_MS), byUserId: user.id, note },
+            {
+              ballId: ball.id,
+              fromGrit: prev?.[0] ?? null,
+              fromPolished: prev?.[1] ?? null,
+              toGrit: g,
+              toPolished: pol,
+              at: new Date(now - daysAgo * DAY_MS),
+              byUserId: user.id,
+              note,
+            },
             { transaction },
           );
           prev = [g, pol];

@@ -21,19 +21,46 @@ export const DEMO_USERS: DemoUser[] = [
     email: 'coach@copperline.example',
     displayName: 'Tobias Wren',
     role: 'coach',
-    profile: { hand: 'right', speedMph: 17.5, revRpm: 340, axisRotationDeg: 45, axisTiltDeg: 12, papRightIn: 5.25, papUpIn: 0.5, units: 'imperial' },
+    profile: {
+      hand: 'right',
+      speedMph: 17.5,
+      revRpm: 340,
+      axisRotationDeg: 45,
+      axisTiltDeg: 12,
+      papRightIn: 5.25,
+      papUpIn: 0.5,
+      units: 'imperial',
+    },
   },
   {
     email: 'dana@copperline.example',
     displayName: 'Dana Holloway',
     role: 'bowler',
-    profile: { hand: 'right', speedMph: 16.5, revRpm: 380, axisRotationDeg: 50, axisTiltDeg: 14, papRightIn: 5.5, papUpIn: 0.75, units: 'imperial' },
+    profile: {
+      hand: 'right',
+      speedMph: 16.5,
+      revRpm: 380,
+      axisRotationDeg: 50,
+      axisTiltDeg: 14,
+      papRightIn: 5.5,
+      papUpIn: 0.75,
+      units: 'imperial',
+    },
   },
   {
     email: 'lee@copperline.example',
     displayName: 'Lee Marchetti',
     role: 'bowler',
-    profile: { hand: 'left', speedMph: 18.5, revRpm: 260, axisRotationDeg: 35, axisTiltDeg: 18, papRightIn: 4.75, papUpIn: 0.25, units: 'metric' },
+    profile: {
+      hand: 'left',
+      speedMph: 18.5,
+      revRpm: 260,
+      axisRotationDeg: 35,
+      axisTiltDeg: 18,
+      papRightIn: 4.75,
+      papUpIn: 0.25,
+      units: 'metric',
+    },
   },
 ];
 
@@ -42,7 +69,10 @@ export async function seedUsers(transaction: Transaction): Promise<Map<string, U
   const byEmail = new Map<string, User>();
   for (const d of DEMO_USERS) {
     // The demo accounts' addresses count as confirmed (they are invented; nobody could follow a link).
-    const user = await User.create({ email: d.email, passwordHash, displayName: d.displayName, role: d.role, emailVerifiedAt: new Date() }, { transaction });
+    const user = await User.create(
+      { email: d.email, passwordHash, displayName: d.displayName, role: d.role, emailVerifiedAt: new Date() },
+      { transaction },
+    );
     if (d.profile) await BowlerProfile.create({ userId: user.id, ...d.profile }, { transaction });
     byEmail.set(d.email, user);
   }
@@ -51,6 +81,9 @@ export async function seedUsers(transaction: Transaction): Promise<Map<string, U
 
 /** A database seeded before addresses were verified: the demo accounts still count as confirmed. */
 export async function verifyDemoUsers(): Promise<number> {
-  const [count] = await User.update({ emailVerifiedAt: new Date() }, { where: { email: DEMO_USERS.map((d) => d.email), emailVerifiedAt: null } });
+  const [count] = await User.update(
+    { emailVerifiedAt: new Date() },
+    { where: { email: DEMO_USERS.map((d) => d.email), emailVerifiedAt: null } },
+  );
   return count;
 }

@@ -68,9 +68,15 @@ export function createApp(): Express {
   const dist = path.resolve(config.CLIENT_DIST);
   const indexHtml = path.join(dist, 'index.html');
   if (fs.existsSync(indexHtml)) {
-    app.use(express.static(dist, { index: false, maxAge: '1h', setHeaders: (res, file) => {
-      if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
-    } }));
+    app.use(
+      express.static(dist, {
+        index: false,
+        maxAge: '1h',
+        setHeaders: (res, file) => {
+          if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+        },
+      }),
+    );
     app.get(/^(?!\/api\/).*/, (_req, res) => {
       res.setHeader('Cache-Control', 'no-cache');
       res.sendFile(indexHtml);

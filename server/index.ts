@@ -21,10 +21,19 @@ const server = app.listen(config.PORT, config.HOST, () => {
   const addr = server.address();
   const port = typeof addr === 'object' && addr ? addr.port : config.PORT;
   setListeningPort(port);
-  logger.info({ url: `http://${config.HOST}:${port}`, publicUrl: publicUrl(), jwtSecret: config.jwtSecretSource }, 'Lanewright is listening');
+  logger.info(
+    { url: `http://${config.HOST}:${port}`, publicUrl: publicUrl(), jwtSecret: config.jwtSecretSource },
+    'Lanewright is listening',
+  );
   // Without a configured payment key the local fake runs in-process and delivers its webhooks here.
   const fake = paymentFake();
-  void (fake ? setPaymentWebhookTarget(`http://${['0.0.0.0', '::', ''].includes(config.HOST) ? '127.0.0.1' : config.HOST}:${port}/api/payments/webhook`) : Promise.resolve())
+  void (
+    fake
+      ? setPaymentWebhookTarget(
+          `http://${['0.0.0.0', '::', ''].includes(config.HOST) ? '127.0.0.1' : config.HOST}:${port}/api/payments/webhook`,
+        )
+      : Promise.resolve()
+  )
     .catch((err: unknown) => logger.error({ err }, 'the local payment fake did not start'))
     .finally(() => process.send?.({ type: 'listening', port }));
 });

@@ -102,6 +102,9 @@ export const ResetSchema = z.object({
 export type ResetInput = z.infer<typeof ResetSchema>;
 
 export const VerifyEmailSchema = z.object({
-  token: z.string({ error: 'The verification token is missing' }).min(20, 'The verification token is not valid').max(200, 'The verification token is not valid'),
+  token: z
+    .string({ error: 'The verification token is missing' })
+    .min(20, 'The verification token is not valid')
+    .max(200, 'The verification token is not valid'),
 });
 export type VerifyEmailInput = z.infer<typeof VerifyEmailSchema>;

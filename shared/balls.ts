@@ -3,7 +3,13 @@ import { isSafeName, UNSAFE_NAME_MESSAGE } from './text';
 import type { ArsenalBall, BallSpec, CoverType } from '../engine/types';
 import { PageQuerySchema } from './auth';
 
-export const COVER_TYPES = ['plastic', 'urethane', 'reactive-pearl', 'reactive-hybrid', 'reactive-solid'] as const satisfies readonly CoverType[];
+export const COVER_TYPES = [
+  'plastic',
+  'urethane',
+  'reactive-pearl',
+  'reactive-hybrid',
+  'reactive-solid',
+] as const satisfies readonly CoverType[];
 export const CoverTypeSchema = z.enum(COVER_TYPES, { error: 'Choose a cover type' });
 export const CORE_TYPES = ['symmetric', 'asymmetric'] as const;
 export const CoreTypeSchema = z.enum(CORE_TYPES, { error: 'Choose symmetric or asymmetric' });
@@ -35,7 +41,10 @@ export type Surface = z.infer<typeof SurfaceSchema>;
  * of those (or has a zero denominator). Common practice: layout sheets give distances to the nearest 1/8 or 1/16 in.
  */
 export function parsePinToPapIn(text: string): number | null {
-  const t = text.trim().replace(/\s*(in|inch|inches|"|″)$/i, '').trim();
+  const t = text
+    .trim()
+    .replace(/\s*(in|inch|inches|"|″)$/i, '')
+    .trim();
   if (/^\d+(\.\d+)?$|^\.\d+$/.test(t)) return Number(t);
   const m = /^(?:(\d+)(?:\s+|\s*-\s*))?(\d+)\s*\/\s*(\d+)$/.exec(t);
   if (!m) return null;
@@ -155,10 +164,20 @@ const ballBase = {
 
 /** A ball added from the catalogue: specs copied from the model; surface defaults to the factory finish. */
 export const BallFromModelSchema = z
-  .object({ ballModelId: z.number({ error: 'Choose a catalogue ball' }).int().positive(), ...ballBase, surfaceGrit: SurfaceSchema.shape.surfaceGrit.optional(), polished: z.boolean().optional() })
+  .object({
+    ballModelId: z.number({ error: 'Choose a catalogue ball' }).int().positive(),
+    ...ballBase,
+    surfaceGrit: SurfaceSchema.shape.surfaceGrit.optional(),
+    polished: z.boolean().optional(),
+  })
   .strict();
 /** A ball entered by hand. */
-export const BallByHandSchema = CoreSpecSchema.extend({ name: z.string().trim().min(1, 'Name is required').max(80).refine(isSafeName, UNSAFE_NAME_MESSAGE), coreType: CoreTypeSchema, ...ballBase, ...SurfaceSchema.shape }).strict();
+export const BallByHandSchema = CoreSpecSchema.extend({
+  name: z.string().trim().min(1, 'Name is required').max(80).refine(isSafeName, UNSAFE_NAME_MESSAGE),
+  coreType: CoreTypeSchema,
+  ...ballBase,
+  ...SurfaceSchema.shape,
+}).strict();
 
 /** Either kind of new ball; a body with `ballModelId` is checked as a catalogue ball, any other as hand-entered (so field errors are specific). */
 export const BallCreateSchema = z.union([BallFromModelSchema, BallByHandSchema]);
@@ -223,7 +242,9 @@ export const BallSchema = z.object({
   approvalYear: z.number().int().nullable(),
   surfaceGrit: z.number().int(),
   polished: z.boolean(),
-  layout: z.object({ pinToPapIn: z.number(), drillingAngleDeg: z.number().nullable().optional(), valAngleDeg: z.number().nullable().optional() }).nullable(),
+  layout: z
+    .object({ pinToPapIn: z.number(), drillingAngleDeg: z.number().nullable().optional(), valAngleDeg: z.number().nullable().optional() })
+    .nullable(),
   gamesSinceResurface: z.number().int(),
   status: z.enum(BALL_STATUSES),
   /** True when the owner uploaded a photo: GET /api/arsenal/:id/photo (with the bearer token). */
@@ -242,7 +263,17 @@ export type ArsenalImportResult = z.infer<typeof ArsenalImportResultSchema>;
 /** The fields of a stored ball the engine reads. */
 export type BallSpecSource = Pick<
   Ball,
-  'weightLb' | 'rg' | 'differential' | 'intermediateDifferential' | 'coverType' | 'surfaceGrit' | 'polished' | 'hardnessD' | 'layout' | 'gamesSinceResurface' | 'approvalYear'
+  | 'weightLb'
+  | 'rg'
+  | 'differential'
+  | 'intermediateDifferential'
+  | 'coverType'
+  | 'surfaceGrit'
+  | 'polished'
+  | 'hardnessD'
+  | 'layout'
+  | 'gamesSinceResurface'
+  | 'approvalYear'
 >;
 
 /**

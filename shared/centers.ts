@@ -10,10 +10,13 @@ export const LANE_FRICTIONS = ['low', 'medium', 'high'] as const satisfies reado
 
 /** The lane surface a condition is bowled on: its material and how much friction it has (the engine's LaneSurface). */
 export const LaneSurfaceSchema = z
-  .object({
-    kind: z.enum(LANE_KINDS, { error: 'The lanes are wood or synthetic' }),
-    friction: z.enum(LANE_FRICTIONS, { error: 'Lane friction is low, medium or high' }),
-  }, { error: 'Give the lane surface as { kind, friction }' })
+  .object(
+    {
+      kind: z.enum(LANE_KINDS, { error: 'The lanes are wood or synthetic' }),
+      friction: z.enum(LANE_FRICTIONS, { error: 'Lane friction is low, medium or high' }),
+    },
+    { error: 'Give the lane surface as { kind, friction }' },
+  )
   .strict();
 
 /** The engine's default lane surface, and what a condition published before lane surfaces were recorded was bowled on. */
@@ -51,7 +54,9 @@ export const PublishConditionSchema = z
   .object({
     patternId: z.number({ error: 'Choose a pattern' }).int().positive(),
     lanes: z
-      .array(z.number({ error: 'Lane numbers are whole numbers' }).int('Lane numbers are whole numbers').min(1, 'Lanes start at 1'), { error: 'Choose the lanes' })
+      .array(z.number({ error: 'Lane numbers are whole numbers' }).int('Lane numbers are whole numbers').min(1, 'Lanes start at 1'), {
+        error: 'Choose the lanes',
+      })
       .min(1, 'Choose at least one lane')
       .max(120),
     validFrom: isoDate,
@@ -65,7 +70,12 @@ export const PublishConditionSchema = z
 export type PublishCondition = z.infer<typeof PublishConditionSchema>;
 
 /** A published condition. The pattern's sweeps and numbers are a snapshot taken when it was published. */
-const ConditionPatternSchema = z.object({ id: z.number().int().nullable(), name: z.string(), sweeps: z.array(SweepSchema), summary: PatternSummarySchema });
+const ConditionPatternSchema = z.object({
+  id: z.number().int().nullable(),
+  name: z.string(),
+  sweeps: z.array(SweepSchema),
+  summary: PatternSummarySchema,
+});
 
 export const ConditionSchema = z.object({
   id: z.number().int(),

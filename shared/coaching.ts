@@ -16,7 +16,12 @@ export type PlanKind = (typeof PLAN_KINDS)[number];
 
 export const PlanCreateSchema = z
   .object({
-    title: z.string({ error: 'A title is required' }).trim().min(1, 'A title is required').max(120, 'At most 120 characters').refine(isSafeName, UNSAFE_NAME_MESSAGE),
+    title: z
+      .string({ error: 'A title is required' })
+      .trim()
+      .min(1, 'A title is required')
+      .max(120, 'At most 120 characters')
+      .refine(isSafeName, UNSAFE_NAME_MESSAGE),
     kind: z.enum(PLAN_KINDS, { error: 'Choose surface, layout or line' }),
     body: z.string({ error: 'Write the plan' }).trim().min(1, 'Write the plan').max(5000, 'At most 5000 characters'),
     ballId: z.number({ error: 'ballId must be an id (a number)' }).int().positive().max(2147483647).nullable().optional(),

@@ -3,7 +3,12 @@ import type { ArsenalCoverage, LayoutLabEntry, TrialComparison } from '../engine
 import { engineValue } from './api';
 import { LayoutSchema, PinToPapTextSchema } from './balls';
 
-const id = (label: string) => z.number({ error: `${label} must be an id (a number)` }).int(`${label} must be a whole number`).positive(`${label} must be positive`).max(2147483647);
+const id = (label: string) =>
+  z
+    .number({ error: `${label} must be an id (a number)` })
+    .int(`${label} must be a whole number`)
+    .positive(`${label} must be positive`)
+    .max(2147483647);
 const queryId = z.coerce.number({ error: 'Must be a number' }).int('Must be a whole number').positive('Must be positive').max(2147483647);
 const isoDate = z.iso.date({ error: 'Use a date like 2026-12-01' });
 
@@ -25,7 +30,10 @@ export const TrialCreateSchema = z
       .array(TrialArmInputSchema, { error: 'Choose the balls to compare' })
       .min(2, 'A trial compares at least two balls')
       .max(TRIAL_MAX_ARMS, `A trial compares at most ${TRIAL_MAX_ARMS} balls`)
-      .refine((arms) => new Set(arms.map((a) => `${a.ballId}|${a.surfaceKey ?? ''}`)).size === arms.length, 'Each arm must be a different ball or surface'),
+      .refine(
+        (arms) => new Set(arms.map((a) => `${a.ballId}|${a.surfaceKey ?? ''}`)).size === arms.length,
+        'Each arm must be a different ball or surface',
+      ),
     /** Count only shots from sessions on this pattern (a condition's pattern); any pattern when left out. */
     patternId: id('patternId').nullable().optional(),
     startDate: isoDate.optional(),
@@ -85,7 +93,10 @@ export const LayoutLabSchema = z
       .max(4, 'At most 4 layouts side by side'),
   })
   .strict()
-  .refine((v) => (v.patternId === undefined) !== (v.conditionId === undefined), { message: 'Choose a pattern or a published condition', path: ['patternId'] });
+  .refine((v) => (v.patternId === undefined) !== (v.conditionId === undefined), {
+    message: 'Choose a pattern or a published condition',
+    path: ['patternId'],
+  });
 export type LayoutLabRequest = z.infer<typeof LayoutLabSchema>;
 /** What a client sends (pin-to-PAP may be text as the pro shop writes it). */
 export type LayoutLabInput = z.input<typeof LayoutLabSchema>;

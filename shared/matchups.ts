@@ -8,7 +8,12 @@ import { BallSchema } from './balls';
 import { LaneSurfaceSchema } from './centers';
 import { PatternSummarySchema, SweepSchema } from './patterns';
 
-const id = (label: string, what: string) => z.number({ error: `${label} must be ${what} (a number)` }).int(`${label} must be a whole number`).positive(`${label} must be positive`).max(2147483647);
+const id = (label: string, what: string) =>
+  z
+    .number({ error: `${label} must be ${what} (a number)` })
+    .int(`${label} must be a whole number`)
+    .positive(`${label} must be positive`)
+    .max(2147483647);
 
 /**
  * A matchup: the arsenal (or the chosen balls) ranked for a plain pattern (`patternId`, on the lane surface `lane`,
@@ -32,7 +37,11 @@ export const MatchupRequestSchema = z
     if (r.patternId !== undefined && r.conditionId !== undefined)
       ctx.addIssue({ code: 'custom', path: ['conditionId'], message: 'Give either a pattern or a published condition, not both' });
     if (r.conditionId !== undefined && r.lane !== undefined)
-      ctx.addIssue({ code: 'custom', path: ['lane'], message: 'A published condition names its own lane surface: send lane only with patternId' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['lane'],
+        message: 'A published condition names its own lane surface: send lane only with patternId',
+      });
   });
 export type MatchupRequest = z.infer<typeof MatchupRequestSchema>;
 
@@ -87,7 +96,14 @@ export const MatchupResultSchema = z.object({
   pattern: z.object({ id: z.number().int().nullable(), name: z.string(), summary: PatternSummarySchema, sweeps: z.array(SweepSchema) }),
   /** The published condition, when the matchup was for one. */
   condition: z
-    .object({ id: z.number().int(), centerId: z.number().int(), centerName: z.string(), lanes: z.array(z.number().int()), validFrom: z.string(), validTo: z.string().nullable() })
+    .object({
+      id: z.number().int(),
+      centerId: z.number().int(),
+      centerName: z.string(),
+      lanes: z.array(z.number().int()),
+      validFrom: z.string(),
+      validTo: z.string().nullable(),
+    })
     .nullable(),
   lane: LaneSurfaceSchema,
   /** The lane surface in words: "Synthetic lanes, high friction". */

@@ -28,7 +28,9 @@ export const PatternInputSchema = z
   })
   .strict();
 export type PatternInput = z.infer<typeof PatternInputSchema>;
-export const PatternPatchSchema = PatternInputSchema.partial().extend({ version: z.number().int().min(0) }).strict();
+export const PatternPatchSchema = PatternInputSchema.partial()
+  .extend({ version: z.number().int().min(0) })
+  .strict();
 
 export const PatternQuerySchema = PageQuerySchema.extend({
   q: z.string().trim().max(100).optional(),

@@ -6,7 +6,12 @@ import { LANE_FRICTIONS, LANE_KINDS, LaneSurfaceSchema } from './centers';
 import { AnnotationSchema } from './coaching';
 
 const isoDate = z.iso.date({ error: 'Use a date like 2026-12-01' });
-const id = (label: string) => z.number({ error: `${label} must be an id (a number)` }).int(`${label} must be a whole number`).positive(`${label} must be positive`).max(2147483647);
+const id = (label: string) =>
+  z
+    .number({ error: `${label} must be an id (a number)` })
+    .int(`${label} must be a whole number`)
+    .positive(`${label} must be positive`)
+    .max(2147483647);
 const queryId = z.coerce.number({ error: 'Must be a number' }).int('Must be a whole number').positive('Must be positive').max(2147483647);
 
 export const SESSION_KINDS = ['practice', 'league', 'tournament'] as const;
@@ -67,17 +72,36 @@ const board = (label: string) =>
 
 export const ShotCreateSchema = z
   .object({
-    gameNumber: z.number({ error: 'gameNumber must be a number' }).int('Whole games').min(1, 'Games start at 1').max(50, 'At most 50 games in a session'),
-    frame: z.number({ error: 'frame must be a number' }).int('Whole frames').min(1, 'A game has frames 1–10').max(10, 'A game has frames 1–10'),
-    delivery: z.number({ error: 'delivery must be a number' }).int('Whole deliveries').min(1, 'Deliveries start at 1').max(3, 'A frame has at most 3 deliveries (3 only in frame 10)'),
+    gameNumber: z
+      .number({ error: 'gameNumber must be a number' })
+      .int('Whole games')
+      .min(1, 'Games start at 1')
+      .max(50, 'At most 50 games in a session'),
+    frame: z
+      .number({ error: 'frame must be a number' })
+      .int('Whole frames')
+      .min(1, 'A game has frames 1–10')
+      .max(10, 'A game has frames 1–10'),
+    delivery: z
+      .number({ error: 'delivery must be a number' })
+      .int('Whole deliveries')
+      .min(1, 'Deliveries start at 1')
+      .max(3, 'A frame has at most 3 deliveries (3 only in frame 10)'),
     ballId: id('ballId'),
     feetBoard: board('Feet board'),
     targetBoard: board('Target board'),
     breakpointBoard: board('Breakpoint board'),
     standing: z
-      .array(z.number({ error: 'Pins are numbers 1–10' }).int('Pins are numbers 1–10').min(1, 'Pins are numbers 1–10').max(10, 'Pins are numbers 1–10'), {
-        error: 'List the pins standing after the delivery (an empty list for none)',
-      })
+      .array(
+        z
+          .number({ error: 'Pins are numbers 1–10' })
+          .int('Pins are numbers 1–10')
+          .min(1, 'Pins are numbers 1–10')
+          .max(10, 'Pins are numbers 1–10'),
+        {
+          error: 'List the pins standing after the delivery (an empty list for none)',
+        },
+      )
       .max(10, 'At most 10 pins')
       .refine((a) => new Set(a).size === a.length, 'A pin is listed twice'),
     foul: z.boolean({ error: 'Foul is yes or no' }).optional(),
@@ -199,8 +223,10 @@ export const CalibrationQuerySchema = z
     studentId: queryId.optional(),
   })
   .superRefine((q, ctx) => {
-    if (q.patternId === undefined && q.conditionId === undefined) ctx.addIssue({ code: 'custom', path: ['patternId'], message: 'Choose a pattern or a published condition' });
-    if (q.patternId !== undefined && q.conditionId !== undefined) ctx.addIssue({ code: 'custom', path: ['conditionId'], message: 'Give either a pattern or a published condition, not both' });
+    if (q.patternId === undefined && q.conditionId === undefined)
+      ctx.addIssue({ code: 'custom', path: ['patternId'], message: 'Choose a pattern or a published condition' });
+    if (q.patternId !== undefined && q.conditionId !== undefined)
+      ctx.addIssue({ code: 'custom', path: ['conditionId'], message: 'Give either a pattern or a published condition, not both' });
     if (q.conditionId !== undefined && (q.laneKind !== undefined || q.laneFriction !== undefined))
       ctx.addIssue({ code: 'custom', path: ['laneKind'], message: 'A published condition names its own lane surface' });
   });

@@ -27,7 +27,12 @@ const grit = z.number({ error: 'Grit is a number' }).int('Whole grit').min(100, 
 
 const serviceFields = {
   kind: ServiceKindSchema,
-  name: z.string({ error: 'Name is required' }).trim().min(1, 'Name is required').max(80, 'At most 80 characters').refine(isSafeName, UNSAFE_NAME_MESSAGE),
+  name: z
+    .string({ error: 'Name is required' })
+    .trim()
+    .min(1, 'Name is required')
+    .max(80, 'At most 80 characters')
+    .refine(isSafeName, UNSAFE_NAME_MESSAGE),
   grit: grit.nullable().optional(),
   description: z.string().trim().max(500, 'At most 500 characters').nullable().optional(),
   priceCents,
@@ -87,7 +92,9 @@ export type PaymentStatus = (typeof PAYMENT_STATUSES)[number];
 
 /** The shop's forward moves (from paid); 'ready' on a surface service updates the ball. */
 export const SHOP_STATUS_MOVES = ['in_progress', 'ready', 'collected'] as const;
-export const OrderStatusChangeSchema = z.object({ status: z.enum(SHOP_STATUS_MOVES, { error: 'Choose in_progress, ready or collected' }) }).strict();
+export const OrderStatusChangeSchema = z
+  .object({ status: z.enum(SHOP_STATUS_MOVES, { error: 'Choose in_progress, ready or collected' }) })
+  .strict();
 export type OrderStatusChange = z.infer<typeof OrderStatusChangeSchema>;
 
 /**
@@ -183,7 +190,15 @@ export function formatMoney(cents: number, currency = 'usd', locale = 'en-US'): 
  * ends off that line. The shop moves a paid order forward ('ready' may skip 'in progress'); 'collected'
  * comes only after 'ready'.
  */
-const ORDER_STEP: Readonly<Record<OrderStatus, number>> = { ordered: 0, paid: 1, in_progress: 2, ready: 3, collected: 4, cancelled: -1, refunded: -1 };
+const ORDER_STEP: Readonly<Record<OrderStatus, number>> = {
+  ordered: 0,
+  paid: 1,
+  in_progress: 2,
+  ready: 3,
+  collected: 4,
+  cancelled: -1,
+  refunded: -1,
+};
 export type ShopMove = (typeof SHOP_STATUS_MOVES)[number];
 
 /** Whether the shop may move an order from `from` to `to`. */
@@ -212,7 +227,8 @@ export const SHOP_CAUTIONS = {
     'Drilling, plugging and fitting are work for a qualified pro-shop technician; a new layout changes how the ball reacts, so talk the layout through with the technician first.',
   surface:
     'Resurfacing and polishing use abrasives and solvents: the shop works with eye and dust protection and follows the ball maker’s instructions. If you sand at home, do the same.',
-  rules: 'Check your league’s or tournament’s equipment rules before a surface change or a redrill (some events fix the surface or forbid changes during play).',
+  rules:
+    'Check your league’s or tournament’s equipment rules before a surface change or a redrill (some events fix the surface or forbid changes during play).',
   oil: 'Oil extraction heats the ball: it is the shop’s job, not an oven at home.',
 } as const;
 

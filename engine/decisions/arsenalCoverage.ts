@@ -70,7 +70,11 @@ export interface ArsenalCoverage {
 }
 
 const coverWords: Record<string, string> = {
-  'reactive-solid': 'solid reactive', 'reactive-hybrid': 'hybrid reactive', 'reactive-pearl': 'pearl reactive', urethane: 'urethane', plastic: 'plastic',
+  'reactive-solid': 'solid reactive',
+  'reactive-hybrid': 'hybrid reactive',
+  'reactive-pearl': 'pearl reactive',
+  urethane: 'urethane',
+  plastic: 'plastic',
 };
 
 function kindOf(spec: BallSpec): string {
@@ -79,7 +83,10 @@ function kindOf(spec: BallSpec): string {
 }
 
 /** A catalogue model with the finish of SURFACE_STEPS (or its factory finish) that brings it closest to the condition. */
-function bestFinish(c: CatalogueCandidate, ctx: ReturnType<typeof matchupContext>): { c: CatalogueCandidate; fit: ReturnType<typeof strengthFit> } {
+function bestFinish(
+  c: CatalogueCandidate,
+  ctx: ReturnType<typeof matchupContext>,
+): { c: CatalogueCandidate; fit: ReturnType<typeof strengthFit> } {
   const options = [c.spec, ...SURFACE_STEPS.map((s) => ({ ...c.spec, ...s }))];
   let best = { c, fit: strengthFit(c.spec, ctx) };
   for (const spec of options) {
@@ -117,11 +124,21 @@ export function arsenalCoverage(input: {
   for (const cond of input.conditions) {
     for (const games of COVERAGE_RULES.transitionGames) {
       const ctx = matchupContext(input.bowler, cond.pattern, games, fn, cond.lane);
-      const fits = strike.map((b) => ({ ballId: b.id, fit: strengthFit(b, ctx) })).sort((x, y) => Math.abs(x.fit.gap) - Math.abs(y.fit.gap));
+      const fits = strike
+        .map((b) => ({ ballId: b.id, fit: strengthFit(b, ctx) }))
+        .sort((x, y) => Math.abs(x.fit.gap) - Math.abs(y.fit.gap));
       const covering = fits.filter((f) => f.fit.verdict === 'suits').map((f) => f.ballId);
-      cells.push({ conditionId: cond.id, label: cond.label, gamesBowled: games, demand: ctx.demand.total, covering, gaps: fits.map((f) => ({ ballId: f.ballId, gap: f.fit.gap })) });
+      cells.push({
+        conditionId: cond.id,
+        label: cond.label,
+        gamesBowled: games,
+        demand: ctx.demand.total,
+        covering,
+        gaps: fits.map((f) => ({ ballId: f.ballId, gap: f.fit.gap })),
+      });
       if (covering.length > 0) continue;
-      const strong = fits.some((f) => f.fit.gap > 0), weak = fits.some((f) => f.fit.gap < 0);
+      const strong = fits.some((f) => f.fit.gap > 0),
+        weak = fits.some((f) => f.fit.gap < 0);
       const need: CoverageGap['need'] = strong && weak ? 'between' : strong ? 'less' : 'more';
       const candidates = catalogue
         .map((c) => bestFinish(c, ctx))
@@ -129,11 +146,30 @@ export function arsenalCoverage(input: {
         .sort((x, y) => Math.abs(x.fit.gap) - Math.abs(y.fit.gap))
         .slice(0, COVERAGE_RULES.suggestions);
       const nearest = fits[0] ? { ballId: fits[0].ballId, gap: fits[0].fit.gap } : null;
-      const direction = need === 'more' ? 'more ball than any in the bag' : need === 'less' ? 'less ball than any in the bag' : 'a ball between two in the bag';
+      const direction =
+        need === 'more'
+          ? 'more ball than any in the bag'
+          : need === 'less'
+            ? 'less ball than any in the bag'
+            : 'a ball between two in the bag';
       gaps.push({
-        conditionId: cond.id, label: cond.label, gamesBowled: games, demand: ctx.demand.total, need, nearest,
-        kind: candidates.length > 0 ? `${direction}: ${kindOf(candidates[0].c.spec)}` : `${direction}; no catalogue model suits it at any usual finish`,
-        suggestions: candidates.map((x) => ({ id: x.c.id, label: x.c.label, gap: x.fit.gap, surfaceGrit: x.c.spec.surfaceGrit, polished: x.c.spec.polished })),
+        conditionId: cond.id,
+        label: cond.label,
+        gamesBowled: games,
+        demand: ctx.demand.total,
+        need,
+        nearest,
+        kind:
+          candidates.length > 0
+            ? `${direction}: ${kindOf(candidates[0].c.spec)}`
+            : `${direction}; no catalogue model suits it at any usual finish`,
+        suggestions: candidates.map((x) => ({
+          id: x.c.id,
+          label: x.c.label,
+          gap: x.fit.gap,
+          surfaceGrit: x.c.spec.surfaceGrit,
+          polished: x.c.spec.polished,
+        })),
       });
     }
   }
@@ -143,10 +179,16 @@ export function arsenalCoverage(input: {
   const strength = new Map(strike.map((b) => [b.id, ballReaction(b).total]));
   for (let i = 0; i < strike.length; i++) {
     for (let j = i + 1; j < strike.length; j++) {
-      const a = strike[i], b = strike[j];
+      const a = strike[i],
+        b = strike[j];
       const difference = Math.round(Math.abs((strength.get(a.id) ?? 0) - (strength.get(b.id) ?? 0)) * 10) / 10;
       if (a.coverType === b.coverType && difference <= COVERAGE_RULES.duplicatePoints) {
-        duplicates.push({ a: a.id, b: b.id, difference, text: `${label(a.id)} and ${label(b.id)} do the same job: the same cover family and reactions ${difference.toFixed(1)} points apart.` });
+        duplicates.push({
+          a: a.id,
+          b: b.id,
+          difference,
+          text: `${label(a.id)} and ${label(b.id)} do the same job: the same cover family and reactions ${difference.toFixed(1)} points apart.`,
+        });
       }
     }
   }

@@ -96,10 +96,7 @@ function armResult(arm: TrialArmInput, hand: 'right' | 'left'): TrialArmResult {
   const boards = arm.shots.filter((s) => s.breakpointBoard != null && s.delivery === 1).map((s) => s.breakpointBoard as number);
   const bp = meanWithInterval(boards);
   const predicted = arm.predictedBreakpointBoard;
-  const pvo =
-    predicted == null || bp.n === 0
-      ? null
-      : { ...meanWithInterval(boards.map((b) => b - predicted)), predictedBoard: predicted };
+  const pvo = predicted == null || bp.n === 0 ? null : { ...meanWithInterval(boards.map((b) => b - predicted)), predictedBoard: predicted };
   return {
     id: arm.id,
     label: arm.label,
@@ -140,32 +137,54 @@ export function compareTrial(input: { arms: TrialArmInput[]; hand: 'right' | 'le
 
 function verdict(arms: TrialArmResult[]): TrialVerdict {
   const R = TRIAL_RULES;
-  const counts = arms.map((a) => ({ id: a.id, label: a.label, hits: a.strike.hits, n: a.strike.n, post: (1 + a.strike.hits) / (2 + a.strike.n) }));
+  const counts = arms.map((a) => ({
+    id: a.id,
+    label: a.label,
+    hits: a.strike.hits,
+    n: a.strike.n,
+    post: (1 + a.strike.hits) / (2 + a.strike.n),
+  }));
   const sorted = [...counts].sort((x, y) => y.post - x.post);
   const [lead, next] = sorted;
   const probability = probabilityBetter(lead, next);
   const test = twoProportionTest(lead, next);
   const fewest = counts.reduce((m, c) => (c.n < m.n ? c : m));
-  const p1 = lead.n > 0 ? lead.hits / lead.n : 0, p2 = next.n > 0 ? next.hits / next.n : 0;
-  const needed = p1 !== p2 ? shotsPerArm(p1, p2, R.alpha, R.power) : shotsPerArm(Math.min(0.95, p2 + R.smallestDifference), p2, R.alpha, R.power);
+  const p1 = lead.n > 0 ? lead.hits / lead.n : 0,
+    p2 = next.n > 0 ? next.hits / next.n : 0;
+  const needed =
+    p1 !== p2 ? shotsPerArm(p1, p2, R.alpha, R.power) : shotsPerArm(Math.min(0.95, p2 + R.smallestDifference), p2, R.alpha, R.power);
   const more = Math.max(0, needed - fewest.n);
   const pctP = probability >= 0.995 ? 'over 99 %' : probability <= 0.005 ? 'under 1 %' : `${Math.round(probability * 100)} %`;
   if (fewest.n < R.minFirstBalls) {
     return {
-      kind: 'not-enough', leaderId: lead.n > 0 && lead.post !== next.post ? lead.id : null, runnerUpId: next.id, probability, test,
+      kind: 'not-enough',
+      leaderId: lead.n > 0 && lead.post !== next.post ? lead.id : null,
+      runnerUpId: next.id,
+      probability,
+      test,
       moreShotsPerArm: Math.max(more, R.minFirstBalls - fewest.n),
       text: `Not enough shots yet: ${fewest.label} has ${fewest.n} first ball${fewest.n === 1 ? '' : 's'} at a full rack; a verdict needs at least ${R.minFirstBalls} in every arm.`,
     };
   }
   if (probability >= R.clearProbability) {
     return {
-      kind: 'clear', leaderId: lead.id, runnerUpId: next.id, probability, test, moreShotsPerArm: null,
+      kind: 'clear',
+      leaderId: lead.id,
+      runnerUpId: next.id,
+      probability,
+      test,
+      moreShotsPerArm: null,
       text: `${lead.label} strikes more often than ${next.label}: ${lead.hits} of ${lead.n} against ${next.hits} of ${next.n}, a probability of ${pctP} that it is truly better.`,
     };
   }
   const tied = lead.post === next.post;
   return {
-    kind: 'not-enough', leaderId: tied ? null : lead.id, runnerUpId: next.id, probability, test, moreShotsPerArm: more,
+    kind: 'not-enough',
+    leaderId: tied ? null : lead.id,
+    runnerUpId: next.id,
+    probability,
+    test,
+    moreShotsPerArm: more,
     text: tied
       ? `Not enough shots yet: no difference so far; telling a ${Math.round(R.smallestDifference * 100)}-point difference apart needs about ${needed} first balls in each arm.`
       : `Not enough shots yet: ${lead.label} leads (a probability of ${pctP} that it is better); at these rates about ${needed} first balls in each arm would settle it, ${more} more.`,

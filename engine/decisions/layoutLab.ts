@@ -34,7 +34,10 @@ export interface LayoutLabEntry {
 /** The drawing's extent: the whole ball, up to the point opposite the PAP (half the circumference of a full-size 8.595 in ball). */
 export const LAYOUT_MAP_RADIUS_IN = 13.5;
 
-const norm = (v: Vec): Vec => { const n = Math.hypot(v[0], v[1], v[2]); return [v[0] / n, v[1] / n, v[2] / n]; };
+const norm = (v: Vec): Vec => {
+  const n = Math.hypot(v[0], v[1], v[2]);
+  return [v[0] / n, v[1] / n, v[2] / n];
+};
 const cross = (a: Vec, b: Vec): Vec => [a[1] * b[2] - a[2] * b[1], a[2] * b[0] - a[0] * b[2], a[0] * b[1] - a[1] * b[0]];
 const dot = (a: Vec, b: Vec) => a[0] * b[0] + a[1] * b[1] + a[2] * b[2];
 const add = (a: Vec, b: Vec, s = 1): Vec => [a[0] + s * b[0], a[1] + s * b[1], a[2] + s * b[2]];
@@ -42,7 +45,8 @@ const scale = (a: Vec, s: number): Vec => [a[0] * s, a[1] * s, a[2] * s];
 
 /** Rodrigues' rotation of v about the unit axis k by angle a. */
 function rotate(v: Vec, k: Vec, a: number): Vec {
-  const c = Math.cos(a), s = Math.sin(a);
+  const c = Math.cos(a),
+    s = Math.sin(a);
   return add(add(scale(v, c), scale(cross(k, v), s)), scale(k, dot(k, v) * (1 - c)));
 }
 
@@ -59,11 +63,17 @@ function toMap(v: Vec, radiusIn: number): MapPoint | null {
 /** Points at angular distance `radiusRad` around the unit vector `centre`. */
 function circle(centre: Vec, radiusRad: number, points: number): Vec[] {
   const helper: Vec = Math.abs(centre[2]) < 0.9 ? [0, 0, 1] : [1, 0, 0];
-  const e1 = norm(cross(centre, helper)), e2 = cross(centre, e1);
+  const e1 = norm(cross(centre, helper)),
+    e2 = cross(centre, e1);
   const out: Vec[] = [];
   for (let i = 0; i <= points; i++) {
     const t = (2 * Math.PI * i) / points;
-    out.push(add(scale(centre, Math.cos(radiusRad)), add(scale(e1, Math.cos(t) * Math.sin(radiusRad)), scale(e2, Math.sin(t) * Math.sin(radiusRad)))));
+    out.push(
+      add(
+        scale(centre, Math.cos(radiusRad)),
+        add(scale(e1, Math.cos(t) * Math.sin(radiusRad)), scale(e2, Math.sin(t) * Math.sin(radiusRad))),
+      ),
+    );
   }
   return out;
 }
@@ -92,7 +102,14 @@ function layoutPoints(pinToPapIn: number, valAngleDeg: number, diameterIn: numbe
  * `flareIn` inches of arc from the PAP (the motion model's flare). Each axis position carries a track ring: the
  * circle of contact points at 90° + axis tilt from the axis (the contact is straight down; the axis is tilted up).
  */
-function flareRings(g: { pap: Vec; pin: Vec }, flareIn: number, tiltDeg: number, radiusIn: number, hand: 1 | -1, count: number): { axes: MapPoint[]; rings: MapPoint[][] } {
+function flareRings(
+  g: { pap: Vec; pin: Vec },
+  flareIn: number,
+  tiltDeg: number,
+  radiusIn: number,
+  hand: 1 | -1,
+  count: number,
+): { axes: MapPoint[]; rings: MapPoint[][] } {
   const th = Math.acos(Math.max(-1, Math.min(1, dot(g.pap, g.pin))));
   const trackRad = Math.PI / 2 + (tiltDeg * Math.PI) / 180;
   const rings: MapPoint[][] = [];
@@ -103,7 +120,11 @@ function flareRings(g: { pap: Vec; pin: Vec }, flareIn: number, tiltDeg: number,
     const phi = s2 < 1e-12 ? 0 : Math.acos(Math.max(-1, Math.min(1, (Math.cos(delta) - Math.cos(th) ** 2) / s2)));
     const axis = rotate(g.pap, g.pin, hand * phi);
     axes.push(toMap(axis, radiusIn) ?? { x: 0, y: 0 });
-    rings.push(circle(axis, trackRad, 96).map((p) => toMap(p, radiusIn)).filter((p): p is MapPoint => p !== null));
+    rings.push(
+      circle(axis, trackRad, 96)
+        .map((p) => toMap(p, radiusIn))
+        .filter((p): p is MapPoint => p !== null),
+    );
   }
   return { axes, rings };
 }
@@ -144,8 +165,12 @@ export function layoutLab(input: {
     const g = layoutPoints(layout.pinToPapIn, val, diameter, hand);
     const map = (v: Vec) => toMap(v, radius) ?? { x: 0, y: 0 };
     return {
-      id, label, layout, flareIn: p.flareIn,
-      pap: map(g.pap), pin: map(g.pin),
+      id,
+      label,
+      layout,
+      flareIn: p.flareIn,
+      pap: map(g.pap),
+      pin: map(g.pin),
       massBias: ball.intermediateDifferential > 0 || layout.valAngleDeg !== undefined ? map(g.psa) : null,
       ...flareRings(g, p.flareIn, input.bowler.axisTiltDeg, radius, hand, count),
       prediction: p,

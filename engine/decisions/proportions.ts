@@ -32,8 +32,12 @@ function count(fn: string, name: string, c: Count): Count {
  */
 export function probabilityBetter(a: Count, b: Count): number {
   const fn = 'probabilityBetter';
-  const A = count(fn, 'a', a), B = count(fn, 'b', b);
-  const aA = 1 + A.hits, bA = 1 + A.n - A.hits, aB = 1 + B.hits, bB = 1 + B.n - B.hits;
+  const A = count(fn, 'a', a),
+    B = count(fn, 'b', b);
+  const aA = 1 + A.hits,
+    bA = 1 + A.n - A.hits,
+    aB = 1 + B.hits,
+    bB = 1 + B.n - B.hits;
   let total = 0;
   for (let i = 0; i < aA; i++) {
     total += Math.exp(lnBeta(aB + i, bA + bB) - Math.log(bA + i) - lnBeta(1 + i, bA) - lnBeta(aB, bB));
@@ -52,7 +56,8 @@ export function probabilityBetter(a: Count, b: Count): number {
  */
 export function twoProportionTest(a: Count, b: Count): { z: number; p: number } {
   const fn = 'twoProportionTest';
-  const A = count(fn, 'a', a), B = count(fn, 'b', b);
+  const A = count(fn, 'a', a),
+    B = count(fn, 'b', b);
   if (A.n === 0 || B.n === 0) return { z: 0, p: 1 };
   const pooled = (A.hits + B.hits) / (A.n + B.n);
   const se = Math.sqrt(pooled * (1 - pooled) * (1 / A.n + 1 / B.n));
@@ -81,7 +86,8 @@ export function shotsPerArm(p1: number, p2: number, alpha = 0.05, power = 0.8): 
   inRange(fn, 'alpha', alpha, 1e-6, 0.5, '');
   inRange(fn, 'power', power, 0.5, 1 - 1e-6, '');
   if (p1 === p2) throw new RangeError(`${fn}: the two rates must differ`);
-  const za = normalQuantile(1 - alpha / 2, 0, 1), zb = normalQuantile(power, 0, 1);
+  const za = normalQuantile(1 - alpha / 2, 0, 1),
+    zb = normalQuantile(power, 0, 1);
   const pbar = (p1 + p2) / 2;
   const root = za * Math.sqrt(2 * pbar * (1 - pbar)) + zb * Math.sqrt(p1 * (1 - p1) + p2 * (1 - p2));
   return Math.max(1, Math.ceil((root * root) / ((p1 - p2) * (p1 - p2)) - 1e-9));

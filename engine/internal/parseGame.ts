@@ -112,12 +112,7 @@ export function parseGame(fn: string, rolls: unknown): ParsedGame {
   let pinsStanding = 0;
   if (pending !== null) {
     const last = starts.length - 1;
-    const lastComplete =
-      last < 0
-        ? true
-        : last < 9
-          ? p[starts[last]] === 10 || counts[last] === 2
-          : framePoints[9] !== null;
+    const lastComplete = last < 0 ? true : last < 9 ? p[starts[last]] === 10 || counts[last] === 2 : framePoints[9] !== null;
     if (lastComplete) {
       nextFrame = last + 2;
       pinsStanding = 10;

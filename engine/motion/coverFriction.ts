@@ -51,7 +51,8 @@ export function coverFriction(
   if (!FRICTIONS.includes(friction)) throw new TypeError(`${fn}: lane friction must be low, medium or high, got ${String(friction)}`);
   const c = K.covers[ball.coverType];
   const dulling = 1 - (K.dullingMax * games) / (games + K.dullingHalfGames);
-  const ra = K.ballRaAtRefGritUm * Math.pow(K.refGrit / grit, K.gritExponent) * c.textureFactor * (ball.polished ? K.polishRaFactor : 1) * dulling;
+  const ra =
+    K.ballRaAtRefGritUm * Math.pow(K.refGrit / grit, K.gritExponent) * c.textureFactor * (ball.polished ? K.polishRaFactor : 1) * dulling;
   const laneRa = K.laneRaUm[friction];
   const sigma = Math.sqrt(ra * ra + laneRa * laneRa);
   const muDry = Math.min(K.muMax, K.muDry * c.muDryFactor * K.laneDryFactor[friction]);

@@ -40,8 +40,18 @@ export interface FrictionField {
 export function uniformFrictionField(mu: number): FrictionField {
   assertNumber('uniformFrictionField', 'mu', mu, 0, 1);
   return {
-    kind: 'uniform', mu0: mu, dMu: 0, ftStep: 1, rows: 0, cols: 0, grid: new Float64Array(0), filmUm: new Float64Array(0),
-    filmScaleUm: 1, absorptionTimeS: Infinity, carriedOil: false, muMax: mu,
+    kind: 'uniform',
+    mu0: mu,
+    dMu: 0,
+    ftStep: 1,
+    rows: 0,
+    cols: 0,
+    grid: new Float64Array(0),
+    filmUm: new Float64Array(0),
+    filmScaleUm: 1,
+    absorptionTimeS: Infinity,
+    carriedOil: false,
+    muMax: mu,
   };
 }
 
@@ -72,7 +82,20 @@ export function sampledFrictionField(
     grid[r * cols] = grid[r * cols + 1];
     grid[r * cols + 40] = grid[r * cols + 39];
   }
-  return { kind: 'sampled', mu0: 0, dMu: 1, ftStep, rows, cols, grid, filmUm: new Float64Array(0), filmScaleUm: 1, absorptionTimeS: Infinity, carriedOil: false, muMax };
+  return {
+    kind: 'sampled',
+    mu0: 0,
+    dMu: 1,
+    ftStep,
+    rows,
+    cols,
+    grid,
+    filmUm: new Float64Array(0),
+    filmScaleUm: 1,
+    absorptionTimeS: Infinity,
+    carriedOil: false,
+    muMax,
+  };
 }
 
 /**
@@ -82,13 +105,26 @@ export function sampledFrictionField(
  * Units: µm films, dimensionless μ. Edge cases: scale in [0.1, 10]. Example:
  * `oilFrictionField(patternOilMap(pattern), coverFriction(ball))`.
  */
-export function oilFrictionField(map: LaneOilMap, cover: CoverFriction, options: { carriedOil?: boolean; frictionScale?: number } = {}): FrictionField {
+export function oilFrictionField(
+  map: LaneOilMap,
+  cover: CoverFriction,
+  options: { carriedOil?: boolean; frictionScale?: number } = {},
+): FrictionField {
   const scale = options.frictionScale === undefined ? 1 : assertNumber('oilFrictionField', 'frictionScale', options.frictionScale, 0.1, 10);
   const mu0 = cover.muFilm * scale;
   const dMu = (cover.muDry - cover.muFilm) * scale;
   return {
-    kind: 'oil', mu0, dMu, ftStep: map.ftStep, rows: map.rows, cols: map.cols, grid: new Float64Array(0),
-    filmUm: map.filmUm, filmScaleUm: cover.filmScaleUm, absorptionTimeS: cover.absorptionTimeS, carriedOil: options.carriedOil ?? true,
+    kind: 'oil',
+    mu0,
+    dMu,
+    ftStep: map.ftStep,
+    rows: map.rows,
+    cols: map.cols,
+    grid: new Float64Array(0),
+    filmUm: map.filmUm,
+    filmScaleUm: cover.filmScaleUm,
+    absorptionTimeS: cover.absorptionTimeS,
+    carriedOil: options.carriedOil ?? true,
     muMax: mu0 + dMu,
   };
 }

@@ -15,6 +15,7 @@ export function laneSurfaceOf(fn: string, lane: unknown): LaneSurface {
   const kind = l.kind ?? 'synthetic';
   const friction = l.friction ?? 'medium';
   if (kind !== 'wood' && kind !== 'synthetic') throw new TypeError(`${fn}: lane.kind must be wood or synthetic, got ${String(kind)}`);
-  if (friction !== 'low' && friction !== 'medium' && friction !== 'high') throw new TypeError(`${fn}: lane.friction must be low, medium or high, got ${String(friction)}`);
+  if (friction !== 'low' && friction !== 'medium' && friction !== 'high')
+    throw new TypeError(`${fn}: lane.friction must be low, medium or high, got ${String(friction)}`);
   return { kind, friction };
 }

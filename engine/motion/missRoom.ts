@@ -43,13 +43,19 @@ export function missRoom(
   const here = onLine ?? run(laydownBoard, targetBoard);
   // With a preview, the misses are read from it, shifted by its offset from the full model on the line itself.
   const offset = preview ? here.entryBoard - preview(laydownBoard, targetBoard).entryBoard : 0;
-  const trial = preview ? (l: number, t: number): LineTrial => { const r = preview(l, t); return { ...r, entryBoard: r.entryBoard + offset }; } : run;
+  const trial = preview
+    ? (l: number, t: number): LineTrial => {
+        const r = preview(l, t);
+        return { ...r, entryBoard: r.entryBoard + offset };
+      }
+    : run;
   const miss = (r: LineTrial): number => (r.gutter || !r.reachedPins ? Infinity : Math.abs(r.entryBoard - C.pocketBoard) - w);
   const m0 = miss(here);
   if (!(m0 <= 0)) return { outsideBoards: 0, insideBoards: 0, totalBoards: 0 };
   const maxB = K.missRoomMaxBoards;
   const side = (sign: number): number => {
-    let lastIn = 0, mIn = m0;
+    let lastIn = 0,
+      mIn = m0;
     for (const d of STEPS) {
       if (d > maxB) break;
       const m = miss(trial(laydownBoard + sign * d, targetBoard + sign * d));
@@ -57,10 +63,12 @@ export function missRoom(
         if (!Number.isFinite(m)) return lastIn + (d - lastIn) / 2;
         return lastIn + ((d - lastIn) * -mIn) / (m - mIn);
       }
-      lastIn = d; mIn = m;
+      lastIn = d;
+      mIn = m;
     }
     return Math.min(maxB, lastIn);
   };
-  const outsideBoards = side(-1), insideBoards = side(1);
+  const outsideBoards = side(-1),
+    insideBoards = side(1);
   return { outsideBoards, insideBoards, totalBoards: outsideBoards + insideBoards };
 }

@@ -149,8 +149,14 @@ export const MOTION_CALIBRATION = Object.freeze({
   carrydownLengthFt: 10,
   /** The invented mid-strength ball whose pocket line stands for the pair's track (assumption: the pair plays lines like the bowler's own). */
   transitionReferenceBall: Object.freeze({
-    weightLb: 15, rg: 2.52, differential: 0.04, intermediateDifferential: 0, coverType: 'reactive-hybrid' as CoverType,
-    surfaceGrit: 3000, polished: false, layout: Object.freeze({ pinToPapIn: 4.5 }),
+    weightLb: 15,
+    rg: 2.52,
+    differential: 0.04,
+    intermediateDifferential: 0,
+    coverType: 'reactive-hybrid' as CoverType,
+    surfaceGrit: 3000,
+    polished: false,
+    layout: Object.freeze({ pinToPapIn: 4.5 }),
   }),
 
   // ── Release and layout defaults ─────────────────────────────────────────────────────────────────

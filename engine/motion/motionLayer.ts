@@ -84,7 +84,9 @@ export function motionLayer(
   const shot = prepareShot({ ball, bowler, pattern, frictionScale, lane: options.lane }, map);
   const line = solvePocketLine(shot.run, {}, options.hint, shot.preview);
   const prediction = toShotPrediction(line.result, line.laydownBoard, line.targetBoard);
-  const room = line.reached ? missRoom(shot.run, line.laydownBoard, line.targetBoard, line.result, shot.preview) : { outsideBoards: 0, insideBoards: 0, totalBoards: 0 };
+  const room = line.reached
+    ? missRoom(shot.run, line.laydownBoard, line.targetBoard, line.result, shot.preview)
+    : { outsideBoards: 0, insideBoards: 0, totalBoards: 0 };
   const P = MOTION_LAYER_POINTS;
   const reasons: RuleResult[] = [];
   const theta = prediction.entryAngleDeg;
@@ -97,30 +99,49 @@ export function motionLayer(
   const launchPts = -P.perLaunchBoard * launchOff;
   const launchDeg = (b: number) => ((Math.atan2(b * (41.5 / 39), 15 * 12) * 180) / Math.PI).toFixed(1);
   if (!line.reached) {
-    reasons.push({ rule: 'motion-pocket', effect: -P.unreachable, text: `${line.reason} Closest: board ${f1(prediction.entryBoard)} at the headpin.`, source: `${SRC}; pocket board 17.5 (USBC pin-carry research, reported second-hand)` });
+    reasons.push({
+      rule: 'motion-pocket',
+      effect: -P.unreachable,
+      text: `${line.reason} Closest: board ${f1(prediction.entryBoard)} at the headpin.`,
+      source: `${SRC}; pocket board 17.5 (USBC pin-carry research, reported second-hand)`,
+    });
   } else {
     const wider = line.launchBoards - usual;
-    const launchWords = Math.abs(wider) < 1
-      ? `at your usual launch (${launchDeg(line.launchBoards)}° out)`
-      : wider > 0
-        ? `only launched wider than usual (${launchDeg(line.launchBoards)}° out from deeper inside): it hooks early`
-        : `thrown straighter than usual (${launchDeg(line.launchBoards)}° out): it needs the help`;
+    const launchWords =
+      Math.abs(wider) < 1
+        ? `at your usual launch (${launchDeg(line.launchBoards)}° out)`
+        : wider > 0
+          ? `only launched wider than usual (${launchDeg(line.launchBoards)}° out from deeper inside): it hooks early`
+          : `thrown straighter than usual (${launchDeg(line.launchBoards)}° out): it needs the help`;
     reasons.push({
-      rule: 'motion-pocket', effect: 0,
+      rule: 'motion-pocket',
+      effect: 0,
       text: `Reaches the pocket ${launchWords}, laid down on board ${f1(line.laydownBoard)} over board ${f1(line.targetBoard)} at the arrows; skids to ${f1(prediction.skidFt)} ft, breakpoint board ${f1(prediction.breakpoint.board)} at ${f1(prediction.breakpoint.ft)} ft${prediction.rollStartFt === null ? ', still sliding at the pins' : `, rolls from ${f1(prediction.rollStartFt)} ft`}.`,
       source: `${SRC}; pocket board 17.5 (USBC pin-carry research, reported second-hand)`,
     });
   }
-  const angleWords = theta < P.angleFloorDeg ? 'too shallow to carry well' : theta > P.angleCeilingDeg ? 'steep: more splits' : 'in the range that carries';
-  reasons.push({ rule: 'motion-entry-angle', effect: Math.round(anglePts * 10) / 10, text: `Predicted entry angle ${f1(theta)}°: ${angleWords} (about 6° carries best).`, source: `${SRC}; 6° from USBC pin-carry research (reported second-hand)` });
+  const angleWords =
+    theta < P.angleFloorDeg ? 'too shallow to carry well' : theta > P.angleCeilingDeg ? 'steep: more splits' : 'in the range that carries';
+  reasons.push({
+    rule: 'motion-entry-angle',
+    effect: Math.round(anglePts * 10) / 10,
+    text: `Predicted entry angle ${f1(theta)}°: ${angleWords} (about 6° carries best).`,
+    source: `${SRC}; 6° from USBC pin-carry research (reported second-hand)`,
+  });
   if (line.reached) {
     const roomWords = missPts > 0 ? 'a forgiving line' : missPts < 0 ? 'little room for a miss' : 'some room for a miss';
-    reasons.push({ rule: 'motion-miss-room', effect: Math.round(missPts * 10) / 10, text: `Miss room ${f1(room.totalBoards)} boards (${f1(room.outsideBoards)} outside, ${f1(room.insideBoards)} inside) still reach the pocket: ${roomWords}.`, source: `${SRC}; miss room is common practice, the ±${K.pocketHalfWidthBoards}-board strike window an assumption` });
+    reasons.push({
+      rule: 'motion-miss-room',
+      effect: Math.round(missPts * 10) / 10,
+      text: `Miss room ${f1(room.totalBoards)} boards (${f1(room.outsideBoards)} outside, ${f1(room.insideBoards)} inside) still reach the pocket: ${roomWords}.`,
+      source: `${SRC}; miss room is common practice, the ±${K.pocketHalfWidthBoards}-board strike window an assumption`,
+    });
   }
   if (launchOff > 0) {
     const wider = line.launchBoards > usual;
     reasons.push({
-      rule: 'motion-launch', effect: Math.round(launchPts * 10) / 10,
+      rule: 'motion-launch',
+      effect: Math.round(launchPts * 10) / 10,
       text: wider
         ? `It takes a launch ${f1(line.launchBoards - usual)} boards wider than usual to keep this ball out of the nose: it hooks too early for this condition.`
         : `It has to be thrown ${f1(usual - line.launchBoards)} boards straighter than usual to get back to the pocket: it hooks too little for this condition.`,
@@ -129,8 +150,22 @@ export function motionLayer(
   }
   const raw = P.base + anglePts + missPts + launchPts - (line.reached ? 0 : P.unreachable);
   const score = Math.round(Math.max(0, Math.min(100, raw)) * 10) / 10;
-  const suggestions: Suggestion[] = line.reached && ball.coverType !== 'plastic'
-    ? [{ kind: 'line', text: `Model's line: lay down on board ${f1(line.laydownBoard)} and aim over board ${f1(line.targetBoard)} at the arrows.`, change: { laydownBoard: Math.round(line.laydownBoard * 10) / 10, targetBoard: Math.round(line.targetBoard * 10) / 10 } }]
-    : [];
-  return { result: { score, reasons, suggestions }, prediction, missRoom: room, pocketReached: line.reached, launchBoards: line.launchBoards, ...(line.settled ? { settled: line.settled } : {}) };
+  const suggestions: Suggestion[] =
+    line.reached && ball.coverType !== 'plastic'
+      ? [
+          {
+            kind: 'line',
+            text: `Model's line: lay down on board ${f1(line.laydownBoard)} and aim over board ${f1(line.targetBoard)} at the arrows.`,
+            change: { laydownBoard: Math.round(line.laydownBoard * 10) / 10, targetBoard: Math.round(line.targetBoard * 10) / 10 },
+          },
+        ]
+      : [];
+  return {
+    result: { score, reasons, suggestions },
+    prediction,
+    missRoom: room,
+    pocketReached: line.reached,
+    launchBoards: line.launchBoards,
+    ...(line.settled ? { settled: line.settled } : {}),
+  };
 }

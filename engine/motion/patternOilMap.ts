@@ -17,7 +17,8 @@ import { PHYSICAL_CONSTANTS as C } from './physicalConstants';
 export function patternOilMap(pattern: OilPattern): LaneOilMap {
   const ftStep = K.oilMapFtStep;
   const grid = oilGrid(pattern, { boardStep: 1, ftStep, maxFt: K.oilMapMaxFt });
-  const rows = grid.ft.length, cols = 41;
+  const rows = grid.ft.length,
+    cols = 41;
   const filmUm = new Float64Array(rows * cols);
   const f = C.filmUmPerMicroliterBoardFt;
   for (let i = 0; i < grid.boards.length; i++) {
@@ -25,7 +26,10 @@ export function patternOilMap(pattern: OilPattern): LaneOilMap {
     const col = grid.values[i];
     for (let r = 0; r < rows; r++) filmUm[r * cols + j] = col[r] * f;
   }
-  for (let r = 0; r < rows; r++) { filmUm[r * cols] = filmUm[r * cols + 1]; filmUm[r * cols + 40] = filmUm[r * cols + 39]; }
+  for (let r = 0; r < rows; r++) {
+    filmUm[r * cols] = filmUm[r * cols + 1];
+    filmUm[r * cols + 40] = filmUm[r * cols + 39];
+  }
   let end = 0;
   for (const s of pattern.sweeps) end = Math.max(end, s.startFt, s.endFt);
   return { ftStep, rows, cols, filmUm, patternEndFt: end };

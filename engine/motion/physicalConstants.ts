@@ -36,5 +36,5 @@ export const PHYSICAL_CONSTANTS = Object.freeze({
    * Oil film thickness of 1 µL spread on one board over one foot, µm:
    * 1e-9 m³ / (board width × 0.3048 m) = 0.12139 µm (1 mL per board-foot ≈ 121 µm).
    */
-  filmUmPerMicroliterBoardFt: 1e-9 / (((41.5 / 39) * 0.0254) * 0.3048) * 1e6,
+  filmUmPerMicroliterBoardFt: (1e-9 / ((41.5 / 39) * 0.0254 * 0.3048)) * 1e6,
 });

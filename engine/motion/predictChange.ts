@@ -53,7 +53,8 @@ export function predictChange(input: {
   const fn = 'predictChange';
   if (input === null || typeof input !== 'object') throw new TypeError(`${fn}: input must be an object, got ${String(input)}`);
   validateBallSpec(input.ball, fn);
-  if (input.change === null || typeof input.change !== 'object') throw new TypeError(`${fn}: change must be an object, got ${String(input.change)}`);
+  if (input.change === null || typeof input.change !== 'object')
+    throw new TypeError(`${fn}: change must be an object, got ${String(input.change)}`);
   const changed = { ...input.ball, ...input.change } as BallSpec;
   validateBallSpec(changed, fn);
   const lane = laneSurfaceOf(fn, input.lane);
@@ -68,7 +69,9 @@ export function predictChange(input: {
   const newLine = toShotPrediction(lb.result, lb.laydownBoard, lb.targetBoard);
   const r1 = (x: number) => Math.round(x * 10) / 10 || 0;
   return {
-    before, sameLine, newLine,
+    before,
+    sameLine,
+    newLine,
     breakpointShiftFt: r1(sameLine.breakpoint.ft - before.breakpoint.ft),
     skidShiftFt: r1(sameLine.skidFt - before.skidFt),
     entryBoardShift: r1(sameLine.entryBoard - before.entryBoard),

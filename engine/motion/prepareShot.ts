@@ -25,7 +25,15 @@ export type { PreparedShot } from './shotOnField';
  * Example: `prepareShot({ ball, bowler, pattern }).run(20, 12).entryBoard`.
  */
 export function prepareShot(
-  input: { ball: BallSpec; bowler: BowlerProfile; pattern: OilPattern; gamesBowled?: number; frictionOverride?: number; frictionScale?: number; lane?: LaneSurface },
+  input: {
+    ball: BallSpec;
+    bowler: BowlerProfile;
+    pattern: OilPattern;
+    gamesBowled?: number;
+    frictionOverride?: number;
+    frictionScale?: number;
+    lane?: LaneSurface;
+  },
   oilMap?: LaneOilMap,
 ): PreparedShot {
   const fn = 'prepareShot';
@@ -40,10 +48,21 @@ export function prepareShot(
   releaseState(ball, bowler, 20, 20); // validates the release once
   let field: FrictionField;
   if (input.frictionOverride !== undefined) {
-    field = uniformFrictionField(assertNumber(fn, 'frictionOverride × frictionScale', assertNumber(fn, 'frictionOverride', input.frictionOverride, 0, 1) * scale, 0, 1));
+    field = uniformFrictionField(
+      assertNumber(
+        fn,
+        'frictionOverride × frictionScale',
+        assertNumber(fn, 'frictionOverride', input.frictionOverride, 0, 1) * scale,
+        0,
+        1,
+      ),
+    );
   } else {
-    if (input.pattern === null || typeof input.pattern !== 'object') throw new TypeError(`${fn}: pattern must be an object, got ${String(input.pattern)}`);
-    field = oilFrictionField(oilMap ?? conditionOilMap(input.pattern, bowler, input.gamesBowled ?? 0, lane), cover, { frictionScale: scale });
+    if (input.pattern === null || typeof input.pattern !== 'object')
+      throw new TypeError(`${fn}: pattern must be an object, got ${String(input.pattern)}`);
+    field = oilFrictionField(oilMap ?? conditionOilMap(input.pattern, bowler, input.gamesBowled ?? 0, lane), cover, {
+      frictionScale: scale,
+    });
   }
   return shotOnField(ball, bowler, hand, inertia, field);
 }

@@ -18,14 +18,19 @@ const invBw = 1 / C.boardWidthM;
 /** Bilinear lookup in a pattern-board × foot grid at lane position (x, y) in metres (as integrateDelivery's). */
 function bilinear(grid: Float64Array, rows: number, cols: number, invRowM: number, x: number, y: number): number {
   let jf = y * invBw + 20;
-  if (jf < 0) jf = 0; else if (jf > cols - 1) jf = cols - 1;
+  if (jf < 0) jf = 0;
+  else if (jf > cols - 1) jf = cols - 1;
   let rf = x * invRowM;
-  if (rf < 0) rf = 0; else if (rf > rows - 1) rf = rows - 1;
-  let j0 = Math.floor(jf), r0 = Math.floor(rf);
+  if (rf < 0) rf = 0;
+  else if (rf > rows - 1) rf = rows - 1;
+  let j0 = Math.floor(jf),
+    r0 = Math.floor(rf);
   if (j0 > cols - 2) j0 = cols - 2;
   if (r0 > rows - 2) r0 = rows - 2;
-  const fj = jf - j0, fr = rf - r0;
-  const a = r0 * cols + j0, b = a + cols;
+  const fj = jf - j0,
+    fr = rf - r0;
+  const a = r0 * cols + j0,
+    b = a + cols;
   return (1 - fr) * ((1 - fj) * grid[a] + fj * grid[a + 1]) + fr * ((1 - fj) * grid[b] + fj * grid[b + 1]);
 }
 
@@ -43,71 +48,140 @@ function bilinear(grid: Float64Array, rows: number, cols: number, invRowM: numbe
  * fields are for the closed-form tests and go to integrateDelivery); a ball that stalls reports reachedPins false.
  * Example: `previewDelivery(releaseState(ball, bowler, 20, 11), ballInertia(ball), field, 1, 2.5)`.
  */
-export function previewDelivery(s0: Float64Array, inertia: BallInertia, field: FrictionField, hand: 1 | -1, flareInPerS: number): PreviewResult {
-  const m = inertia.massKg, R = inertia.radiusM, g = C.g;
+export function previewDelivery(
+  s0: Float64Array,
+  inertia: BallInertia,
+  field: FrictionField,
+  hand: 1 | -1,
+  flareInPerS: number,
+): PreviewResult {
+  const m = inertia.massKg,
+    R = inertia.radiusM,
+    g = C.g;
   const k2 = (inertia.iLow + inertia.iHigh + inertia.iInt) / (3 * m);
   const alpha = k2 / (R * R);
-  let x = s0[0], y = s0[1];
-  const vx0 = s0[2], vy0 = s0[3], wx0 = s0[4], wy0 = s0[5], wz0 = s0[6];
-  const ux0 = vx0 - R * wy0, uy0 = vy0 + R * wx0;
+  let x = s0[0],
+    y = s0[1];
+  const vx0 = s0[2],
+    vy0 = s0[3],
+    wx0 = s0[4],
+    wy0 = s0[5],
+    wz0 = s0[6];
+  const ux0 = vx0 - R * wy0,
+    uy0 = vy0 + R * wx0;
   const u0 = Math.hypot(ux0, uy0);
-  const ex = u0 > 0 ? ux0 / u0 : 0, ey = u0 > 0 ? uy0 / u0 : 0;
+  const ex = u0 > 0 ? ux0 / u0 : 0,
+    ey = u0 > 0 ? uy0 / u0 : 0;
   const phiRoll = (alpha * u0) / ((1 + alpha) * g);
-  const vxr = (vx0 + alpha * R * wy0) / (1 + alpha), vyr = (vy0 - alpha * R * wx0) / (1 + alpha);
+  const vxr = (vx0 + alpha * R * wy0) / (1 + alpha),
+    vyr = (vy0 - alpha * R * wx0) / (1 + alpha);
   // angular momentum about the contact point (per unit mass), for |ω| along the way: ω = (L − R ẑ × v)/k²
-  const lx = k2 * wx0 - R * vy0, ly = k2 * wy0 + R * vx0;
-  const grid = field.filmUm, rows = field.rows, cols = field.cols, invRowM = 1 / (field.ftStep * C.footM);
-  const mu0 = field.mu0, dMu = field.dMu, hc = field.filmScaleUm;
+  const lx = k2 * wx0 - R * vy0,
+    ly = k2 * wy0 + R * vx0;
+  const grid = field.filmUm,
+    rows = field.rows,
+    cols = field.cols,
+    invRowM = 1 / (field.ftStep * C.footM);
+  const mu0 = field.mu0,
+    dMu = field.dMu,
+    hc = field.filmScaleUm;
   const carried = field.carriedOil;
-  const split = K.filmSplit, wB = K.carriedFilmWeight;
+  const split = K.filmSplit,
+    wB = K.carriedFilmWeight;
   const keepPerPass = Math.log(1 - K.exchangeFraction);
   const invTau = Number.isFinite(field.absorptionTimeS) ? 1 / field.absorptionTimeS : 0;
   const refresh = (flareInPerS * C.inchM) / (K.trackWidthIn * C.inchM);
-  const stopM = C.headpinFt * C.footM, half = C.laneHalfWidthM;
+  const stopM = C.headpinFt * C.footM,
+    half = C.laneHalfWidthM;
   const h = 0.012;
-  let phi = 0, ring = 0, t = 0;
-  let bpY = hand * y, bpX = x, gutter = false;
-  let vx = vx0, vy = vy0;
+  let phi = 0,
+    ring = 0,
+    t = 0;
+  let bpY = hand * y,
+    bpX = x,
+    gutter = false;
+  let vx = vx0,
+    vy = vy0;
   const muAt = (px: number, py: number, b: number) => mu0 + (dMu * hc) / (bilinear(grid, rows, cols, invRowM, px, py) + wB * b + hc);
   while (t < K.maxTimeS) {
     if (phi >= phiRoll) {
       // rolling: a straight line to the pins
-      const vxe = vxr, vye = vyr;
+      const vxe = vxr,
+        vye = vyr;
       if (vxe <= 0) break;
       const yEnd = y + (vye / vxe) * (stopM - x);
-      if (hand * vye < 0 && hand * yEnd < bpY) { bpY = hand * yEnd; bpX = stopM; }
+      if (hand * vye < 0 && hand * yEnd < bpY) {
+        bpY = hand * yEnd;
+        bpX = stopM;
+      }
       if (!gutter && Math.abs(yEnd) > half) gutter = true;
-      return { entryBoard: C.centreBoard + hand * yEnd * invBw, entryAngleDeg: (Math.atan2(hand * vye, vxe) * 180) / Math.PI, breakpointBoard: C.centreBoard + bpY * invBw, breakpointFt: bpX / C.footM, reachedPins: true, gutter };
+      return {
+        entryBoard: C.centreBoard + hand * yEnd * invBw,
+        entryAngleDeg: (Math.atan2(hand * vye, vxe) * 180) / Math.PI,
+        breakpointBoard: C.centreBoard + bpY * invBw,
+        breakpointFt: bpX / C.footM,
+        reachedPins: true,
+        gutter,
+      };
     }
     // RK2 (midpoint) on (x, y, Φ); the ring is updated once a step
     const mu1 = muAt(x, y, ring);
-    const vxa = vx0 - g * phi * ex, vya = vy0 - g * phi * ey;
-    const xm = x + 0.5 * h * vxa, ym = y + 0.5 * h * vya, phim = phi + 0.5 * h * mu1;
+    const vxa = vx0 - g * phi * ex,
+      vya = vy0 - g * phi * ey;
+    const xm = x + 0.5 * h * vxa,
+      ym = y + 0.5 * h * vya,
+      phim = phi + 0.5 * h * mu1;
     const mu2 = muAt(xm, ym, ring);
-    const vxm = vx0 - g * phim * ex, vym = vy0 - g * phim * ey;
+    const vxm = vx0 - g * phim * ex,
+      vym = vy0 - g * phim * ey;
     let dphi = h * mu2;
     let hStep = h;
-    if (phi + dphi > phiRoll) { hStep = (h * (phiRoll - phi)) / dphi; dphi = phiRoll - phi; }
-    const x1 = x + hStep * vxm, y1 = y + hStep * vym;
+    if (phi + dphi > phiRoll) {
+      hStep = (h * (phiRoll - phi)) / dphi;
+      dphi = phiRoll - phi;
+    }
+    const x1 = x + hStep * vxm,
+      y1 = y + hStep * vym;
     phi += dphi;
-    vx = vx0 - g * phi * ex; vy = vy0 - g * phi * ey;
+    vx = vx0 - g * phi * ex;
+    vy = vy0 - g * phi * ey;
     // breakpoint (hand-relative lateral minimum)
-    if (hand * y1 < bpY) { bpY = hand * y1; bpX = x1; }
+    if (hand * y1 < bpY) {
+      bpY = hand * y1;
+      bpX = x1;
+    }
     if (!gutter && Math.abs(y1) > half && x1 <= stopM) gutter = true;
     if (x1 >= stopM) {
       const f = (stopM - x) / (x1 - x);
       const ye = y + f * (y1 - y);
-      return { entryBoard: C.centreBoard + hand * ye * invBw, entryAngleDeg: (Math.atan2(hand * vy, vx) * 180) / Math.PI, breakpointBoard: C.centreBoard + bpY * invBw, breakpointFt: bpX / C.footM, reachedPins: true, gutter };
+      return {
+        entryBoard: C.centreBoard + hand * ye * invBw,
+        entryAngleDeg: (Math.atan2(hand * vy, vx) * 180) / Math.PI,
+        breakpointBoard: C.centreBoard + bpY * invBw,
+        breakpointFt: bpX / C.footM,
+        reachedPins: true,
+        gutter,
+      };
     }
     if (carried) {
-      const wx = (lx + R * vy) / k2, wy = (ly - R * vx) / k2;
+      const wx = (lx + R * vy) / k2,
+        wy = (ly - R * vx) / k2;
       const wmag = Math.sqrt(wx * wx + wy * wy + wz0 * wz0);
       const hLane = bilinear(grid, rows, cols, invRowM, x1, y1);
       ring += (1 - Math.exp((keepPerPass * wmag * hStep) / (2 * Math.PI))) * (split * hLane - ring);
       ring *= Math.exp(-hStep * (refresh + invTau));
     }
-    x = x1; y = y1; t += hStep;
+    x = x1;
+    y = y1;
+    t += hStep;
     if (vx <= 0) break;
   }
-  return { entryBoard: C.centreBoard + hand * y * invBw, entryAngleDeg: (Math.atan2(hand * vy, vx) * 180) / Math.PI, breakpointBoard: C.centreBoard + bpY * invBw, breakpointFt: bpX / C.footM, reachedPins: false, gutter };
+  return {
+    entryBoard: C.centreBoard + hand * y * invBw,
+    entryAngleDeg: (Math.atan2(hand * vy, vx) * 180) / Math.PI,
+    breakpointBoard: C.centreBoard + bpY * invBw,
+    breakpointFt: bpX / C.footM,
+    reachedPins: false,
+    gutter,
+  };
 }

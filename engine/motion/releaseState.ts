@@ -40,22 +40,34 @@ export function releaseState(ball: BallSpec, bowler: BowlerProfile, laydownBoard
   const y0 = h * (laydownBoard - C.centreBoard) * bw;
   const yt = h * (targetBoard - C.centreBoard) * bw;
   const psi = Math.atan2(yt - y0, C.arrowsFt * C.footM);
-  const cp = Math.cos(psi), sp = Math.sin(psi);
+  const cp = Math.cos(psi),
+    sp = Math.sin(psi);
   const w = (2 * Math.PI * rpm) / 60;
   // travel frame (the release model (engine/motion/README.md))
-  const ax = -h * Math.cos(phi) * Math.sin(theta), ay = Math.cos(phi) * Math.cos(theta), az = h * Math.sin(phi);
+  const ax = -h * Math.cos(phi) * Math.sin(theta),
+    ay = Math.cos(phi) * Math.cos(theta),
+    az = h * Math.sin(phi);
   // rotate by ψ about z
-  const wxh = cp * ax - sp * ay, wyh = sp * ax + cp * ay, wzh = az;
+  const wxh = cp * ax - sp * ay,
+    wyh = sp * ax + cp * ay,
+    wzh = az;
   const layout = ball.layout;
-  const R = ((ball.diameterIn ?? C.defaultDiameterIn) / 2);
+  const R = (ball.diameterIn ?? C.defaultDiameterIn) / 2;
   const pinToPap = assertNumber(fn, 'layout.pinToPapIn', layout?.pinToPapIn ?? K.defaultPinToPapIn, 0, Math.PI * R);
   const valDeg = layout?.valAngleDeg ?? layout?.drillingAngleDeg ?? K.defaultValAngleDeg;
   assertNumber(fn, 'layout.valAngleDeg', valDeg, -360, 360);
   const q = layoutOrientation([-h * wxh, -h * wyh, -h * wzh], pinToPap / R, (valDeg * Math.PI) / 180, h);
   const s = new Float64Array(STATE.length);
-  s[STATE.x] = 0; s[STATE.y] = y0;
-  s[STATE.vx] = V * cp; s[STATE.vy] = V * sp;
-  s[STATE.wx] = w * wxh; s[STATE.wy] = w * wyh; s[STATE.wz] = w * wzh;
-  s[STATE.qw] = q[0]; s[STATE.qx] = q[1]; s[STATE.qy] = q[2]; s[STATE.qz] = q[3];
+  s[STATE.x] = 0;
+  s[STATE.y] = y0;
+  s[STATE.vx] = V * cp;
+  s[STATE.vy] = V * sp;
+  s[STATE.wx] = w * wxh;
+  s[STATE.wy] = w * wyh;
+  s[STATE.wz] = w * wzh;
+  s[STATE.qw] = q[0];
+  s[STATE.qx] = q[1];
+  s[STATE.qy] = q[2];
+  s[STATE.qz] = q[3];
   return s;
 }

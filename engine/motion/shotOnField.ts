@@ -31,21 +31,22 @@ export function shotOnField(ball: BallSpec, bowler: BowlerProfile, hand: 1 | -1,
   const run = (l: number, t: number) => integrateDelivery(releaseState(ball, bowler, l, t), inertia, field, { hand });
   let flareRate: number | null = null;
   let offset = 0;
-  const preview = field.kind === 'oil'
-    ? (l: number, t: number): PreviewResult => {
-        if (flareRate === null) {
-          // calibrate the preview on the usual line: the full model's flare rate, and the entry board the two
-          // differ by there (nearly the same on every line, so the search lands on the full model's pocket line)
-          const r = run(20, 12);
-          flareRate = r.timeToPinsS > 0 ? r.flareIn / r.timeToPinsS : 0;
-          const p = previewDelivery(releaseState(ball, bowler, 20, 12), inertia, field, hand, flareRate);
-          const usable = r.reachedPins && !r.gutter && p.reachedPins && !p.gutter;
-          offset = usable ? Math.max(-2, Math.min(2, r.entryBoard - p.entryBoard)) : 0;
+  const preview =
+    field.kind === 'oil'
+      ? (l: number, t: number): PreviewResult => {
+          if (flareRate === null) {
+            // calibrate the preview on the usual line: the full model's flare rate, and the entry board the two
+            // differ by there (nearly the same on every line, so the search lands on the full model's pocket line)
+            const r = run(20, 12);
+            flareRate = r.timeToPinsS > 0 ? r.flareIn / r.timeToPinsS : 0;
+            const p = previewDelivery(releaseState(ball, bowler, 20, 12), inertia, field, hand, flareRate);
+            const usable = r.reachedPins && !r.gutter && p.reachedPins && !p.gutter;
+            offset = usable ? Math.max(-2, Math.min(2, r.entryBoard - p.entryBoard)) : 0;
+          }
+          const p = previewDelivery(releaseState(ball, bowler, l, t), inertia, field, hand, flareRate);
+          p.entryBoard += offset;
+          return p;
         }
-        const p = previewDelivery(releaseState(ball, bowler, l, t), inertia, field, hand, flareRate);
-        p.entryBoard += offset;
-        return p;
-      }
-    : undefined;
+      : undefined;
   return { hand, inertia, field, run, preview };
 }

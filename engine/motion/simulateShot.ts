@@ -38,7 +38,8 @@ function simulate(input: SimulateShotInput): ShotPrediction {
   const { laydownBoard, targetBoard } = input;
   if (laydownBoard !== undefined) assertNumber(fn, 'laydownBoard', laydownBoard, -5, 45);
   if (targetBoard !== undefined) assertNumber(fn, 'targetBoard', targetBoard, -5, 45);
-  if (laydownBoard !== undefined && targetBoard !== undefined) return toShotPrediction(shot.run(laydownBoard, targetBoard), laydownBoard, targetBoard);
+  if (laydownBoard !== undefined && targetBoard !== undefined)
+    return toShotPrediction(shot.run(laydownBoard, targetBoard), laydownBoard, targetBoard);
   const line = solvePocketLine(shot.run, { laydownBoard, targetBoard }, {}, shot.preview);
   return toShotPrediction(line.result, line.laydownBoard, line.targetBoard);
 }

@@ -87,13 +87,20 @@ export function solvePocketLine(
     if (best === null || m < best.m) best = { l, r, m };
     return r;
   };
-  if (guide.reached) root(full, Math.max(1, guide.targetBoard + K.solverLaunchBoards[0]), 39, guide.laydownBoard, 1 - C.headpinFt / C.arrowsFt);
+  if (guide.reached)
+    root(full, Math.max(1, guide.targetBoard + K.solverLaunchBoards[0]), 39, guide.laydownBoard, 1 - C.headpinFt / C.arrowsFt);
   else full(guide.laydownBoard);
   const b = best as unknown as { l: number; r: DeliveryResult; m: number };
   const reached = Math.abs(b.r.entryBoard - P) <= K.solverTolBoards && ok(b.r);
   return {
-    laydownBoard: b.l, targetBoard: guide.targetBoard, result: b.r, reached, evaluations, launchBoards: b.l - guide.targetBoard,
-    reason: reached ? '' : guide.reason || 'No line found that reaches the pocket.', miss: reached ? null : guide.miss ?? (b.r.entryBoard > P ? 'high' : 'light'),
+    laydownBoard: b.l,
+    targetBoard: guide.targetBoard,
+    result: b.r,
+    reached,
+    evaluations,
+    launchBoards: b.l - guide.targetBoard,
+    reason: reached ? '' : guide.reason || 'No line found that reaches the pocket.',
+    miss: reached ? null : (guide.miss ?? (b.r.entryBoard > P ? 'high' : 'light')),
     ...(guide.settled ? { settled: guide.settled } : {}),
   };
 }
@@ -124,12 +131,20 @@ function searchLine<T extends LineTrial>(
     const b = (c !== null && c.m <= K.solverTolBoards ? c : best) as unknown as { l: number; t: number; r: T; m: number };
     const reached = Math.abs(b.r.entryBoard - P) <= K.solverTolBoards && ok(b.r);
     return {
-      laydownBoard: b.l, targetBoard: b.t, result: b.r, reached, evaluations, launchBoards: b.l - b.t,
-      reason: reached ? '' : reason, miss: reached ? null : miss ?? (b.r.entryBoard > P ? 'high' : 'light'), ...(settled ? { settled } : {}),
+      laydownBoard: b.l,
+      targetBoard: b.t,
+      result: b.r,
+      reached,
+      evaluations,
+      launchBoards: b.l - b.t,
+      reason: reached ? '' : reason,
+      miss: reached ? null : (miss ?? (b.r.entryBoard > P ? 'high' : 'light')),
+      ...(settled ? { settled } : {}),
     };
   };
   const arrowsToPins = C.headpinFt / C.arrowsFt;
-  const fixedL = given.laydownBoard, fixedT = given.targetBoard;
+  const fixedL = given.laydownBoard,
+    fixedT = given.targetBoard;
   if (fixedL !== undefined && fixedT === undefined) {
     root((x) => eval2(fixedL, x), 1, 39, Math.min(39, Math.max(1, fixedL - 6)), arrowsToPins);
     return finish(null, 'No target at the arrows from this laydown reaches the pocket.');
@@ -140,13 +155,17 @@ function searchLine<T extends LineTrial>(
   }
 
   const launches = K.solverLaunchBoards;
-  const dMin = launches[0], dMax = launches[launches.length - 1];
+  const dMin = launches[0],
+    dMax = launches[launches.length - 1];
   const clampD = (d: number) => Math.min(dMax, Math.max(dMin, d));
   // targets from minTargetBoard (a line closer to the gutter leaves no room) to the far side
   const tRange = (d: number): [number, number] => [Math.max(K.minTargetBoard, 1 - d), Math.min(39, 39 - d)];
   // A gutter ball counts as ten boards past the pocket (the lane's edge walls the search in).
   const effective = (r: LineTrial): number => (ok(r) ? r.entryBoard : Math.max(r.entryBoard, P) + 10);
-  const sample = (d: number, t: number): Sample => { const r = eval2(t + d, t); return { t, e: effective(r), r }; };
+  const sample = (d: number, t: number): Sample => {
+    const r = eval2(t + d, t);
+    return { t, e: effective(r), r };
+  };
 
   /** Lines at launch d across targets lo…hi (a few boards apart), in order of target. */
   const scan = (d: number, from: number, to: number, step: number): Sample[] => {
@@ -163,7 +182,8 @@ function searchLine<T extends LineTrial>(
   const floorOf = (d: number, pts: Sample[]): Sample => {
     let i = 0;
     for (let j = 1; j < pts.length; j++) if (pts[j].e < pts[i].e) i = j;
-    let a = i, b = i;
+    let a = i,
+      b = i;
     while (a > 0 && ok(pts[a - 1].r) && pts[a - 1].e <= pts[i].e + K.floorFlatBoards) a--;
     while (b < pts.length - 1 && ok(pts[b + 1].r) && pts[b + 1].e <= pts[i].e + K.floorFlatBoards) b++;
     if (b - a >= 2) return pts[Math.round((a + b) / 2)];
@@ -181,10 +201,21 @@ function searchLine<T extends LineTrial>(
   const floorNear = (d: number, t: number): { fl: Sample; pts: Sample[] } => {
     const [lo, hi] = tRange(d);
     const cl = (x: number) => Math.min(hi, Math.max(lo, x));
-    let a = sample(d, cl(t - 3)), b = sample(d, cl(t)), c = sample(d, cl(t + 3));
+    let a = sample(d, cl(t - 3)),
+      b = sample(d, cl(t)),
+      c = sample(d, cl(t + 3));
     for (let i = 0; i < 4 && !(b.e <= a.e && b.e <= c.e); i++) {
-      if (a.e < b.e) { if (a.t <= lo) break; c = b; b = a; a = sample(d, cl(a.t - 3)); }
-      else { if (c.t >= hi) break; a = b; b = c; c = sample(d, cl(c.t + 3)); }
+      if (a.e < b.e) {
+        if (a.t <= lo) break;
+        c = b;
+        b = a;
+        a = sample(d, cl(a.t - 3));
+      } else {
+        if (c.t >= hi) break;
+        a = b;
+        b = c;
+        c = sample(d, cl(c.t + 3));
+      }
     }
     const pts = [a, b, c].sort((p, q) => p.t - q.t);
     return { fl: floorOf(d, pts), pts };
@@ -193,7 +224,11 @@ function searchLine<T extends LineTrial>(
   // 1. The bowler's usual launch: look across the lane for the lowest entry (the floor of the valley); warm: walk
   //    to the floor from where the last search of this ball settled.
   const usualD = clampD(K.solverFirstLaunchBoards);
-  const warm = hint.launchBoards !== undefined && hint.targetBoard !== undefined && Number.isFinite(hint.launchBoards) && Number.isFinite(hint.targetBoard);
+  const warm =
+    hint.launchBoards !== undefined &&
+    hint.targetBoard !== undefined &&
+    Number.isFinite(hint.launchBoards) &&
+    Number.isFinite(hint.targetBoard);
   let d = warm ? clampD(hint.launchBoards!) : usualD;
   let pts: Sample[];
   let fl: Sample;
@@ -212,7 +247,8 @@ function searchLine<T extends LineTrial>(
   const holdAt = (list: Sample[]): boolean => {
     const q = [...list].sort((x, y) => x.t - y.t);
     for (let i = 1; i < q.length; i++) {
-      const x = q[i - 1], y = q[i];
+      const x = q[i - 1],
+        y = q[i];
       if (x.t >= K.minTargetBoard && ok(x.r) && ok(y.r) && Math.abs((y.e - x.e) / (y.t - x.t)) <= K.holdSlope) return true;
     }
     return false;
@@ -229,7 +265,10 @@ function searchLine<T extends LineTrial>(
     for (let i = 0; i < 5 && Math.abs(fl.e - P) > 0.3; i++) {
       if (!valley && !light && fl.e < P) break;
       let slope = -2.4;
-      if (prev !== null && Math.abs(d - prev.d) > 1e-6) { const sl = (fl.e - prev.e) / (d - prev.d); if (sl < -0.5) slope = sl; }
+      if (prev !== null && Math.abs(d - prev.d) > 1e-6) {
+        const sl = (fl.e - prev.e) / (d - prev.d);
+        if (sl < -0.5) slope = sl;
+      }
       const next = clampD(d + (P - fl.e) / slope);
       if (Math.abs(next - d) < 1e-3) break; // pinned at an end of the launch range
       prev = { d, e: fl.e };
@@ -241,18 +280,30 @@ function searchLine<T extends LineTrial>(
   // A later search of this ball starts from here when the launch moved (a floor the scan found is found by scanning).
   if (walkFrom !== undefined) settled = { launchBoards: d, targetBoard: walkFrom, valley, light };
   if (fl.e > P + 0.3 && d >= dMax - 1e-6) {
-    return finish('high', `Hooks past the pocket from every line, even launched ${Math.round(dMax / 3)}° out across the lane: too much ball for this condition and release.`);
+    return finish(
+      'high',
+      `Hooks past the pocket from every line, even launched ${Math.round(dMax / 3)}° out across the lane: too much ball for this condition and release.`,
+    );
   }
   const [lo, hi] = tRange(d);
   const usual = Math.abs(d - usualD) < 1e-6;
   // the deepest line of the scan at the usual launch (a warm start did not scan: it throws that one line)
-  const scanTop = (): number => { const from = Math.max(lo, 4); return from + 5 * Math.floor((Math.min(hi, 29) + 1e-9 - from) / 5); };
+  const scanTop = (): number => {
+    const from = Math.max(lo, 4);
+    return from + 5 * Math.floor((Math.min(hi, 29) + 1e-9 - from) / 5);
+  };
   const inner = warm && !valley && usual && fl.e <= P ? sample(d, scanTop()) : pts.reduce((m, q) => (q.t > m.t ? q : m));
   choosing = true;
   if (!valley && usual && fl.e <= P && inner.e < P && ok(inner.r)) {
     // 3d. A weak ball that falls short of the pocket from the deepest line at the usual launch: straighten the
     //     launch (the laydown moves toward the target) until it gets there.
-    root((x) => eval2(x, inner.t), Math.max(1, inner.t + dMin), Math.min(39, inner.t + dMax), inner.t + d - (P - inner.e) / 2.4, 1 - arrowsToPins);
+    root(
+      (x) => eval2(x, inner.t),
+      Math.max(1, inner.t + dMin),
+      Math.min(39, inner.t + dMax),
+      inner.t + d - (P - inner.e) / 2.4,
+      1 - arrowsToPins,
+    );
   } else if (!valley && fl.e <= P) {
     // 3c. No hold area (at the usual launch, or the straightest one the ball needed): move the line inward from the
     //     floor until the ball reaches the pocket.
@@ -274,7 +325,8 @@ function searchLine<T extends LineTrial>(
  * `slope` (boards at the pins per board of x). `monotone` skips the sign-change search's fallbacks.
  */
 function root(evalAt: (x: number) => LineTrial, lo: number, hi: number, x0: number, slope: number, monotone = false): void {
-  const P = C.pocketBoard, tol = K.solverTolBoards;
+  const P = C.pocketBoard,
+    tol = K.solverTolBoards;
   const cl = (x: number) => Math.min(hi, Math.max(lo, x));
   const maxStep = 8 / Math.abs(slope);
   const stepTo = (from: number, dx: number) => cl(from + Math.max(-maxStep, Math.min(maxStep, dx)));
@@ -286,11 +338,16 @@ function root(evalAt: (x: number) => LineTrial, lo: number, hi: number, x0: numb
   for (let it = 0; it < 8 && Math.abs(b.g) > tol; it++) {
     if (a.g * b.g < 0) {
       // bracketed: Illinois (modified regula falsi)
-      let p = a, q = b, gp = a.g;
+      let p = a,
+        q = b,
+        gp = a.g;
       for (let k = 0; k < 12 && Math.abs(q.g) > tol && Math.abs(q.x - p.x) > 1e-4; k++) {
         const x = q.x - (q.g * (q.x - p.x)) / (q.g - gp);
         const c = { x, g: evalAt(x).entryBoard - P };
-        if (c.g * q.g < 0) { p = q; gp = q.g; } else gp /= 2;
+        if (c.g * q.g < 0) {
+          p = q;
+          gp = q.g;
+        } else gp /= 2;
         q = c;
       }
       return;

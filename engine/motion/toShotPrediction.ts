@@ -11,9 +11,17 @@ export function toShotPrediction(r: DeliveryResult, laydownBoard: number, target
   const path: ShotPrediction['path'] = [];
   for (let i = 0; i < r.sampleCount; i++) path.push({ ft: r.sampleFt[i], board: r.sampleBoard[i], speedMph: r.sampleSpeedMph[i] });
   return {
-    path, rollStartFt: r.rollStartFt, skidFt: r.skidFt,
+    path,
+    rollStartFt: r.rollStartFt,
+    skidFt: r.skidFt,
     breakpoint: { ft: r.breakpointFt, board: r.breakpointBoard },
-    entryBoard: r.entryBoard, entryAngleDeg: r.entryAngleDeg, timeToPinsS: r.timeToPinsS, speedAtPinsMph: r.speedAtPinsMph,
-    gutter: r.gutter, flareIn: r.flareIn, laydownBoard, targetBoard,
+    entryBoard: r.entryBoard,
+    entryAngleDeg: r.entryAngleDeg,
+    timeToPinsS: r.timeToPinsS,
+    speedAtPinsMph: r.speedAtPinsMph,
+    gutter: r.gutter,
+    flareIn: r.flareIn,
+    laydownBoard,
+    targetBoard,
   };
 }

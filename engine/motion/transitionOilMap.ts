@@ -31,7 +31,12 @@ export interface TransitionResult {
  * with increasing ft (beyond its ends the nearest point is used).
  * Example: `transitionOilMap(patternOilMap(p), [{ ft: 0, board: 15 }, { ft: 60, board: 17.5 }], 3)`.
  */
-export function transitionOilMap(map: LaneOilMap, track: readonly { ft: number; board: number }[], gamesBowled: number, options: { wood?: boolean } = {}): TransitionResult {
+export function transitionOilMap(
+  map: LaneOilMap,
+  track: readonly { ft: number; board: number }[],
+  gamesBowled: number,
+  options: { wood?: boolean } = {},
+): TransitionResult {
   const fn = 'transitionOilMap';
   assertNumber(fn, 'gamesBowled', gamesBowled, 0, 50);
   if (!Array.isArray(track) || track.length < 2) throw new TypeError(`${fn}: track needs at least 2 points, got ${String(track?.length)}`);
@@ -43,13 +48,15 @@ export function transitionOilMap(map: LaneOilMap, track: readonly { ft: number; 
     if (ft <= track[0].ft) return track[0].board;
     for (let i = 1; i < track.length; i++) {
       if (ft <= track[i].ft) {
-        const a = track[i - 1], b = track[i];
+        const a = track[i - 1],
+          b = track[i];
         return a.board + ((b.board - a.board) * (ft - a.ft)) / (b.ft - a.ft);
       }
     }
     return track[track.length - 1].board;
   };
-  const sigma = K.lineSpreadBoards, norm = K.laneTrackWidthBoards / (sigma * Math.sqrt(2 * Math.PI));
+  const sigma = K.lineSpreadBoards,
+    norm = K.laneTrackWidthBoards / (sigma * Math.sqrt(2 * Math.PI));
   const pickup = K.pickupFraction * (options.wood ? K.woodPickupFactor : 1);
   const share = (j: number, b: number): number => norm * Math.exp(-((j - b) ** 2) / (2 * sigma * sigma));
   let removed = 0;
@@ -65,7 +72,8 @@ export function transitionOilMap(map: LaneOilMap, track: readonly { ft: number; 
   const drop = removed * K.carrydownFraction;
   // carrydown weights: along the track from the pattern end, falling linearly to 0 over carrydownLengthFt
   let wSum = 0;
-  const r0 = Math.ceil(map.patternEndFt / map.ftStep - 1e-9), r1 = Math.min(map.rows - 1, Math.floor((map.patternEndFt + K.carrydownLengthFt) / map.ftStep));
+  const r0 = Math.ceil(map.patternEndFt / map.ftStep - 1e-9),
+    r1 = Math.min(map.rows - 1, Math.floor((map.patternEndFt + K.carrydownLengthFt) / map.ftStep));
   for (let r = r0; r <= r1; r++) {
     const along = 1 - (r * map.ftStep - map.patternEndFt) / K.carrydownLengthFt;
     if (along <= 0) continue;
@@ -78,10 +86,17 @@ export function transitionOilMap(map: LaneOilMap, track: readonly { ft: number; 
       const along = 1 - (r * map.ftStep - map.patternEndFt) / K.carrydownLengthFt;
       if (along <= 0) continue;
       const b = boardAt(r * map.ftStep);
-      for (let j = 1; j <= 39; j++) { const add = (drop * along * share(j, b)) / wSum; filmUm[r * map.cols + j] += add; dropped += add; }
+      for (let j = 1; j <= 39; j++) {
+        const add = (drop * along * share(j, b)) / wSum;
+        filmUm[r * map.cols + j] += add;
+        dropped += add;
+      }
     }
   }
-  for (let r = 0; r < map.rows; r++) { filmUm[r * map.cols] = filmUm[r * map.cols + 1]; filmUm[r * map.cols + 40] = filmUm[r * map.cols + 39]; }
+  for (let r = 0; r < map.rows; r++) {
+    filmUm[r * map.cols] = filmUm[r * map.cols + 1];
+    filmUm[r * map.cols + 40] = filmUm[r * map.cols + 39];
+  }
   const toUl = map.ftStep / C.filmUmPerMicroliterBoardFt;
   return { map: out, shots, removedUl: removed * toUl, carriedDownUl: dropped * toUl, keptOnBallsUl: (removed - dropped) * toUl };
 }

@@ -43,7 +43,6 @@ export const CALIBRATION = Object.freeze({
   } as Record<Exclude<HitKind, 'miss'>, readonly [number, number]>),
 });
 
-
 interface Usable {
   obs: CalibrationObservation;
   spec: string;
@@ -93,7 +92,13 @@ interface Usable {
  * fitCalibration({ bowler, pattern, observations }).perBall[0];
  * // => { ballId: 'b1', frictionScale: 0.86, low: 0.83, high: 0.89, n: 14, enough: true, … }
  */
-export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPattern; observations: CalibrationObservation[]; minShots?: number; lane?: LaneSurface }): Calibration {
+export function fitCalibration(input: {
+  bowler: BowlerProfile;
+  pattern: OilPattern;
+  observations: CalibrationObservation[];
+  minShots?: number;
+  lane?: LaneSurface;
+}): Calibration {
   const fn = 'fitCalibration';
   const inp = record(fn, 'input', input);
   validateBowlerProfile(inp.bowler, fn);
@@ -111,7 +116,8 @@ export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPatte
     const r = record(fn, name, o);
     const ball = record(fn, `${name}.ball`, r.ball);
     validateBallSpec(ball, fn);
-    if (typeof ball.id !== 'string' || ball.id === '') throw new TypeError(`${fn}: ${name}.ball needs a non-empty string id, got ${show(ball.id)}`);
+    if (typeof ball.id !== 'string' || ball.id === '')
+      throw new TypeError(`${fn}: ${name}.ball needs a non-empty string id, got ${show(ball.id)}`);
     inRange(fn, `${name}.laydownBoard`, r.laydownBoard, -5, 45);
     inRange(fn, `${name}.targetBoard`, r.targetBoard, -5, 45);
     if (r.breakpointBoard !== undefined && r.breakpointBoard !== null) inRange(fn, `${name}.breakpointBoard`, r.breakpointBoard, -5, 45);
@@ -141,7 +147,9 @@ export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPatte
   };
 
   const perBall: BallCalibration[] = [];
-  let sumBefore = 0, sumAfter = 0, residualsTotal = 0;
+  let sumBefore = 0,
+    sumAfter = 0,
+    residualsTotal = 0;
   for (const [ballId, items] of [...byBall.entries()].sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))) {
     const residuals = (s: number): number[] => {
       const prepared = new Map<string, PreparedShot>();
@@ -174,7 +182,8 @@ export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPatte
     };
 
     // coarse log-spaced scan, then Brent's method in the bracket around the best point
-    const lnLo = Math.log(K.minScale), lnHi = Math.log(K.maxScale);
+    const lnLo = Math.log(K.minScale),
+      lnHi = Math.log(K.maxScale);
     const grid = Array.from({ length: K.scanPoints }, (_, k) => Math.exp(lnLo + ((lnHi - lnLo) * k) / (K.scanPoints - 1)));
     let best = 0;
     grid.forEach((s, k) => {
@@ -187,14 +196,19 @@ export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPatte
     let keptReachable = false;
     if (items.some((u) => u.obs.hit === 'pocket') && sHat !== 1) {
       const last = items[items.length - 1].obs.ball;
-      const reaches = (sc: number) => { const sh = prepareShot({ ball: last, bowler, pattern, frictionScale: sc, lane }, mapFor(0, lane)); return solvePocketLine(sh.run, {}, {}, sh.preview).reached; };
+      const reaches = (sc: number) => {
+        const sh = prepareShot({ ball: last, bowler, pattern, frictionScale: sc, lane }, mapFor(0, lane));
+        return solvePocketLine(sh.run, {}, {}, sh.preview).reached;
+      };
       if (!reaches(sHat)) {
         keptReachable = true;
-        let bad = sHat, good = 1;
+        let bad = sHat,
+          good = 1;
         if (reaches(1)) {
           for (let k = 0; k < 6; k++) {
             const mid = Math.sqrt(bad * good);
-            if (reaches(mid)) good = mid; else bad = mid;
+            if (reaches(mid)) good = mid;
+            else bad = mid;
           }
         }
         sHat = good;
@@ -213,7 +227,8 @@ export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPatte
         if (dl >= 0.7 * rise && dl <= 1.4 * rise) return g;
       }
       if (loss(toward) <= limit) return toward; // still inside at the range bound
-      let inside = sHat, outside = toward;
+      let inside = sHat,
+        outside = toward;
       while (Math.abs(outside - inside) > K.tolerance) {
         const mid = (inside + outside) / 2;
         if (loss(mid) <= limit) inside = mid;
@@ -254,15 +269,21 @@ export function fitCalibration(input: { bowler: BowlerProfile; pattern: OilPatte
   if (shots === 0) {
     note = `No usable shots yet: a calibration needs first balls with feet and target boards and a breakpoint board or where the ball hit the pins (${minShots} per ball).`;
   } else {
-    const atBound = perBall.filter((p) => p.frictionScale <= K.minScale + K.tolerance || p.frictionScale >= K.maxScale - K.tolerance).length;
+    const atBound = perBall.filter(
+      (p) => p.frictionScale <= K.minScale + K.tolerance || p.frictionScale >= K.maxScale - K.tolerance,
+    ).length;
     note =
       `Friction multiplier fitted per ball from ${shots} logged shot${shots === 1 ? '' : 's'}; ` +
       (ready.length > 0
         ? `calibrated: ${ready.length} of ${perBall.length} ball${perBall.length === 1 ? '' : 's'} (those with at least ${minShots} shots)`
         : `no ball has the ${minShots} shots needed yet, so matchups use the uncalibrated model`) +
       `; model error ${r1(rmsBefore as number)} → ${r1(rmsAfter as number)} boards RMS.` +
-      (atBound > 0 ? ` For ${atBound} ball${atBound === 1 ? '' : 's'} the fit is at the edge of the searched range (${K.minScale}–${K.maxScale}): the model may not describe those shots well.` : '') +
-      (perBall.some((p) => p.keptReachable) ? ' For a ball you have put in the pocket, the fit was held back so that a line to the pocket remains.' : '');
+      (atBound > 0
+        ? ` For ${atBound} ball${atBound === 1 ? '' : 's'} the fit is at the edge of the searched range (${K.minScale}–${K.maxScale}): the model may not describe those shots well.`
+        : '') +
+      (perBall.some((p) => p.keptReachable)
+        ? ' For a ball you have put in the pocket, the fit was held back so that a line to the pocket remains.'
+        : '');
   }
   return {
     shots,

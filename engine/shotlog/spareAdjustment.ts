@@ -24,8 +24,16 @@ export const THREE_SIX_NINE: Readonly<Record<number, { boards: number; side: 'le
 
 /** Row (0 = headpin … 3 = back row) and lateral place (half pin-spacings, negative toward the 7) of each pin; USBC lane specifications. */
 const PLACE: Readonly<Record<number, { row: number; x: number }>> = {
-  1: { row: 0, x: 0 }, 2: { row: 1, x: -1 }, 3: { row: 1, x: 1 }, 4: { row: 2, x: -2 }, 5: { row: 2, x: 0 },
-  6: { row: 2, x: 2 }, 7: { row: 3, x: -3 }, 8: { row: 3, x: -1 }, 9: { row: 3, x: 1 }, 10: { row: 3, x: 3 },
+  1: { row: 0, x: 0 },
+  2: { row: 1, x: -1 },
+  3: { row: 1, x: 1 },
+  4: { row: 2, x: -2 },
+  5: { row: 2, x: 0 },
+  6: { row: 2, x: 2 },
+  7: { row: 3, x: -3 },
+  8: { row: 3, x: -1 },
+  9: { row: 3, x: 1 },
+  10: { row: 3, x: 3 },
 };
 
 /**
@@ -36,7 +44,9 @@ const PLACE: Readonly<Record<number, { row: number; x: number }>> = {
 export function keyPin(leave: number[]): number {
   const side = (p: number): number => Math.sign(PLACE[p].x);
   const weight = (s: number): number => leave.filter((p) => side(p) === s).length;
-  return [...leave].sort((a, b) => PLACE[a].row - PLACE[b].row || Math.abs(PLACE[a].x) - Math.abs(PLACE[b].x) || weight(side(b)) - weight(side(a)) || a - b)[0];
+  return [...leave].sort(
+    (a, b) => PLACE[a].row - PLACE[b].row || Math.abs(PLACE[a].x) - Math.abs(PLACE[b].x) || weight(side(b)) - weight(side(a)) || a - b,
+  )[0];
 }
 
 /**
@@ -63,7 +73,12 @@ export function keyPin(leave: number[]): number {
  * spareAdjustment({ leave: [10], strikeFeetBoard: 15, strikeTargetBoard: 10, hand: 'right' });
  * // => { keyPin: 10, feetBoard: 24, targetBoard: 10, feet: { direction: 'left', boards: 9 }, … }
  */
-export function spareAdjustment(input: { leave: number[]; strikeFeetBoard: number; strikeTargetBoard: number; hand: 'right' | 'left' }): SpareAdjustment {
+export function spareAdjustment(input: {
+  leave: number[];
+  strikeFeetBoard: number;
+  strikeTargetBoard: number;
+  hand: 'right' | 'left';
+}): SpareAdjustment {
   const fn = 'spareAdjustment';
   const inp = record(fn, 'input', input);
   const leave = list(fn, 'leave', inp.leave);
@@ -92,7 +107,9 @@ export function spareAdjustment(input: { leave: number[]; strikeFeetBoard: numbe
     rule.boards === 0
       ? `For the ${name} the key pin is the ${key}: shoot it from your strike line — feet on board ${r1(feet0)}, target board ${r1(target)} at the arrows.`
       : `For the ${name} the key pin is the ${key}: move your feet ${rule.boards} boards ${direction} (board ${r1(feetBoard)} instead of ${r1(feet0)}) and keep your strike target, board ${r1(target)} at the arrows${
-          feetBoard !== wanted ? `; the approach ends at board ${feetBoard}, so the move is ${r1(moved)} boards instead of ${rule.boards}` : ''
+          feetBoard !== wanted
+            ? `; the approach ends at board ${feetBoard}, so the move is ${r1(moved)} boards instead of ${rule.boards}`
+            : ''
         }.`;
   return {
     keyPin: key,

@@ -25,7 +25,8 @@ export const MOVE_THRESHOLDS = Object.freeze({
   spareWindow: 20,
 });
 
-const TWO_AND_ONE_SOURCE = '2-and-1 adjustment, common practice: feet 2 boards and target 1 board the same way, in the direction of the miss';
+const TWO_AND_ONE_SOURCE =
+  '2-and-1 adjustment, common practice: feet 2 boards and target 1 board the same way, in the direction of the miss';
 
 /** Physical direction and boards → the bowler's own board count (+ toward the non-hand side). */
 const own = (m: BoardMove, hand: 'right' | 'left'): number => (m.direction === 'left' ? 1 : -1) * (hand === 'right' ? 1 : -1) * m.boards;
@@ -80,9 +81,14 @@ export function suggestMoves(input: { shots: ShotRecord[]; hand: 'right' | 'left
     .sort((x, y) => {
       const s = x.e.shot;
       const t = y.e.shot;
-      return (s.date < t.date ? -1 : s.date > t.date ? 1 : 0) ||
+      return (
+        (s.date < t.date ? -1 : s.date > t.date ? 1 : 0) ||
         (sessionOrder.get(s.sessionId) as number) - (sessionOrder.get(t.sessionId) as number) ||
-        s.gameNumber - t.gameNumber || s.frame - t.frame || s.delivery - t.delivery || x.i - y.i;
+        s.gameNumber - t.gameNumber ||
+        s.frame - t.frame ||
+        s.delivery - t.delivery ||
+        x.i - y.i
+      );
     })
     .map((x) => x.e);
   const isFirst = (e: ShotEntry): boolean => (e.view ? e.view.rackBall === 1 : e.shot.delivery === 1);
@@ -92,7 +98,9 @@ export function suggestMoves(input: { shots: ShotRecord[]; hand: 'right' | 'left
 
   if (last) {
     const sameLine = (e: ShotEntry): boolean =>
-      e.shot.ballId === last.shot.ballId && (e.shot.feetBoard ?? null) === (last.shot.feetBoard ?? null) && (e.shot.targetBoard ?? null) === (last.shot.targetBoard ?? null);
+      e.shot.ballId === last.shot.ballId &&
+      (e.shot.feetBoard ?? null) === (last.shot.feetBoard ?? null) &&
+      (e.shot.targetBoard ?? null) === (last.shot.targetBoard ?? null);
     // the current line: the run of first balls at the end with the same ball, feet and target
     const line: ShotEntry[] = [];
     for (let k = firsts.length - 1; k >= 0 && sameLine(firsts[k]); k--) line.unshift(firsts[k]);
@@ -129,23 +137,32 @@ export function suggestMoves(input: { shots: ShotRecord[]; hand: 'right' | 'left
       const target = { direction, boards: big ? 2 : 1 };
       const parts: string[] = [];
       if (streak >= T.streak) {
-        parts.push(`the last ${streak} first balls with a recorded hit on this line were ${side}${brooklyn > 0 ? ` (${brooklyn} of them Brooklyn)` : ''}`);
+        parts.push(
+          `the last ${streak} first balls with a recorded hit on this line were ${side}${brooklyn > 0 ? ` (${brooklyn} of them Brooklyn)` : ''}`,
+        );
       }
       if (driftSide === missSide) {
-        parts.push(`the breakpoint moved ${Math.abs(drift).toFixed(1)} boards ${drift > 0 ? 'toward the middle' : 'toward the gutter'} over the last ${bps.length} shots with a breakpoint on this line`);
+        parts.push(
+          `the breakpoint moved ${Math.abs(drift).toFixed(1)} boards ${drift > 0 ? 'toward the middle' : 'toward the gutter'} over the last ${bps.length} shots with a breakpoint on this line`,
+        );
       }
       const f0 = last.shot.feetBoard;
       const t0 = last.shot.targetBoard;
-      const whereTo = typeof f0 === 'number' && typeof t0 === 'number'
-        ? ` — from board ${f0} to ${f0 + own(feet, hand)} with the feet and from ${t0} to ${t0 + own(target, hand)} at the arrows`
-        : '';
+      const whereTo =
+        typeof f0 === 'number' && typeof t0 === 'number'
+          ? ` — from board ${f0} to ${f0 + own(feet, hand)} with the feet and from ${t0} to ${t0 + own(target, hand)} at the arrows`
+          : '';
       moves.push({
         kind: 'two-and-one',
         title: `Move ${feet.boards} and ${target.boards} ${direction}`,
         detail: `${
           streak >= T.streak
-            ? missSide === 'high' ? 'The ball is hooking too much and hitting high' : 'The ball is not getting back to the pocket'
-            : missSide === 'high' ? 'The breakpoint is moving toward the middle: the ball is reading the lane earlier' : 'The breakpoint is moving toward the gutter: the ball is going longer'
+            ? missSide === 'high'
+              ? 'The ball is hooking too much and hitting high'
+              : 'The ball is not getting back to the pocket'
+            : missSide === 'high'
+              ? 'The breakpoint is moving toward the middle: the ball is reading the lane earlier'
+              : 'The breakpoint is moving toward the gutter: the ball is going longer'
         }: move your feet ${feet.boards} boards and your target ${target.boards} board${target.boards > 1 ? 's' : ''} ${direction}${whereTo}, to change the angle while keeping about the same breakpoint.`,
         feet,
         target,
@@ -155,16 +172,19 @@ export function suggestMoves(input: { shots: ShotRecord[]; hand: 'right' | 'left
 
       // ball change: the same miss after moves already made this way with this ball in this session
       if (streak >= T.streak && typeof f0 === 'number') {
-        const session = firsts.filter((e) => e.shot.sessionId === last.shot.sessionId && e.shot.ballId === last.shot.ballId && typeof e.shot.feetBoard === 'number');
+        const session = firsts.filter(
+          (e) => e.shot.sessionId === last.shot.sessionId && e.shot.ballId === last.shot.ballId && typeof e.shot.feetBoard === 'number',
+        );
         const startFeet = session[0]?.shot.feetBoard as number;
         const moved = (f0 - startFeet) * (hand === 'right' ? 1 : -1) * (direction === 'left' ? 1 : -1);
         if (session.length > 0 && moved >= T.ballChangeAfterBoards) {
           moves.push({
             kind: 'ball-change',
             title: missSide === 'high' ? 'Try a weaker ball or a smoother surface' : 'Try a stronger ball or a rougher surface',
-            detail: missSide === 'high'
-              ? 'Moving has not stopped the high hits: a ball that reads the lane later (a weaker cover, a higher grit or polish) keeps its energy for the back end.'
-              : 'Moving has not brought the ball back: a ball that reads the oil earlier (a stronger cover, a lower grit) will hook more.',
+            detail:
+              missSide === 'high'
+                ? 'Moving has not stopped the high hits: a ball that reads the lane later (a weaker cover, a higher grit or polish) keeps its energy for the back end.'
+                : 'Moving has not brought the ball back: a ball that reads the oil earlier (a stronger cover, a lower grit) will hook more.',
             evidence: `You have already moved ${moved} boards ${direction} with this ball this session (feet board ${startFeet} → ${f0}) and the last ${streak} first balls were still ${side}.`,
             source: 'common practice; cover and surface directions',
           });
@@ -174,7 +194,9 @@ export function suggestMoves(input: { shots: ShotRecord[]; hand: 'right' | 'left
   }
 
   // spare system: a single-pin leave missed again and again
-  const spareChances = ordered.filter((e) => e.view !== null && e.view.rackBall === 2 && e.view.pinsBefore.length === 1 && !e.view.foul).slice(-T.spareWindow);
+  const spareChances = ordered
+    .filter((e) => e.view !== null && e.view.rackBall === 2 && e.view.pinsBefore.length === 1 && !e.view.foul)
+    .slice(-T.spareWindow);
   const missed = new Map<number, number>();
   const seen = new Map<number, number>();
   for (const e of spareChances) {
@@ -193,15 +215,26 @@ export function suggestMoves(input: { shots: ShotRecord[]; hand: 'right' | 'left
         strikeTargetBoard: median(lineOf.map((e) => e.shot.targetBoard as number)),
         hand,
       });
-      moves.push({ kind: 'spare-system', title: `${leaveName([pin])} pin: stand on board ${adj.feetBoard}`, detail: adj.detail, feet: adj.feet, evidence, source: adj.source });
+      moves.push({
+        kind: 'spare-system',
+        title: `${leaveName([pin])} pin: stand on board ${adj.feetBoard}`,
+        detail: adj.detail,
+        feet: adj.feet,
+        evidence,
+        source: adj.source,
+      });
     } else {
       const adj = spareAdjustment({ leave: [pin], strikeFeetBoard: 20, strikeTargetBoard: 10, hand });
       moves.push({
         kind: 'spare-system',
-        title: adj.feet.boards === 0 ? `${pin} pin: shoot it from your strike line` : `${pin} pin: move ${adj.feet.boards} boards ${adj.feet.direction}`,
-        detail: adj.feet.boards === 0
-          ? 'By the 3-6-9 system this pin is shot from the strike position, feet and target unchanged.'
-          : `Keep your strike target and move your feet ${adj.feet.boards} boards ${adj.feet.direction} from your strike position (record feet and target boards to get the exact board).`,
+        title:
+          adj.feet.boards === 0
+            ? `${pin} pin: shoot it from your strike line`
+            : `${pin} pin: move ${adj.feet.boards} boards ${adj.feet.direction}`,
+        detail:
+          adj.feet.boards === 0
+            ? 'By the 3-6-9 system this pin is shot from the strike position, feet and target unchanged.'
+            : `Keep your strike target and move your feet ${adj.feet.boards} boards ${adj.feet.direction} from your strike position (record feet and target boards to get the exact board).`,
         feet: adj.feet,
         evidence,
         source: adj.source,

@@ -66,8 +66,7 @@ export interface GameView {
 
 /** checkDelivery's answer: the delivery as it would appear on the sheet, or why it cannot be. */
 export type DeliveryCheck =
-  | { ok: true; view: DeliveryView }
-  | { ok: false; field: 'frame' | 'delivery' | 'standing' | 'foul'; reason: string };
+  { ok: true; view: DeliveryView } | { ok: false; field: 'frame' | 'delivery' | 'standing' | 'foul'; reason: string };
 
 /**
  * Where a first ball met the pins (right-hander's view mirrored for left-handers): 'pocket' the

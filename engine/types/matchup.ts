@@ -29,7 +29,6 @@ export interface Suggestion {
   change?: Record<string, unknown>;
 }
 
-
 /** Input of rankArsenal. */
 export interface RankArsenalInput {
   balls: ArsenalBall[];

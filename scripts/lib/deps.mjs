@@ -44,7 +44,11 @@ export function newestMtime(dirs) {
 export function buildClientIfStale(log = console.log) {
   const index = path.join(root, 'dist', 'client', 'index.html');
   const built = fs.existsSync(index) ? fs.statSync(index).mtimeMs : 0;
-  const sources = Math.max(newestMtime(['client', 'shared', 'engine']), fs.statSync(path.join(root, 'vite.config.ts')).mtimeMs, fs.statSync(path.join(root, 'package-lock.json')).mtimeMs);
+  const sources = Math.max(
+    newestMtime(['client', 'shared', 'engine']),
+    fs.statSync(path.join(root, 'vite.config.ts')).mtimeMs,
+    fs.statSync(path.join(root, 'package-lock.json')).mtimeMs,
+  );
   if (built > sources) return false;
   log('Building the client (vite build) …');
   runBin('vite', ['build', '--logLevel', 'warn']);

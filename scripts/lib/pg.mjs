@@ -25,14 +25,18 @@ export function ensurePgInstalled(log = console.log) {
   if (bin) return bin;
   log('PostgreSQL server binaries not found; installing Debian package "postgresql" …');
   if (!isRoot) {
-    throw new Error('PostgreSQL is not installed and this user cannot run apt-get. Run: sudo apt-get install -y postgresql (or set DATABASE_URL to an existing server).');
+    throw new Error(
+      'PostgreSQL is not installed and this user cannot run apt-get. Run: sudo apt-get install -y postgresql (or set DATABASE_URL to an existing server).',
+    );
   }
   const env = { ...process.env, DEBIAN_FRONTEND: 'noninteractive' };
   const upd = spawnSync('apt-get', ['update', '-qq'], { stdio: 'inherit', env });
   const inst = spawnSync('apt-get', ['install', '-y', '-qq', 'postgresql'], { stdio: 'inherit', env });
   bin = findPgBin();
   if (upd.status !== 0 || inst.status !== 0 || !bin) {
-    throw new Error('Could not install PostgreSQL with apt-get. Install the "postgresql" package by hand, or set DATABASE_URL to an existing server.');
+    throw new Error(
+      'Could not install PostgreSQL with apt-get. Install the "postgresql" package by hand, or set DATABASE_URL to an existing server.',
+    );
   }
   return bin;
 }
@@ -79,7 +83,10 @@ function chownToPostgres(dir) {
 export function portOpen(port) {
   return new Promise((resolve) => {
     const s = net.connect({ host: '127.0.0.1', port });
-    s.once('connect', () => { s.destroy(); resolve(true); });
+    s.once('connect', () => {
+      s.destroy();
+      resolve(true);
+    });
     s.once('error', () => resolve(false));
   });
 }
@@ -100,7 +107,15 @@ export function freePort() {
  * Creates (when missing) and starts a cluster in dataDir on 127.0.0.1:port, with a login role and database.
  * Returns the connection URL. Idempotent: a running cluster is reused.
  */
-export async function startCluster({ dataDir, port, user = 'lanewright', password = 'lanewright', database = 'lanewright', log = console.log, extraOptions = '' }) {
+export async function startCluster({
+  dataDir,
+  port,
+  user = 'lanewright',
+  password = 'lanewright',
+  database = 'lanewright',
+  log = console.log,
+  extraOptions = '',
+}) {
   const bin = ensurePgInstalled(log);
   const pgdata = path.resolve(dataDir);
   fs.mkdirSync(path.dirname(pgdata), { recursive: true });
@@ -111,7 +126,19 @@ export async function startCluster({ dataDir, port, user = 'lanewright', passwor
     fs.writeFileSync(pwfile, password + '\n', { mode: 0o600 });
     chownToPostgres(pgdata);
     chownToPostgres(pwfile);
-    const r = pgRun(bin, 'initdb', ['-D', pgdata, '-U', user, `--pwfile=${pwfile}`, '--auth-local=trust', '--auth-host=scram-sha-256', '-E', 'UTF8', '--locale=C.UTF-8', '--no-instructions']);
+    const r = pgRun(bin, 'initdb', [
+      '-D',
+      pgdata,
+      '-U',
+      user,
+      `--pwfile=${pwfile}`,
+      '--auth-local=trust',
+      '--auth-host=scram-sha-256',
+      '-E',
+      'UTF8',
+      '--locale=C.UTF-8',
+      '--no-instructions',
+    ]);
     fs.rmSync(pwfile, { force: true });
     if (r.status !== 0) throw new Error(`initdb failed:\n${r.stderr || r.stdout}`);
   }
@@ -121,11 +148,24 @@ export async function startCluster({ dataDir, port, user = 'lanewright', passwor
     const opts = `-p ${port} -k ${pgdata} -c listen_addresses=127.0.0.1 -c fsync=off -c full_page_writes=off ${extraOptions}`.trim();
     const r = pgRun(bin, 'pg_ctl', ['-D', pgdata, '-o', opts, '-l', path.join(pgdata, 'server.log'), '-w', '-t', '60', 'start']);
     if (r.status !== 0) {
-      const tail = fs.existsSync(path.join(pgdata, 'server.log')) ? fs.readFileSync(path.join(pgdata, 'server.log'), 'utf8').split('\n').slice(-15).join('\n') : '';
+      const tail = fs.existsSync(path.join(pgdata, 'server.log'))
+        ? fs.readFileSync(path.join(pgdata, 'server.log'), 'utf8').split('\n').slice(-15).join('\n')
+        : '';
       throw new Error(`PostgreSQL did not start:\n${r.stderr || r.stdout}\n${tail}`);
     }
   }
-  const exists = pgRun(bin, 'psql', ['-h', pgdata, '-p', String(port), '-U', user, '-d', 'postgres', '-tAc', `SELECT 1 FROM pg_database WHERE datname='${database}'`]);
+  const exists = pgRun(bin, 'psql', [
+    '-h',
+    pgdata,
+    '-p',
+    String(port),
+    '-U',
+    user,
+    '-d',
+    'postgres',
+    '-tAc',
+    `SELECT 1 FROM pg_database WHERE datname='${database}'`,
+  ]);
   if (exists.status !== 0) throw new Error(`Cannot reach the cluster: ${exists.stderr}`);
   if (exists.stdout.trim() !== '1') {
     const c = pgRun(bin, 'createdb', ['-h', pgdata, '-p', String(port), '-U', user, database]);
@@ -157,12 +197,33 @@ export function makeTempClusterDir(prefix) {
  * 127.0.0.1:primaryPort into dataDir, with -R (standby.signal and primary_conninfo), then started on its own port.
  * Returns the standby's URL for `database`.
  */
-export async function startStandby({ dataDir, primaryPort, port, user = 'lanewright', password = 'lanewright', database = 'lanewright', extraOptions = '' }) {
+export async function startStandby({
+  dataDir,
+  primaryPort,
+  port,
+  user = 'lanewright',
+  password = 'lanewright',
+  database = 'lanewright',
+  extraOptions = '',
+}) {
   const bin = ensurePgInstalled(() => undefined);
   const pgdata = path.resolve(dataDir);
   fs.mkdirSync(path.dirname(pgdata), { recursive: true });
   chownToPostgres(path.dirname(pgdata));
-  const r = pgRun(bin, 'pg_basebackup', ['-h', '127.0.0.1', '-p', String(primaryPort), '-U', user, '-D', pgdata, '-R', '-X', 'stream', '-c', 'fast'], { env: { ...process.env, PGPASSWORD: password } });
+  const r = pgRun(
+    bin,
+    'pg_basebackup',
+    ['-h', '127.0.0.1', '-p', String(primaryPort), '-U', user, '-D', pgdata, '-R', '-X', 'stream', '-c', 'fast'],
+    { env: { ...process.env, PGPASSWORD: password } },
+  );
   if (r.status !== 0) throw new Error(`pg_basebackup failed:\n${r.stderr || r.stdout}`);
-  return startCluster({ dataDir: pgdata, port, user, password, database, log: () => undefined, extraOptions: `-c hot_standby=on ${extraOptions}` });
+  return startCluster({
+    dataDir: pgdata,
+    port,
+    user,
+    password,
+    database,
+    log: () => undefined,
+    extraOptions: `-c hot_standby=on ${extraOptions}`,
+  });
 }

@@ -16,7 +16,9 @@ export function pgTool(name) {
   if (bin && fs.existsSync(path.join(bin, name))) return path.join(bin, name);
   const which = spawnSync('sh', ['-c', `command -v ${name}`], { encoding: 'utf8' });
   if (which.status === 0 && which.stdout.trim()) return which.stdout.trim();
-  throw new Error(`${name} not found: install Debian's PostgreSQL client (apt-get install postgresql-client), or run npm start once (it installs postgresql).`);
+  throw new Error(
+    `${name} not found: install Debian's PostgreSQL client (apt-get install postgresql-client), or run npm start once (it installs postgresql).`,
+  );
 }
 
 /**

@@ -17,7 +17,10 @@ function parseTrustProxy(v: string | undefined): boolean | number | string[] {
   if (s === '' || s === 'false') return false;
   if (s === 'true') return true;
   if (/^\d+$/.test(s)) return Number(s);
-  return s.split(',').map((x) => x.trim()).filter(Boolean);
+  return s
+    .split(',')
+    .map((x) => x.trim())
+    .filter(Boolean);
 }
 
 const ConfigSchema = z
@@ -30,7 +33,10 @@ const ConfigSchema = z
     DB_POOL_MAX: z.coerce.number().int().min(1).max(100).default(10),
     /** Where this installation keeps its own files (the generated development secret, the payment fake's state). */
     DATA_DIR: z.string().default('.data'),
-    JWT_SECRET: z.preprocess(blankToUndefined, z.string().min(32, 'JWT_SECRET must be at least 32 characters (e.g. `openssl rand -base64 48`)').optional()),
+    JWT_SECRET: z.preprocess(
+      blankToUndefined,
+      z.string().min(32, 'JWT_SECRET must be at least 32 characters (e.g. `openssl rand -base64 48`)').optional(),
+    ),
     JWT_EXPIRES_IN: z.string().default('12h'),
     BCRYPT_COST: z.coerce.number().int().min(10).max(15).default(10),
     BODY_LIMIT: z.string().default('100kb'),
@@ -65,8 +71,17 @@ const ConfigSchema = z
     /** Longest an engine task may wait for a thread before its request is answered 503 (ms). */
     ENGINE_QUEUE_WAIT_MS: z.coerce.number().int().min(100).max(60000).default(4000),
     /** Card payments: a real secret key and webhook signing secret switch to the real service; without them (not in production) the project's own fake runs. */
-    STRIPE_SECRET_KEY: z.preprocess(blankToUndefined, z.string().regex(/^(sk|rk)_(test|live)_\S+$/, 'a secret key starts with sk_test_, sk_live_, rk_test_ or rk_live_').optional()),
-    STRIPE_WEBHOOK_SECRET: z.preprocess(blankToUndefined, z.string().startsWith('whsec_', 'a webhook signing secret starts with whsec_').optional()),
+    STRIPE_SECRET_KEY: z.preprocess(
+      blankToUndefined,
+      z
+        .string()
+        .regex(/^(sk|rk)_(test|live)_\S+$/, 'a secret key starts with sk_test_, sk_live_, rk_test_ or rk_live_')
+        .optional(),
+    ),
+    STRIPE_WEBHOOK_SECRET: z.preprocess(
+      blankToUndefined,
+      z.string().startsWith('whsec_', 'a webhook signing secret starts with whsec_').optional(),
+    ),
     /** Another API address for the SDK (e.g. the fake run alone: http://127.0.0.1:12111); unset = the real service. */
     STRIPE_API_URL: z.preprocess(blankToUndefined, z.string().url().optional()),
     /** Replicas for reads (hot standbys), comma-separated URLs; writes and reads that follow a user's own write go to DATABASE_URL. */
@@ -91,22 +106,41 @@ const ConfigSchema = z
     STRIPE_FAKE_PORT: z.coerce.number().int().min(0).max(65535).default(0),
   })
   .superRefine((c, ctx) => {
-    for (const u of (c.DATABASE_REPLICA_URLS ?? '').split(',').map((x) => x.trim()).filter(Boolean)) {
-      if (!URL.canParse(u) || !/^postgres(ql)?:$/.test(new URL(u).protocol)) ctx.addIssue({ code: 'custom', path: ['DATABASE_REPLICA_URLS'], message: 'a comma-separated list of postgres:// URLs' });
+    for (const u of (c.DATABASE_REPLICA_URLS ?? '')
+      .split(',')
+      .map((x) => x.trim())
+      .filter(Boolean)) {
+      if (!URL.canParse(u) || !/^postgres(ql)?:$/.test(new URL(u).protocol))
+        ctx.addIssue({ code: 'custom', path: ['DATABASE_REPLICA_URLS'], message: 'a comma-separated list of postgres:// URLs' });
     }
     if (c.JWT_SECRET && PUBLISHED_JWT_SECRETS.has(c.JWT_SECRET)) {
-      ctx.addIssue({ code: 'custom', path: ['JWT_SECRET'], message: 'this JWT_SECRET was published in the repository; set a real JWT_SECRET (or leave it unset in development)' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['JWT_SECRET'],
+        message: 'this JWT_SECRET was published in the repository; set a real JWT_SECRET (or leave it unset in development)',
+      });
     }
     if (c.NODE_ENV === 'production') {
       if (!c.JWT_SECRET) ctx.addIssue({ code: 'custom', path: ['JWT_SECRET'], message: 'set a real JWT_SECRET in production' });
-      if (!c.PUBLIC_URL) ctx.addIssue({ code: 'custom', path: ['PUBLIC_URL'], message: 'set PUBLIC_URL in production (the address users reach, e.g. https://lanes.example): every link is built from it' });
+      if (!c.PUBLIC_URL)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['PUBLIC_URL'],
+          message: 'set PUBLIC_URL in production (the address users reach, e.g. https://lanes.example): every link is built from it',
+        });
       if (!c.DATABASE_URL) ctx.addIssue({ code: 'custom', path: ['DATABASE_URL'], message: 'set DATABASE_URL in production' });
       if (!c.SMTP_URL) ctx.addIssue({ code: 'custom', path: ['SMTP_URL'], message: 'set SMTP_URL in production' });
-      if (!c.STRIPE_SECRET_KEY) ctx.addIssue({ code: 'custom', path: ['STRIPE_SECRET_KEY'], message: 'set STRIPE_SECRET_KEY in production' });
-      if (!c.STRIPE_WEBHOOK_SECRET) ctx.addIssue({ code: 'custom', path: ['STRIPE_WEBHOOK_SECRET'], message: 'set STRIPE_WEBHOOK_SECRET in production' });
+      if (!c.STRIPE_SECRET_KEY)
+        ctx.addIssue({ code: 'custom', path: ['STRIPE_SECRET_KEY'], message: 'set STRIPE_SECRET_KEY in production' });
+      if (!c.STRIPE_WEBHOOK_SECRET)
+        ctx.addIssue({ code: 'custom', path: ['STRIPE_WEBHOOK_SECRET'], message: 'set STRIPE_WEBHOOK_SECRET in production' });
     }
     if (Boolean(c.STRIPE_SECRET_KEY) !== Boolean(c.STRIPE_WEBHOOK_SECRET)) {
-      ctx.addIssue({ code: 'custom', path: ['STRIPE_WEBHOOK_SECRET'], message: 'set STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET together (or neither, for the local fake)' });
+      ctx.addIssue({
+        code: 'custom',
+        path: ['STRIPE_WEBHOOK_SECRET'],
+        message: 'set STRIPE_SECRET_KEY and STRIPE_WEBHOOK_SECRET together (or neither, for the local fake)',
+      });
     }
   });
 
@@ -169,7 +203,10 @@ function load(): Config {
   return {
     ...c,
     databaseUrl,
-    replicaUrls: (c.DATABASE_REPLICA_URLS ?? '').split(',').map((u) => u.trim()).filter(Boolean),
+    replicaUrls: (c.DATABASE_REPLICA_URLS ?? '')
+      .split(',')
+      .map((u) => u.trim())
+      .filter(Boolean),
     JWT_SECRET: secret,
     jwtSecretSource,
     TRUST_PROXY: parseTrustProxy(c.TRUST_PROXY),

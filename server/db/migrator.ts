@@ -11,7 +11,11 @@ export type MigrationContext = QueryInterface;
 
 /** Runs the migrations of server/db/migrations/index.ts in order; their state lives in table "migrations". */
 export const migrator = new Umzug<QueryInterface>({
-  migrations: MIGRATIONS.map(({ name, module }) => ({ name, up: ({ context }) => module.up({ context }), down: ({ context }) => module.down({ context }) })),
+  migrations: MIGRATIONS.map(({ name, module }) => ({
+    name,
+    up: ({ context }) => module.up({ context }),
+    down: ({ context }) => module.down({ context }),
+  })),
   context: sequelize.getQueryInterface(),
   storage: new SequelizeStorage({ sequelize, tableName: 'migrations' }),
   logger: { info: (m) => logger.debug(m), warn: (m) => logger.warn(m), error: (m) => logger.error(m), debug: (m) => logger.trace(m) },

@@ -5,7 +5,13 @@ import { logger, requestContext } from '../lib/logger';
 /** Sequelize's connection fields from a postgres:// URL (replication takes one object per server). */
 function serverOf(url: string): { host: string; port: number; username: string; password: string; database: string } {
   const u = new URL(url);
-  return { host: u.hostname, port: Number(u.port || 5432), username: decodeURIComponent(u.username), password: decodeURIComponent(u.password), database: decodeURIComponent(u.pathname.slice(1)) };
+  return {
+    host: u.hostname,
+    port: Number(u.port || 5432),
+    username: decodeURIComponent(u.username),
+    password: decodeURIComponent(u.password),
+    database: decodeURIComponent(u.pathname.slice(1)),
+  };
 }
 
 const common: Options = {

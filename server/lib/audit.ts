@@ -7,7 +7,13 @@ export async function audit(
   transaction?: Transaction,
 ): Promise<void> {
   await AuditEvent.create(
-    { actorId: entry.actorId, action: entry.action, subjectType: entry.subjectType, subjectId: String(entry.subjectId), details: entry.details ?? {} },
+    {
+      actorId: entry.actorId,
+      action: entry.action,
+      subjectType: entry.subjectType,
+      subjectId: String(entry.subjectId),
+      details: entry.details ?? {},
+    },
     { transaction },
   );
 }

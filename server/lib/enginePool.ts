@@ -103,7 +103,16 @@ function compileWorker(): string {
   // Development only: esbuild is a development dependency, loaded here on demand.
   const { buildSync } = createRequire(import.meta.url)('esbuild') as typeof import('esbuild');
   const out = path.join(tmpdir(), `lanewright-engine-worker-${process.pid}-${crypto.randomBytes(4).toString('hex')}.mjs`);
-  buildSync({ entryPoints: [path.join(here, 'engineWorker.ts')], bundle: true, platform: 'node', format: 'esm', target: 'node20', outfile: out, logLevel: 'silent', legalComments: 'none' });
+  buildSync({
+    entryPoints: [path.join(here, 'engineWorker.ts')],
+    bundle: true,
+    platform: 'node',
+    format: 'esm',
+    target: 'node20',
+    outfile: out,
+    logLevel: 'silent',
+    legalComments: 'none',
+  });
   return out;
 }
 

@@ -89,11 +89,18 @@ export function jobs(): Promise<PgBoss> {
 }
 
 /** Sends a job, inside `transaction` when given (it is then committed or rolled back with it). Returns whether it was new. */
-export async function sendJob(queue: QueueName, key: string, data: object, opts: { transaction?: Transaction; startAfterSeconds?: number; singletonKey?: string } = {}): Promise<boolean> {
+export async function sendJob(
+  queue: QueueName,
+  key: string,
+  data: object,
+  opts: { transaction?: Transaction; startAfterSeconds?: number; singletonKey?: string } = {},
+): Promise<boolean> {
   const b = await jobs();
   const q = QUEUES[queue];
   // The transaction's own connection (Sequelize keeps the pg client on it), so the job commits with the cause.
-  const conn = (opts.transaction as unknown as { connection?: { query: (text: string, values: unknown[]) => Promise<{ rows: unknown[] }> } } | undefined)?.connection;
+  const conn = (
+    opts.transaction as unknown as { connection?: { query: (text: string, values: unknown[]) => Promise<{ rows: unknown[] }> } } | undefined
+  )?.connection;
   const id = await b.send(queue, data, {
     id: jobId(queue, key),
     expireInSeconds: config.JOBS_EXPIRE_SECONDS ?? q.expireInSeconds,
@@ -118,18 +125,22 @@ export const jobEvents = { onDone: (_q: QueueName, _ms: number) => undefined as 
 export async function workQueue(queue: QueueName, concurrency: number, handler: JobHandler): Promise<void> {
   const b = await jobs();
   for (let i = 0; i < concurrency; i++) {
-    const id = await b.work<Record<string, unknown>>(queue, { batchSize: 1, includeMetadata: true, pollingIntervalSeconds: config.JOBS_POLL_SECONDS }, async ([job]) => {
-      const started = Date.now();
-      try {
-        const out = await handler(job.data, job);
-        jobEvents.onDone(queue, Date.now() - started);
-        return out;
-      } catch (err) {
-        jobEvents.onFailed(queue);
-        logger.warn({ err, queue, jobId: job.id, retry: job.retryCount }, 'job failed; it will be retried');
-        throw err;
-      }
-    });
+    const id = await b.work<Record<string, unknown>>(
+      queue,
+      { batchSize: 1, includeMetadata: true, pollingIntervalSeconds: config.JOBS_POLL_SECONDS },
+      async ([job]) => {
+        const started = Date.now();
+        try {
+          const out = await handler(job.data, job);
+          jobEvents.onDone(queue, Date.now() - started);
+          return out;
+        } catch (err) {
+          jobEvents.onFailed(queue);
+          logger.warn({ err, queue, jobId: job.id, retry: job.retryCount }, 'job failed; it will be retried');
+          throw err;
+        }
+      },
+    );
     workerIds.set(queue, [...(workerIds.get(queue) ?? []), id]);
   }
 }
@@ -148,5 +159,8 @@ export async function stopJobs(timeoutMs = 10000): Promise<void> {
   boss = null;
   starting = null;
   workerIds.clear();
-  if (b) await b.stop({ graceful: true, wait: true, timeout: timeoutMs }).catch((err: unknown) => logger.warn({ err }, 'job queue did not stop cleanly'));
+  if (b)
+    await b
+      .stop({ graceful: true, wait: true, timeout: timeoutMs })
+      .catch((err: unknown) => logger.warn({ err }, 'job queue did not stop cleanly'));
 }

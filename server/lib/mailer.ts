@@ -24,9 +24,24 @@ async function getTransport(): Promise<Transporter> {
 }
 
 /** Sends one e-mail through SMTP now (callers normally go through the outbox: enqueueMail). */
-export async function sendMail(msg: { to: string; subject: string; text: string; html?: string | null; headers?: Record<string, string>; messageId?: string }): Promise<void> {
+export async function sendMail(msg: {
+  to: string;
+  subject: string;
+  text: string;
+  html?: string | null;
+  headers?: Record<string, string>;
+  messageId?: string;
+}): Promise<void> {
   const t = await getTransport();
-  await t.sendMail({ from: config.MAIL_FROM, to: msg.to, subject: msg.subject, text: msg.text, ...(msg.html ? { html: msg.html } : {}), ...(msg.headers ? { headers: msg.headers } : {}), ...(msg.messageId ? { messageId: msg.messageId } : {}) });
+  await t.sendMail({
+    from: config.MAIL_FROM,
+    to: msg.to,
+    subject: msg.subject,
+    text: msg.text,
+    ...(msg.html ? { html: msg.html } : {}),
+    ...(msg.headers ? { headers: msg.headers } : {}),
+    ...(msg.messageId ? { messageId: msg.messageId } : {}),
+  });
 }
 
 export async function closeMailer(): Promise<void> {

@@ -20,11 +20,32 @@ export const httpDuration = new client.Histogram({
   registers: [registry],
 });
 
-export const rankingSeconds = new client.Histogram({ name: 'lanewright_ranking_seconds', help: 'Time of one arsenal ranking in the engine threads', buckets, registers: [registry] });
-export const calibrationFitSeconds = new client.Histogram({ name: 'lanewright_calibration_fit_seconds', help: 'Time of one calibration fit (job worker)', buckets, registers: [registry] });
+export const rankingSeconds = new client.Histogram({
+  name: 'lanewright_ranking_seconds',
+  help: 'Time of one arsenal ranking in the engine threads',
+  buckets,
+  registers: [registry],
+});
+export const calibrationFitSeconds = new client.Histogram({
+  name: 'lanewright_calibration_fit_seconds',
+  help: 'Time of one calibration fit (job worker)',
+  buckets,
+  registers: [registry],
+});
 
-const jobSeconds = new client.Histogram({ name: 'lanewright_job_duration_seconds', help: 'Job run time by queue', labelNames: ['queue'] as const, buckets, registers: [registry] });
-const jobFailures = new client.Counter({ name: 'lanewright_job_failures_total', help: 'Job runs that failed (each is retried per its queue)', labelNames: ['queue'] as const, registers: [registry] });
+const jobSeconds = new client.Histogram({
+  name: 'lanewright_job_duration_seconds',
+  help: 'Job run time by queue',
+  labelNames: ['queue'] as const,
+  buckets,
+  registers: [registry],
+});
+const jobFailures = new client.Counter({
+  name: 'lanewright_job_failures_total',
+  help: 'Job runs that failed (each is retried per its queue)',
+  labelNames: ['queue'] as const,
+  registers: [registry],
+});
 jobEvents.onDone = (q: QueueName, ms: number) => jobSeconds.observe({ queue: q }, ms / 1000);
 jobEvents.onFailed = (q: QueueName) => jobFailures.inc({ queue: q });
 
@@ -46,7 +67,11 @@ new client.Gauge({
 export function metricsMiddleware(req: Request, res: Response, next: NextFunction): void {
   const end = httpDuration.startTimer();
   res.on('finish', () => {
-    const route = req.route?.path ? `${req.baseUrl}${typeof req.route.path === 'string' ? req.route.path : ''}` : req.path.startsWith('/api/') ? 'unmatched' : 'static';
+    const route = req.route?.path
+      ? `${req.baseUrl}${typeof req.route.path === 'string' ? req.route.path : ''}`
+      : req.path.startsWith('/api/')
+        ? 'unmatched'
+        : 'static';
     end({ method: req.method, route, status: `${Math.floor(res.statusCode / 100)}xx` });
   });
   next();

@@ -34,7 +34,17 @@ export async function enqueueMail(mails: OutgoingMail[], transaction?: Transacti
   if (!transaction) return sequelize.transaction((t) => enqueueMail(mails, t));
   const now = new Date();
   const rows = await MailOutbox.bulkCreate(
-    mails.map((m) => ({ toAddress: m.to, subject: m.subject, text: m.text, html: m.html ?? null, kind: m.kind, ref: m.ref ?? null, nextAttemptAt: now, lastError: null, sentAt: null })),
+    mails.map((m) => ({
+      toAddress: m.to,
+      subject: m.subject,
+      text: m.text,
+      html: m.html ?? null,
+      kind: m.kind,
+      ref: m.ref ?? null,
+      nextAttemptAt: now,
+      lastError: null,
+      sentAt: null,
+    })),
     { transaction, returning: ['id'] },
   );
   for (const r of rows) await sendJob('mail', String(r.id), { outboxId: Number(r.id) }, { transaction });
@@ -69,20 +79,32 @@ export async function deliverOutboxRow(id: number): Promise<'sent' | 'skipped'> 
   } catch (err) {
     const message = (err instanceof Error ? err.message : String(err)).slice(0, 500);
     const failed = row.attempts >= MAX_ATTEMPTS;
-    await sequelize.query(`UPDATE mail_outbox SET status = :status, last_error = :message, next_attempt_at = :next, claimed_at = NULL, updated_at = now() WHERE id = :id`, {
-      replacements: { id, status: failed ? 'failed' : 'pending', message, next: new Date(Date.now() + backoffMs(row.attempts)) },
-    });
-    logger.warn({ outboxId: row.id, attempts: row.attempts, err: message }, failed ? 'mail delivery failed for good' : 'mail delivery failed; will retry');
+    await sequelize.query(
+      `UPDATE mail_outbox SET status = :status, last_error = :message, next_attempt_at = :next, claimed_at = NULL, updated_at = now() WHERE id = :id`,
+      {
+        replacements: { id, status: failed ? 'failed' : 'pending', message, next: new Date(Date.now() + backoffMs(row.attempts)) },
+      },
+    );
+    logger.warn(
+      { outboxId: row.id, attempts: row.attempts, err: message },
+      failed ? 'mail delivery failed for good' : 'mail delivery failed; will retry',
+    );
     if (failed) return 'skipped';
     throw err;
   }
-  await sequelize.query(`UPDATE mail_outbox SET status = 'sent', sent_at = now(), last_error = NULL, claimed_at = NULL, updated_at = now() WHERE id = :id`, { replacements: { id } });
+  await sequelize.query(
+    `UPDATE mail_outbox SET status = 'sent', sent_at = now(), last_error = NULL, claimed_at = NULL, updated_at = now() WHERE id = :id`,
+    { replacements: { id } },
+  );
   return 'sent';
 }
 
 /** Jobs for pending rows that have none (rows written before the queue existed, or whose job was lost): the job id dedupes. */
 export async function requeuePendingMail(): Promise<number> {
-  const rows = await sequelize.query<{ id: string }>(`SELECT id FROM mail_outbox WHERE status IN ('pending', 'sending') AND created_at < now() - interval '1 minute' ORDER BY id LIMIT 1000`, { type: QueryTypes.SELECT });
+  const rows = await sequelize.query<{ id: string }>(
+    `SELECT id FROM mail_outbox WHERE status IN ('pending', 'sending') AND created_at < now() - interval '1 minute' ORDER BY id LIMIT 1000`,
+    { type: QueryTypes.SELECT },
+  );
   let n = 0;
   for (const r of rows) if (await sendJob('mail', String(r.id), { outboxId: Number(r.id) })) n += 1;
   return n;

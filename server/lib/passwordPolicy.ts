@@ -14,14 +14,25 @@ export const MIN_PASSWORD_SCORE = 3;
 
 let factory: ZxcvbnFactory | null = null;
 function estimator(): ZxcvbnFactory {
-  factory ??= new ZxcvbnFactory({ dictionary: { ...common.dictionary, ...en.dictionary }, graphs: common.adjacencyGraphs, translations: en.translations });
+  factory ??= new ZxcvbnFactory({
+    dictionary: { ...common.dictionary, ...en.dictionary },
+    graphs: common.adjacencyGraphs,
+    translations: en.translations,
+  });
   return factory;
 }
 
 /** The user's own words the password may not be built from: the e-mail, its local part and domain labels, and each word of the name. */
 function userWords(email: string, displayName: string): string[] {
   const [local = '', domain = ''] = email.toLowerCase().split('@');
-  const words = [email.toLowerCase(), local, ...local.split(/[^a-z0-9]+/), ...domain.split('.').filter((d) => d.length > 3), displayName.toLowerCase(), ...displayName.toLowerCase().split(/[^\p{L}\p{N}]+/u)];
+  const words = [
+    email.toLowerCase(),
+    local,
+    ...local.split(/[^a-z0-9]+/),
+    ...domain.split('.').filter((d) => d.length > 3),
+    displayName.toLowerCase(),
+    ...displayName.toLowerCase().split(/[^\p{L}\p{N}]+/u),
+  ];
   return [...new Set(words.filter((w) => w.length >= 3))];
 }
 
@@ -30,6 +41,10 @@ export function assertStrongPassword(password: string, user: { email: string; di
   const r = estimator().check(password, userWords(user.email, user.displayName));
   if (r.score >= MIN_PASSWORD_SCORE) return;
   const usesOwn = r.sequence.some((m) => 'dictionaryName' in m && m.dictionaryName === 'userInputs');
-  const hint = usesOwn ? 'It is built from your own e-mail or name.' : (r.feedback.warning ?? 'It is a common password or an easy pattern.');
-  throw new AppError(400, 'weak_password', 'Choose a password that is harder to guess', { [field]: `Too easy to guess. ${hint} Use several unrelated words or a password manager.`.replace(/\s+/g, ' ').trim() });
+  const hint = usesOwn
+    ? 'It is built from your own e-mail or name.'
+    : (r.feedback.warning ?? 'It is a common password or an easy pattern.');
+  throw new AppError(400, 'weak_password', 'Choose a password that is harder to guess', {
+    [field]: `Too easy to guess. ${hint} Use several unrelated words or a password manager.`.replace(/\s+/g, ' ').trim(),
+  });
 }

@@ -18,7 +18,10 @@ import { logger } from './logger';
  * The in-process fake's credentials: drawn at random for each start and shared only between the fake and
  * this process (its SDK client and its webhook check), so a signature can never be forged from the repository.
  */
-const fakeCredentials = { apiKey: `sk_test_${crypto.randomBytes(24).toString('base64url')}`, webhookSecret: `whsec_${crypto.randomBytes(32).toString('base64url')}` };
+const fakeCredentials = {
+  apiKey: `sk_test_${crypto.randomBytes(24).toString('base64url')}`,
+  webhookSecret: `whsec_${crypto.randomBytes(32).toString('base64url')}`,
+};
 
 export const usingPaymentFake = !config.STRIPE_SECRET_KEY;
 
@@ -38,7 +41,15 @@ export function paymentFake(): Promise<StripeFake> | null {
   // In development its state survives restarts (a payment made before `tsx watch` reloaded can still be refunded).
   const stateFile = config.NODE_ENV === 'development' ? path.resolve(config.DATA_DIR, 'payment-fake.json') : undefined;
   fake ??= import('../dev/stripeFake/index')
-    .then(({ startStripeFake }) => startStripeFake({ port: config.STRIPE_FAKE_PORT, apiKey: fakeCredentials.apiKey, webhookSecret: fakeCredentials.webhookSecret, webhookUrl: webhookTarget, stateFile }))
+    .then(({ startStripeFake }) =>
+      startStripeFake({
+        port: config.STRIPE_FAKE_PORT,
+        apiKey: fakeCredentials.apiKey,
+        webhookSecret: fakeCredentials.webhookSecret,
+        webhookUrl: webhookTarget,
+        stateFile,
+      }),
+    )
     .then((f) => {
       logger.info({ url: f.url }, 'local payment fake listening');
       return f;

@@ -23,11 +23,14 @@ export class PostgresRateLimitStore implements Store {
   }
 
   async get(key: string): Promise<ClientRateLimitInfo | undefined> {
-    const [row] = await sequelize.query<{ hits: number; reset_at: Date }>('SELECT hits, reset_at FROM rate_limit_hits WHERE key = :key AND reset_at > now()', {
-      replacements: { key: this.key(key) },
-      type: QueryTypes.SELECT,
-      useMaster: true,
-    });
+    const [row] = await sequelize.query<{ hits: number; reset_at: Date }>(
+      'SELECT hits, reset_at FROM rate_limit_hits WHERE key = :key AND reset_at > now()',
+      {
+        replacements: { key: this.key(key) },
+        type: QueryTypes.SELECT,
+        useMaster: true,
+      },
+    );
     return row ? { totalHits: row.hits, resetTime: new Date(row.reset_at) } : undefined;
   }
 
@@ -48,7 +51,9 @@ export class PostgresRateLimitStore implements Store {
   }
 
   async decrement(key: string): Promise<void> {
-    await sequelize.query('UPDATE rate_limit_hits SET hits = GREATEST(hits - 1, 0) WHERE key = :key AND reset_at > now()', { replacements: { key: this.key(key) } });
+    await sequelize.query('UPDATE rate_limit_hits SET hits = GREATEST(hits - 1, 0) WHERE key = :key AND reset_at > now()', {
+      replacements: { key: this.key(key) },
+    });
   }
 
   async resetKey(key: string): Promise<void> {

@@ -33,7 +33,11 @@ export function localStorage(dir = path.resolve(config.UPLOAD_DIR)): FileStorage
 
 export const storage: FileStorage = localStorage();
 
-const IMAGE_TYPES = { png: { ext: 'png', type: 'image/png' }, jpeg: { ext: 'jpg', type: 'image/jpeg' }, webp: { ext: 'webp', type: 'image/webp' } } as const;
+const IMAGE_TYPES = {
+  png: { ext: 'png', type: 'image/png' },
+  jpeg: { ext: 'jpg', type: 'image/jpeg' },
+  webp: { ext: 'webp', type: 'image/webp' },
+} as const;
 /** Largest photo accepted, in pixels (about 6000 × 4000): a small file can claim a huge canvas ("decompression bomb"). */
 export const MAX_IMAGE_PIXELS = 24_000_000;
 

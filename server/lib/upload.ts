@@ -24,7 +24,11 @@ const patternUpload = multer({
   limits: { fileSize: 256 * 1024, files: 1, fields: 10 },
   fileFilter: (_req, file, cb) => {
     if (!/\.(json|csv)$/i.test(file.originalname) || !(CSV_TYPES.has(file.mimetype) || file.mimetype === 'application/json')) {
-      cb(new AppError(400, 'unsupported_file', 'Upload a .json or .csv pattern file', { file: 'The file must be Lanewright JSON (.json) or CSV (.csv)' }));
+      cb(
+        new AppError(400, 'unsupported_file', 'Upload a .json or .csv pattern file', {
+          file: 'The file must be Lanewright JSON (.json) or CSV (.csv)',
+        }),
+      );
       return;
     }
     cb(null, true);
@@ -83,16 +87,30 @@ export interface RowError {
  * Parses a CSV with a header row and validates every row with `rowSchema` (after `coerce`).
  * All or nothing: any bad row → AppError 400 listing each row's errors by line; otherwise the parsed rows.
  */
-export function parseCsvRows<T>(buf: Buffer, rowSchema: z.ZodType<T>, coerce: (raw: Record<string, string>) => unknown, maxRows = 2000): T[] {
+export function parseCsvRows<T>(
+  buf: Buffer,
+  rowSchema: z.ZodType<T>,
+  coerce: (raw: Record<string, string>) => unknown,
+  maxRows = 2000,
+): T[] {
   let records: Record<string, string>[];
   try {
-    records = parse(buf, { columns: (h: string[]) => h.map((x) => x.trim()), skip_empty_lines: true, trim: true, bom: true, max_record_size: 10000 });
+    records = parse(buf, {
+      columns: (h: string[]) => h.map((x) => x.trim()),
+      skip_empty_lines: true,
+      trim: true,
+      bom: true,
+      max_record_size: 10000,
+    });
   } catch (e) {
     const line = (e as { lines?: number }).lines;
-    throw new AppError(400, 'csv_malformed', `The CSV could not be parsed${line ? ` near line ${line}` : ''}`, { file: (e as Error).message });
+    throw new AppError(400, 'csv_malformed', `The CSV could not be parsed${line ? ` near line ${line}` : ''}`, {
+      file: (e as Error).message,
+    });
   }
   if (records.length === 0) throw new AppError(400, 'csv_empty', 'The CSV has no data rows', { file: 'No rows after the header' });
-  if (records.length > maxRows) throw new AppError(400, 'csv_too_many_rows', `At most ${maxRows} rows per file`, { file: `${records.length} rows` });
+  if (records.length > maxRows)
+    throw new AppError(400, 'csv_too_many_rows', `At most ${maxRows} rows per file`, { file: `${records.length} rows` });
   const errors: RowError[] = [];
   const out: T[] = [];
   records.forEach((raw, i) => {
@@ -104,7 +122,12 @@ export function parseCsvRows<T>(buf: Buffer, rowSchema: z.ZodType<T>, coerce: (r
   if (errors.length > 0) {
     const fields: Record<string, string> = {};
     for (const e of errors) fields[`rows.${e.line}.${e.field}`] ??= e.message;
-    throw new AppError(400, 'csv_invalid_rows', `${new Set(errors.map((e) => e.line)).size} row(s) have errors; nothing was imported`, fields);
+    throw new AppError(
+      400,
+      'csv_invalid_rows',
+      `${new Set(errors.map((e) => e.line)).size} row(s) have errors; nothing was imported`,
+      fields,
+    );
   }
   return out;
 }

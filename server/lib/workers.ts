@@ -21,7 +21,12 @@ const id = z.coerce.number().int().positive();
 /** A `calibration` job's data: a published condition, or a pattern on a lane surface (the default surface for jobs that name none). */
 const FitJobSchema = z.union([
   z.object({ bowlerId: id, conditionId: id }),
-  z.object({ bowlerId: id, patternId: id, laneKind: z.enum(LANE_KINDS).default(DEFAULT_LANE_SURFACE.kind), laneFriction: z.enum(LANE_FRICTIONS).default(DEFAULT_LANE_SURFACE.friction) }),
+  z.object({
+    bowlerId: id,
+    patternId: id,
+    laneKind: z.enum(LANE_KINDS).default(DEFAULT_LANE_SURFACE.kind),
+    laneFriction: z.enum(LANE_FRICTIONS).default(DEFAULT_LANE_SURFACE.friction),
+  }),
 ]);
 
 function fitRequestOf(data: Record<string, unknown>): FitRequest {

@@ -130,7 +130,9 @@ passport.use(
 /** Before a signed-in user's write: note it on the primary, so their reads for the next READ_YOUR_WRITES_MS (from any process) skip the replicas. */
 async function markWrite(req: Request, user: AuthUser): Promise<void> {
   if (req.method === 'GET' || req.method === 'HEAD' || !hasReplicas) return;
-  await sequelize.query('INSERT INTO user_write_marks (user_id, at) VALUES (:id, now()) ON CONFLICT (user_id) DO UPDATE SET at = now()', { replacements: { id: user.id } });
+  await sequelize.query('INSERT INTO user_write_marks (user_id, at) VALUES (:id, now()) ON CONFLICT (user_id) DO UPDATE SET at = now()', {
+    replacements: { id: user.id },
+  });
   forgetSignedInUser(user.id);
 }
 

@@ -13,7 +13,8 @@ interface HttpishError {
 /** PostgreSQL error classes meaning "the server is not there right now": connection exception (08…), shutdown / cannot connect now (57P01–57P03), too many connections (53300). */
 const PG_UNAVAILABLE_CODE = /^(08|57P0[1-3]$|53300$)/;
 /** What node-postgres says when the connection under a query died (the server stopped or restarted). */
-const CONNECTION_LOST = /Connection terminated|connection error and is not queryable|Client was closed and is not queryable|ECONNREFUSED|ECONNRESET|EPIPE|terminating connection/i;
+const CONNECTION_LOST =
+  /Connection terminated|connection error and is not queryable|Client was closed and is not queryable|ECONNREFUSED|ECONNRESET|EPIPE|terminating connection/i;
 
 function isDbUnavailable(err: unknown): boolean {
   const name = (err as { name?: string })?.name ?? '';
@@ -48,18 +49,24 @@ export function errorHandler(err: unknown, req: Request, res: Response, next: Ne
     return;
   }
   if (typeof status === 'number' && status >= 400 && status < 500 && e.expose !== false) {
-    res.status(status).json({ error: { code: e.type?.replace(/\./g, '_') ?? 'bad_request', message: 'The request could not be processed' } });
+    res
+      .status(status)
+      .json({ error: { code: e.type?.replace(/\./g, '_') ?? 'bad_request', message: 'The request could not be processed' } });
     return;
   }
   if ((err as { name?: string })?.name === 'SequelizeOptimisticLockError') {
     // Two requests saved the same versioned row at once and this one lost: a conflict, not a server fault.
-    res.status(409).json({ error: { code: 'stale_version', message: 'This record was changed by another request at the same time; reload it and try again' } });
+    res.status(409).json({
+      error: { code: 'stale_version', message: 'This record was changed by another request at the same time; reload it and try again' },
+    });
     return;
   }
   if ((err as { name?: string })?.name === 'SequelizeUniqueConstraintError') {
     // Two requests created the same unique row at once and this one lost (the services use INSERT … ON CONFLICT
     // where a race is expected; anything left is a conflict to retry, not a server fault).
-    res.status(409).json({ error: { code: 'conflict', message: 'This record was created by another request at the same time; reload and try again' } });
+    res
+      .status(409)
+      .json({ error: { code: 'conflict', message: 'This record was created by another request at the same time; reload and try again' } });
     return;
   }
   if (isDbUnavailable(err)) {
@@ -73,5 +80,5 @@ export function errorHandler(err: unknown, req: Request, res: Response, next: Ne
 
 /** Unknown API routes answer 404 in the error shape. */
 export function notFound(req: Request, res: Response): void {
-  res.status(404).json({ error: { code: 'not_found', message: `No route for ${req.method} ${req.originalUrl.split("?")[0]}` } });
+  res.status(404).json({ error: { code: 'not_found', message: `No route for ${req.method} ${req.originalUrl.split('?')[0]}` } });
 }

@@ -100,6 +100,29 @@ Plan.belongsTo(Ball, { foreignKey: 'ballId', as: 'ball' });
 Annotation.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
 BowlingSession.hasMany(Annotation, { foreignKey: 'sessionId', as: 'annotations' });
 
-export { sequelize, Annotation, BowlingSession, CoachLink, Plan, Shot, AuditEvent, Ball, BallModel, BowlerProfile, Center, Condition, Follow, Trial, Lane, MailOutbox, EmailVerification, PasswordReset, Pattern, SurfaceEvent, Upload, User };
+export {
+  sequelize,
+  Annotation,
+  BowlingSession,
+  CoachLink,
+  Plan,
+  Shot,
+  AuditEvent,
+  Ball,
+  BallModel,
+  BowlerProfile,
+  Center,
+  Condition,
+  Follow,
+  Trial,
+  Lane,
+  MailOutbox,
+  EmailVerification,
+  PasswordReset,
+  Pattern,
+  SurfaceEvent,
+  Upload,
+  User,
+};
 export { Order, OrderEvent, Payment, PaymentEvent, ShopService };
 export { CalibrationFit };

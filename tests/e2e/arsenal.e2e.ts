@@ -13,7 +13,10 @@ describe('arsenal screen', () => {
     const table = page.getByRole('table', { name: 'Your balls' }).or(page.locator('.arsenal__table'));
     await page.getByRole('link', { name: 'Big Red' }).waitFor();
     for (const name of ['Big Red', 'Backend', 'Control', 'Spare']) await page.getByRole('link', { name, exact: true }).waitFor();
-    await page.getByRole('status').filter({ hasText: /\d+ balls\./ }).waitFor();
+    await page
+      .getByRole('status')
+      .filter({ hasText: /\d+ balls\./ })
+      .waitFor();
     expect(await table.count()).toBeGreaterThan(0);
     await screenshot(page, 'arsenal-desktop');
 
@@ -29,8 +32,14 @@ describe('arsenal screen', () => {
     await signIn(page, DEMO.lee);
     await page.goto('/arsenal');
     await page.getByRole('heading', { level: 1, name: 'Arsenal' }).waitFor();
-    await page.getByRole('status').filter({ hasText: /\d+ balls\./ }).waitFor();
-    const before = await page.getByRole('status').filter({ hasText: /\d+ balls\./ }).textContent();
+    await page
+      .getByRole('status')
+      .filter({ hasText: /\d+ balls\./ })
+      .waitFor();
+    const before = await page
+      .getByRole('status')
+      .filter({ hasText: /\d+ balls\./ })
+      .textContent();
 
     await page.getByRole('button', { name: 'Import CSV' }).click();
     const dialog = page.getByRole('dialog', { name: 'Import balls from a CSV file' });
@@ -50,7 +59,12 @@ describe('arsenal screen', () => {
     await dialog.getByText('nothing was imported').waitFor();
     await screenshot(page, 'arsenal-import-errors-desktop');
     await dialog.getByRole('button', { name: 'Cancel' }).click();
-    expect(await page.getByRole('status').filter({ hasText: /\d+ balls\./ }).textContent()).toBe(before);
+    expect(
+      await page
+        .getByRole('status')
+        .filter({ hasText: /\d+ balls\./ })
+        .textContent(),
+    ).toBe(before);
   });
 
   it('the ball page shows specs, the legality badge and the surface history; a stale edit is reported and reloaded', async () => {
@@ -78,7 +92,9 @@ describe('arsenal screen', () => {
     await dialog.waitFor();
     const token = await page.evaluate(() => localStorage.getItem('lanewright.token'));
     const id = new URL(page.url()).pathname.split('/').pop();
-    const current = (await (await fetch(`${baseUrl}/api/arsenal/${id}`, { headers: { Authorization: `Bearer ${token}` } })).json()) as { item: { version: number } };
+    const current = (await (await fetch(`${baseUrl}/api/arsenal/${id}`, { headers: { Authorization: `Bearer ${token}` } })).json()) as {
+      item: { version: number };
+    };
     const patched = await fetch(`${baseUrl}/api/arsenal/${id}`, {
       method: 'PATCH',
       headers: { Authorization: `Bearer ${token}`, 'Content-Type': 'application/json' },
@@ -140,17 +156,26 @@ describe('arsenal screen', () => {
 
     await page.goto('/catalogue');
     await page.getByRole('heading', { level: 1, name: 'Catalogue' }).waitFor();
-    await page.getByRole('status').filter({ hasText: /\d+ balls found\./ }).waitFor();
+    await page
+      .getByRole('status')
+      .filter({ hasText: /\d+ balls found\./ })
+      .waitFor();
     expect(await hasHorizontalScroll(page)).toBe(false);
     await screenshot(page, 'catalogue-mobile');
 
     // Filters: a range that leaves only the low-RG balls.
     await page.getByLabel('RG to').fill('2.48');
     await page.getByLabel('RG to').press('Tab');
-    await page.getByRole('status').filter({ hasText: /^[1-9] balls? found\.$/ }).waitFor();
+    await page
+      .getByRole('status')
+      .filter({ hasText: /^[1-9] balls? found\.$/ })
+      .waitFor();
     await page.getByRole('button', { name: 'Clear filters' }).click();
 
-    await page.getByRole('button', { name: /^Add .+ to arsenal$/ }).first().click();
+    await page
+      .getByRole('button', { name: /^Add .+ to arsenal$/ })
+      .first()
+      .click();
     const dialog = page.getByRole('dialog', { name: /to your arsenal$/ });
     await dialog.waitFor();
     // A ball over the USBC weight limit can be kept (and is flagged), up to 18 lb.

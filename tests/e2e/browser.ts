@@ -9,7 +9,8 @@ import { afterAll, afterEach, beforeAll, expect } from 'vitest';
  */
 export function appUrl(): string {
   const url = process.env.LW_E2E_BASE_URL;
-  if (!url) throw new Error('no server for this browser test file: run it in the Vitest project "e2e" (tests/helpers/e2eServer.ts starts one)');
+  if (!url)
+    throw new Error('no server for this browser test file: run it in the Vitest project "e2e" (tests/helpers/e2eServer.ts starts one)');
   return url;
 }
 
@@ -74,7 +75,12 @@ export function eventually<T>(read: () => Promise<T>, timeout = WAIT_MS) {
  * keyboard — once it is enabled: a select waiting for what it depends on (the order dialog's services wait for
  * the centers) is disabled, and Enter on it opens nothing. Options still loading appear in the open list.
  */
-export async function chooseOption(page: Page, combobox: Locator, option: string | RegExp, opts: { exact?: boolean; first?: boolean } = {}): Promise<void> {
+export async function chooseOption(
+  page: Page,
+  combobox: Locator,
+  option: string | RegExp,
+  opts: { exact?: boolean; first?: boolean } = {},
+): Promise<void> {
   await eventually(() => combobox.getAttribute('aria-disabled')).not.toBe('true');
   await combobox.focus();
   await page.keyboard.press('Enter');
@@ -177,7 +183,11 @@ export function uniqueEmail(tag: string): string {
 
 /** Signs in through the API and returns the bearer token. */
 export async function apiToken(baseUrl: string, email: string, password = DEMO_PASSWORD): Promise<string> {
-  const res = await fetch(`${baseUrl}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email, password }) });
+  const res = await fetch(`${baseUrl}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ email, password }),
+  });
   if (res.status !== 200) throw new Error(`sign-in of ${email}: ${res.status}`);
   return ((await res.json()) as { token: string }).token;
 }
@@ -192,7 +202,11 @@ export async function devMailbox(baseUrl: string): Promise<{ to: string[]; subje
 /** Waits for a link to `path` (e.g. '/verify-email') in a mail to `email` and returns the whole link. */
 export async function mailedLink(baseUrl: string, email: string, path: string): Promise<string> {
   const re = new RegExp(`https?://\\S+${path.replace(/[/]/g, '\\/')}\\?token=[\\w-]+`);
-  const find = async () => (await devMailbox(baseUrl)).filter((m) => m.to.includes(email)).map((m) => re.exec(m.text)?.[0]).find(Boolean);
+  const find = async () =>
+    (await devMailbox(baseUrl))
+      .filter((m) => m.to.includes(email))
+      .map((m) => re.exec(m.text)?.[0])
+      .find(Boolean);
   // the outbox sends within milliseconds normally, many seconds on a loaded machine: poll, never sleep a fixed time
   await eventually(find).toBeTruthy();
   return (await find())!;
@@ -201,6 +215,10 @@ export async function mailedLink(baseUrl: string, email: string, path: string): 
 /** Confirms a newly registered address the way its owner would: the token of the mailed verification link. */
 export async function verifyByMail(baseUrl: string, email: string): Promise<void> {
   const token = new URL(await mailedLink(baseUrl, email, '/verify-email')).searchParams.get('token');
-  const res = await fetch(`${baseUrl}/api/auth/verify-email`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ token }) });
+  const res = await fetch(`${baseUrl}/api/auth/verify-email`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ token }),
+  });
   if (res.status !== 200) throw new Error(`verifying ${email}: ${res.status}`);
 }

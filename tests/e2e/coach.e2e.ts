@@ -1,6 +1,18 @@
 import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { chooseOption, DEMO, DEMO_PASSWORD, MOBILE, eventually, hasHorizontalScroll, screenshot, signIn, uniqueEmail, verifyByMail, useBrowser } from './browser';
+import {
+  chooseOption,
+  DEMO,
+  DEMO_PASSWORD,
+  MOBILE,
+  eventually,
+  hasHorizontalScroll,
+  screenshot,
+  signIn,
+  uniqueEmail,
+  verifyByMail,
+  useBrowser,
+} from './browser';
 
 const { baseUrl, open } = useBrowser(MOBILE);
 
@@ -10,7 +22,11 @@ async function choose(page: Page, combobox: string, option: string | RegExp): Pr
 }
 
 async function login(email: string): Promise<string> {
-  const res = await fetch(`${baseUrl}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email, password: DEMO_PASSWORD }) });
+  const res = await fetch(`${baseUrl}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ email, password: DEMO_PASSWORD }),
+  });
   expect(res.status).toBe(200);
   return ((await res.json()) as { token: string }).token;
 }
@@ -19,9 +35,15 @@ async function login(email: string): Promise<string> {
 async function ensureLinked(): Promise<void> {
   const auth = (t: string) => ({ Authorization: `Bearer ${t}`, 'Content-Type': 'application/json' });
   const coachToken = await login(DEMO.coach);
-  const students = (await (await fetch(`${baseUrl}/api/coach/students`, { headers: auth(coachToken) })).json()) as { items: { student: { email: string } }[] };
+  const students = (await (await fetch(`${baseUrl}/api/coach/students`, { headers: auth(coachToken) })).json()) as {
+    items: { student: { email: string } }[];
+  };
   if (students.items.some((s) => s.student.email === DEMO.dana)) return;
-  const invited = await fetch(`${baseUrl}/api/coach/invitations`, { method: 'POST', headers: auth(coachToken), body: JSON.stringify({ email: DEMO.dana }) });
+  const invited = await fetch(`${baseUrl}/api/coach/invitations`, {
+    method: 'POST',
+    headers: auth(coachToken),
+    body: JSON.stringify({ email: DEMO.dana }),
+  });
   expect(invited.status).toBe(201);
   const link = ((await invited.json()) as { item: { id: number } }).item;
   const accepted = await fetch(`${baseUrl}/api/coach/links/${link.id}/accept`, { method: 'POST', headers: auth(await login(DEMO.dana)) });
@@ -85,7 +107,9 @@ describe('coach: invitations, plans and the side-by-side what-if at 375 px', () 
     await choose(page, 'Ball to compare', /^Big Red/);
     await choose(page, 'Condition to compare on', 'Long Haul 47');
     await choose(page, 'Version B grit', '4000 grit');
-    const verdict = page.getByRole('status').filter({ hasText: /^From A to B: Breakpoint (\d+\.\d ft (later|earlier)|at the same distance)/ });
+    const verdict = page
+      .getByRole('status')
+      .filter({ hasText: /^From A to B: Breakpoint (\d+\.\d ft (later|earlier)|at the same distance)/ });
     await verdict.waitFor({ timeout: 60000 });
     await page.getByRole('img', { name: /^Lane view of Long Haul 47 from above/ }).waitFor();
     await eventually(() => page.locator('svg path[data-ball="a"]').count()).toBe(1);
@@ -96,7 +120,11 @@ describe('coach: invitations, plans and the side-by-side what-if at 375 px', () 
     // The student's stats, read by the coach.
     await page.getByRole('link', { name: "Dana Holloway's stats and calibration" }).click();
     await page.getByRole('heading', { level: 1, name: 'Stats — Dana Holloway' }).waitFor();
-    await page.getByRole('heading', { level: 2, name: /^(Overall|Calibration)$/ }).or(page.getByText('No shots logged for this choice yet.')).first().waitFor({ timeout: 90000 });
+    await page
+      .getByRole('heading', { level: 2, name: /^(Overall|Calibration)$/ })
+      .or(page.getByText('No shots logged for this choice yet.'))
+      .first()
+      .waitFor({ timeout: 90000 });
     expect(await page.locator('.el-alert--error').count()).toBe(0);
     expect(await hasHorizontalScroll(page)).toBe(false);
   });

@@ -32,7 +32,11 @@ async function expectNumber(page: Page, key: string, value: string): Promise<voi
   expect(await numberOf(page, key)).toBe(value);
 }
 
-async function fillSweep(page: Page, n: number, values: Partial<Record<'from board' | 'to board' | 'start (ft)' | 'end (ft)' | 'crossings' | 'oil per board (µL)', string>>): Promise<void> {
+async function fillSweep(
+  page: Page,
+  n: number,
+  values: Partial<Record<'from board' | 'to board' | 'start (ft)' | 'end (ft)' | 'crossings' | 'oil per board (µL)', string>>,
+): Promise<void> {
   for (const [label, value] of Object.entries(values)) {
     await page.getByLabel(`Sweep ${n} ${label}`, { exact: true }).fill(value);
   }
@@ -41,7 +45,10 @@ async function fillSweep(page: Page, n: number, values: Partial<Record<'from boa
 /** The id of a center of the demo seed, looked up by name through the public list, page by page. */
 async function centerNamed(name: string): Promise<number> {
   for (let page = 1; ; page += 1) {
-    const body = (await (await fetch(`${baseUrl}/api/centers?page=${page}&pageSize=100`)).json()) as { items: { id: number; name: string }[]; total: number };
+    const body = (await (await fetch(`${baseUrl}/api/centers?page=${page}&pageSize=100`)).json()) as {
+      items: { id: number; name: string }[];
+      total: number;
+    };
     const hit = body.items.find((c) => c.name === name);
     if (hit || page * 100 >= body.total) return hit?.id ?? 0;
   }
@@ -128,7 +135,9 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
     expect(await dialog.getByRole('button', { name: 'Lane 12', exact: true }).getAttribute('aria-pressed')).toBe('true');
     expect(await dialog.getByRole('button', { name: 'Lane 13', exact: true }).getAttribute('aria-pressed')).toBe('false');
     // The lane surface of those lanes (default synthetic, medium friction): wood with low friction.
-    expect(await dialog.getByRole('radiogroup', { name: 'Lane material' }).getByRole('radio', { name: 'Synthetic' }).isChecked()).toBe(true);
+    expect(await dialog.getByRole('radiogroup', { name: 'Lane material' }).getByRole('radio', { name: 'Synthetic' }).isChecked()).toBe(
+      true,
+    );
     await dialog.getByRole('radiogroup', { name: 'Lane material' }).getByText('Wood', { exact: true }).click();
     await dialog.getByRole('radiogroup', { name: 'Lane friction' }).getByText('Low', { exact: true }).click();
     await dialog.getByLabel('Notes for bowlers (optional)').fill('Fresh oil on lanes 1–12 for the Tuesday trio league.');
@@ -224,11 +233,15 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
     const { page } = await open();
     await signIn(page, DEMO.admin);
     const nav = page.getByRole('navigation', { name: 'Main' });
-    for (const name of ['Patterns', 'Conditions', 'Center admin', 'Dev mailbox']) await nav.getByRole('link', { name, exact: true }).waitFor();
+    for (const name of ['Patterns', 'Conditions', 'Center admin', 'Dev mailbox'])
+      await nav.getByRole('link', { name, exact: true }).waitFor();
     await screenshot(page, 'nav-admin-desktop');
     await nav.getByRole('link', { name: 'Patterns', exact: true }).click();
     await page.getByRole('heading', { level: 1, name: 'Patterns' }).waitFor();
-    await page.getByRole('link', { name: `Edit ${PATTERN_NAME}` }).first().waitFor();
+    await page
+      .getByRole('link', { name: `Edit ${PATTERN_NAME}` })
+      .first()
+      .waitFor();
     await screenshot(page, 'patterns-admin-desktop');
     await nav.getByRole('link', { name: 'Dev mailbox' }).click();
     await page.getByRole('heading', { level: 1, name: 'Dev mailbox' }).waitFor();
@@ -252,7 +265,10 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
     await page.setViewportSize(DESKTOP);
 
     await page.goto('/patterns');
-    await page.getByRole('link', { name: `Edit ${PATTERN_NAME}` }).first().click();
+    await page
+      .getByRole('link', { name: `Edit ${PATTERN_NAME}` })
+      .first()
+      .click();
     await page.getByRole('heading', { level: 1, name: 'Edit pattern' }).waitFor();
     await expectNumber(page, 'volume', '18.00 mL');
     const editUrl = page.url();
@@ -261,7 +277,12 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
     const csv = fs.readFileSync(await download.path(), 'utf8');
     expect(download.suggestedFilename()).toMatch(/\.lanewright\.csv$/);
     expect(csv).toContain(`# name: ${PATTERN_NAME}`);
-    expect(csv.trim().split('\n').filter((l) => /^(forward|reverse),/.test(l))).toHaveLength(4);
+    expect(
+      csv
+        .trim()
+        .split('\n')
+        .filter((l) => /^(forward|reverse),/.test(l)),
+    ).toHaveLength(4);
 
     const bad = [
       '# lanewright-pattern v1',

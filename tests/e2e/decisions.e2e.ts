@@ -7,7 +7,11 @@ const { baseUrl, open } = useBrowser(DESKTOP);
 /** The API as a signed-in user (JSON in and out; fails loudly on an unexpected status). */
 function client(token: string) {
   return async <T>(method: string, path: string, body?: unknown, expected = [200, 201]): Promise<T> => {
-    const res = await fetch(`${baseUrl}/api${path}`, { method, headers: { Authorization: `Bearer ${token}`, 'Content-Type': 'application/json', 'Idempotency-Key': crypto.randomUUID() }, body: body === undefined ? undefined : JSON.stringify(body) });
+    const res = await fetch(`${baseUrl}/api${path}`, {
+      method,
+      headers: { Authorization: `Bearer ${token}`, 'Content-Type': 'application/json', 'Idempotency-Key': crypto.randomUUID() },
+      body: body === undefined ? undefined : JSON.stringify(body),
+    });
     if (!expected.includes(res.status)) throw new Error(`${method} ${path}: ${res.status} ${await res.text()}`);
     return (res.status === 204 ? undefined : await res.json()) as T;
   };
@@ -16,7 +20,11 @@ function client(token: string) {
 /** A new, confirmed bowler and their API client. */
 async function newBowler(name: string) {
   const email = uniqueEmail('decide');
-  const reg = await fetch(`${baseUrl}/api/auth/register`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email, password: 'a-long-password-1', displayName: name }) });
+  const reg = await fetch(`${baseUrl}/api/auth/register`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ email, password: 'a-long-password-1', displayName: name }),
+  });
   expect(reg.status).toBe(201);
   await verifyByMail(baseUrl, email);
   return { email, call: client(await apiToken(baseUrl, email, 'a-long-password-1')) };
@@ -46,9 +54,22 @@ describe('decide: trials, the layout lab and coverage', () => {
   it('at 375 px a bowler opens a trial of two layouts, logs shots with each, and reads the verdict', async () => {
     const { email, call } = await newBowler('Quinn Harrow');
     const model = await catalogueModel(call, 'reactive-solid');
-    const up = await call<{ item: { id: number } }>('POST', '/arsenal', { ballModelId: model.id, weightLb: 15, nickname: 'Pin up', layout: { pinToPapIn: 4.5, drillingAngleDeg: 50 } });
-    const down = await call<{ item: { id: number } }>('POST', '/arsenal', { ballModelId: model.id, weightLb: 15, nickname: 'Pin down', layout: { pinToPapIn: 2.5, drillingAngleDeg: 70 } });
-    const session = await call<{ item: { id: number } }>('POST', '/sessions', { date: new Date().toISOString().slice(0, 10), kind: 'practice' });
+    const up = await call<{ item: { id: number } }>('POST', '/arsenal', {
+      ballModelId: model.id,
+      weightLb: 15,
+      nickname: 'Pin up',
+      layout: { pinToPapIn: 4.5, drillingAngleDeg: 50 },
+    });
+    const down = await call<{ item: { id: number } }>('POST', '/arsenal', {
+      ballModelId: model.id,
+      weightLb: 15,
+      nickname: 'Pin down',
+      layout: { pinToPapIn: 2.5, drillingAngleDeg: 70 },
+    });
+    const session = await call<{ item: { id: number } }>('POST', '/sessions', {
+      date: new Date().toISOString().slice(0, 10),
+      kind: 'practice',
+    });
 
     const { page } = await open(MOBILE);
     await signIn(page, email, 'a-long-password-1');
@@ -76,9 +97,15 @@ describe('decide: trials, the layout lab and coverage', () => {
     await page.getByRole('button', { name: 'Spare', exact: true }).click();
     await page.getByRole('heading', { level: 2, name: /^Game 1 · frame 3, ball 1$/ }).waitFor();
     // … and the rest of the evening's practice (two games a ball) through the API, as the shot queue would send it.
-    for (const [game, ballId, strike] of [[2, up.item.id, true], [3, down.item.id, false], [4, up.item.id, true], [5, down.item.id, false]] as const) {
+    for (const [game, ballId, strike] of [
+      [2, up.item.id, true],
+      [3, down.item.id, false],
+      [4, up.item.id, true],
+      [5, down.item.id, false],
+    ] as const) {
       for (let frame = 1; frame <= 9; frame++) {
-        if (strike) await call('POST', `/sessions/${session.item.id}/shots`, { gameNumber: game, frame, delivery: 1, ballId, standing: [] });
+        if (strike)
+          await call('POST', `/sessions/${session.item.id}/shots`, { gameNumber: game, frame, delivery: 1, ballId, standing: [] });
         else {
           await call('POST', `/sessions/${session.item.id}/shots`, { gameNumber: game, frame, delivery: 1, ballId, standing: [10] });
           await call('POST', `/sessions/${session.item.id}/shots`, { gameNumber: game, frame, delivery: 2, ballId, standing: [] });
@@ -89,9 +116,29 @@ describe('decide: trials, the layout lab and coverage', () => {
     await page.goto(`/decide/trials/${trialId}`);
     await page.getByRole('heading', { level: 2, name: /^Verdict: .*Pin up/ }).waitFor();
     const table = page.getByRole('table', { name: 'Each arm’s figures' });
-    await expect.poll(() => table.getByRole('row', { name: /Pin up/ }).getByRole('cell').first().textContent()).toBe('19 of 19');
-    expect(await table.getByRole('row', { name: /Pin down/ }).getByRole('cell').first().textContent()).toBe('0 of 19');
-    expect(await table.getByRole('row', { name: /Pin down/ }).getByRole('cell').nth(4).textContent()).toBe('10 pin: 19 of 19');
+    await expect
+      .poll(() =>
+        table
+          .getByRole('row', { name: /Pin up/ })
+          .getByRole('cell')
+          .first()
+          .textContent(),
+      )
+      .toBe('19 of 19');
+    expect(
+      await table
+        .getByRole('row', { name: /Pin down/ })
+        .getByRole('cell')
+        .first()
+        .textContent(),
+    ).toBe('0 of 19');
+    expect(
+      await table
+        .getByRole('row', { name: /Pin down/ })
+        .getByRole('cell')
+        .nth(4)
+        .textContent(),
+    ).toBe('10 pin: 19 of 19');
     expect(await hasHorizontalScroll(page)).toBe(false);
     await screenshot(page, 'decide-trial-mobile');
   });
@@ -122,10 +169,30 @@ describe('decide: trials, the layout lab and coverage', () => {
     const admin = client(await apiToken(baseUrl, DEMO.admin));
     const owner = client(await apiToken(baseUrl, DEMO.proprietor));
     const ownerId = (await owner<{ user: { id: number } }>('GET', '/auth/me')).user.id;
-    const center = await admin<{ item: { id: number } }>('POST', '/centers', { name: 'Fallow Reach Lanes', town: 'Marrow Bend', laneCount: 24, ownerId });
-    const sweep = (fromBoard: number, toBoard: number, endFt: number) => ({ direction: 'forward', fromBoard, toBoard, startFt: 0, endFt, crossings: 4, microlitersPerBoard: 60 });
-    const heavy = await owner<{ item: { id: number } }>('POST', '/patterns', { name: 'Fallow league heavy', sweeps: [sweep(2, 38, 44), sweep(8, 32, 42), sweep(14, 26, 40)] });
-    await owner('POST', `/centers/${center.item.id}/conditions`, { patternId: heavy.item.id, lanes: [1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12], validFrom: new Date().toISOString().slice(0, 10) });
+    const center = await admin<{ item: { id: number } }>('POST', '/centers', {
+      name: 'Fallow Reach Lanes',
+      town: 'Marrow Bend',
+      laneCount: 24,
+      ownerId,
+    });
+    const sweep = (fromBoard: number, toBoard: number, endFt: number) => ({
+      direction: 'forward',
+      fromBoard,
+      toBoard,
+      startFt: 0,
+      endFt,
+      crossings: 4,
+      microlitersPerBoard: 60,
+    });
+    const heavy = await owner<{ item: { id: number } }>('POST', '/patterns', {
+      name: 'Fallow league heavy',
+      sweeps: [sweep(2, 38, 44), sweep(8, 32, 42), sweep(14, 26, 40)],
+    });
+    await owner('POST', `/centers/${center.item.id}/conditions`, {
+      patternId: heavy.item.id,
+      lanes: [1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12],
+      validFrom: new Date().toISOString().slice(0, 10),
+    });
     await call('POST', `/centers/${center.item.id}/follow`);
 
     const { page } = await open(DESKTOP);

@@ -86,23 +86,36 @@ describe('matchup: the demo bowler from catalogue to what-if', () => {
 
     // Reasons with their sources.
     await page.getByRole('button', { name: `Why: ${order[0]}` }).click();
-    await page.getByText(/^Source: /).first().waitFor();
+    await page
+      .getByText(/^Source: /)
+      .first()
+      .waitFor();
     await screenshot(page, 'matchup-desktop');
 
     // A suggestion can be tried in the what-if straight from the reasons.
-    await page.getByRole('button', { name: /^Try in the what-if: / }).first().click();
-    await page.getByRole('status').filter({ hasText: /^The order (changes|stays the same)/ }).waitFor();
+    await page
+      .getByRole('button', { name: /^Try in the what-if: / })
+      .first()
+      .click();
+    await page
+      .getByRole('status')
+      .filter({ hasText: /^The order (changes|stays the same)/ })
+      .waitFor();
 
     // What-if: Backend sanded to 500 grit moves up the order, worked out in the browser.
     await choose(page, 'What-if ball', 'Backend (Skylark Arc)');
     await page.getByText('Change the surface or the layout of a ball').waitFor();
     await choose(page, 'What-if grit', '500 grit');
-    const verdict = page.getByRole('status').filter({ hasText: /^The order changes: Backend \(Skylark Arc\) moves from \d+(st|nd|rd|th) to \d+(st|nd|rd|th)/ });
+    const verdict = page
+      .getByRole('status')
+      .filter({ hasText: /^The order changes: Backend \(Skylark Arc\) moves from \d+(st|nd|rd|th) to \d+(st|nd|rd|th)/ });
     await verdict.waitFor();
     const text = (await verdict.textContent()) ?? '';
     const [, from, to] = /moves from (\d+)\D+ to (\d+)/.exec(text) ?? [];
     expect(Number(to)).toBeLessThan(Number(from));
-    const newOrder = (await page.getByRole('list', { name: 'Order with the change' }).getByRole('listitem').allTextContents()).map((s) => s.trim());
+    const newOrder = (await page.getByRole('list', { name: 'Order with the change' }).getByRole('listitem').allTextContents()).map((s) =>
+      s.trim(),
+    );
     expect(newOrder).not.toEqual(order);
     expect(newOrder.indexOf('Backend (Skylark Arc) (changed)')).toBe(Number(to) - 1);
     // The what-if path is drawn dashed on the lane.
@@ -146,31 +159,52 @@ describe('matchup: the demo house condition, its lane surface, and the same numb
     await page.getByRole('heading', { level: 1, name: 'Matchup' }).waitFor();
     await choose(page, 'Condition', HOUSE);
     // A published condition brings its own lane surface: no lane picker, its words instead.
-    await page.getByTestId('matchup-lane-surface').filter({ hasText: 'Synthetic lanes, high friction, as Copperline Bowl publishes it.' }).waitFor();
+    await page
+      .getByTestId('matchup-lane-surface')
+      .filter({ hasText: 'Synthetic lanes, high friction, as Copperline Bowl publishes it.' })
+      .waitFor();
     expect(await page.getByRole('radiogroup', { name: 'Lane friction' }).count()).toBe(0);
     await page.getByRole('button', { name: 'Rank my arsenal' }).click();
     await page.getByRole('heading', { level: 2, name: 'Ranking for Copperline House 40, after 0 games' }).waitFor({ timeout: 30000 });
     await expect
-      .poll(async () => ((await page.getByRole('region', { name: /^Ranking for / }).locator('p').first().textContent()) ?? '').replace(/\s+/g, ' ').trim())
+      .poll(async () =>
+        (
+          (await page
+            .getByRole('region', { name: /^Ranking for / })
+            .locator('p')
+            .first()
+            .textContent()) ?? ''
+        )
+          .replace(/\s+/g, ' ')
+          .trim(),
+      )
       .toMatch(/^Copperline Bowl, lanes [\d–, ]+: Synthetic lanes, high friction\.$/);
 
     // Big Red, the strong solid at 2000 grit: too strong for this condition, in words, with its strength against the demand.
     const row = page.getByRole('table', { name: 'Ranking' }).locator('tbody tr[data-ball-id]').filter({ hasText: BIG_RED });
     const fit = row.locator('.matchup-ranking-table__fit');
-    await expect.poll(async () => (await fit.textContent())?.replace(/\s+/g, ' ').trim()).toMatch(/^too strong by \d+\.\d, strength \d+\.\d vs demand \d+\.\d$/);
+    await expect
+      .poll(async () => (await fit.textContent())?.replace(/\s+/g, ' ').trim())
+      .toMatch(/^too strong by \d+\.\d, strength \d+\.\d vs demand \d+\.\d$/);
     const serverBreakpoint = ((await row.locator('td').nth(4).textContent()) ?? '').trim(); // rank, score, fit, skid, breakpoint
     expect(serverBreakpoint).toMatch(/^\d+\.\d at \d+\.\d ft$/);
 
     // Why: each reason with its effect and source; what to change: go smoother, with the surface caution.
     await page.getByRole('button', { name: `Why: ${BIG_RED}` }).click();
     const reasons = page.getByRole('list', { name: `Reasons for ${BIG_RED}` });
-    await reasons.getByText(/^Source: /).first().waitFor();
+    await reasons
+      .getByText(/^Source: /)
+      .first()
+      .waitFor();
     expect(await reasons.getByRole('listitem').count()).toBeGreaterThan(5);
     const changes = page.getByRole('list', { name: `What to change: ${BIG_RED}` });
     const smoother = changes.getByRole('listitem').filter({ hasText: /Surface: Go smoother — / });
     await smoother.waitFor();
     expect(await smoother.textContent()).toMatch(/sand wet with eye and dust protection, or have the pro shop do it/);
-    await page.getByTestId('matchup-calibration').getByText(/^Calibrated to your \d+ logged shots on these lanes\./).waitFor();
+    await page
+      .getByTestId('matchup-calibration')
+      .getByText(/^Calibrated to your \d+ logged shots on these lanes\./)
+      .waitFor();
     await screenshot(page, 'matchup-house-too-strong-desktop');
 
     // The what-if: the suggested smoother surface, tried straight from the suggestion, worked out in the browser with the
@@ -199,9 +233,13 @@ describe('matchup: the demo house condition, its lane surface, and the same numb
     await choose(cp, 'Condition to compare on', HOUSE);
     await choose(cp, 'Version B grit', `${grit} grit`);
     const polishB = cp.getByRole('switch', { name: 'Version B polished' });
-    if ((await polishB.getAttribute('aria-checked')) !== String(Boolean(polish))) await cp.locator('.el-switch').filter({ has: polishB }).click();
+    if ((await polishB.getAttribute('aria-checked')) !== String(Boolean(polish)))
+      await cp.locator('.el-switch').filter({ has: polishB }).click();
     expect(await polishB.getAttribute('aria-checked')).toBe(String(Boolean(polish)));
-    await cp.getByTestId('coach-calibration').getByText(/^Calibrated to Dana Holloway's \d+ logged shots on these lanes/).waitFor({ timeout: 30000 });
+    await cp
+      .getByTestId('coach-calibration')
+      .getByText(/^Calibrated to Dana Holloway's \d+ logged shots on these lanes/)
+      .waitFor({ timeout: 30000 });
     const verdict = cp.getByRole('status').filter({ hasText: /^From A to B: Breakpoint / });
     await verdict.waitFor({ timeout: 30000 });
     const coachText = ((await verdict.textContent()) ?? '').trim();
@@ -232,11 +270,23 @@ describe('matchup: the what-if keeps the page answering while it works', () => {
 
     // Three changes to the ball, each worked out by the engine (in its worker) while the page stays free.
     await choose(page, 'What-if grit', '500 grit');
-    await page.getByRole('status').filter({ hasText: /^The order changes: Backend \(Skylark Arc\)/ }).waitFor({ timeout: 60000 });
-    await page.locator('.el-switch').filter({ has: page.getByRole('switch', { name: 'What-if polished' }) }).click();
-    await page.getByRole('status').filter({ hasText: /^The order (changes|stays the same)/ }).waitFor({ timeout: 60000 });
+    await page
+      .getByRole('status')
+      .filter({ hasText: /^The order changes: Backend \(Skylark Arc\)/ })
+      .waitFor({ timeout: 60000 });
+    await page
+      .locator('.el-switch')
+      .filter({ has: page.getByRole('switch', { name: 'What-if polished' }) })
+      .click();
+    await page
+      .getByRole('status')
+      .filter({ hasText: /^The order (changes|stays the same)/ })
+      .waitFor({ timeout: 60000 });
     await choose(page, 'What-if grit', '4000 grit');
-    await page.getByRole('status').filter({ hasText: /^The order (changes|stays the same)/ }).waitFor({ timeout: 60000 });
+    await page
+      .getByRole('status')
+      .filter({ hasText: /^The order (changes|stays the same)/ })
+      .waitFor({ timeout: 60000 });
     const during = await longTasks();
     const longest = Math.max(0, ...during);
     expect(longest, `long tasks while the what-if worked: ${during.map((d) => d.toFixed(0)).join(', ') || 'none'}`).toBeLessThan(50);

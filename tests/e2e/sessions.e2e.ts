@@ -3,7 +3,19 @@ import { describe, expect, it } from 'vitest';
 import type { Page, Route } from 'playwright-core';
 // The engine is the reference for scores (pure code, no I/O): the sheet's total must equal scoreGame of the same rolls.
 import { scoreGame } from '../../engine/index';
-import { chooseOption, ARTIFACTS_DIR, DEMO, DEMO_PASSWORD, DESKTOP, MOBILE, eventually, hasHorizontalScroll, screenshot, signIn, useBrowser } from './browser';
+import {
+  chooseOption,
+  ARTIFACTS_DIR,
+  DEMO,
+  DEMO_PASSWORD,
+  DESKTOP,
+  MOBILE,
+  eventually,
+  hasHorizontalScroll,
+  screenshot,
+  signIn,
+  useBrowser,
+} from './browser';
 
 const { baseUrl, open } = useBrowser(MOBILE);
 /** The session the bowler logs in the first test; the coach reads and annotates it in the second. */
@@ -29,7 +41,10 @@ async function tokenOf(page: Page): Promise<string> {
 }
 
 /** Reads the stored session straight from the API (not through the page). */
-async function storedSession(token: string, id: number): Promise<{ shots: StoredShot[]; annotations: { text: string; authorName: string }[] }> {
+async function storedSession(
+  token: string,
+  id: number,
+): Promise<{ shots: StoredShot[]; annotations: { text: string; authorName: string }[] }> {
   const res = await fetch(`${baseUrl}/api/sessions/${id}`, { headers: { Authorization: `Bearer ${token}` } });
   expect(res.status).toBe(200);
   const body = (await res.json()) as { item: { shots: StoredShot[]; annotations: { text: string; authorName: string }[] } };
@@ -37,7 +52,11 @@ async function storedSession(token: string, id: number): Promise<{ shots: Stored
 }
 
 async function login(email: string): Promise<string> {
-  const res = await fetch(`${baseUrl}/api/auth/login`, { method: 'POST', headers: { 'Content-Type': 'application/json' }, body: JSON.stringify({ email, password: DEMO_PASSWORD }) });
+  const res = await fetch(`${baseUrl}/api/auth/login`, {
+    method: 'POST',
+    headers: { 'Content-Type': 'application/json' },
+    body: JSON.stringify({ email, password: DEMO_PASSWORD }),
+  });
   expect(res.status).toBe(200);
   return ((await res.json()) as { token: string }).token;
 }
@@ -45,9 +64,15 @@ async function login(email: string): Promise<string> {
 /** The demo seed links the coach to Dana; should a seed lack the link, it is made here through the API (invite, accept). */
 async function ensureLinked(coachToken: string): Promise<void> {
   const auth = (t: string) => ({ Authorization: `Bearer ${t}`, 'Content-Type': 'application/json' });
-  const students = (await (await fetch(`${baseUrl}/api/coach/students`, { headers: auth(coachToken) })).json()) as { items: { student: { email: string } }[] };
+  const students = (await (await fetch(`${baseUrl}/api/coach/students`, { headers: auth(coachToken) })).json()) as {
+    items: { student: { email: string } }[];
+  };
   if (students.items.some((s) => s.student.email === DEMO.dana)) return;
-  const invited = await fetch(`${baseUrl}/api/coach/invitations`, { method: 'POST', headers: auth(coachToken), body: JSON.stringify({ email: DEMO.dana }) });
+  const invited = await fetch(`${baseUrl}/api/coach/invitations`, {
+    method: 'POST',
+    headers: auth(coachToken),
+    body: JSON.stringify({ email: DEMO.dana }),
+  });
   expect(invited.status).toBe(201);
   const link = ((await invited.json()) as { item: { id: number } }).item;
   const accepted = await fetch(`${baseUrl}/api/coach/links/${link.id}/accept`, { method: 'POST', headers: auth(await login(DEMO.dana)) });
@@ -108,7 +133,9 @@ function nextHeading(i: number): RegExp {
 /** Taps the pins left standing (or the Strike/Spare button) and records the delivery. */
 async function log(page: Page, i: number): Promise<void> {
   const t = GAME[i];
-  await entryHeading(page).filter({ hasText: new RegExp(`^Game 1 · frame ${t.frame}, ball ${t.delivery}$`) }).waitFor();
+  await entryHeading(page)
+    .filter({ hasText: new RegExp(`^Game 1 · frame ${t.frame}, ball ${t.delivery}$`) })
+    .waitFor();
   if (t.standing.length === 0) {
     const fullRack = t.delivery === 1 || (t.frame === 10 && GAME[i - 1]?.standing.length === 0);
     await page.getByRole('button', { name: fullRack ? 'Strike' : 'Spare', exact: true }).click();
@@ -120,7 +147,9 @@ async function log(page: Page, i: number): Promise<void> {
     }
     await page.getByRole('button', { name: /^Record: / }).click();
   }
-  await entryHeading(page).filter({ hasText: nextHeading(i) }).waitFor();
+  await entryHeading(page)
+    .filter({ hasText: nextHeading(i) })
+    .waitFor();
 }
 
 describe('sessions: shot entry on a phone', () => {
@@ -183,7 +212,10 @@ describe('sessions: shot entry on a phone', () => {
     await context.setOffline(true);
     for (let i = 8; i <= 10; i++) await log(page, i);
     await syncStatus(page).filter({ hasText: '3 shots waiting to sync' }).waitFor();
-    const queued = await page.evaluate((id) => JSON.parse(window.localStorage.getItem(`lanewright.shotQueue.${id}`) ?? '[]') as { key: string }[], sessionId);
+    const queued = await page.evaluate(
+      (id) => JSON.parse(window.localStorage.getItem(`lanewright.shotQueue.${id}`) ?? '[]') as { key: string }[],
+      sessionId,
+    );
     expect(queued).toHaveLength(3);
     expect(new Set(queued.map((q) => q.key)).size).toBe(3);
     // Frame 6 (8, miss) is scored locally: 10+8+1 | 9 | +10+9 … X X: frame 6 total known once frame 6 is done.
@@ -202,20 +234,32 @@ describe('sessions: shot entry on a phone', () => {
     await syncStatus(page).filter({ hasText: '2 shots waiting to sync' }).waitFor();
     await page.reload();
     await syncStatus(page).filter({ hasText: '2 shots waiting to sync' }).waitFor();
-    await entryHeading(page).filter({ hasText: /^Game 1 · frame 9, ball 1$/ }).waitFor();
+    await entryHeading(page)
+      .filter({ hasText: /^Game 1 · frame 9, ball 1$/ })
+      .waitFor();
     // Leaving the session screen keeps them on this device; the Sessions list sends them once it can.
     await page.goto('/sessions');
-    await page.getByRole('alert').filter({ hasText: 'Shots waiting to sync on this device' }).getByRole('link', { name: `2 shots of session ${sessionId}` }).waitFor();
+    await page
+      .getByRole('alert')
+      .filter({ hasText: 'Shots waiting to sync on this device' })
+      .getByRole('link', { name: `2 shots of session ${sessionId}` })
+      .waitFor();
     await page.unroute('**/api/sessions/*/shots', refuse);
     await page.reload();
     await page.getByRole('heading', { level: 1, name: 'Sessions' }).waitFor();
     await page.getByText('Shots waiting to sync on this device').waitFor({ state: 'detached' });
-    await page.getByRole('list', { name: 'Your sessions' }).getByRole('link', { name: /^\d{4}-\d{2}-\d{2} · Practice$/ }).first().waitFor();
+    await page
+      .getByRole('list', { name: 'Your sessions' })
+      .getByRole('link', { name: /^\d{4}-\d{2}-\d{2} · Practice$/ })
+      .first()
+      .waitFor();
     expect(await hasHorizontalScroll(page)).toBe(false);
     await screenshot(page, 'sessions-list-mobile');
     await page.locator(`a[href="/sessions/${sessionId}"]`).first().click();
     await syncStatus(page).filter({ hasText: 'All shots saved.' }).waitFor({ timeout: 60000 });
-    await entryHeading(page).filter({ hasText: /^Game 1 · frame 9, ball 1$/ }).waitFor();
+    await entryHeading(page)
+      .filter({ hasText: /^Game 1 · frame 9, ball 1$/ })
+      .waitFor();
 
     // The answer to one shot is lost after the server stored it: the retry with the same key stores nothing new.
     let lost = 0;
@@ -248,9 +292,13 @@ describe('sessions: shot entry on a phone', () => {
     await sheet.getByRole('listitem', { name: /^Frame 10: strike, strike, 9; total/ }).waitFor();
     expect(await sheet.locator('.is-tenth .frame-sheet__box').count()).toBe(3);
     // Every box of the sheet stays inside its frame on the phone.
-    const overflow = await sheet.locator('.frame-sheet__frame').evaluateAll((frames) =>
-      frames.some((f) => [...f.querySelectorAll('.frame-sheet__box')].some((b) => b.getBoundingClientRect().right > f.getBoundingClientRect().right + 0.5)),
-    );
+    const overflow = await sheet
+      .locator('.frame-sheet__frame')
+      .evaluateAll((frames) =>
+        frames.some((f) =>
+          [...f.querySelectorAll('.frame-sheet__box')].some((b) => b.getBoundingClientRect().right > f.getBoundingClientRect().right + 0.5),
+        ),
+      );
     expect(overflow).toBe(false);
     await sheet.screenshot({ path: path.join(ARTIFACTS_DIR, 'session-sheet-mobile.png') });
 
@@ -281,17 +329,27 @@ describe('sessions: shot entry on a phone', () => {
     await page.getByRole('button', { name: 'Foul', exact: true }).click();
     await deck(page).getByRole('button', { name: 'Pin 3', exact: true }).click();
     await page.getByRole('button', { name: 'Record the foul' }).click();
-    await entryHeading(page).filter({ hasText: /^Game 2 · frame 1, ball 2$/ }).waitFor();
-    await page.getByRole('region', { name: 'Game 2 frame sheet' }).getByRole('listitem', { name: /^Frame 1: foul; total/ }).waitFor();
+    await entryHeading(page)
+      .filter({ hasText: /^Game 2 · frame 1, ball 2$/ })
+      .waitFor();
+    await page
+      .getByRole('region', { name: 'Game 2 frame sheet' })
+      .getByRole('listitem', { name: /^Frame 1: foul; total/ })
+      .waitFor();
     await syncStatus(page).filter({ hasText: 'All shots saved.' }).waitFor();
     await page.getByRole('button', { name: 'Undo last shot' }).click();
     await page.getByRole('dialog', { name: 'Undo the last shot?' }).getByRole('button', { name: 'Undo it' }).click();
-    await entryHeading(page).filter({ hasText: /^Game 2 · frame 1, ball 1$/ }).waitFor();
+    await entryHeading(page)
+      .filter({ hasText: /^Game 2 · frame 1, ball 1$/ })
+      .waitFor();
     expect((await storedSession(await tokenOf(page), sessionId)).shots).toHaveLength(GAME.length);
 
     // Home shows it as the last session.
     await page.goto('/');
-    await page.getByRole('region', { name: 'Last session' }).getByRole('link', { name: /^\d{4}-\d{2}-\d{2} · Practice$/ }).waitFor();
+    await page
+      .getByRole('region', { name: 'Last session' })
+      .getByRole('link', { name: /^\d{4}-\d{2}-\d{2} · Practice$/ })
+      .waitFor();
 
     // The Stats screen shows the new numbers.
     await page.goto('/stats');

@@ -1,7 +1,18 @@
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { chooseOption, eventually, ARTIFACTS_DIR, DEMO, DESKTOP, MOBILE, hasHorizontalScroll, screenshot, signIn, useBrowser } from './browser';
+import {
+  chooseOption,
+  eventually,
+  ARTIFACTS_DIR,
+  DEMO,
+  DESKTOP,
+  MOBILE,
+  hasHorizontalScroll,
+  screenshot,
+  signIn,
+  useBrowser,
+} from './browser';
 
 /**
  * The resurface order flow in the browser: the proprietor puts a 4000-grit resurface on Copperline Bowl's price list;
@@ -62,7 +73,9 @@ async function countOrders(page: Page): Promise<number> {
 
 /** The order dialog's service list has loaded (its select is enabled). */
 async function waitForServices(page: Page): Promise<void> {
-  await page.waitForFunction(() => document.querySelector('.shop-order-dialog [aria-label="Service"]:not([aria-disabled="true"])') !== null);
+  await page.waitForFunction(
+    () => document.querySelector('.shop-order-dialog [aria-label="Service"]:not([aria-disabled="true"])') !== null,
+  );
 }
 
 /** "#12" as the board shows an order, not matching "#123". */
@@ -125,7 +138,9 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
     await dialog.waitFor();
     // Dana follows Copperline Bowl: it is offered first and chosen already.
     await dialog.getByRole('combobox', { name: 'Center' }).waitFor();
-    await page.waitForFunction(() => document.querySelector('.shop-order-dialog [aria-label="Service"]:not([aria-disabled="true"])') !== null);
+    await page.waitForFunction(
+      () => document.querySelector('.shop-order-dialog [aria-label="Service"]:not([aria-disabled="true"])') !== null,
+    );
     expect(await dialog.locator('.el-select').first().innerText()).toContain('Copperline Bowl');
     await choose(page, dialog, 'Service', new RegExp(`^${SERVICE_NAME}`));
     await dialog.getByTestId('order-price').filter({ hasText: PRICE_TEXT }).waitFor();
@@ -178,7 +193,10 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
     await page.goto('/center-admin?tab=orders');
     await page.getByRole('heading', { level: 2, name: 'Orders' }).waitFor();
     await choose(page, page, 'Order status', 'Paid');
-    const row = page.locator('.order-board__table').getByRole('row').filter({ hasText: orderTag(flow.orderId) });
+    const row = page
+      .locator('.order-board__table')
+      .getByRole('row')
+      .filter({ hasText: orderTag(flow.orderId) });
     await row.waitFor();
     expect(await row.innerText()).toContain('Please keep the logo.');
     await screenshot(page, 'shop-orders-board-desktop');
@@ -255,10 +273,13 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
     // Once the price list has arrived, either its matching resurface is chosen, or the dialog says the list has none
     // for that grit (until then the select reads 'Choose a service' and there is no hint).
     const hint = dialog.locator('.shop-order-dialog__hint');
-    const outcome = async () => ((await hint.count()) ? `hint: ${await hint.innerText()}` : `service: ${await dialog.locator('.el-select').nth(1).innerText()}`);
+    const outcome = async () =>
+      (await hint.count()) ? `hint: ${await hint.innerText()}` : `service: ${await dialog.locator('.el-select').nth(1).innerText()}`;
     await eventually(outcome).toContain(`${grit} grit`);
     // The page under it is long (every reason open): a picture of the dialog alone, its opening transition run to the end.
-    await dialog.locator('.el-dialog').screenshot({ path: path.join(ARTIFACTS_DIR, 'shop-order-from-suggestion-desktop.png'), animations: 'disabled' });
+    await dialog
+      .locator('.el-dialog')
+      .screenshot({ path: path.join(ARTIFACTS_DIR, 'shop-order-from-suggestion-desktop.png'), animations: 'disabled' });
   });
 });
 
@@ -291,7 +312,10 @@ describe('pro shop: a card that asks for authentication, a refund, and what anot
     const owner = await open();
     await signIn(owner.page, DEMO.proprietor);
     await owner.page.goto('/center-admin?tab=orders');
-    const row = owner.page.locator('.order-board__table').getByRole('row').filter({ hasText: orderTag(orderId) });
+    const row = owner.page
+      .locator('.order-board__table')
+      .getByRole('row')
+      .filter({ hasText: orderTag(orderId) });
     await row.waitFor();
     await owner.page.getByRole('button', { name: `Refund order ${orderId}` }).click();
     const confirm = owner.page.getByRole('dialog', { name: `Refund order #${orderId}?` });
@@ -437,7 +461,10 @@ describe('pro shop at 375 px', () => {
     const owner = await open(MOBILE);
     await signIn(owner.page, DEMO.proprietor);
     await owner.page.goto('/center-admin?tab=orders');
-    const card = owner.page.getByRole('list', { name: 'Orders board' }).getByRole('listitem').filter({ hasText: orderTag(flow.orderId) });
+    const card = owner.page
+      .getByRole('list', { name: 'Orders board' })
+      .getByRole('listitem')
+      .filter({ hasText: orderTag(flow.orderId) });
     await card.waitFor();
     expect(await hasHorizontalScroll(owner.page)).toBe(false);
     await screenshot(owner.page, 'shop-orders-board-mobile');

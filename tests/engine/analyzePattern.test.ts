@@ -134,8 +134,7 @@ describe('analyzePattern: edge cases', () => {
 });
 
 describe('analyzePattern: malformed patterns throw, naming the function and the value', () => {
-  const bad = (s: object): OilPattern =>
-    ({ name: 'bad', sweeps: [sweep(1, 39, 40, 1), { ...sweep(1, 39, 40, 1), ...s }] }) as OilPattern;
+  const bad = (s: object): OilPattern => ({ name: 'bad', sweeps: [sweep(1, 39, 40, 1), { ...sweep(1, 39, 40, 1), ...s }] }) as OilPattern;
 
   it.each([
     ['a sweep whose end is before its start', { startFt: 30, endFt: 12 }, 'analyzePattern: sweep 2 endFt 12 is before startFt 30'],
@@ -155,7 +154,9 @@ describe('analyzePattern: malformed patterns throw, naming the function and the 
 
   it('TypeError for an unknown direction', () => {
     expect(() => analyzePattern(bad({ direction: 'sideways' }))).toThrow(TypeError);
-    expect(() => analyzePattern(bad({ direction: 'sideways' }))).toThrow(/analyzePattern: sweep 2 direction must be one of forward, reverse/);
+    expect(() => analyzePattern(bad({ direction: 'sideways' }))).toThrow(
+      /analyzePattern: sweep 2 direction must be one of forward, reverse/,
+    );
   });
 
   it('TypeError for sweeps that are not an array and for a pattern that is not an object', () => {

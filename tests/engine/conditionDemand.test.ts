@@ -6,9 +6,24 @@ import { houseShot, sweep, typicalBowler } from './fixtures';
 // conditionDemand: how much ball a condition asks of a bowler, and its parts. Directions from the trade (common
 // practice); sizes are Lanewright's scale (5 points ≈ one surface step).
 
-const scaled = (p: OilPattern, k: number): OilPattern => ({ name: p.name, sweeps: p.sweeps.map((s) => ({ ...s, microlitersPerBoard: s.microlitersPerBoard * k })) });
-const d = (o: { pattern?: OilPattern; bowler?: Partial<BowlerProfile>; games?: number; lane?: { kind: 'wood' | 'synthetic'; friction: 'low' | 'medium' | 'high' } } = {}) =>
-  conditionDemand({ analysis: analyzePattern(o.pattern ?? houseShot), bowler: { ...typicalBowler, ...o.bowler }, gamesBowled: o.games, lane: o.lane }).total;
+const scaled = (p: OilPattern, k: number): OilPattern => ({
+  name: p.name,
+  sweeps: p.sweeps.map((s) => ({ ...s, microlitersPerBoard: s.microlitersPerBoard * k })),
+});
+const d = (
+  o: {
+    pattern?: OilPattern;
+    bowler?: Partial<BowlerProfile>;
+    games?: number;
+    lane?: { kind: 'wood' | 'synthetic'; friction: 'low' | 'medium' | 'high' };
+  } = {},
+) =>
+  conditionDemand({
+    analysis: analyzePattern(o.pattern ?? houseShot),
+    bowler: { ...typicalBowler, ...o.bowler },
+    gamesBowled: o.games,
+    lane: o.lane,
+  }).total;
 
 describe('conditionDemand', () => {
   it('points: the reference condition (40 ft, 21 mL, 4:1, medium synthetic, fresh, 17 mph / 350 rpm / 45° / 15°) asks for DEMAND_SCALE.reference', () => {
@@ -43,7 +58,9 @@ describe('conditionDemand', () => {
 
   it('the lane: a high-friction surface asks for less ball than a low-friction one; after games a wood lane has broken down more (common practice)', () => {
     expect(d({ lane: { kind: 'synthetic', friction: 'high' } })).toBeLessThan(d({ lane: { kind: 'synthetic', friction: 'low' } }));
-    expect(d({ games: 6, lane: { kind: 'wood', friction: 'medium' } })).toBeLessThan(d({ games: 6, lane: { kind: 'synthetic', friction: 'medium' } }));
+    expect(d({ games: 6, lane: { kind: 'wood', friction: 'medium' } })).toBeLessThan(
+      d({ games: 6, lane: { kind: 'synthetic', friction: 'medium' } }),
+    );
   });
 
   it('transition: 0 → 3 → 9 games asks for less and less ball (the track dries, common practice)', () => {
@@ -59,7 +76,10 @@ describe('conditionDemand', () => {
   });
 
   it('a left-hander asks the same of a mirrored pattern as a right-hander of the original', () => {
-    const mirrored: OilPattern = { name: 'm', sweeps: houseShot.sweeps.map((s) => ({ ...s, fromBoard: 40 - s.toBoard, toBoard: 40 - s.fromBoard })) };
+    const mirrored: OilPattern = {
+      name: 'm',
+      sweeps: houseShot.sweeps.map((s) => ({ ...s, fromBoard: 40 - s.toBoard, toBoard: 40 - s.fromBoard })),
+    };
     expect(d({ pattern: mirrored, bowler: { hand: 'left' } })).toBe(d());
   });
 });

@@ -25,14 +25,7 @@ describe('isSplit: the definition’s own examples', () => {
 describe('isSplit: side-by-side leaves are splits (clause b)', () => {
   // the USBC playing rules on splits "Where they differ": 2-3, 4-5, 5-6, 7-8, 8-9, 9-10 count as splits under the
   // official wording and are listed as splits on the encyclopedia page (S/M).
-  it.each([
-    [[2, 3]],
-    [[4, 5]],
-    [[5, 6]],
-    [[7, 8]],
-    [[8, 9]],
-    [[9, 10]],
-  ])('%j is a split', (leave) => {
+  it.each([[[2, 3]], [[4, 5]], [[5, 6]], [[7, 8]], [[8, 9]], [[9, 10]]])('%j is a split', (leave) => {
     expect(isSplit(leave)).toBe(true);
   });
 });
@@ -40,19 +33,12 @@ describe('isSplit: side-by-side leaves are splits (clause b)', () => {
 describe('isSplit: named splits', () => {
   // the USBC playing rules on splits "Common split names" (S): 7-10; 4-6-7-10 big four; 2-7 / 3-10 baby split; 5-7;
   // 5-10; 5-7-10; 4-6-7-8-10 / 4-6-7-9-10.
-  it.each([
-    [[7, 10]],
-    [[4, 6, 7, 10]],
-    [[2, 7]],
-    [[3, 10]],
-    [[5, 7]],
-    [[5, 10]],
-    [[5, 7, 10]],
-    [[4, 6, 7, 8, 10]],
-    [[4, 6, 7, 9, 10]],
-  ])('%j is a split', (leave) => {
-    expect(isSplit(leave)).toBe(true);
-  });
+  it.each([[[7, 10]], [[4, 6, 7, 10]], [[2, 7]], [[3, 10]], [[5, 7]], [[5, 10]], [[5, 7, 10]], [[4, 6, 7, 8, 10]], [[4, 6, 7, 9, 10]]])(
+    '%j is a split',
+    (leave) => {
+      expect(isSplit(leave)).toBe(true);
+    },
+  );
 
   it('a split does not depend on the order the pins are listed in (10, 7)', () => {
     // the USBC playing rules on splits: the 7-10 is a split; the leave is a set of pins.
@@ -61,13 +47,10 @@ describe('isSplit: named splits', () => {
 });
 
 describe('isSplit: leaves that are not splits', () => {
-  it.each([[[1, 2, 10]], [[1, 2, 4, 10]], [[1, 3, 7]], [[1, 3, 6, 7]]])(
-    'washout %j is not a split (headpin standing)',
-    (leave) => {
-      // the USBC playing rules on splits "Not splits (headpin standing)", champbowltour page (S).
-      expect(isSplit(leave)).toBe(false);
-    },
-  );
+  it.each([[[1, 2, 10]], [[1, 2, 4, 10]], [[1, 3, 7]], [[1, 3, 6, 7]]])('washout %j is not a split (headpin standing)', (leave) => {
+    // the USBC playing rules on splits "Not splits (headpin standing)", champbowltour page (S).
+    expect(isSplit(leave)).toBe(false);
+  });
 
   it('the whole back row 7-8-9-10 is not a split (7 and 10 joined through 8 and 9)', () => {
     // the USBC playing rules on splits "Not a split (connected leave)" (D / S, university course page).

@@ -26,6 +26,8 @@ describe('matchupContext', () => {
 
   it('throws RangeError for negative games and TypeError for a lane surface it does not know, naming the caller', () => {
     expect(() => matchupContext(typicalBowler, houseShot, -1)).toThrow(/matchupContext: gamesBowled must be 0 or more, got -1/);
-    expect(() => matchupContext(typicalBowler, houseShot, 0, 'rankArsenal', { kind: 'glass' as 'wood', friction: 'medium' })).toThrow(/rankArsenal: lane.kind must be wood or synthetic/);
+    expect(() => matchupContext(typicalBowler, houseShot, 0, 'rankArsenal', { kind: 'glass' as 'wood', friction: 'medium' })).toThrow(
+      /rankArsenal: lane.kind must be wood or synthetic/,
+    );
   });
 });

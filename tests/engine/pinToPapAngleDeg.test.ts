@@ -37,4 +37,3 @@ describe('pinToPapAngleDeg', () => {
     expect(() => pinToPapAngleDeg(3, 0)).toThrow(/pinToPapAngleDeg: diameterIn must be greater than 0/);
   });
 });
-

@@ -29,7 +29,11 @@ describe('engine purity', () => {
     const offenders = files.flatMap((f) =>
       [...f.text.matchAll(/from\s+'([^']+)'/g)]
         .map((m) => m[1])
-        .filter((s) => !(s.startsWith('./') || s.startsWith('../') || s === 'simple-statistics' || s.startsWith('@stdlib/')) || /(^|\/)(server|client|shared)(\/|$)/.test(s))
+        .filter(
+          (s) =>
+            !(s.startsWith('./') || s.startsWith('../') || s === 'simple-statistics' || s.startsWith('@stdlib/')) ||
+            /(^|\/)(server|client|shared)(\/|$)/.test(s),
+        )
         .map((s) => `${f.path}: ${s}`),
     );
     expect(offenders).toEqual([]);
@@ -43,7 +47,10 @@ describe('engine purity', () => {
   it('index.ts only re-exports', () => {
     const index = files.find((f) => f.path === 'index.ts');
     const code = (index?.text ?? '').replace(/\/\*[\s\S]*?\*\//g, '').replace(/\/\/.*$/gm, '');
-    const statements = code.split(';').map((s) => s.trim()).filter(Boolean);
+    const statements = code
+      .split(';')
+      .map((s) => s.trim())
+      .filter(Boolean);
     for (const s of statements) expect(s).toMatch(/^export (type )?(\*|\{)[\s\S]*from '\.\/[^']+'$/);
   });
 });

@@ -52,7 +52,12 @@ describe('rankArsenal: directional order (common practice: cover types and surfa
 });
 
 describe('rankArsenal: surface changes move a ball the way the trade teaches (common practice: lower grit reads earlier)', () => {
-  const at = (grit: number, polished = false): ArsenalBall => ({ ...roughAsymSolid, id: `solid-${grit}${polished ? 'p' : ''}`, surfaceGrit: grit, polished });
+  const at = (grit: number, polished = false): ArsenalBall => ({
+    ...roughAsymSolid,
+    id: `solid-${grit}${polished ? 'p' : ''}`,
+    surfaceGrit: grit,
+    polished,
+  });
 
   it('fresh house shot (40 ft, 19.2 mL, 7:1): the strong asymmetric solid at 500 grit reads too early; at 3000 and 4000 grit it fits better', () => {
     expect(scoreOf(at(3000), houseShot)).toBeGreaterThan(scoreOf(at(500), houseShot));
@@ -90,7 +95,13 @@ describe('rankArsenal: the bowler and the games bowled (common practice)', () =>
   });
 
   it('medium pattern (24.75 mL): the solid ranks above the pearl for the high-speed, low-rev bowler, the pearl above the solid for the high-rev, low-speed one', () => {
-    expect(ids(medium, [roughAsymSolid, polishedPearl].map((b) => b), 0).length).toBe(2);
+    expect(
+      ids(
+        medium,
+        [roughAsymSolid, polishedPearl].map((b) => b),
+        0,
+      ).length,
+    ).toBe(2);
     const first = (bowler: typeof typicalBowler) => rankArsenal({ balls: [roughAsymSolid, polishedPearl], bowler, pattern: medium })[0].id;
     expect(first(fastLowRev)).toBe(roughAsymSolid.id);
     expect(first(slowHighRev)).toBe(polishedPearl.id);
@@ -100,7 +111,9 @@ describe('rankArsenal: the bowler and the games bowled (common practice)', () =>
     const d = [0, 3, 9].map((g) => fit(roughAsymSolid, houseShot, typicalBowler, g).fit.demand);
     expect(d[1]).toBeLessThan(d[0]);
     expect(d[2]).toBeLessThan(d[1]);
-    expect(fit(roughAsymSolid, houseShot, typicalBowler, 9).score).toBeLessThanOrEqual(fit(roughAsymSolid, houseShot, typicalBowler, 0).score);
+    expect(fit(roughAsymSolid, houseShot, typicalBowler, 9).score).toBeLessThanOrEqual(
+      fit(roughAsymSolid, houseShot, typicalBowler, 0).score,
+    );
     expect(fit(urethaneBall, houseShot, typicalBowler, 9).score).toBeGreaterThan(fit(urethaneBall, houseShot, typicalBowler, 0).score);
   });
 });
@@ -130,19 +143,26 @@ describe('rankArsenal: result shape', () => {
     }
   });
 
-  it('suggestions are of the kinds surface, layout, release, line and ball; every strike ball gets the model\'s line', () => {
+  it("suggestions are of the kinds surface, layout, release, line and ball; every strike ball gets the model's line", () => {
     expect(result).toHaveLength(4);
     for (const r of result) for (const s of r.suggestions) expect(['surface', 'layout', 'release', 'line', 'ball']).toContain(s.kind);
-    for (const r of result.filter((x) => x.standing === 'strike')) expect(r.suggestions.some((x) => x.kind === 'line' && 'laydownBoard' in (x.change ?? {}))).toBe(true);
+    for (const r of result.filter((x) => x.standing === 'strike'))
+      expect(r.suggestions.some((x) => x.kind === 'line' && 'laydownBoard' in (x.change ?? {}))).toBe(true);
   });
 
   it('a ball that is too strong or too weak is pointed to the strike ball of the arsenal that fits best', () => {
-    const r = rankArsenal({ balls: [roughAsymSolid, polishedPearl, { ...polishedPearl, id: 'pearl-1000', surfaceGrit: 1000, polished: false }], bowler: typicalBowler, pattern: shortLight });
+    const r = rankArsenal({
+      balls: [roughAsymSolid, polishedPearl, { ...polishedPearl, id: 'pearl-1000', surfaceGrit: 1000, polished: false }],
+      bowler: typicalBowler,
+      pattern: shortLight,
+    });
     const solid = r.find((x) => x.id === roughAsymSolid.id)!;
     expect(solid.fit?.verdict).toBe('too-strong');
     const ball = solid.suggestions.find((x) => x.kind === 'ball');
     expect(ball).toBeDefined();
-    const best = r.filter((x) => x.standing === 'strike' && x.id !== solid.id).sort((a, b) => Math.abs(a.fit!.gap) - Math.abs(b.fit!.gap))[0];
+    const best = r
+      .filter((x) => x.standing === 'strike' && x.id !== solid.id)
+      .sort((a, b) => Math.abs(a.fit!.gap) - Math.abs(b.fit!.gap))[0];
     expect(ball?.change).toEqual({ ballId: best.id });
   });
 

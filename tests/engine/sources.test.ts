@@ -13,15 +13,18 @@ describe('sources', () => {
   it('no tracked file cites a notes file outside the repository', () => {
     const files = execFileSync('git', ['ls-files', '-z'], { cwd: root, encoding: 'utf8' }).split('\0').filter(Boolean);
     expect(files.length).toBeGreaterThan(100);
-    const citing = files.filter((f) => !/\.(png|jpe?g|webp|woff2?|ico|pdf)$/.test(f)).filter((f) => {
-      const text = readFileSync(join(root, f), 'utf8');
-      return notes.some((n) => text.includes(n));
-    });
+    const citing = files
+      .filter((f) => !/\.(png|jpe?g|webp|woff2?|ico|pdf)$/.test(f))
+      .filter((f) => {
+        const text = readFileSync(join(root, f), 'utf8');
+        return notes.some((n) => text.includes(n));
+      });
     expect(citing).toEqual([]);
   });
 
   it('docs/sources.md names the governing body’s standards and the physics the engine uses', () => {
     const text = readFileSync(join(root, 'docs', 'sources.md'), 'utf8');
-    for (const name of ['USBC equipment specifications', 'USBC playing rules', 'Frohlich', 'Brent', 'Wilson', 'common practice']) expect(text).toContain(name);
+    for (const name of ['USBC equipment specifications', 'USBC playing rules', 'Frohlich', 'Brent', 'Wilson', 'common practice'])
+      expect(text).toContain(name);
   });
 });

@@ -28,7 +28,11 @@ describe('strengthFit', () => {
   });
 
   it('points: the reasons share exactly the points lost (±0.3 for rounding), only among the parts that push the gap’s way', () => {
-    for (const [b, p] of [[roughAsymSolid, houseShot], [urethaneBall, longHeavy], [polishedPearl, longHeavy]] as const) {
+    for (const [b, p] of [
+      [roughAsymSolid, houseShot],
+      [urethaneBall, longHeavy],
+      [polishedPearl, longHeavy],
+    ] as const) {
       const f = fitOf(b, p);
       expect(f.verdict).not.toBe('suits');
       const sum = f.reasons.reduce((a, r) => a + r.effect, 0);
@@ -41,7 +45,8 @@ describe('strengthFit', () => {
 
   it('points: too much ball costs more than the same amount too little (common practice: a ball that hooks too much cannot be contained)', () => {
     const { perPoint, tooStrongFactor, tolerance } = FIT_SCALE;
-    const lost = (gap: number) => 100 * (1 - Math.exp((-perPoint * Math.max(0, Math.abs(gap) - tolerance) * (gap > 0 ? tooStrongFactor : 1)) / 100));
+    const lost = (gap: number) =>
+      100 * (1 - Math.exp((-perPoint * Math.max(0, Math.abs(gap) - tolerance) * (gap > 0 ? tooStrongFactor : 1)) / 100));
     expect(lost(8)).toBeGreaterThan(lost(-8));
     const f = fitOf(roughAsymSolid);
     expect(f.score).toBeCloseTo(100 - lost(f.gap), 1);

@@ -27,7 +27,13 @@ describe('suggestChanges', () => {
     // the gap after the change is the smallest any pro-shop finish gives (by the amount needed, not a fixed step)
     const after = (b: BallSpec) => strengthFit(b, matchupContext(typicalBowler, shortLight)).gap;
     const chosen = Math.abs(after({ ...roughAsymSolid, ...c }));
-    for (const [g, p] of [[1000, false], [2000, false], [3000, false], [4000, false], [4000, true]] as const) {
+    for (const [g, p] of [
+      [1000, false],
+      [2000, false],
+      [3000, false],
+      [4000, false],
+      [4000, true],
+    ] as const) {
       expect(chosen).toBeLessThanOrEqual(Math.abs(after({ ...roughAsymSolid, surfaceGrit: g, polished: p })) + 1e-9);
     }
   });
@@ -42,7 +48,9 @@ describe('suggestChanges', () => {
 
   it('nothing but the model line is left for a ball that suits: no surface, layout, release or 2-and-1 move', () => {
     // find a finish of the solid that suits the house shot
-    const ball = [500, 1000, 1500, 2000, 3000, 4000].map((surfaceGrit) => ({ ...roughAsymSolid, surfaceGrit })).find((b) => sug(b, houseShot).fit.verdict === 'suits');
+    const ball = [500, 1000, 1500, 2000, 3000, 4000]
+      .map((surfaceGrit) => ({ ...roughAsymSolid, surfaceGrit }))
+      .find((b) => sug(b, houseShot).fit.verdict === 'suits');
     expect(ball).toBeDefined();
     expect(sug(ball!, houseShot).list).toEqual([]);
   });
@@ -65,8 +73,13 @@ describe('suggestChanges', () => {
     const right = sug(roughAsymSolid, shortLight).list.find((x) => x.kind === 'line');
     expect(right?.text).toMatch(/board left/);
     expect(right?.change).toEqual({ feetBoards: 2, targetBoards: 1 });
-    const mirrored: OilPattern = { name: 'm', sweeps: shortLight.sweeps.map((s) => ({ ...s, fromBoard: 40 - s.toBoard, toBoard: 40 - s.fromBoard })) };
-    expect(sug(roughAsymSolid, mirrored, { ...typicalBowler, hand: 'left' }).list.find((x) => x.kind === 'line')?.text).toMatch(/board right/);
+    const mirrored: OilPattern = {
+      name: 'm',
+      sweeps: shortLight.sweeps.map((s) => ({ ...s, fromBoard: 40 - s.toBoard, toBoard: 40 - s.fromBoard })),
+    };
+    expect(sug(roughAsymSolid, mirrored, { ...typicalBowler, hand: 'left' }).list.find((x) => x.kind === 'line')?.text).toMatch(
+      /board right/,
+    );
     expect(sug(polishedPearl, longHeavy).list.find((x) => x.kind === 'line')?.change).toEqual({ feetBoards: -2, targetBoards: -1 });
   });
 
@@ -80,6 +93,12 @@ describe('suggestChanges', () => {
   });
 
   it('plastic: only the corner-spare suggestion', () => {
-    expect(sug(plasticBall, houseShot).list).toEqual([{ kind: 'line', text: 'Use this ball for corner spares: throw it straight at the 7 and 10 pins, cross-lane.', change: { spareTargets: [7, 10] } }]);
+    expect(sug(plasticBall, houseShot).list).toEqual([
+      {
+        kind: 'line',
+        text: 'Use this ball for corner spares: throw it straight at the 7 and 10 pins, cross-lane.',
+        change: { spareTargets: [7, 10] },
+      },
+    ]);
   });
 });

@@ -6,8 +6,14 @@ import type { ArsenalBall, BowlerProfile, OilPattern, Sweep } from '../../engine
 // expect, in direction and in size. Every ball and pattern here is invented; the expectations are facts of
 // the trade, named beside each check ("common practice" where no single publication states them).
 
-const s = (fromBoard: number, toBoard: number, endFt: number, crossings: number, ul: number, direction: Sweep['direction'] = 'forward'): Sweep =>
-  ({ direction, fromBoard, toBoard, startFt: 0, endFt, crossings, microlitersPerBoard: ul });
+const s = (
+  fromBoard: number,
+  toBoard: number,
+  endFt: number,
+  crossings: number,
+  ul: number,
+  direction: Sweep['direction'] = 'forward',
+): Sweep => ({ direction, fromBoard, toBoard, startFt: 0, endFt, crossings, microlitersPerBoard: ul });
 
 /** A fresh house shot: about 40 ft, medium volume, a high ratio with friction outside (invented pattern). */
 const house: OilPattern = {
@@ -15,11 +21,21 @@ const house: OilPattern = {
   sweeps: [s(2, 38, 40, 2, 65), s(8, 32, 38, 4, 65), s(13, 27, 36, 6, 65), s(16, 24, 32, 6, 65, 'reverse')],
 };
 /** The same house shot with 30 % more oil on every board: heavier volume, same length and ratio. */
-const heavierHouse: OilPattern = { name: 'Harrow Bay house, heavier', sweeps: house.sweeps.map((w) => ({ ...w, microlitersPerBoard: w.microlitersPerBoard * 1.3 })) };
+const heavierHouse: OilPattern = {
+  name: 'Harrow Bay house, heavier',
+  sweeps: house.sweeps.map((w) => ({ ...w, microlitersPerBoard: w.microlitersPerBoard * 1.3 })),
+};
 /** A long, heavy pattern (invented). */
 const longHeavy: OilPattern = {
   name: 'Harrow Bay long',
-  sweeps: [s(2, 38, 47, 2, 60), s(6, 34, 44, 4, 60), s(10, 30, 42, 4, 60), s(15, 25, 40, 4, 60), s(2, 38, 36, 2, 60, 'reverse'), s(12, 28, 34, 4, 60, 'reverse')],
+  sweeps: [
+    s(2, 38, 47, 2, 60),
+    s(6, 34, 44, 4, 60),
+    s(10, 30, 42, 4, 60),
+    s(15, 25, 40, 4, 60),
+    s(2, 38, 36, 2, 60, 'reverse'),
+    s(12, 28, 34, 4, 60, 'reverse'),
+  ],
 };
 /** A short, light pattern (invented). */
 const shortLight: OilPattern = {
@@ -39,15 +55,55 @@ const typical: BowlerProfile = { hand: 'right', speedMph: 17, revRpm: 350, axisR
 
 /** The trade case's ball: a strong asymmetric reactive solid, 15 lb, RG 2.49, differential 0.052, intermediate 0.018, layout: drilling angle 45°, pin 4 3/8 in from the PAP, VAL angle 65°. */
 const strongSolid = (surfaceGrit: number, polished = false, id = `solid-${surfaceGrit}${polished ? '-polished' : ''}`): ArsenalBall => ({
-  id, weightLb: 15, rg: 2.49, differential: 0.052, intermediateDifferential: 0.018, coverType: 'reactive-solid', surfaceGrit, polished,
+  id,
+  weightLb: 15,
+  rg: 2.49,
+  differential: 0.052,
+  intermediateDifferential: 0.018,
+  coverType: 'reactive-solid',
+  surfaceGrit,
+  polished,
   layout: { pinToPapIn: 4.375, drillingAngleDeg: 45, valAngleDeg: 65 },
 });
-const pearl: ArsenalBall = { id: 'pearl', weightLb: 15, rg: 2.54, differential: 0.045, intermediateDifferential: 0.008, coverType: 'reactive-pearl', surfaceGrit: 4000, polished: true, layout: { pinToPapIn: 4.5 } };
-const urethane: ArsenalBall = { id: 'urethane', weightLb: 15, rg: 2.62, differential: 0.022, intermediateDifferential: 0, coverType: 'urethane', surfaceGrit: 2000, polished: false, layout: { pinToPapIn: 4.5 } };
-const plastic: ArsenalBall = { id: 'plastic', weightLb: 14, rg: 2.68, differential: 0.008, intermediateDifferential: 0, coverType: 'plastic', surfaceGrit: 4000, polished: true };
+const pearl: ArsenalBall = {
+  id: 'pearl',
+  weightLb: 15,
+  rg: 2.54,
+  differential: 0.045,
+  intermediateDifferential: 0.008,
+  coverType: 'reactive-pearl',
+  surfaceGrit: 4000,
+  polished: true,
+  layout: { pinToPapIn: 4.5 },
+};
+const urethane: ArsenalBall = {
+  id: 'urethane',
+  weightLb: 15,
+  rg: 2.62,
+  differential: 0.022,
+  intermediateDifferential: 0,
+  coverType: 'urethane',
+  surfaceGrit: 2000,
+  polished: false,
+  layout: { pinToPapIn: 4.5 },
+};
+const plastic: ArsenalBall = {
+  id: 'plastic',
+  weightLb: 14,
+  rg: 2.68,
+  differential: 0.008,
+  intermediateDifferential: 0,
+  coverType: 'plastic',
+  surfaceGrit: 4000,
+  polished: true,
+};
 
-const rank = (balls: ArsenalBall[], pattern: OilPattern, bowler: BowlerProfile = caseBowler, extra: { gamesBowled?: number; lane?: { kind: 'wood' | 'synthetic'; friction: 'low' | 'medium' | 'high' } } = {}) =>
-  rankArsenal({ balls, bowler, pattern, ...extra });
+const rank = (
+  balls: ArsenalBall[],
+  pattern: OilPattern,
+  bowler: BowlerProfile = caseBowler,
+  extra: { gamesBowled?: number; lane?: { kind: 'wood' | 'synthetic'; friction: 'low' | 'medium' | 'high' } } = {},
+) => rankArsenal({ balls, bowler, pattern, ...extra });
 const byId = (r: ReturnType<typeof rank>, id: string) => {
   const e = r.find((x) => x.id === id);
   expect(e, `ball ${id} ranked`).toBeDefined();
@@ -99,7 +155,8 @@ describe('the trade case: a strong asymmetric solid on a fresh house shot (commo
 
   it('house shot: the 2000 reads the lane earlier — the model needs a wider launch from deeper inside to reach the pocket, and the entry angle is lower', () => {
     const r = rank([strongSolid(2000), strongSolid(4000)], house);
-    const a = byId(r, 'solid-2000').prediction, b = byId(r, 'solid-4000').prediction;
+    const a = byId(r, 'solid-2000').prediction,
+      b = byId(r, 'solid-4000').prediction;
     expect(a.laydownBoard - a.targetBoard).toBeGreaterThan(b.laydownBoard - b.targetBoard);
     expect(a.entryAngleDeg).toBeLessThan(b.entryAngleDeg);
   });
@@ -115,7 +172,11 @@ describe('the trade case: a strong asymmetric solid on a fresh house shot (commo
   });
 
   it('a long heavy pattern: the roughest fits best, and for a bowler whose gaps a surface can close (450 rpm) each finish is told to sand only as far as its gap needs', () => {
-    expect(order(rank([strongSolid(1000), strongSolid(2000), strongSolid(4000)], longHeavy))).toEqual(['solid-1000', 'solid-2000', 'solid-4000']);
+    expect(order(rank([strongSolid(1000), strongSolid(2000), strongSolid(4000)], longHeavy))).toEqual([
+      'solid-1000',
+      'solid-2000',
+      'solid-4000',
+    ]);
     const r = rank([strongSolid(1000), strongSolid(2000), strongSolid(4000)], longHeavy, { ...caseBowler, revRpm: 450 });
     expect(order(r)).toEqual(['solid-1000', 'solid-2000', 'solid-4000']);
     const targets = r.map((e) => (surfaceSuggestion(e)?.change as { surfaceGrit?: number } | undefined)?.surfaceGrit ?? e.id);
@@ -126,13 +187,33 @@ describe('the trade case: a strong asymmetric solid on a fresh house shot (commo
 
 describe('cover and surface order across conditions (common practice: in oil solid > hybrid > pearl; urethane early and weak; plastic is a spare ball)', () => {
   it('long heavy oil, every cover at 2000 grit on the same core: solid > hybrid > pearl > urethane, plastic last', () => {
-    const core = { weightLb: 15, rg: 2.52, differential: 0.045, intermediateDifferential: 0, surfaceGrit: 2000, polished: false, layout: { pinToPapIn: 4.5 } };
-    const covers = (['reactive-solid', 'reactive-hybrid', 'reactive-pearl', 'urethane', 'plastic'] as const).map((coverType) => ({ ...core, id: coverType, coverType }));
+    const core = {
+      weightLb: 15,
+      rg: 2.52,
+      differential: 0.045,
+      intermediateDifferential: 0,
+      surfaceGrit: 2000,
+      polished: false,
+      layout: { pinToPapIn: 4.5 },
+    };
+    const covers = (['reactive-solid', 'reactive-hybrid', 'reactive-pearl', 'urethane', 'plastic'] as const).map((coverType) => ({
+      ...core,
+      id: coverType,
+      coverType,
+    }));
     expect(order(rank(covers, longHeavy, typical))).toEqual(['reactive-solid', 'reactive-hybrid', 'reactive-pearl', 'urethane', 'plastic']);
   });
 
   it('short light oil, the same five: the order turns — the pearl ranks above the solid', () => {
-    const core = { weightLb: 15, rg: 2.52, differential: 0.045, intermediateDifferential: 0, surfaceGrit: 3000, polished: false, layout: { pinToPapIn: 4.5 } };
+    const core = {
+      weightLb: 15,
+      rg: 2.52,
+      differential: 0.045,
+      intermediateDifferential: 0,
+      surfaceGrit: 3000,
+      polished: false,
+      layout: { pinToPapIn: 4.5 },
+    };
     const covers = (['reactive-solid', 'reactive-pearl'] as const).map((coverType) => ({ ...core, id: coverType, coverType }));
     expect(order(rank(covers, shortLight, caseBowler))[0]).toBe('reactive-pearl');
   });
@@ -196,7 +277,10 @@ describe('the bowler and the lane (common practice)', () => {
   });
 
   it('a left-hander on the mirrored pattern gets the same ranking and the same predictions (boards counted from their own gutter)', () => {
-    const mirror = (p: OilPattern): OilPattern => ({ name: `${p.name} mirrored`, sweeps: p.sweeps.map((w) => ({ ...w, fromBoard: 40 - w.toBoard, toBoard: 40 - w.fromBoard })) });
+    const mirror = (p: OilPattern): OilPattern => ({
+      name: `${p.name} mirrored`,
+      sweeps: p.sweeps.map((w) => ({ ...w, fromBoard: 40 - w.toBoard, toBoard: 40 - w.fromBoard })),
+    });
     const right = rank(balls, house, typical);
     const left = rank(balls, mirror(house), { ...typical, hand: 'left' });
     expect(order(left)).toEqual(order(right));
@@ -229,30 +313,38 @@ describe('legality (USBC equipment specifications)', () => {
 
 describe('reasons and suggestions say one consistent thing', () => {
   const all = [strongSolid(500), strongSolid(2000), strongSolid(4000, true), pearl, urethane];
-  const cases: [string, OilPattern][] = [['house', house], ['long heavy', longHeavy], ['short light', shortLight], ['flat sport', flatSport]];
-  it.each(cases)('%s: every negative fit reason says it is part of the gap; the fit reasons add up to the points the fit lost; no ball that suits is told to change its surface', (_n, pattern) => {
-    const r = rank(all, pattern, typical);
-    expect(r).toHaveLength(all.length);
-    for (const e of r) {
-      const fitReasons = e.reasons.filter((x) => x.rule.startsWith('reaction-') || x.rule.startsWith('demand-'));
-      expect(fitReasons.length).toBeGreaterThan(3);
-      for (const x of fitReasons) {
-        if (x.effect < 0) expect(x.text).toMatch(/part of why/);
-        expect(x.effect).toBeLessThanOrEqual(0); // a fit part never adds points: the fit can only lose them
-        expect(x.source.length).toBeGreaterThan(5);
-      }
-      const fitLayer = e.layers?.find((l) => l.name === 'fit');
-      expect(fitLayer).toBeDefined();
-      const sum = fitReasons.reduce((a, x) => a + x.effect, 0);
-      expect(sum).toBeCloseTo(-(100 - fitLayer!.score), 0);
-      if (e.fit?.verdict === 'suits') expect(e.suggestions.some((x) => x.kind === 'surface')).toBe(false);
-      if (e.fit?.verdict === 'too-strong') {
-        for (const x of e.suggestions.filter((y) => y.kind === 'surface')) {
-          const c = x.change as { surfaceGrit: number; polished: boolean };
-          const ball = all.find((b) => b.id === e.id)!;
-          expect(smoothness(c.surfaceGrit, c.polished)).toBeGreaterThan(smoothness(ball.surfaceGrit, ball.polished));
+  const cases: [string, OilPattern][] = [
+    ['house', house],
+    ['long heavy', longHeavy],
+    ['short light', shortLight],
+    ['flat sport', flatSport],
+  ];
+  it.each(cases)(
+    '%s: every negative fit reason says it is part of the gap; the fit reasons add up to the points the fit lost; no ball that suits is told to change its surface',
+    (_n, pattern) => {
+      const r = rank(all, pattern, typical);
+      expect(r).toHaveLength(all.length);
+      for (const e of r) {
+        const fitReasons = e.reasons.filter((x) => x.rule.startsWith('reaction-') || x.rule.startsWith('demand-'));
+        expect(fitReasons.length).toBeGreaterThan(3);
+        for (const x of fitReasons) {
+          if (x.effect < 0) expect(x.text).toMatch(/part of why/);
+          expect(x.effect).toBeLessThanOrEqual(0); // a fit part never adds points: the fit can only lose them
+          expect(x.source.length).toBeGreaterThan(5);
+        }
+        const fitLayer = e.layers?.find((l) => l.name === 'fit');
+        expect(fitLayer).toBeDefined();
+        const sum = fitReasons.reduce((a, x) => a + x.effect, 0);
+        expect(sum).toBeCloseTo(-(100 - fitLayer!.score), 0);
+        if (e.fit?.verdict === 'suits') expect(e.suggestions.some((x) => x.kind === 'surface')).toBe(false);
+        if (e.fit?.verdict === 'too-strong') {
+          for (const x of e.suggestions.filter((y) => y.kind === 'surface')) {
+            const c = x.change as { surfaceGrit: number; polished: boolean };
+            const ball = all.find((b) => b.id === e.id)!;
+            expect(smoothness(c.surfaceGrit, c.polished)).toBeGreaterThan(smoothness(ball.surfaceGrit, ball.polished));
+          }
         }
       }
-    }
-  });
+    },
+  );
 });

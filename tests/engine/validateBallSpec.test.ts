@@ -13,7 +13,9 @@ describe('validateBallSpec', () => {
     expect(COVER_TYPES).toEqual(['plastic', 'urethane', 'reactive-pearl', 'reactive-hybrid', 'reactive-solid']);
   });
   it('RangeError for a pin-to-PAP past the far pole (half the circumference, 13.35 in on 8.5 in)', () => {
-    expect(() => validateBallSpec({ ...polishedPearl, layout: { pinToPapIn: 14 } })).toThrow(/validateBallSpec: layout.pinToPapIn 14 in is above the maximum/);
+    expect(() => validateBallSpec({ ...polishedPearl, layout: { pinToPapIn: 14 } })).toThrow(
+      /validateBallSpec: layout.pinToPapIn 14 in is above the maximum/,
+    );
   });
   it('RangeError for a drilling angle of 200°', () => {
     expect(() => validateBallSpec({ ...polishedPearl, layout: { pinToPapIn: 4, drillingAngleDeg: 200 } })).toThrow(RangeError);

@@ -32,10 +32,16 @@ async function tableSums(url: string): Promise<Record<string, { rows: number; md
   const c = new pg.Client({ connectionString: url });
   await c.connect();
   try {
-    const tables = (await c.query<{ t: string }>(`SELECT table_name AS t FROM information_schema.tables WHERE table_schema = 'public' AND table_type = 'BASE TABLE' ORDER BY 1`)).rows.map((r) => r.t);
+    const tables = (
+      await c.query<{ t: string }>(
+        `SELECT table_name AS t FROM information_schema.tables WHERE table_schema = 'public' AND table_type = 'BASE TABLE' ORDER BY 1`,
+      )
+    ).rows.map((r) => r.t);
     const out: Record<string, { rows: number; md5: string }> = {};
     for (const t of tables) {
-      const r = await c.query<{ n: string; md5: string }>(`SELECT count(*) AS n, md5(coalesce(string_agg(x::text, '|' ORDER BY x::text), '')) AS md5 FROM "${t}" x`);
+      const r = await c.query<{ n: string; md5: string }>(
+        `SELECT count(*) AS n, md5(coalesce(string_agg(x::text, '|' ORDER BY x::text), '')) AS md5 FROM "${t}" x`,
+      );
       out[t] = { rows: Number(r.rows[0].n), md5: r.rows[0].md5 };
     }
     return out;
@@ -44,7 +50,8 @@ async function tableSums(url: string): Promise<Record<string, { rows: number; md
   }
 }
 
-const npm = (args: string[]) => spawnSync('npm', ['run', '--silent', ...args], { cwd: root, encoding: 'utf8', env: { ...process.env, DATABASE_URL: '' } });
+const npm = (args: string[]) =>
+  spawnSync('npm', ['run', '--silent', ...args], { cwd: root, encoding: 'utf8', env: { ...process.env, DATABASE_URL: '' } });
 
 describe('db:backup and db:restore', () => {
   it('round-trip the demo data: same tables, row counts and checksums', async () => {

@@ -20,11 +20,17 @@ const distDir = path.join(root, 'dist', `csp-client-${process.pid}`);
 beforeAll(async () => {
   cluster = await ownCluster('csp');
   runTsx(['seeders/index.ts'], cluster.url);
-  let build = spawnSync(path.join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'error', '--outDir', distDir], { cwd: root, encoding: 'utf8' });
+  let build = spawnSync(path.join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'error', '--outDir', distDir], {
+    cwd: root,
+    encoding: 'utf8',
+  });
   // Vite allows one build of a project at a time; wait for another one (a parallel browser-test run) to end.
   for (let i = 0; i < 30 && build.status !== 0 && /another Vite build process/.test(`${build.stdout}${build.stderr}`); i++) {
     await new Promise((r) => setTimeout(r, 5000));
-    build = spawnSync(path.join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'error', '--outDir', distDir], { cwd: root, encoding: 'utf8' });
+    build = spawnSync(path.join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'error', '--outDir', distDir], {
+      cwd: root,
+      encoding: 'utf8',
+    });
   }
   if (build.status !== 0) throw new Error(`vite build failed:\n${build.stdout}\n${build.stderr}`);
   server = await startServer({ DATABASE_URL: cluster.url, CLIENT_DIST: distDir });
@@ -76,7 +82,8 @@ describe('Content-Security-Policy', () => {
         });
       });
       s.page.on('console', (m) => {
-        if (/Content.Security.Policy|CSP violation|Refused to (load|execute|apply|connect|frame)/i.test(m.text())) violations.push(`${email} ${s.page.url()}: ${m.text()}`);
+        if (/Content.Security.Policy|CSP violation|Refused to (load|execute|apply|connect|frame)/i.test(m.text()))
+          violations.push(`${email} ${s.page.url()}: ${m.text()}`);
       });
       await signIn(s.page, email);
       for (const p of paths) {
@@ -92,14 +99,18 @@ describe('Content-Security-Policy', () => {
     }
     expect(visited).toBe(Object.values(SCREENS).flat().length);
     expect(violations.filter((v) => !KNOWN.some((k) => k.test(v)))).toEqual([]);
-    if (violations.length) console.log(`[csp] ${violations.length} known reports of zod's eval probe (harmless; fix: z.config({ jitless: true }) in the client entry)`);
+    if (violations.length)
+      console.log(
+        `[csp] ${violations.length} known reports of zod's eval probe (harmless; fix: z.config({ jitless: true }) in the client entry)`,
+      );
   });
 
   it('the only eval in the built client is that probe (and a fallback a browser never reaches)', () => {
     const uses: string[] = [];
     for (const f of fs.readdirSync(path.join(distDir, 'assets')).filter((x) => x.endsWith('.js'))) {
       const js = fs.readFileSync(path.join(distDir, 'assets', f), 'utf8');
-      for (const m of js.matchAll(/.{0,40}(?<![\w.$])(eval\(|new Function\(|Function\()[^)]{0,40}/g)) if (!ALLOWED_EVAL.some((a) => a.test(m[0]))) uses.push(`${f}: ${m[0]}`);
+      for (const m of js.matchAll(/.{0,40}(?<![\w.$])(eval\(|new Function\(|Function\()[^)]{0,40}/g))
+        if (!ALLOWED_EVAL.some((a) => a.test(m[0]))) uses.push(`${f}: ${m[0]}`);
     }
     expect(uses).toEqual([]);
   });

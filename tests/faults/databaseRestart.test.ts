@@ -33,10 +33,23 @@ describe('PostgreSQL stopped and restarted mid-run', () => {
     const bowler = await userWithRole(server, cluster, 'bowler', 'db-bowler');
     const ball = await call(server.base, 'POST', '/api/arsenal', {
       token: bowler.token,
-      body: { name: 'Fault Tester', coverType: 'reactive-solid', coreType: 'asymmetric', rg: 2.5, differential: 0.05, intermediateDifferential: 0.015, weightLb: 15, surfaceGrit: 2000, polished: false },
+      body: {
+        name: 'Fault Tester',
+        coverType: 'reactive-solid',
+        coreType: 'asymmetric',
+        rg: 2.5,
+        differential: 0.05,
+        intermediateDifferential: 0.015,
+        weightLb: 15,
+        surfaceGrit: 2000,
+        polished: false,
+      },
     });
     expect(ball.status).toBe(201);
-    const session = await call(server.base, 'POST', '/api/sessions', { token: bowler.token, body: { date: new Date().toISOString().slice(0, 10), kind: 'practice' } });
+    const session = await call(server.base, 'POST', '/api/sessions', {
+      token: bowler.token,
+      body: { date: new Date().toISOString().slice(0, 10), kind: 'practice' },
+    });
     expect(session.status).toBe(201);
     const sessionId = session.body.item.id as number;
 
@@ -62,7 +75,8 @@ describe('PostgreSQL stopped and restarted mid-run', () => {
             acknowledged += 1;
             break;
           }
-          if (r.status !== 503 || r.body?.error?.code !== 'service_unavailable') bad.push(`${r.status} ${JSON.stringify(r.body).slice(0, 200)}`);
+          if (r.status !== 503 || r.body?.error?.code !== 'service_unavailable')
+            bad.push(`${r.status} ${JSON.stringify(r.body).slice(0, 200)}`);
           if (attempt > 400) throw new Error('a shot was never accepted');
           await sleep(50);
         }
@@ -70,19 +84,31 @@ describe('PostgreSQL stopped and restarted mid-run', () => {
     })();
 
     // The fault: once a few shots are in, stop the cluster for a few seconds, then start it again.
-    await until(async () => acknowledged, (n) => n >= 6, 20000, 20);
+    await until(
+      async () => acknowledged,
+      (n) => n >= 6,
+      20000,
+      20,
+    );
     // Requests in flight at the moment PostgreSQL goes away (their connections are terminated under them).
     const burst = Promise.all(
       Array.from({ length: 24 }, (_, i) =>
-        call(server.base, 'GET', i % 3 === 0 ? '/api/stats' : i % 3 === 1 ? `/api/sessions/${sessionId}` : '/api/arsenal', { token: bowler.token }),
+        call(server.base, 'GET', i % 3 === 0 ? '/api/stats' : i % 3 === 1 ? `/api/sessions/${sessionId}` : '/api/arsenal', {
+          token: bowler.token,
+        }),
       ),
     );
     await sleep(5);
     cluster.stop();
     down = true;
-    for (const r of await burst) if (r.status !== 200 && !(r.status === 503 && r.body?.error?.code === 'service_unavailable')) bad.push(`in flight: ${r.status} ${JSON.stringify(r.body).slice(0, 200)}`);
+    for (const r of await burst)
+      if (r.status !== 200 && !(r.status === 503 && r.body?.error?.code === 'service_unavailable'))
+        bad.push(`in flight: ${r.status} ${JSON.stringify(r.body).slice(0, 200)}`);
     const healthDown = await call(server.base, 'GET', '/api/health');
-    const readDown = await call(server.base, 'GET', `/api/sessions/${sessionId}`, { token: bowler.token, headers: { 'X-Request-Id': 'fault-db-probe-0001' } });
+    const readDown = await call(server.base, 'GET', `/api/sessions/${sessionId}`, {
+      token: bowler.token,
+      headers: { 'X-Request-Id': 'fault-db-probe-0001' },
+    });
     await sleep(3000);
     const ackWhileDown = acknowledged;
     await cluster.start();
@@ -93,16 +119,31 @@ describe('PostgreSQL stopped and restarted mid-run', () => {
     expect(healthDown.body).toMatchObject({ status: 'degraded', db: 'unreachable' });
     expect(readDown.status).toBe(503);
     expect(readDown.body.error).toMatchObject({ code: 'service_unavailable', message: expect.any(String) });
-    if (bad.length) console.log(server.output().split('\n').filter((l) => l.includes('"level":50')).join('\n').slice(0, 4000));
+    if (bad.length)
+      console.log(
+        server
+          .output()
+          .split('\n')
+          .filter((l) => l.includes('"level":50'))
+          .join('\n')
+          .slice(0, 4000),
+      );
     expect(bad).toEqual([]); // only 503s in the error shape while it was down, never a 500
     expect(downAnswers.filter((s) => s === 503).length).toBeGreaterThan(0);
     expect(acknowledged).toBe(shots.length);
     expect(ackWhileDown).toBeLessThan(shots.length);
 
     // After: the same process serves again, and every shot is stored exactly once.
-    const health = await until(() => call(server.base, 'GET', '/api/health'), (r) => r.status === 200, 10000);
+    const health = await until(
+      () => call(server.base, 'GET', '/api/health'),
+      (r) => r.status === 200,
+      10000,
+    );
     expect(health.body).toMatchObject({ status: 'ok', db: 'ok' });
-    const rows = await cluster.query<{ n: string; keys: string }>('SELECT count(*) AS n, count(DISTINCT idempotency_key) AS keys FROM shots WHERE session_id = $1', [sessionId]);
+    const rows = await cluster.query<{ n: string; keys: string }>(
+      'SELECT count(*) AS n, count(DISTINCT idempotency_key) AS keys FROM shots WHERE session_id = $1',
+      [sessionId],
+    );
     expect(Number(rows[0].n)).toBe(shots.length);
     expect(Number(rows[0].keys)).toBe(shots.length);
     const detail = await call(server.base, 'GET', `/api/sessions/${sessionId}`, { token: bowler.token });
@@ -113,7 +154,10 @@ describe('PostgreSQL stopped and restarted mid-run', () => {
       [300, true],
     ]);
     // The request id is on every log line of the request: the warning about the database and the access line.
-    const probe = server.output().split('\n').filter((l) => l.includes('fault-db-probe-0001'));
+    const probe = server
+      .output()
+      .split('\n')
+      .filter((l) => l.includes('fault-db-probe-0001'));
     expect(probe.some((l) => l.includes('database unavailable'))).toBe(true);
     expect(probe.some((l) => l.includes('"msg":"request"') && l.includes('"status":503'))).toBe(true);
     expect(readDown.headers?.get('x-request-id')).toBe('fault-db-probe-0001');

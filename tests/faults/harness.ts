@@ -55,13 +55,25 @@ export interface ServerProcess {
 export async function startServer(env: Record<string, string>): Promise<ServerProcess> {
   const child = spawn(path.join(root, 'node_modules', '.bin', 'tsx'), ['server/index.ts'], {
     cwd: root,
-    env: { ...process.env, NODE_ENV: 'test', PORT: '0', LOG_LEVEL: 'warn', RATE_LIMIT_AUTH: '1000', STRIPE_SECRET_KEY: '', STRIPE_WEBHOOK_SECRET: '', STRIPE_API_URL: '', ...env },
+    env: {
+      ...process.env,
+      NODE_ENV: 'test',
+      PORT: '0',
+      LOG_LEVEL: 'warn',
+      RATE_LIMIT_AUTH: '1000',
+      STRIPE_SECRET_KEY: '',
+      STRIPE_WEBHOOK_SECRET: '',
+      STRIPE_API_URL: '',
+      ...env,
+    },
     stdio: ['ignore', 'pipe', 'pipe', 'ipc'],
   });
   let out = '';
   child.stdout!.on('data', (d: Buffer) => (out += d.toString()));
   child.stderr!.on('data', (d: Buffer) => (out += d.toString()));
-  const exited = new Promise<{ code: number | null; signal: NodeJS.Signals | null }>((resolve) => child.once('exit', (code, signal) => resolve({ code, signal })));
+  const exited = new Promise<{ code: number | null; signal: NodeJS.Signals | null }>((resolve) =>
+    child.once('exit', (code, signal) => resolve({ code, signal })),
+  );
   const port = await new Promise<number>((resolve, reject) => {
     const timer = setTimeout(() => reject(new Error(`the server did not start within 60 s:\n${out}`)), 60000);
     child.on('message', (m: { type?: string; port?: number }) => {
@@ -88,12 +100,21 @@ export async function startServer(env: Record<string, string>): Promise<ServerPr
 }
 
 /** JSON over HTTP with fetch; network errors come back as status 0. */
-// eslint-disable-next-line @typescript-eslint/no-explicit-any -- answers of many shapes, read field by field in the tests
-export async function call(base: string, method: string, url: string, opts: { token?: string; body?: unknown; headers?: Record<string, string> } = {}): Promise<{ status: number; body: any; headers: Headers | null }> {
+export async function call(
+  base: string,
+  method: string,
+  url: string,
+  opts: { token?: string; body?: unknown; headers?: Record<string, string> } = {},
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any -- answers of many shapes, read field by field in the tests
+): Promise<{ status: number; body: any; headers: Headers | null }> {
   try {
     const res = await fetch(`${base}${url}`, {
       method,
-      headers: { ...(opts.body !== undefined ? { 'content-type': 'application/json' } : {}), ...(opts.token ? { authorization: `Bearer ${opts.token}` } : {}), ...(opts.headers ?? {}) },
+      headers: {
+        ...(opts.body !== undefined ? { 'content-type': 'application/json' } : {}),
+        ...(opts.token ? { authorization: `Bearer ${opts.token}` } : {}),
+        ...(opts.headers ?? {}),
+      },
       body: opts.body !== undefined ? JSON.stringify(opts.body) : undefined,
       signal: AbortSignal.timeout(15000),
     });
@@ -111,14 +132,22 @@ export async function call(base: string, method: string, url: string, opts: { to
 }
 
 /** Registers a user through the API and gives them a role straight in the database (as an admin would). */
-export async function userWithRole(server: ServerProcess, cluster: OwnCluster, role: string, tag: string): Promise<{ id: number; email: string; token: string }> {
+export async function userWithRole(
+  server: ServerProcess,
+  cluster: OwnCluster,
+  role: string,
+  tag: string,
+): Promise<{ id: number; email: string; token: string }> {
   const email = `${tag}-${process.pid}-${Date.now()}@example.test`;
   const password = 'fault-tests-password';
   const reg = await call(server.base, 'POST', '/api/auth/register', { body: { email, password, displayName: `Fault ${tag}` } });
   if (reg.status !== 201) throw new Error(`register: ${reg.status} ${JSON.stringify(reg.body)}`);
   // Sign-up answers neutrally (no token); the new account signs in with its password.
   // The account is confirmed as an admin would (its sign-up verification mail is withdrawn, so a test counting mails sees only its own).
-  const [row] = await cluster.query<{ id: number }>('UPDATE users SET role = $1, email_verified_at = now() WHERE email = $2 RETURNING id', [role, email]);
+  const [row] = await cluster.query<{ id: number }>('UPDATE users SET role = $1, email_verified_at = now() WHERE email = $2 RETURNING id', [
+    role,
+    email,
+  ]);
   await cluster.query("DELETE FROM mail_outbox WHERE to_address = $1 AND kind = 'email_verification'", [email]);
   const login = await call(server.base, 'POST', '/api/auth/login', { body: { email, password } });
   if (login.status !== 200) throw new Error(`login: ${login.status} ${JSON.stringify(login.body)}`);

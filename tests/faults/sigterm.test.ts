@@ -31,11 +31,25 @@ function slowPut(base: string, path: string, token: string, body: unknown) {
   let markSent: () => void = () => undefined;
   const headersSent = new Promise<void>((r) => (markSent = r));
   const answer = new Promise<{ status: number; body: string }>((resolve, reject) => {
-    const req = http.request({ host: url.hostname, port: url.port, path: url.pathname, method: 'PUT', headers: { 'content-type': 'application/json', 'content-length': payload.length, authorization: `Bearer ${token}`, expect: '100-continue' } }, (res) => {
-      let text = '';
-      res.on('data', (d: Buffer) => (text += d.toString()));
-      res.on('end', () => resolve({ status: res.statusCode ?? 0, body: text }));
-    });
+    const req = http.request(
+      {
+        host: url.hostname,
+        port: url.port,
+        path: url.pathname,
+        method: 'PUT',
+        headers: {
+          'content-type': 'application/json',
+          'content-length': payload.length,
+          authorization: `Bearer ${token}`,
+          expect: '100-continue',
+        },
+      },
+      (res) => {
+        let text = '';
+        res.on('data', (d: Buffer) => (text += d.toString()));
+        res.on('end', () => resolve({ status: res.statusCode ?? 0, body: text }));
+      },
+    );
     req.on('error', reject);
     req.on('continue', () => req.write(payload.subarray(0, 10), () => markSent()));
     req.flushHeaders();
@@ -69,20 +83,38 @@ describe('SIGTERM during requests', () => {
     const bowler = await userWithRole(server, cluster, 'bowler', 'term-bowler');
     const pattern = await call(server.base, 'POST', '/api/patterns', {
       token: coach.token,
-      body: { name: 'Shutdown Long 45', sweeps: [{ direction: 'forward', fromBoard: 2, toBoard: 38, startFt: 0, endFt: 45, crossings: 4, microlitersPerBoard: 70 }] },
+      body: {
+        name: 'Shutdown Long 45',
+        sweeps: [{ direction: 'forward', fromBoard: 2, toBoard: 38, startFt: 0, endFt: 45, crossings: 4, microlitersPerBoard: 70 }],
+      },
     });
     expect(pattern.status).toBe(201);
     for (const [i, cover] of ['reactive-solid', 'reactive-pearl', 'reactive-hybrid', 'urethane'].entries()) {
       const b = await call(server.base, 'POST', '/api/arsenal', {
         token: bowler.token,
-        body: { name: `Term ${i}`, coverType: cover, coreType: 'asymmetric', rg: 2.5, differential: 0.05, intermediateDifferential: 0.015, weightLb: 15, surfaceGrit: 2000, polished: false },
+        body: {
+          name: `Term ${i}`,
+          coverType: cover,
+          coreType: 'asymmetric',
+          rg: 2.5,
+          differential: 0.05,
+          intermediateDifferential: 0.015,
+          weightLb: 15,
+          surfaceGrit: 2000,
+          polished: false,
+        },
       });
       expect(b.status).toBe(201);
     }
 
     // In flight when the signal arrives: a request half sent, and cold rankings (each input new).
     const slow = slowPut(server.base, '/api/profile', bowler.token, { speedMph: 18.5, revRpm: 410 });
-    const rankings = Array.from({ length: 6 }, (_, i) => call(server.base, 'POST', '/api/matchups', { token: bowler.token, body: { patternId: pattern.body.item.id, gamesBowled: 1 + i / 7 } }));
+    const rankings = Array.from({ length: 6 }, (_, i) =>
+      call(server.base, 'POST', '/api/matchups', {
+        token: bowler.token,
+        body: { patternId: pattern.body.item.id, gamesBowled: 1 + i / 7 },
+      }),
+    );
     // The signal only once the server has the request's headers (its 100 Continue): a connection that has not started a request yet is idle, and closing idle connections is the point of a graceful stop.
     await slow.headersSent;
     await sleep(400);
@@ -107,7 +139,10 @@ describe('SIGTERM during requests', () => {
     const exit = await server.exited;
     expect(exit).toEqual({ code: 0, signal: null });
     expect(Date.now() - signalled).toBeLessThan(10000); // well before the 10 s forced close
-    const rows = await cluster.query<{ speed_mph: number; rev_rpm: number }>('SELECT speed_mph, rev_rpm FROM bowler_profiles WHERE user_id = $1', [bowler.id]);
+    const rows = await cluster.query<{ speed_mph: number; rev_rpm: number }>(
+      'SELECT speed_mph, rev_rpm FROM bowler_profiles WHERE user_id = $1',
+      [bowler.id],
+    );
     expect(rows.map((r) => [Number(r.speed_mph), Number(r.rev_rpm)])).toEqual([[18.5, 410]]);
     expect(server.output()).not.toMatch(/"level":(50|60)/); // no error logged on the way out
   });

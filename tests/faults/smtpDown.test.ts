@@ -52,7 +52,11 @@ beforeAll(async () => {
   smtpPort = await freePort();
   await startSmtp();
   cluster = await ownCluster('fault-smtp');
-  server = await startServer({ DATABASE_URL: cluster.url, SMTP_URL: `smtp://127.0.0.1:${smtpPort}`, MAIL_FROM: 'Lanewright <no-reply@lanewright.example>' });
+  server = await startServer({
+    DATABASE_URL: cluster.url,
+    SMTP_URL: `smtp://127.0.0.1:${smtpPort}`,
+    MAIL_FROM: 'Lanewright <no-reply@lanewright.example>',
+  });
 });
 afterAll(async () => {
   await server?.kill();
@@ -65,11 +69,17 @@ describe('SMTP down during publishing', () => {
     const admin = await userWithRole(server, cluster, 'admin', 'smtp-admin');
     const owner = await userWithRole(server, cluster, 'proprietor', 'smtp-owner');
     const follower = await userWithRole(server, cluster, 'bowler', 'smtp-follower');
-    const center = await call(server.base, 'POST', '/api/centers', { token: admin.token, body: { name: 'Fault Lanes', town: 'Testford', laneCount: 12, ownerId: owner.id } });
+    const center = await call(server.base, 'POST', '/api/centers', {
+      token: admin.token,
+      body: { name: 'Fault Lanes', town: 'Testford', laneCount: 12, ownerId: owner.id },
+    });
     expect(center.status).toBe(201);
     const pattern = await call(server.base, 'POST', '/api/patterns', {
       token: owner.token,
-      body: { name: 'Outage House 41', sweeps: [{ direction: 'forward', fromBoard: 2, toBoard: 38, startFt: 0, endFt: 41, crossings: 2, microlitersPerBoard: 60 }] },
+      body: {
+        name: 'Outage House 41',
+        sweeps: [{ direction: 'forward', fromBoard: 2, toBoard: 38, startFt: 0, endFt: 41, crossings: 2, microlitersPerBoard: 60 }],
+      },
     });
     expect(pattern.status).toBe(201);
     expect((await call(server.base, 'POST', `/api/centers/${center.body.item.id}/follow`, { token: follower.token })).status).toBe(200);
@@ -85,7 +95,11 @@ describe('SMTP down during publishing', () => {
 
     // The sender tried, failed, and keeps the message for a retry.
     const tried = await until(
-      () => cluster.query<{ status: string; attempts: number; last_error: string | null }>(`SELECT status, attempts, last_error FROM mail_outbox WHERE to_address = $1`, [follower.email]),
+      () =>
+        cluster.query<{ status: string; attempts: number; last_error: string | null }>(
+          `SELECT status, attempts, last_error FROM mail_outbox WHERE to_address = $1`,
+          [follower.email],
+        ),
       // An attempt counts from its claim ('sending'); wait until it has ended, then it must be pending again.
       (rows) => rows.length === 1 && rows[0].attempts >= 1 && rows[0].status !== 'sending',
       15000,
@@ -93,7 +107,11 @@ describe('SMTP down during publishing', () => {
     expect(tried).toHaveLength(1);
     expect(tried[0]).toMatchObject({ status: 'pending' });
     expect(tried[0].last_error).toBeTruthy();
-    const health = await until(() => call(server.base, 'GET', '/api/health'), (r) => r.body?.mail === 'unreachable', 10000);
+    const health = await until(
+      () => call(server.base, 'GET', '/api/health'),
+      (r) => r.body?.mail === 'unreachable',
+      10000,
+    );
     expect(health.status).toBe(200); // mail down does not make the service unavailable
     expect(health.body).toMatchObject({ status: 'ok', db: 'ok', mail: 'unreachable', outbox: { pending: 1 } });
 
@@ -107,7 +125,12 @@ describe('SMTP down during publishing', () => {
     // SMTP returns: the retry delivers it.
     await sleep(500);
     await startSmtp();
-    await until(async () => inbox.filter((m) => m.to.includes(follower.email) && !/confirm your e-mail/i.test(m.subject)).length, (n) => n > 0, 45000, 250);
+    await until(
+      async () => inbox.filter((m) => m.to.includes(follower.email) && !/confirm your e-mail/i.test(m.subject)).length,
+      (n) => n > 0,
+      45000,
+      250,
+    );
     const mails = inbox.filter((m) => m.to.includes(follower.email) && !/confirm your e-mail/i.test(m.subject));
     expect(mails).toHaveLength(1);
     expect(mails[0].subject).toContain('Outage House 41');

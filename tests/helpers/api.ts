@@ -56,7 +56,11 @@ export async function createUser(
 ): Promise<{ user: User; token: string; password: string; auth: { Authorization: string } }> {
   if (!hashCache.has(password)) hashCache.set(password, hashPassword(password));
   const user = await User.create({
-    email: uniqueEmail(role), passwordHash: await hashCache.get(password)!, displayName: opts.displayName ?? `Test ${role}`, role, emailVerifiedAt: opts.verified === false ? null : new Date(),
+    email: uniqueEmail(role),
+    passwordHash: await hashCache.get(password)!,
+    displayName: opts.displayName ?? `Test ${role}`,
+    role,
+    emailVerifiedAt: opts.verified === false ? null : new Date(),
   });
   const token = signToken(user);
   return { user, token, password, auth: { Authorization: `Bearer ${token}` } };
@@ -75,5 +79,6 @@ export function errorOf(body: unknown): { code: string; message: string; fields?
  */
 export async function calibrationsIdle(bowlerId?: number, timeoutMs = 15000): Promise<void> {
   const sql = `SELECT count(*) AS n FROM pgboss.job WHERE name = 'calibration' AND state IN ('created', 'retry', 'active')${bowlerId === undefined ? '' : " AND data->>'bowlerId' = :bowler"}`;
-  if (!(await untilNone(sql, { bowler: String(bowlerId) }, timeoutMs))) throw new Error(`calibration fits still queued after ${timeoutMs} ms`);
+  if (!(await untilNone(sql, { bowler: String(bowlerId) }, timeoutMs)))
+    throw new Error(`calibration fits still queued after ${timeoutMs} ms`);
 }

@@ -9,7 +9,9 @@ import { cloneDatabase, databaseUrl } from './database';
 // whatever order the files run in (`npm test -- --shuffle`). The copies go with the throwaway cluster at the end.
 // TEST_SHARED_DB=1 puts every file on the one database instead, as a check that each test queries only its own rows.
 process.env.DATABASE_URL =
-  process.env.TEST_SHARED_DB === '1' ? databaseUrl(inject('pgAdminUrl'), inject('apiTemplate')) : (await cloneDatabase(inject('pgAdminUrl'), inject('apiTemplate'))).url;
+  process.env.TEST_SHARED_DB === '1'
+    ? databaseUrl(inject('pgAdminUrl'), inject('apiTemplate'))
+    : (await cloneDatabase(inject('pgAdminUrl'), inject('apiTemplate'))).url;
 process.env.NODE_ENV = 'test';
 // Card payments always go to the project's own fake in tests, whatever the shell has configured.
 process.env.STRIPE_SECRET_KEY = '';

@@ -5,7 +5,10 @@ import { waitFor } from './wait';
 /** The in-process caches answer only while the process hears the database's change feed: waits until it does. */
 export async function feedUp(): Promise<void> {
   startChangeFeed();
-  await waitFor(async () => changeFeedListening(), (up) => up);
+  await waitFor(
+    async () => changeFeedListening(),
+    (up) => up,
+  );
 }
 
 /**

@@ -20,7 +20,10 @@ export default async function setup(project: TestProject): Promise<() => void> {
   const url = await freshDatabase(cluster.adminUrl, E2E_TEMPLATE);
   runTsx(['seeders/index.ts'], url);
   const distDir = path.join(root, 'dist', `e2e-client-${process.pid}`);
-  const build = spawnSync(path.join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'error', '--outDir', distDir], { cwd: root, encoding: 'utf8' });
+  const build = spawnSync(path.join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'error', '--outDir', distDir], {
+    cwd: root,
+    encoding: 'utf8',
+  });
   if (build.status !== 0) throw new Error(`vite build failed:\n${build.stdout}\n${build.stderr}`);
   project.provide('pgAdminUrl', cluster.adminUrl);
   project.provide('e2eTemplate', E2E_TEMPLATE);
@@ -41,7 +44,17 @@ export default async function setup(project: TestProject): Promise<() => void> {
 async function workCalibrationFits(url: string): Promise<void> {
   const worker = spawn(path.join(root, 'node_modules', '.bin', 'tsx'), ['server/worker.ts'], {
     cwd: root,
-    env: { ...process.env, DATABASE_URL: url, NODE_ENV: 'test', DEV_SMTP_PORT: '0', STRIPE_FAKE_PORT: '0', LOG_LEVEL: 'warn', STRIPE_SECRET_KEY: '', STRIPE_WEBHOOK_SECRET: '', STRIPE_API_URL: '' },
+    env: {
+      ...process.env,
+      DATABASE_URL: url,
+      NODE_ENV: 'test',
+      DEV_SMTP_PORT: '0',
+      STRIPE_FAKE_PORT: '0',
+      LOG_LEVEL: 'warn',
+      STRIPE_SECRET_KEY: '',
+      STRIPE_WEBHOOK_SECRET: '',
+      STRIPE_API_URL: '',
+    },
     stdio: ['ignore', 'inherit', 'inherit', 'ipc'],
   });
   const exited = new Promise<void>((resolve) => worker.once('exit', () => resolve()));
@@ -50,9 +63,12 @@ async function workCalibrationFits(url: string): Promise<void> {
   try {
     const deadline = Date.now() + 180000;
     for (;;) {
-      const { rows } = await db.query<{ n: string }>("SELECT count(*) AS n FROM pgboss.job WHERE name = 'calibration' AND state IN ('created', 'retry', 'active')");
+      const { rows } = await db.query<{ n: string }>(
+        "SELECT count(*) AS n FROM pgboss.job WHERE name = 'calibration' AND state IN ('created', 'retry', 'active')",
+      );
       if (Number(rows[0].n) === 0) break;
-      if (worker.exitCode !== null) throw new Error(`the job worker exited (code ${worker.exitCode}) before the demo calibration fits were done`);
+      if (worker.exitCode !== null)
+        throw new Error(`the job worker exited (code ${worker.exitCode}) before the demo calibration fits were done`);
       if (Date.now() > deadline) throw new Error('the demo calibration fits were not done within 180 s');
       await new Promise((r) => setTimeout(r, 200));
     }

@@ -55,7 +55,11 @@ async function query<T extends pg.QueryResultRow>(url: string, sql: string, para
 }
 
 function startProc(file: 'index' | 'worker', env: Record<string, string>, ready: string): Promise<Proc> {
-  const child = spawn(process.execPath, ['--enable-source-maps', path.join(root, 'dist', 'server', `${file}.js`)], { cwd: root, env: { ...process.env, ...env }, stdio: ['ignore', 'pipe', 'pipe', 'ipc'] });
+  const child = spawn(process.execPath, ['--enable-source-maps', path.join(root, 'dist', 'server', `${file}.js`)], {
+    cwd: root,
+    env: { ...process.env, ...env },
+    stdio: ['ignore', 'pipe', 'pipe', 'ipc'],
+  });
   let out = '';
   const keep = (d: Buffer) => {
     out += d.toString();
@@ -91,7 +95,12 @@ function startProc(file: 'index' | 'worker', env: Record<string, string>, ready:
  * processes work the queue, as a single `npm start` process does) and a hot standby for reads (`standby: false`:
  * everything on the primary).
  */
-export async function deploy(opts: { apis: number; worker?: boolean; standby?: boolean; extraEnv?: Record<string, string> }): Promise<Deployment> {
+export async function deploy(opts: {
+  apis: number;
+  worker?: boolean;
+  standby?: boolean;
+  extraEnv?: Record<string, string>;
+}): Promise<Deployment> {
   const withWorker = opts.worker ?? true;
   const withStandby = opts.standby ?? true;
   buildServer();
@@ -100,7 +109,13 @@ export async function deploy(opts: { apis: number; worker?: boolean; standby?: b
   const standbyPort = await freePort();
   // pg_stat_statements on both servers: the standby's own counters show which reads it served.
   const stats = '-c shared_preload_libraries=pg_stat_statements -c pg_stat_statements.track=all -c max_connections=200';
-  const primaryUrl = await startCluster({ dataDir: `${dir}/primary`, port: primaryPort, database: 'lw_scale', log: () => undefined, extraOptions: `-c wal_level=replica -c max_wal_senders=5 ${stats}` });
+  const primaryUrl = await startCluster({
+    dataDir: `${dir}/primary`,
+    port: primaryPort,
+    database: 'lw_scale',
+    log: () => undefined,
+    extraOptions: `-c wal_level=replica -c max_wal_senders=5 ${stats}`,
+  });
   await query(primaryUrl, 'CREATE EXTENSION IF NOT EXISTS pg_stat_statements');
 
   // SMTP: every message with its Message-ID (a message sent twice after a crash shows as a repeated id).
@@ -148,9 +163,15 @@ export async function deploy(opts: { apis: number; worker?: boolean; standby?: b
     ...(opts.extraEnv ?? {}),
   };
   // Migrations as their own step, from the build, with the production configuration; then the standby copies the result.
-  const migrate = spawnSync(process.execPath, [path.join(root, 'dist', 'server', 'migrate.js'), 'up'], { cwd: root, env: { ...process.env, ...env, DATABASE_REPLICA_URLS: '' }, encoding: 'utf8' });
+  const migrate = spawnSync(process.execPath, [path.join(root, 'dist', 'server', 'migrate.js'), 'up'], {
+    cwd: root,
+    env: { ...process.env, ...env, DATABASE_REPLICA_URLS: '' },
+    encoding: 'utf8',
+  });
   if (migrate.status !== 0) throw new Error(`migrate failed:\n${migrate.stdout}\n${migrate.stderr}`);
-  const standbyUrl = withStandby ? await startStandby({ dataDir: `${dir}/standby`, primaryPort, port: standbyPort, database: 'lw_scale', extraOptions: stats }) : null;
+  const standbyUrl = withStandby
+    ? await startStandby({ dataDir: `${dir}/standby`, primaryPort, port: standbyPort, database: 'lw_scale', extraOptions: stats })
+    : null;
   if (standbyUrl) env.DATABASE_REPLICA_URLS = standbyUrl;
   const d: Deployment = {
     primaryUrl,

@@ -52,16 +52,29 @@ describe('league night on two API processes, a worker and a hot standby', () => 
     });
 
     // Shots: 12 per bowler, none lost, none doubled.
-    const shots = await d.primary<{ session_id: number; n: string }>('SELECT session_id, count(*) AS n FROM shots WHERE session_id = ANY($1) GROUP BY session_id', [night.sessionIds]);
+    const shots = await d.primary<{ session_id: number; n: string }>(
+      'SELECT session_id, count(*) AS n FROM shots WHERE session_id = ANY($1) GROUP BY session_id',
+      [night.sessionIds],
+    );
     const stored = shots.reduce((s, r) => s + Number(r.n), 0);
     const expected = night.bowlers * 12;
     const lost = expected - stored;
-    const doubled = (await d.primary<{ n: string }>('SELECT count(*) AS n FROM (SELECT session_id, game_number, frame, delivery FROM shots WHERE session_id = ANY($1) GROUP BY 1, 2, 3, 4 HAVING count(*) > 1) x', [night.sessionIds]))[0].n;
+    const doubled = (
+      await d.primary<{ n: string }>(
+        'SELECT count(*) AS n FROM (SELECT session_id, game_number, frame, delivery FROM shots WHERE session_id = ANY($1) GROUP BY 1, 2, 3, 4 HAVING count(*) > 1) x',
+        [night.sessionIds],
+      )
+    )[0].n;
 
     // Jobs: every mail sent and every refund made, each job completed once.
     const jobsDone = await until(
-      () => d.primary<{ name: string; state: string; n: string }>("SELECT name, state, count(*) AS n FROM pgboss.job WHERE name IN ('mail', 'refund', 'calibration') GROUP BY 1, 2"),
-      (rows) => rows.every((r) => r.state === 'completed' || (r.name === 'calibration' && r.state !== 'failed')) && rows.some((r) => r.name === 'refund' && Number(r.n) >= night.refundOrderIds.length),
+      () =>
+        d.primary<{ name: string; state: string; n: string }>(
+          "SELECT name, state, count(*) AS n FROM pgboss.job WHERE name IN ('mail', 'refund', 'calibration') GROUP BY 1, 2",
+        ),
+      (rows) =>
+        rows.every((r) => r.state === 'completed' || (r.name === 'calibration' && r.state !== 'failed')) &&
+        rows.some((r) => r.name === 'refund' && Number(r.n) >= night.refundOrderIds.length),
       90000,
     );
     const outbox = await until(
@@ -73,7 +86,10 @@ describe('league night on two API processes, a worker and a hot standby', () => 
     const ids = d.smtp.messages.map((m) => m.messageId);
     const distinct = new Set(ids).size;
     const resent = ids.length - distinct;
-    const refundRows = await d.primary<{ order_id: number; refund_id: string | null; auto_refund_reason: string | null }>('SELECT order_id, refund_id, auto_refund_reason FROM payments WHERE order_id = ANY($1)', [night.refundOrderIds]);
+    const refundRows = await d.primary<{ order_id: number; refund_id: string | null; auto_refund_reason: string | null }>(
+      'SELECT order_id, refund_id, auto_refund_reason FROM payments WHERE order_id = ANY($1)',
+      [night.refundOrderIds],
+    );
     await until(async () => d.fake.idle().then(() => true), Boolean, 30000);
     const refundEvents = d.fake.events.filter((e) => e.type === 'charge.refunded');
     const refundsPerIntent = new Map<string, number>();
@@ -82,7 +98,10 @@ describe('league night on two API processes, a worker and a hot standby', () => 
       refundsPerIntent.set(pi, (refundsPerIntent.get(pi) ?? 0) + 1);
     }
     const refundedOrders = await until(
-      () => d.primary<{ id: number; payment_status: string }>('SELECT id, payment_status FROM orders WHERE id = ANY($1)', [night.refundOrderIds]),
+      () =>
+        d.primary<{ id: number; payment_status: string }>('SELECT id, payment_status FROM orders WHERE id = ANY($1)', [
+          night.refundOrderIds,
+        ]),
       (rows) => rows.every((r) => r.payment_status === 'refunded'),
       30000,
     );
@@ -98,7 +117,11 @@ describe('league night on two API processes, a worker and a hot standby', () => 
     const statuses: number[] = [];
     for (let i = 0; i < 14; i++) {
       const base = d.apis[i % 2].base;
-      const r = await fetch(`${base}/api/auth/login`, { method: 'POST', headers: { 'content-type': 'application/json', 'x-forwarded-for': '198.51.100.77' }, body: JSON.stringify({ email: `nobody-${i}-${Date.now()}@example.test`, password: 'a wrong guess' }) });
+      const r = await fetch(`${base}/api/auth/login`, {
+        method: 'POST',
+        headers: { 'content-type': 'application/json', 'x-forwarded-for': '198.51.100.77' },
+        body: JSON.stringify({ email: `nobody-${i}-${Date.now()}@example.test`, password: 'a wrong guess' }),
+      });
       statuses.push(r.status);
     }
 
@@ -112,7 +135,12 @@ describe('league night on two API processes, a worker and a hot standby', () => 
       readAfterWriteMisses: night.readAfterWriteMisses,
       mail: { outboxSent: sentRows, received: ids.length, distinct, resentAfterCrash: resent },
       jobs: Object.fromEntries(jobsDone.map((r) => [`${r.name}.${r.state}`, Number(r.n)])),
-      refunds: { orders: night.refundOrderIds.length, refundedAtService: refundsPerIntent.size, maxPerPayment: Math.max(0, ...refundsPerIntent.values()), ordersRefunded: refundedOrders.filter((r) => r.payment_status === 'refunded').length },
+      refunds: {
+        orders: night.refundOrderIds.length,
+        refundedAtService: refundsPerIntent.size,
+        maxPerPayment: Math.max(0, ...refundsPerIntent.values()),
+        ordersRefunded: refundedOrders.filter((r) => r.payment_status === 'refunded').length,
+      },
       standby: { inRecovery: lag[0]?.replaying, readCalls: standbyCalls },
       rateLimit: statuses.join(' '),
       routes: night.routes,

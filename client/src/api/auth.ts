@@ -1,4 +1,13 @@
-import type { AuthResponse, ForgotInput, LoginInput, RegisterInput, RegisterResponse, ResetInput, User, VerifyEmailInput } from '@shared/auth';
+import type {
+  AuthResponse,
+  ForgotInput,
+  LoginInput,
+  RegisterInput,
+  RegisterResponse,
+  ResetInput,
+  User,
+  VerifyEmailInput,
+} from '@shared/auth';
 import type { Ok } from '@shared/api';
 import { api } from './client';
 

@@ -1,4 +1,13 @@
-import { PLAN_KINDS, type CoachLink, type Plan, type PlanCreate, type PlanKind, type PersonRef, type StudentDetail, type StudentSummary } from '@shared/coaching';
+import {
+  PLAN_KINDS,
+  type CoachLink,
+  type Plan,
+  type PlanCreate,
+  type PlanKind,
+  type PersonRef,
+  type StudentDetail,
+  type StudentSummary,
+} from '@shared/coaching';
 import { api } from './client';
 
 export { PLAN_KINDS };

@@ -31,7 +31,20 @@ import {
 } from '@shared/shop';
 
 export { ORDER_STATUSES, SERVICE_KINDS, SURFACE_KINDS, cautionsFor };
-export type { CheckoutStart, Order, OrderCreate, OrderHistoryEntry, OrderStatus, PaymentStatus, ServiceInput, ServiceKind, ServicePatch, ShopMove, ShopService, Takings };
+export type {
+  CheckoutStart,
+  Order,
+  OrderCreate,
+  OrderHistoryEntry,
+  OrderStatus,
+  PaymentStatus,
+  ServiceInput,
+  ServiceKind,
+  ServicePatch,
+  ShopMove,
+  ShopService,
+  Takings,
+};
 
 /** The order's life (the shop's next move, refunds) and money formatting are the shared rules the server applies. */
 export { canRefund, formatMoney, nextShopMove as nextMove };
@@ -41,7 +54,10 @@ export type OrderListParams = Partial<OrderListQuery>;
 export const shopApi = {
   /** Active services of a center (`all`: the owner sees inactive ones too). */
   services: (centerId: number, options: { all?: boolean; signal?: AbortSignal } = {}) =>
-    api.get<{ items: ShopService[] }>(`/centers/${centerId}/services`, { query: { all: options.all ? 1 : undefined }, signal: options.signal }),
+    api.get<{ items: ShopService[] }>(`/centers/${centerId}/services`, {
+      query: { all: options.all ? 1 : undefined },
+      signal: options.signal,
+    }),
   createService: (centerId: number, body: ServiceInput) => api.post<{ item: ShopService }>(`/centers/${centerId}/services`, body),
   /** `version` must be the one read; a stale one answers 409. */
   updateService: (centerId: number, serviceId: number, body: ServicePatch) =>
@@ -57,7 +73,8 @@ export const shopApi = {
     api.get<Page<Order>>(`/centers/${centerId}/orders`, { query: { ...params }, signal }),
   setStatus: (orderId: number, status: ShopMove) => api.patch<{ item: Order }>(`/orders/${orderId}/status`, { status }),
   refund: (orderId: number) => api.post<{ item: Order }>(`/orders/${orderId}/refund`),
-  takings: (centerId: number, date: string, signal?: AbortSignal) => api.get<{ item: Takings }>(`/centers/${centerId}/takings`, { query: { date }, signal }),
+  takings: (centerId: number, date: string, signal?: AbortSignal) =>
+    api.get<{ item: Takings }>(`/centers/${centerId}/takings`, { query: { date }, signal }),
 };
 
 /* ---- wording shared by the shop screens ------------------------------------------------------------ */

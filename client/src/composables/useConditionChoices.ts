@@ -65,7 +65,9 @@ export function useConditionChoices() {
   const follows = computed<FollowedCenter[]>(() => (followsQuery.isError.value ? [] : (followsQuery.data.value ?? [])));
   const patterns = computed<PatternListItem[]>(() => patternsQuery.data.value ?? []);
   const loading = computed(() => patternsQuery.isFetching.value || followsQuery.isFetching.value);
-  const error = computed(() => (patternsQuery.isError.value ? errorMessage(patternsQuery.error.value, 'The conditions could not be loaded.') : ''));
+  const error = computed(() =>
+    patternsQuery.isError.value ? errorMessage(patternsQuery.error.value, 'The conditions could not be loaded.') : '',
+  );
 
   /** Waits for both lists (from the cache when fresh); after an error it asks the server again. */
   async function load(): Promise<void> {

@@ -9,7 +9,18 @@ import { mapMaxFt } from '@/composables/usePatternDraft';
 import { useConditionChoices } from '@/composables/useConditionChoices';
 
 /** One colour per ball in charts (distinct from the blue oil scale and the maple lane), with a legend. */
-export const BALL_COLOURS = ['#c2410c', '#7c3aed', '#be123c', '#15803d', '#0f172a', '#a21caf', '#b45309', '#0e7490', '#4d7c0f', '#9f1239'] as const;
+export const BALL_COLOURS = [
+  '#c2410c',
+  '#7c3aed',
+  '#be123c',
+  '#15803d',
+  '#0f172a',
+  '#a21caf',
+  '#b45309',
+  '#0e7490',
+  '#4d7c0f',
+  '#9f1239',
+] as const;
 
 /**
  * The Matchup screen's state: the conditions to choose from (today's publications at followed centers, and
@@ -32,7 +43,9 @@ export function useMatchup() {
 
   /** The bowler's balls in the bag by id, with every spec (hardness, wear, approval year) for the what-if. */
   const arsenal = useArsenalQuery();
-  const balls = computed(() => new Map<number, Ball>((arsenal.data.value ?? []).filter((b) => b.status === 'active').map((b) => [b.id, b])));
+  const balls = computed(
+    () => new Map<number, Ball>((arsenal.data.value ?? []).filter((b) => b.status === 'active').map((b) => [b.id, b])),
+  );
 
   let controller: AbortController | null = null;
 

@@ -173,7 +173,9 @@ export function usePatternDraft() {
 
   /** The numbers of the valid rows, from the engine (exactly the server's computation). */
   const numbers = computed<PatternNumbersInput>(() => computePatternNumbers(validSweeps.value));
-  const grid = computed<OilGrid>(() => oilGrid({ name: 'draft', sweeps: validSweeps.value }, { boardStep: 1, ftStep: 1, maxFt: mapMaxFt(numbers.value.lengthFt) }));
+  const grid = computed<OilGrid>(() =>
+    oilGrid({ name: 'draft', sweeps: validSweeps.value }, { boardStep: 1, ftStep: 1, maxFt: mapMaxFt(numbers.value.lengthFt) }),
+  );
 
   const dirty = computed(() => snapshot() !== savedSnapshot.value);
 

@@ -102,5 +102,19 @@ export const useAuthStore = defineStore('auth', () => {
     return role.value !== null && roles.includes(role.value);
   }
 
-  return { token, user, sessionError, isSignedIn, role, setSession, clearSession, signIn, signUp, markVerified, signOut, ensureSession, hasRole };
+  return {
+    token,
+    user,
+    sessionError,
+    isSignedIn,
+    role,
+    setSession,
+    clearSession,
+    signIn,
+    signUp,
+    markVerified,
+    signOut,
+    ensureSession,
+    hasRole,
+  };
 });

@@ -50,7 +50,9 @@ export function parseLaneRanges(text: string, max: number): ParsedLanes {
 /** "1 Dec 2026" for a YYYY-MM-DD date (read as a calendar day, not shifted by time zone). */
 export function formatDay(iso: string): string {
   const [y, m, d] = iso.split('-').map(Number);
-  return new Intl.DateTimeFormat(undefined, { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(new Date(Date.UTC(y, m - 1, d)));
+  return new Intl.DateTimeFormat(undefined, { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' }).format(
+    new Date(Date.UTC(y, m - 1, d)),
+  );
 }
 
 /** "from 1 Dec 2026 to 7 Dec 2026" / "from 1 Dec 2026 until further notice". */

@@ -46,7 +46,11 @@ const f1 = (v: number) => v.toFixed(1);
  * bowler's units: "Breakpoint 1.8 ft later and 0.7 boards deeper: board 8.1 at 41.0 ft → board 8.8 at 42.8 ft."
  * Boards count from the bowler's hand-side gutter, so more boards is deeper (toward the middle).
  */
-export function breakpointChange(from: ShotPrediction, to: ShotPrediction, u: Pick<UnitFormatter, 'distance'> = unitFormatter('imperial')): string {
+export function breakpointChange(
+  from: ShotPrediction,
+  to: ShotPrediction,
+  u: Pick<UnitFormatter, 'distance'> = unitFormatter('imperial'),
+): string {
   const dFt = to.breakpoint.ft - from.breakpoint.ft;
   const dBoard = to.breakpoint.board - from.breakpoint.board;
   const ft = Math.abs(dFt) < 0.05 ? 'at the same distance' : `${u.distance(Math.abs(dFt))} ${dFt > 0 ? 'later' : 'earlier'}`;

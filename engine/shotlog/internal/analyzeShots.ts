@@ -42,15 +42,18 @@ export function checkShot(fn: string, name: string, raw: unknown): ShotRecord {
   str('date');
   if (!DATE.test(d.date)) throw new RangeError(`${fn}: ${name}.date must be YYYY-MM-DD, got ${show(d.date)}`);
   if (typeof d.gameNumber !== 'number') throw new TypeError(`${fn}: ${name}.gameNumber must be a number, got ${show(d.gameNumber)}`);
-  if (!Number.isInteger(d.gameNumber) || d.gameNumber < 1) throw new RangeError(`${fn}: ${name}.gameNumber must be an integer ≥ 1, got ${d.gameNumber}`);
-  if (!Number.isInteger(d.frame) || d.frame < 1 || d.frame > 10) throw new RangeError(`${fn}: ${name}.frame must be an integer from 1 to 10, got ${d.frame}`);
+  if (!Number.isInteger(d.gameNumber) || d.gameNumber < 1)
+    throw new RangeError(`${fn}: ${name}.gameNumber must be an integer ≥ 1, got ${d.gameNumber}`);
+  if (!Number.isInteger(d.frame) || d.frame < 1 || d.frame > 10)
+    throw new RangeError(`${fn}: ${name}.frame must be an integer from 1 to 10, got ${d.frame}`);
   const maxDelivery = d.frame === 10 ? 3 : 2;
   if (!Number.isInteger(d.delivery) || d.delivery < 1 || d.delivery > maxDelivery) {
     throw new RangeError(`${fn}: ${name}: frame ${d.frame} has no delivery ${d.delivery}`);
   }
   const seen = new Set<number>();
   for (const p of d.standing) {
-    if (!Number.isInteger(p) || p < 1 || p > 10 || seen.has(p)) throw new RangeError(`${fn}: ${name}.standing must list distinct pins 1 to 10, got ${JSON.stringify(d.standing)}`);
+    if (!Number.isInteger(p) || p < 1 || p > 10 || seen.has(p))
+      throw new RangeError(`${fn}: ${name}.standing must list distinct pins 1 to 10, got ${JSON.stringify(d.standing)}`);
     seen.add(p);
   }
   for (const k of ['feetBoard', 'targetBoard', 'breakpointBoard'] as const) {
@@ -73,7 +76,12 @@ export function checkShot(fn: string, name: string, raw: unknown): ShotRecord {
  */
 export function analyzeShots(fn: string, shots: unknown): AnalyzedShots {
   const records = list(fn, 'shots', shots).map((s, i) => checkShot(fn, `shots[${i}]`, s));
-  const entries: ShotEntry[] = records.map((shot) => ({ shot, view: null, rackFirst: null, game: `${shot.sessionId}\u0000${shot.gameNumber}` }));
+  const entries: ShotEntry[] = records.map((shot) => ({
+    shot,
+    view: null,
+    rackFirst: null,
+    game: `${shot.sessionId}\u0000${shot.gameNumber}`,
+  }));
   const byGame = new Map<string, number[]>();
   entries.forEach((e, i) => {
     const list = byGame.get(e.game);
@@ -87,7 +95,8 @@ export function analyzeShots(fn: string, shots: unknown): AnalyzedShots {
     for (let k = 1; k < idx.length; k++) {
       const a = records[idx[k - 1]];
       const b = records[idx[k]];
-      if (a.frame === b.frame && a.delivery === b.delivery) throw new RangeError(`${fn}: ${label}: frame ${b.frame}, delivery ${b.delivery} is logged twice`);
+      if (a.frame === b.frame && a.delivery === b.delivery)
+        throw new RangeError(`${fn}: ${label}: frame ${b.frame}, delivery ${b.delivery} is logged twice`);
     }
     let k = 0;
     while (k < idx.length) {

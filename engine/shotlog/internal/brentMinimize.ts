@@ -10,9 +10,13 @@ export function brentMinimize(f: (x: number) => number, a0: number, b0: number, 
   let a = Math.min(a0, b0);
   let b = Math.max(a0, b0);
   let x = x0 > a && x0 < b ? x0 : a + CG * (b - a);
-  let w = x, v = x;
-  let fx = f(x), fw = fx, fv = fx;
-  let d = 0, e = 0;
+  let w = x,
+    v = x;
+  let fx = f(x),
+    fw = fx,
+    fv = fx;
+  let d = 0,
+    e = 0;
   for (let it = 0; it < 100; it++) {
     const xm = 0.5 * (a + b);
     const tol1 = tol * Math.abs(x) + 1e-10;
@@ -44,17 +48,23 @@ export function brentMinimize(f: (x: number) => number, a0: number, b0: number, 
     if (fu <= fx) {
       if (u >= x) a = x;
       else b = x;
-      v = w; fv = fw;
-      w = x; fw = fx;
-      x = u; fx = fu;
+      v = w;
+      fv = fw;
+      w = x;
+      fw = fx;
+      x = u;
+      fx = fu;
     } else {
       if (u < x) a = u;
       else b = u;
       if (fu <= fw || w === x) {
-        v = w; fv = fw;
-        w = u; fw = fu;
+        v = w;
+        fv = fw;
+        w = u;
+        fw = fu;
       } else if (fu <= fv || v === x || v === w) {
-        v = u; fv = fu;
+        v = u;
+        fv = fu;
       }
     }
   }

@@ -13,8 +13,19 @@ export function rate(hits: number, n: number): Rate {
 
 /** The statistics of the entries whose indexes are in `include` (definitions: shotStats). */
 export function computeStats(a: AnalyzedShots, include: Set<number>): ShotStats {
-  let strikes = 0, strikeN = 0, spares = 0, spareN = 0, single = 0, singleN = 0, multi = 0, multiN = 0;
-  let splitMade = 0, splitN = 0, pocket = 0, pocketN = 0, carried = 0;
+  let strikes = 0,
+    strikeN = 0,
+    spares = 0,
+    spareN = 0,
+    single = 0,
+    singleN = 0,
+    multi = 0,
+    multiN = 0;
+  let splitMade = 0,
+    splitN = 0,
+    pocket = 0,
+    pocketN = 0,
+    carried = 0;
   const firstBallPins: number[] = [];
   const leaves = new Map<string, LeaveCount>();
   let leaveTotal = 0;

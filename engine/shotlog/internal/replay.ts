@@ -50,7 +50,8 @@ export function checkShape(fn: string, name: string, d: unknown): LoggedDelivery
   r.standing.forEach((p, i) => {
     if (typeof p !== 'number') throw new TypeError(`${fn}: ${name}.standing[${i}] must be a pin number, got ${show(p)}`);
   });
-  if (r.foul !== undefined && typeof r.foul !== 'boolean') throw new TypeError(`${fn}: ${name}.foul must be true or false, got ${show(r.foul)}`);
+  if (r.foul !== undefined && typeof r.foul !== 'boolean')
+    throw new TypeError(`${fn}: ${name}.foul must be true or false, got ${show(r.foul)}`);
   return d as LoggedDelivery;
 }
 
@@ -65,7 +66,11 @@ export function step(s: GameState, d: LoggedDelivery): StepResult {
 
   if (s.complete) {
     if (s.endedBy === 'open-tenth' && frame === 10 && delivery === 3) {
-      return { ok: false, field: 'delivery', reason: 'frame 10 has no delivery 3: its first two deliveries made neither a strike nor a spare, so the game is already complete' };
+      return {
+        ok: false,
+        field: 'delivery',
+        reason: 'frame 10 has no delivery 3: its first two deliveries made neither a strike nor a spare, so the game is already complete',
+      };
     }
     return { ok: false, field: 'frame', reason: 'the game is already complete' };
   }
@@ -74,7 +79,11 @@ export function step(s: GameState, d: LoggedDelivery): StepResult {
   }
   const maxDelivery = frame === 10 ? 3 : 2;
   if (!Number.isInteger(delivery) || delivery < 1 || delivery > maxDelivery) {
-    return { ok: false, field: 'delivery', reason: `frame ${frame} has no delivery ${delivery}; ${frame === 10 ? 'the tenth frame has at most 3' : 'frames 1 to 9 have at most 2'}` };
+    return {
+      ok: false,
+      field: 'delivery',
+      reason: `frame ${frame} has no delivery ${delivery}; ${frame === 10 ? 'the tenth frame has at most 3' : 'frames 1 to 9 have at most 2'}`,
+    };
   }
   if (frame !== s.frame || delivery !== s.delivery) {
     if (delivery === 2 && s.strikeFrames.includes(frame)) {
@@ -89,7 +98,8 @@ export function step(s: GameState, d: LoggedDelivery): StepResult {
   // The pins standing after it.
   const seen = new Set<number>();
   for (const p of d.standing) {
-    if (!Number.isInteger(p) || p < 1 || p > 10) return { ok: false, field: 'standing', reason: `pin ${p} does not exist; pins are numbered 1 to 10` };
+    if (!Number.isInteger(p) || p < 1 || p > 10)
+      return { ok: false, field: 'standing', reason: `pin ${p} does not exist; pins are numbered 1 to 10` };
     if (seen.has(p)) return { ok: false, field: 'standing', reason: `pin ${p} is listed twice` };
     seen.add(p);
   }
@@ -98,7 +108,8 @@ export function step(s: GameState, d: LoggedDelivery): StepResult {
   if (wasDown.length > 0) {
     const what = wasDown.length === 1 ? `pin ${wasDown[0]} was` : `pins ${andList(wasDown)} were`;
     let context = `only ${pinList(s.pinsBefore)} ${s.pinsBefore.length === 1 ? 'was' : 'were'} standing`;
-    if (frame === 10 && s.rackBall === 2 && delivery > 1) context += ' (in the tenth frame the rack is re-set only after a strike or a spare)';
+    if (frame === 10 && s.rackBall === 2 && delivery > 1)
+      context += ' (in the tenth frame the rack is re-set only after a strike or a spare)';
     return { ok: false, field: 'standing', reason: `${what} already down before this delivery; ${context}` };
   }
 
@@ -108,15 +119,35 @@ export function step(s: GameState, d: LoggedDelivery): StepResult {
   const symbol = foul ? 'F' : cleared ? (s.rackBall === 1 ? 'X' : '/') : pins === 0 ? '-' : String(pins);
   const split = !foul && s.rackBall === 1 && isSplit(after);
   const view: DeliveryView = {
-    frame, delivery, pinsBefore: s.pinsBefore.slice(), standing: foul ? s.pinsBefore.slice() : after, pins, foul, symbol, split, rackBall: s.rackBall,
+    frame,
+    delivery,
+    pinsBefore: s.pinsBefore.slice(),
+    standing: foul ? s.pinsBefore.slice() : after,
+    pins,
+    foul,
+    symbol,
+    split,
+    rackBall: s.rackBall,
   };
   const rackAfter = foul ? s.pinsBefore.slice() : after;
   const strikeFrames = frame < 10 && delivery === 1 && cleared ? [...s.strikeFrames, frame] : s.strikeFrames;
   const next = (f: number, dl: number, rack: number[], rackBall: 1 | 2): GameState => ({
-    frame: f, delivery: dl, pinsBefore: rack, rackBall, complete: false, endedBy: null, strikeFrames,
+    frame: f,
+    delivery: dl,
+    pinsBefore: rack,
+    rackBall,
+    complete: false,
+    endedBy: null,
+    strikeFrames,
   });
   const over = (endedBy: GameState['endedBy']): GameState => ({
-    frame: 0, delivery: 0, pinsBefore: [], rackBall: 1, complete: true, endedBy, strikeFrames,
+    frame: 0,
+    delivery: 0,
+    pinsBefore: [],
+    rackBall: 1,
+    complete: true,
+    endedBy,
+    strikeFrames,
   });
 
   let state: GameState;
@@ -126,7 +157,8 @@ export function step(s: GameState, d: LoggedDelivery): StepResult {
   } else if (delivery === 1) {
     state = cleared ? next(10, 2, ALL.slice(), 1) : next(10, 2, rackAfter, 2);
   } else if (delivery === 2) {
-    if (s.rackBall === 1) state = cleared ? next(10, 3, ALL.slice(), 1) : next(10, 3, rackAfter, 2); // after a strike
+    if (s.rackBall === 1)
+      state = cleared ? next(10, 3, ALL.slice(), 1) : next(10, 3, rackAfter, 2); // after a strike
     else state = cleared ? next(10, 3, ALL.slice(), 1) : over('open-tenth'); // a spare earns the third delivery
   } else {
     state = over('third-delivery');

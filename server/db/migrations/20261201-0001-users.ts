@@ -17,10 +17,9 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
       },
       { transaction },
     );
-    await qi.sequelize.query(
-      "ALTER TABLE users ADD CONSTRAINT users_role_check CHECK (role IN ('bowler','coach','proprietor','admin'))",
-      { transaction },
-    );
+    await qi.sequelize.query("ALTER TABLE users ADD CONSTRAINT users_role_check CHECK (role IN ('bowler','coach','proprietor','admin'))", {
+      transaction,
+    });
     await qi.createTable(
       'bowler_profiles',
       {

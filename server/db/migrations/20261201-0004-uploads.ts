@@ -17,7 +17,12 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
       },
       { transaction },
     );
-    await qi.addColumn('balls', 'photo_upload_id', { type: DataTypes.INTEGER, allowNull: true, references: { model: 'uploads', key: 'id' }, onDelete: 'SET NULL' }, { transaction });
+    await qi.addColumn(
+      'balls',
+      'photo_upload_id',
+      { type: DataTypes.INTEGER, allowNull: true, references: { model: 'uploads', key: 'id' }, onDelete: 'SET NULL' },
+      { transaction },
+    );
   });
 }
 

@@ -65,7 +65,11 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
     // A retried request never stores a second row: the database refuses the same key twice in a session.
     await qi.addIndex('shots', ['session_id', 'idempotency_key'], { unique: true, name: 'shots_session_idempotency_key', transaction });
     // One row per delivery of a game, whatever the keys.
-    await qi.addIndex('shots', ['session_id', 'game_number', 'frame', 'delivery'], { unique: true, name: 'shots_session_delivery', transaction });
+    await qi.addIndex('shots', ['session_id', 'game_number', 'frame', 'delivery'], {
+      unique: true,
+      name: 'shots_session_delivery',
+      transaction,
+    });
     await qi.addIndex('shots', ['ball_id'], { transaction });
 
     await qi.createTable(

@@ -8,8 +8,18 @@ import { DataTypes, type QueryInterface } from 'sequelize';
  */
 export async function up({ context: qi }: { context: QueryInterface }): Promise<void> {
   await qi.sequelize.transaction(async (transaction) => {
-    await qi.addColumn('conditions', 'lane_kind', { type: DataTypes.STRING(10), allowNull: false, defaultValue: 'synthetic' }, { transaction });
-    await qi.addColumn('conditions', 'lane_friction', { type: DataTypes.STRING(6), allowNull: false, defaultValue: 'medium' }, { transaction });
+    await qi.addColumn(
+      'conditions',
+      'lane_kind',
+      { type: DataTypes.STRING(10), allowNull: false, defaultValue: 'synthetic' },
+      { transaction },
+    );
+    await qi.addColumn(
+      'conditions',
+      'lane_friction',
+      { type: DataTypes.STRING(6), allowNull: false, defaultValue: 'medium' },
+      { transaction },
+    );
     await qi.sequelize.query(
       `ALTER TABLE conditions ADD CONSTRAINT conditions_lane_kind CHECK (lane_kind IN ('wood', 'synthetic')),
          ADD CONSTRAINT conditions_lane_friction CHECK (lane_friction IN ('low', 'medium', 'high'))`,
@@ -26,7 +36,10 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
 export async function down({ context: qi }: { context: QueryInterface }): Promise<void> {
   await qi.sequelize.transaction(async (transaction) => {
     await qi.removeColumn('balls', 'approval_year', { transaction });
-    await qi.sequelize.query('ALTER TABLE conditions DROP CONSTRAINT IF EXISTS conditions_lane_kind, DROP CONSTRAINT IF EXISTS conditions_lane_friction', { transaction });
+    await qi.sequelize.query(
+      'ALTER TABLE conditions DROP CONSTRAINT IF EXISTS conditions_lane_kind, DROP CONSTRAINT IF EXISTS conditions_lane_friction',
+      { transaction },
+    );
     await qi.removeColumn('conditions', 'lane_friction', { transaction });
     await qi.removeColumn('conditions', 'lane_kind', { transaction });
   });

@@ -21,13 +21,17 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
       },
       { transaction },
     );
-    await qi.sequelize.query('CREATE UNIQUE INDEX email_verifications_one_open ON email_verifications (user_id) WHERE used_at IS NULL', { transaction });
+    await qi.sequelize.query('CREATE UNIQUE INDEX email_verifications_one_open ON email_verifications (user_id) WHERE used_at IS NULL', {
+      transaction,
+    });
     await qi.sequelize.query(
       `UPDATE password_resets p SET used_at = now(), updated_at = now()
        WHERE p.used_at IS NULL AND p.id <> (SELECT max(q.id) FROM password_resets q WHERE q.user_id = p.user_id AND q.used_at IS NULL)`,
       { transaction },
     );
-    await qi.sequelize.query('CREATE UNIQUE INDEX password_resets_one_open ON password_resets (user_id) WHERE used_at IS NULL', { transaction });
+    await qi.sequelize.query('CREATE UNIQUE INDEX password_resets_one_open ON password_resets (user_id) WHERE used_at IS NULL', {
+      transaction,
+    });
   });
 }
 

@@ -10,7 +10,12 @@ import { DataTypes, type QueryInterface } from 'sequelize';
  */
 export async function up({ context: qi }: { context: QueryInterface }): Promise<void> {
   await qi.sequelize.transaction(async (transaction) => {
-    await qi.changeColumn('payments', 'checkout_session_id', { type: DataTypes.STRING(255), allowNull: true, unique: true }, { transaction });
+    await qi.changeColumn(
+      'payments',
+      'checkout_session_id',
+      { type: DataTypes.STRING(255), allowNull: true, unique: true },
+      { transaction },
+    );
     await qi.addColumn('payments', 'idempotency_key', { type: DataTypes.STRING(255), allowNull: true, unique: true }, { transaction });
     await qi.addColumn('payments', 'auto_refund_reason', { type: DataTypes.STRING(200), allowNull: true }, { transaction });
     await qi.addColumn('mail_outbox', 'claimed_at', { type: DataTypes.DATE, allowNull: true }, { transaction });
@@ -18,8 +23,20 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
     await qi.createTable(
       'calibration_fits',
       {
-        bowler_id: { type: DataTypes.INTEGER, allowNull: false, primaryKey: true, references: { model: 'users', key: 'id' }, onDelete: 'CASCADE' },
-        pattern_id: { type: DataTypes.INTEGER, allowNull: false, primaryKey: true, references: { model: 'patterns', key: 'id' }, onDelete: 'CASCADE' },
+        bowler_id: {
+          type: DataTypes.INTEGER,
+          allowNull: false,
+          primaryKey: true,
+          references: { model: 'users', key: 'id' },
+          onDelete: 'CASCADE',
+        },
+        pattern_id: {
+          type: DataTypes.INTEGER,
+          allowNull: false,
+          primaryKey: true,
+          references: { model: 'patterns', key: 'id' },
+          onDelete: 'CASCADE',
+        },
         input_hash: { type: DataTypes.STRING(64), allowNull: false },
         calibration: { type: DataTypes.JSONB, allowNull: false },
         shots: { type: DataTypes.INTEGER, allowNull: false },
@@ -50,7 +67,13 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
     await qi.createTable(
       'user_write_marks',
       {
-        user_id: { type: DataTypes.INTEGER, allowNull: false, primaryKey: true, references: { model: 'users', key: 'id' }, onDelete: 'CASCADE' },
+        user_id: {
+          type: DataTypes.INTEGER,
+          allowNull: false,
+          primaryKey: true,
+          references: { model: 'users', key: 'id' },
+          onDelete: 'CASCADE',
+        },
         at: { type: DataTypes.DATE, allowNull: false },
       },
       { transaction },
@@ -64,7 +87,7 @@ export async function down({ context: qi }: { context: QueryInterface }): Promis
     await qi.removeColumn('mail_outbox', 'claimed_at', { transaction });
     await qi.removeColumn('payments', 'auto_refund_reason', { transaction });
     await qi.removeColumn('payments', 'idempotency_key', { transaction });
-    await qi.sequelize.query("DELETE FROM payments WHERE checkout_session_id IS NULL", { transaction });
+    await qi.sequelize.query('DELETE FROM payments WHERE checkout_session_id IS NULL', { transaction });
     await qi.changeColumn('payments', 'checkout_session_id', { type: DataTypes.STRING(255), allowNull: false }, { transaction });
   });
 }

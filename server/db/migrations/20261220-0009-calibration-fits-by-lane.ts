@@ -15,7 +15,10 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
     await qi.addColumn('calibration_fits', 'pattern_hash', { type: DataTypes.STRING(64), allowNull: false }, { transaction });
     // The condition a fit was asked for, so a refit after a ball or release change asks for the same one (no key: a hint).
     await qi.addColumn('calibration_fits', 'condition_id', { type: DataTypes.INTEGER, allowNull: true }, { transaction });
-    await qi.sequelize.query('ALTER TABLE calibration_fits ADD PRIMARY KEY (bowler_id, pattern_id, lane_kind, lane_friction, pattern_hash)', { transaction });
+    await qi.sequelize.query(
+      'ALTER TABLE calibration_fits ADD PRIMARY KEY (bowler_id, pattern_id, lane_kind, lane_friction, pattern_hash)',
+      { transaction },
+    );
   });
 }
 
@@ -23,7 +26,8 @@ export async function down({ context: qi }: { context: QueryInterface }): Promis
   await qi.sequelize.transaction(async (transaction) => {
     await qi.sequelize.query('DELETE FROM calibration_fits', { transaction });
     await qi.sequelize.query('ALTER TABLE calibration_fits DROP CONSTRAINT calibration_fits_pkey', { transaction });
-    for (const c of ['condition_id', 'pattern_hash', 'lane_friction', 'lane_kind']) await qi.removeColumn('calibration_fits', c, { transaction });
+    for (const c of ['condition_id', 'pattern_hash', 'lane_friction', 'lane_kind'])
+      await qi.removeColumn('calibration_fits', c, { transaction });
     await qi.sequelize.query('ALTER TABLE calibration_fits ADD PRIMARY KEY (bowler_id, pattern_id)', { transaction });
   });
 }

@@ -50,7 +50,10 @@ const INDEXES: { name: string; sql: string }[] = [
     sql: `ON balls (owner_id, ${c}, id) WHERE deleted_at IS NULL`,
   })),
   ...['display_name', 'role', 'created_at'].map((c) => ({ name: `users_${c}_id`, sql: `ON users (${c}, id)` })),
-  ...['rg', 'differential', 'release_year', 'cover_type', 'name'].map((c) => ({ name: `ball_models_${c}_id`, sql: `ON ball_models (${c}, id)` })),
+  ...['rg', 'differential', 'release_year', 'cover_type', 'name'].map((c) => ({
+    name: `ball_models_${c}_id`,
+    sql: `ON ball_models (${c}, id)`,
+  })),
   { name: 'patterns_created_at_id', sql: 'ON patterns (created_at, id)' },
   { name: 'patterns_length_ft_id', sql: "ON patterns (((summary->>'lengthFt')::float), id)" },
   { name: 'patterns_volume_ml_id', sql: "ON patterns (((summary->>'volumeMl')::float), id)" },
@@ -66,7 +69,10 @@ export async function up({ context: qi }: { context: QueryInterface }): Promise<
       );
     }
     await qi.sequelize.query(NOTIFY_SHOT_FUNCTION, { transaction });
-    await qi.sequelize.query('CREATE TRIGGER shots_notify_change AFTER INSERT OR UPDATE OR DELETE ON shots FOR EACH ROW EXECUTE FUNCTION lanewright_notify_shot_change()', { transaction });
+    await qi.sequelize.query(
+      'CREATE TRIGGER shots_notify_change AFTER INSERT OR UPDATE OR DELETE ON shots FOR EACH ROW EXECUTE FUNCTION lanewright_notify_shot_change()',
+      { transaction },
+    );
     for (const i of INDEXES) await qi.sequelize.query(`CREATE INDEX IF NOT EXISTS ${i.name} ${i.sql}`, { transaction });
   });
 }

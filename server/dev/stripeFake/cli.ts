@@ -17,8 +17,15 @@ const { values } = parseArgs({
 });
 
 const secret = values.secret ?? `whsec_${crypto.randomBytes(24).toString('base64url')}`;
-const fake = await startStripeFake({ port: Number(values.port), host: values.host, webhookSecret: secret, webhookUrl: values.webhook ?? null });
-console.log(`Payment fake on ${fake.url} (webhooks ${values.webhook ? `to ${values.webhook}` : 'kept, not delivered'}; signing secret ${secret}). Ctrl-C stops.`);
+const fake = await startStripeFake({
+  port: Number(values.port),
+  host: values.host,
+  webhookSecret: secret,
+  webhookUrl: values.webhook ?? null,
+});
+console.log(
+  `Payment fake on ${fake.url} (webhooks ${values.webhook ? `to ${values.webhook}` : 'kept, not delivered'}; signing secret ${secret}). Ctrl-C stops.`,
+);
 const stop = () => void fake.close().then(() => process.exit(0));
 process.on('SIGINT', stop);
 process.on('SIGTERM', stop);

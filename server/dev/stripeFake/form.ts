@@ -21,7 +21,8 @@ export function parseForm(body: string): Record<string, FormValue> {
       } else {
         const nextIsIndex = /^\d*$/.test(path[i + 1]);
         const existing = (node as Record<string | number, FormValue>)[slot];
-        if (existing === undefined || typeof existing === 'string') (node as Record<string | number, FormValue>)[slot] = nextIsIndex ? [] : {};
+        if (existing === undefined || typeof existing === 'string')
+          (node as Record<string | number, FormValue>)[slot] = nextIsIndex ? [] : {};
         node = (node as Record<string | number, FormValue>)[slot] as Record<string, FormValue> | FormValue[];
       }
     }

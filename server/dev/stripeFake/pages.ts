@@ -24,7 +24,11 @@ function layout(title: string, body: string): string {
 </style></head><body><main>${body}</main></body></html>`;
 }
 
-export function cardPage(s: { id: string; productName: string; amount: number; currency: string; email: string | null }, error?: string, values: { name?: string; exp?: string } = {}): string {
+export function cardPage(
+  s: { id: string; productName: string; amount: number; currency: string; email: string | null },
+  error?: string,
+  values: { name?: string; exp?: string } = {},
+): string {
   return layout(
     `Pay ${money(s.amount, s.currency)}`,
     `<div class="card">
@@ -68,6 +72,14 @@ export function challengePage(s: { id: string; amount: number; currency: string 
 }
 
 export function closedPage(status: string, back: string | null): string {
-  const what = status === 'complete' ? 'This checkout is already paid.' : status === 'expired' ? 'This checkout has expired.' : 'This checkout does not exist.';
-  return layout('Checkout closed', `<div class="card"><h1>${esc(what)}</h1>${back ? `<p><a href="${esc(back)}">Go back</a></p>` : ''}</div>`);
+  const what =
+    status === 'complete'
+      ? 'This checkout is already paid.'
+      : status === 'expired'
+        ? 'This checkout has expired.'
+        : 'This checkout does not exist.';
+  return layout(
+    'Checkout closed',
+    `<div class="card"><h1>${esc(what)}</h1>${back ? `<p><a href="${esc(back)}">Go back</a></p>` : ''}</div>`,
+  );
 }

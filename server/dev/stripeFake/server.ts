@@ -27,11 +27,18 @@ export async function startStripeFake(opts: StripeFakeOptions): Promise<StripeFa
 
   const server = http.createServer((req, res) => {
     const path = (req.url ?? '/').split('?')[0];
-    const handle = path.startsWith('/v1/') ? api(req, res, path) : path.startsWith('/pay/') ? pay(req, res, path) : Promise.resolve(html(res, 404, closedPage('missing', null)));
+    const handle = path.startsWith('/v1/')
+      ? api(req, res, path)
+      : path.startsWith('/pay/')
+        ? pay(req, res, path)
+        : Promise.resolve(html(res, 404, closedPage('missing', null)));
     if (opts.stateFile && req.method === 'POST') void handle.finally(() => state.save()).catch(() => undefined);
     handle.catch((err: unknown) => {
       if (res.headersSent) return res.end();
-      const e = err instanceof ApiError ? err : new ApiError(500, { type: 'api_error', message: 'An unexpected error occurred in the local payment service.' });
+      const e =
+        err instanceof ApiError
+          ? err
+          : new ApiError(500, { type: 'api_error', message: 'An unexpected error occurred in the local payment service.' });
       res.writeHead(e.status, { 'Content-Type': 'application/json', 'Request-Id': newId('req') });
       res.end(JSON.stringify({ error: e.body }));
     });

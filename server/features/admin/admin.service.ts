@@ -20,7 +20,10 @@ export const adminService = {
       const from = user.role;
       if (from !== role) {
         await userRepository.setRole(user, role, transaction);
-        await audit({ actorId, action: 'user.role_changed', subjectType: 'user', subjectId: user.id, details: { from, to: role } }, transaction);
+        await audit(
+          { actorId, action: 'user.role_changed', subjectType: 'user', subjectId: user.id, details: { from, to: role } },
+          transaction,
+        );
       }
       return toUserDto(user);
     });
@@ -29,7 +32,15 @@ export const adminService = {
   async listAudit(page: number, pageSize: number): Promise<Page<AuditEventDto>> {
     const { rows, count } = await adminRepository.auditPage(page, pageSize);
     return {
-      items: rows.map((e) => ({ id: Number(e.id), actorId: e.actorId, action: e.action, subjectType: e.subjectType, subjectId: e.subjectId, details: e.details, createdAt: e.createdAt.toISOString() })),
+      items: rows.map((e) => ({
+        id: Number(e.id),
+        actorId: e.actorId,
+        action: e.action,
+        subjectType: e.subjectType,
+        subjectId: e.subjectId,
+        details: e.details,
+        createdAt: e.createdAt.toISOString(),
+      })),
       total: count,
       page,
       pageSize,

@@ -6,7 +6,16 @@ import { Ball, sequelize, SurfaceEvent, Upload } from '../../models/index';
 import { likeText } from '../catalogue/catalogue.repository';
 
 export function toSurfaceEventDto(e: SurfaceEvent): SurfaceEventDto {
-  return { id: e.id, fromGrit: e.fromGrit, fromPolished: e.fromPolished, toGrit: e.toGrit, toPolished: e.toPolished, at: e.at.toISOString(), byUserId: e.byUserId, note: e.note };
+  return {
+    id: e.id,
+    fromGrit: e.fromGrit,
+    fromPolished: e.fromPolished,
+    toGrit: e.toGrit,
+    toPolished: e.toPolished,
+    at: e.at.toISOString(),
+    byUserId: e.byUserId,
+    note: e.note,
+  };
 }
 
 /** The attributes toBallDto reads: a model instance or a raw row of the same attributes. */
@@ -36,7 +45,9 @@ export function toBallDto(b: BallRow): BallDto {
     version: b.version,
     createdAt: b.createdAt.toISOString(),
     updatedAt: b.updatedAt.toISOString(),
-    ...(b.surfaceEvents ? { surfaceHistory: [...b.surfaceEvents].sort((x, y) => x.at.getTime() - y.at.getTime() || x.id - y.id).map(toSurfaceEventDto) } : {}),
+    ...(b.surfaceEvents
+      ? { surfaceHistory: [...b.surfaceEvents].sort((x, y) => x.at.getTime() - y.at.getTime() || x.id - y.id).map(toSurfaceEventDto) }
+      : {}),
   };
 }
 
@@ -44,15 +55,39 @@ type BallCreation = CreationAttributes<Ball>;
 
 /** The columns toBallDto reads, named as the model's attributes. */
 const BALL_COLUMNS = [
-  'id', 'ball_model_id AS "ballModelId"', 'maker', 'name', 'nickname', 'weight_lb AS "weightLb"', 'rg', 'differential',
-  'intermediate_differential AS "intermediateDifferential"', 'cover_type AS "coverType"', 'core_type AS "coreType"', 'hardness_d AS "hardnessD"',
-  'approval_year AS "approvalYear"', 'surface_grit AS "surfaceGrit"', 'polished', 'layout', 'photo_upload_id AS "photoUploadId"',
-  'games_since_resurface AS "gamesSinceResurface"', 'status', 'version', 'created_at AS "createdAt"', 'updated_at AS "updatedAt"',
+  'id',
+  'ball_model_id AS "ballModelId"',
+  'maker',
+  'name',
+  'nickname',
+  'weight_lb AS "weightLb"',
+  'rg',
+  'differential',
+  'intermediate_differential AS "intermediateDifferential"',
+  'cover_type AS "coverType"',
+  'core_type AS "coreType"',
+  'hardness_d AS "hardnessD"',
+  'approval_year AS "approvalYear"',
+  'surface_grit AS "surfaceGrit"',
+  'polished',
+  'layout',
+  'photo_upload_id AS "photoUploadId"',
+  'games_since_resurface AS "gamesSinceResurface"',
+  'status',
+  'version',
+  'created_at AS "createdAt"',
+  'updated_at AS "updatedAt"',
 ].join(', ');
 
 /** The sorts the arsenal list offers, as columns (each has an index led by owner_id). */
 const ARSENAL_SORT: Record<ArsenalQuery['sort'], string> = {
-  name: 'name', coverType: 'cover_type', rg: 'rg', differential: 'differential', surfaceGrit: 'surface_grit', gamesSinceResurface: 'games_since_resurface', createdAt: 'created_at',
+  name: 'name',
+  coverType: 'cover_type',
+  rg: 'rg',
+  differential: 'differential',
+  surfaceGrit: 'surface_grit',
+  gamesSinceResurface: 'games_since_resurface',
+  createdAt: 'created_at',
 };
 
 /**
@@ -83,7 +118,14 @@ export const arsenalRepository = {
     if (q.status) conds.push('status = :status');
     if (q.q) conds.push('(name ILIKE :like OR nickname ILIKE :like OR maker ILIKE :like)');
     const where = conds.join(' AND ');
-    const replacements = { ownerId, coverType: q.coverType ?? null, status: q.status ?? null, like: q.q ? likeText(q.q) : null, limit: q.pageSize, offset: (q.page - 1) * q.pageSize };
+    const replacements = {
+      ownerId,
+      coverType: q.coverType ?? null,
+      status: q.status ?? null,
+      like: q.q ? likeText(q.q) : null,
+      limit: q.pageSize,
+      offset: (q.page - 1) * q.pageSize,
+    };
     const [rows, counted] = await Promise.all([
       sequelize.query<BallRow>(
         `SELECT ${BALL_COLUMNS} FROM balls WHERE ${where} ORDER BY ${ARSENAL_SORT[q.sort]} ${q.order === 'desc' ? 'DESC' : 'ASC'}, id ASC LIMIT :limit OFFSET :offset`,
@@ -94,7 +136,11 @@ export const arsenalRepository = {
     return { rows, count: counted[0]?.n ?? 0 };
   },
   /** The owner's ball, or null (also for another owner's ball, so existence never leaks). */
-  findOwned(ownerId: number, id: number, opts: { withHistory?: boolean; transaction?: Transaction; paranoid?: boolean } = {}): Promise<Ball | null> {
+  findOwned(
+    ownerId: number,
+    id: number,
+    opts: { withHistory?: boolean; transaction?: Transaction; paranoid?: boolean } = {},
+  ): Promise<Ball | null> {
     return Ball.findOne({
       where: { id, ownerId },
       include: opts.withHistory ? [{ model: SurfaceEvent, as: 'surfaceEvents' }] : [],

@@ -19,12 +19,28 @@ import { hasReplicas } from '../../db/sequelize';
 import { arsenalPages, arsenalRepository, toBallDto } from './arsenal.repository';
 
 /** A row of the arsenal CSV: a hand-entered ball whose pin-to-PAP may be written as a pro shop writes it ("4 3/8", "4-3/8", "4.375"). */
-const ArsenalCsvRowSchema = BallByHandSchema.extend({ layout: LayoutSchema.extend({ pinToPapIn: PinToPapTextSchema }).nullable().optional() });
+const ArsenalCsvRowSchema = BallByHandSchema.extend({
+  layout: LayoutSchema.extend({ pinToPapIn: PinToPapTextSchema }).nullable().optional(),
+});
 
 /** Lanewright's arsenal CSV columns (header row required; order free). */
 export const ARSENAL_CSV_COLUMNS = [
-  'name', 'maker', 'nickname', 'weightLb', 'coverType', 'coreType', 'rg', 'differential', 'intermediateDifferential',
-  'hardnessD', 'surfaceGrit', 'polished', 'pinToPapIn', 'drillingAngleDeg', 'valAngleDeg', 'gamesSinceResurface',
+  'name',
+  'maker',
+  'nickname',
+  'weightLb',
+  'coverType',
+  'coreType',
+  'rg',
+  'differential',
+  'intermediateDifferential',
+  'hardnessD',
+  'surfaceGrit',
+  'polished',
+  'pinToPapIn',
+  'drillingAngleDeg',
+  'valAngleDeg',
+  'gamesSinceResurface',
 ] as const;
 
 const notFound = () => AppError.notFound('Ball');
@@ -54,24 +70,63 @@ export const arsenalService = {
       let data: Parameters<typeof arsenalRepository.create>[0];
       if ('ballModelId' in input) {
         const m = await catalogueRepository.findById(input.ballModelId, transaction);
-        if (!m) throw new AppError(400, 'validation_failed', 'That catalogue ball does not exist', { 'body.ballModelId': 'Unknown catalogue ball' });
+        if (!m)
+          throw new AppError(400, 'validation_failed', 'That catalogue ball does not exist', {
+            'body.ballModelId': 'Unknown catalogue ball',
+          });
         data = {
-          ownerId, ballModelId: m.id, name: m.name, maker: m.maker, nickname: input.nickname ?? null, weightLb: input.weightLb,
-          rg: m.rg, differential: m.differential, intermediateDifferential: m.intermediateDifferential, coverType: m.coverType, coreType: m.coreType,
-          hardnessD: m.hardnessD, approvalYear: m.releaseYear, surfaceGrit: input.surfaceGrit ?? m.factoryGrit, polished: input.polished ?? m.factoryPolished,
-          layout: input.layout ?? null, gamesSinceResurface: input.gamesSinceResurface, status: input.status,
+          ownerId,
+          ballModelId: m.id,
+          name: m.name,
+          maker: m.maker,
+          nickname: input.nickname ?? null,
+          weightLb: input.weightLb,
+          rg: m.rg,
+          differential: m.differential,
+          intermediateDifferential: m.intermediateDifferential,
+          coverType: m.coverType,
+          coreType: m.coreType,
+          hardnessD: m.hardnessD,
+          approvalYear: m.releaseYear,
+          surfaceGrit: input.surfaceGrit ?? m.factoryGrit,
+          polished: input.polished ?? m.factoryPolished,
+          layout: input.layout ?? null,
+          gamesSinceResurface: input.gamesSinceResurface,
+          status: input.status,
         };
       } else {
         data = {
-          ownerId, ballModelId: null, name: input.name, maker: null, nickname: input.nickname ?? null, weightLb: input.weightLb,
-          rg: input.rg, differential: input.differential, intermediateDifferential: input.intermediateDifferential, coverType: input.coverType,
-          coreType: input.coreType, hardnessD: input.hardnessD ?? null, surfaceGrit: input.surfaceGrit, polished: input.polished,
-          layout: input.layout ?? null, gamesSinceResurface: input.gamesSinceResurface, status: input.status,
+          ownerId,
+          ballModelId: null,
+          name: input.name,
+          maker: null,
+          nickname: input.nickname ?? null,
+          weightLb: input.weightLb,
+          rg: input.rg,
+          differential: input.differential,
+          intermediateDifferential: input.intermediateDifferential,
+          coverType: input.coverType,
+          coreType: input.coreType,
+          hardnessD: input.hardnessD ?? null,
+          surfaceGrit: input.surfaceGrit,
+          polished: input.polished,
+          layout: input.layout ?? null,
+          gamesSinceResurface: input.gamesSinceResurface,
+          status: input.status,
         };
       }
       const ball = await arsenalRepository.create(data, transaction);
       await arsenalRepository.addSurfaceEvent(
-        { ballId: ball.id, fromGrit: null, fromPolished: null, toGrit: ball.surfaceGrit, toPolished: ball.polished, at: new Date(), byUserId: ownerId, note: 'Added to the arsenal' },
+        {
+          ballId: ball.id,
+          fromGrit: null,
+          fromPolished: null,
+          toGrit: ball.surfaceGrit,
+          toPolished: ball.polished,
+          at: new Date(),
+          byUserId: ownerId,
+          note: 'Added to the arsenal',
+        },
         transaction,
       );
       return toBallDto(ball);
@@ -83,7 +138,8 @@ export const arsenalService = {
     return sequelize.transaction(async (transaction) => {
       const b = await arsenalRepository.findOwned(ownerId, id, { transaction });
       if (!b) throw notFound();
-      if (b.version !== patch.version) throw AppError.conflict('stale_version', 'This ball was changed elsewhere; reload it and apply your edit again');
+      if (b.version !== patch.version)
+        throw AppError.conflict('stale_version', 'This ball was changed elsewhere; reload it and apply your edit again');
       const { version: _v, ...fields } = patch;
       b.set({ ...fields, layout: fields.layout === undefined ? b.layout : fields.layout });
       await b.save({ transaction });
@@ -112,7 +168,16 @@ export const arsenalService = {
       const b = await arsenalRepository.findOwned(ownerId, id, { transaction });
       if (!b) throw notFound();
       await arsenalRepository.addSurfaceEvent(
-        { ballId: b.id, fromGrit: b.surfaceGrit, fromPolished: b.polished, toGrit: change.surfaceGrit, toPolished: change.polished, at: change.at ? new Date(change.at) : new Date(), byUserId: actorId, note: change.note ?? null },
+        {
+          ballId: b.id,
+          fromGrit: b.surfaceGrit,
+          fromPolished: b.polished,
+          toGrit: change.surfaceGrit,
+          toPolished: change.polished,
+          at: change.at ? new Date(change.at) : new Date(),
+          byUserId: actorId,
+          note: change.note ?? null,
+        },
         transaction,
       );
       b.set({ surfaceGrit: change.surfaceGrit, polished: change.polished, gamesSinceResurface: 0 });
@@ -128,12 +193,24 @@ export const arsenalService = {
     const b = await arsenalRepository.findOwned(ownerId, id);
     if (!b) throw notFound();
     const kind = await decodeImage(file.buffer);
-    if (!kind) throw new AppError(400, 'unsupported_file', 'The file is not a readable PNG, JPEG or WebP image', { file: 'Not a readable PNG, JPEG or WebP image (at most 24 megapixels)' });
+    if (!kind)
+      throw new AppError(400, 'unsupported_file', 'The file is not a readable PNG, JPEG or WebP image', {
+        file: 'Not a readable PNG, JPEG or WebP image (at most 24 megapixels)',
+      });
     const key = await storage.put(file.buffer, kind.ext);
     try {
       const old = b.photoUploadId ? await arsenalRepository.upload(b.photoUploadId) : null;
       await sequelize.transaction(async (transaction) => {
-        const up = await arsenalRepository.createUpload({ ownerId, storageKey: key, contentType: kind.type, sizeBytes: file.buffer.length, originalName: file.originalname.slice(0, 200) }, transaction);
+        const up = await arsenalRepository.createUpload(
+          {
+            ownerId,
+            storageKey: key,
+            contentType: kind.type,
+            sizeBytes: file.buffer.length,
+            originalName: file.originalname.slice(0, 200),
+          },
+          transaction,
+        );
         b.photoUploadId = up.id;
         await b.save({ transaction });
         if (old) await old.destroy({ transaction });
@@ -170,38 +247,68 @@ export const arsenalService = {
 
   /** Imports hand-entered balls from CSV: all rows or none, errors by line. */
   async importCsv(ownerId: number, buf: Buffer): Promise<{ imported: number; items: BallDto[] }> {
-    const rows = parseCsvRows(buf, ArsenalCsvRowSchema, (r) => {
-      const pin = cell.str(r.pinToPapIn);
-      return {
-        name: cell.str(r.name),
-        nickname: cell.str(r.nickname) ?? null,
-        weightLb: cell.num(r.weightLb),
-        coverType: cell.str(r.coverType),
-        coreType: cell.str(r.coreType) ?? (Number(r.intermediateDifferential || 0) > 0 ? 'asymmetric' : 'symmetric'),
-        rg: cell.num(r.rg),
-        differential: cell.num(r.differential),
-        intermediateDifferential: cell.num(r.intermediateDifferential) ?? 0,
-        hardnessD: cell.num(r.hardnessD) ?? null,
-        surfaceGrit: cell.num(r.surfaceGrit),
-        polished: cell.bool(r.polished) ?? false,
-        layout: pin === undefined ? null : { pinToPapIn: pin, drillingAngleDeg: cell.num(r.drillingAngleDeg) ?? null, valAngleDeg: cell.num(r.valAngleDeg) ?? null },
-        gamesSinceResurface: cell.num(r.gamesSinceResurface) ?? 0,
-      };
-    }, 200);
+    const rows = parseCsvRows(
+      buf,
+      ArsenalCsvRowSchema,
+      (r) => {
+        const pin = cell.str(r.pinToPapIn);
+        return {
+          name: cell.str(r.name),
+          nickname: cell.str(r.nickname) ?? null,
+          weightLb: cell.num(r.weightLb),
+          coverType: cell.str(r.coverType),
+          coreType: cell.str(r.coreType) ?? (Number(r.intermediateDifferential || 0) > 0 ? 'asymmetric' : 'symmetric'),
+          rg: cell.num(r.rg),
+          differential: cell.num(r.differential),
+          intermediateDifferential: cell.num(r.intermediateDifferential) ?? 0,
+          hardnessD: cell.num(r.hardnessD) ?? null,
+          surfaceGrit: cell.num(r.surfaceGrit),
+          polished: cell.bool(r.polished) ?? false,
+          layout:
+            pin === undefined
+              ? null
+              : { pinToPapIn: pin, drillingAngleDeg: cell.num(r.drillingAngleDeg) ?? null, valAngleDeg: cell.num(r.valAngleDeg) ?? null },
+          gamesSinceResurface: cell.num(r.gamesSinceResurface) ?? 0,
+        };
+      },
+      200,
+    );
     return sequelize.transaction(async (transaction) => {
       const items: BallDto[] = [];
       for (const input of rows) {
         const ball = await arsenalRepository.create(
           {
-            ownerId, ballModelId: null, name: input.name, maker: null, nickname: input.nickname ?? null, weightLb: input.weightLb, rg: input.rg,
-            differential: input.differential, intermediateDifferential: input.intermediateDifferential, coverType: input.coverType, coreType: input.coreType,
-            hardnessD: input.hardnessD ?? null, surfaceGrit: input.surfaceGrit, polished: input.polished, layout: input.layout ?? null,
-            gamesSinceResurface: input.gamesSinceResurface, status: input.status,
+            ownerId,
+            ballModelId: null,
+            name: input.name,
+            maker: null,
+            nickname: input.nickname ?? null,
+            weightLb: input.weightLb,
+            rg: input.rg,
+            differential: input.differential,
+            intermediateDifferential: input.intermediateDifferential,
+            coverType: input.coverType,
+            coreType: input.coreType,
+            hardnessD: input.hardnessD ?? null,
+            surfaceGrit: input.surfaceGrit,
+            polished: input.polished,
+            layout: input.layout ?? null,
+            gamesSinceResurface: input.gamesSinceResurface,
+            status: input.status,
           },
           transaction,
         );
         await arsenalRepository.addSurfaceEvent(
-          { ballId: ball.id, fromGrit: null, fromPolished: null, toGrit: ball.surfaceGrit, toPolished: ball.polished, at: new Date(), byUserId: ownerId, note: 'Imported from CSV' },
+          {
+            ballId: ball.id,
+            fromGrit: null,
+            fromPolished: null,
+            toGrit: ball.surfaceGrit,
+            toPolished: ball.polished,
+            at: new Date(),
+            byUserId: ownerId,
+            note: 'Imported from CSV',
+          },
           transaction,
         );
         items.push(toBallDto(ball));

@@ -29,7 +29,8 @@ const newToken = () => crypto.randomBytes(32).toString('base64url');
 /** The one answer to every sign-up (new address or taken): what happens next is in the mail. */
 export const REGISTER_ANSWER: RegisterResponse = {
   ok: true,
-  message: 'Thanks. We sent a message to this address: follow its link to confirm it. If the address already has an account, the message says how to sign in or reset the password.',
+  message:
+    'Thanks. We sent a message to this address: follow its link to confirm it. If the address already has an account, the message says how to sign in or reset the password.',
 };
 
 /**
@@ -44,11 +45,14 @@ const BACKOFF_MAX_MS = 15 * 60 * 1000;
 
 /** When the next attempt for this e-mail may be made (0: now). Kept in PostgreSQL (login_failures), shared by every process. */
 async function backoffUntil(email: string): Promise<number> {
-  const [f] = await sequelize.query<{ count: number; last_at: Date }>('SELECT count, last_at FROM login_failures WHERE email = :email AND last_at > now() - make_interval(secs => :window)', {
-    replacements: { email, window: BACKOFF_WINDOW_MS / 1000 },
-    type: QueryTypes.SELECT,
-    useMaster: true,
-  });
+  const [f] = await sequelize.query<{ count: number; last_at: Date }>(
+    'SELECT count, last_at FROM login_failures WHERE email = :email AND last_at > now() - make_interval(secs => :window)',
+    {
+      replacements: { email, window: BACKOFF_WINDOW_MS / 1000 },
+      type: QueryTypes.SELECT,
+      useMaster: true,
+    },
+  );
   if (!f || f.count < config.LOGIN_FAILURES_BEFORE_BACKOFF) return 0;
   return new Date(f.last_at).getTime() + Math.min(BACKOFF_MAX_MS, 1000 * 2 ** (f.count - config.LOGIN_FAILURES_BEFORE_BACKOFF));
 }
@@ -119,7 +123,13 @@ export const authService = {
   async login(input: LoginInput): Promise<AuthResponse> {
     const until = await backoffUntil(input.email);
     if (until > Date.now()) {
-      throw new AppError(429, 'too_many_failures', 'Too many failed sign-ins for this account; wait a moment and try again', undefined, Math.ceil((until - Date.now()) / 1000));
+      throw new AppError(
+        429,
+        'too_many_failures',
+        'Too many failed sign-ins for this account; wait a moment and try again',
+        undefined,
+        Math.ceil((until - Date.now()) / 1000),
+      );
     }
     const user = await userRepository.findByEmail(input.email);
     const ok = await bcrypt.compare(input.password, user?.passwordHash ?? DUMMY_HASH);
@@ -190,7 +200,9 @@ export const authService = {
     return sequelize.transaction(async (transaction) => {
       const v = await userRepository.findVerification(sha256(token), transaction);
       if (!v || v.usedAt || v.expiresAt.getTime() < Date.now()) {
-        throw new AppError(400, 'invalid_token', 'This verification link is invalid or has expired', { 'body.token': 'Sign in and ask for a new verification link' });
+        throw new AppError(400, 'invalid_token', 'This verification link is invalid or has expired', {
+          'body.token': 'Sign in and ask for a new verification link',
+        });
       }
       const user = (await userRepository.findById(v.userId, transaction, true))!;
       user.emailVerifiedAt ??= new Date();

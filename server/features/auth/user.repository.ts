@@ -3,7 +3,14 @@ import type { Role, User as UserDto, UserListQuery } from '../../../shared/auth'
 import { EmailVerification, PasswordReset, sequelize, User } from '../../models/index';
 
 export function toUserDto(u: User): UserDto {
-  return { id: u.id, email: u.email, displayName: u.displayName, role: u.role, emailVerified: u.emailVerifiedAt != null, createdAt: u.createdAt.toISOString() };
+  return {
+    id: u.id,
+    email: u.email,
+    displayName: u.displayName,
+    role: u.role,
+    emailVerified: u.emailVerifiedAt != null,
+    createdAt: u.createdAt.toISOString(),
+  };
 }
 
 export const userRepository = {
@@ -38,7 +45,10 @@ export const userRepository = {
     }
     return User.findAndCountAll({
       where,
-      order: [[q.sort, q.order.toUpperCase()], ['id', 'ASC']],
+      order: [
+        [q.sort, q.order.toUpperCase()],
+        ['id', 'ASC'],
+      ],
       limit: q.pageSize,
       offset: (q.page - 1) * q.pageSize,
     });

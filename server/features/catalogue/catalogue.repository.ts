@@ -30,13 +30,20 @@ export const catalogueRepository = {
     const where: Record<string | symbol, unknown> = {};
     if (q.coverType) where.coverType = q.coverType;
     if (q.coreType) where.coreType = q.coreType;
-    if (q.rgMin !== undefined || q.rgMax !== undefined) where.rg = { ...(q.rgMin !== undefined ? { [Op.gte]: q.rgMin } : {}), ...(q.rgMax !== undefined ? { [Op.lte]: q.rgMax } : {}) };
+    if (q.rgMin !== undefined || q.rgMax !== undefined)
+      where.rg = { ...(q.rgMin !== undefined ? { [Op.gte]: q.rgMin } : {}), ...(q.rgMax !== undefined ? { [Op.lte]: q.rgMax } : {}) };
     if (q.diffMin !== undefined || q.diffMax !== undefined)
-      where.differential = { ...(q.diffMin !== undefined ? { [Op.gte]: q.diffMin } : {}), ...(q.diffMax !== undefined ? { [Op.lte]: q.diffMax } : {}) };
+      where.differential = {
+        ...(q.diffMin !== undefined ? { [Op.gte]: q.diffMin } : {}),
+        ...(q.diffMax !== undefined ? { [Op.lte]: q.diffMax } : {}),
+      };
     if (q.q) where[Op.or] = [{ maker: { [Op.iLike]: likeText(q.q) } }, { name: { [Op.iLike]: likeText(q.q) } }];
     return BallModel.findAndCountAll({
       where: where as WhereOptions<BallModel>,
-      order: [[q.sort, q.order.toUpperCase()], ['id', 'ASC']],
+      order: [
+        [q.sort, q.order.toUpperCase()],
+        ['id', 'ASC'],
+      ],
       limit: q.pageSize,
       offset: (q.page - 1) * q.pageSize,
     });

@@ -9,10 +9,25 @@ import { catalogueRepository, toBallModelDto } from './catalogue.repository';
 function isUniqueViolation(err: unknown): boolean {
   return (err as { name?: string })?.name === 'SequelizeUniqueConstraintError';
 }
-const duplicate = () => new AppError(409, 'duplicate_model', 'The catalogue already has a ball of that maker and name', { 'body.name': 'Already in the catalogue' });
+const duplicate = () =>
+  new AppError(409, 'duplicate_model', 'The catalogue already has a ball of that maker and name', {
+    'body.name': 'Already in the catalogue',
+  });
 
 /** CSV columns of a catalogue import, in Lanewright's own order. */
-export const CATALOGUE_CSV_COLUMNS = ['maker', 'name', 'coverType', 'coreType', 'rg', 'differential', 'intermediateDifferential', 'factoryGrit', 'factoryPolished', 'hardnessD', 'releaseYear'] as const;
+export const CATALOGUE_CSV_COLUMNS = [
+  'maker',
+  'name',
+  'coverType',
+  'coreType',
+  'rg',
+  'differential',
+  'intermediateDifferential',
+  'factoryGrit',
+  'factoryPolished',
+  'hardnessD',
+  'releaseYear',
+] as const;
 
 export const catalogueService = {
   async list(q: CatalogueQuery): Promise<Page<BallModelDto>> {
@@ -45,7 +60,10 @@ export const catalogueService = {
         const { version: _v, ...fields } = patch;
         m.set(fields);
         await m.save({ transaction: t });
-        await audit({ actorId, action: 'catalogue.updated', subjectType: 'ball_model', subjectId: m.id, details: { fields: Object.keys(fields) } }, t);
+        await audit(
+          { actorId, action: 'catalogue.updated', subjectType: 'ball_model', subjectId: m.id, details: { fields: Object.keys(fields) } },
+          t,
+        );
         return toBallModelDto(m);
       });
     } catch (err) {
@@ -79,13 +97,18 @@ export const catalogueService = {
     try {
       return await sequelize.transaction(async (t) => {
         const created = await catalogueRepository.bulkCreate(rows, t);
-        await audit({ actorId, action: 'catalogue.imported', subjectType: 'ball_model', subjectId: 'csv', details: { rows: created.length } }, t);
+        await audit(
+          { actorId, action: 'catalogue.imported', subjectType: 'ball_model', subjectId: 'csv', details: { rows: created.length } },
+          t,
+        );
         return { imported: created.length, items: created.map(toBallModelDto) };
       });
     } catch (err) {
-      if (isUniqueViolation(err)) throw new AppError(400, 'csv_invalid_rows', 'A row repeats a ball already in the catalogue; nothing was imported', { file: 'Duplicate maker and name' });
+      if (isUniqueViolation(err))
+        throw new AppError(400, 'csv_invalid_rows', 'A row repeats a ball already in the catalogue; nothing was imported', {
+          file: 'Duplicate maker and name',
+        });
       throw err;
     }
   },
 };
-

@@ -3,7 +3,14 @@ import { laneSurfaceText, type Center as CenterDto, type Condition as ConditionD
 import { Center, Condition, Follow, Lane, User } from '../../models/index';
 
 export function toCenterDto(c: Center, following?: boolean): CenterDto {
-  return { id: c.id, name: c.name, town: c.town, laneCount: c.laneCount, ownerId: c.ownerId, ...(following === undefined ? {} : { following }) };
+  return {
+    id: c.id,
+    name: c.name,
+    town: c.town,
+    laneCount: c.laneCount,
+    ownerId: c.ownerId,
+    ...(following === undefined ? {} : { following }),
+  };
 }
 
 /** The lane surface a publication names. */
@@ -38,14 +45,21 @@ export const centersRepository = {
   /** The center's lanes, numbered 1 to its lane count (replacing any there were). */
   async replaceLanes(c: Center, transaction: Transaction): Promise<void> {
     await Lane.destroy({ where: { centerId: c.id }, transaction });
-    await Lane.bulkCreate(Array.from({ length: c.laneCount }, (_, i) => ({ centerId: c.id, number: i + 1, notes: null })), { transaction });
+    await Lane.bulkCreate(
+      Array.from({ length: c.laneCount }, (_, i) => ({ centerId: c.id, number: i + 1, notes: null })),
+      { transaction },
+    );
   },
   createCondition(data: CreationAttributes<Condition>, transaction: Transaction): Promise<Condition> {
     return Condition.create(data, { transaction });
   },
   /** The center's followers with their address and name (the publication e-mails). */
   followersOf(centerId: number, transaction: Transaction): Promise<FollowWith<'user', User>[]> {
-    return Follow.findAll({ where: { centerId }, include: [{ model: User, as: 'user', attributes: ['email', 'displayName'] }], transaction }) as Promise<FollowWith<'user', User>[]>;
+    return Follow.findAll({
+      where: { centerId },
+      include: [{ model: User, as: 'user', attributes: ['email', 'displayName'] }],
+      transaction,
+    }) as Promise<FollowWith<'user', User>[]>;
   },
   async follow(userId: number, centerId: number, unsubscribeToken: string): Promise<void> {
     await Follow.findOrCreate({ where: { userId, centerId }, defaults: { userId, centerId, unsubscribeToken } });
@@ -55,13 +69,26 @@ export const centersRepository = {
   },
   /** The user's follows with their centers, in the order followed. */
   followsOf(userId: number): Promise<FollowWith<'center', Center>[]> {
-    return Follow.findAll({ where: { userId }, include: [{ model: Center, as: 'center' }], order: [['id', 'ASC']] }) as Promise<FollowWith<'center', Center>[]>;
+    return Follow.findAll({ where: { userId }, include: [{ model: Center, as: 'center' }], order: [['id', 'ASC']] }) as Promise<
+      FollowWith<'center', Center>[]
+    >;
   },
   followByToken(token: string): Promise<FollowWith<'center', Center> | null> {
-    return Follow.findOne({ where: { unsubscribeToken: token }, include: [{ model: Center, as: 'center' }] }) as Promise<FollowWith<'center', Center> | null>;
+    return Follow.findOne({ where: { unsubscribeToken: token }, include: [{ model: Center, as: 'center' }] }) as Promise<FollowWith<
+      'center',
+      Center
+    > | null>;
   },
   list(opts: { ownerId?: number; limit: number; offset: number }): Promise<{ rows: Center[]; count: number }> {
-    return Center.findAndCountAll({ where: opts.ownerId ? { ownerId: opts.ownerId } : {}, order: [['name', 'ASC'], ['id', 'ASC']], limit: opts.limit, offset: opts.offset });
+    return Center.findAndCountAll({
+      where: opts.ownerId ? { ownerId: opts.ownerId } : {},
+      order: [
+        ['name', 'ASC'],
+        ['id', 'ASC'],
+      ],
+      limit: opts.limit,
+      offset: opts.offset,
+    });
   },
   findById(id: number, transaction?: Transaction): Promise<Center | null> {
     return Center.findByPk(id, { transaction });
@@ -77,15 +104,32 @@ export const centersRepository = {
   inForce(centerId: number | number[], day: string): Promise<Condition[]> {
     return Condition.findAll({
       where: { centerId, validFrom: { [Op.lte]: day }, [Op.or]: [{ validTo: null }, { validTo: { [Op.gte]: day } }] },
-      order: [['publishedAt', 'DESC'], ['id', 'DESC']],
+      order: [
+        ['publishedAt', 'DESC'],
+        ['id', 'DESC'],
+      ],
     });
   },
   history(centerId: number, limit: number, offset: number): Promise<{ rows: Condition[]; count: number }> {
-    return Condition.findAndCountAll({ where: { centerId }, order: [['publishedAt', 'DESC'], ['id', 'DESC']], limit, offset });
+    return Condition.findAndCountAll({
+      where: { centerId },
+      order: [
+        ['publishedAt', 'DESC'],
+        ['id', 'DESC'],
+      ],
+      limit,
+      offset,
+    });
   },
   /** Later publications of the center (for working out which ones replaced an earlier one). */
   publishedAfter(centerId: number, after: Date): Promise<Condition[]> {
-    return Condition.findAll({ where: { centerId, publishedAt: { [Op.gt]: after } }, order: [['publishedAt', 'ASC'], ['id', 'ASC']] });
+    return Condition.findAll({
+      where: { centerId, publishedAt: { [Op.gt]: after } },
+      order: [
+        ['publishedAt', 'ASC'],
+        ['id', 'ASC'],
+      ],
+    });
   },
   followedIds(userId: number): Promise<Set<number>> {
     return Follow.findAll({ where: { userId }, attributes: ['centerId'] }).then((rows) => new Set(rows.map((r) => r.centerId)));

@@ -1,7 +1,15 @@
 import esc from 'escape-html';
 import crypto from 'node:crypto';
 import type { Page } from '../../../shared/auth';
-import { laneSurfaceText, type Center as CenterDto, type CenterInput, type Condition as ConditionDto, type CurrentCondition, type FollowedCenter, type PublishCondition } from '../../../shared/centers';
+import {
+  laneSurfaceText,
+  type Center as CenterDto,
+  type CenterInput,
+  type Condition as ConditionDto,
+  type CurrentCondition,
+  type FollowedCenter,
+  type PublishCondition,
+} from '../../../shared/centers';
 import { publicUrl } from '../../lib/publicUrl';
 import { AppError } from '../../lib/AppError';
 import { audit } from '../../lib/audit';
@@ -19,10 +27,11 @@ export function todayUtc(now = new Date()): string {
 }
 
 function supersededBy(c: Condition, later: Condition[]): number | null {
-  const hit = later.find((l) => l.id !== c.id && l.publishedAt > c.publishedAt && l.lanes.some((n) => c.lanes.includes(n)) && datesOverlap(l, c));
+  const hit = later.find(
+    (l) => l.id !== c.id && l.publishedAt > c.publishedAt && l.lanes.some((n) => c.lanes.includes(n)) && datesOverlap(l, c),
+  );
   return hit ? hit.id : null;
 }
-
 
 async function centerOr404(id: number): Promise<Center> {
   const c = await centersRepository.findById(id);
@@ -52,9 +61,15 @@ export const centersService = {
   async create(actor: AuthUser, input: CenterInput): Promise<CenterDto> {
     return sequelize.transaction(async (transaction) => {
       if (input.ownerId) await assertProprietor(input.ownerId);
-      const c = await centersRepository.create({ name: input.name, town: input.town, laneCount: input.laneCount, ownerId: input.ownerId ?? null }, transaction);
+      const c = await centersRepository.create(
+        { name: input.name, town: input.town, laneCount: input.laneCount, ownerId: input.ownerId ?? null },
+        transaction,
+      );
       await centersRepository.replaceLanes(c, transaction);
-      await audit({ actorId: actor.id, action: 'center.created', subjectType: 'center', subjectId: c.id, details: { ownerId: c.ownerId } }, transaction);
+      await audit(
+        { actorId: actor.id, action: 'center.created', subjectType: 'center', subjectId: c.id, details: { ownerId: c.ownerId } },
+        transaction,
+      );
       return toCenterDto(c);
     });
   },
@@ -66,7 +81,8 @@ export const centersService = {
       if (!c) throw AppError.notFound('Center');
       if (actor.role !== 'admin') {
         if (c.ownerId !== actor.id) throw AppError.forbidden('Only this center’s proprietor can change it');
-        if (patch.ownerId !== undefined || patch.laneCount !== undefined) throw AppError.forbidden('Only an admin assigns owners and lane counts');
+        if (patch.ownerId !== undefined || patch.laneCount !== undefined)
+          throw AppError.forbidden('Only an admin assigns owners and lane counts');
       }
       if (patch.ownerId) await assertProprietor(patch.ownerId);
       const before = c.ownerId;
@@ -76,7 +92,16 @@ export const centersService = {
         await centersRepository.replaceLanes(c, transaction);
       }
       if (patch.ownerId !== undefined && patch.ownerId !== before)
-        await audit({ actorId: actor.id, action: 'center.owner_assigned', subjectType: 'center', subjectId: c.id, details: { from: before, to: patch.ownerId } }, transaction);
+        await audit(
+          {
+            actorId: actor.id,
+            action: 'center.owner_assigned',
+            subjectType: 'center',
+            subjectId: c.id,
+            details: { from: before, to: patch.ownerId },
+          },
+          transaction,
+        );
       return toCenterDto(c);
     });
   },
@@ -88,8 +113,15 @@ export const centersService = {
     if (!c) throw new AppError(404, 'no_condition', `${center.name} has no condition in force today`);
     const dto = toConditionDto(c);
     return {
-      center: toCenterDto(center), condition: dto, pattern: dto.pattern, lanes: dto.lanes, validFrom: dto.validFrom, validTo: dto.validTo, notes: dto.notes,
-      lane: dto.lane, laneText: dto.laneText,
+      center: toCenterDto(center),
+      condition: dto,
+      pattern: dto.pattern,
+      lanes: dto.lanes,
+      validFrom: dto.validFrom,
+      validTo: dto.validTo,
+      notes: dto.notes,
+      lane: dto.lane,
+      laneText: dto.laneText,
     };
   },
 
@@ -109,20 +141,42 @@ export const centersService = {
     const center = await centerOr404(centerId);
     if (center.ownerId !== actor.id) throw AppError.forbidden('Only this center’s proprietor can publish its condition');
     const bad = input.lanes.filter((n) => n > center.laneCount);
-    if (bad.length) throw AppError.badRequest('Some lanes do not exist', { 'body.lanes': `${center.name} has lanes 1–${center.laneCount}; not ${bad.join(', ')}` });
+    if (bad.length)
+      throw AppError.badRequest('Some lanes do not exist', {
+        'body.lanes': `${center.name} has lanes 1–${center.laneCount}; not ${bad.join(', ')}`,
+      });
     const pattern = await patternsRepository.findById(input.patternId);
     if (!pattern) throw AppError.badRequest('That pattern does not exist', { 'body.patternId': 'Unknown pattern' });
     const base = publicUrl();
     return sequelize.transaction(async (transaction) => {
       const c = await centersRepository.createCondition(
         {
-          centerId, patternId: pattern.id, patternName: pattern.name, sweeps: pattern.sweeps, summary: pattern.summary, lanes: [...new Set(input.lanes)].sort((a, b) => a - b),
-          validFrom: input.validFrom, validTo: input.validTo ?? null, notes: input.notes ?? null, publishedAt: new Date(), publishedBy: actor.id,
-          laneKind: input.lane.kind, laneFriction: input.lane.friction,
+          centerId,
+          patternId: pattern.id,
+          patternName: pattern.name,
+          sweeps: pattern.sweeps,
+          summary: pattern.summary,
+          lanes: [...new Set(input.lanes)].sort((a, b) => a - b),
+          validFrom: input.validFrom,
+          validTo: input.validTo ?? null,
+          notes: input.notes ?? null,
+          publishedAt: new Date(),
+          publishedBy: actor.id,
+          laneKind: input.lane.kind,
+          laneFriction: input.lane.friction,
         },
         transaction,
       );
-      await audit({ actorId: actor.id, action: 'condition.published', subjectType: 'condition', subjectId: c.id, details: { centerId, patternId: pattern.id, lanes: c.lanes, lane: input.lane } }, transaction);
+      await audit(
+        {
+          actorId: actor.id,
+          action: 'condition.published',
+          subjectType: 'condition',
+          subjectId: c.id,
+          details: { centerId, patternId: pattern.id, lanes: c.lanes, lane: input.lane },
+        },
+        transaction,
+      );
       const follows = await centersRepository.followersOf(centerId, transaction);
       const s = pattern.summary;
       const page = `${base}/centers/${centerId}/condition`;
@@ -173,7 +227,12 @@ export const centersService = {
     // One query for every followed center, newest publication first: the first row per center is its current
     // condition; each older one still governs the lanes no newer publication has taken.
     const byCenter = new Map<number, Condition[]>();
-    if (centers.length) for (const c of await centersRepository.inForce(centers.map((x) => x.id), todayUtc())) byCenter.set(c.centerId, [...(byCenter.get(c.centerId) ?? []), c]);
+    if (centers.length)
+      for (const c of await centersRepository.inForce(
+        centers.map((x) => x.id),
+        todayUtc(),
+      ))
+        byCenter.set(c.centerId, [...(byCenter.get(c.centerId) ?? []), c]);
     return centers.map((center) => {
       const list = byCenter.get(center.id) ?? [];
       const taken = new Set<number>();
@@ -200,5 +259,6 @@ export const centersService = {
 async function assertProprietor(userId: number): Promise<void> {
   const u = await userRepository.findById(userId);
   if (!u) throw AppError.badRequest('That user does not exist', { 'body.ownerId': 'Unknown user' });
-  if (u.role !== 'proprietor') throw AppError.badRequest('The owner must have the proprietor role', { 'body.ownerId': 'Grant the proprietor role first' });
+  if (u.role !== 'proprietor')
+    throw AppError.badRequest('The owner must have the proprietor role', { 'body.ownerId': 'Grant the proprietor role first' });
 }

@@ -24,7 +24,11 @@ function oilColour(t: number): string {
  */
 export function conditionSheetPdf(center: Center, c: Condition): Promise<Buffer> {
   return new Promise((resolve, reject) => {
-    const doc = new PDFDocument({ size: 'A4', margin: 48, info: { Title: `${center.name} — lane condition`, Author: 'Lanewright', Subject: c.pattern.name } });
+    const doc = new PDFDocument({
+      size: 'A4',
+      margin: 48,
+      info: { Title: `${center.name} — lane condition`, Author: 'Lanewright', Subject: c.pattern.name },
+    });
     const chunks: Buffer[] = [];
     doc.on('data', (b: Buffer) => chunks.push(b));
     doc.on('end', () => resolve(Buffer.concat(chunks)));
@@ -34,7 +38,11 @@ export function conditionSheetPdf(center: Center, c: Condition): Promise<Buffer>
 
     const s = c.pattern.summary;
     doc.font('bold').fontSize(22).fillColor(TEAL).text(center.name);
-    doc.font('body').fontSize(11).fillColor('#333').text(`${center.town} · lane condition published ${c.publishedAt.slice(0, 10)}`);
+    doc
+      .font('body')
+      .fontSize(11)
+      .fillColor('#333')
+      .text(`${center.town} · lane condition published ${c.publishedAt.slice(0, 10)}`);
     doc.moveDown(0.8);
     doc.font('bold').fontSize(16).fillColor('#111').text(c.pattern.name);
     doc.font('body').fontSize(12);
@@ -70,7 +78,10 @@ export function conditionSheetPdf(center: Center, c: Condition): Promise<Buffer>
     const cellW = 8;
     const cellH = mapH / grid.ft.length;
     const left = x0 + 30;
-    doc.font('bold').fontSize(11).text('Oil map (foul line at the bottom)', x0, mapTop - 14);
+    doc
+      .font('bold')
+      .fontSize(11)
+      .text('Oil map (foul line at the bottom)', x0, mapTop - 14);
     grid.boards.forEach((board, bi) => {
       grid.ft.forEach((_, fi) => {
         const v = grid.values[bi][fi];
@@ -79,18 +90,27 @@ export function conditionSheetPdf(center: Center, c: Condition): Promise<Buffer>
         doc.rect(x, y, cellW, cellH).fill(oilColour(peak > 0 ? v / peak : 0));
       });
     });
-    doc.lineWidth(0.5).strokeColor('#666').rect(left, mapTop, 39 * cellW, mapH).stroke();
+    doc
+      .lineWidth(0.5)
+      .strokeColor('#666')
+      .rect(left, mapTop, 39 * cellW, mapH)
+      .stroke();
     doc.font('body').fontSize(8).fillColor('#333');
-    for (const ft of [0, 10, 20, 30, 40, 50, 60].filter((f) => f <= maxFt)) doc.text(`${ft} ft`, x0, mapTop + mapH - (ft / maxFt) * mapH - 4, { width: 28, align: 'right' });
+    for (const ft of [0, 10, 20, 30, 40, 50, 60].filter((f) => f <= maxFt))
+      doc.text(`${ft} ft`, x0, mapTop + mapH - (ft / maxFt) * mapH - 4, { width: 28, align: 'right' });
     doc.text('board 39', left, mapTop + mapH + 3);
     doc.text('board 1', left + 39 * cellW - 30, mapTop + mapH + 3);
 
-    doc.font('body').fontSize(9).fillColor('#7a4b00').text(
-      'Caution: oil carried onto the approach and onto shoes causes falls — check your soles before every shot. The numbers describe the pattern as applied; the lanes change as they are bowled.',
-      x0,
-      mapTop + mapH + 20,
-      { width: 500 },
-    );
+    doc
+      .font('body')
+      .fontSize(9)
+      .fillColor('#7a4b00')
+      .text(
+        'Caution: oil carried onto the approach and onto shoes causes falls — check your soles before every shot. The numbers describe the pattern as applied; the lanes change as they are bowled.',
+        x0,
+        mapTop + mapH + 20,
+        { width: 500 },
+      );
     doc.fillColor('#555').text('Made with Lanewright.', x0, doc.y + 6);
     doc.end();
   });

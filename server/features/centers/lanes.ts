@@ -2,7 +2,7 @@
 export function laneRanges(lanes: number[]): string {
   const sorted = [...new Set(lanes)].sort((a, b) => a - b);
   const parts: string[] = [];
-  for (let i = 0; i < sorted.length; ) {
+  for (let i = 0; i < sorted.length;) {
     let j = i;
     while (j + 1 < sorted.length && sorted[j + 1] === sorted[j] + 1) j++;
     parts.push(i === j ? `${sorted[i]}` : `${sorted[i]}–${sorted[j]}`);

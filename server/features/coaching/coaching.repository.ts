@@ -53,13 +53,24 @@ export const coachingRepository = {
     return CoachLink.findByPk(id, { transaction, lock: transaction.LOCK.UPDATE });
   },
   /** Pending and active links where the user is the coach or the student (also invitations to their verified e-mail not yet tied to the account). */
-  links(user: { id: number; email: string; emailVerified: boolean }, page: number, pageSize: number): Promise<{ rows: LinkWithPeople[]; count: number }> {
+  links(
+    user: { id: number; email: string; emailVerified: boolean },
+    page: number,
+    pageSize: number,
+  ): Promise<{ rows: LinkWithPeople[]; count: number }> {
     // Invitations to the user's address show only once the address is verified (until then it is not proven theirs).
-    const mine = [{ coachId: user.id }, { studentId: user.id }, ...(user.emailVerified ? [{ email: user.email.toLowerCase(), studentId: null, status: 'pending' }] : [])];
+    const mine = [
+      { coachId: user.id },
+      { studentId: user.id },
+      ...(user.emailVerified ? [{ email: user.email.toLowerCase(), studentId: null, status: 'pending' }] : []),
+    ];
     return CoachLink.findAndCountAll({
       where: { status: { [Op.in]: ['pending', 'active'] }, [Op.or]: mine },
       include: PEOPLE,
-      order: [['createdAt', 'DESC'], ['id', 'DESC']],
+      order: [
+        ['createdAt', 'DESC'],
+        ['id', 'DESC'],
+      ],
       limit: pageSize,
       offset: (page - 1) * pageSize,
       distinct: true,
@@ -88,7 +99,14 @@ export const coachingRepository = {
   /** A coach's active students with their session count and last session date, in one statement. */
   async students(coachId: number, page: number, pageSize: number): Promise<{ rows: StudentSummary[]; count: number }> {
     const rows = await sequelize.query<{
-      link_id: number; student_id: number; display_name: string; email: string; since: Date; sessions: string; last_date: string | null; full_count: string;
+      link_id: number;
+      student_id: number;
+      display_name: string;
+      email: string;
+      since: Date;
+      sessions: string;
+      last_date: string | null;
+      full_count: string;
     }>(
       `SELECT l.id AS link_id, u.id AS student_id, u.display_name, u.email, COALESCE(l.accepted_at, l.created_at) AS since,
               COUNT(s.id) AS sessions, MAX(s.date) AS last_date, COUNT(*) OVER () AS full_count
@@ -114,7 +132,17 @@ export const coachingRepository = {
     };
   },
   plans(where: { studentId: number; coachId?: number }, page: number, pageSize: number): Promise<{ rows: PlanWithRefs[]; count: number }> {
-    return Plan.findAndCountAll({ where, include: PLAN_REFS, order: [['createdAt', 'DESC'], ['id', 'DESC']], limit: pageSize, offset: (page - 1) * pageSize, distinct: true }) as Promise<{
+    return Plan.findAndCountAll({
+      where,
+      include: PLAN_REFS,
+      order: [
+        ['createdAt', 'DESC'],
+        ['id', 'DESC'],
+      ],
+      limit: pageSize,
+      offset: (page - 1) * pageSize,
+      distinct: true,
+    }) as Promise<{
       rows: PlanWithRefs[];
       count: number;
     }>;

@@ -15,9 +15,11 @@ import { profileService } from '../profile/profile.service';
 import { isLinkedCoach } from './coaching.access';
 import { coachingRepository, toLinkDto, toPlanDto } from './coaching.repository';
 
-
 function mailBody(lines: string[], link: { href: string; label: string }): { text: string; html: string } {
-  return { text: [...lines, '', `${link.label}: ${link.href}`].join('\n'), html: `<p>${lines.map(esc).join('<br>')}</p><p><a href="${esc(link.href)}">${esc(link.label)}</a></p>` };
+  return {
+    text: [...lines, '', `${link.label}: ${link.href}`].join('\n'),
+    html: `<p>${lines.map(esc).join('<br>')}</p><p><a href="${esc(link.href)}">${esc(link.label)}</a></p>`,
+  };
 }
 
 /** The student of a linked coach (404 when not linked, so the student's existence never leaks). */
@@ -31,7 +33,8 @@ const DAY_MS = 24 * 60 * 60 * 1000;
 const INVITE_LOCK_NS = 7141;
 
 /** The invited user: the one the link is tied to, or (still pending) whoever holds the invited address. */
-const isInvitee = (user: AuthUser, l: CoachLink) => l.studentId === user.id || (l.status === 'pending' && l.studentId === null && l.email === user.email.toLowerCase());
+const isInvitee = (user: AuthUser, l: CoachLink) =>
+  l.studentId === user.id || (l.status === 'pending' && l.studentId === null && l.email === user.email.toLowerCase());
 
 export const coachingService = {
   /**
@@ -42,20 +45,40 @@ export const coachingService = {
    */
   async invite(coach: AuthUser, email: string): Promise<CoachLinkDto> {
     const address = email.toLowerCase();
-    if (address === coach.email.toLowerCase()) throw AppError.badRequest('You cannot coach yourself', { 'body.email': 'Invite a student’s e-mail, not your own' });
+    if (address === coach.email.toLowerCase())
+      throw AppError.badRequest('You cannot coach yourself', { 'body.email': 'Invite a student’s e-mail, not your own' });
     const base = publicUrl();
     try {
       const id = await sequelize.transaction(async (transaction) => {
         // One coach's invitations are counted one at a time (a transaction-scoped lock per coach).
-        await sequelize.query('SELECT pg_advisory_xact_lock(:ns, :coachId)', { replacements: { ns: INVITE_LOCK_NS, coachId: coach.id }, transaction });
+        await sequelize.query('SELECT pg_advisory_xact_lock(:ns, :coachId)', {
+          replacements: { ns: INVITE_LOCK_NS, coachId: coach.id },
+          transaction,
+        });
         const recent = await coachingRepository.invitationsSince(coach.id, new Date(Date.now() - DAY_MS), transaction);
         if (recent >= config.INVITATIONS_PER_DAY) {
-          throw new AppError(429, 'too_many_invitations', `At most ${config.INVITATIONS_PER_DAY} invitations a day; try again tomorrow`, undefined, 60 * 60);
+          throw new AppError(
+            429,
+            'too_many_invitations',
+            `At most ${config.INVITATIONS_PER_DAY} invitations a day; try again tomorrow`,
+            undefined,
+            60 * 60,
+          );
         }
         const live = await coachingRepository.liveLink(coach.id, address, transaction);
-        if (live) throw AppError.conflict(live.status === 'active' ? 'already_linked' : 'already_invited', live.status === 'active' ? 'This bowler is already your student' : 'This bowler already has an invitation from you');
-        const link = await coachingRepository.createLink({ coachId: coach.id, studentId: null, email: address, status: 'pending', acceptedAt: null, revokedAt: null, revokedBy: null }, transaction);
-        await audit({ actorId: coach.id, action: 'coach.invited', subjectType: 'coach_link', subjectId: link.id, details: { email: address } }, transaction);
+        if (live)
+          throw AppError.conflict(
+            live.status === 'active' ? 'already_linked' : 'already_invited',
+            live.status === 'active' ? 'This bowler is already your student' : 'This bowler already has an invitation from you',
+          );
+        const link = await coachingRepository.createLink(
+          { coachId: coach.id, studentId: null, email: address, status: 'pending', acceptedAt: null, revokedAt: null, revokedBy: null },
+          transaction,
+        );
+        await audit(
+          { actorId: coach.id, action: 'coach.invited', subjectType: 'coach_link', subjectId: link.id, details: { email: address } },
+          transaction,
+        );
         const body = mailBody(
           [
             'Hello,',
@@ -67,13 +90,25 @@ export const coachingService = {
           ],
           { href: `${base}/coach`, label: 'Open the invitation' },
         );
-        await enqueueMail([{ to: address, kind: 'coach_invitation', ref: String(link.id), subject: `${coach.displayName} invites you to Lanewright coaching`, ...body }], transaction);
+        await enqueueMail(
+          [
+            {
+              to: address,
+              kind: 'coach_invitation',
+              ref: String(link.id),
+              subject: `${coach.displayName} invites you to Lanewright coaching`,
+              ...body,
+            },
+          ],
+          transaction,
+        );
         return link.id;
       });
       return toLinkDto((await coachingRepository.findLink(id))!);
     } catch (err) {
       // Two invitations at once: the partial unique index keeps one.
-      if (err instanceof UniqueConstraintError) throw AppError.conflict('already_invited', 'This bowler already has an invitation from you');
+      if (err instanceof UniqueConstraintError)
+        throw AppError.conflict('already_invited', 'This bowler already has an invitation from you');
       throw err;
     }
   },
@@ -92,10 +127,14 @@ export const coachingService = {
       if (l.status === 'active') return;
       // Holding an account with the invited address is not enough: the address must be proven (the mailed link).
       const me = await userRepository.findById(user.id, transaction);
-      if (!me?.emailVerifiedAt) throw new AppError(403, 'email_unverified', 'Confirm your e-mail address (the link we mailed you) before accepting an invitation');
+      if (!me?.emailVerifiedAt)
+        throw new AppError(403, 'email_unverified', 'Confirm your e-mail address (the link we mailed you) before accepting an invitation');
       l.set({ status: 'active', studentId: user.id, acceptedAt: new Date() });
       await l.save({ transaction });
-      await audit({ actorId: user.id, action: 'coach.link_accepted', subjectType: 'coach_link', subjectId: l.id, details: { coachId: l.coachId } }, transaction);
+      await audit(
+        { actorId: user.id, action: 'coach.link_accepted', subjectType: 'coach_link', subjectId: l.id, details: { coachId: l.coachId } },
+        transaction,
+      );
     });
     return toLinkDto((await coachingRepository.findLink(id))!);
   },
@@ -109,7 +148,16 @@ export const coachingService = {
       const was = l.status;
       l.set({ status: 'revoked', revokedAt: new Date(), revokedBy: user.id });
       await l.save({ transaction });
-      await audit({ actorId: user.id, action: 'coach.link_revoked', subjectType: 'coach_link', subjectId: l.id, details: { was, coachId: l.coachId, studentId: l.studentId, by: l.coachId === user.id ? 'coach' : 'student' } }, transaction);
+      await audit(
+        {
+          actorId: user.id,
+          action: 'coach.link_revoked',
+          subjectType: 'coach_link',
+          subjectId: l.id,
+          details: { was, coachId: l.coachId, studentId: l.studentId, by: l.coachId === user.id ? 'coach' : 'student' },
+        },
+        transaction,
+      );
     });
   },
 
@@ -131,14 +179,43 @@ export const coachingService = {
       throw AppError.badRequest('That ball is not in the student’s arsenal', { 'body.ballId': 'Choose one of the student’s balls' });
     const base = publicUrl();
     const id = await sequelize.transaction(async (transaction) => {
-      const p = await coachingRepository.createPlan({ coachId: coach.id, studentId: s.id, title: input.title, kind: input.kind, body: input.body, ballId: input.ballId ?? null }, transaction);
-      await audit({ actorId: coach.id, action: 'coach.plan_sent', subjectType: 'plan', subjectId: p.id, details: { studentId: s.id, kind: p.kind, ballId: p.ballId } }, transaction);
+      const p = await coachingRepository.createPlan(
+        { coachId: coach.id, studentId: s.id, title: input.title, kind: input.kind, body: input.body, ballId: input.ballId ?? null },
+        transaction,
+      );
+      await audit(
+        {
+          actorId: coach.id,
+          action: 'coach.plan_sent',
+          subjectType: 'plan',
+          subjectId: p.id,
+          details: { studentId: s.id, kind: p.kind, ballId: p.ballId },
+        },
+        transaction,
+      );
       const ballName = p.ballId ? await coachingRepository.ballName(p.ballId, transaction) : null;
       const body = mailBody(
-        [`Hello ${s.displayName},`, '', `${coach.displayName} sent you a ${p.kind} plan${ballName ? ` for ${ballName}` : ''}: ${p.title}.`, '', ...p.body.split('\n')],
+        [
+          `Hello ${s.displayName},`,
+          '',
+          `${coach.displayName} sent you a ${p.kind} plan${ballName ? ` for ${ballName}` : ''}: ${p.title}.`,
+          '',
+          ...p.body.split('\n'),
+        ],
         { href: `${base}/`, label: 'See it on your Lanewright home' },
       );
-      await enqueueMail([{ to: s.email, kind: 'coach_plan', ref: String(p.id), subject: `A plan from ${coach.displayName}: ${p.title}`.slice(0, 200), ...body }], transaction);
+      await enqueueMail(
+        [
+          {
+            to: s.email,
+            kind: 'coach_plan',
+            ref: String(p.id),
+            subject: `A plan from ${coach.displayName}: ${p.title}`.slice(0, 200),
+            ...body,
+          },
+        ],
+        transaction,
+      );
       return p.id;
     });
     return toPlanDto((await coachingRepository.findPlan(id))!);

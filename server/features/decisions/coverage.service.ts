@@ -12,7 +12,9 @@ import { bowlerOf, engineCondition } from '../stats/stats.service';
 
 const laneRange = (lanes: number[]) => {
   const sorted = [...lanes].sort((a, b) => a - b);
-  return sorted.length > 1 && sorted.at(-1)! - sorted[0] === sorted.length - 1 ? `lanes ${sorted[0]}–${sorted.at(-1)}` : `lanes ${sorted.join(', ')}`;
+  return sorted.length > 1 && sorted.at(-1)! - sorted[0] === sorted.length - 1
+    ? `lanes ${sorted[0]}–${sorted.at(-1)}`
+    : `lanes ${sorted.join(', ')}`;
 };
 
 export const decisionsService = {
@@ -44,9 +46,16 @@ export const decisionsService = {
       id: String(m.id),
       label: `${m.maker} ${m.name}`,
       spec: {
-        weightLb: weight, rg: m.rg, differential: m.differential, intermediateDifferential: m.intermediateDifferential, coverType: m.coverType,
-        surfaceGrit: m.factoryGrit, polished: m.factoryPolished, ...(m.hardnessD != null ? { hardnessD: m.hardnessD } : {}),
-        ...(m.releaseYear != null ? { approvalYear: m.releaseYear } : {}), layout: { pinToPapIn: MOTION_CALIBRATION.defaultPinToPapIn },
+        weightLb: weight,
+        rg: m.rg,
+        differential: m.differential,
+        intermediateDifferential: m.intermediateDifferential,
+        coverType: m.coverType,
+        surfaceGrit: m.factoryGrit,
+        polished: m.factoryPolished,
+        ...(m.hardnessD != null ? { hardnessD: m.hardnessD } : {}),
+        ...(m.releaseYear != null ? { approvalYear: m.releaseYear } : {}),
+        layout: { pinToPapIn: MOTION_CALIBRATION.defaultPinToPapIn },
       },
     }));
     return {
@@ -64,10 +73,18 @@ export const decisionsService = {
     const bowler = await bowlerOf(user.id);
     const spec = ballToArsenalBall(ball.get({ plain: true }));
     const items = layoutLab({
-      ball: spec, bowler, pattern: on.pattern, lane: on.lane,
+      ball: spec,
+      bowler,
+      pattern: on.pattern,
+      lane: on.lane,
       layouts: req.layouts.map((l, i) => ({
-        id: String(i + 1), label: l.label,
-        layout: { pinToPapIn: l.pinToPapIn, ...(l.drillingAngleDeg != null ? { drillingAngleDeg: l.drillingAngleDeg } : {}), ...(l.valAngleDeg != null ? { valAngleDeg: l.valAngleDeg } : {}) },
+        id: String(i + 1),
+        label: l.label,
+        layout: {
+          pinToPapIn: l.pinToPapIn,
+          ...(l.drillingAngleDeg != null ? { drillingAngleDeg: l.drillingAngleDeg } : {}),
+          ...(l.valAngleDeg != null ? { valAngleDeg: l.valAngleDeg } : {}),
+        },
       })),
     });
     return { ball: { id: ball.id, label: ballLabel(ball) }, hand: bowler.hand, condition: { name: on.name }, items };

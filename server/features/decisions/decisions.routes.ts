@@ -1,6 +1,14 @@
 import { itemOf, itemsOf } from '../../../shared/api';
 import { IdParamSchema } from '../../../shared/auth';
-import { CoverageResultSchema, LayoutLabResultSchema, LayoutLabSchema, TrialCreateSchema, TrialListQuerySchema, TrialResultSchema, TrialSchema } from '../../../shared/decisions';
+import {
+  CoverageResultSchema,
+  LayoutLabResultSchema,
+  LayoutLabSchema,
+  TrialCreateSchema,
+  TrialListQuerySchema,
+  TrialResultSchema,
+  TrialSchema,
+} from '../../../shared/decisions';
 import { requireAuth } from '../../middleware/auth';
 import { NO_CONTENT, route, type RouteGroup } from '../../http/route';
 import { decisionsService } from './coverage.service';

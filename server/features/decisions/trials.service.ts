@@ -60,7 +60,10 @@ function predictedBreakpoint(ball: Ball, rows: ShotRow[], bowler: BowlerProfile,
   const lined = rows.filter((r) => r.delivery === 1 && r.feet_board != null && r.target_board != null);
   const spec = ballToSpec(ball.get({ plain: true }));
   const line = lined.length
-    ? { laydownBoard: laydownBoardOf(median(lined.map((r) => r.feet_board as number))), targetBoard: median(lined.map((r) => r.target_board as number)) }
+    ? {
+        laydownBoard: laydownBoardOf(median(lined.map((r) => r.feet_board as number))),
+        targetBoard: median(lined.map((r) => r.target_board as number)),
+      }
     : {};
   return Math.round(simulateShot({ ball: spec, bowler, pattern, ...line }).breakpoint.board * 10) / 10;
 }
@@ -68,7 +71,14 @@ function predictedBreakpoint(ball: Ball, rows: ShotRow[], bowler: BowlerProfile,
 export const trialsService = {
   async list(user: AuthUser, q: TrialListQuery): Promise<TrialDto[]> {
     const bowlerId = await readableBowlerId(user, q.studentId);
-    const trials = await Trial.findAll({ where: { userId: bowlerId }, order: [['createdAt', 'DESC'], ['id', 'DESC']], limit: 100 });
+    const trials = await Trial.findAll({
+      where: { userId: bowlerId },
+      order: [
+        ['createdAt', 'DESC'],
+        ['id', 'DESC'],
+      ],
+      limit: 100,
+    });
     const balls = await ballsOf(bowlerId, [...new Set(trials.flatMap((t) => t.arms.map((a) => a.ballId)))]);
     const names = await patternNames(trials.map((t) => t.patternId));
     return trials.map((t) => toDto(t, balls, t.patternId ? (names.get(t.patternId) ?? null) : null));
@@ -76,7 +86,10 @@ export const trialsService = {
 
   async create(user: AuthUser, input: TrialCreate): Promise<TrialDto> {
     const bowlerId = await readableBowlerId(user, input.studentId);
-    const balls = await ballsOf(bowlerId, input.arms.map((a) => a.ballId));
+    const balls = await ballsOf(
+      bowlerId,
+      input.arms.map((a) => a.ballId),
+    );
     const fields: Record<string, string> = {};
     input.arms.forEach((a, i) => {
       if (!balls.has(a.ballId) || balls.get(a.ballId)!.deletedAt) fields[`body.arms.${i}.ballId`] = 'Not a ball in this arsenal';
@@ -89,7 +102,11 @@ export const trialsService = {
     }
     if (Object.keys(fields).length) throw AppError.badRequest('Check the trial', fields);
     const t = await Trial.create({
-      userId: bowlerId, createdBy: user.id, name: input.name, patternId: input.patternId ?? null, startDate: input.startDate ?? todayUtc(),
+      userId: bowlerId,
+      createdBy: user.id,
+      name: input.name,
+      patternId: input.patternId ?? null,
+      startDate: input.startDate ?? todayUtc(),
       arms: input.arms.map((a) => ({ ballId: a.ballId, surfaceKey: a.surfaceKey ?? null })),
     });
     return toDto(t, balls, patternName);
@@ -98,10 +115,16 @@ export const trialsService = {
   /** The trial and its comparison: the bowler's shots since the start (on the trial's pattern), each arm's own. */
   async get(user: AuthUser, id: number): Promise<TrialResult> {
     const t = await readable(user, id);
-    const balls = await ballsOf(t.userId, t.arms.map((a) => a.ballId));
+    const balls = await ballsOf(
+      t.userId,
+      t.arms.map((a) => a.ballId),
+    );
     const names = await patternNames([t.patternId]);
     const dto = toDto(t, balls, t.patternId ? (names.get(t.patternId) ?? null) : null);
-    const rows = await sessionsRepository.shotsForStats(t.userId, { from: t.startDate, ...(t.patternId ? { patternId: t.patternId } : {}) });
+    const rows = await sessionsRepository.shotsForStats(t.userId, {
+      from: t.startDate,
+      ...(t.patternId ? { patternId: t.patternId } : {}),
+    });
     const bowler = await bowlerOf(t.userId);
     const pattern = t.patternId && names.has(t.patternId) ? (await patternsService.engineInput(t.patternId)).pattern : null;
     const arms = t.arms.map((a, i) => {
@@ -120,7 +143,8 @@ export const trialsService = {
   /** Deletes a trial (its bowler, or the coach who opened it); the shots stay in their sessions. */
   async remove(user: AuthUser, id: number): Promise<void> {
     const t = await readable(user, id);
-    if (t.userId !== user.id && t.createdBy !== user.id) throw AppError.forbidden('Only the bowler or the coach who opened the trial may delete it');
+    if (t.userId !== user.id && t.createdBy !== user.id)
+      throw AppError.forbidden('Only the bowler or the coach who opened the trial may delete it');
     await t.destroy();
   },
 };

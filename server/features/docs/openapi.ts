@@ -24,24 +24,45 @@ export interface DocumentedRoute {
 
 /** Every route of the groups the API document covers (development-only groups are left out), in table order. */
 export function documentedRoutes(groups: readonly RouteGroup[]): DocumentedRoute[] {
-  return groups.filter((g) => !g.devOnly).flatMap((g) => g.routes.map((route) => ({ path: `/api${g.prefix}${route.path === '/' ? '' : route.path}`, route })));
+  return groups
+    .filter((g) => !g.devOnly)
+    .flatMap((g) => g.routes.map((route) => ({ path: `/api${g.prefix}${route.path === '/' ? '' : route.path}`, route })));
 }
 
 function successResponses(r: AnyRoute): Record<string, ResponseConfig> {
   const doc = r.response;
   const status = String(r.status ?? ('noContent' in doc ? 204 : 200));
   const content: ResponseConfig['content'] =
-    'noContent' in doc ? undefined : 'contentType' in doc ? { [doc.contentType]: { schema: { type: 'string', format: 'binary', description: doc.description } } } : { 'application/json': { schema: doc } };
-  const out: Record<string, ResponseConfig> = { [status]: { description: 'contentType' in doc ? doc.description : 'noContent' in doc ? 'Done; no body' : 'OK', ...(content ? { content } : {}) } };
-  for (const [code, description] of Object.entries(r.alsoAnswers ?? {})) out[code] = { description, ...(content && !('contentType' in doc) ? { content } : {}) };
+    'noContent' in doc
+      ? undefined
+      : 'contentType' in doc
+        ? { [doc.contentType]: { schema: { type: 'string', format: 'binary', description: doc.description } } }
+        : { 'application/json': { schema: doc } };
+  const out: Record<string, ResponseConfig> = {
+    [status]: {
+      description: 'contentType' in doc ? doc.description : 'noContent' in doc ? 'Done; no body' : 'OK',
+      ...(content ? { content } : {}),
+    },
+  };
+  for (const [code, description] of Object.entries(r.alsoAnswers ?? {}))
+    out[code] = { description, ...(content && !('contentType' in doc) ? { content } : {}) };
   return out;
 }
 
-const errorResponse = (description: string): ResponseConfig => ({ description, content: { 'application/json': { schema: ApiErrorSchema } } });
+const errorResponse = (description: string): ResponseConfig => ({
+  description,
+  content: { 'application/json': { schema: ApiErrorSchema } },
+});
 
 function operation(path: string, r: AnyRoute): RouteConfig {
   const upload = r.upload
-    ? { content: { 'multipart/form-data': { schema: { type: 'object' as const, properties: { file: { type: 'string' as const, format: 'binary' } }, required: ['file'] } } } }
+    ? {
+        content: {
+          'multipart/form-data': {
+            schema: { type: 'object' as const, properties: { file: { type: 'string' as const, format: 'binary' } }, required: ['file'] },
+          },
+        },
+      }
     : undefined;
   return {
     method: r.method,
@@ -54,7 +75,11 @@ function operation(path: string, r: AnyRoute): RouteConfig {
       ...(r.params ? { params: r.params as z.ZodObject } : {}),
       ...(r.query ? { query: r.query as z.ZodObject } : {}),
       ...(r.headers ? { headers: r.headers } : {}),
-      ...(r.body ? { body: { required: true, content: { 'application/json': { schema: r.body } } } } : upload ? { body: { required: true, ...upload } } : {}),
+      ...(r.body
+        ? { body: { required: true, content: { 'application/json': { schema: r.body } } } }
+        : upload
+          ? { body: { required: true, ...upload } }
+          : {}),
     },
     responses: {
       ...successResponses(r),
@@ -71,10 +96,15 @@ export function openApiDocument(groups: readonly RouteGroup[]): Record<string, u
   for (const { path, route } of documentedRoutes(groups)) registry.registerPath(operation(path, route));
   const doc = new OpenApiGeneratorV31(registry.definitions).generateDocument({
     openapi: '3.1.0',
-    info: { title: 'Lanewright API', version: '0.1.0', description: 'Lane-condition and ball-matchup advice. Errors: { error: { code, message, fields? } }.' },
+    info: {
+      title: 'Lanewright API',
+      version: '0.1.0',
+      description: 'Lane-condition and ball-matchup advice. Errors: { error: { code, message, fields? } }.',
+    },
   });
   // Path parameters are always required (OpenAPI 3.1 §4.8.12.1), whatever their schema's coercion says.
   for (const item of Object.values(doc.paths ?? {}))
-    for (const op of Object.values(item as Record<string, { parameters?: { in: string; required?: boolean }[] }>)) for (const p of op.parameters ?? []) if (p.in === 'path') p.required = true;
+    for (const op of Object.values(item as Record<string, { parameters?: { in: string; required?: boolean }[] }>))
+      for (const p of op.parameters ?? []) if (p.in === 'path') p.required = true;
   return { ...doc };
 }

@@ -19,7 +19,10 @@ export function markStopping(): void {
 
 /** Liveness: the process answers (no dependency checked), so an orchestrator restarts only a hung process. */
 const live = route({
-  method: 'get', path: '/live', summary: 'Liveness: the process answers (no dependency checked)', access: 'public',
+  method: 'get',
+  path: '/live',
+  summary: 'Liveness: the process answers (no dependency checked)',
+  access: 'public',
   response: z.object({ status: z.literal('ok') }),
   handler: () => ({ status: 'ok' as const }),
 });
@@ -30,8 +33,12 @@ const live = route({
  */
 const ReadySchema = z.object({ status: z.enum(['ready', 'not_ready', 'stopping']), db: z.enum(['ok', 'unreachable']).optional() });
 const ready = route({
-  method: 'get', path: '/ready', summary: 'Readiness: the primary database answers and the process is not stopping (503 otherwise)', access: 'public',
-  response: ReadySchema, alsoAnswers: { 503: 'Not ready: stopping, or the database does not answer' },
+  method: 'get',
+  path: '/ready',
+  summary: 'Readiness: the primary database answers and the process is not stopping (503 otherwise)',
+  access: 'public',
+  response: ReadySchema,
+  alsoAnswers: { 503: 'Not ready: stopping, or the database does not answer' },
   handler: async () => {
     if (stopping) return new Reply(503, { status: 'stopping' as const });
     const db = await dbCheck();
@@ -53,7 +60,11 @@ function tokenMatches(header: string | undefined): boolean {
  * does not exist then), 401 for a missing or wrong token.
  */
 const metrics = route({
-  method: 'get', path: '/metrics', summary: 'Prometheus metrics (text format); only with METRICS_TOKEN configured, for that bearer token', access: 'token', who: 'metrics token',
+  method: 'get',
+  path: '/metrics',
+  summary: 'Prometheus metrics (text format); only with METRICS_TOKEN configured, for that bearer token',
+  access: 'token',
+  who: 'metrics token',
   response: { contentType: 'text/plain', description: 'The Prometheus text format' },
   handler: async ({ req, res }) => {
     if (!config.METRICS_TOKEN) throw AppError.notFound('Route');
@@ -78,7 +89,9 @@ export function startMetricsListener(): http.Server | null {
       },
     );
   });
-  srv.listen(config.METRICS_PORT, config.METRICS_HOST, () => logger.info({ host: config.METRICS_HOST, port: config.METRICS_PORT }, 'metrics listening'));
+  srv.listen(config.METRICS_PORT, config.METRICS_HOST, () =>
+    logger.info({ host: config.METRICS_HOST, port: config.METRICS_PORT }, 'metrics listening'),
+  );
   return srv;
 }
 
@@ -87,7 +100,10 @@ const CHECK_TIMEOUT_MS = 3000;
 const MAIL_CHECK_TTL_MS = 2000;
 
 function withTimeout<T>(p: Promise<T>, what: string): Promise<T> {
-  return Promise.race([p, new Promise<never>((_, reject) => setTimeout(() => reject(new Error(`${what} timed out`)), CHECK_TIMEOUT_MS).unref())]);
+  return Promise.race([
+    p,
+    new Promise<never>((_, reject) => setTimeout(() => reject(new Error(`${what} timed out`)), CHECK_TIMEOUT_MS).unref()),
+  ]);
 }
 
 let mailCheck: { at: number; result: Promise<'ok' | 'unreachable'> } | null = null;
@@ -99,7 +115,12 @@ let mailCheck: { at: number; result: Promise<'ok' | 'unreachable'> } | null = nu
 function checkMail(): Promise<'ok' | 'unreachable'> {
   if (mailCaptureEnabled || !config.SMTP_URL) return Promise.resolve('ok');
   if (mailCheck && Date.now() - mailCheck.at < MAIL_CHECK_TTL_MS) return mailCheck.result;
-  const t = nodemailer.createTransport({ url: config.SMTP_URL, connectionTimeout: CHECK_TIMEOUT_MS, greetingTimeout: CHECK_TIMEOUT_MS, socketTimeout: CHECK_TIMEOUT_MS } as Parameters<typeof nodemailer.createTransport>[0]);
+  const t = nodemailer.createTransport({
+    url: config.SMTP_URL,
+    connectionTimeout: CHECK_TIMEOUT_MS,
+    greetingTimeout: CHECK_TIMEOUT_MS,
+    socketTimeout: CHECK_TIMEOUT_MS,
+  } as Parameters<typeof nodemailer.createTransport>[0]);
   const result = withTimeout(t.verify(), 'mail check')
     .then(() => 'ok' as const)
     .catch(() => 'unreachable' as const)
@@ -126,12 +147,19 @@ const HealthSchema = z.object({
   db: z.enum(['ok', 'unreachable']),
   mail: z.enum(['ok', 'unreachable']),
   mailMode: z.enum(['capture', 'smtp']),
-  outbox: z.object({ pending: z.number().int(), failed: z.number().int(), oldestPendingSeconds: z.number().nullable() }).nullable().optional(),
+  outbox: z
+    .object({ pending: z.number().int(), failed: z.number().int(), oldestPendingSeconds: z.number().nullable() })
+    .nullable()
+    .optional(),
 });
 
 const health = route({
-  method: 'get', path: '/', summary: 'Liveness and database reachability', access: 'public',
-  response: HealthSchema, alsoAnswers: { 503: 'Degraded: the database does not answer' },
+  method: 'get',
+  path: '/',
+  summary: 'Liveness and database reachability',
+  access: 'public',
+  response: HealthSchema,
+  alsoAnswers: { 503: 'Degraded: the database does not answer' },
   handler: async () => {
     const [db, mail] = await Promise.all([dbCheck(), checkMail()]);
     const mailMode = mailCaptureEnabled || !config.SMTP_URL ? ('capture' as const) : ('smtp' as const);

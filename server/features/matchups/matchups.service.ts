@@ -46,7 +46,11 @@ export function pathForLaneView(path: ShotPrediction['path']): ShotPrediction['p
   });
 }
 
-const rankingCache = new LRUCache<string, RankedBall[]>({ max: 500, maxSize: 3_000, sizeCalculation: (ranked) => Math.max(1, ranked.length) });
+const rankingCache = new LRUCache<string, RankedBall[]>({
+  max: 500,
+  maxSize: 3_000,
+  sizeCalculation: (ranked) => Math.max(1, ranked.length),
+});
 
 /** A ranking as kept and sent: each path at the lane view's resolution (pathForLaneView). */
 function trimmed(ranked: RankedBall[]): RankedBall[] {
@@ -99,7 +103,13 @@ export const matchupsService = {
     // The bowler's logged shots on this pattern calibrate the model, on these lanes, once there are enough of them.
     let fitted: Calibration | null = null;
     try {
-      fitted = await calibrationFor(bowlerId, on.patternId ?? 0, { pattern, bowler, lane, ...(on.condition ? { conditionId: on.condition.id } : {}), ...(on.patternId === null ? { rows: [] } : {}) });
+      fitted = await calibrationFor(bowlerId, on.patternId ?? 0, {
+        pattern,
+        bowler,
+        lane,
+        ...(on.condition ? { conditionId: on.condition.id } : {}),
+        ...(on.patternId === null ? { rows: [] } : {}),
+      });
     } catch (err) {
       // A calibration that cannot be fitted never blocks the ranking; it is simply not applied.
       logger.warn({ err, bowlerId, patternId: on.patternId }, 'calibration failed; ranking without it');
@@ -111,12 +121,20 @@ export const matchupsService = {
     try {
       if (balls.length)
         ranked = await rankCached(
-          { balls: balls.map(ballToArsenalBall), bowler, pattern, gamesBowled: req.gamesBowled, lane, ...(fitted?.enough ? { calibration: fitted } : {}) },
+          {
+            balls: balls.map(ballToArsenalBall),
+            bowler,
+            pattern,
+            gamesBowled: req.gamesBowled,
+            lane,
+            ...(fitted?.enough ? { calibration: fitted } : {}),
+          },
           signal,
         );
     } catch (err) {
       // The engine refuses input outside its documented ranges with RangeError/TypeError naming the value.
-      if (err instanceof Error && (err.name === 'RangeError' || err.name === 'TypeError') && /^[a-zA-Z]+: /.test(err.message)) throw new AppError(422, 'engine_rejected', err.message);
+      if (err instanceof Error && (err.name === 'RangeError' || err.name === 'TypeError') && /^[a-zA-Z]+: /.test(err.message))
+        throw new AppError(422, 'engine_rejected', err.message);
       throw err;
     }
     return {
@@ -134,8 +152,19 @@ export const matchupsService = {
           suggestions: withNumericBallIds(r.suggestions, numericIds),
           ballId: b.id,
           ball: {
-            id: b.id, name: b.name, nickname: b.nickname, maker: b.maker, coverType: b.coverType, coreType: b.coreType, rg: b.rg, differential: b.differential,
-            intermediateDifferential: b.intermediateDifferential, surfaceGrit: b.surfaceGrit, polished: b.polished, layout: b.layout, weightLb: b.weightLb,
+            id: b.id,
+            name: b.name,
+            nickname: b.nickname,
+            maker: b.maker,
+            coverType: b.coverType,
+            coreType: b.coreType,
+            rg: b.rg,
+            differential: b.differential,
+            intermediateDifferential: b.intermediateDifferential,
+            surfaceGrit: b.surfaceGrit,
+            polished: b.polished,
+            layout: b.layout,
+            weightLb: b.weightLb,
             gamesSinceResurface: b.gamesSinceResurface,
           },
         };

@@ -31,14 +31,16 @@ export function csvCell(v: string | number): string {
 
 export function patternToCsv(p: { name: string; description: string | null; sweeps: Sweep[] }): string {
   const oneLine = (s: string) => s.replace(/[\r\n]+/g, ' ');
-  return [
-    `# ${PATTERN_FORMAT} v1`,
-    // A name is free text: the whole comment line is one cell (quoted when it holds a comma or quote).
-    csvCell(`# name: ${oneLine(p.name)}`),
-    ...(p.description ? [csvCell(`# description: ${oneLine(p.description)}`)] : []),
-    SWEEP_COLUMNS.join(','),
-    ...p.sweeps.map((s) => SWEEP_COLUMNS.map((c) => csvCell(s[c])).join(',')),
-  ].join('\n') + '\n';
+  return (
+    [
+      `# ${PATTERN_FORMAT} v1`,
+      // A name is free text: the whole comment line is one cell (quoted when it holds a comma or quote).
+      csvCell(`# name: ${oneLine(p.name)}`),
+      ...(p.description ? [csvCell(`# description: ${oneLine(p.description)}`)] : []),
+      SWEEP_COLUMNS.join(','),
+      ...p.sweeps.map((s) => SWEEP_COLUMNS.map((c) => csvCell(s[c])).join(',')),
+    ].join('\n') + '\n'
+  );
 }
 
 function lineOf(text: string, offset: number): number {
@@ -57,7 +59,8 @@ function fromJson(text: string): PatternInput {
   if (exceedsJsonDepth(text)) fail({ 'lines.1.json': `The file nests deeper than ${MAX_JSON_DEPTH} levels; a pattern file needs three` });
   const errors: ParseError[] = [];
   const data: unknown = parseJsonc(text, errors, { allowTrailingComma: false, disallowComments: true });
-  if (errors.length) fail(Object.fromEntries(errors.slice(0, 20).map((e) => [`lines.${lineOf(text, e.offset)}.json`, 'This is not valid JSON here'])));
+  if (errors.length)
+    fail(Object.fromEntries(errors.slice(0, 20).map((e) => [`lines.${lineOf(text, e.offset)}.json`, 'This is not valid JSON here'])));
   const root = parseTree(text);
   const obj = (data ?? {}) as Record<string, unknown>;
   const fields: Record<string, string> = {};
@@ -65,7 +68,10 @@ function fromJson(text: string): PatternInput {
   const parsed = PatternInputSchema.safeParse({ name: obj.name, description: obj.description ?? null, sweeps: obj.sweeps });
   if (!parsed.success) {
     for (const issue of parsed.error.issues) {
-      const node = root ? findNodeAtLocation(root, issue.path as (string | number)[]) ?? findNodeAtLocation(root, issue.path.slice(0, -1) as (string | number)[]) : undefined;
+      const node = root
+        ? (findNodeAtLocation(root, issue.path as (string | number)[]) ??
+          findNodeAtLocation(root, issue.path.slice(0, -1) as (string | number)[]))
+        : undefined;
       const line = node ? lineOf(text, node.offset) : 1;
       fields[`lines.${line}.${issue.path.join('.') || 'file'}`] ??= issue.message;
     }

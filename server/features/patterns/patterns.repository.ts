@@ -4,7 +4,15 @@ import { Pattern } from '../../models/index';
 import { likeText } from '../catalogue/catalogue.repository';
 
 export function toPatternListItem(p: Pattern): PatternListItem {
-  return { id: p.id, name: p.name, description: p.description, ownerId: p.ownerId, summary: p.summary, version: p.version, createdAt: p.createdAt.toISOString() };
+  return {
+    id: p.id,
+    name: p.name,
+    description: p.description,
+    ownerId: p.ownerId,
+    summary: p.summary,
+    version: p.version,
+    createdAt: p.createdAt.toISOString(),
+  };
 }
 
 const SORT_COLUMNS: Record<PatternQuery['sort'], string> = {
@@ -21,7 +29,10 @@ export const patternsRepository = {
     for (const k of ['lengthClass', 'volumeClass', 'ratioClass'] as const) if (q[k]) where[`summary.${k}`] = q[k];
     return Pattern.findAndCountAll({
       where: where as WhereOptions<Pattern>,
-      order: [[Pattern.sequelize!.literal(SORT_COLUMNS[q.sort]), q.order.toUpperCase()], ['id', 'ASC']],
+      order: [
+        [Pattern.sequelize!.literal(SORT_COLUMNS[q.sort]), q.order.toUpperCase()],
+        ['id', 'ASC'],
+      ],
       limit: q.pageSize,
       offset: (q.page - 1) * q.pageSize,
     });

@@ -16,7 +16,8 @@ export function summarize(p: OilPattern): PatternSummary {
     a = analyzePattern(p);
   } catch (err) {
     // The engine names the function and the bad value; anything zod let through is still the caller's input.
-    if (err instanceof RangeError || err instanceof TypeError) throw new AppError(400, 'validation_failed', err.message, { 'body.sweeps': err.message });
+    if (err instanceof RangeError || err instanceof TypeError)
+      throw new AppError(400, 'validation_failed', err.message, { 'body.sweeps': err.message });
     throw err;
   }
   return { ...a, ratio: Number.isFinite(a.ratio) ? a.ratio : null };
@@ -66,10 +67,16 @@ export const patternsService = {
       const p = await patternsRepository.findById(id, transaction);
       if (!p) throw AppError.notFound('Pattern');
       if (!canEdit(user, p)) throw AppError.forbidden('Only the pattern’s owner or an admin can edit it');
-      if (p.version !== patch.version) throw AppError.conflict('stale_version', 'This pattern was changed elsewhere; reload it and apply your edit again');
+      if (p.version !== patch.version)
+        throw AppError.conflict('stale_version', 'This pattern was changed elsewhere; reload it and apply your edit again');
       const name = patch.name ?? p.name;
       const sweeps = patch.sweeps ?? p.sweeps;
-      p.set({ name, description: patch.description === undefined ? p.description : patch.description, sweeps, summary: summarize({ name, sweeps }) });
+      p.set({
+        name,
+        description: patch.description === undefined ? p.description : patch.description,
+        sweeps,
+        summary: summarize({ name, sweeps }),
+      });
       await p.save({ transaction });
       return toDetail(p);
     });
@@ -83,7 +90,11 @@ export const patternsService = {
   async exportFile(id: number, format: 'json' | 'csv'): Promise<{ filename: string; type: string; body: string }> {
     const p = await patternsRepository.findById(id);
     if (!p) throw AppError.notFound('Pattern');
-    const base = p.name.replace(/[^\w.-]+/g, '-').replace(/^-|-$/g, '').toLowerCase() || 'pattern';
+    const base =
+      p.name
+        .replace(/[^\w.-]+/g, '-')
+        .replace(/^-|-$/g, '')
+        .toLowerCase() || 'pattern';
     return format === 'json'
       ? { filename: `${base}.lanewright.json`, type: 'application/json', body: patternToJson(p) }
       : { filename: `${base}.lanewright.csv`, type: 'text/csv', body: patternToCsv(p) };

@@ -26,7 +26,14 @@ export const profileRepository = {
    */
   async upsert(userId: number, data: Profile): Promise<Profile> {
     const rows = await sequelize.query<{
-      hand: Profile['hand']; speed_mph: number; rev_rpm: number; axis_rotation_deg: number; axis_tilt_deg: number; pap_right_in: number | null; pap_up_in: number | null; units: Profile['units'];
+      hand: Profile['hand'];
+      speed_mph: number;
+      rev_rpm: number;
+      axis_rotation_deg: number;
+      axis_tilt_deg: number;
+      pap_right_in: number | null;
+      pap_up_in: number | null;
+      units: Profile['units'];
     }>(
       `INSERT INTO bowler_profiles (user_id, hand, speed_mph, rev_rpm, axis_rotation_deg, axis_tilt_deg, pap_right_in, pap_up_in, units, version, created_at, updated_at)
        VALUES (:userId, :hand, :speedMph, :revRpm, :axisRotationDeg, :axisTiltDeg, :papRightIn, :papUpIn, :units, 0, now(), now())
@@ -37,6 +44,15 @@ export const profileRepository = {
       { replacements: { userId, ...data }, type: QueryTypes.SELECT },
     );
     const r = rows[0];
-    return { hand: r.hand, speedMph: r.speed_mph, revRpm: r.rev_rpm, axisRotationDeg: r.axis_rotation_deg, axisTiltDeg: r.axis_tilt_deg, papRightIn: r.pap_right_in, papUpIn: r.pap_up_in, units: r.units };
+    return {
+      hand: r.hand,
+      speedMph: r.speed_mph,
+      revRpm: r.rev_rpm,
+      axisRotationDeg: r.axis_rotation_deg,
+      axisTiltDeg: r.axis_tilt_deg,
+      papRightIn: r.pap_right_in,
+      papUpIn: r.pap_up_in,
+      units: r.units,
+    };
   },
 };

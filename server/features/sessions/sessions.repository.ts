@@ -116,7 +116,8 @@ export function toShotRecord(r: ShotRow, date: string): ShotRecord {
 }
 
 /** The name a shot's ball is shown by: the one ball label of shared/balls. */
-export const shotBallName = (r: Pick<ShotRow, 'ball_model_name' | 'ball_nickname'>): string => ballLabel({ name: r.ball_model_name, nickname: r.ball_nickname });
+export const shotBallName = (r: Pick<ShotRow, 'ball_model_name' | 'ball_nickname'>): string =>
+  ballLabel({ name: r.ball_model_name, nickname: r.ball_nickname });
 
 const SHOT_COLUMNS = `sh.id, sh.session_id, sh.game_number, sh.frame, sh.delivery, sh.ball_id, b.name AS ball_model_name, b.nickname AS ball_nickname, sh.surface_key,
   sh.feet_board, sh.target_board, sh.breakpoint_board, sh.standing, sh.foul, sh.hit, sh.note, sh.created_at, sh.surface_grit, sh.surface_polished`;
@@ -148,14 +149,20 @@ export const sessionsRepository = {
     return Annotation.create(data);
   },
   /** One page of a bowler's sessions, newest first, and the total, in one statement. */
-  async list(userId: number, q: { page: number; pageSize: number; from?: string; to?: string }): Promise<{ rows: SessionDto[]; count: number }> {
+  async list(
+    userId: number,
+    q: { page: number; pageSize: number; from?: string; to?: string },
+  ): Promise<{ rows: SessionDto[]; count: number }> {
     const where = ['s.user_id = :userId', 's.deleted_at IS NULL'];
     if (q.from) where.push('s.date >= :from');
     if (q.to) where.push('s.date <= :to');
     const rows = await sequelize.query<SessionRow>(
       `${SESSION_SELECT.replace('agg.games, agg.shots', 'agg.games, agg.shots, COUNT(*) OVER () AS full_count')}
        WHERE ${where.join(' AND ')} ORDER BY s.date DESC, s.id DESC LIMIT :limit OFFSET :offset`,
-      { type: QueryTypes.SELECT, replacements: { userId, from: q.from ?? null, to: q.to ?? null, limit: q.pageSize, offset: (q.page - 1) * q.pageSize } },
+      {
+        type: QueryTypes.SELECT,
+        replacements: { userId, from: q.from ?? null, to: q.to ?? null, limit: q.pageSize, offset: (q.page - 1) * q.pageSize },
+      },
     );
     const count = rows.length
       ? Number(rows[0].full_count)
@@ -171,7 +178,11 @@ export const sessionsRepository = {
   },
 
   async findDto(id: number, transaction?: Transaction): Promise<SessionDto | null> {
-    const [row] = await sequelize.query<SessionRow>(`${SESSION_SELECT} WHERE s.id = :id AND s.deleted_at IS NULL`, { type: QueryTypes.SELECT, replacements: { id }, transaction });
+    const [row] = await sequelize.query<SessionRow>(`${SESSION_SELECT} WHERE s.id = :id AND s.deleted_at IS NULL`, {
+      type: QueryTypes.SELECT,
+      replacements: { id },
+      transaction,
+    });
     return row ? toSessionDto(row) : null;
   },
 
@@ -194,7 +205,14 @@ export const sessionsRepository = {
 
   /** One game's shots in order (for checking the next delivery). */
   gameShots(sessionId: number, gameNumber: number, transaction: Transaction): Promise<Shot[]> {
-    return Shot.findAll({ where: { sessionId, gameNumber }, order: [['frame', 'ASC'], ['delivery', 'ASC']], transaction });
+    return Shot.findAll({
+      where: { sessionId, gameNumber },
+      order: [
+        ['frame', 'ASC'],
+        ['delivery', 'ASC'],
+      ],
+      transaction,
+    });
   },
 
   async lastGameNumber(sessionId: number, transaction: Transaction): Promise<number> {
@@ -207,11 +225,14 @@ export const sessionsRepository = {
   },
 
   async shotDto(id: number, transaction?: Transaction): Promise<ShotDto | null> {
-    const [row] = await sequelize.query<ShotRow>(`SELECT ${SHOT_COLUMNS} FROM shots sh JOIN balls b ON b.id = sh.ball_id WHERE sh.id = :id`, {
-      type: QueryTypes.SELECT,
-      replacements: { id },
-      transaction,
-    });
+    const [row] = await sequelize.query<ShotRow>(
+      `SELECT ${SHOT_COLUMNS} FROM shots sh JOIN balls b ON b.id = sh.ball_id WHERE sh.id = :id`,
+      {
+        type: QueryTypes.SELECT,
+        replacements: { id },
+        transaction,
+      },
+    );
     return row ? toShotDto(row) : null;
   },
 
@@ -228,13 +249,23 @@ export const sessionsRepository = {
     return sequelize.query<ShotRow>(
       `SELECT ${SHOT_COLUMNS}, s.date, s.pattern_id FROM shots sh JOIN sessions s ON s.id = sh.session_id JOIN balls b ON b.id = sh.ball_id
        WHERE ${where.join(' AND ')} ORDER BY s.date, s.id, sh.game_number, sh.frame, sh.delivery`,
-      { type: QueryTypes.SELECT, replacements: { userId, from: f.from ?? null, to: f.to ?? null, ballId: f.ballId ?? null, patternId: f.patternId ?? null } },
+      {
+        type: QueryTypes.SELECT,
+        replacements: { userId, from: f.from ?? null, to: f.to ?? null, ballId: f.ballId ?? null, patternId: f.patternId ?? null },
+      },
     );
   },
 
   /** The pattern of the bowler's latest session that has one (for the calibration shown with statistics). */
   async latestPatternId(userId: number): Promise<number | null> {
-    const s = await BowlingSession.findOne({ where: { userId, patternId: { [Op.ne]: null } }, attributes: ['patternId'], order: [['date', 'DESC'], ['id', 'DESC']] });
+    const s = await BowlingSession.findOne({
+      where: { userId, patternId: { [Op.ne]: null } },
+      attributes: ['patternId'],
+      order: [
+        ['date', 'DESC'],
+        ['id', 'DESC'],
+      ],
+    });
     return s?.patternId ?? null;
   },
 
@@ -249,6 +280,13 @@ export const sessionsRepository = {
   },
 
   annotationsOf(sessionId: number): Promise<Annotation[]> {
-    return Annotation.findAll({ where: { sessionId }, include: [{ model: User, as: 'author', attributes: ['id', 'displayName'] }], order: [['createdAt', 'ASC'], ['id', 'ASC']] });
+    return Annotation.findAll({
+      where: { sessionId },
+      include: [{ model: User, as: 'author', attributes: ['id', 'displayName'] }],
+      order: [
+        ['createdAt', 'ASC'],
+        ['id', 'ASC'],
+      ],
+    });
   },
 };

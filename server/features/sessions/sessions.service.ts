@@ -6,7 +6,16 @@ import type { LoggedDelivery } from '../../../engine/shotlog/types';
 import type { Page } from '../../../shared/auth';
 import { DEFAULT_LANE_SURFACE } from '../../../shared/centers';
 import type { AnnotationCreate, Annotation as AnnotationDto } from '../../../shared/coaching';
-import type { NumberedGame, Session as SessionDto, SessionCreate, SessionDetail, SessionListQuery, SessionPatch, ShotCreate, ShotCreated } from '../../../shared/sessions';
+import type {
+  NumberedGame,
+  Session as SessionDto,
+  SessionCreate,
+  SessionDetail,
+  SessionListQuery,
+  SessionPatch,
+  ShotCreate,
+  ShotCreated,
+} from '../../../shared/sessions';
 import { AppError } from '../../lib/AppError';
 import type { AuthUser } from '../../middleware/auth';
 import { sequelize, type BowlingSession, type Shot, type User } from '../../models/index';
@@ -20,7 +29,6 @@ import { requestCalibrationFitsAfterCommit } from '../stats/calibrationJobs';
 import { sessionsRepository, toAnnotationDto, toShotDto, toShotRecord, type ShotRow } from './sessions.repository';
 
 const notFound = () => AppError.notFound('Session');
-
 
 /**
  * The session for a request: its owner reaches it for anything; a linked coach may read it (and annotate);
@@ -40,14 +48,27 @@ async function sessionFor(user: AuthUser, id: number, mode: 'read' | 'write'): P
 /** The semantic content of a shot request: the same shot sent twice hashes the same whatever the key order or omitted defaults. */
 function requestHash(b: ShotCreate): string {
   const canonical = {
-    gameNumber: b.gameNumber, frame: b.frame, delivery: b.delivery, ballId: b.ballId,
-    feetBoard: b.feetBoard ?? null, targetBoard: b.targetBoard ?? null, breakpointBoard: b.breakpointBoard ?? null,
-    standing: [...b.standing].sort((x, y) => x - y), foul: b.foul ?? false, hit: b.hit ?? null, note: b.note ?? '',
+    gameNumber: b.gameNumber,
+    frame: b.frame,
+    delivery: b.delivery,
+    ballId: b.ballId,
+    feetBoard: b.feetBoard ?? null,
+    targetBoard: b.targetBoard ?? null,
+    breakpointBoard: b.breakpointBoard ?? null,
+    standing: [...b.standing].sort((x, y) => x - y),
+    foul: b.foul ?? false,
+    hit: b.hit ?? null,
+    note: b.note ?? '',
   };
   return createHash('sha256').update(JSON.stringify(canonical)).digest('hex');
 }
 
-const delivered = (s: Pick<Shot, 'frame' | 'delivery' | 'standing' | 'foul'>): LoggedDelivery => ({ frame: s.frame, delivery: s.delivery, standing: s.standing, foul: s.foul });
+const delivered = (s: Pick<Shot, 'frame' | 'delivery' | 'standing' | 'foul'>): LoggedDelivery => ({
+  frame: s.frame,
+  delivery: s.delivery,
+  standing: s.standing,
+  foul: s.foul,
+});
 
 function invalidShot(field: string, reason: string): AppError {
   return new AppError(400, 'invalid_shot', reason, { [`body.${field}`]: reason });
@@ -73,19 +94,35 @@ export const sessionsService = {
     if (conditionId !== null) {
       const c = await centersRepository.findConditionById(conditionId);
       if (!c) throw AppError.badRequest('That condition does not exist', { 'body.conditionId': 'Unknown condition' });
-      if (centerId !== null && centerId !== c.centerId) throw AppError.badRequest('The condition is not one of that center’s', { 'body.conditionId': 'This condition was published by another center' });
-      if (patternId !== null && c.patternId !== patternId) throw AppError.badRequest('The condition has another pattern', { 'body.patternId': 'Leave the pattern out or choose the condition’s own' });
+      if (centerId !== null && centerId !== c.centerId)
+        throw AppError.badRequest('The condition is not one of that center’s', {
+          'body.conditionId': 'This condition was published by another center',
+        });
+      if (patternId !== null && c.patternId !== patternId)
+        throw AppError.badRequest('The condition has another pattern', {
+          'body.patternId': 'Leave the pattern out or choose the condition’s own',
+        });
       centerId = c.centerId;
       patternId = c.patternId;
       patternName = c.patternName;
     }
-    if (centerId !== null && !(await centersRepository.findById(centerId))) throw AppError.badRequest('That center does not exist', { 'body.centerId': 'Unknown center' });
+    if (centerId !== null && !(await centersRepository.findById(centerId)))
+      throw AppError.badRequest('That center does not exist', { 'body.centerId': 'Unknown center' });
     if (patternId !== null && patternName === null) {
       const p = await patternsRepository.findById(patternId);
       if (!p) throw AppError.badRequest('That pattern does not exist', { 'body.patternId': 'Unknown pattern' });
       patternName = p.name;
     }
-    const s = await sessionsRepository.create({ userId: user.id, date: input.date, kind: input.kind, centerId, conditionId, patternId, patternName, notes: input.notes ?? '' });
+    const s = await sessionsRepository.create({
+      userId: user.id,
+      date: input.date,
+      kind: input.kind,
+      centerId,
+      conditionId,
+      patternId,
+      patternName,
+      notes: input.notes ?? '',
+    });
     return (await sessionsRepository.findDto(s.id))!;
   },
 
@@ -119,7 +156,11 @@ export const sessionsService = {
 
   async update(user: AuthUser, id: number, patch: SessionPatch): Promise<SessionDto> {
     const s = await sessionFor(user, id, 'write');
-    s.set({ ...(patch.notes !== undefined ? { notes: patch.notes } : {}), ...(patch.kind ? { kind: patch.kind } : {}), ...(patch.date ? { date: patch.date } : {}) });
+    s.set({
+      ...(patch.notes !== undefined ? { notes: patch.notes } : {}),
+      ...(patch.kind ? { kind: patch.kind } : {}),
+      ...(patch.date ? { date: patch.date } : {}),
+    });
     await s.save();
     return (await sessionsRepository.findDto(id))!;
   },
@@ -147,7 +188,11 @@ export const sessionsService = {
     await sessionFor(user, sessionId, 'write');
     const hash = requestHash(body);
     const replay = (row: Shot): { replayed: true; shot: ShotCreated } => {
-      if (row.requestHash !== hash) throw AppError.conflict('idempotency_conflict', 'This Idempotency-Key was already used for a different shot; send a new key for a new shot');
+      if (row.requestHash !== hash)
+        throw AppError.conflict(
+          'idempotency_conflict',
+          'This Idempotency-Key was already used for a different shot; send a new key for a new shot',
+        );
       return { replayed: true, shot: row.response as unknown as ShotCreated };
     };
     const earlier = await sessionsRepository.findShotByKey(sessionId, key);
@@ -178,7 +223,8 @@ export const sessionsService = {
       const shot = await sessionsRepository.findShot(sessionId, shotId, transaction);
       if (!shot) throw AppError.notFound('Shot');
       const game = await sessionsRepository.gameShots(sessionId, shot.gameNumber, transaction);
-      if (game.at(-1)!.id !== shot.id) throw AppError.conflict('not_last_shot', `Only the last delivery of game ${shot.gameNumber} can be undone`);
+      if (game.at(-1)!.id !== shot.id)
+        throw AppError.conflict('not_last_shot', `Only the last delivery of game ${shot.gameNumber} can be undone`);
       await shot.destroy({ transaction });
       changedAfterCommit('shots', s.userId, transaction); // the bowler's kept statistics
     });
@@ -187,8 +233,15 @@ export const sessionsService = {
   /** A note on a session, by its bowler or their linked coach. */
   async annotate(user: AuthUser, sessionId: number, input: AnnotationCreate): Promise<AnnotationDto> {
     await sessionFor(user, sessionId, 'read');
-    if (input.frame != null && input.gameNumber == null) throw AppError.badRequest('Name the game of the frame', { 'body.gameNumber': 'Give the game the frame belongs to' });
-    const a = await sessionsRepository.createAnnotation({ sessionId, authorId: user.id, gameNumber: input.gameNumber ?? null, frame: input.frame ?? null, text: input.text });
+    if (input.frame != null && input.gameNumber == null)
+      throw AppError.badRequest('Name the game of the frame', { 'body.gameNumber': 'Give the game the frame belongs to' });
+    const a = await sessionsRepository.createAnnotation({
+      sessionId,
+      authorId: user.id,
+      gameNumber: input.gameNumber ?? null,
+      frame: input.frame ?? null,
+      text: input.text,
+    });
     return toAnnotationDto(Object.assign(a, { author: { displayName: user.displayName } as User }));
   },
 };
@@ -197,18 +250,31 @@ async function insertShot(s: BowlingSession, key: string, hash: string, body: Sh
   const ball = await arsenalRepository.findOwned(s.userId, body.ballId, { transaction });
   if (!ball) throw invalidShot('ballId', 'This ball is not in your arsenal');
   const last = await sessionsRepository.lastGameNumber(s.id, transaction);
-  if (body.gameNumber > last + 1) throw invalidShot('gameNumber', `game ${body.gameNumber} cannot start yet: the next new game is game ${last + 1}`);
+  if (body.gameNumber > last + 1)
+    throw invalidShot('gameNumber', `game ${body.gameNumber} cannot start yet: the next new game is game ${last + 1}`);
   const prior = (await sessionsRepository.gameShots(s.id, body.gameNumber, transaction)).map(delivered);
   const next: LoggedDelivery = { frame: body.frame, delivery: body.delivery, standing: body.standing, foul: body.foul ?? false };
   const check = checkDelivery(prior, next);
   if (!check.ok) throw invalidShot(check.field, check.reason);
   const row = await sessionsRepository.createShot(
     {
-      sessionId: s.id, gameNumber: body.gameNumber, frame: body.frame, delivery: body.delivery, ballId: ball.id,
-      surfaceGrit: ball.surfaceGrit, surfacePolished: ball.polished, surfaceKey: surfaceWords(ball.surfaceGrit, ball.polished),
-      feetBoard: body.feetBoard ?? null, targetBoard: body.targetBoard ?? null, breakpointBoard: body.breakpointBoard ?? null,
-      standing: [...body.standing].sort((a, b) => a - b), foul: body.foul ?? false, hit: body.hit ?? null, note: body.note ?? '',
-      idempotencyKey: key, requestHash: hash,
+      sessionId: s.id,
+      gameNumber: body.gameNumber,
+      frame: body.frame,
+      delivery: body.delivery,
+      ballId: ball.id,
+      surfaceGrit: ball.surfaceGrit,
+      surfacePolished: ball.polished,
+      surfaceKey: surfaceWords(ball.surfaceGrit, ball.polished),
+      feetBoard: body.feetBoard ?? null,
+      targetBoard: body.targetBoard ?? null,
+      breakpointBoard: body.breakpointBoard ?? null,
+      standing: [...body.standing].sort((a, b) => a - b),
+      foul: body.foul ?? false,
+      hit: body.hit ?? null,
+      note: body.note ?? '',
+      idempotencyKey: key,
+      requestHash: hash,
     },
     transaction,
   );
@@ -216,7 +282,9 @@ async function insertShot(s: BowlingSession, key: string, hash: string, body: Sh
   // lanes it was bowled on (the session's published condition, else the default surface), once the shot is committed.
   if (s.patternId && isCalibrationShot(body)) {
     const patternId = s.patternId;
-    requestCalibrationFitsAfterCommit(transaction, () => [s.conditionId ? { bowlerId: s.userId, conditionId: s.conditionId } : { bowlerId: s.userId, patternId, lane: DEFAULT_LANE_SURFACE }]);
+    requestCalibrationFitsAfterCommit(transaction, () => [
+      s.conditionId ? { bowlerId: s.userId, conditionId: s.conditionId } : { bowlerId: s.userId, patternId, lane: DEFAULT_LANE_SURFACE },
+    ]);
   }
   const item = (await sessionsRepository.shotDto(row.id, transaction))!;
   const response: ShotCreated = { item, game: { ...buildGame([...prior, next]), number: body.gameNumber } };

@@ -10,7 +10,10 @@ import { AppError } from '../../lib/AppError';
  */
 const id = z.string({ error: 'an id (string)' }).min(1).max(255);
 const metadata = z.record(z.string(), z.string()).nullable().optional();
-const ref = z.union([z.string().max(255), z.object({ id }).passthrough()]).nullable().optional();
+const ref = z
+  .union([z.string().max(255), z.object({ id }).passthrough()])
+  .nullable()
+  .optional();
 const cents = z.number({ error: 'an amount in cents' }).int().min(0);
 
 const Envelope = z
@@ -34,11 +37,30 @@ const Session = z
   .passthrough();
 
 const Intent = z
-  .object({ id, metadata, last_payment_error: z.object({ message: z.string().max(2000).optional() }).passthrough().nullable().optional() })
+  .object({
+    id,
+    metadata,
+    last_payment_error: z
+      .object({ message: z.string().max(2000).optional() })
+      .passthrough()
+      .nullable()
+      .optional(),
+  })
   .passthrough();
 
 const Charge = z
-  .object({ id, metadata, payment_intent: ref, amount: cents, amount_refunded: cents, refunds: z.object({ data: z.array(z.object({ id }).passthrough()) }).passthrough().nullable().optional() })
+  .object({
+    id,
+    metadata,
+    payment_intent: ref,
+    amount: cents,
+    amount_refunded: cents,
+    refunds: z
+      .object({ data: z.array(z.object({ id }).passthrough()) })
+      .passthrough()
+      .nullable()
+      .optional(),
+  })
   .passthrough();
 
 const OBJECT_OF: Record<string, z.ZodType> = {
@@ -57,7 +79,13 @@ export function checkEvent(event: unknown): Stripe.Event {
   const schema = OBJECT_OF[env.data.type];
   if (schema) {
     const obj = schema.safeParse(env.data.data.object);
-    if (!obj.success) throw new AppError(400, 'invalid_event', `The ${env.data.type} event's object is not well formed`, fieldErrors('body.data.object', obj.error));
+    if (!obj.success)
+      throw new AppError(
+        400,
+        'invalid_event',
+        `The ${env.data.type} event's object is not well formed`,
+        fieldErrors('body.data.object', obj.error),
+      );
   }
   return event as Stripe.Event;
 }

@@ -39,7 +39,10 @@ export async function runAutoRefund(paymentId: number, why: string): Promise<'re
   const stripe = await stripeClient();
   let refundId: string | null = null;
   try {
-    const refund = await stripe.refunds.create({ payment_intent: payment.paymentIntentId, reason: 'duplicate', metadata: { orderId: String(payment.orderId), why } }, { idempotencyKey: `lanewright-auto-refund-${payment.id}` });
+    const refund = await stripe.refunds.create(
+      { payment_intent: payment.paymentIntentId, reason: 'duplicate', metadata: { orderId: String(payment.orderId), why } },
+      { idempotencyKey: `lanewright-auto-refund-${payment.id}` },
+    );
     refundId = refund.id;
   } catch (err) {
     // Refunded already (by an earlier run whose answer was lost, or by hand at the service): done.
@@ -47,7 +50,16 @@ export async function runAutoRefund(paymentId: number, why: string): Promise<'re
   }
   await sequelize.transaction(async (transaction) => {
     await shopRepository.setRefundId(payment.id, refundId ?? payment.refundId, transaction);
-    await audit({ actorId: null, action: 'payment.auto_refunded', subjectType: 'order', subjectId: payment.orderId, details: { paymentId: payment.id, refundId, why } }, transaction);
+    await audit(
+      {
+        actorId: null,
+        action: 'payment.auto_refunded',
+        subjectType: 'order',
+        subjectId: payment.orderId,
+        details: { paymentId: payment.id, refundId, why },
+      },
+      transaction,
+    );
   });
   logger.info({ paymentId, refundId }, 'automatic refund done');
   return 'refunded';
@@ -58,12 +70,21 @@ export async function runAutoRefund(paymentId: number, why: string): Promise<'re
  * charge.refunded webhook, whichever comes first; the other finds it done. Also safe before the payment's
  * completion arrives (the late completion does not undo it). Returns whether this call made the change.
  */
-export async function markRefunded(orderId: number, info: { intentId: string | null; refundId: string | null; amountCents: number | null; actor: Actor; base: string }, transaction: Transaction): Promise<boolean> {
+export async function markRefunded(
+  orderId: number,
+  info: { intentId: string | null; refundId: string | null; amountCents: number | null; actor: Actor; base: string },
+  transaction: Transaction,
+): Promise<boolean> {
   const order = await shopRepository.lockOrder(orderId, transaction);
   if (!order) return false;
   const payment = info.intentId ? await shopRepository.paymentByIntent(info.intentId, transaction) : null;
   if (payment && payment.orderId === order.id) {
-    payment.set({ status: 'refunded', refundId: info.refundId ?? payment.refundId, refundedCents: info.amountCents ?? payment.amountCents, refundedAt: payment.refundedAt ?? new Date() });
+    payment.set({
+      status: 'refunded',
+      refundId: info.refundId ?? payment.refundId,
+      refundedCents: info.amountCents ?? payment.amountCents,
+      refundedAt: payment.refundedAt ?? new Date(),
+    });
     await payment.save({ transaction });
     // A second payment of the same order was refunded: the order itself stands.
     if (payment.checkoutSessionId && (await isDuplicate(order, payment, transaction))) return false;
@@ -78,7 +99,16 @@ export async function markRefunded(orderId: number, info: { intentId: string | n
   order.set({ status: 'refunded', paymentStatus: 'refunded', refundedAt: now });
   await order.save({ transaction });
   await shopRepository.addEvent(order.id, 'refunded', info.actor, transaction);
-  await audit({ actorId: info.actor?.id ?? null, action: 'order.refunded', subjectType: 'order', subjectId: order.id, details: { amountCents: order.amountCents, currency: order.currency, refundId: info.refundId, intentId: info.intentId } }, transaction);
+  await audit(
+    {
+      actorId: info.actor?.id ?? null,
+      action: 'order.refunded',
+      subjectType: 'order',
+      subjectId: order.id,
+      details: { amountCents: order.amountCents, currency: order.currency, refundId: info.refundId, intentId: info.intentId },
+    },
+    transaction,
+  );
   await enqueueOrderMail('refunded', order, info.base, transaction);
   return true;
 }
@@ -89,21 +119,37 @@ async function isDuplicate(order: Order, payment: Payment, transaction: Transact
   return all.some((p) => p.id !== payment.id && p.paidAt && payment.paidAt && p.paidAt < payment.paidAt && p.status !== 'refunded');
 }
 
-async function onCompleted(session: Stripe.Checkout.Session, base: string, transaction: Transaction): Promise<{ orderId: number | null; outcome: string }> {
+async function onCompleted(
+  session: Stripe.Checkout.Session,
+  base: string,
+  transaction: Transaction,
+): Promise<{ orderId: number | null; outcome: string }> {
   const orderId = orderIdOf(session);
   if (!orderId) return { orderId: null, outcome: 'not_ours' };
   const order = await shopRepository.lockOrder(orderId, transaction);
   if (!order) return { orderId: null, outcome: 'unknown_order' };
   if (session.payment_status !== 'paid') return { orderId, outcome: `awaiting_${session.payment_status}` };
   if (session.amount_total !== order.amountCents || session.currency !== order.currency) {
-    await audit({ actorId: null, action: 'payment.amount_mismatch', subjectType: 'order', subjectId: order.id, details: { sessionId: session.id, amount: session.amount_total, currency: session.currency } }, transaction);
+    await audit(
+      {
+        actorId: null,
+        action: 'payment.amount_mismatch',
+        subjectType: 'order',
+        subjectId: order.id,
+        details: { sessionId: session.id, amount: session.amount_total, currency: session.currency },
+      },
+      transaction,
+    );
     logger.error({ orderId, sessionId: session.id }, 'a completed checkout does not match the order amount; not marked paid');
     return { orderId, outcome: 'amount_mismatch' };
   }
   const now = new Date();
   const intentId = idOf(session.payment_intent);
   let payment = await shopRepository.paymentBySession(session.id, transaction);
-  payment ??= await shopRepository.createPayment({ orderId, checkoutSessionId: session.id, amountCents: order.amountCents, currency: order.currency }, transaction);
+  payment ??= await shopRepository.createPayment(
+    { orderId, checkoutSessionId: session.id, amountCents: order.amountCents, currency: order.currency },
+    transaction,
+  );
   const others = (await shopRepository.payments(orderId, transaction)).filter((p) => p.id !== payment.id && p.paidAt);
   payment.set({ paymentIntentId: intentId, paidAt: payment.paidAt ?? now, ...(payment.status === 'refunded' ? {} : { status: 'paid' }) });
 
@@ -112,7 +158,16 @@ async function onCompleted(session: Stripe.Checkout.Session, base: string, trans
     await payment.save({ transaction });
     await order.save({ transaction });
     await shopRepository.addEvent(order.id, 'paid', null, transaction);
-    await audit({ actorId: null, action: 'order.paid', subjectType: 'order', subjectId: order.id, details: { amountCents: order.amountCents, currency: order.currency, sessionId: session.id, intentId } }, transaction);
+    await audit(
+      {
+        actorId: null,
+        action: 'order.paid',
+        subjectType: 'order',
+        subjectId: order.id,
+        details: { amountCents: order.amountCents, currency: order.currency, sessionId: session.id, intentId },
+      },
+      transaction,
+    );
     await enqueueOrderMail('receipt', order, base, transaction);
     return { orderId, outcome: 'paid' };
   }
@@ -127,21 +182,39 @@ async function onCompleted(session: Stripe.Checkout.Session, base: string, trans
   }
   if (order.status === 'cancelled' || others.length > 0) {
     await payment.save({ transaction });
-    await queueAutoRefund(transaction, payment, order.status === 'cancelled' ? 'paid after the order was cancelled' : 'second payment of one order');
-    await audit({ actorId: null, action: 'payment.refund_needed', subjectType: 'order', subjectId: order.id, details: { sessionId: session.id, intentId, orderStatus: order.status } }, transaction);
+    await queueAutoRefund(
+      transaction,
+      payment,
+      order.status === 'cancelled' ? 'paid after the order was cancelled' : 'second payment of one order',
+    );
+    await audit(
+      {
+        actorId: null,
+        action: 'payment.refund_needed',
+        subjectType: 'order',
+        subjectId: order.id,
+        details: { sessionId: session.id, intentId, orderStatus: order.status },
+      },
+      transaction,
+    );
     return { orderId, outcome: order.status === 'cancelled' ? 'paid_after_cancel_refunding' : 'duplicate_payment_refunding' };
   }
   await payment.save({ transaction });
   return { orderId, outcome: 'already_paid' };
 }
 
-async function onFailed(obj: { metadata?: Stripe.Metadata | null; client_reference_id?: string | null }, message: string, transaction: Transaction): Promise<{ orderId: number | null; outcome: string }> {
+async function onFailed(
+  obj: { metadata?: Stripe.Metadata | null; client_reference_id?: string | null },
+  message: string,
+  transaction: Transaction,
+): Promise<{ orderId: number | null; outcome: string }> {
   const orderId = orderIdOf(obj);
   if (!orderId) return { orderId: null, outcome: 'not_ours' };
   const order = await shopRepository.lockOrder(orderId, transaction);
   if (!order) return { orderId: null, outcome: 'unknown_order' };
   // A failure that arrives after the success (or after a refund or cancellation) changes nothing.
-  if (order.status !== 'ordered' || order.paymentStatus === 'paid' || order.paymentStatus === 'refunded') return { orderId, outcome: 'ignored_not_payable' };
+  if (order.status !== 'ordered' || order.paymentStatus === 'paid' || order.paymentStatus === 'refunded')
+    return { orderId, outcome: 'ignored_not_payable' };
   order.set({ paymentStatus: 'failed', lastPaymentError: message.slice(0, 500) });
   await order.save({ transaction });
   await audit({ actorId: null, action: 'payment.failed', subjectType: 'order', subjectId: order.id, details: { message } }, transaction);
@@ -166,7 +239,11 @@ async function onExpired(session: Stripe.Checkout.Session, transaction: Transact
   return { orderId: payment.orderId, outcome: 'expired' };
 }
 
-async function onChargeRefunded(charge: Stripe.Charge, base: string, transaction: Transaction): Promise<{ orderId: number | null; outcome: string }> {
+async function onChargeRefunded(
+  charge: Stripe.Charge,
+  base: string,
+  transaction: Transaction,
+): Promise<{ orderId: number | null; outcome: string }> {
   const intentId = idOf(charge.payment_intent);
   const payment = intentId ? await shopRepository.paymentByIntent(intentId, transaction) : null;
   const orderId = payment?.orderId ?? orderIdOf(charge);

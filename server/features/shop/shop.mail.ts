@@ -5,7 +5,6 @@ import { enqueueMail } from '../../lib/outbox';
 import type { Order } from '../../models/index';
 import { shopRepository } from './shop.repository';
 
-
 type Kind = 'receipt' | 'ready' | 'refunded';
 
 const SUBJECT: Record<Kind, (o: Order, center: string) => string> = {
@@ -32,10 +31,15 @@ export async function enqueueOrderMail(kind: Kind, order: Order, base: string, t
     ],
     ready: [
       `${order.ballName} is ready to collect at ${center.name} (${order.serviceName}).`,
-      ...(order.grit && order.serviceKind === 'resurface' ? [`Its surface is now ${order.grit} grit; your ball page and matchups use the new surface.`] : []),
+      ...(order.grit && order.serviceKind === 'resurface'
+        ? [`Its surface is now ${order.grit} grit; your ball page and matchups use the new surface.`]
+        : []),
       ...(order.serviceKind === 'polish' ? ['It is now polished; your ball page and matchups use the new surface.'] : []),
     ],
-    refunded: [`${center.name} has refunded order #${order.id} (${order.serviceName}, ${order.ballName}): ${amount} back to your card.`, 'Card refunds usually show within 5–10 business days.'],
+    refunded: [
+      `${center.name} has refunded order #${order.id} (${order.serviceName}, ${order.ballName}): ${amount} back to your card.`,
+      'Card refunds usually show within 5–10 business days.',
+    ],
   };
   const lines = [`Hello ${bowler.displayName},`, '', ...body[kind], '', `Your order: ${page}`];
   await enqueueMail(

@@ -3,7 +3,18 @@ import { SERVICE_KINDS, type Order as OrderDto, type OrderStatus, type ShopServi
 import { Center, Order, OrderEvent, Payment, PaymentEvent, sequelize, ShopService, User } from '../../models/index';
 
 export function toServiceDto(s: ShopService): ShopServiceDto {
-  return { id: s.id, centerId: s.centerId, kind: s.kind, name: s.name, grit: s.grit, description: s.description, priceCents: s.priceCents, currency: s.currency, active: s.active, version: s.version };
+  return {
+    id: s.id,
+    centerId: s.centerId,
+    kind: s.kind,
+    name: s.name,
+    grit: s.grit,
+    description: s.description,
+    priceCents: s.priceCents,
+    currency: s.currency,
+    active: s.active,
+    version: s.version,
+  };
 }
 
 type OrderRow = Order & { bowler?: User; center?: Center; events?: OrderEvent[] };
@@ -34,7 +45,9 @@ export function toOrderDto(o: OrderRow): OrderDto {
     collectedAt: iso(o.collectedAt),
     refundedAt: iso(o.refundedAt),
     cancelledAt: iso(o.cancelledAt),
-    history: [...(o.events ?? [])].sort((a, b) => a.at.getTime() - b.at.getTime() || a.id - b.id).map((e) => ({ status: e.status, at: e.at.toISOString(), by: e.byName })),
+    history: [...(o.events ?? [])]
+      .sort((a, b) => a.at.getTime() - b.at.getTime() || a.id - b.id)
+      .map((e) => ({ status: e.status, at: e.at.toISOString(), by: e.byName })),
   };
 }
 
@@ -74,11 +87,38 @@ export const shopRepository = {
   },
   async page(where: WhereOptions<Order>, page: number, pageSize: number): Promise<{ rows: OrderRow[]; count: number }> {
     const count = await Order.count({ where });
-    const ids = (await Order.findAll({ where, attributes: ['id'], order: [['createdAt', 'DESC'], ['id', 'DESC']], limit: pageSize, offset: (page - 1) * pageSize })).map((o) => o.id);
-    const rows = ids.length ? ((await Order.findAll({ where: { id: ids }, include: orderIncludes, order: [['createdAt', 'DESC'], ['id', 'DESC']] })) as OrderRow[]) : [];
+    const ids = (
+      await Order.findAll({
+        where,
+        attributes: ['id'],
+        order: [
+          ['createdAt', 'DESC'],
+          ['id', 'DESC'],
+        ],
+        limit: pageSize,
+        offset: (page - 1) * pageSize,
+      })
+    ).map((o) => o.id);
+    const rows = ids.length
+      ? ((await Order.findAll({
+          where: { id: ids },
+          include: orderIncludes,
+          order: [
+            ['createdAt', 'DESC'],
+            ['id', 'DESC'],
+          ],
+        })) as OrderRow[])
+      : [];
     return { rows, count };
   },
-  addEvent(orderId: number, status: OrderStatus, by: { id: number; displayName: string } | null, transaction: Transaction, note: string | null = null, at = new Date()): Promise<OrderEvent> {
+  addEvent(
+    orderId: number,
+    status: OrderStatus,
+    by: { id: number; displayName: string } | null,
+    transaction: Transaction,
+    note: string | null = null,
+    at = new Date(),
+  ): Promise<OrderEvent> {
     return OrderEvent.create({ orderId, status, at, byUserId: by?.id ?? null, byName: by?.displayName ?? null, note }, { transaction });
   },
   payments(orderId: number, transaction?: Transaction): Promise<Payment[]> {
@@ -95,10 +135,13 @@ export const shopRepository = {
   },
   /** Records a payment-service event id; false when it was recorded before (a duplicate delivery). */
   async claimEvent(eventId: string, type: string, transaction: Transaction): Promise<boolean> {
-    const [rows] = await sequelize.query('INSERT INTO payment_events (event_id, type, received_at) VALUES (:id, :type, now()) ON CONFLICT (event_id) DO NOTHING RETURNING event_id', {
-      replacements: { id: eventId, type },
-      transaction,
-    });
+    const [rows] = await sequelize.query(
+      'INSERT INTO payment_events (event_id, type, received_at) VALUES (:id, :type, now()) ON CONFLICT (event_id) DO NOTHING RETURNING event_id',
+      {
+        replacements: { id: eventId, type },
+        transaction,
+      },
+    );
     return (rows as unknown[]).length > 0;
   },
   async recordEventOutcome(eventId: string, orderId: number | null, outcome: string, transaction: Transaction): Promise<void> {

@@ -16,7 +16,10 @@ export type FitRequest = { bowlerId: number; conditionId: number } | { bowlerId:
 /** Asks the worker for a fit (at most one queued per bowler and subject; the job reads the newest input when it runs). */
 export async function requestCalibrationFit(req: FitRequest): Promise<void> {
   const subject = 'conditionId' in req ? `condition-${req.conditionId}` : `pattern-${req.patternId}-${req.lane.kind}-${req.lane.friction}`;
-  const data = 'conditionId' in req ? { bowlerId: req.bowlerId, conditionId: req.conditionId } : { bowlerId: req.bowlerId, patternId: req.patternId, laneKind: req.lane.kind, laneFriction: req.lane.friction };
+  const data =
+    'conditionId' in req
+      ? { bowlerId: req.bowlerId, conditionId: req.conditionId }
+      : { bowlerId: req.bowlerId, patternId: req.patternId, laneKind: req.lane.kind, laneFriction: req.lane.friction };
   await sendJob('calibration', `${req.bowlerId}:${subject}:${Date.now()}`, data, { singletonKey: `${req.bowlerId}:${subject}` });
 }
 
@@ -26,7 +29,10 @@ export async function requestCalibrationFit(req: FitRequest): Promise<void> {
  * either finds a job that has not started (it will read the change) or queues a new one. A request lost to a crash
  * right after the commit is made again by the next reader, who finds the stored fit's input out of date.
  */
-export function requestCalibrationFitsAfterCommit(transaction: Transaction | null | undefined, reqs: () => Promise<FitRequest[]> | FitRequest[]): void {
+export function requestCalibrationFitsAfterCommit(
+  transaction: Transaction | null | undefined,
+  reqs: () => Promise<FitRequest[]> | FitRequest[],
+): void {
   const send = () =>
     void Promise.resolve()
       .then(reqs)
@@ -39,10 +45,16 @@ export function requestCalibrationFitsAfterCommit(transaction: Transaction | nul
 /** After a change to what a bowler's stored fits were made of (a ball's surface or specs, the release): a refit of each, once committed. */
 export function refitBowlerAfterCommit(bowlerId: number, transaction?: Transaction | null): void {
   requestCalibrationFitsAfterCommit(transaction, async () => {
-    const rows = await CalibrationFit.findAll({ where: { bowlerId }, attributes: ['patternId', 'laneKind', 'laneFriction', 'conditionId'], useMaster: true });
+    const rows = await CalibrationFit.findAll({
+      where: { bowlerId },
+      attributes: ['patternId', 'laneKind', 'laneFriction', 'conditionId'],
+      useMaster: true,
+    });
     const seen = new Map<string, FitRequest>();
     for (const r of rows) {
-      const req: FitRequest = r.conditionId ? { bowlerId, conditionId: r.conditionId } : { bowlerId, patternId: r.patternId, lane: { kind: r.laneKind, friction: r.laneFriction } };
+      const req: FitRequest = r.conditionId
+        ? { bowlerId, conditionId: r.conditionId }
+        : { bowlerId, patternId: r.patternId, lane: { kind: r.laneKind, friction: r.laneFriction } };
       seen.set(JSON.stringify(req), req);
     }
     return [...seen.values()];

@@ -65,7 +65,16 @@ export function observationsOf(rows: ShotRow[], balls: Map<number, Ball>): Calib
   // Newest first, so each ball keeps its most recent shots.
   for (const r of [...rows].reverse()) {
     if (r.feet_board == null || r.target_board == null) continue;
-    if (!isCalibrationShot({ delivery: r.delivery, feetBoard: r.feet_board, targetBoard: r.target_board, breakpointBoard: r.breakpoint_board, hit: r.hit })) continue;
+    if (
+      !isCalibrationShot({
+        delivery: r.delivery,
+        feetBoard: r.feet_board,
+        targetBoard: r.target_board,
+        breakpointBoard: r.breakpoint_board,
+        hit: r.hit,
+      })
+    )
+      continue;
     const b = balls.get(r.ball_id);
     if (!b || (perBall.get(b.id) ?? 0) >= CALIBRATION_SHOTS_PER_BALL) continue;
     perBall.set(b.id, (perBall.get(b.id) ?? 0) + 1);
@@ -86,13 +95,21 @@ type FitInput = { bowler: BowlerProfile; pattern: OilPattern; observations: Cali
 const sha256 = (v: unknown) => createHash('sha256').update(JSON.stringify(v)).digest('hex');
 
 /** A fit computed now, in the engine worker pool (nothing to fit is instant and stays on this thread). Used by the `calibration` job. */
-export async function calibrate(input: { bowler: BowlerProfile; pattern: OilPattern; observations: CalibrationObservation[]; lane?: LaneSurface }): Promise<Calibration> {
+export async function calibrate(input: {
+  bowler: BowlerProfile;
+  pattern: OilPattern;
+  observations: CalibrationObservation[];
+  lane?: LaneSurface;
+}): Promise<Calibration> {
   if (input.observations.length === 0) return fitCalibration(input);
   return calibrateInWorker(input);
 }
 
 /** What a stored fit is about besides the bowler and the pattern id: the lane surface and the pattern's sweeps as fitted (a condition's as published). */
-function subjectOf(pattern: OilPattern, lane: LaneSurface): { laneKind: LaneSurface['kind']; laneFriction: LaneSurface['friction']; patternHash: string } {
+function subjectOf(
+  pattern: OilPattern,
+  lane: LaneSurface,
+): { laneKind: LaneSurface['kind']; laneFriction: LaneSurface['friction']; patternHash: string } {
   return { laneKind: lane.kind, laneFriction: lane.friction, patternHash: sha256(pattern) };
 }
 
@@ -103,7 +120,11 @@ function subjectOf(pattern: OilPattern, lane: LaneSurface): { laneKind: LaneSurf
 const observationsCache = new ScopedCache<CalibrationObservation[]>(['shots', 'balls'], { ttlMs: config.CACHE_TTL_MS, maxIds: 5_000 });
 
 /** The observations of the bowler's shots on a pattern, from rows already read (`rows`) or read now. */
-async function observationsFor(bowlerId: number, patternId: number, rows?: { rows: ShotRow[]; ticket: CacheTicket }): Promise<CalibrationObservation[]> {
+async function observationsFor(
+  bowlerId: number,
+  patternId: number,
+  rows?: { rows: ShotRow[]; ticket: CacheTicket },
+): Promise<CalibrationObservation[]> {
   const key = String(patternId);
   if (!rows) {
     const hit = observationsCache.get(bowlerId, key);
@@ -112,7 +133,9 @@ async function observationsFor(bowlerId: number, patternId: number, rows?: { row
   const ticket = rows?.ticket ?? observationsCache.ticket(bowlerId);
   const shots = rows?.rows ?? (await sessionsRepository.shotsForStats(bowlerId, { patternId }));
   const ids = [...new Set(shots.map((r) => r.ball_id))];
-  const balls = new Map((ids.length ? await Ball.findAll({ where: { ownerId: bowlerId, id: { [Op.in]: ids } }, paranoid: false }) : []).map((b) => [b.id, b]));
+  const balls = new Map(
+    (ids.length ? await Ball.findAll({ where: { ownerId: bowlerId, id: { [Op.in]: ids } }, paranoid: false }) : []).map((b) => [b.id, b]),
+  );
   const observations = observationsOf(shots, balls);
   if (!hasReplicas) observationsCache.set(ticket, key, observations);
   return observations;
@@ -125,7 +148,11 @@ async function fitInput(
   known: { rows?: ShotRow[]; rowsTicket?: CacheTicket; pattern?: OilPattern; bowler?: BowlerProfile; lane?: LaneSurface } = {},
 ): Promise<FitInput> {
   const pattern = known.pattern ?? (await patternsService.engineInput(patternId)).pattern;
-  const observations = await observationsFor(bowlerId, patternId, known.rows ? { rows: known.rows, ticket: known.rowsTicket ?? observationsCache.ticket(bowlerId) } : undefined);
+  const observations = await observationsFor(
+    bowlerId,
+    patternId,
+    known.rows ? { rows: known.rows, ticket: known.rowsTicket ?? observationsCache.ticket(bowlerId) } : undefined,
+  );
   const lane = known.lane ?? DEFAULT_LANE_SURFACE;
   return { bowler: known.bowler ?? (await bowlerOf(bowlerId)), pattern, observations, lane: { kind: lane.kind, friction: lane.friction } };
 }
@@ -133,7 +160,9 @@ async function fitInput(
 /** The input of the fit a request names, with the pattern id its shots are logged on; null when the pattern or condition is gone. */
 async function requestedInput(req: FitRequest): Promise<{ patternId: number; input: FitInput } | null> {
   try {
-    const on = await engineCondition('conditionId' in req ? { conditionId: req.conditionId } : { patternId: req.patternId, lane: req.lane });
+    const on = await engineCondition(
+      'conditionId' in req ? { conditionId: req.conditionId } : { patternId: req.patternId, lane: req.lane },
+    );
     if (on.patternId === null) return null; // the condition's pattern was deleted: no shots to fit
     return { patternId: on.patternId, input: await fitInput(req.bowlerId, on.patternId, { pattern: on.pattern, lane: on.lane }) };
   } catch (err) {
@@ -158,7 +187,15 @@ export async function runCalibrationFit(req: FitRequest): Promise<'fitted' | 'cu
   const started = Date.now();
   const fit = await calibrate(input);
   const fitMs = Date.now() - started;
-  await CalibrationFit.upsert({ ...key, conditionId: 'conditionId' in req ? req.conditionId : null, inputHash: hash, calibration: fit as unknown as Record<string, unknown>, shots: fit.shots, fittedAt: new Date(), fitMs });
+  await CalibrationFit.upsert({
+    ...key,
+    conditionId: 'conditionId' in req ? req.conditionId : null,
+    inputHash: hash,
+    calibration: fit as unknown as Record<string, unknown>,
+    shots: fit.shots,
+    fittedAt: new Date(),
+    fitMs,
+  });
   calibrationFitSeconds.observe(fitMs / 1000);
   const now = await requestedInput(req);
   if (now && sha256(now.input) !== hash) await requestCalibrationFit(req);
@@ -175,13 +212,22 @@ export async function runCalibrationFit(req: FitRequest): Promise<'fitted' | 'cu
 export async function calibrationFor(
   bowlerId: number,
   patternId: number,
-  known: { rows?: ShotRow[]; rowsTicket?: CacheTicket; pattern?: OilPattern; bowler?: BowlerProfile; lane?: LaneSurface; conditionId?: number } = {},
+  known: {
+    rows?: ShotRow[];
+    rowsTicket?: CacheTicket;
+    pattern?: OilPattern;
+    bowler?: BowlerProfile;
+    lane?: LaneSurface;
+    conditionId?: number;
+  } = {},
 ): Promise<Calibration> {
   const input = await fitInput(bowlerId, patternId, known);
   if (input.observations.length === 0) return fitCalibration(input);
   const stored = await CalibrationFit.findOne({ where: { bowlerId, patternId, ...subjectOf(input.pattern, input.lane) } });
   if (stored?.inputHash !== sha256(input)) {
-    await requestCalibrationFit(known.conditionId !== undefined ? { bowlerId, conditionId: known.conditionId } : { bowlerId, patternId, lane: input.lane });
+    await requestCalibrationFit(
+      known.conditionId !== undefined ? { bowlerId, conditionId: known.conditionId } : { bowlerId, patternId, lane: input.lane },
+    );
   }
   if (stored) return stored.calibration as unknown as Calibration;
   return {
@@ -232,17 +278,33 @@ const statsCache = new ScopedCache<StatsParts>(['shots', 'balls'], { ttlMs: conf
 /** Season computations running at once in this process (one reading its shots while one is on the stats thread). */
 export const SEASONS_AT_ONCE = 2;
 const seasonLimit = pLimit(SEASONS_AT_ONCE);
-const inFlight = new Map<string, { ticket: CacheTicket; answer: Promise<{ parts: StatsParts; rowsForCalibration?: { rows: ShotRow[]; ticket: CacheTicket } }> }>();
+const inFlight = new Map<
+  string,
+  { ticket: CacheTicket; answer: Promise<{ parts: StatsParts; rowsForCalibration?: { rows: ShotRow[]; ticket: CacheTicket } }> }
+>();
 
 /**
  * The statistics of the bowler's shots under a filter: the bowler's shots read once (shared with the calibration,
  * whose pattern's rows are handed back), computed on the stats thread, kept.
  */
-async function computeParts(bowlerId: number, q: StatsQuery, key: string, hand: 'right' | 'left', calibrationPatternId: number | null, ticket: CacheTicket) {
+async function computeParts(
+  bowlerId: number,
+  q: StatsQuery,
+  key: string,
+  hand: 'right' | 'left',
+  calibrationPatternId: number | null,
+  ticket: CacheTicket,
+) {
   const kept = statsCache.get(bowlerId, key); // a computation that finished while this one waited for its turn
   if (kept) return { parts: kept };
   const all = await sessionsRepository.shotsForStats(bowlerId, {});
-  const rows = all.filter((r) => (!q.from || r.date! >= q.from) && (!q.to || r.date! <= q.to) && (!q.ballId || r.ball_id === q.ballId) && (!q.patternId || r.pattern_id === q.patternId));
+  const rows = all.filter(
+    (r) =>
+      (!q.from || r.date! >= q.from) &&
+      (!q.to || r.date! <= q.to) &&
+      (!q.ballId || r.ball_id === q.ballId) &&
+      (!q.patternId || r.pattern_id === q.patternId),
+  );
   const records: ShotRecord[] = rows.map((r) => toShotRecord(r, r.date!));
   const computed = await statsInWorker({ records, hand });
   const names = new Map(rows.map((r) => [String(r.ball_id), shotBallName(r)]));
@@ -251,19 +313,38 @@ async function computeParts(bowlerId: number, q: StatsQuery, key: string, hand: 
     overall: computed.overall,
     byBall: computed.byBall.map((g) => ({ ballId: Number(g.key), name: names.get(g.key) ?? '', stats: g.stats })),
     // Grouped within each full game, so a spare thrown with another ball keeps its leave.
-    bySurface: computed.bySurface.map((g) => ({ ballId: Number(g.keys.ballId), name: names.get(g.keys.ballId!) ?? '', surfaceKey: g.keys.surfaceKey!, stats: g.stats })),
+    bySurface: computed.bySurface.map((g) => ({
+      ballId: Number(g.keys.ballId),
+      name: names.get(g.keys.ballId!) ?? '',
+      surfaceKey: g.keys.surfaceKey!,
+      stats: g.stats,
+    })),
     trend: computed.bySession
-      .map((g) => ({ sessionId: Number(g.key), date: dates.get(g.key)!, games: g.stats.games, average: g.stats.average, strikePct: g.stats.strike.pct, sparePct: g.stats.spare.pct }))
+      .map((g) => ({
+        sessionId: Number(g.key),
+        date: dates.get(g.key)!,
+        games: g.stats.games,
+        average: g.stats.average,
+        strikePct: g.stats.strike.pct,
+        sparePct: g.stats.spare.pct,
+      }))
       .sort((a, b) => a.date.localeCompare(b.date) || a.sessionId - b.sessionId),
     moves: computed.moves,
   };
   if (!hasReplicas) statsCache.set(ticket, key, parts);
-  return { parts, ...(calibrationPatternId !== null ? { rowsForCalibration: { rows: all.filter((r) => r.pattern_id === calibrationPatternId), ticket } } : {}) };
+  return {
+    parts,
+    ...(calibrationPatternId !== null
+      ? { rowsForCalibration: { rows: all.filter((r) => r.pattern_id === calibrationPatternId), ticket } }
+      : {}),
+  };
 }
 
 // A session saved, deleted or restored in this process drops its bowler's kept statistics when it commits.
 for (const hook of ['afterSave', 'afterDestroy', 'afterRestore'] as const) {
-  BowlingSession.addHook(hook, (session: BowlingSession, options: { transaction?: Transaction | null }) => changedAfterCommit('shots', session.userId, options.transaction));
+  BowlingSession.addHook(hook, (session: BowlingSession, options: { transaction?: Transaction | null }) =>
+    changedAfterCommit('shots', session.userId, options.transaction),
+  );
 }
 
 export const statsService = {
@@ -276,7 +357,10 @@ export const statsService = {
    */
   async stats(user: AuthUser, q: StatsQuery): Promise<StatsResult> {
     const bowlerId = await readableBowlerId(user, q.studentId);
-    const [{ hand }, latestPattern] = await Promise.all([bowlerOf(bowlerId), q.patternId ? Promise.resolve(q.patternId) : sessionsRepository.latestPatternId(bowlerId)]);
+    const [{ hand }, latestPattern] = await Promise.all([
+      bowlerOf(bowlerId),
+      q.patternId ? Promise.resolve(q.patternId) : sessionsRepository.latestPatternId(bowlerId),
+    ]);
     const calibrationPatternId = latestPattern;
     const key = JSON.stringify({ from: q.from, to: q.to, ballId: q.ballId, patternId: q.patternId, hand });
     let parts = statsCache.get(bowlerId, key);
@@ -303,10 +387,16 @@ export const statsService = {
     }
     let calibration: Calibration | null = null;
     // The lanes the bowler last bowled this pattern on (a published condition's lane surface), as a matchup there would use.
-    const calibrationLane = calibrationPatternId === null ? null : ((await sessionsRepository.latestConditionLane(bowlerId, calibrationPatternId)) ?? { ...DEFAULT_LANE_SURFACE });
+    const calibrationLane =
+      calibrationPatternId === null
+        ? null
+        : ((await sessionsRepository.latestConditionLane(bowlerId, calibrationPatternId)) ?? { ...DEFAULT_LANE_SURFACE });
     if (calibrationPatternId !== null) {
       try {
-        calibration = await calibrationFor(bowlerId, calibrationPatternId, { ...(rowsForCalibration ? { rows: rowsForCalibration.rows, rowsTicket: rowsForCalibration.ticket } : {}), lane: calibrationLane ?? undefined });
+        calibration = await calibrationFor(bowlerId, calibrationPatternId, {
+          ...(rowsForCalibration ? { rows: rowsForCalibration.rows, rowsTicket: rowsForCalibration.ticket } : {}),
+          lane: calibrationLane ?? undefined,
+        });
       } catch (err) {
         if (!(err instanceof AppError)) throw err; // an unknown pattern simply has no calibration
       }
@@ -317,9 +407,17 @@ export const statsService = {
   /** The calibration a matchup on this pattern and lane surface (or this published condition) applies. */
   async calibration(user: AuthUser, q: CalibrationQuery): Promise<Calibration> {
     const bowlerId = await readableBowlerId(user, q.studentId);
-    const lane = q.laneKind || q.laneFriction ? { kind: q.laneKind ?? DEFAULT_LANE_SURFACE.kind, friction: q.laneFriction ?? DEFAULT_LANE_SURFACE.friction } : undefined;
+    const lane =
+      q.laneKind || q.laneFriction
+        ? { kind: q.laneKind ?? DEFAULT_LANE_SURFACE.kind, friction: q.laneFriction ?? DEFAULT_LANE_SURFACE.friction }
+        : undefined;
     const on = await engineCondition({ patternId: q.patternId, conditionId: q.conditionId, lane });
     // A condition whose pattern is gone has no logged shots to fit: an empty fit, as for a pattern never bowled.
-    return calibrationFor(bowlerId, on.patternId ?? 0, { pattern: on.pattern, lane: on.lane, ...(on.condition ? { conditionId: on.condition.id } : {}), ...(on.patternId === null ? { rows: [] } : {}) });
+    return calibrationFor(bowlerId, on.patternId ?? 0, {
+      pattern: on.pattern,
+      lane: on.lane,
+      ...(on.condition ? { conditionId: on.condition.id } : {}),
+      ...(on.patternId === null ? { rows: [] } : {}),
+    });
   },
 };

@@ -16,14 +16,31 @@ const OLD_FAKE_WEBHOOK_SECRET = ['whsec', 'lanewright_local_fake_signing_secret'
 describe('the committed default secrets are gone', () => {
   it('an admin token signed with the old default JWT secret is 401', async () => {
     const { user } = await createUser('admin');
-    const forged = jwt.sign({ ver: user.tokenVersion }, OLD_JWT_SECRET, { subject: String(user.id), issuer: 'lanewright', audience: 'lanewright-api', expiresIn: '1h', algorithm: 'HS256' });
+    const forged = jwt.sign({ ver: user.tokenVersion }, OLD_JWT_SECRET, {
+      subject: String(user.id),
+      issuer: 'lanewright',
+      audience: 'lanewright-api',
+      expiresIn: '1h',
+      algorithm: 'HS256',
+    });
     const res = await api.get('/api/admin/users').set('Authorization', `Bearer ${forged}`);
     expect(res.status).toBe(401);
   });
 
   it('a checkout.session.completed signed with the old payment-fake secret is 400 and changes nothing', async () => {
-    const ev = event('checkout.session.completed', { id: 'cs_test_forged', object: 'checkout.session', metadata: { orderId: '1' }, payment_status: 'paid', amount_total: 1, currency: 'usd' });
-    const res = await api.post('/api/payments/webhook').set('Content-Type', 'application/json').set('Stripe-Signature', signature(ev.payload, { secret: OLD_FAKE_WEBHOOK_SECRET })).send(ev.payload);
+    const ev = event('checkout.session.completed', {
+      id: 'cs_test_forged',
+      object: 'checkout.session',
+      metadata: { orderId: '1' },
+      payment_status: 'paid',
+      amount_total: 1,
+      currency: 'usd',
+    });
+    const res = await api
+      .post('/api/payments/webhook')
+      .set('Content-Type', 'application/json')
+      .set('Stripe-Signature', signature(ev.payload, { secret: OLD_FAKE_WEBHOOK_SECRET }))
+      .send(ev.payload);
     expect(res.status).toBe(400);
     expect(errorOf(res.body).code).toBe('bad_signature');
   });
@@ -47,7 +64,18 @@ describe('the dev mailbox is the admin’s (development and tests)', () => {
 
 describe('production loads no developer-tool code', () => {
   it('nothing under server/dev or server/features/dev is reachable from server/index.ts by a static import', async () => {
-    const result = await build({ entryPoints: [path.join(root, 'server/index.ts')], bundle: true, write: false, metafile: true, platform: 'node', format: 'esm', packages: 'external', logLevel: 'silent', outdir: path.join(root, 'dist', 'graph-check'), splitting: true });
+    const result = await build({
+      entryPoints: [path.join(root, 'server/index.ts')],
+      bundle: true,
+      write: false,
+      metafile: true,
+      platform: 'node',
+      format: 'esm',
+      packages: 'external',
+      logLevel: 'silent',
+      outdir: path.join(root, 'dist', 'graph-check'),
+      splitting: true,
+    });
     const inputs = result.metafile.inputs;
     const seen = new Set<string>();
     const visit = (file: string) => {
@@ -83,7 +111,14 @@ describe('a production server', () => {
   it('has no dev mailbox (404, also for an admin) and runs no payment fake', async () => {
     const admin = await createUser('admin');
     expect((await call(server.base, 'GET', '/api/dev/mail')).status).toBe(404);
-    expect((await call(server.base, 'GET', '/api/dev/mail', { token: (await call(server.base, 'POST', '/api/auth/login', { body: { email: admin.user.email, password: admin.password } })).body.token })).status).toBe(404);
+    expect(
+      (
+        await call(server.base, 'GET', '/api/dev/mail', {
+          token: (await call(server.base, 'POST', '/api/auth/login', { body: { email: admin.user.email, password: admin.password } })).body
+            .token,
+        })
+      ).status,
+    ).toBe(404);
     expect(server.output()).not.toMatch(/payment fake listening|development SMTP server/);
   });
 });

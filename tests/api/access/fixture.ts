@@ -6,7 +6,16 @@ import { event, getOrder, listenForWebhooks, signature, submitCard, waitFor } fr
 import type { Ball, Center, Pattern, User } from '../../../server/models/index';
 
 /** The columns of the access matrix, in table order. */
-export const ROLES = ['anonymous', 'owner', 'otherBowler', 'coachLinked', 'coachUnlinked', 'proprietorThis', 'proprietorOther', 'admin'] as const;
+export const ROLES = [
+  'anonymous',
+  'owner',
+  'otherBowler',
+  'coachLinked',
+  'coachUnlinked',
+  'proprietorThis',
+  'proprietorOther',
+  'admin',
+] as const;
 export type Actor = (typeof ROLES)[number];
 
 export interface Person {
@@ -69,7 +78,10 @@ export interface Fixture {
 }
 
 /** A 1×1 PNG (valid signature and chunks). */
-export const TINY_PNG = Buffer.from('iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==', 'base64');
+export const TINY_PNG = Buffer.from(
+  'iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==',
+  'base64',
+);
 
 export async function buildFixture(): Promise<Fixture> {
   const [owner, otherBowler, coachLinked, coachUnlinked, proprietorThis, proprietorOther, admin] = await Promise.all([
@@ -89,10 +101,16 @@ export async function buildFixture(): Promise<Fixture> {
     createCenter(proprietorThis.user.id),
     createCenter(proprietorOther.user.id),
   ]);
-  const photo = await api.put(`/api/arsenal/${ball.id}/photo`).set(owner.auth).attach('file', TINY_PNG, { filename: 'ball.png', contentType: 'image/png' });
+  const photo = await api
+    .put(`/api/arsenal/${ball.id}/photo`)
+    .set(owner.auth)
+    .attach('file', TINY_PNG, { filename: 'ball.png', contentType: 'image/png' });
   if (photo.status !== 200) throw new Error(`fixture: photo upload answered ${photo.status} ${JSON.stringify(photo.body)}`);
   const today = new Date().toISOString().slice(0, 10);
-  const pub = await api.post(`/api/centers/${center.id}/conditions`).set(proprietorThis.auth).send({ patternId: pattern.id, lanes: [1, 2, 3, 4], validFrom: today });
+  const pub = await api
+    .post(`/api/centers/${center.id}/conditions`)
+    .set(proprietorThis.auth)
+    .send({ patternId: pattern.id, lanes: [1, 2, 3, 4], validFrom: today });
   if (pub.status !== 201) throw new Error(`fixture: publishing answered ${pub.status} ${JSON.stringify(pub.body)}`);
   const condition = (await Condition.findByPk(pub.body.item.id))!;
   await api.post(`/api/centers/${center.id}/follow`).set(owner.auth).expect(200);
@@ -107,11 +125,18 @@ export async function buildFixture(): Promise<Fixture> {
   }
 
   const newSession = async (withShot: boolean, ballId = ball.id) => {
-    const r = await api.post('/api/sessions').set(owner.auth).send({ date: today, kind: 'practice', centerId: center.id, patternId: pattern.id });
+    const r = await api
+      .post('/api/sessions')
+      .set(owner.auth)
+      .send({ date: today, kind: 'practice', centerId: center.id, patternId: pattern.id });
     if (r.status !== 201) throw new Error(`fixture: session answered ${r.status} ${JSON.stringify(r.body)}`);
     let shotId: number | null = null;
     if (withShot) {
-      const s = await api.post(`/api/sessions/${r.body.item.id}/shots`).set(owner.auth).set('Idempotency-Key', `fixture-${crypto.randomUUID()}`).send({ gameNumber: 1, frame: 1, delivery: 1, ballId, standing: [7] });
+      const s = await api
+        .post(`/api/sessions/${r.body.item.id}/shots`)
+        .set(owner.auth)
+        .set('Idempotency-Key', `fixture-${crypto.randomUUID()}`)
+        .send({ gameNumber: 1, frame: 1, delivery: 1, ballId, standing: [7] });
       if (s.status !== 201) throw new Error(`fixture: shot answered ${s.status} ${JSON.stringify(s.body)}`);
       shotId = s.body.item.id as number;
     }
@@ -119,7 +144,15 @@ export async function buildFixture(): Promise<Fixture> {
   };
   const session = await newSession(true);
   const listener = await listenForWebhooks(); // the payment fake's card page delivers its webhook here
-  const service = await ShopService.create({ centerId: center.id, kind: 'resurface', name: 'Resurface to 4000 grit', grit: 4000, description: null, priceCents: 4500, currency: 'usd' });
+  const service = await ShopService.create({
+    centerId: center.id,
+    kind: 'resurface',
+    name: 'Resurface to 4000 grit',
+    grit: 4000,
+    description: null,
+    priceCents: 4500,
+    currency: 'usd',
+  });
   const newOrder = async (ballId = ball.id) => {
     const r = await api.post('/api/orders').set(owner.auth).send({ serviceId: service.id, ballId });
     if (r.status !== 201) throw new Error(`fixture: order answered ${r.status} ${JSON.stringify(r.body)}`);
@@ -145,12 +178,29 @@ export async function buildFixture(): Promise<Fixture> {
     },
     async freshTrial() {
       const b = await createBall(owner.user.id);
-      const r = await api.post('/api/trials').set(owner.auth).send({ name: `Trial ${crypto.randomUUID().slice(0, 8)}`, arms: [{ ballId: b.id, surfaceKey: '2000 grit' }, { ballId: b.id, surfaceKey: '4000 grit' }] });
+      const r = await api
+        .post('/api/trials')
+        .set(owner.auth)
+        .send({
+          name: `Trial ${crypto.randomUUID().slice(0, 8)}`,
+          arms: [
+            { ballId: b.id, surfaceKey: '2000 grit' },
+            { ballId: b.id, surfaceKey: '4000 grit' },
+          ],
+        });
       if (r.status !== 201) throw new Error(`fixture: trial answered ${r.status} ${JSON.stringify(r.body)}`);
       return r.body.item.id as number;
     },
     async freshServiceId() {
-      const sv = await ShopService.create({ centerId: center.id, kind: 'polish', name: `Polish ${crypto.randomUUID().slice(0, 8)}`, grit: null, description: null, priceCents: 2500, currency: 'usd' });
+      const sv = await ShopService.create({
+        centerId: center.id,
+        kind: 'polish',
+        name: `Polish ${crypto.randomUUID().slice(0, 8)}`,
+        grit: null,
+        description: null,
+        priceCents: 2500,
+        currency: 'usd',
+      });
       return { id: sv.id, version: sv.version };
     },
     async freshOrderId(paid = false) {
@@ -159,7 +209,10 @@ export async function buildFixture(): Promise<Fixture> {
         const co = await api.post(`/api/orders/${o.id}/checkout`).set(owner.auth);
         if (co.status !== 200) throw new Error(`fixture: checkout answered ${co.status} ${JSON.stringify(co.body)}`);
         await submitCard(co.body.url as string, '4242424242424242');
-        await waitFor(() => getOrder(owner, o.id as number), (x) => x.status === 'paid');
+        await waitFor(
+          () => getOrder(owner, o.id as number),
+          (x) => x.status === 'paid',
+        );
       }
       return o.id as number;
     },
@@ -183,7 +236,12 @@ export async function buildFixture(): Promise<Fixture> {
     as: (actor) => (actor === 'anonymous' ? {} : people[actor].auth),
     async freshBall(opts = {}) {
       const b = await createBall(owner.user.id);
-      if (opts.withPhoto) await api.put(`/api/arsenal/${b.id}/photo`).set(owner.auth).attach('file', TINY_PNG, { filename: 'b.png', contentType: 'image/png' }).expect(200);
+      if (opts.withPhoto)
+        await api
+          .put(`/api/arsenal/${b.id}/photo`)
+          .set(owner.auth)
+          .attach('file', TINY_PNG, { filename: 'b.png', contentType: 'image/png' })
+          .expect(200);
       if (opts.deleted) await b.destroy();
       return b;
     },
@@ -198,7 +256,12 @@ export async function buildFixture(): Promise<Fixture> {
     async freshVerificationToken() {
       const u = await createUser('bowler', undefined, { verified: false });
       const token = crypto.randomBytes(32).toString('base64url');
-      await EmailVerification.create({ userId: u.user.id, tokenHash: crypto.createHash('sha256').update(token).digest('hex'), expiresAt: new Date(Date.now() + 3600_000), usedAt: null });
+      await EmailVerification.create({
+        userId: u.user.id,
+        tokenHash: crypto.createHash('sha256').update(token).digest('hex'),
+        expiresAt: new Date(Date.now() + 3600_000),
+        usedAt: null,
+      });
       return token;
     },
     async freshUnsubscribeToken() {

@@ -13,14 +13,18 @@ import { enumerateRoutes, fromOpenApi, SERVED_GROUPS, tableRoutes, type RouteKey
 const routes = tableRoutes();
 /** Each JSON route's declared response schema, by route key. */
 const RESPONSES = new Map<string, z.ZodType>(
-  SERVED_GROUPS.flatMap((g) => g.routes.map((r) => [`${r.method.toUpperCase()} ${fullPath(g, r)}`, r.response] as const)).flatMap(([k, doc]) => (doc instanceof z.ZodType ? [[k, doc] as const] : [])),
+  SERVED_GROUPS.flatMap((g) => g.routes.map((r) => [`${r.method.toUpperCase()} ${fullPath(g, r)}`, r.response] as const)).flatMap(
+    ([k, doc]) => (doc instanceof z.ZodType ? [[k, doc] as const] : []),
+  ),
 );
 /** Paths of the answer that parsing with the schema dropped: fields the server sends and the schema does not declare. */
 function droppedKeys(sent: unknown, kept: unknown, at = 'body'): string[] {
   if (Array.isArray(sent) && Array.isArray(kept)) return sent.flatMap((x, i) => droppedKeys(x, kept[i], `${at}[${i}]`)).slice(0, 5);
   if (!sent || typeof sent !== 'object' || !kept || typeof kept !== 'object') return [];
   const k = kept as Record<string, unknown>;
-  return Object.entries(sent as Record<string, unknown>).flatMap(([key, v]) => (key in k ? droppedKeys(v, k[key], `${at}.${key}`) : [`${at}.${key}`]));
+  return Object.entries(sent as Record<string, unknown>).flatMap(([key, v]) =>
+    key in k ? droppedKeys(v, k[key], `${at}.${key}`) : [`${at}.${key}`],
+  );
 }
 
 let f: Fixture;
@@ -32,7 +36,9 @@ afterAll(async () => f?.close());
 
 async function send(route: RouteKey, r: CellRequest, actor: Actor) {
   const m = route.method.toLowerCase() as 'get' | 'post' | 'put' | 'patch' | 'delete';
-  let req = api[m](r.url).set(f.as(actor)).set(r.headers ?? {});
+  let req = api[m](r.url)
+    .set(f.as(actor))
+    .set(r.headers ?? {});
   if (r.file) req = req.attach('file', r.file.buffer, { filename: r.file.filename, contentType: r.file.contentType });
   else if (r.body !== undefined) req = req.send(r.body as object);
   return req;
@@ -48,7 +54,10 @@ describe('the route list', () => {
   it('is every route the app serves: nothing is registered outside the table', () => {
     const table = new Set(routes.map((r) => r.key));
     const served = new Set(enumerateRoutes(app).map((r) => r.key));
-    expect({ outsideTable: [...served].filter((k) => !table.has(k)), notServed: [...table].filter((k) => !served.has(k)) }).toEqual({ outsideTable: [], notServed: [] });
+    expect({ outsideTable: [...served].filter((k) => !table.has(k)), notServed: [...table].filter((k) => !served.has(k)) }).toEqual({
+      outsideTable: [],
+      notServed: [],
+    });
   });
 
   it('has a matrix entry for every route, and no entry for a route that is gone', () => {
@@ -61,13 +70,16 @@ describe('the route list', () => {
   it('gives every route but the development tools an operation in the OpenAPI document, with a success response', async () => {
     const res = await api.get('/api/docs/openapi.json');
     expect(res.status).toBe(200);
-    const ops = Object.entries(res.body.paths as Record<string, Record<string, { responses: Record<string, unknown> }>>).flatMap(([p, item]) =>
-      Object.entries(item).map(([m, op]) => ({ key: `${m.toUpperCase()} ${fromOpenApi(p)}`, op })),
+    const ops = Object.entries(res.body.paths as Record<string, Record<string, { responses: Record<string, unknown> }>>).flatMap(
+      ([p, item]) => Object.entries(item).map(([m, op]) => ({ key: `${m.toUpperCase()} ${fromOpenApi(p)}`, op })),
     );
     const documented = new Set(ops.map((o) => o.key));
     const expected = tableRoutes(SERVED_GROUPS.filter((g) => !g.devOnly)).map((r) => r.key);
     expect(expected.length).toBe(routes.length - 1);
-    expect({ undocumented: expected.filter((k) => !documented.has(k)), notInTable: [...documented].filter((k) => !expected.includes(k)) }).toEqual({ undocumented: [], notInTable: [] });
+    expect({
+      undocumented: expected.filter((k) => !documented.has(k)),
+      notInTable: [...documented].filter((k) => !expected.includes(k)),
+    }).toEqual({ undocumented: [], notInTable: [] });
     const withoutSuccess = ops.filter((o) => !Object.keys(o.op.responses).some((code) => /^2\d\d$/.test(code))).map((o) => o.key);
     expect(withoutSuccess).toEqual([]);
   });
@@ -75,7 +87,9 @@ describe('the route list', () => {
 
 describe('the notes', () => {
   it('name test files that exist, by their path from the repository root', () => {
-    const cited = Object.entries(MATRIX).flatMap(([route, e]) => [...(e.note ?? '').matchAll(/tests\/[\w./-]+/g)].map((m) => ({ route, file: m[0].replace(/[.,;)]+$/, '') })));
+    const cited = Object.entries(MATRIX).flatMap(([route, e]) =>
+      [...(e.note ?? '').matchAll(/tests\/[\w./-]+/g)].map((m) => ({ route, file: m[0].replace(/[.,;)]+$/, '') })),
+    );
     expect(cited.length).toBeGreaterThan(3);
     const missing = cited.filter((c) => !fs.existsSync(path.join(root, c.file)) || !c.file.endsWith('.ts'));
     expect(missing).toEqual([]);
@@ -98,7 +112,11 @@ describe('access matrix (route × actor → status, real database)', () => {
         const res = await send(route, await entry.req(f, actor), actor);
         cells += 1;
         actual.push(res.status);
-        if (res.status >= 400 && res.type === 'application/json' && !(typeof res.body?.error?.code === 'string' && typeof res.body?.error?.message === 'string')) {
+        if (
+          res.status >= 400 &&
+          res.type === 'application/json' &&
+          !(typeof res.body?.error?.code === 'string' && typeof res.body?.error?.message === 'string')
+        ) {
           badShape.push(`${route.key} as ${actor}: ${JSON.stringify(res.body).slice(0, 200)}`);
         }
         if (res.status >= 500) badShape.push(`${route.key} as ${actor}: ${res.status} ${JSON.stringify(res.body).slice(0, 200)}`);
@@ -106,10 +124,21 @@ describe('access matrix (route × actor → status, real database)', () => {
         if (schema && res.status < 300 && res.status !== 204) {
           checkedBodies += 1;
           const parsed = schema.safeParse(res.body);
-          if (!parsed.success) offSchema.push(`${route.key} as ${actor}: ${parsed.error.issues.map((x) => `${x.path.join('.')}: ${x.message}`).join('; ').slice(0, 300)}`);
-          else for (const k of droppedKeys(res.body, parsed.data)) offSchema.push(`${route.key} as ${actor}: ${k} is answered but not in the response schema`);
+          if (!parsed.success)
+            offSchema.push(
+              `${route.key} as ${actor}: ${parsed.error.issues
+                .map((x) => `${x.path.join('.')}: ${x.message}`)
+                .join('; ')
+                .slice(0, 300)}`,
+            );
+          else
+            for (const k of droppedKeys(res.body, parsed.data))
+              offSchema.push(`${route.key} as ${actor}: ${k} is answered but not in the response schema`);
         }
-        if (res.status !== row[i]) mismatches.push(`${route.key} as ${actor}: expected ${row[i]}, got ${res.status} ${res.status >= 400 ? JSON.stringify(res.body).slice(0, 160) : ''}`);
+        if (res.status !== row[i])
+          mismatches.push(
+            `${route.key} as ${actor}: expected ${row[i]}, got ${res.status} ${res.status >= 400 ? JSON.stringify(res.body).slice(0, 160) : ''}`,
+          );
       }
       if (process.env.MATRIX_PRINT) console.log(`'${route.key}': [${actual.join(', ')}]`);
     }

@@ -36,7 +36,9 @@ function pathsOf(raw: unknown): string[] | null {
  * path cannot be recovered fails loudly instead of being skipped, so no route escapes the matrix.
  */
 export function enumerateRoutes(app: Express, only = /^\/api(\/|$)/): RouteKey[] {
-  const root = (app as unknown as { router?: { stack: LayerLike[] }; _router?: { stack: LayerLike[] } }).router ?? (app as unknown as { _router: { stack: LayerLike[] } })._router;
+  const root =
+    (app as unknown as { router?: { stack: LayerLike[] }; _router?: { stack: LayerLike[] } }).router ??
+    (app as unknown as { _router: { stack: LayerLike[] } })._router;
   const out = new Map<string, RouteKey>();
   const walk = (stack: LayerLike[], prefix: string) => {
     for (const layer of stack) {
@@ -55,7 +57,8 @@ export function enumerateRoutes(app: Express, only = /^\/api(\/|$)/): RouteKey[]
         }
       } else if (layer.handle?.stack) {
         const mounts = pathsOf(layer.rawPath);
-        if (!mounts) throw new Error(`a sub-router is mounted on a path this walker cannot read (${String(layer.rawPath ?? layer.regexp)})`);
+        if (!mounts)
+          throw new Error(`a sub-router is mounted on a path this walker cannot read (${String(layer.rawPath ?? layer.regexp)})`);
         for (const m of mounts) walk(layer.handle.stack, join(prefix, m));
       }
     }

@@ -28,7 +28,11 @@ describe('CORS is closed by default', () => {
   });
 
   it('a preflight gets no CORS permission (the browser refuses the cross-origin call)', async () => {
-    const res = await api.options('/api/auth/login').set('Origin', 'https://elsewhere.example').set('Access-Control-Request-Method', 'POST').set('Access-Control-Request-Headers', 'content-type, authorization');
+    const res = await api
+      .options('/api/auth/login')
+      .set('Origin', 'https://elsewhere.example')
+      .set('Access-Control-Request-Method', 'POST')
+      .set('Access-Control-Request-Headers', 'content-type, authorization');
     expect(res.headers['access-control-allow-origin']).toBeUndefined();
     expect(res.headers['access-control-allow-methods']).toBeUndefined();
     expect(res.headers['access-control-allow-headers']).toBeUndefined();
@@ -46,23 +50,43 @@ describe('rate limits', () => {
   }
 
   it('sign-in: failed attempts per address', async () => {
-    const { statuses, last } = await until429((a) => api.post('/api/auth/login').set('X-Forwarded-For', a).send({ email: uniqueEmail('nobody'), password: 'wrong-password' }), limit);
+    const { statuses, last } = await until429(
+      (a) =>
+        api
+          .post('/api/auth/login')
+          .set('X-Forwarded-For', a)
+          .send({ email: uniqueEmail('nobody'), password: 'wrong-password' }),
+      limit,
+    );
     expect(statuses.slice(0, limit).every((s) => s === 401)).toBe(true);
     expect(last.status).toBe(429);
     expect(errorOf(last.body).code).toBe('rate_limited');
   });
 
   it('sign-up: every attempt per address', async () => {
-    const { statuses, last } = await until429((a) => api.post('/api/auth/register').set('X-Forwarded-For', a).send({ email: 'not-an-email', password: 'short', displayName: '' }), limit);
+    const { statuses, last } = await until429(
+      (a) => api.post('/api/auth/register').set('X-Forwarded-For', a).send({ email: 'not-an-email', password: 'short', displayName: '' }),
+      limit,
+    );
     expect(statuses.slice(0, limit).every((s) => s === 400)).toBe(true);
     expect(last.status).toBe(429);
   });
 
   it('reset: asking for mails and trying tokens', async () => {
-    const forgot = await until429((a) => api.post('/api/auth/forgot').set('X-Forwarded-For', a).send({ email: 'nobody@example.test' }), limit);
+    const forgot = await until429(
+      (a) => api.post('/api/auth/forgot').set('X-Forwarded-For', a).send({ email: 'nobody@example.test' }),
+      limit,
+    );
     expect(forgot.statuses.slice(0, limit).every((s) => s === 202)).toBe(true);
     expect(forgot.last.status).toBe(429);
-    const reset = await until429((a) => api.post('/api/auth/reset').set('X-Forwarded-For', a).send({ token: 'y'.repeat(43), password: 'another-long-password' }), limit);
+    const reset = await until429(
+      (a) =>
+        api
+          .post('/api/auth/reset')
+          .set('X-Forwarded-For', a)
+          .send({ token: 'y'.repeat(43), password: 'another-long-password' }),
+      limit,
+    );
     expect(reset.statuses.slice(0, limit).every((s) => s === 400)).toBe(true);
     expect(reset.last.status).toBe(429);
   });
@@ -73,11 +97,23 @@ describe('rate limits', () => {
     const routes = ['/api/arsenal/import', '/api/catalogue/import', '/api/patterns/import'];
     const statuses: number[] = [];
     for (let i = 0; i < UPLOAD_RATE_LIMIT; i++) {
-      statuses.push((await api.post(routes[i % 3]).set(auth).set('X-Forwarded-For', addr).attach('file', Buffer.from('not,a\nvalid'), { filename: 'x.csv', contentType: 'text/csv' })).status);
+      statuses.push(
+        (
+          await api
+            .post(routes[i % 3])
+            .set(auth)
+            .set('X-Forwarded-For', addr)
+            .attach('file', Buffer.from('not,a\nvalid'), { filename: 'x.csv', contentType: 'text/csv' })
+        ).status,
+      );
       if (i % 10 === 0) expect((await api.get('/api/arsenal').set(auth).set('X-Forwarded-For', addr)).status).toBe(200); // JSON requests are not counted
     }
     expect(statuses.every((s) => s === 400)).toBe(true);
-    const over = await api.post('/api/patterns/import').set(auth).set('X-Forwarded-For', addr).attach('file', Buffer.from('{}'), { filename: 'p.json', contentType: 'application/json' });
+    const over = await api
+      .post('/api/patterns/import')
+      .set(auth)
+      .set('X-Forwarded-For', addr)
+      .attach('file', Buffer.from('{}'), { filename: 'p.json', contentType: 'application/json' });
     expect(over.status).toBe(429);
     expect(errorOf(over.body).code).toBe('rate_limited');
     expect((await api.get('/api/arsenal').set(auth).set('X-Forwarded-For', addr)).status).toBe(200);
@@ -88,7 +124,10 @@ describe('uploads are stored outside the web root under generated names', () => 
   it('a photo named by its sender lands as <random hex>.<type> in UPLOAD_DIR, never under the client dist, and is not served statically', async () => {
     const { user, auth } = await createUser('bowler');
     const ball = await createBall(user.id);
-    const res = await api.put(`/api/arsenal/${ball.id}/photo`).set(auth).attach('file', TINY_PNG, { filename: '../../../dist/client/evil.html', contentType: 'image/png' });
+    const res = await api
+      .put(`/api/arsenal/${ball.id}/photo`)
+      .set(auth)
+      .attach('file', TINY_PNG, { filename: '../../../dist/client/evil.html', contentType: 'image/png' });
     expect(res.status).toBe(200);
     const up = (await Upload.findOne({ where: { ownerId: user.id }, order: [['id', 'DESC']] }))!;
     expect(up.storageKey).toMatch(/^[a-f0-9]{32}\.png$/);
@@ -109,18 +148,31 @@ describe('uploads are stored outside the web root under generated names', () => 
 
 describe('secrets come from the environment; production refuses to start without them', () => {
   const loadConfig = (env: Record<string, string>) =>
-    spawnSync(path.join(root, 'node_modules', '.bin', 'tsx'), ['-e', "import('./server/config/index.ts').then((m) => console.log('loaded', m.config.NODE_ENV, m.config.jwtSecretSource))"], {
-      cwd: root,
-      encoding: 'utf8',
-      env: { PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '/tmp', ...env },
-    });
-  const PROD = { NODE_ENV: 'production', JWT_SECRET: 'a-real-secret-from-the-environment-0123456789', PUBLIC_URL: 'https://lanes.example', DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/x', SMTP_URL: 'smtp://127.0.0.1:25', STRIPE_SECRET_KEY: 'sk_test_x', STRIPE_WEBHOOK_SECRET: 'whsec_x' };
+    spawnSync(
+      path.join(root, 'node_modules', '.bin', 'tsx'),
+      ['-e', "import('./server/config/index.ts').then((m) => console.log('loaded', m.config.NODE_ENV, m.config.jwtSecretSource))"],
+      {
+        cwd: root,
+        encoding: 'utf8',
+        env: { PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '/tmp', ...env },
+      },
+    );
+  const PROD = {
+    NODE_ENV: 'production',
+    JWT_SECRET: 'a-real-secret-from-the-environment-0123456789',
+    PUBLIC_URL: 'https://lanes.example',
+    DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/x',
+    SMTP_URL: 'smtp://127.0.0.1:25',
+    STRIPE_SECRET_KEY: 'sk_test_x',
+    STRIPE_WEBHOOK_SECRET: 'whsec_x',
+  };
 
   it('NODE_ENV=production without real secrets: the process refuses to start and names each missing setting', () => {
     const r = loadConfig({ NODE_ENV: 'production' });
     expect(r.status).not.toBe(0);
     const out = `${r.stdout}${r.stderr}`;
-    for (const v of ['JWT_SECRET', 'PUBLIC_URL', 'DATABASE_URL', 'SMTP_URL', 'STRIPE_SECRET_KEY', 'STRIPE_WEBHOOK_SECRET']) expect(out).toContain(v);
+    for (const v of ['JWT_SECRET', 'PUBLIC_URL', 'DATABASE_URL', 'SMTP_URL', 'STRIPE_SECRET_KEY', 'STRIPE_WEBHOOK_SECRET'])
+      expect(out).toContain(v);
     expect(out).not.toContain('loaded');
   });
 
@@ -145,16 +197,31 @@ describe('secrets come from the environment; production refuses to start without
   });
 
   it('the development mailbox is not mounted in production', () => {
-    const r = spawnSync(path.join(root, 'node_modules', '.bin', 'tsx'), ['-e', "import('./server/lib/mailer.ts').then((m) => console.log('capture', m.mailCaptureEnabled))"], {
-      cwd: root,
-      encoding: 'utf8',
-      env: { PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '/tmp', ...PROD },
-    });
+    const r = spawnSync(
+      path.join(root, 'node_modules', '.bin', 'tsx'),
+      ['-e', "import('./server/lib/mailer.ts').then((m) => console.log('capture', m.mailCaptureEnabled))"],
+      {
+        cwd: root,
+        encoding: 'utf8',
+        env: { PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '/tmp', ...PROD },
+      },
+    );
     expect(r.stdout).toContain('capture false');
   });
 
   it('no secret is written in the server code', () => {
-    const hits = spawnSync('grep', ['-rnE', '((sk|rk)_(live|test)_[A-Za-z0-9_]{8,}|whsec_[A-Za-z0-9_]{8,}|-----BEGIN [A-Z ]*PRIVATE KEY)', 'server', 'shared', 'client/src', 'seeders'], { cwd: root, encoding: 'utf8' });
+    const hits = spawnSync(
+      'grep',
+      [
+        '-rnE',
+        '((sk|rk)_(live|test)_[A-Za-z0-9_]{8,}|whsec_[A-Za-z0-9_]{8,}|-----BEGIN [A-Z ]*PRIVATE KEY)',
+        'server',
+        'shared',
+        'client/src',
+        'seeders',
+      ],
+      { cwd: root, encoding: 'utf8' },
+    );
     expect(hits.stdout).toBe('');
   });
 });

@@ -62,7 +62,11 @@ describe('GET /api/admin/users', () => {
     const coaches = [];
     for (const n of [1, 2, 3]) coaches.push(await createUser('coach', undefined, { displayName: `${tag} Coach ${n}` }));
     const bowler = await createUser('bowler', undefined, { displayName: `${tag} Bowler` });
-    const page = (p: number) => api.get('/api/admin/users').query({ q: tag, role: 'coach', pageSize: 2, page: p, sort: 'displayName', order: 'desc' }).set(admin.auth);
+    const page = (p: number) =>
+      api
+        .get('/api/admin/users')
+        .query({ q: tag, role: 'coach', pageSize: 2, page: p, sort: 'displayName', order: 'desc' })
+        .set(admin.auth);
     const first = await page(1);
     expect(first.status).toBe(200);
     expect(first.body).toMatchObject({ total: 3, page: 1, pageSize: 2 });

@@ -10,7 +10,9 @@ import { waitForMail } from '../../helpers/mail';
 describe('POST /api/auth/register', () => {
   it('creates an unverified bowler with a bcrypt hash (cost ≥ 10), answers neutrally, and the password signs in', async () => {
     const email = uniqueEmail('reg');
-    const res = await api.post('/api/auth/register').send({ email: email.toUpperCase(), password: 'a-long-enough-pass', displayName: '  Rory Penn  ' });
+    const res = await api
+      .post('/api/auth/register')
+      .send({ email: email.toUpperCase(), password: 'a-long-enough-pass', displayName: '  Rory Penn  ' });
     expect(res.status).toBe(201);
     expect(res.body).toEqual(REGISTER_ANSWER);
     const row = await User.findOne({ where: { email } });
@@ -90,7 +92,16 @@ describe('GET /api/auth/me', () => {
     const { user, auth } = await createUser('proprietor');
     const res = await api.get('/api/auth/me').set(auth);
     expect(res.status).toBe(200);
-    expect(res.body).toEqual({ user: { id: user.id, email: user.email, displayName: user.displayName, role: 'proprietor', emailVerified: true, createdAt: user.createdAt.toISOString() } });
+    expect(res.body).toEqual({
+      user: {
+        id: user.id,
+        email: user.email,
+        displayName: user.displayName,
+        role: 'proprietor',
+        emailVerified: true,
+        createdAt: user.createdAt.toISOString(),
+      },
+    });
   });
 
   it('answers 401 without a token', async () => {
@@ -101,7 +112,11 @@ describe('GET /api/auth/me', () => {
 
   it('answers 401 to an expired token', async () => {
     const { user } = await createUser();
-    const expired = jwt.sign({ ver: 0, exp: Math.floor(Date.now() / 1000) - 60 }, config.JWT_SECRET, { subject: String(user.id), issuer: 'lanewright', audience: 'lanewright-api' });
+    const expired = jwt.sign({ ver: 0, exp: Math.floor(Date.now() / 1000) - 60 }, config.JWT_SECRET, {
+      subject: String(user.id),
+      issuer: 'lanewright',
+      audience: 'lanewright-api',
+    });
     const res = await api.get('/api/auth/me').set('Authorization', `Bearer ${expired}`);
     expect(res.status).toBe(401);
     expect(errorOf(res.body).code).toBe('unauthorized');
@@ -118,8 +133,18 @@ describe('GET /api/auth/me', () => {
 
   it('answers 401 to a token signed with another secret and to an unsigned (alg none) token', async () => {
     const { user } = await createUser();
-    const other = jwt.sign({ ver: 0 }, 'some-other-secret-entirely', { subject: String(user.id), issuer: 'lanewright', audience: 'lanewright-api', expiresIn: '1h' });
-    const none = jwt.sign({ ver: 0 }, '', { subject: String(user.id), issuer: 'lanewright', audience: 'lanewright-api', algorithm: 'none' });
+    const other = jwt.sign({ ver: 0 }, 'some-other-secret-entirely', {
+      subject: String(user.id),
+      issuer: 'lanewright',
+      audience: 'lanewright-api',
+      expiresIn: '1h',
+    });
+    const none = jwt.sign({ ver: 0 }, '', {
+      subject: String(user.id),
+      issuer: 'lanewright',
+      audience: 'lanewright-api',
+      algorithm: 'none',
+    });
     for (const t of [other, none, 'not.a.token']) {
       const res = await api.get('/api/auth/me').set('Authorization', `Bearer ${t}`);
       expect(res.status).toBe(401);

@@ -63,8 +63,22 @@ describe('neutral answers', () => {
     const unknown: number[] = [];
     for (let i = 0; i < 12; i++) {
       const { user } = await createUser();
-      known.push(await timed(() => api.post('/api/auth/forgot').set('X-Forwarded-For', `198.51.100.${i + 1}`).send({ email: user.email })));
-      unknown.push(await timed(() => api.post('/api/auth/forgot').set('X-Forwarded-For', `198.51.100.${i + 101}`).send({ email: uniqueEmail('nobody') })));
+      known.push(
+        await timed(() =>
+          api
+            .post('/api/auth/forgot')
+            .set('X-Forwarded-For', `198.51.100.${i + 1}`)
+            .send({ email: user.email }),
+        ),
+      );
+      unknown.push(
+        await timed(() =>
+          api
+            .post('/api/auth/forgot')
+            .set('X-Forwarded-For', `198.51.100.${i + 101}`)
+            .send({ email: uniqueEmail('nobody') }),
+        ),
+      );
     }
     // The lookup and the mail run after the answer: both medians are a few ms apart at most.
     expect(Math.abs(median(known) - median(unknown))).toBeLessThan(Math.max(15, 0.5 * median(unknown)));
@@ -76,13 +90,33 @@ describe('neutral answers', () => {
     for (let i = 0; i < 8; i++) {
       const { user } = await createUser();
       const body = (email: string) => ({ email, password: 'amber-kettle-fjord-nine', displayName: 'Timing Test' });
-      const a = await api.post('/api/auth/register').set('X-Forwarded-For', `198.51.101.${i + 1}`).send(body(uniqueEmail('fresh')));
-      const b = await api.post('/api/auth/register').set('X-Forwarded-For', `198.51.101.${i + 101}`).send(body(user.email));
+      const a = await api
+        .post('/api/auth/register')
+        .set('X-Forwarded-For', `198.51.101.${i + 1}`)
+        .send(body(uniqueEmail('fresh')));
+      const b = await api
+        .post('/api/auth/register')
+        .set('X-Forwarded-For', `198.51.101.${i + 101}`)
+        .send(body(user.email));
       expect(a.status).toBe(201);
       expect(b.status).toBe(201);
       expect(b.body).toEqual(a.body);
-      fresh.push(await timed(() => api.post('/api/auth/register').set('X-Forwarded-For', `198.51.102.${i + 1}`).send(body(uniqueEmail('fresh')))));
-      taken.push(await timed(() => api.post('/api/auth/register').set('X-Forwarded-For', `198.51.102.${i + 101}`).send(body(user.email))));
+      fresh.push(
+        await timed(() =>
+          api
+            .post('/api/auth/register')
+            .set('X-Forwarded-For', `198.51.102.${i + 1}`)
+            .send(body(uniqueEmail('fresh'))),
+        ),
+      );
+      taken.push(
+        await timed(() =>
+          api
+            .post('/api/auth/register')
+            .set('X-Forwarded-For', `198.51.102.${i + 101}`)
+            .send(body(user.email)),
+        ),
+      );
     }
     // Both paths hash the password, run one INSERT … ON CONFLICT and queue one mail.
     expect(Math.abs(median(fresh) - median(taken))).toBeLessThan(Math.max(25, 0.35 * median(fresh)));

@@ -56,9 +56,23 @@ describe('signed-in user cache', () => {
     await feedUp();
     const { auth } = await createUser('bowler');
     const name = uniqueMarker('Cached list');
-    const list = async () => (await api.get('/api/arsenal').query({ q: name }).set(auth)).body as { items: { id: number; name: string; nickname: string | null }[]; total: number };
+    const list = async () =>
+      (await api.get('/api/arsenal').query({ q: name }).set(auth)).body as {
+        items: { id: number; name: string; nickname: string | null }[];
+        total: number;
+      };
     expect((await list()).total).toBe(0);
-    const created = await api.post('/api/arsenal').set(auth).send({ name, weightLb: 15, rg: 2.5, differential: 0.04, intermediateDifferential: 0, coverType: 'reactive-solid', coreType: 'symmetric', surfaceGrit: 2000, polished: false });
+    const created = await api.post('/api/arsenal').set(auth).send({
+      name,
+      weightLb: 15,
+      rg: 2.5,
+      differential: 0.04,
+      intermediateDifferential: 0,
+      coverType: 'reactive-solid',
+      coreType: 'symmetric',
+      surfaceGrit: 2000,
+      polished: false,
+    });
     expect(created.status).toBe(201);
     const after = await list();
     expect(after.total).toBe(1);

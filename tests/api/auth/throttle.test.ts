@@ -10,7 +10,14 @@ describe('per-account backoff after failed sign-ins', () => {
     const other = await createUser();
     const statuses: number[] = [];
     for (let i = 0; i < 25; i++) {
-      statuses.push((await api.post('/api/auth/login').set('X-Forwarded-For', `192.0.2.${i + 1}`).send({ email: user.email, password: `wrong-guess-${i}` })).status);
+      statuses.push(
+        (
+          await api
+            .post('/api/auth/login')
+            .set('X-Forwarded-For', `192.0.2.${i + 1}`)
+            .send({ email: user.email, password: `wrong-guess-${i}` })
+        ).status,
+      );
     }
     expect(statuses.slice(0, config.LOGIN_FAILURES_BEFORE_BACKOFF).every((s) => s === 401)).toBe(true);
     expect(statuses.slice(config.LOGIN_FAILURES_BEFORE_BACKOFF).every((s) => s === 429 || s === 401)).toBe(true);
@@ -20,24 +27,41 @@ describe('per-account backoff after failed sign-ins', () => {
     expect(right.status).toBe(429);
     expect(errorOf(right.body).code).toBe('too_many_failures');
     expect(Number(right.headers['retry-after'])).toBeGreaterThanOrEqual(1);
-    expect((await api.post('/api/auth/login').set('X-Forwarded-For', '192.0.2.201').send({ email: other.user.email, password: other.password })).status).toBe(200);
+    expect(
+      (await api.post('/api/auth/login').set('X-Forwarded-For', '192.0.2.201').send({ email: other.user.email, password: other.password }))
+        .status,
+    ).toBe(200);
   });
 
   it('an unknown address backs off the same way (which accounts exist does not show)', async () => {
     const ghost = uniqueEmail('ghost');
     const statuses: number[] = [];
-    for (let i = 0; i < config.LOGIN_FAILURES_BEFORE_BACKOFF + 1; i++) statuses.push((await api.post('/api/auth/login').set('X-Forwarded-For', `192.0.2.${100 + i}`).send({ email: ghost, password: 'wrong-guess' })).status);
+    for (let i = 0; i < config.LOGIN_FAILURES_BEFORE_BACKOFF + 1; i++)
+      statuses.push(
+        (
+          await api
+            .post('/api/auth/login')
+            .set('X-Forwarded-For', `192.0.2.${100 + i}`)
+            .send({ email: ghost, password: 'wrong-guess' })
+        ).status,
+      );
     expect(statuses.at(-1)).toBe(429);
   });
 
   it('the backoff doubles from one second: after waiting it out, the right password works and clears the count', async () => {
     const { user, password } = await createUser();
-    for (let i = 0; i < config.LOGIN_FAILURES_BEFORE_BACKOFF; i++) await api.post('/api/auth/login').set('X-Forwarded-For', `192.0.2.${150 + i}`).send({ email: user.email, password: 'wrong-guess' });
+    for (let i = 0; i < config.LOGIN_FAILURES_BEFORE_BACKOFF; i++)
+      await api
+        .post('/api/auth/login')
+        .set('X-Forwarded-For', `192.0.2.${150 + i}`)
+        .send({ email: user.email, password: 'wrong-guess' });
     const locked = await api.post('/api/auth/login').set('X-Forwarded-For', '192.0.2.160').send({ email: user.email, password });
     expect(locked.status).toBe(429);
     expect(locked.headers['retry-after']).toBe('1');
     await new Promise((r) => setTimeout(r, 1100));
-    expect((await api.post('/api/auth/login').set('X-Forwarded-For', '192.0.2.161').send({ email: user.email, password })).status).toBe(200);
+    expect((await api.post('/api/auth/login').set('X-Forwarded-For', '192.0.2.161').send({ email: user.email, password })).status).toBe(
+      200,
+    );
   });
 });
 
@@ -51,7 +75,10 @@ describe('with the default TRUST_PROXY (none), X-Forwarded-For does not change t
   it('rotating X-Forwarded-For from loopback does not reset the per-address limit', async () => {
     const statuses: number[] = [];
     for (let i = 0; i < 7; i++) {
-      const r = await call(server.base, 'POST', '/api/auth/login', { headers: { 'X-Forwarded-For': `203.0.113.${i + 1}` }, body: { email: `rotate-${i}-${Date.now()}@example.test`, password: 'wrong-guess' } });
+      const r = await call(server.base, 'POST', '/api/auth/login', {
+        headers: { 'X-Forwarded-For': `203.0.113.${i + 1}` },
+        body: { email: `rotate-${i}-${Date.now()}@example.test`, password: 'wrong-guess' },
+      });
       statuses.push(r.status);
     }
     expect(statuses.slice(0, 5)).toEqual([401, 401, 401, 401, 401]);

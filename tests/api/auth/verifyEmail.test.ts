@@ -8,7 +8,9 @@ import { mailedToken, waitForMail } from '../../helpers/mail';
 describe('e-mail verification', () => {
   it('sign-up mails a link built from PUBLIC_URL; the token verifies the address once', async () => {
     const email = uniqueEmail('verify');
-    expect((await api.post('/api/auth/register').send({ email, password: 'slow-river-copper-lamp', displayName: 'Vera Fyne' })).status).toBe(201);
+    expect(
+      (await api.post('/api/auth/register').send({ email, password: 'slow-river-copper-lamp', displayName: 'Vera Fyne' })).status,
+    ).toBe(201);
     const mail = await waitForMail(email, 5000, /confirm/i);
     expect(mail.text).toContain(`${publicUrl()}/verify-email?token=`);
     const token = await mailedToken(email, '/verify-email', /confirm/i);
@@ -64,14 +66,25 @@ describe('e-mail verification', () => {
 describe('password strength and safe names', () => {
   it('refuses common passwords and ones built from the e-mail or name, with a field message; a passphrase passes', async () => {
     const email = uniqueEmail('weak');
-    for (const password of ['password12', 'qwertyuiop', '1234567890', 'iloveyou12', email, `${email.split('@')[0]}!`, 'Ottoline Brack1', 'ottolinebrack']) {
+    for (const password of [
+      'password12',
+      'qwertyuiop',
+      '1234567890',
+      'iloveyou12',
+      email,
+      `${email.split('@')[0]}!`,
+      'Ottoline Brack1',
+      'ottolinebrack',
+    ]) {
       const res = await api.post('/api/auth/register').send({ email, password, displayName: 'Ottoline Brack' });
       expect(res.status, password).toBe(400);
       expect(errorOf(res.body).code).toBe('weak_password');
       expect(errorOf(res.body).fields?.['body.password']).toMatch(/too easy to guess/i);
     }
     expect(await User.count({ where: { email } })).toBe(0);
-    expect((await api.post('/api/auth/register').send({ email, password: 'amber-kettle-fjord-nine', displayName: 'Ottoline Brack' })).status).toBe(201);
+    expect(
+      (await api.post('/api/auth/register').send({ email, password: 'amber-kettle-fjord-nine', displayName: 'Ottoline Brack' })).status,
+    ).toBe(201);
   });
 
   it('a reset to a weak password is refused too', async () => {
@@ -87,12 +100,20 @@ describe('password strength and safe names', () => {
 
   it('names with control or text-direction characters are refused with a field message', async () => {
     for (const displayName of ['Eve\u202Egnp.exe', 'Bob\u0007', 'Line\nBreak', 'Iso\u2066late', 'Mark\u200F']) {
-      const res = await api.post('/api/auth/register').send({ email: uniqueEmail('name'), password: 'amber-kettle-fjord-nine', displayName });
+      const res = await api
+        .post('/api/auth/register')
+        .send({ email: uniqueEmail('name'), password: 'amber-kettle-fjord-nine', displayName });
       expect(res.status, JSON.stringify(displayName)).toBe(400);
       expect(errorOf(res.body).fields?.['body.displayName']).toMatch(/control or text-direction/);
     }
     const { auth } = await createUser('proprietor');
-    const pattern = await api.post('/api/patterns').set(auth).send({ name: 'House\u202E04', sweeps: [{ direction: 'forward', fromBoard: 2, toBoard: 38, startFt: 0, endFt: 40, crossings: 2, microlitersPerBoard: 65 }] });
+    const pattern = await api
+      .post('/api/patterns')
+      .set(auth)
+      .send({
+        name: 'House\u202E04',
+        sweeps: [{ direction: 'forward', fromBoard: 2, toBoard: 38, startFt: 0, endFt: 40, crossings: 2, microlitersPerBoard: 65 }],
+      });
     expect(pattern.status).toBe(400);
     expect(errorOf(pattern.body).fields).toHaveProperty(['body.name']);
   });

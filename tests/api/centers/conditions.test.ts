@@ -12,7 +12,10 @@ import { waitFor } from '../../helpers/wait';
 const today = () => new Date().toISOString().slice(0, 10);
 
 /** One center as the public list shows it, read page by page (the list has no search: it holds every center there is). */
-async function inCenterList(id: number, auth: { Authorization: string } | Record<string, never> = {}): Promise<Record<string, unknown> | undefined> {
+async function inCenterList(
+  id: number,
+  auth: { Authorization: string } | Record<string, never> = {},
+): Promise<Record<string, unknown> | undefined> {
   for (let page = 1; ; page += 1) {
     const res = await api.get('/api/centers').query({ page, pageSize: 100 }).set(auth);
     expect(res.status).toBe(200);
@@ -35,21 +38,40 @@ describe('publishing a condition', () => {
     expect((await api.post(`/api/centers/${center.id}/conditions`).set(rival.auth).send(body)).status).toBe(403);
     expect((await api.post(`/api/centers/${center.id}/conditions`).send(body)).status).toBe(401);
     expect(await Condition.count({ where: { centerId: center.id } })).toBe(0);
-    const ok = await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ ...body, notes: 'Fresh oil' });
+    const ok = await api
+      .post(`/api/centers/${center.id}/conditions`)
+      .set(owner.auth)
+      .send({ ...body, notes: 'Fresh oil' });
     expect(ok.status).toBe(201);
-    expect(ok.body.item).toMatchObject({ centerId: center.id, lanes: [1, 2, 3], validFrom: today(), validTo: null, notes: 'Fresh oil', pattern: { id: pattern.id, name: pattern.name, summary: pattern.summary } });
+    expect(ok.body.item).toMatchObject({
+      centerId: center.id,
+      lanes: [1, 2, 3],
+      validFrom: today(),
+      validTo: null,
+      notes: 'Fresh oil',
+      pattern: { id: pattern.id, name: pattern.name, summary: pattern.summary },
+    });
   });
 
   it('refuses lanes the center does not have, an end before the start and an unknown pattern, by field', async () => {
     const owner = await createUser('proprietor');
     const center = await createCenter(owner.user.id, 12);
     const pattern = await createPattern(owner.user.id);
-    const lanes = await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: pattern.id, lanes: [11, 12, 13], validFrom: today() });
+    const lanes = await api
+      .post(`/api/centers/${center.id}/conditions`)
+      .set(owner.auth)
+      .send({ patternId: pattern.id, lanes: [11, 12, 13], validFrom: today() });
     expect(lanes.status).toBe(400);
     expect(errorOf(lanes.body).fields).toHaveProperty(['body.lanes']);
-    const dates = await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: pattern.id, lanes: [1], validFrom: today(), validTo: daysFromNow(-3) });
+    const dates = await api
+      .post(`/api/centers/${center.id}/conditions`)
+      .set(owner.auth)
+      .send({ patternId: pattern.id, lanes: [1], validFrom: today(), validTo: daysFromNow(-3) });
     expect(errorOf(dates.body).fields).toHaveProperty(['body.validTo']);
-    const unknown = await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: 99999999, lanes: [1], validFrom: today() });
+    const unknown = await api
+      .post(`/api/centers/${center.id}/conditions`)
+      .set(owner.auth)
+      .send({ patternId: 99999999, lanes: [1], validFrom: today() });
     expect(errorOf(unknown.body).fields).toHaveProperty(['body.patternId']);
     expect(await Condition.count({ where: { centerId: center.id } })).toBe(0);
   });
@@ -59,10 +81,20 @@ describe('publishing a condition', () => {
     const center = await createCenter(owner.user.id);
     const first = await createPattern(owner.user.id, LONG_HEAVY);
     const second = await createPattern(owner.user.id, SHORT_LIGHT);
-    const a = (await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: first.id, lanes: [1, 2], validFrom: today() })).body.item;
+    const a = (
+      await api
+        .post(`/api/centers/${center.id}/conditions`)
+        .set(owner.auth)
+        .send({ patternId: first.id, lanes: [1, 2], validFrom: today() })
+    ).body.item;
     // The pattern is edited after publishing: the publication keeps its snapshot.
     await api.patch(`/api/patterns/${first.id}`).set(owner.auth).send({ version: first.version, sweeps: SHORT_LIGHT });
-    const b = (await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: second.id, lanes: [2, 3], validFrom: today() })).body.item;
+    const b = (
+      await api
+        .post(`/api/centers/${center.id}/conditions`)
+        .set(owner.auth)
+        .send({ patternId: second.id, lanes: [2, 3], validFrom: today() })
+    ).body.item;
     const history = await api.get(`/api/centers/${center.id}/conditions`);
     expect(history.status).toBe(200);
     expect(history.body.total).toBe(2);
@@ -87,13 +119,20 @@ describe('the lane surface of a condition', () => {
     const row = (await Condition.findByPk(res.body.item.id))!;
     expect([row.laneKind, row.laneFriction]).toEqual(['wood', 'high']);
     const current = await api.get(`/api/centers/${center.id}/conditions/current`);
-    expect(current.body).toMatchObject({ lane: { kind: 'wood', friction: 'high' }, laneText: 'Wood lanes, high friction', condition: { lane: { kind: 'wood', friction: 'high' } } });
-    expect((await api.get(`/api/centers/${center.id}/conditions`)).body.items[0]).toMatchObject({ laneText: 'Wood lanes, high friction' });
-    const pdf = await api.get(`/api/centers/${center.id}/conditions/current.pdf`).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
+    expect(current.body).toMatchObject({
+      lane: { kind: 'wood', friction: 'high' },
+      laneText: 'Wood lanes, high friction',
+      condition: { lane: { kind: 'wood', friction: 'high' } },
     });
+    expect((await api.get(`/api/centers/${center.id}/conditions`)).body.items[0]).toMatchObject({ laneText: 'Wood lanes, high friction' });
+    const pdf = await api
+      .get(`/api/centers/${center.id}/conditions/current.pdf`)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     const parser = new PDFParse({ data: new Uint8Array(pdf.body as Buffer) });
     const { text } = await parser.getText();
     await parser.destroy();
@@ -104,15 +143,27 @@ describe('the lane surface of a condition', () => {
     const owner = await createUser('proprietor');
     const center = await createCenter(owner.user.id);
     const pattern = await createPattern(owner.user.id);
-    const plain = await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: pattern.id, lanes: [1], validFrom: today() });
-    expect(plain.body.item).toMatchObject({ lane: { kind: 'synthetic', friction: 'medium' }, laneText: 'Synthetic lanes, medium friction' });
+    const plain = await api
+      .post(`/api/centers/${center.id}/conditions`)
+      .set(owner.auth)
+      .send({ patternId: pattern.id, lanes: [1], validFrom: today() });
+    expect(plain.body.item).toMatchObject({
+      lane: { kind: 'synthetic', friction: 'medium' },
+      laneText: 'Synthetic lanes, medium friction',
+    });
     const bad = await api
       .post(`/api/centers/${center.id}/conditions`)
       .set(owner.auth)
       .send({ patternId: pattern.id, lanes: [1], validFrom: today(), lane: { kind: 'maple', friction: 'extreme' } });
     expect(bad.status).toBe(400);
-    expect(errorOf(bad.body).fields).toMatchObject({ 'body.lane.kind': 'The lanes are wood or synthetic', 'body.lane.friction': 'Lane friction is low, medium or high' });
-    const missing = await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: pattern.id, lanes: [1], validFrom: today(), lane: { kind: 'wood' } });
+    expect(errorOf(bad.body).fields).toMatchObject({
+      'body.lane.kind': 'The lanes are wood or synthetic',
+      'body.lane.friction': 'Lane friction is low, medium or high',
+    });
+    const missing = await api
+      .post(`/api/centers/${center.id}/conditions`)
+      .set(owner.auth)
+      .send({ patternId: pattern.id, lanes: [1], validFrom: today(), lane: { kind: 'wood' } });
     expect(errorOf(missing.body).fields).toHaveProperty(['body.lane.friction']);
     expect(await Condition.count({ where: { centerId: center.id } })).toBe(1);
   });
@@ -123,7 +174,10 @@ describe('the lane surface of a condition', () => {
     const pattern = await createPattern(owner.user.id);
     const fan = await createUser();
     await api.post(`/api/centers/${center.id}/follow`).set(fan.auth);
-    await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: pattern.id, lanes: [1], validFrom: today(), lane: { kind: 'synthetic', friction: 'low' } });
+    await api
+      .post(`/api/centers/${center.id}/conditions`)
+      .set(owner.auth)
+      .send({ patternId: pattern.id, lanes: [1], validFrom: today(), lane: { kind: 'synthetic', friction: 'low' } });
     expect((await waitForMail(fan.user.email)).text).toContain('Synthetic lanes, low friction.');
   });
 });
@@ -133,12 +187,24 @@ describe('the public current condition', () => {
     const owner = await createUser('proprietor');
     const center = await createCenter(owner.user.id);
     const pattern = await createPattern(owner.user.id, LONG_HEAVY);
-    await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: pattern.id, lanes: [5, 6], validFrom: daysFromNow(-1), validTo: daysFromNow(5), notes: 'League night' });
+    await api
+      .post(`/api/centers/${center.id}/conditions`)
+      .set(owner.auth)
+      .send({ patternId: pattern.id, lanes: [5, 6], validFrom: daysFromNow(-1), validTo: daysFromNow(5), notes: 'League night' });
     // A future publication is not yet current.
-    await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: pattern.id, lanes: [5], validFrom: daysFromNow(10) });
+    await api
+      .post(`/api/centers/${center.id}/conditions`)
+      .set(owner.auth)
+      .send({ patternId: pattern.id, lanes: [5], validFrom: daysFromNow(10) });
     const res = await api.get(`/api/centers/${center.id}/conditions/current`);
     expect(res.status).toBe(200);
-    expect(res.body).toMatchObject({ center: { id: center.id, name: center.name }, lanes: [5, 6], validFrom: daysFromNow(-1), validTo: daysFromNow(5), notes: 'League night' });
+    expect(res.body).toMatchObject({
+      center: { id: center.id, name: center.name },
+      lanes: [5, 6],
+      validFrom: daysFromNow(-1),
+      validTo: daysFromNow(5),
+      notes: 'League night',
+    });
     expect(res.body.pattern.summary.volumeMl).toBeCloseTo(pattern.summary.volumeMl, 9);
     expect(res.body.pattern.sweeps).toEqual(LONG_HEAVY);
   });
@@ -156,12 +222,18 @@ describe('the public current condition', () => {
     const owner = await createUser('proprietor');
     const center = await createCenter(owner.user.id);
     const pattern = await createPattern(owner.user.id, LONG_HEAVY);
-    await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: pattern.id, lanes: [1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12], validFrom: today(), notes: 'Stripped nightly' });
-    const res = await api.get(`/api/centers/${center.id}/conditions/current.pdf`).buffer(true).parse((r, cb) => {
-      const chunks: Buffer[] = [];
-      r.on('data', (c: Buffer) => chunks.push(c));
-      r.on('end', () => cb(null, Buffer.concat(chunks)));
-    });
+    await api
+      .post(`/api/centers/${center.id}/conditions`)
+      .set(owner.auth)
+      .send({ patternId: pattern.id, lanes: [1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12], validFrom: today(), notes: 'Stripped nightly' });
+    const res = await api
+      .get(`/api/centers/${center.id}/conditions/current.pdf`)
+      .buffer(true)
+      .parse((r, cb) => {
+        const chunks: Buffer[] = [];
+        r.on('data', (c: Buffer) => chunks.push(c));
+        r.on('end', () => cb(null, Buffer.concat(chunks)));
+      });
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toBe('application/pdf');
     const pdf = res.body as Buffer;
@@ -191,13 +263,19 @@ describe('followers', () => {
     await api.post(`/api/centers/${center.id}/follow`).set(f2.auth);
     await api.post(`/api/centers/${center.id}/follow`).set(f2.auth); // twice: still one follow
     expect(await Follow.count({ where: { centerId: center.id } })).toBe(2);
-    const pub = await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: pattern.id, lanes: [1], validFrom: today() });
+    const pub = await api
+      .post(`/api/centers/${center.id}/conditions`)
+      .set(owner.auth)
+      .send({ patternId: pattern.id, lanes: [1], validFrom: today() });
     expect(pub.status).toBe(201);
     const m1 = await waitForMail(f1.user.email);
     await waitForMail(f2.user.email);
     // Every message of this publication is sent (none left for a retry), and the sweep for unsent mail finds nothing.
     const ofThis = { ref: { [Op.like]: `${pub.body.item.id}:%` } };
-    await waitFor(() => MailOutbox.count({ where: { ...ofThis, status: { [Op.ne]: 'sent' } } }), (n) => n === 0);
+    await waitFor(
+      () => MailOutbox.count({ where: { ...ofThis, status: { [Op.ne]: 'sent' } } }),
+      (n) => n === 0,
+    );
     expect(await MailOutbox.count({ where: ofThis })).toBe(2);
     expect(await requeuePendingMail()).toBe(0);
     expect(capturedMail().filter((m) => m.to.includes(f1.user.email))).toHaveLength(1);
@@ -223,7 +301,10 @@ describe('followers', () => {
     const pattern = await createPattern(owner.user.id);
     const me = await createUser();
     await api.post(`/api/centers/${center.id}/follow`).set(me.auth);
-    await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: pattern.id, lanes: [1], validFrom: today() });
+    await api
+      .post(`/api/centers/${center.id}/conditions`)
+      .set(owner.auth)
+      .send({ patternId: pattern.id, lanes: [1], validFrom: today() });
     const list = await api.get('/api/follows').set(me.auth);
     expect(list.status).toBe(200);
     expect(list.body.items).toHaveLength(1);
@@ -243,12 +324,30 @@ describe('followers', () => {
     const p2 = await createPattern(owner.user.id, SHORT_LIGHT);
     const me = await createUser();
     for (const c of [a, b, empty]) await api.post(`/api/centers/${c.id}/follow`).set(me.auth);
-    await api.post(`/api/centers/${a.id}/conditions`).set(owner.auth).send({ patternId: p2.id, lanes: [1], validFrom: today() });
-    await api.post(`/api/centers/${a.id}/conditions`).set(owner.auth).send({ patternId: p1.id, lanes: [1], validFrom: today() });
-    await api.post(`/api/centers/${b.id}/conditions`).set(owner.auth).send({ patternId: p2.id, lanes: [1], validFrom: today() });
-    const items = (await api.get('/api/follows').set(me.auth)).body.items as { center: { id: number }; current: { pattern: { id: number } } | null }[];
+    await api
+      .post(`/api/centers/${a.id}/conditions`)
+      .set(owner.auth)
+      .send({ patternId: p2.id, lanes: [1], validFrom: today() });
+    await api
+      .post(`/api/centers/${a.id}/conditions`)
+      .set(owner.auth)
+      .send({ patternId: p1.id, lanes: [1], validFrom: today() });
+    await api
+      .post(`/api/centers/${b.id}/conditions`)
+      .set(owner.auth)
+      .send({ patternId: p2.id, lanes: [1], validFrom: today() });
+    const items = (await api.get('/api/follows').set(me.auth)).body.items as {
+      center: { id: number };
+      current: { pattern: { id: number } } | null;
+    }[];
     const byCenter = new Map(items.map((i) => [i.center.id, i.current?.pattern.id ?? null]));
-    expect(byCenter).toEqual(new Map([[a.id, p1.id], [b.id, p2.id], [empty.id, null]]));
+    expect(byCenter).toEqual(
+      new Map([
+        [a.id, p1.id],
+        [b.id, p2.id],
+        [empty.id, null],
+      ]),
+    );
   });
 
   it('lists every publication still in force at a followed center with the lanes it still governs, newest first', async () => {
@@ -258,13 +357,32 @@ describe('followers', () => {
     const league = await createPattern(owner.user.id, SHORT_LIGHT);
     const me = await createUser();
     await api.post(`/api/centers/${center.id}/follow`).set(me.auth);
-    const a = (await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: house.id, lanes: [1, 2, 3, 4, 5, 6, 7, 8], validFrom: today(), lane: { kind: 'synthetic', friction: 'high' } })).body.item;
-    const b = (await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: league.id, lanes: [1, 2, 3, 4], validFrom: today() })).body.item;
+    const a = (
+      await api
+        .post(`/api/centers/${center.id}/conditions`)
+        .set(owner.auth)
+        .send({ patternId: house.id, lanes: [1, 2, 3, 4, 5, 6, 7, 8], validFrom: today(), lane: { kind: 'synthetic', friction: 'high' } })
+    ).body.item;
+    const b = (
+      await api
+        .post(`/api/centers/${center.id}/conditions`)
+        .set(owner.auth)
+        .send({ patternId: league.id, lanes: [1, 2, 3, 4], validFrom: today() })
+    ).body.item;
     // Replaced everywhere it was: no longer listed.
-    await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: league.id, lanes: [5], validFrom: daysFromNow(-3), validTo: daysFromNow(-1) });
+    await api
+      .post(`/api/centers/${center.id}/conditions`)
+      .set(owner.auth)
+      .send({ patternId: league.id, lanes: [5], validFrom: daysFromNow(-3), validTo: daysFromNow(-1) });
     const [item] = (await api.get('/api/follows').set(me.auth)).body.items;
     expect(item.current.id).toBe(b.id);
-    expect(item.inForce.map((x: { condition: { id: number; laneText: string }; lanes: number[] }) => [x.condition.id, x.lanes, x.condition.laneText])).toEqual([
+    expect(
+      item.inForce.map((x: { condition: { id: number; laneText: string }; lanes: number[] }) => [
+        x.condition.id,
+        x.lanes,
+        x.condition.laneText,
+      ]),
+    ).toEqual([
       [b.id, [1, 2, 3, 4], 'Synthetic lanes, medium friction'],
       [a.id, [5, 6, 7, 8], 'Synthetic lanes, high friction'],
     ]);
@@ -295,9 +413,15 @@ describe('centers', () => {
     const prop = await createUser('proprietor');
     const bowler = await createUser();
     expect((await api.post('/api/centers').set(prop.auth).send({ name: 'Mine', town: 'X', laneCount: 8 })).status).toBe(403);
-    const notProp = await api.post('/api/centers').set(admin.auth).send({ name: 'Bad Owner', town: 'X', laneCount: 8, ownerId: bowler.user.id });
+    const notProp = await api
+      .post('/api/centers')
+      .set(admin.auth)
+      .send({ name: 'Bad Owner', town: 'X', laneCount: 8, ownerId: bowler.user.id });
     expect(notProp.status).toBe(400);
-    const res = await api.post('/api/centers').set(admin.auth).send({ name: 'Brine Street Lanes', town: 'Quayside', laneCount: 8, ownerId: prop.user.id });
+    const res = await api
+      .post('/api/centers')
+      .set(admin.auth)
+      .send({ name: 'Brine Street Lanes', town: 'Quayside', laneCount: 8, ownerId: prop.user.id });
     expect(res.status).toBe(201);
     const mine = await api.get('/api/centers/mine').set(prop.auth);
     expect(mine.body.items.map((c: { id: number }) => c.id)).toContain(res.body.item.id);

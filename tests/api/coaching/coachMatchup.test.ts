@@ -8,7 +8,11 @@ import { api, calibrationsIdle, createUser } from '../../helpers/api';
 import { createBall, createPattern, URETHANE } from '../../helpers/fixtures';
 import { linkRow, newKey } from '../sessions/shotlog';
 
-interface Ranking { ballId: number; frictionScale?: number; reasons: { rule: string }[] }
+interface Ranking {
+  ballId: number;
+  frictionScale?: number;
+  reasons: { rule: string }[];
+}
 
 describe('POST /api/matchups with studentId', () => {
   it('a linked coach ranks the student’s arsenal; an unlinked coach, a revoked one and another bowler get 404', async () => {
@@ -27,7 +31,8 @@ describe('POST /api/matchups with studentId', () => {
     expect(res.status).toBe(200);
     expect(res.body.rankings.map((r: Ranking) => r.ballId).sort()).toEqual([a.id, b.id].sort());
     expect(res.body.calibration).toMatchObject({ applied: false, shots: 0 });
-    for (const who of [unlinked, former, other]) expect((await api.post('/api/matchups').set(who.auth).send({ patternId: p.id, studentId: student.user.id })).status).toBe(404);
+    for (const who of [unlinked, former, other])
+      expect((await api.post('/api/matchups').set(who.auth).send({ patternId: p.id, studentId: student.user.id })).status).toBe(404);
     // My own id as studentId is simply my own matchup.
     expect((await api.post('/api/matchups').set(student.auth).send({ patternId: p.id, studentId: student.user.id })).status).toBe(200);
   });
@@ -50,16 +55,33 @@ describe('calibration from logged shots', () => {
     const before = await api.post('/api/matchups').set(me.auth).send({ patternId: pattern.id });
     expect(before.body.calibration).toMatchObject({ applied: false, shots: 0 });
 
-    const sid = (await api.post('/api/sessions').set(me.auth).send({ date: '2026-11-25', kind: 'practice', patternId: pattern.id })).body.item.id;
+    const sid = (await api.post('/api/sessions').set(me.auth).send({ date: '2026-11-25', kind: 'practice', patternId: pattern.id })).body
+      .item.id;
     // A perfect game (twelve strikes) at targets around the solved one; breakpoints read to the half board from the model.
     const targets = [-2, -1.5, -1, -0.5, 0, 0.5, 1, 1.5, 2, -1, 0, 1].map((d) => Math.round(solved.targetBoard) + d);
     for (const [i, target] of targets.entries()) {
-      const p = simulateShot({ ball: spec, bowler, pattern: { name: pattern.name, sweeps: pattern.sweeps }, laydownBoard: laydown, targetBoard: target, frictionScale: TRUE_SCALE });
+      const p = simulateShot({
+        ball: spec,
+        bowler,
+        pattern: { name: pattern.name, sweeps: pattern.sweeps },
+        laydownBoard: laydown,
+        targetBoard: target,
+        frictionScale: TRUE_SCALE,
+      });
       const res = await api
         .post(`/api/sessions/${sid}/shots`)
         .set(me.auth)
         .set('Idempotency-Key', newKey())
-        .send({ gameNumber: 1, frame: i < 9 ? i + 1 : 10, delivery: i < 9 ? 1 : i - 8, ballId: ball.id, standing: [], feetBoard: laydown + LAYDOWN_OFFSET_BOARDS, targetBoard: target, breakpointBoard: Math.round(p.breakpoint.board * 2) / 2 });
+        .send({
+          gameNumber: 1,
+          frame: i < 9 ? i + 1 : 10,
+          delivery: i < 9 ? 1 : i - 8,
+          ballId: ball.id,
+          standing: [],
+          feetBoard: laydown + LAYDOWN_OFFSET_BOARDS,
+          targetBoard: target,
+          breakpointBoard: Math.round(p.breakpoint.board * 2) / 2,
+        });
       expect(res.status, JSON.stringify(res.body)).toBe(201);
     }
     // The fit is computed by the job worker after the shots are logged; readers get the stored fit.
@@ -70,12 +92,28 @@ describe('calibration from logged shots', () => {
     // A second game brings the first balls to 20.
     for (let f = 1; f <= 10; f++) {
       const target = targets[f - 1];
-      const p = simulateShot({ ball: spec, bowler, pattern: { name: pattern.name, sweeps: pattern.sweeps }, laydownBoard: laydown, targetBoard: target, frictionScale: TRUE_SCALE });
+      const p = simulateShot({
+        ball: spec,
+        bowler,
+        pattern: { name: pattern.name, sweeps: pattern.sweeps },
+        laydownBoard: laydown,
+        targetBoard: target,
+        frictionScale: TRUE_SCALE,
+      });
       const res = await api
         .post(`/api/sessions/${sid}/shots`)
         .set(me.auth)
         .set('Idempotency-Key', newKey())
-        .send({ gameNumber: 2, frame: f, delivery: 1, ballId: ball.id, standing: [], feetBoard: laydown + LAYDOWN_OFFSET_BOARDS, targetBoard: target, breakpointBoard: Math.round(p.breakpoint.board * 2) / 2 });
+        .send({
+          gameNumber: 2,
+          frame: f,
+          delivery: 1,
+          ballId: ball.id,
+          standing: [],
+          feetBoard: laydown + LAYDOWN_OFFSET_BOARDS,
+          targetBoard: target,
+          breakpointBoard: Math.round(p.breakpoint.board * 2) / 2,
+        });
       expect(res.status, JSON.stringify(res.body)).toBe(201);
     }
     await calibrationsIdle(me.user.id);

@@ -16,7 +16,10 @@ describe('invitations: a coach invites, the student accepts', () => {
     expect(res.status).toBe(201);
     // Nothing about the invitee until they accept: only the address the coach typed.
     expect(res.body.item).toMatchObject({
-      status: 'pending', email: student.user.email, acceptedAt: null, student: null,
+      status: 'pending',
+      email: student.user.email,
+      acceptedAt: null,
+      student: null,
       coach: { id: coach.user.id, displayName: coach.user.displayName, email: coach.user.email },
     });
     const id = res.body.item.id as number;
@@ -167,7 +170,8 @@ describe('students', () => {
     await linkRow(coach.user.id, student.user);
     await linkRow(pendingCoach.user.id, student.user, 'pending');
     expect((await api.get(`/api/coach/students/${student.user.id}`).set(coach.auth)).status).toBe(200);
-    for (const who of [unlinked, pendingCoach, bowler]) expect((await api.get(`/api/coach/students/${student.user.id}`).set(who.auth)).status).toBe(404);
+    for (const who of [unlinked, pendingCoach, bowler])
+      expect((await api.get(`/api/coach/students/${student.user.id}`).set(who.auth)).status).toBe(404);
     expect((await api.get('/api/coach/students/abc').set(coach.auth)).status).toBe(400);
     expect((await api.get(`/api/coach/students/${student.user.id}`)).status).toBe(401);
   });
@@ -179,14 +183,24 @@ describe('plans', () => {
     const student = await createUser();
     const ball = await createBall(student.user.id);
     await linkRow(coach.user.id, student.user);
-    const first = await api.post(`/api/coach/students/${student.user.id}/plans`).set(coach.auth).send({ title: 'Move left 2 and 1', kind: 'line', body: 'Feet 2 left, eyes 1 left once the fronts hook.' });
+    const first = await api
+      .post(`/api/coach/students/${student.user.id}/plans`)
+      .set(coach.auth)
+      .send({ title: 'Move left 2 and 1', kind: 'line', body: 'Feet 2 left, eyes 1 left once the fronts hook.' });
     expect(first.status).toBe(201);
     const second = await api
       .post(`/api/coach/students/${student.user.id}/plans`)
       .set(coach.auth)
       .send({ title: 'Take it to 3000', kind: 'surface', body: 'Sand to 3000 grit for the long pattern.', ballId: ball.id });
     expect(second.status).toBe(201);
-    expect(second.body.item).toMatchObject({ coachId: coach.user.id, coachName: coach.user.displayName, studentId: student.user.id, kind: 'surface', ballId: ball.id, ballName: ball.name });
+    expect(second.body.item).toMatchObject({
+      coachId: coach.user.id,
+      coachName: coach.user.displayName,
+      studentId: student.user.id,
+      kind: 'surface',
+      ballId: ball.id,
+      ballName: ball.name,
+    });
     expect(await Plan.count({ where: { studentId: student.user.id } })).toBe(2);
     expect(await audited('coach.plan_sent', second.body.item.id)).toMatchObject({ actorId: coach.user.id });
     expect(await MailOutbox.findOne({ where: { kind: 'coach_plan', ref: String(second.body.item.id) } })).not.toBeNull();
@@ -212,7 +226,10 @@ describe('plans', () => {
       expect((await api.post(`/api/coach/students/${student.user.id}/plans`).set(who.auth).send(plan)).status).toBe(404);
       expect((await api.get(`/api/coach/students/${student.user.id}/plans`).set(who.auth)).status).toBe(404);
     }
-    const wrongBall = await api.post(`/api/coach/students/${student.user.id}/plans`).set(coach.auth).send({ ...plan, ballId: othersBall.id });
+    const wrongBall = await api
+      .post(`/api/coach/students/${student.user.id}/plans`)
+      .set(coach.auth)
+      .send({ ...plan, ballId: othersBall.id });
     expect(wrongBall.status).toBe(400);
     expect(errorOf(wrongBall.body).fields).toHaveProperty(['body.ballId']);
     const bad = await api.post(`/api/coach/students/${student.user.id}/plans`).set(coach.auth).send({ title: '', kind: 'vibes', body: '' });

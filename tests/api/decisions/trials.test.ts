@@ -9,7 +9,10 @@ const STRIKE_GAME: FrameLog[] = [...Array.from({ length: 9 }, () => [[]]), [[], 
 const TEN_PIN_GAME: FrameLog[] = [...Array.from({ length: 9 }, () => [[10], []]), [[10], [], []]];
 
 async function session(auth: { Authorization: string }, date: string, patternId?: number): Promise<number> {
-  const r = await api.post('/api/sessions').set(auth).send({ date, kind: 'practice', ...(patternId ? { patternId } : {}) });
+  const r = await api
+    .post('/api/sessions')
+    .set(auth)
+    .send({ date, kind: 'practice', ...(patternId ? { patternId } : {}) });
   expect(r.status).toBe(201);
   return r.body.item.id as number;
 }
@@ -20,16 +23,28 @@ describe('POST /api/trials', () => {
     const other = await createUser();
     const mine = await createBall(me.user.id);
     const theirs = await createBall(other.user.id);
-    const one = await api.post('/api/trials').set(me.auth).send({ name: 'Layouts', arms: [{ ballId: mine.id }] });
+    const one = await api
+      .post('/api/trials')
+      .set(me.auth)
+      .send({ name: 'Layouts', arms: [{ ballId: mine.id }] });
     expect(one.status).toBe(400);
     expect(errorOf(one.body).fields).toHaveProperty(['body.arms']);
-    const foreign = await api.post('/api/trials').set(me.auth).send({ name: 'Layouts', arms: [{ ballId: mine.id }, { ballId: theirs.id }] });
+    const foreign = await api
+      .post('/api/trials')
+      .set(me.auth)
+      .send({ name: 'Layouts', arms: [{ ballId: mine.id }, { ballId: theirs.id }] });
     expect(foreign.status).toBe(400);
     expect(errorOf(foreign.body).fields).toEqual({ 'body.arms.1.ballId': 'Not a ball in this arsenal' });
-    const unnamed = await api.post('/api/trials').set(me.auth).send({ name: ' ', arms: [{ ballId: mine.id }, { ballId: mine.id, surfaceKey: '4000 grit' }] });
+    const unnamed = await api
+      .post('/api/trials')
+      .set(me.auth)
+      .send({ name: ' ', arms: [{ ballId: mine.id }, { ballId: mine.id, surfaceKey: '4000 grit' }] });
     expect(unnamed.status).toBe(400);
     expect(errorOf(unnamed.body).fields).toHaveProperty(['body.name']);
-    const twice = await api.post('/api/trials').set(me.auth).send({ name: 'Same', arms: [{ ballId: mine.id }, { ballId: mine.id }] });
+    const twice = await api
+      .post('/api/trials')
+      .set(me.auth)
+      .send({ name: 'Same', arms: [{ ballId: mine.id }, { ballId: mine.id }] });
     expect(twice.status).toBe(400);
     expect((await api.get('/api/trials').set(me.auth)).body.items).toEqual([]);
   });
@@ -41,12 +56,23 @@ describe('GET /api/trials/:id: the comparison of two layouts', () => {
     const pattern = await createPattern(null);
     const a = await createBall(me.user.id);
     const b = await createBall(me.user.id);
-    await api.patch(`/api/arsenal/${a.id}`).set(me.auth).send({ version: a.version, layout: { pinToPapIn: 4.375, drillingAngleDeg: 50, valAngleDeg: 40 } }).expect(200);
-    await api.patch(`/api/arsenal/${b.id}`).set(me.auth).send({ version: b.version, layout: { pinToPapIn: 2, drillingAngleDeg: 70 } }).expect(200);
+    await api
+      .patch(`/api/arsenal/${a.id}`)
+      .set(me.auth)
+      .send({ version: a.version, layout: { pinToPapIn: 4.375, drillingAngleDeg: 50, valAngleDeg: 40 } })
+      .expect(200);
+    await api
+      .patch(`/api/arsenal/${b.id}`)
+      .set(me.auth)
+      .send({ version: b.version, layout: { pinToPapIn: 2, drillingAngleDeg: 70 } })
+      .expect(200);
     // shots before the trial and on another pattern do not count
     const before = await session(me.auth, '2026-11-01', pattern.id);
     await logGame(me.auth, before, 1, STRIKE_GAME, () => ({}), b.id);
-    const created = await api.post('/api/trials').set(me.auth).send({ name: 'Pin up or pin down', patternId: pattern.id, startDate: '2026-11-10', arms: [{ ballId: a.id }, { ballId: b.id }] });
+    const created = await api
+      .post('/api/trials')
+      .set(me.auth)
+      .send({ name: 'Pin up or pin down', patternId: pattern.id, startDate: '2026-11-10', arms: [{ ballId: a.id }, { ballId: b.id }] });
     expect(created.status).toBe(201);
     const trialId = created.body.item.id as number;
     expect(created.body.item.arms.map((x: { label: string }) => x.label)).toEqual([a.name, b.name]);
@@ -54,8 +80,22 @@ describe('GET /api/trials/:id: the comparison of two layouts', () => {
     await logGame(me.auth, elsewhere, 1, STRIKE_GAME, () => ({}), b.id);
 
     const s1 = await session(me.auth, '2026-11-12', pattern.id);
-    await logGame(me.auth, s1, 1, STRIKE_GAME, (d) => (d.delivery === 1 && d.frame < 10 ? { feetBoard: 20, targetBoard: 12, breakpointBoard: 8, hit: 'pocket' } : {}), a.id);
-    await logGame(me.auth, s1, 2, TEN_PIN_GAME, (d) => (d.delivery === 1 && d.frame < 10 ? { feetBoard: 20, targetBoard: 12, breakpointBoard: 6, hit: 'light' } : {}), b.id);
+    await logGame(
+      me.auth,
+      s1,
+      1,
+      STRIKE_GAME,
+      (d) => (d.delivery === 1 && d.frame < 10 ? { feetBoard: 20, targetBoard: 12, breakpointBoard: 8, hit: 'pocket' } : {}),
+      a.id,
+    );
+    await logGame(
+      me.auth,
+      s1,
+      2,
+      TEN_PIN_GAME,
+      (d) => (d.delivery === 1 && d.frame < 10 ? { feetBoard: 20, targetBoard: 12, breakpointBoard: 6, hit: 'light' } : {}),
+      b.id,
+    );
     const early = await api.get(`/api/trials/${trialId}`).set(me.auth);
     expect(early.status).toBe(200);
     const [armA, armB] = early.body.item.comparison.arms;
@@ -71,7 +111,15 @@ describe('GET /api/trials/:id: the comparison of two layouts', () => {
     expect(verdict.kind).toBe('clear');
 
     // with only a few shots for one arm the verdict is "not enough shots yet"
-    const few = await api.post('/api/trials').set(me.auth).send({ name: 'Too early', patternId: pattern.id, startDate: '2026-11-12', arms: [{ ballId: a.id }, { ballId: b.id, surfaceKey: '4000 grit' }] });
+    const few = await api
+      .post('/api/trials')
+      .set(me.auth)
+      .send({
+        name: 'Too early',
+        patternId: pattern.id,
+        startDate: '2026-11-12',
+        arms: [{ ballId: a.id }, { ballId: b.id, surfaceKey: '4000 grit' }],
+      });
     const fewRes = await api.get(`/api/trials/${few.body.item.id}`).set(me.auth);
     expect(fewRes.body.item.comparison.arms[1].strike.n).toBe(0);
     expect(fewRes.body.item.comparison.verdict.kind).toBe('not-enough');
@@ -85,7 +133,10 @@ describe('GET /api/trials/:id: the comparison of two layouts', () => {
     await linkRow(coach.user.id, student.user);
     const ball = await createBall(student.user.id);
     const pearl = await createBall(student.user.id, POLISHED_PEARL);
-    const byCoach = await api.post('/api/trials').set(coach.auth).send({ name: 'Solid or pearl', studentId: student.user.id, arms: [{ ballId: ball.id }, { ballId: pearl.id }] });
+    const byCoach = await api
+      .post('/api/trials')
+      .set(coach.auth)
+      .send({ name: 'Solid or pearl', studentId: student.user.id, arms: [{ ballId: ball.id }, { ballId: pearl.id }] });
     expect(byCoach.status).toBe(201);
     expect(byCoach.body.item).toMatchObject({ userId: student.user.id, createdBy: coach.user.id });
     const id = byCoach.body.item.id as number;
@@ -94,7 +145,10 @@ describe('GET /api/trials/:id: the comparison of two layouts', () => {
     expect((await api.get(`/api/trials/${id}`).set(stranger.auth)).status).toBe(404);
     expect((await api.get(`/api/trials?studentId=${student.user.id}`).set(stranger.auth)).status).toBe(404);
     expect((await api.delete(`/api/trials/${id}`).set(stranger.auth)).status).toBe(404);
-    const own = await api.post('/api/trials').set(student.auth).send({ name: 'Mine', arms: [{ ballId: ball.id }, { ballId: pearl.id }] });
+    const own = await api
+      .post('/api/trials')
+      .set(student.auth)
+      .send({ name: 'Mine', arms: [{ ballId: ball.id }, { ballId: pearl.id }] });
     expect((await api.delete(`/api/trials/${own.body.item.id}`).set(coach.auth)).status).toBe(403);
     expect((await api.delete(`/api/trials/${own.body.item.id}`).set(student.auth)).status).toBe(204);
     expect((await api.get(`/api/trials`).set(student.auth)).body.items.map((t: { id: number }) => t.id)).toEqual([id]);

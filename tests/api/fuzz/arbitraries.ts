@@ -3,7 +3,7 @@ import fc from 'fast-check';
 /** Strings that have broken parsers, queries and pages elsewhere: SQL and script fragments, template and path tricks, odd code points. */
 export const NASTY_STRINGS = [
   "' OR '1'='1",
-  "1; DROP TABLE users; --",
+  '1; DROP TABLE users; --',
   "'); DELETE FROM balls; --",
   '" OR ""="',
   '1 UNION SELECT password_hash FROM users',
@@ -45,7 +45,23 @@ export const NASTY_STRINGS = [
   'a'.repeat(10_000),
 ];
 
-export const NASTY_NUMBERS = [-1, 0, -0, 0.5, -(2 ** 31), 2 ** 31, 2 ** 31 - 1, 2 ** 53 + 1, -(2 ** 63), 1e308, -1e308, Number.MAX_SAFE_INTEGER, Number.MIN_VALUE, 1e-320, 123456789012345];
+export const NASTY_NUMBERS = [
+  -1,
+  0,
+  -0,
+  0.5,
+  -(2 ** 31),
+  2 ** 31,
+  2 ** 31 - 1,
+  2 ** 53 + 1,
+  -(2 ** 63),
+  1e308,
+  -1e308,
+  Number.MAX_SAFE_INTEGER,
+  Number.MIN_VALUE,
+  1e-320,
+  123456789012345,
+];
 
 /** One malformed value of any JSON type. */
 export const nastyValue: fc.Arbitrary<unknown> = fc.oneof(
@@ -65,7 +81,24 @@ export const nastyValue: fc.Arbitrary<unknown> = fc.oneof(
 );
 
 /** A JSON document nested `depth` levels deep, as text (no parser limit is assumed). */
-export const deepJson = (depth: number, open = '[', close = ']'): string => (open === '{' ? '{"a":'.repeat(depth) + '1' + '}'.repeat(depth) : open.repeat(depth) + close.repeat(depth));
+export const deepJson = (depth: number, open = '[', close = ']'): string =>
+  open === '{' ? '{"a":'.repeat(depth) + '1' + '}'.repeat(depth) : open.repeat(depth) + close.repeat(depth);
 
 /** Bodies that are not JSON although they say so. */
-export const MALFORMED_JSON = ['{', '{"a":', '{"a":1,}', "{'a':1}", '[1,2', '{"a":1}}', 'nul', 'NaN', '{"a":01}', '\u0000', '{"a":"\\uZZZZ"}', '{"a":1} trailing', '\uFEFF{"a":1', '{"__proto__":', '"unterminated'];
+export const MALFORMED_JSON = [
+  '{',
+  '{"a":',
+  '{"a":1,}',
+  "{'a':1}",
+  '[1,2',
+  '{"a":1}}',
+  'nul',
+  'NaN',
+  '{"a":01}',
+  '\u0000',
+  '{"a":"\\uZZZZ"}',
+  '{"a":1} trailing',
+  '\uFEFF{"a":1',
+  '{"__proto__":',
+  '"unterminated',
+];

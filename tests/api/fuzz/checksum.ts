@@ -52,13 +52,17 @@ export async function installWriteCounter(): Promise<() => Promise<void>> {
     ${tables.map((t) => `CREATE OR REPLACE TRIGGER fuzz_count_row_write AFTER INSERT OR UPDATE OR DELETE ON ${ident(t)} FOR EACH ROW EXECUTE FUNCTION fuzz_count_row_write();`).join('\n')}
   `);
   return async () => {
-    await sequelize.query(`${tables.map((t) => `DROP TRIGGER IF EXISTS fuzz_count_row_write ON ${ident(t)};`).join('\n')} DROP FUNCTION IF EXISTS fuzz_count_row_write(); DROP TABLE IF EXISTS fuzz_row_writes;`);
+    await sequelize.query(
+      `${tables.map((t) => `DROP TRIGGER IF EXISTS fuzz_count_row_write ON ${ident(t)};`).join('\n')} DROP FUNCTION IF EXISTS fuzz_count_row_write(); DROP TABLE IF EXISTS fuzz_row_writes;`,
+    );
   };
 }
 
 /** Committed row writes per table since the counter was installed. */
 export async function rowWrites(): Promise<Record<string, number>> {
-  const rows = await sequelize.query<{ table_name: string; n: string }>('SELECT table_name, n FROM fuzz_row_writes', { type: QueryTypes.SELECT });
+  const rows = await sequelize.query<{ table_name: string; n: string }>('SELECT table_name, n FROM fuzz_row_writes', {
+    type: QueryTypes.SELECT,
+  });
   return Object.fromEntries(rows.map((r) => [r.table_name, Number(r.n)]));
 }
 

@@ -31,8 +31,22 @@ const TOTAL_CASES = Number(process.env.FUZZ_CASES ?? REQUIRED_CASES);
 const server = app.listen(0, '127.0.0.1');
 const http = supertest(server);
 /** Routes whose every accepted request is costly (password hashing, rankings) get a smaller share of the cases. */
-const SLOW: Record<string, number> = { 'POST /api/auth/register': 0.3, 'POST /api/auth/login': 0.3, 'POST /api/auth/reset': 0.3, 'POST /api/matchups': 0.3 };
-const PREFERRED: Actor[] = ['owner', 'proprietorThis', 'admin', 'coachLinked', 'otherBowler', 'coachUnlinked', 'proprietorOther', 'anonymous'];
+const SLOW: Record<string, number> = {
+  'POST /api/auth/register': 0.3,
+  'POST /api/auth/login': 0.3,
+  'POST /api/auth/reset': 0.3,
+  'POST /api/matchups': 0.3,
+};
+const PREFERRED: Actor[] = [
+  'owner',
+  'proprietorThis',
+  'admin',
+  'coachLinked',
+  'otherBowler',
+  'coachUnlinked',
+  'proprietorOther',
+  'anonymous',
+];
 const STACK = /\n\s+at [^\n]+:\d+:\d+|node_modules|\/work\/|Sequelize\w*Error|TypeError:|ReferenceError:/;
 
 type Case =
@@ -72,7 +86,9 @@ afterAll(async () => {
 afterAll(() => {
   server.close();
   if (process.env.FUZZ_TIMINGS) console.log(`${timings.join('\n')}\nchecksums ${checksumMs} ms`);
-  console.log(`[fuzz] ${sent} malformed requests to ${routes.length} write routes; statuses ${JSON.stringify(Object.fromEntries([...statuses].sort((a, b) => a[0] - b[0])))}`);
+  console.log(
+    `[fuzz] ${sent} malformed requests to ${routes.length} write routes; statuses ${JSON.stringify(Object.fromEntries([...statuses].sort((a, b) => a[0] - b[0])))}`,
+  );
 });
 
 /** Lets background work caused by an accepted request finish (payment-fake webhooks, the mail sender's row updates) before a snapshot. */
@@ -111,8 +127,23 @@ function setPath(obj: unknown, path: string[], value: unknown, drop = false): un
 }
 
 const CSV_ROWS = fc.oneof(
-  fc.constantFrom('"unterminated,quote', 'a,b,c,d,e,f,g,h,i,j,k,l,m,n,o,p,q', ',,,,', '\u0000,\u0000', '=cmd|" /C calc"!A0,1,2', 'x'.repeat(20_000), ';;;;', '\t\t\t', '"a""b",1'),
-  fc.array(fc.oneof(fc.constantFrom(...NASTY_STRINGS.filter((s) => s.length < 200)), fc.string({ maxLength: 12 }), fc.integer().map(String)), { minLength: 1, maxLength: 16 }).map((cells) => cells.join(',')),
+  fc.constantFrom(
+    '"unterminated,quote',
+    'a,b,c,d,e,f,g,h,i,j,k,l,m,n,o,p,q',
+    ',,,,',
+    '\u0000,\u0000',
+    '=cmd|" /C calc"!A0,1,2',
+    'x'.repeat(20_000),
+    ';;;;',
+    '\t\t\t',
+    '"a""b",1',
+  ),
+  fc
+    .array(
+      fc.oneof(fc.constantFrom(...NASTY_STRINGS.filter((s) => s.length < 200)), fc.string({ maxLength: 12 }), fc.integer().map(String)),
+      { minLength: 1, maxLength: 16 },
+    )
+    .map((cells) => cells.join(',')),
 );
 
 /** The generator of malformed requests for one route, given its valid request. */
@@ -120,18 +151,74 @@ function casesFor(base: CellRequest): fc.Arbitrary<Case> {
   const paths = base.body !== undefined ? keyPaths(base.body) : [];
   const options: fc.Arbitrary<Case>[] = [
     fc.record({ kind: fc.constant('body' as const), body: fc.oneof(nastyValue, fc.jsonValue({ maxDepth: 3 })) }),
-    fc.record({ kind: fc.constant('extra' as const), key: fc.oneof(fc.string({ minLength: 1, maxLength: 12 }), fc.constantFrom('__proto__', 'constructor', 'id', 'ownerId', 'userId', 'role', 'amountCents', 'version')), value: nastyValue }),
+    fc.record({
+      kind: fc.constant('extra' as const),
+      key: fc.oneof(
+        fc.string({ minLength: 1, maxLength: 12 }),
+        fc.constantFrom('__proto__', 'constructor', 'id', 'ownerId', 'userId', 'role', 'amountCents', 'version'),
+      ),
+      value: nastyValue,
+    }),
     fc.record({
       kind: fc.constant('raw' as const),
-      text: fc.oneof(fc.constantFrom(...MALFORMED_JSON), fc.constantFrom(deepJson(64), deepJson(5000), deepJson(20000, '{', '}'), deepJson(30000)), fc.string({ maxLength: 80 })),
-      contentType: fc.constantFrom('application/json', 'application/json; charset=utf-16', 'text/plain', 'application/x-www-form-urlencoded', 'application/xml', 'multipart/form-data; boundary=x'),
+      text: fc.oneof(
+        fc.constantFrom(...MALFORMED_JSON),
+        fc.constantFrom(deepJson(64), deepJson(5000), deepJson(20000, '{', '}'), deepJson(30000)),
+        fc.string({ maxLength: 80 }),
+      ),
+      contentType: fc.constantFrom(
+        'application/json',
+        'application/json; charset=utf-16',
+        'text/plain',
+        'application/x-www-form-urlencoded',
+        'application/xml',
+        'multipart/form-data; boundary=x',
+      ),
     }),
-    fc.record({ kind: fc.constant('param' as const), value: fc.oneof(fc.constantFrom(...NASTY_STRINGS), fc.integer().map(String), fc.constantFrom('0', '-1', '1.5', '2147483648', '99999999999999999999', '1e3', '0x10')), raw: fc.boolean() }),
+    fc.record({
+      kind: fc.constant('param' as const),
+      value: fc.oneof(
+        fc.constantFrom(...NASTY_STRINGS),
+        fc.integer().map(String),
+        fc.constantFrom('0', '-1', '1.5', '2147483648', '99999999999999999999', '1e3', '0x10'),
+      ),
+      raw: fc.boolean(),
+    }),
     fc.record({
       kind: fc.constant('query' as const),
       query: fc.oneof(
-        fc.constantFrom('page=-1&pageSize=1e309', 'page[]=1&page[]=2', 'format=xml', 'format[$ne]=json', 'all=1&all=0', 'status=%00', 'date=2026-13-45', 'studentId=-1', 'a='.concat('b'.repeat(5000))),
-        fc.tuple(fc.constantFrom('page', 'pageSize', 'q', 'format', 'sort', 'order', 'status', 'date', 'studentId', 'from', 'to', 'ballId', 'patternId', 'all'), fc.constantFrom(...NASTY_STRINGS)).map(([k, v]) => `${k}=${enc(v)}`),
+        fc.constantFrom(
+          'page=-1&pageSize=1e309',
+          'page[]=1&page[]=2',
+          'format=xml',
+          'format[$ne]=json',
+          'all=1&all=0',
+          'status=%00',
+          'date=2026-13-45',
+          'studentId=-1',
+          'a='.concat('b'.repeat(5000)),
+        ),
+        fc
+          .tuple(
+            fc.constantFrom(
+              'page',
+              'pageSize',
+              'q',
+              'format',
+              'sort',
+              'order',
+              'status',
+              'date',
+              'studentId',
+              'from',
+              'to',
+              'ballId',
+              'patternId',
+              'all',
+            ),
+            fc.constantFrom(...NASTY_STRINGS),
+          )
+          .map(([k, v]) => `${k}=${enc(v)}`),
       ),
     }),
   ];
@@ -140,7 +227,16 @@ function casesFor(base: CellRequest): fc.Arbitrary<Case> {
     options.push(fc.record({ kind: fc.constant('drop' as const), path: fc.constantFrom(...paths) }));
   }
   if (base.headers && Object.keys(base.headers).length) {
-    options.push(fc.record({ kind: fc.constant('header' as const), name: fc.constantFrom(...Object.keys(base.headers)), value: fc.oneof(fc.constantFrom(...NASTY_STRINGS.filter((s) => !/[\r\n\u0000-\u001f\u007f-\uffff]/.test(s))), fc.string({ maxLength: 300 }).filter((s) => !/[\r\n\u0000-\u001f\u007f-\uffff]/.test(s))) }));
+    options.push(
+      fc.record({
+        kind: fc.constant('header' as const),
+        name: fc.constantFrom(...Object.keys(base.headers)),
+        value: fc.oneof(
+          fc.constantFrom(...NASTY_STRINGS.filter((s) => !/[\r\n\u0000-\u001f\u007f-\uffff]/.test(s))),
+          fc.string({ maxLength: 300 }).filter((s) => !/[\r\n\u0000-\u001f\u007f-\uffff]/.test(s)),
+        ),
+      }),
+    );
   }
   if (base.file) {
     const valid = base.file;
@@ -148,8 +244,31 @@ function casesFor(base: CellRequest): fc.Arbitrary<Case> {
       fc.array(CSV_ROWS, { minLength: 1, maxLength: 5 }).map((rows) => Buffer.concat([valid.buffer, Buffer.from(rows.join('\n'))])),
       fc.array(CSV_ROWS, { minLength: 0, maxLength: 5 }).map((rows) => Buffer.from(rows.join('\n'))),
       fc.jsonValue({ maxDepth: 4 }).map((j) => Buffer.from(JSON.stringify(j))),
-      fc.record({ format: fc.oneof(fc.constant('lanewright-pattern'), nastyValue), version: fc.oneof(fc.constant(1), nastyValue), name: nastyValue, sweeps: fc.oneof(nastyValue, fc.array(fc.dictionary(fc.constantFrom('direction', 'fromBoard', 'toBoard', 'startFt', 'endFt', 'crossings', 'microlitersPerBoard', 'x'), nastyValue), { maxLength: 4 })) }).map((j) => Buffer.from(JSON.stringify(j))),
-      fc.constantFrom(Buffer.from([0xef, 0xbb, 0xbf]), Buffer.alloc(0), Buffer.from('\u0000'.repeat(64)), TINY_PNG, Buffer.from('GIF89a'), Buffer.from('%PDF-1.4\n')),
+      fc
+        .record({
+          format: fc.oneof(fc.constant('lanewright-pattern'), nastyValue),
+          version: fc.oneof(fc.constant(1), nastyValue),
+          name: nastyValue,
+          sweeps: fc.oneof(
+            nastyValue,
+            fc.array(
+              fc.dictionary(
+                fc.constantFrom('direction', 'fromBoard', 'toBoard', 'startFt', 'endFt', 'crossings', 'microlitersPerBoard', 'x'),
+                nastyValue,
+              ),
+              { maxLength: 4 },
+            ),
+          ),
+        })
+        .map((j) => Buffer.from(JSON.stringify(j))),
+      fc.constantFrom(
+        Buffer.from([0xef, 0xbb, 0xbf]),
+        Buffer.alloc(0),
+        Buffer.from('\u0000'.repeat(64)),
+        TINY_PNG,
+        Buffer.from('GIF89a'),
+        Buffer.from('%PDF-1.4\n'),
+      ),
       fc.uint8Array({ maxLength: 512 }).map((a) => Buffer.from(a)),
     );
     const oversized = fc.constantFrom(Buffer.alloc(1024 * 1024 + 10, 0x61), Buffer.concat([TINY_PNG, Buffer.alloc(2 * 1024 * 1024 + 10)]));
@@ -157,8 +276,34 @@ function casesFor(base: CellRequest): fc.Arbitrary<Case> {
       fc.record({
         kind: fc.constant('file' as const),
         buffer: fc.oneof({ weight: 12, arbitrary: brokenText }, { weight: 1, arbitrary: oversized }),
-        filename: fc.oneof(fc.constant(valid.filename), fc.constantFrom('x.exe', 'a.csv.php', '../../etc/passwd.csv', '..\\evil.json', 'noext', '.csv', 'photo.png', 'p.json', 'ümlaut 💥.csv', 'a'.repeat(300) + '.csv')),
-        contentType: fc.oneof(fc.constant(valid.contentType), fc.constantFrom('text/csv', 'application/json', 'image/png', 'image/jpeg', 'image/webp', 'application/octet-stream', 'text/html', 'image/svg+xml')),
+        filename: fc.oneof(
+          fc.constant(valid.filename),
+          fc.constantFrom(
+            'x.exe',
+            'a.csv.php',
+            '../../etc/passwd.csv',
+            '..\\evil.json',
+            'noext',
+            '.csv',
+            'photo.png',
+            'p.json',
+            'ümlaut 💥.csv',
+            'a'.repeat(300) + '.csv',
+          ),
+        ),
+        contentType: fc.oneof(
+          fc.constant(valid.contentType),
+          fc.constantFrom(
+            'text/csv',
+            'application/json',
+            'image/png',
+            'image/jpeg',
+            'image/webp',
+            'application/octet-stream',
+            'text/html',
+            'image/svg+xml',
+          ),
+        ),
         field: fc.oneof({ weight: 6, arbitrary: fc.constant('file') }, { weight: 1, arbitrary: fc.constantFrom('files', 'upload', '') }),
       }),
     );
@@ -181,7 +326,8 @@ async function sendCase(route: RouteKey, actor: Actor, base: CellRequest, c: Cas
   req = req.set(headers);
   if (c.kind === 'file') return req.attach(c.field, c.buffer, { filename: c.filename, contentType: c.contentType });
   if (c.kind === 'raw') return req.set('Content-Type', c.contentType).send(c.text);
-  if (base.file && (c.kind === 'param' || c.kind === 'query' || c.kind === 'header')) return req.attach('file', base.file.buffer, { filename: base.file.filename, contentType: base.file.contentType });
+  if (base.file && (c.kind === 'param' || c.kind === 'query' || c.kind === 'header'))
+    return req.attach('file', base.file.buffer, { filename: base.file.filename, contentType: base.file.contentType });
   let body: unknown = base.body;
   if (c.kind === 'body') body = c.body;
   if (c.kind === 'field') body = setPath(base.body, c.path, c.value);

@@ -9,11 +9,16 @@ import { PATH_TOLERANCE_BOARDS } from '../../../server/features/matchups/matchup
 import { api, app, createUser } from '../../helpers/api';
 import { createBall, createPattern, LONG_HEAVY, POLISHED_PEARL, STRONG_SOLID, URETHANE } from '../../helpers/fixtures';
 
-interface Point { ft: number; board: number; speedMph: number }
+interface Point {
+  ft: number;
+  board: number;
+  speedMph: number;
+}
 
 /** Distance from p to the segment a–b in the (board, ft) plane. */
 function toSegment(p: Point, a: Point, b: Point): number {
-  const dx = b.board - a.board, dy = b.ft - a.ft;
+  const dx = b.board - a.board,
+    dy = b.ft - a.ft;
   const t = dx === 0 && dy === 0 ? 0 : Math.max(0, Math.min(1, ((p.board - a.board) * dx + (p.ft - a.ft) * dy) / (dx * dx + dy * dy)));
   return Math.hypot(p.board - (a.board + t * dx), p.ft - (a.ft + t * dy));
 }
@@ -27,7 +32,14 @@ describe('POST /api/matchups — the answer as sent', () => {
     expect(res.status).toBe(200);
     const sent = res.body.rankings[0].prediction as { path: Point[]; laydownBoard: number; targetBoard: number; entryBoard: number };
     // the engine's own path on the same line (the release and the ball as the server gave them)
-    const full = simulateShot({ ball: ballToSpec(ball), bowler: res.body.bowler ?? DEFAULT_PROFILE, pattern: { name: 'p', sweeps: res.body.pattern.sweeps }, lane: res.body.lane, laydownBoard: sent.laydownBoard, targetBoard: sent.targetBoard }).path;
+    const full = simulateShot({
+      ball: ballToSpec(ball),
+      bowler: res.body.bowler ?? DEFAULT_PROFILE,
+      pattern: { name: 'p', sweeps: res.body.pattern.sweeps },
+      lane: res.body.lane,
+      laydownBoard: sent.laydownBoard,
+      targetBoard: sent.targetBoard,
+    }).path;
     expect(sent.path.length).toBeLessThan(full.length / 2);
     expect(sent.path[0].ft).toBe(0);
     expect(sent.path[sent.path.length - 1].ft).toBeCloseTo(full[full.length - 1].ft, 1);
@@ -50,11 +62,22 @@ describe('POST /api/matchups — the answer as sent', () => {
     const { port } = server.address() as AddressInfo;
     const body = JSON.stringify({ patternId: pattern.id });
     const got = await new Promise<{ status: number; encoding: string | undefined; wire: Buffer }>((resolve, reject) => {
-      const req = http.request({ host: '127.0.0.1', port, method: 'POST', path: '/api/matchups', headers: { ...me.auth, 'content-type': 'application/json', 'accept-encoding': 'gzip' } }, (res) => {
-        const chunks: Buffer[] = [];
-        res.on('data', (c: Buffer) => chunks.push(c));
-        res.on('end', () => resolve({ status: res.statusCode ?? 0, encoding: res.headers['content-encoding'], wire: Buffer.concat(chunks) }));
-      });
+      const req = http.request(
+        {
+          host: '127.0.0.1',
+          port,
+          method: 'POST',
+          path: '/api/matchups',
+          headers: { ...me.auth, 'content-type': 'application/json', 'accept-encoding': 'gzip' },
+        },
+        (res) => {
+          const chunks: Buffer[] = [];
+          res.on('data', (c: Buffer) => chunks.push(c));
+          res.on('end', () =>
+            resolve({ status: res.statusCode ?? 0, encoding: res.headers['content-encoding'], wire: Buffer.concat(chunks) }),
+          );
+        },
+      );
       req.on('error', reject);
       req.end(body);
     }).finally(() => server.close());

@@ -9,16 +9,26 @@ vi.hoisted(() => {
 
 const { api, createUser, errorOf } = await import('../../helpers/api');
 const { createBall, createPattern } = await import('../../helpers/fixtures');
-const { engineLoad, engineQueueLimit, engineQueueWaitMs, engineThreadIds, engineThreads, rankInWorker, warmEnginePool } = await import('../../../server/lib/enginePool');
+const { engineLoad, engineQueueLimit, engineQueueWaitMs, engineThreadIds, engineThreads, rankInWorker, warmEnginePool } =
+  await import('../../../server/lib/enginePool');
 const { AppError } = await import('../../../server/lib/AppError');
 const { longHeavy, polishedPearl, roughAsymSolid, typicalBowler, urethaneBall } = await import('../../engine/fixtures');
 
 /** A ranking that keeps the one thread busy for a while: many balls through the motion model. */
-const heavyInput = (games: number, count = 60) => ({ balls: Array.from({ length: count }, (_, i) => ({ ...[roughAsymSolid, polishedPearl, urethaneBall][i % 3], id: `b${i}` })), bowler: typicalBowler, pattern: longHeavy, gamesBowled: games });
+const heavyInput = (games: number, count = 60) => ({
+  balls: Array.from({ length: count }, (_, i) => ({ ...[roughAsymSolid, polishedPearl, urethaneBall][i % 3], id: `b${i}` })),
+  bowler: typicalBowler,
+  pattern: longHeavy,
+  gamesBowled: games,
+});
 
 /** Finding 9: a full ranking queue answers 503 with Retry-After at once instead of letting requests hang. */
 /** A task whose outcome (done or refused) is only waited for. */
-const settled = (p: Promise<unknown>) => p.then(() => 'ran', (e: unknown) => (e instanceof AppError ? e.code : String(e)));
+const settled = (p: Promise<unknown>) =>
+  p.then(
+    () => 'ran',
+    (e: unknown) => (e instanceof AppError ? e.code : String(e)),
+  );
 
 /**
  * Balls in a ranking that holds the one thread for a second or more on this machine (3 s by a cold estimate), far past the 300 ms

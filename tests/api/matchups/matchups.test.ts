@@ -5,7 +5,18 @@ import { ballToSpec } from '../../../shared/balls';
 import { DEFAULT_PROFILE } from '../../../shared/profile';
 import { LAYDOWN_OFFSET_BOARDS } from '../../../engine/index';
 import { api, calibrationsIdle, createUser, errorOf } from '../../helpers/api';
-import { createBall, createCenter, createModel, createPattern, LONG_HEAVY, PLASTIC, POLISHED_PEARL, SHORT_LIGHT, STRONG_SOLID, URETHANE } from '../../helpers/fixtures';
+import {
+  createBall,
+  createCenter,
+  createModel,
+  createPattern,
+  LONG_HEAVY,
+  PLASTIC,
+  POLISHED_PEARL,
+  SHORT_LIGHT,
+  STRONG_SOLID,
+  URETHANE,
+} from '../../helpers/fixtures';
 import { newKey } from '../sessions/shotlog';
 
 interface Ranking {
@@ -46,9 +57,18 @@ describe('POST /api/matchups', () => {
 
     const onHeavy = await api.post('/api/matchups').set(me.auth).send({ patternId: heavy.id });
     expect(onHeavy.status).toBe(200);
-    expect(onHeavy.body.pattern).toMatchObject({ id: heavy.id, name: heavy.name, summary: { lengthClass: 'long', volumeClass: 'heavy' }, sweeps: LONG_HEAVY });
+    expect(onHeavy.body.pattern).toMatchObject({
+      id: heavy.id,
+      name: heavy.name,
+      summary: { lengthClass: 'long', volumeClass: 'heavy' },
+      sweeps: LONG_HEAVY,
+    });
     // A plain pattern without a lane surface is ranked on the engine's default lanes, and says so.
-    expect(onHeavy.body).toMatchObject({ condition: null, lane: { kind: 'synthetic', friction: 'medium' }, laneText: 'Synthetic lanes, medium friction' });
+    expect(onHeavy.body).toMatchObject({
+      condition: null,
+      lane: { kind: 'synthetic', friction: 'medium' },
+      laneText: 'Synthetic lanes, medium friction',
+    });
     const heavyOrder = onHeavy.body.rankings.map((r: Ranking) => r.ballId);
     expect([...heavyOrder].sort()).toEqual([solid.id, pearl.id, ure.id, spare.id].sort());
     for (const r of onHeavy.body.rankings as Ranking[]) {
@@ -83,9 +103,15 @@ describe('POST /api/matchups', () => {
     await createBall(me.user.id, URETHANE);
     const theirs = await createBall(other.user.id);
     const p = await createPattern(null);
-    const chosen = await api.post('/api/matchups').set(me.auth).send({ patternId: p.id, ballIds: [a.id] });
+    const chosen = await api
+      .post('/api/matchups')
+      .set(me.auth)
+      .send({ patternId: p.id, ballIds: [a.id] });
     expect(chosen.body.rankings.map((r: Ranking) => r.ballId)).toEqual([a.id]);
-    const stolen = await api.post('/api/matchups').set(me.auth).send({ patternId: p.id, ballIds: [theirs.id] });
+    const stolen = await api
+      .post('/api/matchups')
+      .set(me.auth)
+      .send({ patternId: p.id, ballIds: [theirs.id] });
     expect(stolen.status).toBe(404);
   });
 
@@ -116,7 +142,10 @@ describe('POST /api/matchups on a published condition and a lane surface', () =>
     const high = await publishedCondition(pattern.id, { kind: 'synthetic', friction: 'high' });
     const low = await publishedCondition(pattern.id, { kind: 'wood', friction: 'low' });
     // The pattern is edited after publishing: a matchup on the condition uses the snapshot that was published.
-    await api.patch(`/api/patterns/${pattern.id}`).set((await createUser('admin')).auth).send({ version: pattern.version, sweeps: SHORT_LIGHT });
+    await api
+      .patch(`/api/patterns/${pattern.id}`)
+      .set((await createUser('admin')).auth)
+      .send({ version: pattern.version, sweeps: SHORT_LIGHT });
 
     const onHigh = await api.post('/api/matchups').set(me.auth).send({ conditionId: high.id });
     expect(onHigh.status).toBe(200);
@@ -139,10 +168,15 @@ describe('POST /api/matchups on a published condition and a lane surface', () =>
 
     // A plain pattern with the same sweeps and lane gives the same numbers as the condition.
     const copy = await createPattern(null, LONG_HEAVY);
-    const plain = await api.post('/api/matchups').set(me.auth).send({ patternId: copy.id, lane: { kind: 'synthetic', friction: 'high' } });
+    const plain = await api
+      .post('/api/matchups')
+      .set(me.auth)
+      .send({ patternId: copy.id, lane: { kind: 'synthetic', friction: 'high' } });
     expect(plain.status).toBe(200);
     expect(plain.body).toMatchObject({ condition: null, lane: { kind: 'synthetic', friction: 'high' } });
-    expect(plain.body.rankings.map((r: Ranking) => [r.ballId, r.score, r.fit])).toEqual(onHigh.body.rankings.map((r: Ranking) => [r.ballId, r.score, r.fit]));
+    expect(plain.body.rankings.map((r: Ranking) => [r.ballId, r.score, r.fit])).toEqual(
+      onHigh.body.rankings.map((r: Ranking) => [r.ballId, r.score, r.fit]),
+    );
   });
 
   it('a condition published without a lane surface is bowled on synthetic lanes with medium friction', async () => {
@@ -164,16 +198,28 @@ describe('POST /api/matchups on a published condition and a lane surface', () =>
     expect(unknown.status).toBe(404);
     expect(errorOf(unknown.body).code).toBe('not_found');
 
-    const badLane = await api.post('/api/matchups').set(me.auth).send({ patternId: pattern.id, lane: { kind: 'carpet', friction: 'sticky' } });
+    const badLane = await api
+      .post('/api/matchups')
+      .set(me.auth)
+      .send({ patternId: pattern.id, lane: { kind: 'carpet', friction: 'sticky' } });
     expect(badLane.status).toBe(400);
-    expect(errorOf(badLane.body).fields).toMatchObject({ 'body.lane.kind': expect.stringMatching(/wood or synthetic/), 'body.lane.friction': expect.stringMatching(/low, medium or high/) });
-    const extraKey = await api.post('/api/matchups').set(me.auth).send({ patternId: pattern.id, lane: { kind: 'wood', friction: 'low', oil: 'yes' } });
+    expect(errorOf(badLane.body).fields).toMatchObject({
+      'body.lane.kind': expect.stringMatching(/wood or synthetic/),
+      'body.lane.friction': expect.stringMatching(/low, medium or high/),
+    });
+    const extraKey = await api
+      .post('/api/matchups')
+      .set(me.auth)
+      .send({ patternId: pattern.id, lane: { kind: 'wood', friction: 'low', oil: 'yes' } });
     expect(extraKey.status).toBe(400);
     expect(Object.keys(errorOf(extraKey.body).fields ?? {})).toEqual(['body.lane']);
     const notObject = await api.post('/api/matchups').set(me.auth).send({ patternId: pattern.id, lane: 'wood' });
     expect(errorOf(notObject.body).fields).toHaveProperty(['body.lane']);
 
-    const laneWithCondition = await api.post('/api/matchups').set(me.auth).send({ conditionId: c.id, lane: { kind: 'wood', friction: 'low' } });
+    const laneWithCondition = await api
+      .post('/api/matchups')
+      .set(me.auth)
+      .send({ conditionId: c.id, lane: { kind: 'wood', friction: 'low' } });
     expect(laneWithCondition.status).toBe(400);
     expect(Object.keys(errorOf(laneWithCondition.body).fields ?? {})).toEqual(['body.lane']);
     const neither = await api.post('/api/matchups').set(me.auth).send({ gamesBowled: 2 });
@@ -191,10 +237,18 @@ describe('POST /api/matchups: the balls as the engine sees them', () => {
     const me = await createUser();
     const strike = await createBall(me.user.id);
     const spare = await createBall(me.user.id, PLASTIC);
-    const heavy = await api
-      .post('/api/arsenal')
-      .set(me.auth)
-      .send({ name: 'Anvil Test', weightLb: 17, rg: 2.5, differential: 0.05, intermediateDifferential: 0, coverType: 'reactive-solid', coreType: 'symmetric', hardnessD: 76, surfaceGrit: 2000, polished: false });
+    const heavy = await api.post('/api/arsenal').set(me.auth).send({
+      name: 'Anvil Test',
+      weightLb: 17,
+      rg: 2.5,
+      differential: 0.05,
+      intermediateDifferential: 0,
+      coverType: 'reactive-solid',
+      coreType: 'symmetric',
+      hardnessD: 76,
+      surfaceGrit: 2000,
+      polished: false,
+    });
     expect(heavy.status).toBe(201);
     const pattern = await createPattern(null);
     const res = await api.post('/api/matchups').set(me.auth).send({ patternId: pattern.id });
@@ -216,10 +270,18 @@ describe('POST /api/matchups: the balls as the engine sees them', () => {
     const fromCatalogue = await api.post('/api/arsenal').set(me.auth).send({ ballModelId: model.id, weightLb: 15 });
     expect(fromCatalogue.status).toBe(201);
     expect(fromCatalogue.body.item.approvalYear).toBe(2019);
-    const byHand = await api
-      .post('/api/arsenal')
-      .set(me.auth)
-      .send({ name: 'Soft Shell', weightLb: 15, rg: STRONG_SOLID.rg, differential: STRONG_SOLID.differential, intermediateDifferential: STRONG_SOLID.intermediateDifferential, coverType: 'reactive-solid', coreType: 'asymmetric', hardnessD: 72.5, surfaceGrit: 1000, polished: false });
+    const byHand = await api.post('/api/arsenal').set(me.auth).send({
+      name: 'Soft Shell',
+      weightLb: 15,
+      rg: STRONG_SOLID.rg,
+      differential: STRONG_SOLID.differential,
+      intermediateDifferential: STRONG_SOLID.intermediateDifferential,
+      coverType: 'reactive-solid',
+      coreType: 'asymmetric',
+      hardnessD: 72.5,
+      surfaceGrit: 1000,
+      polished: false,
+    });
     expect(byHand.body.item.approvalYear).toBeNull();
     const pattern = await createPattern(null);
     const res = await api.post('/api/matchups').set(me.auth).send({ patternId: pattern.id });
@@ -230,14 +292,20 @@ describe('POST /api/matchups: the balls as the engine sees them', () => {
 
   it('sends the games since the last resurface: a worn cover reads less, and a resurface brings it back', async () => {
     const me = await createUser();
-    const ball = await api.post('/api/arsenal').set(me.auth).send({ ballModelId: (await createModel(STRONG_SOLID)).id, weightLb: 15, gamesSinceResurface: 0 });
+    const ball = await api
+      .post('/api/arsenal')
+      .set(me.auth)
+      .send({ ballModelId: (await createModel(STRONG_SOLID)).id, weightLb: 15, gamesSinceResurface: 0 });
     const pattern = await createPattern(null, LONG_HEAVY);
     const fresh = (await api.post('/api/matchups').set(me.auth).send({ patternId: pattern.id })).body.rankings[0] as Ranking;
     await api.patch(`/api/arsenal/${ball.body.item.id}`).set(me.auth).send({ version: ball.body.item.version, gamesSinceResurface: 90 });
     const worn = (await api.post('/api/matchups').set(me.auth).send({ patternId: pattern.id })).body.rankings[0] as Ranking;
     expect(worn.fit.strength).toBeLessThan(fresh.fit.strength);
     expect(worn.reasons.some((r) => r.rule === 'reaction-wear')).toBe(true);
-    await api.post(`/api/arsenal/${ball.body.item.id}/surface`).set(me.auth).send({ surfaceGrit: STRONG_SOLID.factoryGrit, polished: false });
+    await api
+      .post(`/api/arsenal/${ball.body.item.id}/surface`)
+      .set(me.auth)
+      .send({ surfaceGrit: STRONG_SOLID.factoryGrit, polished: false });
     const again = (await api.post('/api/matchups').set(me.auth).send({ patternId: pattern.id })).body.rankings[0] as Ranking;
     expect(again.fit.strength).toBe(fresh.fit.strength);
   });
@@ -247,7 +315,10 @@ describe('POST /api/matchups: the balls as the engine sees them', () => {
     const strong = await createBall(me.user.id, STRONG_SOLID, { surfaceGrit: 1000, polished: false });
     const mild = await createBall(me.user.id, POLISHED_PEARL);
     const pattern = await createPattern(null, SHORT_LIGHT);
-    const res = await api.post('/api/matchups').set(me.auth).send({ patternId: pattern.id, lane: { kind: 'synthetic', friction: 'high' } });
+    const res = await api
+      .post('/api/matchups')
+      .set(me.auth)
+      .send({ patternId: pattern.id, lane: { kind: 'synthetic', friction: 'high' } });
     const rankings = res.body.rankings as Ranking[];
     const fits = Object.fromEntries(rankings.map((r) => [r.ballId, r.fit]));
     expect(fits[strong.id].verdict).toBe('too-strong');
@@ -279,12 +350,29 @@ describe('POST /api/matchups: the calibration on the condition’s lanes', () =>
     const offsets = [-2, -1.5, -1, -0.5, 0, 0.5, 1, 1.5, 2, -1, 0, 0.5, 1, -0.5];
     for (const [i, [gameNumber, frame, delivery]] of slots.entries()) {
       const target = Math.round(solved.targetBoard) + offsets[i];
-      const p = simulateShot({ ball: spec, bowler, pattern: enginePattern, lane, laydownBoard: laydown, targetBoard: target, frictionScale: TRUE_SCALE });
+      const p = simulateShot({
+        ball: spec,
+        bowler,
+        pattern: enginePattern,
+        lane,
+        laydownBoard: laydown,
+        targetBoard: target,
+        frictionScale: TRUE_SCALE,
+      });
       const res = await api
         .post(`/api/sessions/${session.body.item.id}/shots`)
         .set(me.auth)
         .set('Idempotency-Key', newKey())
-        .send({ gameNumber, frame, delivery, ballId: ball.id, standing: [], feetBoard: laydown + LAYDOWN_OFFSET_BOARDS, targetBoard: target, breakpointBoard: Math.round(p.breakpoint.board * 2) / 2 });
+        .send({
+          gameNumber,
+          frame,
+          delivery,
+          ballId: ball.id,
+          standing: [],
+          feetBoard: laydown + LAYDOWN_OFFSET_BOARDS,
+          targetBoard: target,
+          breakpointBoard: Math.round(p.breakpoint.board * 2) / 2,
+        });
       expect(res.status).toBe(201);
     }
 
@@ -312,7 +400,9 @@ describe('POST /api/matchups: the calibration on the condition’s lanes', () =>
     await api.post(`/api/arsenal/${ball.id}/surface`).set(me.auth).send({ surfaceGrit: 4000, polished: false });
     await calibrationsIdle(me.user.id); // the resurfacing asked for refits
     const after = await api.post('/api/matchups').set(me.auth).send({ conditionId: c.id });
-    const note = (after.body.rankings as Ranking[]).find((r) => r.ballId === ball.id)!.reasons.find((r) => r.rule === 'motion-calibration')?.text;
+    const note = (after.body.rankings as Ranking[])
+      .find((r) => r.ballId === ball.id)!
+      .reasons.find((r) => r.rule === 'motion-calibration')?.text;
     expect(note).toMatch(/Fitted on shots thrown at 2000 grit; carried to today's 4000 grit/);
   });
 });

@@ -4,8 +4,12 @@ import { Pattern } from '../../../server/models/index';
 import { api, createUser, errorOf, uniqueMarker } from '../../helpers/api';
 import { createPattern, LONG_HEAVY } from '../../helpers/fixtures';
 
-const upload = (auth: { Authorization: string }, name: string, body: string, type = name.endsWith('.json') ? 'application/json' : 'text/csv') =>
-  api.post('/api/patterns/import').set(auth).attach('file', Buffer.from(body), { filename: name, contentType: type });
+const upload = (
+  auth: { Authorization: string },
+  name: string,
+  body: string,
+  type = name.endsWith('.json') ? 'application/json' : 'text/csv',
+) => api.post('/api/patterns/import').set(auth).attach('file', Buffer.from(body), { filename: name, contentType: type });
 
 describe('pattern files', () => {
   it('exports JSON and CSV that import back to the same sweeps and numbers', async () => {
@@ -56,7 +60,9 @@ describe('pattern files', () => {
   it('rejects a CSV with bad lines, naming each line, and saves nothing', async () => {
     const coach = await createUser('coach');
     const name = uniqueMarker('Bad CSV');
-    const csv = `# lanewright-pattern v1\n# name: ${name}\n` + 'direction,fromBoard,toBoard,startFt,endFt,crossings,microlitersPerBoard\nforward,2,38,0,40,2,50\nforward,2,38,30,12,2,50\nreverse,2,38,0,40,0,50\n';
+    const csv =
+      `# lanewright-pattern v1\n# name: ${name}\n` +
+      'direction,fromBoard,toBoard,startFt,endFt,crossings,microlitersPerBoard\nforward,2,38,0,40,2,50\nforward,2,38,30,12,2,50\nreverse,2,38,0,40,0,50\n';
     const res = await upload(coach.auth, 'bad.csv', csv);
     expect(res.status).toBe(400);
     expect(Object.keys(errorOf(res.body).fields ?? {}).sort()).toEqual(['lines.5.endFt', 'lines.6.crossings']);

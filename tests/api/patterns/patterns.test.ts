@@ -19,7 +19,9 @@ describe('GET /api/patterns', () => {
     const res = await api.get('/api/patterns').query({ q: tag, lengthClass: 'long' }).set(me.auth);
     expect(res.status).toBe(200);
     expect(res.body.total).toBe(1);
-    expect(res.body.items.map((p: { id: number; summary: { lengthClass: string } }) => [p.id, p.summary.lengthClass])).toEqual([[long.id, 'long']]);
+    expect(res.body.items.map((p: { id: number; summary: { lengthClass: string } }) => [p.id, p.summary.lengthClass])).toEqual([
+      [long.id, 'long'],
+    ]);
     const shortOnes = await api.get('/api/patterns').query({ q: tag, lengthClass: 'short' }).set(me.auth);
     expect(shortOnes.body.items.map((p: { id: number }) => p.id)).toEqual([short.id]);
   });
@@ -63,10 +65,13 @@ describe('pattern editing', () => {
 
   it('refuses a sweep ending before it starts, board 41 and zero crossings, by field', async () => {
     const coach = await createUser('coach');
-    const res = await api.post('/api/patterns').set(coach.auth).send({
-      name: 'Broken',
-      sweeps: [{ direction: 'forward', fromBoard: 41, toBoard: 10, startFt: 30, endFt: 12, crossings: 0, microlitersPerBoard: 50 }],
-    });
+    const res = await api
+      .post('/api/patterns')
+      .set(coach.auth)
+      .send({
+        name: 'Broken',
+        sweeps: [{ direction: 'forward', fromBoard: 41, toBoard: 10, startFt: 30, endFt: 12, crossings: 0, microlitersPerBoard: 50 }],
+      });
     expect(res.status).toBe(400);
     const fields = errorOf(res.body).fields ?? {};
     expect(fields).toHaveProperty(['body.sweeps.0.fromBoard']);
@@ -75,12 +80,18 @@ describe('pattern editing', () => {
 
   it('refuses oil past the headpin (60 ft) with 400, not 500', async () => {
     const coach = await createUser('coach');
-    const res = await api.post('/api/patterns').set(coach.auth).send({ name: 'Too Long', sweeps: [{ direction: 'forward', fromBoard: 2, toBoard: 38, startFt: 0, endFt: 65, crossings: 2, microlitersPerBoard: 50 }] });
+    const res = await api
+      .post('/api/patterns')
+      .set(coach.auth)
+      .send({
+        name: 'Too Long',
+        sweeps: [{ direction: 'forward', fromBoard: 2, toBoard: 38, startFt: 0, endFt: 65, crossings: 2, microlitersPerBoard: 50 }],
+      });
     expect(res.status).toBe(400);
     expect(errorOf(res.body).fields).toHaveProperty(['body.sweeps.0.endFt']);
   });
 
-  it("lets only the owner (or an admin) edit, and a stale version gets 409", async () => {
+  it('lets only the owner (or an admin) edit, and a stale version gets 409', async () => {
     const owner = await createUser('proprietor');
     const other = await createUser('coach');
     const admin = await createUser('admin');

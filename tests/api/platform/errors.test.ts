@@ -4,7 +4,11 @@ import { api, errorOf, uniqueEmail } from '../../helpers/api';
 
 describe('errors everywhere share one shape', () => {
   it('answers an unknown API route with 404 in the error shape', async () => {
-    for (const [method, path] of [['get', '/api/no-such-route'], ['post', '/api/auth/nothing'], ['delete', '/api/unknown/thing']] as const) {
+    for (const [method, path] of [
+      ['get', '/api/no-such-route'],
+      ['post', '/api/auth/nothing'],
+      ['delete', '/api/unknown/thing'],
+    ] as const) {
       const res = await api[method](path);
       expect(res.status).toBe(404);
       expect(errorOf(res.body).code).toBe('not_found');

@@ -11,7 +11,14 @@ import { event, paymentObjects, placeOrder, postWebhook, sendEvent, shopWorld, s
 describe('finding 7: concurrent first profile saves', () => {
   it('20 parallel first saves of a new account: no 5xx, one row, the last save stands', async () => {
     const { user, auth } = await createUser();
-    const answers = await Promise.all(Array.from({ length: 20 }, (_, i) => api.put('/api/profile').set(auth).send({ speedMph: 15 + i / 10, revRpm: 300 + i })));
+    const answers = await Promise.all(
+      Array.from({ length: 20 }, (_, i) =>
+        api
+          .put('/api/profile')
+          .set(auth)
+          .send({ speedMph: 15 + i / 10, revRpm: 300 + i }),
+      ),
+    );
     expect(answers.map((r) => r.status).filter((s) => s >= 500)).toEqual([]);
     expect(answers.every((r) => r.status === 200)).toBe(true);
     expect(await BowlerProfile.count({ where: { userId: user.id } })).toBe(1);
@@ -26,7 +33,10 @@ describe('finding 8: coaching invitations', () => {
     const coach = await createUser('coach');
     const student = await createUser();
     const known = await api.post('/api/coach/invitations').set(coach.auth).send({ email: student.user.email });
-    const unknown = await api.post('/api/coach/invitations').set(coach.auth).send({ email: `nobody-${Date.now()}@example.test` });
+    const unknown = await api
+      .post('/api/coach/invitations')
+      .set(coach.auth)
+      .send({ email: `nobody-${Date.now()}@example.test` });
     for (const r of [known, unknown]) {
       expect(r.status).toBe(201);
       expect(r.body.item.student).toBeNull();
@@ -44,9 +54,20 @@ describe('finding 8: coaching invitations', () => {
   it(`a coach sends at most ${config.INVITATIONS_PER_DAY} invitations a day (429 with Retry-After, nothing stored past it)`, async () => {
     const coach = await createUser('coach');
     const statuses: number[] = [];
-    for (let i = 0; i <= config.INVITATIONS_PER_DAY; i++) statuses.push((await api.post('/api/coach/invitations').set(coach.auth).send({ email: `limit-${i}-${Date.now()}@example.test` })).status);
+    for (let i = 0; i <= config.INVITATIONS_PER_DAY; i++)
+      statuses.push(
+        (
+          await api
+            .post('/api/coach/invitations')
+            .set(coach.auth)
+            .send({ email: `limit-${i}-${Date.now()}@example.test` })
+        ).status,
+      );
     expect(statuses.slice(0, config.INVITATIONS_PER_DAY).every((s) => s === 201)).toBe(true);
-    const last = await api.post('/api/coach/invitations').set(coach.auth).send({ email: `limit-x-${Date.now()}@example.test` });
+    const last = await api
+      .post('/api/coach/invitations')
+      .set(coach.auth)
+      .send({ email: `limit-x-${Date.now()}@example.test` });
     expect(last.status).toBe(429);
     expect(errorOf(last.body).code).toBe('too_many_invitations');
     expect(last.headers['retry-after']).toBeDefined();
@@ -74,15 +95,31 @@ describe('finding 12: deep JSON and malformed webhook events are 400s', () => {
   it('a deeply nested request body or pattern file is 400 (never a parser overflow)', async () => {
     const { auth } = await createUser('proprietor');
     for (const depth of [33, 5000, 40000]) {
-      const body = await api.post('/api/patterns').set(auth).set('Content-Type', 'application/json').send(`{"name":"Deep","sweeps":${nested(depth)}}`);
+      const body = await api
+        .post('/api/patterns')
+        .set(auth)
+        .set('Content-Type', 'application/json')
+        .send(`{"name":"Deep","sweeps":${nested(depth)}}`);
       expect(body.status, `body depth ${depth}`).toBe(400);
       expect(errorOf(body.body).code).toBe('json_too_deep');
-      const file = await api.post('/api/patterns/import').set(auth).attach('file', Buffer.from(`{"format":"lanewright-pattern","version":1,"name":"Deep","sweeps":${nested(depth)}}`), { filename: 'deep.json', contentType: 'application/json' });
+      const file = await api
+        .post('/api/patterns/import')
+        .set(auth)
+        .attach('file', Buffer.from(`{"format":"lanewright-pattern","version":1,"name":"Deep","sweeps":${nested(depth)}}`), {
+          filename: 'deep.json',
+          contentType: 'application/json',
+        });
       expect(file.status, `file depth ${depth}`).toBe(400);
       expect(errorOf(file.body).fields).toHaveProperty(['lines.1.json']);
     }
     // Brackets inside strings are text, not nesting.
-    const ok = await api.post('/api/patterns').set(auth).send({ name: `Brackets ${'['.repeat(40)}`.slice(0, 80), sweeps: [{ direction: 'forward', fromBoard: 2, toBoard: 38, startFt: 0, endFt: 40, crossings: 2, microlitersPerBoard: 65 }] });
+    const ok = await api
+      .post('/api/patterns')
+      .set(auth)
+      .send({
+        name: `Brackets ${'['.repeat(40)}`.slice(0, 80),
+        sweeps: [{ direction: 'forward', fromBoard: 2, toBoard: 38, startFt: 0, endFt: 40, crossings: 2, microlitersPerBoard: 65 }],
+      });
     expect(ok.status).toBe(201);
   });
 
@@ -126,7 +163,10 @@ describe('finding 13: CSV export cells cannot be formulas', () => {
       expect(file.status).toBe(200);
       const cells = (parseCsv(file.text, { relax_column_count: true }) as string[][]).flat();
       for (const c of cells) expect(c, `cell of ${JSON.stringify(name)}`).not.toMatch(/^[=+\-@\t\r]/);
-      const back = await api.post('/api/patterns/import').set(coach.auth).attach('file', Buffer.from(file.text), { filename: 'back.csv', contentType: 'text/csv' });
+      const back = await api
+        .post('/api/patterns/import')
+        .set(coach.auth)
+        .attach('file', Buffer.from(file.text), { filename: 'back.csv', contentType: 'text/csv' });
       expect(back.status).toBe(201);
       expect(back.body.item.name).toBe(name);
     }
@@ -134,7 +174,10 @@ describe('finding 13: CSV export cells cannot be formulas', () => {
 });
 
 describe('finding 14: photos are decoded, not sniffed', () => {
-  const PNG_1X1 = Buffer.from('89504e470d0a1a0a0000000d49484452000000010000000108000000003a7e9b550000000a49444154789c63000100000500010d0a2db40000000049454e44ae426082', 'hex');
+  const PNG_1X1 = Buffer.from(
+    '89504e470d0a1a0a0000000d49484452000000010000000108000000003a7e9b550000000a49444154789c63000100000500010d0a2db40000000049454e44ae426082',
+    'hex',
+  );
   it('an 8-byte PNG signature, a truncated PNG, a JPEG start and a WebP header alone are refused; a real PNG passes', async () => {
     const me = await createUser();
     const ball = await createBall(me.user.id);
@@ -151,6 +194,13 @@ describe('finding 14: photos are decoded, not sniffed', () => {
       expect(errorOf(res.body).code).toBe('unsupported_file');
     }
     expect((await Ball.findByPk(ball.id))!.photoUploadId).toBeNull();
-    expect((await api.put(`/api/arsenal/${ball.id}/photo`).set(me.auth).attach('file', PNG_1X1, { filename: 'ok.png', contentType: 'image/png' })).status).toBe(200);
+    expect(
+      (
+        await api
+          .put(`/api/arsenal/${ball.id}/photo`)
+          .set(me.auth)
+          .attach('file', PNG_1X1, { filename: 'ok.png', contentType: 'image/png' })
+      ).status,
+    ).toBe(200);
   });
 });

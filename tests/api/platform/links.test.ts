@@ -39,7 +39,12 @@ describe('links in mails and checkout pages ignore the request’s host headers'
     expect(inv.status).toBe(201);
     expectOurLinks((await waitForMail(student.user.email, 5000, /invites/i)).text);
     await api.post(`/api/coach/links/${inv.body.item.id}/accept`).set(student.auth).expect(200);
-    await api.post(`/api/coach/students/${student.user.id}/plans`).set(coach.auth).set(spoof).send({ title: 'Line plan', kind: 'line', body: 'Two left.' }).expect(201);
+    await api
+      .post(`/api/coach/students/${student.user.id}/plans`)
+      .set(coach.auth)
+      .set(spoof)
+      .send({ title: 'Line plan', kind: 'line', body: 'Two left.' })
+      .expect(201);
     expectOurLinks((await waitForMail(student.user.email, 5000, /plan/i)).text);
   });
 
@@ -49,7 +54,12 @@ describe('links in mails and checkout pages ignore the request’s host headers'
     const pattern = await createPattern(owner.user.id);
     const follower = await createUser();
     await api.post(`/api/centers/${center.id}/follow`).set(follower.auth).expect(200);
-    await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).set(spoof).send({ patternId: pattern.id, lanes: [1], validFrom: new Date().toISOString().slice(0, 10) }).expect(201);
+    await api
+      .post(`/api/centers/${center.id}/conditions`)
+      .set(owner.auth)
+      .set(spoof)
+      .send({ patternId: pattern.id, lanes: [1], validFrom: new Date().toISOString().slice(0, 10) })
+      .expect(201);
     expectOurLinks((await waitForMail(follower.user.email)).text);
   });
 

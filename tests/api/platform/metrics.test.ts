@@ -25,7 +25,13 @@ describe('GET /api/health/metrics with METRICS_TOKEN configured', () => {
   });
 
   it('with a wrong token, the right token in another scheme, or a prefix of it: 401 each', async () => {
-    for (const authorization of ['Bearer not-the-metrics-token-0123456789', `Basic ${TOKEN}`, `Bearer ${TOKEN.slice(0, -1)}`, `Bearer ${TOKEN}x`, `bearer${TOKEN}`]) {
+    for (const authorization of [
+      'Bearer not-the-metrics-token-0123456789',
+      `Basic ${TOKEN}`,
+      `Bearer ${TOKEN.slice(0, -1)}`,
+      `Bearer ${TOKEN}x`,
+      `bearer${TOKEN}`,
+    ]) {
       const res = await api.get('/api/health/metrics').set('Authorization', authorization);
       expect(res.status, authorization).toBe(401);
       expect(errorOf(res.body).code).toBe('unauthorized');
@@ -38,8 +44,11 @@ describe('GET /api/health/metrics with METRICS_TOKEN configured', () => {
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^text\/plain; version=0\.0\.4/);
     // The route label is the Express path, never the raw URL.
-    expect(res.text).toMatch(/lanewright_http_request_duration_seconds_count\{method="GET",route="\/api\/health\/live",status="2xx"\} [1-9]/);
-    for (const q of ['mail', 'refund', 'calibration']) expect(res.text).toMatch(new RegExp(`lanewright_job_queue_depth\\{queue="${q}"\\} \\d+`));
+    expect(res.text).toMatch(
+      /lanewright_http_request_duration_seconds_count\{method="GET",route="\/api\/health\/live",status="2xx"\} [1-9]/,
+    );
+    for (const q of ['mail', 'refund', 'calibration'])
+      expect(res.text).toMatch(new RegExp(`lanewright_job_queue_depth\\{queue="${q}"\\} \\d+`));
     expect(res.text).toContain('# TYPE lanewright_job_failures_total counter');
     expect(res.text).toContain('# TYPE lanewright_ranking_seconds histogram');
     expect(res.text).toMatch(/lanewright_process_cpu_seconds_total \d/);

@@ -21,13 +21,26 @@ async function userCount(): Promise<number> {
 }
 
 const PROD = () => ({
-  PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '/tmp', NODE_ENV: 'production', DATABASE_URL: url, JWT_SECRET: 'production-start-test-0123456789abcdef',
-  SMTP_URL: 'smtp://127.0.0.1:9', STRIPE_SECRET_KEY: 'sk_test_start_check', STRIPE_WEBHOOK_SECRET: 'whsec_start_check', STRIPE_API_URL: 'http://127.0.0.1:9', PORT: '0',
+  PATH: process.env.PATH ?? '',
+  HOME: process.env.HOME ?? '/tmp',
+  NODE_ENV: 'production',
+  DATABASE_URL: url,
+  JWT_SECRET: 'production-start-test-0123456789abcdef',
+  SMTP_URL: 'smtp://127.0.0.1:9',
+  STRIPE_SECRET_KEY: 'sk_test_start_check',
+  STRIPE_WEBHOOK_SECRET: 'whsec_start_check',
+  STRIPE_API_URL: 'http://127.0.0.1:9',
+  PORT: '0',
 });
 
 describe('npm start with NODE_ENV=production', () => {
   it('refuses to start without PUBLIC_URL, naming it, and seeds nothing into the empty database', async () => {
-    const r = spawnSync(process.execPath, [path.join(root, 'scripts', 'start.mjs')], { cwd: root, env: PROD(), encoding: 'utf8', timeout: 120000 });
+    const r = spawnSync(process.execPath, [path.join(root, 'scripts', 'start.mjs')], {
+      cwd: root,
+      env: PROD(),
+      encoding: 'utf8',
+      timeout: 120000,
+    });
     expect(r.status).not.toBe(0);
     expect(`${r.stdout}${r.stderr}`).toContain('PUBLIC_URL');
     expect(`${r.stdout}${r.stderr}`).not.toMatch(/Demo accounts/);
@@ -35,7 +48,12 @@ describe('npm start with NODE_ENV=production', () => {
   }, 150000);
 
   it('the seeder itself refuses a production database, even fully configured', async () => {
-    const r = spawnSync(path.join(root, 'node_modules', '.bin', 'tsx'), ['seeders/index.ts'], { cwd: root, env: { ...PROD(), PUBLIC_URL: 'https://lanes.example' }, encoding: 'utf8', timeout: 60000 });
+    const r = spawnSync(path.join(root, 'node_modules', '.bin', 'tsx'), ['seeders/index.ts'], {
+      cwd: root,
+      env: { ...PROD(), PUBLIC_URL: 'https://lanes.example' },
+      encoding: 'utf8',
+      timeout: 60000,
+    });
     expect(r.status).not.toBe(0);
     expect(r.stderr).toContain('Refusing to seed');
     expect(await userCount()).toBe(0);

@@ -13,7 +13,16 @@ describe('/api/profile', () => {
 
   it('saves the bowler parameters and returns them on the next read', async () => {
     const { user, auth } = await createUser();
-    const body = { hand: 'left', speedMph: 15.5, revRpm: 420, axisRotationDeg: 60, axisTiltDeg: 20, papRightIn: 5.75, papUpIn: 0.5, units: 'metric' };
+    const body = {
+      hand: 'left',
+      speedMph: 15.5,
+      revRpm: 420,
+      axisRotationDeg: 60,
+      axisTiltDeg: 20,
+      papRightIn: 5.75,
+      papUpIn: 0.5,
+      units: 'metric',
+    };
     const put = await api.put('/api/profile').set(auth).send(body);
     expect(put.status).toBe(200);
     expect(put.body.profile).toEqual(body);
@@ -26,8 +35,14 @@ describe('/api/profile', () => {
 
   it('refuses out-of-range and mistyped values with a message per field, keeping what was saved', async () => {
     const { user, auth } = await createUser();
-    await api.put('/api/profile').set(auth).send({ ...DEFAULT_PROFILE, revRpm: 350 });
-    const res = await api.put('/api/profile').set(auth).send({ speedMph: -3, revRpm: 'fast', hand: 'both', axisRotationDeg: 200, extra: 1 });
+    await api
+      .put('/api/profile')
+      .set(auth)
+      .send({ ...DEFAULT_PROFILE, revRpm: 350 });
+    const res = await api
+      .put('/api/profile')
+      .set(auth)
+      .send({ speedMph: -3, revRpm: 'fast', hand: 'both', axisRotationDeg: 200, extra: 1 });
     expect(res.status).toBe(400);
     const fields = errorOf(res.body).fields ?? {};
     for (const f of ['body.speedMph', 'body.revRpm', 'body.hand', 'body.axisRotationDeg']) expect(fields).toHaveProperty([f]);
@@ -38,7 +53,10 @@ describe('/api/profile', () => {
     expect((await api.get('/api/profile')).status).toBe(401);
     const a = await createUser();
     const b = await createUser();
-    await api.put('/api/profile').set(a.auth).send({ ...DEFAULT_PROFILE, revRpm: 500 });
+    await api
+      .put('/api/profile')
+      .set(a.auth)
+      .send({ ...DEFAULT_PROFILE, revRpm: 500 });
     expect((await api.get('/api/profile').set(b.auth)).body.profile.revRpm).toBe(DEFAULT_PROFILE.revRpm);
   });
 });

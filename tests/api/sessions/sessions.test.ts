@@ -26,14 +26,35 @@ describe('POST /api/sessions', () => {
     const center = await createCenter(prop.user.id);
     const pattern = await createPattern(prop.user.id);
     const cond = await Condition.create({
-      centerId: center.id, patternId: pattern.id, patternName: pattern.name, sweeps: pattern.sweeps, summary: pattern.summary, lanes: [1, 2],
-      validFrom: today(), validTo: null, notes: null, publishedAt: new Date(), publishedBy: prop.user.id,
+      centerId: center.id,
+      patternId: pattern.id,
+      patternName: pattern.name,
+      sweeps: pattern.sweeps,
+      summary: pattern.summary,
+      lanes: [1, 2],
+      validFrom: today(),
+      validTo: null,
+      notes: null,
+      publishedAt: new Date(),
+      publishedBy: prop.user.id,
     });
-    const res = await api.post('/api/sessions').set(me.auth).send({ date: '2026-11-30', kind: 'practice', conditionId: cond.id, notes: 'Working on the 10 pin' });
+    const res = await api
+      .post('/api/sessions')
+      .set(me.auth)
+      .send({ date: '2026-11-30', kind: 'practice', conditionId: cond.id, notes: 'Working on the 10 pin' });
     expect(res.status).toBe(201);
     expect(res.body.item).toMatchObject({
-      userId: me.user.id, date: '2026-11-30', kind: 'practice', centerId: center.id, centerName: center.name, conditionId: cond.id,
-      patternId: pattern.id, patternName: pattern.name, notes: 'Working on the 10 pin', games: 0, shots: 0,
+      userId: me.user.id,
+      date: '2026-11-30',
+      kind: 'practice',
+      centerId: center.id,
+      centerName: center.name,
+      conditionId: cond.id,
+      patternId: pattern.id,
+      patternName: pattern.name,
+      notes: 'Working on the 10 pin',
+      games: 0,
+      shots: 0,
     });
     const row = await BowlingSession.findByPk(res.body.item.id);
     expect(row).toMatchObject({ userId: me.user.id, centerId: center.id, patternId: pattern.id });
@@ -45,7 +66,10 @@ describe('POST /api/sessions', () => {
     expect(bad.status).toBe(400);
     expect(Object.keys(errorOf(bad.body).fields ?? {})).toEqual(expect.arrayContaining(['body.date', 'body.kind']));
     for (const field of ['centerId', 'conditionId', 'patternId']) {
-      const res = await api.post('/api/sessions').set(me.auth).send({ date: today(), kind: 'league', [field]: 99999999 });
+      const res = await api
+        .post('/api/sessions')
+        .set(me.auth)
+        .send({ date: today(), kind: 'league', [field]: 99999999 });
       expect(res.status).toBe(400);
       expect(errorOf(res.body).fields).toHaveProperty([`body.${field}`]);
     }
@@ -60,7 +84,13 @@ describe('reading sessions: owner, linked coach, others', () => {
     expect((await api.get(`/api/sessions/${s.id}`).set(owner.auth)).status).toBe(200);
     const seen = await api.get(`/api/sessions/${s.id}`).set(coach.auth);
     expect(seen.status).toBe(200);
-    expect(seen.body.item).toMatchObject({ id: s.id, owner: { id: owner.user.id, displayName: owner.user.displayName }, gameViews: [], shots: [], annotations: [] });
+    expect(seen.body.item).toMatchObject({
+      id: s.id,
+      owner: { id: owner.user.id, displayName: owner.user.displayName },
+      gameViews: [],
+      shots: [],
+      annotations: [],
+    });
     for (const who of [other, stranger, former]) {
       const res = await api.get(`/api/sessions/${s.id}`).set(who.auth);
       expect(res.status).toBe(404);
@@ -86,7 +116,8 @@ describe('reading sessions: owner, linked coach, others', () => {
     const { owner, other, coach, stranger, former } = await cast();
     const ball = await createBall(owner.user.id);
     const ids: number[] = [];
-    for (const date of ['2026-11-01', '2026-11-03', '2026-11-02']) ids.push((await api.post('/api/sessions').set(owner.auth).send({ date, kind: 'practice' })).body.item.id);
+    for (const date of ['2026-11-01', '2026-11-03', '2026-11-02'])
+      ids.push((await api.post('/api/sessions').set(owner.auth).send({ date, kind: 'practice' })).body.item.id);
     await logGame(owner.auth, ids[1], 1, SAMPLE_GAME, () => ({}), ball.id);
     const page1 = await api.get('/api/sessions?page=1&pageSize=2').set(owner.auth);
     expect(page1.status).toBe(200);
@@ -101,7 +132,8 @@ describe('reading sessions: owner, linked coach, others', () => {
     const asCoach = await api.get(`/api/sessions?studentId=${owner.user.id}`).set(coach.auth);
     expect(asCoach.status).toBe(200);
     expect(asCoach.body.total).toBe(3);
-    for (const who of [other, stranger, former]) expect((await api.get(`/api/sessions?studentId=${owner.user.id}`).set(who.auth)).status).toBe(404);
+    for (const who of [other, stranger, former])
+      expect((await api.get(`/api/sessions?studentId=${owner.user.id}`).set(who.auth)).status).toBe(404);
     expect((await api.get('/api/sessions?pageSize=1000').set(owner.auth)).status).toBe(400);
     expect((await api.get('/api/sessions')).status).toBe(401);
   });
@@ -111,11 +143,15 @@ describe('changing sessions: owner only', () => {
   it('PATCH edits notes, kind and date; the linked coach gets 403, others 404, anonymous 401', async () => {
     const { owner, other, coach, stranger, former } = await cast();
     const s = (await api.post('/api/sessions').set(owner.auth).send({ date: today(), kind: 'practice' })).body.item;
-    const ok = await api.patch(`/api/sessions/${s.id}`).set(owner.auth).send({ notes: 'Lanes hooked early', kind: 'league', date: '2026-11-28' });
+    const ok = await api
+      .patch(`/api/sessions/${s.id}`)
+      .set(owner.auth)
+      .send({ notes: 'Lanes hooked early', kind: 'league', date: '2026-11-28' });
     expect(ok.status).toBe(200);
     expect(ok.body.item).toMatchObject({ notes: 'Lanes hooked early', kind: 'league', date: '2026-11-28' });
     expect((await api.patch(`/api/sessions/${s.id}`).set(coach.auth).send({ notes: 'x' })).status).toBe(403);
-    for (const who of [other, stranger, former]) expect((await api.patch(`/api/sessions/${s.id}`).set(who.auth).send({ notes: 'x' })).status).toBe(404);
+    for (const who of [other, stranger, former])
+      expect((await api.patch(`/api/sessions/${s.id}`).set(who.auth).send({ notes: 'x' })).status).toBe(404);
     expect((await api.patch(`/api/sessions/${s.id}`).send({ notes: 'x' })).status).toBe(401);
     const bad = await api.patch(`/api/sessions/${s.id}`).set(owner.auth).send({ kind: 'bumper' });
     expect(errorOf(bad.body).fields).toHaveProperty(['body.kind']);
@@ -144,11 +180,22 @@ describe('POST /api/sessions/:id/annotations', () => {
   it('the owner and the linked coach annotate (shown on the session); others 404; bad input 400', async () => {
     const { owner, other, coach, stranger, former } = await cast();
     const s = (await api.post('/api/sessions').set(owner.auth).send({ date: today(), kind: 'practice' })).body.item;
-    const note = await api.post(`/api/sessions/${s.id}/annotations`).set(coach.auth).send({ text: 'Stay behind the ball on the 10 pin', gameNumber: 1, frame: 3 });
+    const note = await api
+      .post(`/api/sessions/${s.id}/annotations`)
+      .set(coach.auth)
+      .send({ text: 'Stay behind the ball on the 10 pin', gameNumber: 1, frame: 3 });
     expect(note.status).toBe(201);
-    expect(note.body.item).toMatchObject({ sessionId: s.id, authorId: coach.user.id, authorName: coach.user.displayName, gameNumber: 1, frame: 3, text: 'Stay behind the ball on the 10 pin' });
+    expect(note.body.item).toMatchObject({
+      sessionId: s.id,
+      authorId: coach.user.id,
+      authorName: coach.user.displayName,
+      gameNumber: 1,
+      frame: 3,
+      text: 'Stay behind the ball on the 10 pin',
+    });
     expect((await api.post(`/api/sessions/${s.id}/annotations`).set(owner.auth).send({ text: 'Felt good' })).status).toBe(201);
-    for (const who of [other, stranger, former]) expect((await api.post(`/api/sessions/${s.id}/annotations`).set(who.auth).send({ text: 'hi' })).status).toBe(404);
+    for (const who of [other, stranger, former])
+      expect((await api.post(`/api/sessions/${s.id}/annotations`).set(who.auth).send({ text: 'hi' })).status).toBe(404);
     expect((await api.post(`/api/sessions/${s.id}/annotations`).send({ text: 'hi' })).status).toBe(401);
     const bad = await api.post(`/api/sessions/${s.id}/annotations`).set(owner.auth).send({ text: '', frame: 11 });
     expect(Object.keys(errorOf(bad.body).fields ?? {}).sort()).toEqual(['body.frame', 'body.text']);

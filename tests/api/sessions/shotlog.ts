@@ -49,7 +49,6 @@ export const SAMPLE_GAME: FrameLog[] = [
   [[], [3, 6], []], // X 8 /
 ];
 
-
 const subset = (pins: number[], rand: () => number, keep: number) => pins.filter(() => rand() < keep);
 
 /** A random complete game: each pin of a rack stays up with some probability, strikes and spares included. */
@@ -96,16 +95,26 @@ export async function logGame(
       .set(auth)
       .set('Idempotency-Key', newKey())
       .send({ gameNumber, ...d, ...(ball !== undefined ? { ballId: ball } : {}), ...extra(d, i) });
-    if (res.status !== 201) throw new Error(`delivery ${i + 1} (frame ${d.frame}, delivery ${d.delivery}): ${res.status} ${JSON.stringify(res.body)}`);
+    if (res.status !== 201)
+      throw new Error(`delivery ${i + 1} (frame ${d.frame}, delivery ${d.delivery}): ${res.status} ${JSON.stringify(res.body)}`);
     last = { status: res.status, body: res.body as Record<string, unknown> };
   }
   return last;
 }
 
 /** A coach ↔ student link straight in the database (the coaching tests exercise the invitation flow itself). */
-export async function linkRow(coachId: number, student: { id: number; email: string }, status: 'pending' | 'active' | 'revoked' = 'active') {
+export async function linkRow(
+  coachId: number,
+  student: { id: number; email: string },
+  status: 'pending' | 'active' | 'revoked' = 'active',
+) {
   return CoachLink.create({
-    coachId, studentId: student.id, email: student.email, status,
-    acceptedAt: status === 'pending' ? null : new Date(), revokedAt: status === 'revoked' ? new Date() : null, revokedBy: status === 'revoked' ? coachId : null,
+    coachId,
+    studentId: student.id,
+    email: student.email,
+    status,
+    acceptedAt: status === 'pending' ? null : new Date(),
+    revokedAt: status === 'revoked' ? new Date() : null,
+    revokedBy: status === 'revoked' ? coachId : null,
   });
 }

@@ -16,7 +16,10 @@ const post = (auth: { Authorization: string }, sessionId: number, body: Record<s
   return key === null ? req.send(body) : req.set('Idempotency-Key', key).send(body);
 };
 
-interface FrameView { runningTotal: number | null; deliveries: { symbol: string; split: boolean; pins: number }[] }
+interface FrameView {
+  runningTotal: number | null;
+  deliveries: { symbol: string; split: boolean; pins: number }[];
+}
 
 describe('logged games score as scoreGame does', () => {
   it('a full game with strikes, spares, a split and a tenth-frame fill: the frame sheet equals scoreGame, frame by frame', async () => {
@@ -32,7 +35,16 @@ describe('logged games score as scoreGame does', () => {
       expect(res.body.game.number).toBe(1);
       expect(res.body.game.total).toBe(partial.complete ? scoreGame(rolls).total : partial.total);
       expect(res.body.game.frames.map((f: FrameView) => f.runningTotal)).toEqual(partial.frames);
-      expect(res.body.item).toMatchObject({ sessionId: sid, gameNumber: 1, frame: d.frame, delivery: d.delivery, standing: d.standing, ballId: ball.id, feetBoard: 20, targetBoard: 11 });
+      expect(res.body.item).toMatchObject({
+        sessionId: sid,
+        gameNumber: 1,
+        frame: d.frame,
+        delivery: d.delivery,
+        standing: d.standing,
+        ballId: ball.id,
+        feetBoard: 20,
+        targetBoard: 11,
+      });
     }
     const detail = await api.get(`/api/sessions/${sid}`).set(me.auth);
     expect(detail.status).toBe(200);
@@ -93,8 +105,14 @@ describe('logged games score as scoreGame does', () => {
     const second = await post(me.auth, sid, { gameNumber: 1, frame: 1, delivery: 2, ballId: ball.id, standing: [] });
     expect(second.body.item.surfaceKey).toBe('4000 grit');
     const rows = await Shot.findAll({ where: { sessionId: sid }, order: [['id', 'ASC']] });
-    expect(rows.map((r) => [r.surfaceGrit, r.surfacePolished])).toEqual([[2000, false], [4000, false]]);
-    expect((await api.get(`/api/sessions/${sid}`).set(me.auth)).body.item.shots.map((s: { surfaceKey: string }) => s.surfaceKey)).toEqual(['2000 grit', '4000 grit']);
+    expect(rows.map((r) => [r.surfaceGrit, r.surfacePolished])).toEqual([
+      [2000, false],
+      [4000, false],
+    ]);
+    expect((await api.get(`/api/sessions/${sid}`).set(me.auth)).body.item.shots.map((s: { surfaceKey: string }) => s.surfaceKey)).toEqual([
+      '2000 grit',
+      '4000 grit',
+    ]);
   });
 });
 
@@ -170,7 +188,17 @@ describe('Idempotency-Key: a retried shot is stored once', () => {
     const ball = await createBall(me.user.id);
     const sid = await sessionOf(me.auth);
     const key = newKey();
-    const body = { gameNumber: 1, frame: 1, delivery: 1, ballId: ball.id, standing: [4, 7], feetBoard: 22, targetBoard: 12, breakpointBoard: 7, hit: 'light' };
+    const body = {
+      gameNumber: 1,
+      frame: 1,
+      delivery: 1,
+      ballId: ball.id,
+      standing: [4, 7],
+      feetBoard: 22,
+      targetBoard: 12,
+      breakpointBoard: 7,
+      hit: 'light',
+    };
     const first = await post(me.auth, sid, body, key);
     expect(first.status).toBe(201);
     const again = await post(me.auth, sid, body, key);
@@ -199,7 +227,10 @@ describe('Idempotency-Key: a retried shot is stored once', () => {
     expect(new Set(all.map((r) => r.body.item.id)).size).toBe(1);
     expect(await Shot.count({ where: { sessionId: sid } })).toBe(1);
     // Two different keys for the same delivery at once: one is stored, the other refused.
-    const race = await Promise.all([post(me.auth, sid, { ...body, delivery: 2, standing: [] }), post(me.auth, sid, { ...body, delivery: 2, standing: [] })]);
+    const race = await Promise.all([
+      post(me.auth, sid, { ...body, delivery: 2, standing: [] }),
+      post(me.auth, sid, { ...body, delivery: 2, standing: [] }),
+    ]);
     expect(race.map((r) => r.status).sort()).toEqual([201, 400]);
     expect(await Shot.count({ where: { sessionId: sid } })).toBe(2);
   });

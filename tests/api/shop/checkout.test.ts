@@ -4,7 +4,18 @@ import { AuditEvent, MailOutbox, OrderEvent, Payment, PaymentEvent } from '../..
 import { paymentFake, setPaymentWebhookTarget, stripeClient } from '../../../server/lib/payments';
 import { api, createUser, errorOf } from '../../helpers/api';
 import { waitForMail } from '../../helpers/mail';
-import { fakeIdle, getOrder, listenForWebhooks, placeOrder, postWebhook, shopWorld, signature, submitCard, waitFor, type TestUser } from './shopHelpers';
+import {
+  fakeIdle,
+  getOrder,
+  listenForWebhooks,
+  placeOrder,
+  postWebhook,
+  shopWorld,
+  signature,
+  submitCard,
+  waitFor,
+  type TestUser,
+} from './shopHelpers';
 
 // The whole flow through the official SDK against the project's fake: checkout session → hosted card
 // page → signed webhook delivered over HTTP to this app listening on loopback → the order is paid.
@@ -23,7 +34,11 @@ async function startCheckout(bowler: TestUser, orderId: number): Promise<{ url: 
   return res.body as { url: string; checkoutSessionId: string };
 }
 
-const paid = (bowler: TestUser, id: number) => waitFor(() => getOrder(bowler, id), (o) => o.status === 'paid');
+const paid = (bowler: TestUser, id: number) =>
+  waitFor(
+    () => getOrder(bowler, id),
+    (o) => o.status === 'paid',
+  );
 
 describe('paying by card through the SDK and the local fake', () => {
   it('4242 4242 4242 4242: checkout, card page, signed webhook to the listening server → paid, receipt mailed', async () => {
@@ -38,7 +53,14 @@ describe('paying by card through the SDK and the local fake', () => {
     // The session the SDK created carries the server's price, not anything the client said.
     const stripe = await stripeClient();
     const session = await stripe.checkout.sessions.retrieve(checkoutSessionId);
-    expect(session).toMatchObject({ amount_total: 4500, currency: 'usd', mode: 'payment', status: 'open', client_reference_id: String(order.id), metadata: { orderId: String(order.id) } });
+    expect(session).toMatchObject({
+      amount_total: 4500,
+      currency: 'usd',
+      mode: 'payment',
+      status: 'open',
+      client_reference_id: String(order.id),
+      metadata: { orderId: String(order.id) },
+    });
     expect(session.success_url).toBe(`${publicUrl()}/orders/${order.id}?checkout=done`);
     expect(session.cancel_url).toBe(`${publicUrl()}/orders/${order.id}?checkout=cancelled`);
 
@@ -54,7 +76,9 @@ describe('paying by card through the SDK and the local fake', () => {
     const o = await paid(bowler, order.id);
     expect(o).toMatchObject({ paymentStatus: 'paid', amountCents: 4500, lastPaymentError: null });
     await fakeIdle();
-    const completion = fake.events.find((e) => e.type === 'checkout.session.completed' && (e.data.object as { id: string }).id === checkoutSessionId)!;
+    const completion = fake.events.find(
+      (e) => e.type === 'checkout.session.completed' && (e.data.object as { id: string }).id === checkoutSessionId,
+    )!;
     expect(fake.deliveries.filter((d) => d.eventId === completion.id).map((d) => d.status)).toEqual([200]);
     expect(await PaymentEvent.findByPk(completion.id)).toMatchObject({ outcome: 'paid' });
     const payment = await Payment.findOne({ where: { checkoutSessionId } });
@@ -89,7 +113,11 @@ describe('paying by card through the SDK and the local fake', () => {
     expect(challenge.status).toBe(200);
     expect(challenge.html).toContain('Confirm this payment');
     const intent = /name="payment_intent" value="([^"]+)"/.exec(challenge.html)![1];
-    const failRes = await fetch(`${url}/challenge`, { method: 'POST', body: new URLSearchParams({ payment_intent: intent, outcome: 'fail' }), redirect: 'manual' });
+    const failRes = await fetch(`${url}/challenge`, {
+      method: 'POST',
+      body: new URLSearchParams({ payment_intent: intent, outcome: 'fail' }),
+      redirect: 'manual',
+    });
     expect(failRes.status).toBe(402);
     await fakeIdle();
     const failed = await getOrder(bowler, order.id);
@@ -98,7 +126,11 @@ describe('paying by card through the SDK and the local fake', () => {
     // Again, approved this time.
     const again = await submitCard(url, '4000002500003155');
     const intent2 = /name="payment_intent" value="([^"]+)"/.exec(again.html)![1];
-    const ok = await fetch(`${url}/challenge`, { method: 'POST', body: new URLSearchParams({ payment_intent: intent2, outcome: 'approve' }), redirect: 'manual' });
+    const ok = await fetch(`${url}/challenge`, {
+      method: 'POST',
+      body: new URLSearchParams({ payment_intent: intent2, outcome: 'approve' }),
+      redirect: 'manual',
+    });
     expect(ok.status).toBe(303);
     expect(await paid(bowler, order.id)).toMatchObject({ paymentStatus: 'paid', amountCents: 8000 });
   });
@@ -140,7 +172,10 @@ describe('paying by card through the SDK and the local fake', () => {
   it('two checkouts started at once (a double click) get the same session', async () => {
     const { polish, bowler, ball } = await shopWorld();
     const order = await placeOrder(bowler, polish.id, ball.id);
-    const results = await Promise.all([api.post(`/api/orders/${order.id}/checkout`).set(bowler.auth), api.post(`/api/orders/${order.id}/checkout`).set(bowler.auth)]);
+    const results = await Promise.all([
+      api.post(`/api/orders/${order.id}/checkout`).set(bowler.auth),
+      api.post(`/api/orders/${order.id}/checkout`).set(bowler.auth),
+    ]);
     expect(results.map((r) => r.status)).toEqual([200, 200]);
     expect(results[0].body.checkoutSessionId).toBe(results[1].body.checkoutSessionId);
     expect(await Payment.count({ where: { orderId: order.id } })).toBe(1);
@@ -171,14 +206,19 @@ describe('refunds through the SDK', () => {
     expect(res.body.item).toMatchObject({ status: 'refunded', paymentStatus: 'refunded', refundedAt: expect.any(String) });
     await fakeIdle();
     const fake = await paymentFake()!;
-    const refunded = fake.events.filter((e) => e.type === 'charge.refunded' && (e.data.object as { metadata: { orderId: string } }).metadata.orderId === String(order.id));
+    const refunded = fake.events.filter(
+      (e) => e.type === 'charge.refunded' && (e.data.object as { metadata: { orderId: string } }).metadata.orderId === String(order.id),
+    );
     expect(refunded).toHaveLength(1);
     expect(await PaymentEvent.findByPk(refunded[0].id)).toMatchObject({ outcome: 'already_refunded' });
     expect(await OrderEvent.count({ where: { orderId: order.id, status: 'refunded' } })).toBe(1);
     expect(await AuditEvent.count({ where: { action: 'order.refunded', subjectId: String(order.id) } })).toBe(1);
     expect(await AuditEvent.count({ where: { action: 'refund.requested', subjectId: String(order.id), actorId: owner.user.id } })).toBe(1);
     expect(await MailOutbox.count({ where: { ref: `${order.id}:refunded` } })).toBe(1);
-    expect(await Payment.findOne({ where: { orderId: order.id, status: 'refunded' } })).toMatchObject({ refundedCents: 4500, refundId: expect.stringMatching(/^re_test_/) });
+    expect(await Payment.findOne({ where: { orderId: order.id, status: 'refunded' } })).toMatchObject({
+      refundedCents: 4500,
+      refundId: expect.stringMatching(/^re_test_/),
+    });
     // A second refund is refused.
     const twice = await api.post(`/api/orders/${order.id}/refund`).set(owner.auth);
     expect(twice.status).toBe(409);
@@ -198,11 +238,18 @@ describe('refunds through the SDK', () => {
     const { url } = await startCheckout(bowler, order.id);
     await submitCard(url, '4242424242424242');
     await paid(bowler, order.id);
-    const results = await Promise.all([api.post(`/api/orders/${order.id}/refund`).set(owner.auth), api.post(`/api/orders/${order.id}/refund`).set(owner.auth)]);
+    const results = await Promise.all([
+      api.post(`/api/orders/${order.id}/refund`).set(owner.auth),
+      api.post(`/api/orders/${order.id}/refund`).set(owner.auth),
+    ]);
     expect(results.every((r) => r.status === 200 || r.status === 409)).toBe(true);
     await fakeIdle();
     const fake = await paymentFake()!;
-    expect(fake.events.filter((e) => e.type === 'refund.created' && (e.data.object as { metadata: { orderId?: string } }).metadata.orderId === String(order.id))).toHaveLength(1);
+    expect(
+      fake.events.filter(
+        (e) => e.type === 'refund.created' && (e.data.object as { metadata: { orderId?: string } }).metadata.orderId === String(order.id),
+      ),
+    ).toHaveLength(1);
     expect(await OrderEvent.count({ where: { orderId: order.id, status: 'refunded' } })).toBe(1);
     expect(await MailOutbox.count({ where: { ref: `${order.id}:refunded` } })).toBe(1);
   });
@@ -226,9 +273,15 @@ describe('refunds through the SDK', () => {
     expect((await postWebhook(payload, signature(payload))).status).toBe(200);
     expect(await PaymentEvent.findByPk(completion.id)).toMatchObject({ outcome: 'paid_after_cancel_refunding' });
     // The refund goes out after commit; its charge.refunded comes back through the listening server.
-    const o = await waitFor(() => getOrder(bowler, order.id), (x) => x.paymentStatus === 'refunded');
+    const o = await waitFor(
+      () => getOrder(bowler, order.id),
+      (x) => x.paymentStatus === 'refunded',
+    );
     expect(o).toMatchObject({ status: 'cancelled', paidAt: null });
     expect(await Payment.findOne({ where: { checkoutSessionId } })).toMatchObject({ status: 'refunded', refundedCents: 2500 });
-    await waitFor(() => AuditEvent.count({ where: { action: 'payment.auto_refunded', subjectId: String(order.id) } }), (n) => n === 1);
+    await waitFor(
+      () => AuditEvent.count({ where: { action: 'payment.auto_refunded', subjectId: String(order.id) } }),
+      (n) => n === 1,
+    );
   });
 });

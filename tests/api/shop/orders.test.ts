@@ -17,27 +17,50 @@ describe('the price list', () => {
     expect(await ShopService.count({ where: { centerId: center.id } })).toBe(0);
     const ok = await api.post(`/api/centers/${center.id}/services`).set(owner.auth).send(body);
     expect(ok.status).toBe(201);
-    expect(ok.body.item).toMatchObject({ centerId: center.id, kind: 'resurface', grit: 3000, priceCents: 4200, currency: 'usd', active: true, version: 0 });
+    expect(ok.body.item).toMatchObject({
+      centerId: center.id,
+      kind: 'resurface',
+      grit: 3000,
+      priceCents: 4200,
+      currency: 'usd',
+      active: true,
+      version: 0,
+    });
   });
 
   it('refuses a resurface without its grit, fractional cents and unknown fields, by field', async () => {
     const owner = await createUser('proprietor');
     const center = await createCenter(owner.user.id);
-    const noGrit = await api.post(`/api/centers/${center.id}/services`).set(owner.auth).send({ kind: 'resurface', name: 'Resurface', priceCents: 4000 });
+    const noGrit = await api
+      .post(`/api/centers/${center.id}/services`)
+      .set(owner.auth)
+      .send({ kind: 'resurface', name: 'Resurface', priceCents: 4000 });
     expect(noGrit.status).toBe(400);
     expect(errorOf(noGrit.body).fields).toHaveProperty(['body.grit']);
-    const cents = await api.post(`/api/centers/${center.id}/services`).set(owner.auth).send({ kind: 'polish', name: 'Polish', priceCents: 25.5 });
+    const cents = await api
+      .post(`/api/centers/${center.id}/services`)
+      .set(owner.auth)
+      .send({ kind: 'polish', name: 'Polish', priceCents: 25.5 });
     expect(errorOf(cents.body).fields).toHaveProperty(['body.priceCents']);
-    const extra = await api.post(`/api/centers/${center.id}/services`).set(owner.auth).send({ kind: 'polish', name: 'Polish', priceCents: 2500, centerId: 1 });
+    const extra = await api
+      .post(`/api/centers/${center.id}/services`)
+      .set(owner.auth)
+      .send({ kind: 'polish', name: 'Polish', priceCents: 2500, centerId: 1 });
     expect(extra.status).toBe(400);
   });
 
   it('lists active entries to any signed-in user and inactive ones to the proprietor with ?all=1; a stale version is 409', async () => {
     const { owner, center, polish, bowler } = await shopWorld();
-    const retire = await api.patch(`/api/centers/${center.id}/services/${polish.id}`).set(owner.auth).send({ version: polish.version, active: false, priceCents: 2700 });
+    const retire = await api
+      .patch(`/api/centers/${center.id}/services/${polish.id}`)
+      .set(owner.auth)
+      .send({ version: polish.version, active: false, priceCents: 2700 });
     expect(retire.status).toBe(200);
     expect(retire.body.item).toMatchObject({ active: false, priceCents: 2700, version: polish.version + 1 });
-    const stale = await api.patch(`/api/centers/${center.id}/services/${polish.id}`).set(owner.auth).send({ version: polish.version, priceCents: 1 * 100 });
+    const stale = await api
+      .patch(`/api/centers/${center.id}/services/${polish.id}`)
+      .set(owner.auth)
+      .send({ version: polish.version, priceCents: 1 * 100 });
     expect(stale.status).toBe(409);
     expect(errorOf(stale.body).code).toBe('stale_version');
     const seen = await api.get(`/api/centers/${center.id}/services`).set(bowler.auth);
@@ -59,19 +82,40 @@ describe('ordering', () => {
     const tampered = await api.post('/api/orders').set(bowler.auth).send({ serviceId: resurface.id, ballId: ball.id, amountCents: 1 });
     expect(tampered.status).toBe(400);
     expect(errorOf(tampered.body).code).toBe('validation_failed');
-    const tampered2 = await api.post('/api/orders').set(bowler.auth).send({ serviceId: resurface.id, ballId: ball.id, priceCents: 1, currency: 'usd' });
+    const tampered2 = await api
+      .post('/api/orders')
+      .set(bowler.auth)
+      .send({ serviceId: resurface.id, ballId: ball.id, priceCents: 1, currency: 'usd' });
     expect(tampered2.status).toBe(400);
-    const mismatch = await api.post('/api/orders').set(bowler.auth).send({ serviceId: resurface.id, ballId: ball.id, expectedAmountCents: 100 });
+    const mismatch = await api
+      .post('/api/orders')
+      .set(bowler.auth)
+      .send({ serviceId: resurface.id, ballId: ball.id, expectedAmountCents: 100 });
     expect(mismatch.status).toBe(400);
     expect(errorOf(mismatch.body).code).toBe('price_mismatch');
     expect(errorOf(mismatch.body).fields).toHaveProperty(['body.expectedAmountCents']);
     expect(await Order.count({ where: { userId: bowler.user.id } })).toBe(before);
 
-    const ok = await api.post('/api/orders').set(bowler.auth).send({ serviceId: resurface.id, ballId: ball.id, expectedAmountCents: 4500, notes: 'For the Saturday league' });
+    const ok = await api
+      .post('/api/orders')
+      .set(bowler.auth)
+      .send({ serviceId: resurface.id, ballId: ball.id, expectedAmountCents: 4500, notes: 'For the Saturday league' });
     expect(ok.status).toBe(201);
     expect(ok.body.item).toMatchObject({
-      userId: bowler.user.id, serviceId: resurface.id, serviceKind: 'resurface', serviceName: 'Resurface to 4000 grit', grit: 4000, ballId: ball.id, ballName: ball.name,
-      amountCents: 4500, currency: 'usd', status: 'ordered', paymentStatus: 'unpaid', lastPaymentError: null, notes: 'For the Saturday league', paidAt: null,
+      userId: bowler.user.id,
+      serviceId: resurface.id,
+      serviceKind: 'resurface',
+      serviceName: 'Resurface to 4000 grit',
+      grit: 4000,
+      ballId: ball.id,
+      ballName: ball.name,
+      amountCents: 4500,
+      currency: 'usd',
+      status: 'ordered',
+      paymentStatus: 'unpaid',
+      lastPaymentError: null,
+      notes: 'For the Saturday league',
+      paidAt: null,
     });
     expect(ok.body.item.history).toEqual([{ status: 'ordered', at: expect.any(String), by: bowler.user.displayName }]);
     expect(await AuditEvent.count({ where: { action: 'order.created', subjectId: String(ok.body.item.id) } })).toBe(1);

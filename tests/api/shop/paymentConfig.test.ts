@@ -7,16 +7,26 @@ import { root } from '../../helpers/database';
 
 /** Loads the configuration in a fresh process with the given environment; returns its error text (empty when it loads). */
 function loadConfig(env: Record<string, string>): string {
-  const r = spawnSync(path.join(root, 'node_modules', '.bin', 'tsx'), ['-e', "import('./server/config/index.ts').then(() => console.log('loaded'))"], {
-    cwd: root,
-    env: { PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '', ...env },
-    encoding: 'utf8',
-    timeout: 60000,
-  });
+  const r = spawnSync(
+    path.join(root, 'node_modules', '.bin', 'tsx'),
+    ['-e', "import('./server/config/index.ts').then(() => console.log('loaded'))"],
+    {
+      cwd: root,
+      env: { PATH: process.env.PATH ?? '', HOME: process.env.HOME ?? '', ...env },
+      encoding: 'utf8',
+      timeout: 60000,
+    },
+  );
   return r.stdout.includes('loaded') ? '' : r.stderr;
 }
 
-const PROD = { NODE_ENV: 'production', JWT_SECRET: 'a-real-production-secret-0123456789abcdef', PUBLIC_URL: 'https://lanes.example', DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/db', SMTP_URL: 'smtp://127.0.0.1:25' };
+const PROD = {
+  NODE_ENV: 'production',
+  JWT_SECRET: 'a-real-production-secret-0123456789abcdef',
+  PUBLIC_URL: 'https://lanes.example',
+  DATABASE_URL: 'postgres://u:p@127.0.0.1:5432/db',
+  SMTP_URL: 'smtp://127.0.0.1:25',
+};
 
 /** Development loads keep their generated secret in a folder of this test, not the project's .data. */
 const DEV = { NODE_ENV: 'development', DATA_DIR: path.join(os.tmpdir(), `lanewright-payment-config-${process.pid}`) };

@@ -15,9 +15,33 @@ export type TestUser = Awaited<ReturnType<typeof createUser>>;
 export async function shopWorld() {
   const owner = await createUser('proprietor');
   const center = await createCenter(owner.user.id);
-  const resurface = await ShopService.create({ centerId: center.id, kind: 'resurface', name: 'Resurface to 4000 grit', grit: 4000, description: null, priceCents: 4500, currency: 'usd' });
-  const polish = await ShopService.create({ centerId: center.id, kind: 'polish', name: 'Polish', grit: null, description: null, priceCents: 2500, currency: 'usd' });
-  const redrill = await ShopService.create({ centerId: center.id, kind: 'plug-redrill', name: 'Plug and redrill', grit: null, description: null, priceCents: 8000, currency: 'usd' });
+  const resurface = await ShopService.create({
+    centerId: center.id,
+    kind: 'resurface',
+    name: 'Resurface to 4000 grit',
+    grit: 4000,
+    description: null,
+    priceCents: 4500,
+    currency: 'usd',
+  });
+  const polish = await ShopService.create({
+    centerId: center.id,
+    kind: 'polish',
+    name: 'Polish',
+    grit: null,
+    description: null,
+    priceCents: 2500,
+    currency: 'usd',
+  });
+  const redrill = await ShopService.create({
+    centerId: center.id,
+    kind: 'plug-redrill',
+    name: 'Plug and redrill',
+    grit: null,
+    description: null,
+    priceCents: 8000,
+    currency: 'usd',
+  });
   const bowler = await createUser('bowler');
   const ball = await createBall(bowler.user.id, URETHANE, { surfaceGrit: 2000, polished: false });
   return { owner, center, resurface, polish, redrill, bowler, ball };
@@ -40,13 +64,27 @@ const rid = (prefix: string) => `${prefix}_test_${crypto.randomBytes(10).toStrin
 
 /** An event shaped like the payment service's, around one of its objects. */
 export function event(type: string, object: Record<string, unknown>, id = rid('evt')): { id: string; payload: string } {
-  const ev = { id, object: 'event', api_version: Stripe.API_VERSION, created: Math.floor(Date.now() / 1000), data: { object }, livemode: false, pending_webhooks: 1, request: { id: null, idempotency_key: null }, type };
+  const ev = {
+    id,
+    object: 'event',
+    api_version: Stripe.API_VERSION,
+    created: Math.floor(Date.now() / 1000),
+    data: { object },
+    livemode: false,
+    pending_webhooks: 1,
+    request: { id: null, idempotency_key: null },
+    type,
+  };
   return { id, payload: JSON.stringify(ev) };
 }
 
 /** The Stripe-Signature header for a payload, made with the SDK's own test helper. */
 export function signature(payload: string, opts: { secret?: string; timestamp?: number } = {}): string {
-  return Stripe.webhooks.generateTestHeaderString({ payload, secret: opts.secret ?? webhookSecret(), ...(opts.timestamp ? { timestamp: opts.timestamp } : {}) });
+  return Stripe.webhooks.generateTestHeaderString({
+    payload,
+    secret: opts.secret ?? webhookSecret(),
+    ...(opts.timestamp ? { timestamp: opts.timestamp } : {}),
+  });
 }
 
 export function postWebhook(payload: string, header: string | null) {
@@ -65,16 +103,44 @@ export function paymentObjects(order: Pick<OrderDto, 'id' | 'amountCents' | 'cur
   const chargeId = rid('ch');
   const metadata = { orderId: String(order.id) };
   const session = {
-    id: sessionId, object: 'checkout.session', amount_subtotal: order.amountCents, amount_total: order.amountCents, currency: order.currency, client_reference_id: String(order.id),
-    metadata, mode: 'payment', payment_intent: intentId, payment_status: 'paid', status: 'complete', url: null, livemode: false,
+    id: sessionId,
+    object: 'checkout.session',
+    amount_subtotal: order.amountCents,
+    amount_total: order.amountCents,
+    currency: order.currency,
+    client_reference_id: String(order.id),
+    metadata,
+    mode: 'payment',
+    payment_intent: intentId,
+    payment_status: 'paid',
+    status: 'complete',
+    url: null,
+    livemode: false,
   };
   const charge = {
-    id: chargeId, object: 'charge', amount: order.amountCents, amount_captured: order.amountCents, amount_refunded: order.amountCents, captured: true, currency: order.currency,
-    metadata, paid: true, payment_intent: intentId, refunded: true, status: 'succeeded', livemode: false,
+    id: chargeId,
+    object: 'charge',
+    amount: order.amountCents,
+    amount_captured: order.amountCents,
+    amount_refunded: order.amountCents,
+    captured: true,
+    currency: order.currency,
+    metadata,
+    paid: true,
+    payment_intent: intentId,
+    refunded: true,
+    status: 'succeeded',
+    livemode: false,
   };
   const failedIntent = {
-    id: intentId, object: 'payment_intent', amount: order.amountCents, currency: order.currency, metadata, status: 'requires_payment_method',
-    last_payment_error: { type: 'card_error', code: 'card_declined', message: 'Your card was declined.' }, livemode: false,
+    id: intentId,
+    object: 'payment_intent',
+    amount: order.amountCents,
+    currency: order.currency,
+    metadata,
+    status: 'requires_payment_method',
+    last_payment_error: { type: 'card_error', code: 'card_declined', message: 'Your card was declined.' },
+    livemode: false,
   };
   return { sessionId, intentId, session, charge, failedIntent };
 }
@@ -110,7 +176,11 @@ export async function fakeIdle(): Promise<void> {
 }
 
 /** Submits the fake's hosted card form like a browser (no redirect following). */
-export async function submitCard(url: string, card: string, extra: Record<string, string> = {}): Promise<{ status: number; location: string | null; html: string }> {
+export async function submitCard(
+  url: string,
+  card: string,
+  extra: Record<string, string> = {},
+): Promise<{ status: number; location: string | null; html: string }> {
   const res = await fetch(url, {
     method: 'POST',
     headers: { 'Content-Type': 'application/x-www-form-urlencoded' },

@@ -5,7 +5,8 @@ import { createPattern, LONG_HEAVY } from '../../helpers/fixtures';
 import { capturedMail } from '../../../server/dev/mailCapture';
 import { event, getOrder, payByWebhook, placeOrder, sendEvent, shopWorld, waitFor } from './shopHelpers';
 
-const move = (auth: { Authorization: string }, id: number, status: string) => api.patch(`/api/orders/${id}/status`).set(auth).send({ status });
+const move = (auth: { Authorization: string }, id: number, status: string) =>
+  api.patch(`/api/orders/${id}/status`).set(auth).send({ status });
 
 describe('the shop’s moves', () => {
   it('only forward from paid: ordered → ready is 409, paid → collected is 409, backwards is 409; a bowler cannot move an order', async () => {
@@ -24,7 +25,11 @@ describe('the shop’s moves', () => {
     const collected = await move(owner.auth, order.id, 'collected');
     expect(collected.body.item).toMatchObject({ status: 'collected', collectedAt: expect.any(String), readyAt: expect.any(String) });
     expect(collected.body.item.history.map((h: { status: string; by: string | null }) => [h.status, h.by])).toEqual([
-      ['ordered', bowler.user.displayName], ['paid', null], ['in_progress', owner.user.displayName], ['ready', owner.user.displayName], ['collected', owner.user.displayName],
+      ['ordered', bowler.user.displayName],
+      ['paid', null],
+      ['in_progress', owner.user.displayName],
+      ['ready', owner.user.displayName],
+      ['collected', owner.user.displayName],
     ]);
     expect(await AuditEvent.count({ where: { action: 'order.status_changed', subjectId: String(order.id) } })).toBe(3);
     expect((await move(owner.auth, order.id, 'ready')).status).toBe(409);
@@ -33,7 +38,10 @@ describe('the shop’s moves', () => {
   it('marking a 4000-grit resurface ready sets the ball’s surface and history in the same step, mails the bowler, and the next matchup uses it', async () => {
     const { resurface, owner, bowler, ball } = await shopWorld();
     const pattern = await createPattern(owner.user.id, LONG_HEAVY);
-    const before = await api.post('/api/matchups').set(bowler.auth).send({ patternId: pattern.id, ballIds: [ball.id] });
+    const before = await api
+      .post('/api/matchups')
+      .set(bowler.auth)
+      .send({ patternId: pattern.id, ballIds: [ball.id] });
     expect(before.status).toBe(200);
     expect(before.body.rankings[0].ball).toMatchObject({ surfaceGrit: 2000, polished: false });
 
@@ -50,13 +58,19 @@ describe('the shop’s moves', () => {
     expect(last).toMatchObject({ fromGrit: 2000, fromPolished: false, toGrit: 4000, toPolished: false, byUserId: owner.user.id });
     expect(last.note).toContain(`order #${order.id}`);
 
-    const after = await api.post('/api/matchups').set(bowler.auth).send({ patternId: pattern.id, ballIds: [ball.id] });
+    const after = await api
+      .post('/api/matchups')
+      .set(bowler.auth)
+      .send({ patternId: pattern.id, ballIds: [ball.id] });
     expect(after.body.rankings[0].ball).toMatchObject({ surfaceGrit: 4000, polished: false });
     // A smoother cover reads the oil less: the engine's answer differs (not a cached copy of the old one).
     expect(JSON.stringify(after.body.rankings[0].reasons)).not.toBe(JSON.stringify(before.body.rankings[0].reasons));
 
     expect(await MailOutbox.count({ where: { ref: `${order.id}:ready` } })).toBe(1);
-    const mail = await waitFor(async () => capturedMail().find((m) => m.to.includes(bowler.user.email) && m.subject.includes('ready')), (m) => m !== undefined);
+    const mail = await waitFor(
+      async () => capturedMail().find((m) => m.to.includes(bowler.user.email) && m.subject.includes('ready')),
+      (m) => m !== undefined,
+    );
     expect(mail!.text).toContain('4000 grit');
   });
 
@@ -76,15 +90,26 @@ describe('the shop’s moves', () => {
 
   it('an oil extraction records a surface event with the surface unchanged and keeps the games since resurface', async () => {
     const { center, owner, bowler, ball } = await shopWorld();
-    const svc = await api.post(`/api/centers/${center.id}/services`).set(owner.auth).send({ kind: 'oil-extraction', name: 'Oil extraction', priceCents: 3000 });
+    const svc = await api
+      .post(`/api/centers/${center.id}/services`)
+      .set(owner.auth)
+      .send({ kind: 'oil-extraction', name: 'Oil extraction', priceCents: 3000 });
     const o = await placeOrder(bowler, svc.body.item.id, ball.id);
     await payByWebhook(o);
     const before = (await Ball.findByPk(ball.id))!;
     await move(owner.auth, o.id, 'ready');
     const after = (await Ball.findByPk(ball.id))!;
-    expect(after).toMatchObject({ surfaceGrit: before.surfaceGrit, polished: before.polished, gamesSinceResurface: before.gamesSinceResurface });
+    expect(after).toMatchObject({
+      surfaceGrit: before.surfaceGrit,
+      polished: before.polished,
+      gamesSinceResurface: before.gamesSinceResurface,
+    });
     const last = await SurfaceEvent.findOne({ where: { ballId: ball.id }, order: [['id', 'DESC']] });
-    expect(last).toMatchObject({ fromGrit: before.surfaceGrit, toGrit: before.surfaceGrit, note: expect.stringContaining('Oil extraction') });
+    expect(last).toMatchObject({
+      fromGrit: before.surfaceGrit,
+      toGrit: before.surfaceGrit,
+      note: expect.stringContaining('Oil extraction'),
+    });
   });
 
   it('a refunded order cannot be moved on, and a ready order can still be refunded', async () => {
@@ -113,8 +138,16 @@ describe('the day’s takings', () => {
     const res = await api.get(`/api/centers/${center.id}/takings?date=${today}`).set(owner.auth);
     expect(res.status).toBe(200);
     expect(res.body.item).toEqual({
-      date: today, currency: 'usd', orders: 3, paidCents: 4500 + 4500 + 2500, refundedCents: 4500, netCents: 4500 + 2500,
-      byService: [{ serviceId: resurface.id, name: resurface.name, count: 2, cents: 9000 }, { serviceId: polish.id, name: polish.name, count: 1, cents: 2500 }],
+      date: today,
+      currency: 'usd',
+      orders: 3,
+      paidCents: 4500 + 4500 + 2500,
+      refundedCents: 4500,
+      netCents: 4500 + 2500,
+      byService: [
+        { serviceId: resurface.id, name: resurface.name, count: 2, cents: 9000 },
+        { serviceId: polish.id, name: polish.name, count: 1, cents: 2500 },
+      ],
     });
     expect((await api.get(`/api/centers/${center.id}/takings`).set(owner.auth)).body.item.date).toBe(today);
     const empty = await api.get(`/api/centers/${center.id}/takings?date=2001-02-03`).set(owner.auth);

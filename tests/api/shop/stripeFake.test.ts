@@ -58,7 +58,9 @@ const newSession = () =>
 
 describe('the payment fake through the SDK', () => {
   it('decodes the SDK’s nested form encoding', () => {
-    expect(parseForm('line_items[0][price_data][unit_amount]=4500&line_items[0][quantity]=1&metadata[orderId]=7&mode=payment&__proto__[x]=1')).toEqual({
+    expect(
+      parseForm('line_items[0][price_data][unit_amount]=4500&line_items[0][quantity]=1&metadata[orderId]=7&mode=payment&__proto__[x]=1'),
+    ).toEqual({
       line_items: [{ price_data: { unit_amount: '4500' }, quantity: '1' }],
       metadata: { orderId: '7' },
       mode: 'payment',
@@ -67,7 +69,15 @@ describe('the payment fake through the SDK', () => {
 
   it('creates and retrieves a checkout session shaped like the real one; the success URL gets the session id', async () => {
     const s = await newSession();
-    expect(s).toMatchObject({ object: 'checkout.session', amount_total: 2500, currency: 'usd', status: 'open', payment_status: 'unpaid', payment_intent: null, metadata: { orderId: '7' } });
+    expect(s).toMatchObject({
+      object: 'checkout.session',
+      amount_total: 2500,
+      currency: 'usd',
+      status: 'open',
+      payment_status: 'unpaid',
+      payment_intent: null,
+      metadata: { orderId: '7' },
+    });
     expect(s.url).toBe(`${fake.url}/pay/${s.id}`);
     expect((await stripe.checkout.sessions.retrieve(s.id)).id).toBe(s.id);
     const res = await submitCard(s.url!, '4242424242424242');
@@ -77,16 +87,30 @@ describe('the payment fake through the SDK', () => {
     const pi = await stripe.paymentIntents.retrieve(done.payment_intent as string);
     expect(pi).toMatchObject({ status: 'succeeded', amount: 2500, amount_received: 2500, metadata: { orderId: '7' } });
     await fake.idle();
-    const types = received.filter((r) => (r.event.data.object as { metadata?: Record<string, string> }).metadata?.orderId === '7').map((r) => r.event.type);
+    const types = received
+      .filter((r) => (r.event.data.object as { metadata?: Record<string, string> }).metadata?.orderId === '7')
+      .map((r) => r.event.type);
     expect(types).toEqual(expect.arrayContaining(['charge.succeeded', 'payment_intent.succeeded', 'checkout.session.completed']));
   });
 
   it('answers errors the SDK turns into its own error classes', async () => {
-    await expect(stripe.checkout.sessions.retrieve('cs_test_nothing')).rejects.toMatchObject({ type: 'StripeInvalidRequestError', code: 'resource_missing', statusCode: 404 });
-    await expect(stripe.refunds.create({ payment_intent: 'pi_test_nothing' })).rejects.toBeInstanceOf(Stripe.errors.StripeInvalidRequestError);
-    await expect(stripe.checkout.sessions.create({ mode: 'payment', success_url: 'http://x.test/' })).rejects.toMatchObject({ code: 'parameter_missing', param: 'line_items' });
+    await expect(stripe.checkout.sessions.retrieve('cs_test_nothing')).rejects.toMatchObject({
+      type: 'StripeInvalidRequestError',
+      code: 'resource_missing',
+      statusCode: 404,
+    });
+    await expect(stripe.refunds.create({ payment_intent: 'pi_test_nothing' })).rejects.toBeInstanceOf(
+      Stripe.errors.StripeInvalidRequestError,
+    );
+    await expect(stripe.checkout.sessions.create({ mode: 'payment', success_url: 'http://x.test/' })).rejects.toMatchObject({
+      code: 'parameter_missing',
+      param: 'line_items',
+    });
     const noKey = new Stripe('pk_test_not_a_secret', { host: fake.host, port: fake.port, protocol: 'http', maxNetworkRetries: 0 });
-    await expect(noKey.checkout.sessions.retrieve('cs_test_x')).rejects.toMatchObject({ type: 'StripeAuthenticationError', statusCode: 401 });
+    await expect(noKey.checkout.sessions.retrieve('cs_test_x')).rejects.toMatchObject({
+      type: 'StripeAuthenticationError',
+      statusCode: 401,
+    });
   });
 
   it('refunds a paid intent once, sends charge.refunded, refuses a second; an idempotency key replays the first answer', async () => {
@@ -99,9 +123,11 @@ describe('the payment fake through the SDK', () => {
     expect(r1again.id).toBe(r1.id);
     await expect(stripe.refunds.create({ payment_intent: pi })).rejects.toMatchObject({ code: 'charge_already_refunded' });
     await fake.idle();
-    const refunded = received.filter((r) => r.event.type === 'charge.refunded' && (r.event.data.object as Stripe.Charge).payment_intent === pi);
+    const refunded = received.filter(
+      (r) => r.event.type === 'charge.refunded' && (r.event.data.object as Stripe.Charge).payment_intent === pi,
+    );
     expect(refunded).toHaveLength(1);
-    expect((refunded[0].event.data.object as Stripe.Charge)).toMatchObject({ amount_refunded: 2500, refunded: true });
+    expect(refunded[0].event.data.object as Stripe.Charge).toMatchObject({ amount_refunded: 2500, refunded: true });
   });
 
   it('retries a webhook the receiver did not take until it answers 2xx, with a fresh signature each time', async () => {
@@ -138,8 +164,16 @@ describe('the payment fake through the SDK', () => {
     const stateFile = path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'lw-fake-')), 'state.json');
     const first = await startStripeFake({ webhookSecret: SECRET, stateFile });
     const sdk1 = new Stripe('sk_test_restart', { host: first.host, port: first.port, protocol: 'http', maxNetworkRetries: 0 });
-    const s = await sdk1.checkout.sessions.create({ mode: 'payment', line_items: [{ quantity: 1, price_data: { currency: 'usd', unit_amount: 3000, product_data: { name: 'Oil extraction' } } }], success_url: 'http://x.test/ok' });
-    const open = await sdk1.checkout.sessions.create({ mode: 'payment', line_items: [{ quantity: 1, price_data: { currency: 'usd', unit_amount: 3000, product_data: { name: 'Oil extraction' } } }], success_url: 'http://x.test/ok' });
+    const s = await sdk1.checkout.sessions.create({
+      mode: 'payment',
+      line_items: [{ quantity: 1, price_data: { currency: 'usd', unit_amount: 3000, product_data: { name: 'Oil extraction' } } }],
+      success_url: 'http://x.test/ok',
+    });
+    const open = await sdk1.checkout.sessions.create({
+      mode: 'payment',
+      line_items: [{ quantity: 1, price_data: { currency: 'usd', unit_amount: 3000, product_data: { name: 'Oil extraction' } } }],
+      success_url: 'http://x.test/ok',
+    });
     await submitCard(s.url!, '4242424242424242');
     await first.close();
     const second = await startStripeFake({ webhookSecret: SECRET, stateFile });

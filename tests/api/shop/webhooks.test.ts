@@ -51,7 +51,12 @@ describe('processing each event once', () => {
     const { resurface, bowler, ball } = await shopWorld();
     const order = await placeOrder(bowler, resurface.id, ball.id);
     const objs = paymentObjects(order);
-    await Payment.create({ orderId: order.id, checkoutSessionId: objs.sessionId, amountCents: order.amountCents, currency: order.currency });
+    await Payment.create({
+      orderId: order.id,
+      checkoutSessionId: objs.sessionId,
+      amountCents: order.amountCents,
+      currency: order.currency,
+    });
     const ev = event('checkout.session.completed', objs.session);
     const first = await sendEvent(ev);
     const second = await sendEvent(ev);
@@ -73,7 +78,12 @@ describe('processing each event once', () => {
     const { resurface, bowler, ball } = await shopWorld();
     const order = await placeOrder(bowler, resurface.id, ball.id);
     const objs = paymentObjects(order);
-    await Payment.create({ orderId: order.id, checkoutSessionId: objs.sessionId, amountCents: order.amountCents, currency: order.currency });
+    await Payment.create({
+      orderId: order.id,
+      checkoutSessionId: objs.sessionId,
+      amountCents: order.amountCents,
+      currency: order.currency,
+    });
     const ev = event('checkout.session.completed', objs.session);
     const results = await Promise.all([sendEvent(ev), sendEvent(ev), sendEvent(ev)]);
     expect(results.map((r) => r.status)).toEqual([200, 200, 200]);
@@ -98,7 +108,12 @@ describe('events out of order', () => {
     const { resurface, bowler, ball } = await shopWorld();
     const order = await placeOrder(bowler, resurface.id, ball.id);
     const objs = paymentObjects(order);
-    await Payment.create({ orderId: order.id, checkoutSessionId: objs.sessionId, amountCents: order.amountCents, currency: order.currency });
+    await Payment.create({
+      orderId: order.id,
+      checkoutSessionId: objs.sessionId,
+      amountCents: order.amountCents,
+      currency: order.currency,
+    });
     expect((await sendEvent(event('charge.refunded', objs.charge))).status).toBe(200);
     expect((await getOrder(bowler, order.id)).status).toBe('refunded');
     expect((await sendEvent(event('checkout.session.completed', objs.session))).status).toBe(200);
@@ -121,9 +136,19 @@ describe('events out of order', () => {
     const { resurface, bowler, ball } = await shopWorld();
     const order = await placeOrder(bowler, resurface.id, ball.id);
     const objs = paymentObjects(order);
-    await Payment.create({ orderId: order.id, checkoutSessionId: objs.sessionId, amountCents: order.amountCents, currency: order.currency });
+    await Payment.create({
+      orderId: order.id,
+      checkoutSessionId: objs.sessionId,
+      amountCents: order.amountCents,
+      currency: order.currency,
+    });
     await sendEvent(event('payment_intent.payment_failed', objs.failedIntent));
-    expect(await getOrder(bowler, order.id)).toMatchObject({ status: 'ordered', paymentStatus: 'failed', lastPaymentError: 'Your card was declined.', paidAt: null });
+    expect(await getOrder(bowler, order.id)).toMatchObject({
+      status: 'ordered',
+      paymentStatus: 'failed',
+      lastPaymentError: 'Your card was declined.',
+      paidAt: null,
+    });
     await sendEvent(event('checkout.session.completed', objs.session));
     expect(await getOrder(bowler, order.id)).toMatchObject({ status: 'paid', paymentStatus: 'paid', lastPaymentError: null });
   });

@@ -7,10 +7,21 @@ import { api, calibrationsIdle, createUser, errorOf } from '../../helpers/api';
 import { createBall, createCenter, createPattern, POLISHED_PEARL, SHORT_LIGHT } from '../../helpers/fixtures';
 import { expandGame, linkRow, logGame, randomGame, SAMPLE_GAME } from '../sessions/shotlog';
 
-interface Rate { hits: number; n: number; pct: number | null; low: number | null; high: number | null }
+interface Rate {
+  hits: number;
+  n: number;
+  pct: number | null;
+  low: number | null;
+  high: number | null;
+}
 
 async function session(auth: { Authorization: string }, date: string, patternId?: number): Promise<number> {
-  return (await api.post('/api/sessions').set(auth).send({ date, kind: 'practice', ...(patternId ? { patternId } : {}) })).body.item.id as number;
+  return (
+    await api
+      .post('/api/sessions')
+      .set(auth)
+      .send({ date, kind: 'practice', ...(patternId ? { patternId } : {}) })
+  ).body.item.id as number;
 }
 
 /** Two sessions on a pattern: SAMPLE_GAME with one ball at 2000 grit, then the same ball at 4000 grit alternating with a second ball. */
@@ -20,12 +31,35 @@ async function loggedBowler() {
   const solid = await createBall(me.user.id, undefined, { surfaceGrit: 2000, polished: false });
   const pearl = await createBall(me.user.id, POLISHED_PEARL);
   const s1 = await session(me.auth, '2026-11-10', pattern.id);
-  await logGame(me.auth, s1, 1, SAMPLE_GAME, (d) => (d.delivery === 1 ? { feetBoard: 20, targetBoard: 11, breakpointBoard: 7, hit: 'pocket' } : {}), solid.id);
+  await logGame(
+    me.auth,
+    s1,
+    1,
+    SAMPLE_GAME,
+    (d) => (d.delivery === 1 ? { feetBoard: 20, targetBoard: 11, breakpointBoard: 7, hit: 'pocket' } : {}),
+    solid.id,
+  );
   await api.post(`/api/arsenal/${solid.id}/surface`).set(me.auth).send({ surfaceGrit: 4000, polished: false });
   const s2 = await session(me.auth, '2026-11-12', pattern.id);
   const second = randomGame(42);
-  await logGame(me.auth, s2, 1, second, () => ({}), (_d, i) => (i % 2 === 0 ? solid.id : pearl.id));
-  return { me, pattern, solid, pearl, s1, s2, totals: [scoreGame(expandGame(SAMPLE_GAME).rolls).total, scoreGame(expandGame(second).rolls).total], counts: [expandGame(SAMPLE_GAME).deliveries.length, expandGame(second).deliveries.length] };
+  await logGame(
+    me.auth,
+    s2,
+    1,
+    second,
+    () => ({}),
+    (_d, i) => (i % 2 === 0 ? solid.id : pearl.id),
+  );
+  return {
+    me,
+    pattern,
+    solid,
+    pearl,
+    s1,
+    s2,
+    totals: [scoreGame(expandGame(SAMPLE_GAME).rolls).total, scoreGame(expandGame(second).rolls).total],
+    counts: [expandGame(SAMPLE_GAME).deliveries.length, expandGame(second).deliveries.length],
+  };
 }
 
 describe('GET /api/stats', () => {
@@ -96,7 +130,13 @@ describe('GET /api/stats', () => {
     const me = await createUser();
     const res = await api.get('/api/stats').set(me.auth);
     expect(res.status).toBe(200);
-    expect(res.body.item).toMatchObject({ overall: { shots: 0, games: 0, average: null }, byBall: [], bySurface: [], trend: [], calibration: null });
+    expect(res.body.item).toMatchObject({
+      overall: { shots: 0, games: 0, average: null },
+      byBall: [],
+      bySurface: [],
+      trend: [],
+      calibration: null,
+    });
   });
 
   it('the owner and the linked coach read it; another bowler, an unlinked and a revoked coach get 404; anonymous 401', async () => {
@@ -113,7 +153,8 @@ describe('GET /api/stats', () => {
     const asCoach = await api.get(`/api/stats?studentId=${owner.user.id}`).set(coach.auth);
     expect(asCoach.status).toBe(200);
     expect(asCoach.body.item.overall).toEqual(mine.body.item.overall);
-    for (const who of [other, unlinked, former]) expect((await api.get(`/api/stats?studentId=${owner.user.id}`).set(who.auth)).status).toBe(404);
+    for (const who of [other, unlinked, former])
+      expect((await api.get(`/api/stats?studentId=${owner.user.id}`).set(who.auth)).status).toBe(404);
     expect((await api.get('/api/stats')).status).toBe(401);
   });
 
@@ -121,7 +162,8 @@ describe('GET /api/stats', () => {
     const count = async (sessions: number) => {
       const me = await createUser();
       const ball = await createBall(me.user.id);
-      for (let i = 0; i < sessions; i++) await logGame(me.auth, await session(me.auth, `2026-11-0${i + 1}`), 1, randomGame(i), () => ({}), ball.id);
+      for (let i = 0; i < sessions; i++)
+        await logGame(me.auth, await session(me.auth, `2026-11-0${i + 1}`), 1, randomGame(i), () => ({}), ball.id);
       const seen: string[] = [];
       // Every statement the request runs passes through Sequelize's logging hook.
       const options = (sequelize as unknown as { options: { logging: unknown } }).options;
@@ -162,9 +204,16 @@ describe('GET /api/calibration', () => {
     expect((await api.get(`/api/calibration?patternId=${pattern.id}`)).status).toBe(401);
     // The stored fit is read, never recomputed on the request: the same input gives the same fit back, and no new job is queued.
     expect(await calibrationFor(me.user.id, pattern.id)).toEqual(cal);
-    const [queued] = await sequelize.query<{ n: string }>("SELECT count(*) AS n FROM pgboss.job WHERE name = 'calibration' AND state IN ('created', 'retry', 'active') AND data->>'bowlerId' = :bowler", { type: QueryTypes.SELECT, replacements: { bowler: String(me.user.id) } });
+    const [queued] = await sequelize.query<{ n: string }>(
+      "SELECT count(*) AS n FROM pgboss.job WHERE name = 'calibration' AND state IN ('created', 'retry', 'active') AND data->>'bowlerId' = :bowler",
+      { type: QueryTypes.SELECT, replacements: { bowler: String(me.user.id) } },
+    );
     expect(Number(queued.n)).toBe(0);
-    const input = { bowler: { hand: 'right' as const, speedMph: 17, revRpm: 300, axisRotationDeg: 45, axisTiltDeg: 15 }, pattern: { name: pattern.name, sweeps: pattern.sweeps }, observations: [] };
+    const input = {
+      bowler: { hand: 'right' as const, speedMph: 17, revRpm: 300, axisRotationDeg: 45, axisTiltDeg: 15 },
+      pattern: { name: pattern.name, sweeps: pattern.sweeps },
+      observations: [],
+    };
     expect(await calibrate(input)).toEqual(await calibrate({ ...input }));
     // Statistics carry the calibration of the latest session's pattern.
     const stats = await api.get('/api/stats').set(me.auth);
@@ -194,11 +243,21 @@ describe('GET /api/calibration on a lane surface or a published condition', () =
     const high = await api.get(`/api/calibration?patternId=${pattern.id}&laneFriction=high`).set(me.auth);
     expect(high.status).toBe(200);
     expect(high.body.item.shots).toBe(plain.shots);
-    expect(high.body.item.perBall.map((b: { ballId: string }) => b.ballId).sort()).toEqual(plain.perBall.map((b: { ballId: string }) => b.ballId).sort());
+    expect(high.body.item.perBall.map((b: { ballId: string }) => b.ballId).sort()).toEqual(
+      plain.perBall.map((b: { ballId: string }) => b.ballId).sort(),
+    );
 
     const owner = await createUser('proprietor');
     const center = await createCenter(owner.user.id, 4);
-    const published = await api.post(`/api/centers/${center.id}/conditions`).set(owner.auth).send({ patternId: pattern.id, lanes: [1], validFrom: new Date().toISOString().slice(0, 10), lane: { kind: 'synthetic', friction: 'high' } });
+    const published = await api
+      .post(`/api/centers/${center.id}/conditions`)
+      .set(owner.auth)
+      .send({
+        patternId: pattern.id,
+        lanes: [1],
+        validFrom: new Date().toISOString().slice(0, 10),
+        lane: { kind: 'synthetic', friction: 'high' },
+      });
     const onCondition = await api.get(`/api/calibration?conditionId=${published.body.item.id}`).set(me.auth);
     expect(onCondition.status).toBe(200);
     expect(onCondition.body.item).toEqual(high.body.item);

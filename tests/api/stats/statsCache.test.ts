@@ -13,7 +13,8 @@ describe('GET /api/stats — kept until the shots change', () => {
     const me = await createUser();
     const pattern = await createPattern(null);
     const ball = await createBall(me.user.id);
-    const session = async (date: string) => (await api.post('/api/sessions').set(me.auth).send({ date, kind: 'practice', patternId: pattern.id })).body.item.id as number;
+    const session = async (date: string) =>
+      (await api.post('/api/sessions').set(me.auth).send({ date, kind: 'practice', patternId: pattern.id })).body.item.id as number;
     const s1 = await session('2026-11-10');
     await logGame(me.auth, s1, 1, SAMPLE_GAME, () => ({}), ball.id);
     const first = await api.get('/api/stats').set(me.auth);
@@ -42,8 +43,11 @@ describe('GET /api/stats — kept until the shots change', () => {
     const s = (await api.post('/api/sessions').set(me.auth).send({ date: '2026-11-10', kind: 'practice' })).body.item.id as number;
     await logGame(me.auth, s, 1, SAMPLE_GAME, () => ({}), ball.id);
     const kept = (await api.get('/api/stats').set(me.auth)).body.item.overall.shots as number;
-    await elsewhere(`BEGIN; ALTER TABLE sessions DISABLE TRIGGER sessions_notify_change; UPDATE sessions SET deleted_at = now() WHERE id = ${Number(s)};
-      ALTER TABLE sessions ENABLE TRIGGER sessions_notify_change; COMMIT`, []);
+    await elsewhere(
+      `BEGIN; ALTER TABLE sessions DISABLE TRIGGER sessions_notify_change; UPDATE sessions SET deleted_at = now() WHERE id = ${Number(s)};
+      ALTER TABLE sessions ENABLE TRIGGER sessions_notify_change; COMMIT`,
+      [],
+    );
     expect((await api.get('/api/stats').set(me.auth)).body.item.overall.shots).toBe(kept);
     await elsewhere('UPDATE balls SET nickname = $1 WHERE id = $2', ['Heard', ball.id]);
     expect((await api.get('/api/stats').set(me.auth)).body.item.overall.shots).toBe(0);

@@ -6,17 +6,110 @@ import { houseShot, shortLight } from '../fixtures';
 // Invented balls (no real products). A bag built for light and house conditions, with two near-twins; the center's
 // league pair runs the house shot with half as much oil again (a heavier lane group).
 const bowler: BowlerProfile = { hand: 'right', speedMph: 17, revRpm: 350, axisRotationDeg: 45, axisTiltDeg: 15 };
-const solid: ArsenalBall = { id: 'solid', label: 'Cinder Hawk', weightLb: 15, rg: 2.48, differential: 0.054, intermediateDifferential: 0.018, coverType: 'reactive-solid', surfaceGrit: 2000, polished: false, layout: { pinToPapIn: 4.5 } };
-const pearl2000: ArsenalBall = { id: 'pearl-2000', label: 'Dune Sparrow', weightLb: 15, rg: 2.54, differential: 0.045, intermediateDifferential: 0.008, coverType: 'reactive-pearl', surfaceGrit: 2000, polished: false, layout: { pinToPapIn: 4.5 } };
-const heavyHouse = { ...houseShot, name: 'Heavier house', sweeps: houseShot.sweeps.map((s) => ({ ...s, microlitersPerBoard: s.microlitersPerBoard * 1.5 })) };
-const pearl: ArsenalBall = { id: 'pearl', label: 'Glass Heron', weightLb: 15, rg: 2.54, differential: 0.045, intermediateDifferential: 0.008, coverType: 'reactive-pearl', surfaceGrit: 4000, polished: true, layout: { pinToPapIn: 4.5 } };
-const urethane: ArsenalBall = { id: 'urethane', label: 'Slate Wren', weightLb: 15, rg: 2.62, differential: 0.022, intermediateDifferential: 0, coverType: 'urethane', surfaceGrit: 2000, polished: false, layout: { pinToPapIn: 4.5 } };
-const twinA: ArsenalBall = { id: 'twin-a', label: 'Amber Finch', weightLb: 15, rg: 2.53, differential: 0.04, intermediateDifferential: 0, coverType: 'reactive-hybrid', surfaceGrit: 3000, polished: false, layout: { pinToPapIn: 4.5 } };
+const solid: ArsenalBall = {
+  id: 'solid',
+  label: 'Cinder Hawk',
+  weightLb: 15,
+  rg: 2.48,
+  differential: 0.054,
+  intermediateDifferential: 0.018,
+  coverType: 'reactive-solid',
+  surfaceGrit: 2000,
+  polished: false,
+  layout: { pinToPapIn: 4.5 },
+};
+const pearl2000: ArsenalBall = {
+  id: 'pearl-2000',
+  label: 'Dune Sparrow',
+  weightLb: 15,
+  rg: 2.54,
+  differential: 0.045,
+  intermediateDifferential: 0.008,
+  coverType: 'reactive-pearl',
+  surfaceGrit: 2000,
+  polished: false,
+  layout: { pinToPapIn: 4.5 },
+};
+const heavyHouse = {
+  ...houseShot,
+  name: 'Heavier house',
+  sweeps: houseShot.sweeps.map((s) => ({ ...s, microlitersPerBoard: s.microlitersPerBoard * 1.5 })),
+};
+const pearl: ArsenalBall = {
+  id: 'pearl',
+  label: 'Glass Heron',
+  weightLb: 15,
+  rg: 2.54,
+  differential: 0.045,
+  intermediateDifferential: 0.008,
+  coverType: 'reactive-pearl',
+  surfaceGrit: 4000,
+  polished: true,
+  layout: { pinToPapIn: 4.5 },
+};
+const urethane: ArsenalBall = {
+  id: 'urethane',
+  label: 'Slate Wren',
+  weightLb: 15,
+  rg: 2.62,
+  differential: 0.022,
+  intermediateDifferential: 0,
+  coverType: 'urethane',
+  surfaceGrit: 2000,
+  polished: false,
+  layout: { pinToPapIn: 4.5 },
+};
+const twinA: ArsenalBall = {
+  id: 'twin-a',
+  label: 'Amber Finch',
+  weightLb: 15,
+  rg: 2.53,
+  differential: 0.04,
+  intermediateDifferential: 0,
+  coverType: 'reactive-hybrid',
+  surfaceGrit: 3000,
+  polished: false,
+  layout: { pinToPapIn: 4.5 },
+};
 const twinB: ArsenalBall = { ...twinA, id: 'twin-b', label: 'Amber Finch II', rg: 2.54, differential: 0.039 };
-const plastic: ArsenalBall = { id: 'plastic', label: 'Spare Pebble', weightLb: 14, rg: 2.68, differential: 0.008, intermediateDifferential: 0, coverType: 'plastic', surfaceGrit: 4000, polished: true };
+const plastic: ArsenalBall = {
+  id: 'plastic',
+  label: 'Spare Pebble',
+  weightLb: 14,
+  rg: 2.68,
+  differential: 0.008,
+  intermediateDifferential: 0,
+  coverType: 'plastic',
+  surfaceGrit: 4000,
+  polished: true,
+};
 const catalogue = [
-  { id: 'cat-solid', label: 'Iron Kestrel', spec: { weightLb: 15, rg: 2.46, differential: 0.056, intermediateDifferential: 0.02, coverType: 'reactive-solid' as const, surfaceGrit: 2000, polished: false } },
-  { id: 'cat-pearl', label: 'Mist Plover', spec: { weightLb: 15, rg: 2.55, differential: 0.04, intermediateDifferential: 0, coverType: 'reactive-pearl' as const, surfaceGrit: 4000, polished: true } },
+  {
+    id: 'cat-solid',
+    label: 'Iron Kestrel',
+    spec: {
+      weightLb: 15,
+      rg: 2.46,
+      differential: 0.056,
+      intermediateDifferential: 0.02,
+      coverType: 'reactive-solid' as const,
+      surfaceGrit: 2000,
+      polished: false,
+    },
+  },
+  {
+    id: 'cat-pearl',
+    label: 'Mist Plover',
+    spec: {
+      weightLb: 15,
+      rg: 2.55,
+      differential: 0.04,
+      intermediateDifferential: 0,
+      coverType: 'reactive-pearl' as const,
+      surfaceGrit: 4000,
+      polished: true,
+    },
+  },
 ];
 const conditions = [
   { id: 'league-heavy', label: 'Harrow Lanes 1–12, league', pattern: heavyHouse },
@@ -58,7 +151,13 @@ describe('arsenalCoverage: conditions no ball suits, balls that do the same job 
   it('adding the suggested ball closes the gap', () => {
     const heavy = r.gaps.find((g) => g.conditionId === 'league-heavy' && g.gamesBowled === 0)!;
     const pick = heavy.suggestions[0];
-    const bought: ArsenalBall = { ...catalogue.find((c) => c.id === pick.id)!.spec, surfaceGrit: pick.surfaceGrit, polished: pick.polished, id: 'new', label: pick.label };
+    const bought: ArsenalBall = {
+      ...catalogue.find((c) => c.id === pick.id)!.spec,
+      surfaceGrit: pick.surfaceGrit,
+      polished: pick.polished,
+      id: 'new',
+      label: pick.label,
+    };
     const filled = arsenalCoverage({ bowler, balls: [...bag, bought], conditions, catalogue });
     expect(filled.gaps.find((g) => g.conditionId === 'league-heavy' && g.gamesBowled === 0)).toBeUndefined();
   });

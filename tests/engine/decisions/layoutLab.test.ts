@@ -5,11 +5,22 @@ import { houseShot } from '../fixtures';
 
 // An invented asymmetric solid (no real product).
 const ball = (differential: number): BallSpec => ({
-  weightLb: 15, rg: 2.5, differential, intermediateDifferential: 0.015, coverType: 'reactive-solid', surfaceGrit: 2000, polished: false,
+  weightLb: 15,
+  rg: 2.5,
+  differential,
+  intermediateDifferential: 0.015,
+  coverType: 'reactive-solid',
+  surfaceGrit: 2000,
+  polished: false,
 });
 const bowler: BowlerProfile = { hand: 'right', speedMph: 17, revRpm: 350, axisRotationDeg: 45, axisTiltDeg: 15 };
 const run = (differential: number, pinToPapIn: number, who: BowlerProfile = bowler, valAngleDeg = 50) =>
-  layoutLab({ ball: ball(differential), bowler: who, pattern: houseShot, layouts: [{ id: 'x', label: 'x', layout: { pinToPapIn, valAngleDeg } }] })[0];
+  layoutLab({
+    ball: ball(differential),
+    bowler: who,
+    pattern: houseShot,
+    layouts: [{ id: 'x', label: 'x', layout: { pinToPapIn, valAngleDeg } }],
+  })[0];
 const dist = (p: { x: number; y: number }, q: { x: number; y: number } = { x: 0, y: 0 }) => Math.hypot(p.x - q.x, p.y - q.y);
 
 describe('layoutLab: the layout drawing and its flare rings', () => {
@@ -41,7 +52,8 @@ describe('layoutLab: the layout drawing and its flare rings', () => {
   });
 
   it('a left-hander’s drawing is the mirror image: the mass bias moves to the other side of the pin–PAP line', () => {
-    const r = run(0.05, 4, bowler, 60), l = run(0.05, 4, { ...bowler, hand: 'left' }, 60);
+    const r = run(0.05, 4, bowler, 60),
+      l = run(0.05, 4, { ...bowler, hand: 'left' }, 60);
     expect(r.massBias).not.toBeNull();
     expect(Math.sign(r.massBias!.x)).toBe(-Math.sign(l.massBias!.x));
     expect(r.massBias!.y).toBeCloseTo(l.massBias!.y, 6);
@@ -49,8 +61,13 @@ describe('layoutLab: the layout drawing and its flare rings', () => {
 
   it('two layouts side by side, each with its own predicted path on the condition', () => {
     const [a, b] = layoutLab({
-      ball: ball(0.05), bowler, pattern: houseShot,
-      layouts: [{ id: 'early', label: 'Pin near the PAP', layout: { pinToPapIn: 2 } }, { id: 'strong', label: 'Pin at 4 1/2', layout: { pinToPapIn: 4.5 } }],
+      ball: ball(0.05),
+      bowler,
+      pattern: houseShot,
+      layouts: [
+        { id: 'early', label: 'Pin near the PAP', layout: { pinToPapIn: 2 } },
+        { id: 'strong', label: 'Pin at 4 1/2', layout: { pinToPapIn: 4.5 } },
+      ],
     });
     expect([a.id, b.id]).toEqual(['early', 'strong']);
     expect(a.prediction.path.length).toBeGreaterThan(50);

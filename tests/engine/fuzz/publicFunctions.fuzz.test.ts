@@ -25,16 +25,59 @@ const KNOWN: Record<string, string> = {};
  * prepared shot); for them only a stray error type fails, and NaN or crashes are printed for information.
  */
 const ENTRY = new Set([
-  'scoreGame', 'scorePartialGame', 'isSplit', 'leaveName', 'checkLegality', 'pinToPapAngleDeg', 'pinToPapInForAngle', 'flareShare', 'ballReaction',
-  'validateBallSpec', 'analyzePattern', 'oilAt', 'oilGrid', 'lengthClass', 'volumeClass', 'ratioClass', 'validatePattern', 'ruleOf31', 'rankArsenal', 'rankTransition',
-  'matchupContext', 'validateBowlerProfile', 'simulateShot', 'buildGame', 'checkDelivery', 'shotStats', 'statsBy', 'suggestMoves', 'spareAdjustment', 'wilsonInterval', 'fitCalibration',
+  'scoreGame',
+  'scorePartialGame',
+  'isSplit',
+  'leaveName',
+  'checkLegality',
+  'pinToPapAngleDeg',
+  'pinToPapInForAngle',
+  'flareShare',
+  'ballReaction',
+  'validateBallSpec',
+  'analyzePattern',
+  'oilAt',
+  'oilGrid',
+  'lengthClass',
+  'volumeClass',
+  'ratioClass',
+  'validatePattern',
+  'ruleOf31',
+  'rankArsenal',
+  'rankTransition',
+  'matchupContext',
+  'validateBowlerProfile',
+  'simulateShot',
+  'buildGame',
+  'checkDelivery',
+  'shotStats',
+  'statsBy',
+  'suggestMoves',
+  'spareAdjustment',
+  'wilsonInterval',
+  'fitCalibration',
 ]);
 const SEED = Number(process.env.FUZZ_SEED ?? 20261201);
 const fns = Object.entries(engine).filter((e): e is [string, (...a: unknown[]) => unknown] => typeof e[1] === 'function');
 
 const nasty = fc.oneof(
   fc.constantFrom(NaN, Infinity, -Infinity, -1, 0, -0, 1e308, -1e308, 2 ** 53 + 1, 0.1, 41, 999, -40),
-  fc.constantFrom('', 'x', 'NaN', '12', 'right', 'left', 'forward', 'reverse', 'urethane', 'reactive-solid', '💥', "' OR 1=1", '<script>', 'a'.repeat(5000)),
+  fc.constantFrom(
+    '',
+    'x',
+    'NaN',
+    '12',
+    'right',
+    'left',
+    'forward',
+    'reverse',
+    'urethane',
+    'reactive-solid',
+    '💥',
+    "' OR 1=1",
+    '<script>',
+    'a'.repeat(5000),
+  ),
   fc.constantFrom(null, undefined, true, false, [], {}, [null], [NaN], { length: -1 }, Object.create(null) as object),
   fc.integer(),
   fc.double(),
@@ -66,7 +109,20 @@ function broken<T>(sample: T): fc.Arbitrary<unknown> {
 }
 
 const strike = { frame: 1, delivery: 1, standing: [] as number[] };
-const shot = { sessionId: 's1', gameNumber: 1, date: '2026-12-01', ballId: 'kestrel-nightjar', surfaceKey: '500 grit', frame: 1, delivery: 1, standing: [7, 10], feetBoard: 20, targetBoard: 10, breakpointBoard: 6, hit: 'pocket' };
+const shot = {
+  sessionId: 's1',
+  gameNumber: 1,
+  date: '2026-12-01',
+  ballId: 'kestrel-nightjar',
+  surfaceKey: '500 grit',
+  frame: 1,
+  delivery: 1,
+  standing: [7, 10],
+  feetBoard: 20,
+  targetBoard: 10,
+  breakpointBoard: 6,
+  hit: 'pocket',
+};
 const SAMPLES: unknown[] = [
   longHeavy,
   houseShot,
@@ -76,7 +132,11 @@ const SAMPLES: unknown[] = [
   [roughAsymSolid],
   { arsenal: [roughAsymSolid], bowler: typicalBowler, pattern: houseShot, gamesBowled: 3 },
   { ball: roughAsymSolid, bowler: typicalBowler, pattern: longHeavy },
-  { bowler: typicalBowler, pattern: houseShot, observations: [{ ball: roughAsymSolid, laydownBoard: 20, targetBoard: 10, breakpointBoard: 5 }] },
+  {
+    bowler: typicalBowler,
+    pattern: houseShot,
+    observations: [{ ball: roughAsymSolid, laydownBoard: 20, targetBoard: 10, breakpointBoard: 5 }],
+  },
   { shots: [shot], hand: 'right' },
   { leave: [10], strikeFeetBoard: 20, strikeTargetBoard: 10, hand: 'right' },
   Array(12).fill(10),
@@ -93,7 +153,11 @@ const SAMPLES: unknown[] = [
   'right',
   'ballId',
 ];
-const arg = fc.oneof({ weight: 3, arbitrary: fc.constantFrom(...SAMPLES) }, { weight: 4, arbitrary: fc.constantFrom(...SAMPLES).chain(broken) }, { weight: 3, arbitrary: nasty });
+const arg = fc.oneof(
+  { weight: 3, arbitrary: fc.constantFrom(...SAMPLES) },
+  { weight: 4, arbitrary: fc.constantFrom(...SAMPLES).chain(broken) },
+  { weight: 3, arbitrary: nasty },
+);
 
 function hasNaN(v: unknown, depth = 0, seen = new Set<unknown>()): boolean {
   if (typeof v === 'number') return Number.isNaN(v);
@@ -104,7 +168,8 @@ function hasNaN(v: unknown, depth = 0, seen = new Set<unknown>()): boolean {
 }
 
 /** Messages of the runtime's own TypeErrors/RangeErrors: the function ran into bad input instead of checking it. */
-const CRASH = /Cannot read propert|is not a function|is not iterable|is not defined|Cannot convert|Cannot create property|Maximum call stack|Invalid array length/;
+const CRASH =
+  /Cannot read propert|is not a function|is not iterable|is not defined|Cannot convert|Cannot create property|Maximum call stack|Invalid array length/;
 
 let calls = 0;
 const outcomes = { returned: 0, typeError: 0, rangeError: 0 };
@@ -119,7 +184,10 @@ describe('engine public functions under malformed input', () => {
   it(`${REQUIRED_CASES}+ calls: a result without NaN, or a TypeError/RangeError naming the function`, () => {
     const perFn = Math.ceil(REQUIRED_CASES / fns.length);
     const violations = new Map<string, string>();
-    const show = (args: unknown[]) => JSON.stringify(args, (_k, v: unknown) => (typeof v === 'number' && !Number.isFinite(v) ? String(v) : v === undefined ? 'undefined' : v)).slice(0, 300);
+    const show = (args: unknown[]) =>
+      JSON.stringify(args, (_k, v: unknown) =>
+        typeof v === 'number' && !Number.isFinite(v) ? String(v) : v === undefined ? 'undefined' : v,
+      ).slice(0, 300);
     const info = new Map<string, string>();
     for (const [i, [name, fn]] of fns.entries()) {
       const arity = Math.max(1, fn.length);
@@ -132,8 +200,10 @@ describe('engine public functions under malformed input', () => {
             out = fn(...structuredClone(args));
           } catch (err) {
             const e = err as Error;
-            if (!(e instanceof TypeError || e instanceof RangeError)) violations.set(name, `${name}(${show(args)}) threw ${e?.constructor?.name}: ${e?.message}`);
-            else if (CRASH.test(e.message) || !e.message.includes(': ')) report.set(name, `${name}(${show(args)}) crashed instead of checking its input: ${e.constructor.name}: ${e.message}`);
+            if (!(e instanceof TypeError || e instanceof RangeError))
+              violations.set(name, `${name}(${show(args)}) threw ${e?.constructor?.name}: ${e?.message}`);
+            else if (CRASH.test(e.message) || !e.message.includes(': '))
+              report.set(name, `${name}(${show(args)}) crashed instead of checking its input: ${e.constructor.name}: ${e.message}`);
             else if (e instanceof TypeError) outcomes.typeError += 1;
             else outcomes.rangeError += 1;
             return;
@@ -147,7 +217,10 @@ describe('engine public functions under malformed input', () => {
     expect(calls).toBeGreaterThanOrEqual(REQUIRED_CASES);
     const unexpected = [...violations].filter(([n]) => !(n in KNOWN)).map(([, v]) => v);
     if (violations.size) console.log(`[engine fuzz] policy violations of entry points:\n${[...violations.values()].join('\n')}`);
-    if (info.size) console.log(`[engine fuzz] building blocks that crash or return NaN on unchecked input (information): ${[...info.keys()].join(', ')}`);
+    if (info.size)
+      console.log(
+        `[engine fuzz] building blocks that crash or return NaN on unchecked input (information): ${[...info.keys()].join(', ')}`,
+      );
     expect(unexpected).toEqual([]);
   }, 300000);
 });

@@ -11,7 +11,9 @@ import { flatPattern, housePattern, strokerBowler, strongBall } from './fixtures
 const bowler = strokerBowler();
 const unitBodyOmega = (s: Float64Array): [number, number, number] => {
   const [qw, qx, qy, qz] = [s[7], s[8], s[9], s[10]];
-  const wx = s[4], wy = s[5], wz = s[6];
+  const wx = s[4],
+    wy = s[5],
+    wz = s[6];
   const v: [number, number, number] = [
     (1 - 2 * (qy * qy + qz * qz)) * wx + 2 * (qx * qy + qw * qz) * wy + 2 * (qx * qz - qw * qy) * wz,
     2 * (qx * qy - qw * qz) * wx + (1 - 2 * (qx * qx + qz * qz)) * wy + 2 * (qy * qz + qw * qx) * wz,
@@ -27,7 +29,12 @@ function throwOn(ball: BallSpec, pattern: OilPattern, laydown: number, target: n
   const s0 = releaseState(ball, bowler, laydown, target);
   const w0 = unitBodyOmega(s0);
   let w = w0;
-  const r = integrateDelivery(s0, I, field, { hand: 1, onStep: (_t, s) => { w = unitBodyOmega(s); } });
+  const r = integrateDelivery(s0, I, field, {
+    hand: 1,
+    onStep: (_t, s) => {
+      w = unitBodyOmega(s);
+    },
+  });
   const migrationIn = Math.acos(Math.min(1, w0[0] * w[0] + w0[1] * w[1] + w0[2] * w[2])) * ((ball.diameterIn ?? 8.5) / 2);
   return { entry: r.entryBoard, migrationIn };
 }
@@ -52,7 +59,9 @@ describe.each([
   });
 
   it('boards, with the oil carried on the track: the ball hooks less than the bare rigid body, by more than a board (the track-ring model)', () => {
-    expect(throwOn(flaring, pattern, laydown, target, false).entry - throwOn(flaring, pattern, laydown, target, true).entry).toBeGreaterThan(1);
+    expect(
+      throwOn(flaring, pattern, laydown, target, false).entry - throwOn(flaring, pattern, laydown, target, true).entry,
+    ).toBeGreaterThan(1);
   });
 
   it('boards, with carried oil: the flaring ball hooks at least half a board more than with the pin on the axis, and more than the rigid-body difference (fresh cover rotated into contact by flare)', () => {

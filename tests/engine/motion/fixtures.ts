@@ -3,16 +3,31 @@ import type { BallSpec, BowlerProfile } from '../../../engine/types';
 /** An isotropic ball of the two-zone closed form's common settings: m = 7.257 kg, R = 4.25 in, RG `rg` in. */
 export function isotropicBall(rg: number, extra: Partial<BallSpec> = {}): BallSpec {
   return {
-    weightLb: 7.257 / 0.45359237, diameterIn: 8.5, rg, differential: 0, intermediateDifferential: 0,
-    coverType: 'reactive-solid', surfaceGrit: 2000, polished: false, ...extra,
+    weightLb: 7.257 / 0.45359237,
+    diameterIn: 8.5,
+    rg,
+    differential: 0,
+    intermediateDifferential: 0,
+    coverType: 'reactive-solid',
+    surfaceGrit: 2000,
+    polished: false,
+    ...extra,
   };
 }
 
 /** An invented asymmetric test ball (no real product): RG 2.50, differential 0.055, intermediate 0.015. */
 export function asymmetricBall(extra: Partial<BallSpec> = {}): BallSpec {
   return {
-    weightLb: 15, diameterIn: 8.5, rg: 2.5, differential: 0.055, intermediateDifferential: 0.015,
-    coverType: 'reactive-solid', surfaceGrit: 2000, polished: false, layout: { pinToPapIn: 3.4, valAngleDeg: 50 }, ...extra,
+    weightLb: 15,
+    diameterIn: 8.5,
+    rg: 2.5,
+    differential: 0.055,
+    intermediateDifferential: 0.015,
+    coverType: 'reactive-solid',
+    surfaceGrit: 2000,
+    polished: false,
+    layout: { pinToPapIn: 3.4, valAngleDeg: 50 },
+    ...extra,
   };
 }
 
@@ -42,8 +57,10 @@ export function housePattern(scale = 1, lengthFt = 40): OilPattern {
   return {
     name: 'Test House 40',
     sweeps: [
-      sweep(2, 38, 40 * k, 2, 60 * scale), sweep(8, 32, 38 * k, 4, 60 * scale),
-      sweep(12, 28, 36 * k, 6, 60 * scale), sweep(15, 25, 32 * k, 4, 60 * scale),
+      sweep(2, 38, 40 * k, 2, 60 * scale),
+      sweep(8, 32, 38 * k, 4, 60 * scale),
+      sweep(12, 28, 36 * k, 6, 60 * scale),
+      sweep(15, 25, 32 * k, 4, 60 * scale),
     ],
   };
 }
@@ -61,8 +78,15 @@ export function flatPattern(ulPerBoard = 50, crossings = 8, lengthFt = 42): OilP
 /** An invented strong asymmetric reactive solid for the bowler-level tests. */
 export function strongBall(extra: Partial<BallSpec> = {}): BallSpec {
   return {
-    weightLb: 15, rg: 2.49, differential: 0.052, intermediateDifferential: 0.014, coverType: 'reactive-solid',
-    surfaceGrit: 2000, polished: false, layout: { pinToPapIn: 3.4, valAngleDeg: 45 }, ...extra,
+    weightLb: 15,
+    rg: 2.49,
+    differential: 0.052,
+    intermediateDifferential: 0.014,
+    coverType: 'reactive-solid',
+    surfaceGrit: 2000,
+    polished: false,
+    layout: { pinToPapIn: 3.4, valAngleDeg: 45 },
+    ...extra,
   };
 }
 
@@ -80,15 +104,52 @@ export function fifteenBalls(): (BallSpec & { id: string })[] {
     b('solid-2000', {}),
     b('solid-3000', { surfaceGrit: 3000 }),
     b('hybrid-2000', { coverType: 'reactive-hybrid', rg: 2.52, differential: 0.046, intermediateDifferential: 0.008 }),
-    b('hybrid-polished', { coverType: 'reactive-hybrid', rg: 2.52, differential: 0.046, intermediateDifferential: 0.008, surfaceGrit: 1500, polished: true }),
+    b('hybrid-polished', {
+      coverType: 'reactive-hybrid',
+      rg: 2.52,
+      differential: 0.046,
+      intermediateDifferential: 0.008,
+      surfaceGrit: 1500,
+      polished: true,
+    }),
     b('pearl-2000', { coverType: 'reactive-pearl', rg: 2.55, differential: 0.045, intermediateDifferential: 0 }),
-    b('pearl-polished', { coverType: 'reactive-pearl', rg: 2.55, differential: 0.045, intermediateDifferential: 0, surfaceGrit: 1500, polished: true }),
-    b('pearl-weak', { coverType: 'reactive-pearl', rg: 2.6, differential: 0.025, intermediateDifferential: 0, surfaceGrit: 3000, polished: true, layout: { pinToPapIn: 5.5 } }),
+    b('pearl-polished', {
+      coverType: 'reactive-pearl',
+      rg: 2.55,
+      differential: 0.045,
+      intermediateDifferential: 0,
+      surfaceGrit: 1500,
+      polished: true,
+    }),
+    b('pearl-weak', {
+      coverType: 'reactive-pearl',
+      rg: 2.6,
+      differential: 0.025,
+      intermediateDifferential: 0,
+      surfaceGrit: 3000,
+      polished: true,
+      layout: { pinToPapIn: 5.5 },
+    }),
     b('solid-symmetric', { rg: 2.54, differential: 0.048, intermediateDifferential: 0, surfaceGrit: 2000 }),
     b('solid-lowdiff', { rg: 2.58, differential: 0.02, intermediateDifferential: 0, surfaceGrit: 3000 }),
     b('urethane-1000', { coverType: 'urethane', rg: 2.6, differential: 0.02, intermediateDifferential: 0, surfaceGrit: 1000 }),
     b('urethane-2000', { coverType: 'urethane', rg: 2.65, differential: 0.015, intermediateDifferential: 0, surfaceGrit: 2000 }),
-    b('hybrid-long', { coverType: 'reactive-hybrid', rg: 2.62, differential: 0.035, intermediateDifferential: 0, surfaceGrit: 4000, polished: true }),
-    b('plastic-spare', { coverType: 'plastic', rg: 2.7, differential: 0.008, intermediateDifferential: 0, surfaceGrit: 4000, polished: true, layout: { pinToPapIn: 1 } }),
+    b('hybrid-long', {
+      coverType: 'reactive-hybrid',
+      rg: 2.62,
+      differential: 0.035,
+      intermediateDifferential: 0,
+      surfaceGrit: 4000,
+      polished: true,
+    }),
+    b('plastic-spare', {
+      coverType: 'plastic',
+      rg: 2.7,
+      differential: 0.008,
+      intermediateDifferential: 0,
+      surfaceGrit: 4000,
+      polished: true,
+      layout: { pinToPapIn: 1 },
+    }),
   ];
 }

@@ -1,6 +1,13 @@
 import { describe, expect, it } from 'vitest';
 import {
-  ballInertia, contactAngularMomentum, integrateDelivery, kineticEnergy, releaseState, sampledFrictionField, STATE, uniformFrictionField,
+  ballInertia,
+  contactAngularMomentum,
+  integrateDelivery,
+  kineticEnergy,
+  releaseState,
+  sampledFrictionField,
+  STATE,
+  uniformFrictionField,
 } from '../../../engine/index';
 import { asymmetricBall, isotropicBall, linePsi, MM_PER_BOARD, referenceBowler } from './fixtures';
 
@@ -10,7 +17,9 @@ const twoZone = (muDry = 0.2, oilFt = 40) => sampledFrictionField((_b, ft) => (f
 /** A sliding, spin-free state at the foul line on board 20. */
 function slidingState(v0: number, omegaY = 0): Float64Array {
   const s = new Float64Array(STATE.length);
-  s[STATE.vx] = v0; s[STATE.wy] = omegaY; s[STATE.qw] = 1;
+  s[STATE.vx] = v0;
+  s[STATE.wy] = omegaY;
+  s[STATE.qw] = 1;
   return s;
 }
 
@@ -20,8 +29,10 @@ describe('integrateDelivery — slide-to-roll on uniform friction (the sliding s
     it(`m, RG ${rg} in, no spin, μ = 0.2: rolls after (v0²−vf²)/(2μg) within 2 cm and then moves at vf within 1e-5 m/s (regularised friction, ε = 0.03 m/s, blurs the roll point)`, () => {
       const ball = isotropicBall(rg);
       const I = ballInertia(ball);
-      const k2 = (rg * 0.0254) ** 2, R2 = I.radiusM ** 2;
-      const v0 = 8, vf = (v0 * R2) / (R2 + k2);
+      const k2 = (rg * 0.0254) ** 2,
+        R2 = I.radiusM ** 2;
+      const v0 = 8,
+        vf = (v0 * R2) / (R2 + k2);
       const r = integrateDelivery(slidingState(v0), I, uniformFrictionField(0.2));
       expect(r.rollStartFt).not.toBeNull();
       expect(Math.abs((r.rollStartFt as number) * 0.3048 - (v0 * v0 - vf * vf) / (2 * 0.2 * G))).toBeLessThan(0.02);
@@ -57,7 +68,12 @@ describe('integrateDelivery — slide-to-roll on uniform friction (the sliding s
   }
 
   it('ratio, max-diameter ball R = 4.2975 in, vf/v0 for RG 2.46/2.55/2.65/2.80 = 0.753/0.740/0.725/0.702 (textbook mechanics: v_f/v_0 = R²/(R² + k²))', () => {
-    const expected: [number, number][] = [[2.46, 0.753], [2.55, 0.74], [2.65, 0.725], [2.8, 0.702]];
+    const expected: [number, number][] = [
+      [2.46, 0.753],
+      [2.55, 0.74],
+      [2.65, 0.725],
+      [2.8, 0.702],
+    ];
     for (const [rg, ratio] of expected) {
       const ball = isotropicBall(rg, { diameterIn: 8.595 });
       const r = integrateDelivery(slidingState(8), ballInertia(ball), uniformFrictionField(0.2));
@@ -94,10 +110,17 @@ describe('integrateDelivery — hook deliveries on a two-zone lane (the two-zone
 
   it('m and mm, breakpoints of cases C and D at x = 10.316/8.692 m and y = −139.2/−155.0 mm (the two-zone closed form’s breakpoints)', () => {
     const ball = isotropicBall(2.5);
-    const cases: [number, number, number, number, number][] = [[-1.5, 300, 45, 10.316, -139.2], [-2, 450, 50, 8.692, -155.0]];
+    const cases: [number, number, number, number, number][] = [
+      [-1.5, 300, 45, 10.316, -139.2],
+      [-2, 450, 50, 8.692, -155.0],
+    ];
     for (const [psi, rpm, rot, xb, yb] of cases) {
       const [laydown, target] = linePsi(psi);
-      const r = integrateDelivery(releaseState(ball, referenceBowler({ revRpm: rpm, axisRotationDeg: rot }), laydown, target), ballInertia(ball), twoZone());
+      const r = integrateDelivery(
+        releaseState(ball, referenceBowler({ revRpm: rpm, axisRotationDeg: rot }), laydown, target),
+        ballInertia(ball),
+        twoZone(),
+      );
       expect(Math.abs(r.breakpointFt * 0.3048 - xb)).toBeLessThan(0.005);
       expect(Math.abs((r.breakpointBoard - 20) * MM_PER_BOARD - yb)).toBeLessThan(0.2);
     }
@@ -108,19 +131,28 @@ describe('integrateDelivery — invariants (rigid-body mechanics: the angular mo
   it('kg·m²/s, asymmetric ball on the two-zone lane: L_P about the contact point is conserved in all components to 1e-6 relative at a 6 ms fixed step, 5e-5 at the production steps', () => {
     for (const [ball, bowler] of [
       [asymmetricBall(), referenceBowler()],
-      [asymmetricBall({ layout: { pinToPapIn: 5.5, valAngleDeg: 20 } }), referenceBowler({ revRpm: 480, axisRotationDeg: 70, axisTiltDeg: 25 })],
+      [
+        asymmetricBall({ layout: { pinToPapIn: 5.5, valAngleDeg: 20 } }),
+        referenceBowler({ revRpm: 480, axisRotationDeg: 70, axisTiltDeg: 25 }),
+      ],
       [isotropicBall(2.46), referenceBowler({ hand: 'left' })],
     ] as const) {
       const I = ballInertia(ball);
       const s0 = releaseState(ball, bowler, 25, 12);
       const L0 = contactAngularMomentum(s0, I);
       const n0 = Math.hypot(...L0);
-      for (const [options, tol] of [[{ stepS: 0.006 }, 1e-6], [{}, 5e-5]] as const) {
+      for (const [options, tol] of [
+        [{ stepS: 0.006 }, 1e-6],
+        [{}, 5e-5],
+      ] as const) {
         let maxDev = 0;
-        integrateDelivery(s0, I, twoZone(), { ...options, onStep: (_t, s) => {
-          const L = contactAngularMomentum(s, I);
-          maxDev = Math.max(maxDev, Math.hypot(L[0] - L0[0], L[1] - L0[1], L[2] - L0[2]) / n0);
-        } });
+        integrateDelivery(s0, I, twoZone(), {
+          ...options,
+          onStep: (_t, s) => {
+            const L = contactAngularMomentum(s, I);
+            maxDev = Math.max(maxDev, Math.hypot(L[0] - L0[0], L[1] - L0[1], L[2] - L0[2]) / n0);
+          },
+        });
         expect(maxDev).toBeLessThan(tol);
       }
     }
@@ -132,8 +164,15 @@ describe('integrateDelivery — invariants (rigid-body mechanics: the angular mo
     for (const rpm of [0, 150, 300, 500]) {
       for (const rot of [0, 45, 90]) {
         const s0 = releaseState(ball, referenceBowler({ revRpm: rpm, axisRotationDeg: rot }), 20, 15);
-        let prev = kineticEnergy(s0, I), rise = 0;
-        integrateDelivery(s0, I, twoZone(), { onStep: (_t, s) => { const e = kineticEnergy(s, I); rise = Math.max(rise, e - prev); prev = e; } });
+        let prev = kineticEnergy(s0, I),
+          rise = 0;
+        integrateDelivery(s0, I, twoZone(), {
+          onStep: (_t, s) => {
+            const e = kineticEnergy(s, I);
+            rise = Math.max(rise, e - prev);
+            prev = e;
+          },
+        });
         expect(rise).toBeLessThan(1e-9);
       }
     }
@@ -165,9 +204,18 @@ describe('integrateDelivery — invariants (rigid-body mechanics: the angular mo
     const ball = isotropicBall(2.5);
     const I = ballInertia(ball);
     const s = new Float64Array(STATE.length);
-    s[STATE.vx] = 7; s[STATE.vy] = 0.3; s[STATE.wy] = 7 / I.radiusM; s[STATE.wx] = -0.3 / I.radiusM; s[STATE.wz] = 12; s[STATE.qw] = 1;
+    s[STATE.vx] = 7;
+    s[STATE.vy] = 0.3;
+    s[STATE.wy] = 7 / I.radiusM;
+    s[STATE.wx] = -0.3 / I.radiusM;
+    s[STATE.wz] = 12;
+    s[STATE.qw] = 1;
     let maxSlip = 0;
-    const r = integrateDelivery(s, I, twoZone(), { onStep: (_t, x) => { maxSlip = Math.max(maxSlip, Math.hypot(x[2] - I.radiusM * x[5], x[3] + I.radiusM * x[4])); } });
+    const r = integrateDelivery(s, I, twoZone(), {
+      onStep: (_t, x) => {
+        maxSlip = Math.max(maxSlip, Math.hypot(x[2] - I.radiusM * x[5], x[3] + I.radiusM * x[4]));
+      },
+    });
     expect(r.rollStartFt).toBe(0);
     expect(maxSlip).toBeLessThan(1e-9);
     expect(Math.abs(r.speedAtPinsMph * 0.44704 - Math.hypot(7, 0.3))).toBeLessThan(1e-9);
@@ -177,9 +225,15 @@ describe('integrateDelivery — invariants (rigid-body mechanics: the angular mo
     const ball = asymmetricBall();
     const I = ballInertia(ball);
     const s = releaseState(ball, referenceBowler(), 20, 20);
-    s[STATE.wx] = 0; s[STATE.wy] = s[STATE.vx] / I.radiusM; s[STATE.vy] = 0;
+    s[STATE.wx] = 0;
+    s[STATE.wy] = s[STATE.vx] / I.radiusM;
+    s[STATE.vy] = 0;
     let maxSlip = 0;
-    const r = integrateDelivery(s, I, uniformFrictionField(0.2), { onStep: (_t, x) => { maxSlip = Math.max(maxSlip, Math.hypot(x[2] - I.radiusM * x[5], x[3] + I.radiusM * x[4])); } });
+    const r = integrateDelivery(s, I, uniformFrictionField(0.2), {
+      onStep: (_t, x) => {
+        maxSlip = Math.max(maxSlip, Math.hypot(x[2] - I.radiusM * x[5], x[3] + I.radiusM * x[4]));
+      },
+    });
     expect(r.rollStartFt).toBe(0);
     expect(maxSlip).toBeLessThan(0.15);
   });
@@ -187,7 +241,12 @@ describe('integrateDelivery — invariants (rigid-body mechanics: the angular mo
   it('mm, no spin, any core and orientation: the path stays straight within 1 mm (a rigid-body prototype drifted < 0.2 mm; ours drifts 0.3–0.8 mm) and exactly when a principal axis is along ŷ (a rigid-body invariant)', () => {
     const ball = asymmetricBall();
     const I = ballInertia(ball);
-    for (const [pin, val] of [[1, 10], [3.4, 50], [5, 80], [2.2, 130]]) {
+    for (const [pin, val] of [
+      [1, 10],
+      [3.4, 50],
+      [5, 80],
+      [2.2, 130],
+    ]) {
       const b = asymmetricBall({ layout: { pinToPapIn: pin, valAngleDeg: val } });
       const s0 = releaseState(b, referenceBowler({ revRpm: 0 }), 20, 20);
       const r = integrateDelivery(s0, I, twoZone());
@@ -215,25 +274,46 @@ describe('integrateDelivery — invariants (rigid-body mechanics: the angular mo
   });
 
   it('rad/s, symmetric core 2.50/2.55 in on a frictionless lane, 300 rpm, pin 60° from the axis: ω precesses about the pin at 0.609959 rad/s (Euler’s equations: Ω = (1 − k_L²/k_H²)|ω| cos β)', () => {
-    const ball = isotropicBall(2.5, { differential: 0.05, layout: { pinToPapIn: (60 * Math.PI / 180) * 4.25 } });
+    const ball = isotropicBall(2.5, { differential: 0.05, layout: { pinToPapIn: ((60 * Math.PI) / 180) * 4.25 } });
     const I = ballInertia(ball);
     const s0 = releaseState(ball, referenceBowler({ axisRotationDeg: 45, axisTiltDeg: 15 }), 20, 20);
     const body = (s: Float64Array): [number, number, number] => {
       const [qw, qx, qy, qz] = [s[7], s[8], s[9], s[10]];
-      const wx = s[4], wy = s[5], wz = s[6];
-      const q00 = 1 - 2 * (qy * qy + qz * qz), q10 = 2 * (qx * qy + qw * qz), q20 = 2 * (qx * qz - qw * qy);
-      const q01 = 2 * (qx * qy - qw * qz), q11 = 1 - 2 * (qx * qx + qz * qz), q21 = 2 * (qy * qz + qw * qx);
-      const q02 = 2 * (qx * qz + qw * qy), q12 = 2 * (qy * qz - qw * qx), q22 = 1 - 2 * (qx * qx + qy * qy);
+      const wx = s[4],
+        wy = s[5],
+        wz = s[6];
+      const q00 = 1 - 2 * (qy * qy + qz * qz),
+        q10 = 2 * (qx * qy + qw * qz),
+        q20 = 2 * (qx * qz - qw * qy);
+      const q01 = 2 * (qx * qy - qw * qz),
+        q11 = 1 - 2 * (qx * qx + qz * qz),
+        q21 = 2 * (qy * qz + qw * qx);
+      const q02 = 2 * (qx * qz + qw * qy),
+        q12 = 2 * (qy * qz - qw * qx),
+        q22 = 1 - 2 * (qx * qx + qy * qy);
       return [q00 * wx + q10 * wy + q20 * wz, q01 * wx + q11 * wy + q21 * wz, q02 * wx + q12 * wy + q22 * wz];
     };
     const w0 = body(s0);
-    let unwrapped = 0, last = Math.atan2(w0[2], w0[1]), tEnd = 0, w1Dev = 0;
-    integrateDelivery(s0, I, uniformFrictionField(0), { stepS: 0.001, maxTimeS: 2, stopFt: 200, onStep: (t, s) => {
-      const w = body(s);
-      const a = Math.atan2(w[2], w[1]);
-      let d = a - last; if (d > Math.PI) d -= 2 * Math.PI; if (d < -Math.PI) d += 2 * Math.PI;
-      unwrapped += d; last = a; tEnd = t; w1Dev = Math.max(w1Dev, Math.abs(w[0] - w0[0]));
-    } });
+    let unwrapped = 0,
+      last = Math.atan2(w0[2], w0[1]),
+      tEnd = 0,
+      w1Dev = 0;
+    integrateDelivery(s0, I, uniformFrictionField(0), {
+      stepS: 0.001,
+      maxTimeS: 2,
+      stopFt: 200,
+      onStep: (t, s) => {
+        const w = body(s);
+        const a = Math.atan2(w[2], w[1]);
+        let d = a - last;
+        if (d > Math.PI) d -= 2 * Math.PI;
+        if (d < -Math.PI) d += 2 * Math.PI;
+        unwrapped += d;
+        last = a;
+        tEnd = t;
+        w1Dev = Math.max(w1Dev, Math.abs(w[0] - w0[0]));
+      },
+    });
     expect(Math.abs(Math.abs(unwrapped) / tEnd - 0.609959)).toBeLessThan(1e-5);
     expect(w1Dev).toBeLessThan(1e-7); // ω₁ constant (rigid-body invariant)
   });

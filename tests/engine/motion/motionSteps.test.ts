@@ -5,7 +5,16 @@ import { housePattern } from './fixtures';
 
 // The integrator's step settings and the scoped override accuracy studies use (bench/accuracy.ts).
 
-const ball: BallSpec = { weightLb: 15, rg: 2.5, differential: 0.05, intermediateDifferential: 0.012, coverType: 'reactive-solid', surfaceGrit: 2000, polished: false, layout: { pinToPapIn: 4.5 } };
+const ball: BallSpec = {
+  weightLb: 15,
+  rg: 2.5,
+  differential: 0.05,
+  intermediateDifferential: 0.012,
+  coverType: 'reactive-solid',
+  surfaceGrit: 2000,
+  polished: false,
+  layout: { pinToPapIn: 4.5 },
+};
 const bowler: BowlerProfile = { hand: 'right', speedMph: 17, revRpm: 350, axisRotationDeg: 45, axisTiltDeg: 15 };
 const house = housePattern();
 
@@ -19,14 +28,25 @@ describe('motion steps', () => {
     const fine = { stepS: 0.001, maxStepS: 0.001 };
     expect(withMotionSteps(fine, () => motionSteps())).toEqual(fine);
     expect(motionSteps().stepS).toBe(MOTION_CALIBRATION.stepS);
-    expect(() => withMotionSteps(fine, () => { throw new Error('inside'); })).toThrow('inside');
+    expect(() =>
+      withMotionSteps(fine, () => {
+        throw new Error('inside');
+      }),
+    ).toThrow('inside');
     expect(motionSteps().stepS).toBe(MOTION_CALIBRATION.stepS);
-    expect(withMotionSteps(fine, () => withMotionSteps({ stepS: 0.002, maxStepS: 0.004 }, () => motionSteps()))).toEqual({ stepS: 0.002, maxStepS: 0.004 });
+    expect(withMotionSteps(fine, () => withMotionSteps({ stepS: 0.002, maxStepS: 0.004 }, () => motionSteps()))).toEqual({
+      stepS: 0.002,
+      maxStepS: 0.004,
+    });
   });
 
   it('boards and degrees: on one line the production steps agree with a 1 ms fixed step within 0.2 board of entry, 0.3° of entry angle and 1 ft of breakpoint (the accuracy the ranking needs)', () => {
     const shot = (laydownBoard: number, targetBoard: number) => simulateShot({ ball, bowler, pattern: house, laydownBoard, targetBoard });
-    for (const [l, t] of [[20, 11], [25, 14], [15, 9]] as const) {
+    for (const [l, t] of [
+      [20, 11],
+      [25, 14],
+      [15, 9],
+    ] as const) {
       const fast = shot(l, t);
       const ref = withMotionSteps({ stepS: 0.001, maxStepS: 0.001 }, () => shot(l, t));
       expect(Math.abs(fast.entryBoard - ref.entryBoard)).toBeLessThan(0.2);
@@ -36,7 +56,10 @@ describe('motion steps', () => {
   });
 
   it('a ranking at the 1 ms reference step puts each ball on a line within a board of the production one', () => {
-    const balls = [{ ...ball, id: 'solid' }, { ...ball, id: 'pearl', coverType: 'reactive-pearl' as const, surfaceGrit: 4000, polished: true }];
+    const balls = [
+      { ...ball, id: 'solid' },
+      { ...ball, id: 'pearl', coverType: 'reactive-pearl' as const, surfaceGrit: 4000, polished: true },
+    ];
     const fast = rankArsenal({ balls, bowler, pattern: house });
     const ref = withMotionSteps({ stepS: 0.001, maxStepS: 0.001 }, () => rankArsenal({ balls, bowler, pattern: house }));
     for (const r of fast) {

@@ -26,12 +26,20 @@ describe('rankArsenal — ball-motion layer', () => {
     expect(ranked).toHaveLength(fourBalls.length);
     for (const r of ranked) {
       const motion = r.reasons.filter((x) => x.rule.startsWith('motion-'));
-      expect(motion.map((x) => x.rule).filter((x) => x !== 'motion-launch').sort()).toEqual(['motion-entry-angle', 'motion-miss-room', 'motion-pocket']);
-      for (const x of motion) { expect(x.source).toMatch(/ball-motion model.*Frohlich/); expect(x.text.length).toBeGreaterThan(10); }
+      expect(
+        motion
+          .map((x) => x.rule)
+          .filter((x) => x !== 'motion-launch')
+          .sort(),
+      ).toEqual(['motion-entry-angle', 'motion-miss-room', 'motion-pocket']);
+      for (const x of motion) {
+        expect(x.source).toMatch(/ball-motion model.*Frohlich/);
+        expect(x.text.length).toBeGreaterThan(10);
+      }
     }
   });
 
-  it('boards, every strike ball: a line suggestion from the model whose laydown and target are the prediction\'s line (to 0.05 board)', () => {
+  it("boards, every strike ball: a line suggestion from the model whose laydown and target are the prediction's line (to 0.05 board)", () => {
     const strike = ranked.filter((x) => fourBalls.find((b) => b.id === x.id)?.coverType !== 'plastic');
     expect(strike).toHaveLength(3);
     for (const r of strike) {
@@ -46,14 +54,20 @@ describe('rankArsenal — ball-motion layer', () => {
   // Breakdown on the house shot (the transition model; common practice: a broken-down lane
   // favours cleaner, weaker balls). 15 invented balls, 0 → 9 games.
   const at = (g: number) => rankArsenal({ balls: fifteenBalls(), bowler: typicalBowler, pattern: houseShot, gamesBowled: g });
-  const motionOf = (r: ReturnType<typeof at>, id: string) => r.find((x) => x.id === id)?.layers?.find((l) => l.name === 'motion')?.score as number;
+  const motionOf = (r: ReturnType<typeof at>, id: string) =>
+    r.find((x) => x.id === id)?.layers?.find((l) => l.name === 'motion')?.score as number;
   const scoreOf = (r: ReturnType<typeof at>, id: string) => r.find((x) => x.id === id)?.score as number;
 
   it('points, motion layer alone, 0 → 9 games: the polished pearl gains on the 500-grit solid (the solid needs a still wider launch)', () => {
     const [r0, r9] = [at(0), at(9)];
-    const launch = (r: ReturnType<typeof at>) => { const p = r.find((x) => x.id === 'solid-500')!.prediction; return p.laydownBoard - p.targetBoard; };
+    const launch = (r: ReturnType<typeof at>) => {
+      const p = r.find((x) => x.id === 'solid-500')!.prediction;
+      return p.laydownBoard - p.targetBoard;
+    };
     expect(launch(r9)).toBeGreaterThan(launch(r0));
-    expect(motionOf(r9, 'pearl-polished') - motionOf(r9, 'solid-500')).toBeGreaterThan(motionOf(r0, 'pearl-polished') - motionOf(r0, 'solid-500'));
+    expect(motionOf(r9, 'pearl-polished') - motionOf(r9, 'solid-500')).toBeGreaterThan(
+      motionOf(r0, 'pearl-polished') - motionOf(r0, 'solid-500'),
+    );
   });
 
   it('points and rank, combined, 0 → 9 games: every strong sanded solid (500/1000/2000 grit) loses points, the polished pearl gains, and no sanded solid is best', () => {

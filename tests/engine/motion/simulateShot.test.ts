@@ -41,7 +41,10 @@ describe('simulateShot — magnitudes against the trade (common practice; textbo
       const p = simulateShot({ ball: strongBall(), bowler, pattern: flatPattern() });
       expect(p.timeToPinsS).toBeGreaterThanOrEqual(40.91 / bowler.speedMph);
       expect(p.timeToPinsS).toBeLessThanOrEqual(40.91 / (bowler.speedMph - 3.5));
-      if (bowler.speedMph <= 19) { expect(p.timeToPinsS).toBeGreaterThanOrEqual(2.2); expect(p.timeToPinsS).toBeLessThanOrEqual(3.0); }
+      if (bowler.speedMph <= 19) {
+        expect(p.timeToPinsS).toBeGreaterThanOrEqual(2.2);
+        expect(p.timeToPinsS).toBeLessThanOrEqual(3.0);
+      }
       expect(bowler.speedMph - p.speedAtPinsMph).toBeGreaterThanOrEqual(2);
       // "about 2–3.5 mph" (common practice; derived); the loss grows with release speed (more slip to spin up): 3.53 at 20 mph
       expect(bowler.speedMph - p.speedAtPinsMph).toBeLessThanOrEqual(bowler.speedMph <= 19 ? 3.5 : 3.6);
@@ -55,12 +58,19 @@ describe('simulateShot — magnitudes against the trade (common practice; textbo
     const angles: number[] = [];
     for (const pattern of [flatPattern(), housePattern()]) {
       const a = simulateShot({ ball: strongBall(), bowler: strokerBowler(), pattern }).entryAngleDeg;
-      const b = simulateShot({ ball: strongBall(), bowler: strokerBowler({ speedMph: 18.5, revRpm: 450, axisRotationDeg: 55, axisTiltDeg: 15 }), pattern }).entryAngleDeg;
+      const b = simulateShot({
+        ball: strongBall(),
+        bowler: strokerBowler({ speedMph: 18.5, revRpm: 450, axisRotationDeg: 55, axisTiltDeg: 15 }),
+        pattern,
+      }).entryAngleDeg;
       angles.push(a, b);
       expect(b).toBeGreaterThan(a);
     }
     // 3–7° typical (S/C); the 450-rpm bowler comes out a little above (≈ 7.1° on the flat pattern): ≤ 8° allowed for him
-    angles.forEach((a, i) => { expect(a).toBeGreaterThanOrEqual(3); expect(a).toBeLessThanOrEqual(i % 2 === 0 ? 7 : 8); });
+    angles.forEach((a, i) => {
+      expect(a).toBeGreaterThanOrEqual(3);
+      expect(a).toBeLessThanOrEqual(i % 2 === 0 ? 7 : 8);
+    });
   });
 });
 
@@ -68,8 +78,22 @@ describe('simulateShot — pocket solver (USBC pin-carry research, reported seco
   const cases = [
     ['strong solid, stroker, flat', { ball: strongBall(), bowler: strokerBowler(), pattern: flatPattern() }],
     ['strong solid, stroker, house', { ball: strongBall(), bowler: strokerBowler(), pattern: housePattern() }],
-    ['polished pearl, fast bowler, house', { ball: strongBall({ coverType: 'reactive-pearl', polished: true }), bowler: strokerBowler({ speedMph: 20 }), pattern: housePattern() }],
-    ['plastic spare ball, stroker, flat', { ball: strongBall({ coverType: 'plastic', polished: true, differential: 0.005, intermediateDifferential: 0 }), bowler: strokerBowler(), pattern: flatPattern() }],
+    [
+      'polished pearl, fast bowler, house',
+      {
+        ball: strongBall({ coverType: 'reactive-pearl', polished: true }),
+        bowler: strokerBowler({ speedMph: 20 }),
+        pattern: housePattern(),
+      },
+    ],
+    [
+      'plastic spare ball, stroker, flat',
+      {
+        ball: strongBall({ coverType: 'plastic', polished: true, differential: 0.005, intermediateDifferential: 0 }),
+        bowler: strokerBowler(),
+        pattern: flatPattern(),
+      },
+    ],
     ['strong solid, left-hander, house', { ball: strongBall(), bowler: strokerBowler({ hand: 'left' }), pattern: housePattern() }],
   ] as const;
   for (const [name, input] of cases) {
@@ -96,8 +120,18 @@ describe('simulateShot — pocket solver (USBC pin-carry research, reported seco
 describe('simulateShot — frictionOverride (uniform μ: the sliding sphere)', () => {
   it('m, no revs, μ = 0.2 everywhere: rolls after (v0² − vf²)/(2μg) with vf = v0·R²/(R²+k²) within 5 mm, straight down board 20', () => {
     const ball = strongBall({ rg: 2.55, differential: 0, intermediateDifferential: 0, diameterIn: 8.5 });
-    const p = simulateShot({ ball, bowler: strokerBowler({ revRpm: 0 }), pattern: flatPattern(), laydownBoard: 20, targetBoard: 20, frictionOverride: 0.2 });
-    const v0 = 17.5 * 0.44704, R = 4.25, k = 2.55, vf = (v0 * R * R) / (R * R + k * k);
+    const p = simulateShot({
+      ball,
+      bowler: strokerBowler({ revRpm: 0 }),
+      pattern: flatPattern(),
+      laydownBoard: 20,
+      targetBoard: 20,
+      frictionOverride: 0.2,
+    });
+    const v0 = 17.5 * 0.44704,
+      R = 4.25,
+      k = 2.55,
+      vf = (v0 * R * R) / (R * R + k * k);
     expect(Math.abs((p.rollStartFt as number) * 0.3048 - (v0 * v0 - vf * vf) / (2 * 0.2 * 9.80665))).toBeLessThan(0.005);
     expect(Math.abs(p.speedAtPinsMph * 0.44704 - vf)).toBeLessThan(1e-6);
     for (const s of p.path) expect(Math.abs(s.board - 20)).toBeLessThan(1e-12);
@@ -120,16 +154,42 @@ describe('simulateShot — path and symmetry', () => {
   });
 
   it('boards, a gutter ball (straight line toward board 1): the path ends at the gutter and gutter = true', () => {
-    const p = simulateShot({ ball: strongBall({ coverType: 'plastic', polished: true }), bowler: strokerBowler({ revRpm: 0 }), pattern: flatPattern(), laydownBoard: 10, targetBoard: 7 });
+    const p = simulateShot({
+      ball: strongBall({ coverType: 'plastic', polished: true }),
+      bowler: strokerBowler({ revRpm: 0 }),
+      pattern: flatPattern(),
+      laydownBoard: 10,
+      targetBoard: 7,
+    });
     expect(p.gutter).toBe(true);
     expect(p.path[p.path.length - 1].ft).toBeLessThan(60);
     expect(Math.abs(p.path[p.path.length - 1].board - 0.5)).toBeLessThan(1e-6);
   });
 
-  it('boards, asymmetric house pattern, strong asymmetric ball: a left-hander on the mirrored pattern gets the right-hander\'s path to 1e-9 boards (mirror symmetry)', () => {
-    const lopsided = { name: 'Test Lopsided', sweeps: [...housePattern().sweeps, { direction: 'forward' as const, fromBoard: 24, toBoard: 36, startFt: 0, endFt: 30, crossings: 3, microlitersPerBoard: 60 }] };
-    const r = simulateShot({ ball: strongBall(), bowler: strokerBowler(), pattern: lopsided, laydownBoard: 18, targetBoard: 9, gamesBowled: 2 });
-    const l = simulateShot({ ball: strongBall(), bowler: strokerBowler({ hand: 'left' }), pattern: mirroredPattern(lopsided), laydownBoard: 18, targetBoard: 9, gamesBowled: 2 });
+  it("boards, asymmetric house pattern, strong asymmetric ball: a left-hander on the mirrored pattern gets the right-hander's path to 1e-9 boards (mirror symmetry)", () => {
+    const lopsided = {
+      name: 'Test Lopsided',
+      sweeps: [
+        ...housePattern().sweeps,
+        { direction: 'forward' as const, fromBoard: 24, toBoard: 36, startFt: 0, endFt: 30, crossings: 3, microlitersPerBoard: 60 },
+      ],
+    };
+    const r = simulateShot({
+      ball: strongBall(),
+      bowler: strokerBowler(),
+      pattern: lopsided,
+      laydownBoard: 18,
+      targetBoard: 9,
+      gamesBowled: 2,
+    });
+    const l = simulateShot({
+      ball: strongBall(),
+      bowler: strokerBowler({ hand: 'left' }),
+      pattern: mirroredPattern(lopsided),
+      laydownBoard: 18,
+      targetBoard: 9,
+      gamesBowled: 2,
+    });
     expect(l.path.length).toBe(r.path.length);
     for (let i = 0; i < r.path.length; i++) expect(Math.abs(l.path[i].board - r.path[i].board)).toBeLessThan(1e-9);
     expect(Math.abs(l.entryAngleDeg - r.entryAngleDeg)).toBeLessThan(1e-9);

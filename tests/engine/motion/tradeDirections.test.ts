@@ -10,36 +10,74 @@ import { flatPattern, housePattern, mirroredPattern } from './fixtures';
 
 /** A benchmark reactive hybrid, 3000 grit. */
 const ball = (o: Partial<BallSpec> = {}): BallSpec => ({
-  weightLb: 15, rg: 2.52, differential: 0.045, intermediateDifferential: 0, coverType: 'reactive-hybrid', surfaceGrit: 3000, polished: false,
-  layout: { pinToPapIn: 4.5, drillingAngleDeg: 45 }, ...o,
+  weightLb: 15,
+  rg: 2.52,
+  differential: 0.045,
+  intermediateDifferential: 0,
+  coverType: 'reactive-hybrid',
+  surfaceGrit: 3000,
+  polished: false,
+  layout: { pinToPapIn: 4.5, drillingAngleDeg: 45 },
+  ...o,
 });
 /** A right-hander in the middle of the usual ranges (16–21 mph, 250–400 rpm, 30–60° rotation, 10–20° tilt). */
-const bowler = (o: Partial<BowlerProfile> = {}): BowlerProfile => ({ hand: 'right', speedMph: 17, revRpm: 350, axisRotationDeg: 45, axisTiltDeg: 15, ...o });
+const bowler = (o: Partial<BowlerProfile> = {}): BowlerProfile => ({
+  hand: 'right',
+  speedMph: 17,
+  revRpm: 350,
+  axisRotationDeg: 45,
+  axisTiltDeg: 15,
+  ...o,
+});
 const house = housePattern();
 /** The same pattern, oil per foot unchanged, `d` ft longer (every sweep's end moves out, its oil with it). */
 const longer = (p: OilPattern, d: number): OilPattern => ({
   name: `${p.name} +${d}`,
-  sweeps: p.sweeps.map((s) => { const k = (s.endFt + d) / s.endFt; return { ...s, endFt: s.endFt + d, microlitersPerBoard: s.microlitersPerBoard * k }; }),
+  sweeps: p.sweeps.map((s) => {
+    const k = (s.endFt + d) / s.endFt;
+    return { ...s, endFt: s.endFt + d, microlitersPerBoard: s.microlitersPerBoard * k };
+  }),
 });
 
-function shot(o: { ball?: Partial<BallSpec>; bowler?: Partial<BowlerProfile>; pattern?: OilPattern; games?: number; line?: [number, number] } = {}) {
+function shot(
+  o: { ball?: Partial<BallSpec>; bowler?: Partial<BowlerProfile>; pattern?: OilPattern; games?: number; line?: [number, number] } = {},
+) {
   const [laydownBoard, targetBoard] = o.line ?? [20, 11];
-  const p = simulateShot({ ball: ball(o.ball), bowler: bowler(o.bowler), pattern: o.pattern ?? house, laydownBoard, targetBoard, gamesBowled: o.games ?? 0 });
+  const p = simulateShot({
+    ball: ball(o.ball),
+    bowler: bowler(o.bowler),
+    pattern: o.pattern ?? house,
+    laydownBoard,
+    targetBoard,
+    gamesBowled: o.games ?? 0,
+  });
   expect(p.gutter).toBe(false);
   return { ...p, hook: p.entryBoard - p.breakpoint.board };
 }
-const rising = (xs: number[]) => { for (let i = 1; i < xs.length; i++) expect(xs[i]).toBeGreaterThan(xs[i - 1]); };
-const falling = (xs: number[]) => { for (let i = 1; i < xs.length; i++) expect(xs[i]).toBeLessThan(xs[i - 1]); };
+const rising = (xs: number[]) => {
+  for (let i = 1; i < xs.length; i++) expect(xs[i]).toBeGreaterThan(xs[i - 1]);
+};
+const falling = (xs: number[]) => {
+  for (let i = 1; i < xs.length; i++) expect(xs[i]).toBeLessThan(xs[i - 1]);
+};
 
 describe('surface and cover (common practice: the cover and its surface are the main lever — USBC Ball Motion Study 2008 ranked cover surface first)', () => {
   it('grit 500 → 1000 → 2000 → 3000 → 4000 → 4000 polished: the skid ends later and the breakpoint moves later', () => {
-    const r = [[500, false], [1000, false], [2000, false], [3000, false], [4000, false], [4000, true]].map(([g, p]) => shot({ ball: { surfaceGrit: g as number, polished: p as boolean } }));
+    const r = [
+      [500, false],
+      [1000, false],
+      [2000, false],
+      [3000, false],
+      [4000, false],
+      [4000, true],
+    ].map(([g, p]) => shot({ ball: { surfaceGrit: g as number, polished: p as boolean } }));
     rising(r.map((x) => x.skidFt));
     rising(r.map((x) => x.breakpoint.ft));
   });
 
   it('ft, a strong solid 2000 → 4000 grit on the house shot: the breakpoint moves 1.5–6 ft later (trade-sized: "a few feet of length")', () => {
-    const at = (g: number) => shot({ ball: { coverType: 'reactive-solid', surfaceGrit: g, rg: 2.49, differential: 0.052, intermediateDifferential: 0.018 } });
+    const at = (g: number) =>
+      shot({ ball: { coverType: 'reactive-solid', surfaceGrit: g, rg: 2.49, differential: 0.052, intermediateDifferential: 0.018 } });
     const d = at(4000).breakpoint.ft - at(2000).breakpoint.ft;
     expect(d).toBeGreaterThanOrEqual(1.5);
     expect(d).toBeLessThanOrEqual(6);
@@ -119,7 +157,8 @@ describe('the pattern (common practice)', () => {
       expect(line.reached).toBe(true);
       return missRoom(s.run, line.laydownBoard, line.targetBoard, line.result).totalBoards;
     };
-    const onHouse = room(house), onFlat = room(flatPattern());
+    const onHouse = room(house),
+      onFlat = room(flatPattern());
     expect(onHouse).toBeGreaterThanOrEqual(1.5 * onFlat);
     expect(onFlat).toBeGreaterThan(0.5);
   });
@@ -150,7 +189,13 @@ describe('the bowler (common practice)', () => {
 
   it('a left-hander on the mirrored pattern throws the same shot, board for board from their own gutter (mirror symmetry)', () => {
     const r = shot();
-    const l = simulateShot({ ball: ball(), bowler: bowler({ hand: 'left' }), pattern: mirroredPattern(house), laydownBoard: 20, targetBoard: 11 });
+    const l = simulateShot({
+      ball: ball(),
+      bowler: bowler({ hand: 'left' }),
+      pattern: mirroredPattern(house),
+      laydownBoard: 20,
+      targetBoard: 11,
+    });
     expect(l.entryBoard).toBeCloseTo(r.entryBoard, 9);
     expect(l.breakpoint.ft).toBeCloseTo(r.breakpoint.ft, 9);
   });
@@ -164,20 +209,28 @@ describe('transition (common practice: the track dries, the line moves deeper)',
   });
 
   it('boards: after 9 games the model plays the same ball from deeper (a higher laydown board for a right-hander) than on the fresh pattern', () => {
-    const line = (gamesBowled: number) => rankArsenal({ balls: [{ ...ball(), id: 'b' }], bowler: bowler(), pattern: house, gamesBowled })[0].prediction;
+    const line = (gamesBowled: number) =>
+      rankArsenal({ balls: [{ ...ball(), id: 'b' }], bowler: bowler(), pattern: house, gamesBowled })[0].prediction;
     expect(line(9).laydownBoard).toBeGreaterThan(line(0).laydownBoard);
   });
 });
 
 describe('the line a weak release plays (common practice: a ball that will not come back is played straighter up the boards, not thrown across the lane)', () => {
   const speedDominant = bowler({ speedMph: 18.5, revRpm: 260, axisRotationDeg: 35, axisTiltDeg: 18 });
-  it.each([['right'], ['left']] as const)('a %s-handed speed-dominant, low-rev bowler (18.5 mph, 260 rpm, 35° rotation, 18° tilt) on the house shot: a launch of at most 2° (6 boards) from no deeper than board 20, entry at least 2°', (hand) => {
-    const p = rankArsenal({ balls: [{ ...ball(), id: 'b' }], bowler: { ...speedDominant, hand }, pattern: hand === 'left' ? mirroredPattern(house) : house })[0].prediction;
-    expect(p.laydownBoard - p.targetBoard).toBeLessThanOrEqual(6);
-    expect(p.laydownBoard).toBeLessThanOrEqual(20);
-    expect(p.targetBoard).toBeGreaterThanOrEqual(4);
-    expect(p.entryAngleDeg).toBeGreaterThanOrEqual(2);
-  });
+  it.each([['right'], ['left']] as const)(
+    'a %s-handed speed-dominant, low-rev bowler (18.5 mph, 260 rpm, 35° rotation, 18° tilt) on the house shot: a launch of at most 2° (6 boards) from no deeper than board 20, entry at least 2°',
+    (hand) => {
+      const p = rankArsenal({
+        balls: [{ ...ball(), id: 'b' }],
+        bowler: { ...speedDominant, hand },
+        pattern: hand === 'left' ? mirroredPattern(house) : house,
+      })[0].prediction;
+      expect(p.laydownBoard - p.targetBoard).toBeLessThanOrEqual(6);
+      expect(p.laydownBoard).toBeLessThanOrEqual(20);
+      expect(p.targetBoard).toBeGreaterThanOrEqual(4);
+      expect(p.entryAngleDeg).toBeGreaterThanOrEqual(2);
+    },
+  );
 });
 
 describe('the sizes of the reported numbers, on the pocket line (common practice)', () => {
@@ -186,19 +239,22 @@ describe('the sizes of the reported numbers, on the pocket line (common practice
     ['a tweener (16.5 mph, 375 rpm)', bowler({ speedMph: 16.5, revRpm: 375 })],
     ['a stroker (18 mph, 290 rpm)', bowler({ speedMph: 18, revRpm: 290, axisRotationDeg: 40 })],
   ];
-  it.each(cases)('%s on the house shot: entry 3–7° (about 6° carries best, USBC pin-carry research second-hand), skid ends before the breakpoint and rolling after it, breakpoint 30–48 ft on boards 2–14, line between boards 8 and 35', (_n, b) => {
-    const p = rankArsenal({ balls: [{ ...ball(), id: 'b' }], bowler: b, pattern: house })[0].prediction;
-    expect(p.entryAngleDeg).toBeGreaterThanOrEqual(3);
-    expect(p.entryAngleDeg).toBeLessThanOrEqual(7);
-    expect(p.skidFt).toBeLessThan(p.breakpoint.ft);
-    expect(p.rollStartFt ?? 60).toBeGreaterThan(p.breakpoint.ft);
-    expect(p.skidFt).toBeGreaterThanOrEqual(12);
-    expect(p.breakpoint.ft).toBeGreaterThanOrEqual(30);
-    expect(p.breakpoint.ft).toBeLessThanOrEqual(48);
-    expect(p.breakpoint.board).toBeGreaterThanOrEqual(2);
-    expect(p.breakpoint.board).toBeLessThanOrEqual(14);
-    expect(p.laydownBoard).toBeGreaterThanOrEqual(8);
-    expect(p.laydownBoard).toBeLessThanOrEqual(35);
-    expect(p.targetBoard).toBeGreaterThanOrEqual(4);
-  });
+  it.each(cases)(
+    '%s on the house shot: entry 3–7° (about 6° carries best, USBC pin-carry research second-hand), skid ends before the breakpoint and rolling after it, breakpoint 30–48 ft on boards 2–14, line between boards 8 and 35',
+    (_n, b) => {
+      const p = rankArsenal({ balls: [{ ...ball(), id: 'b' }], bowler: b, pattern: house })[0].prediction;
+      expect(p.entryAngleDeg).toBeGreaterThanOrEqual(3);
+      expect(p.entryAngleDeg).toBeLessThanOrEqual(7);
+      expect(p.skidFt).toBeLessThan(p.breakpoint.ft);
+      expect(p.rollStartFt ?? 60).toBeGreaterThan(p.breakpoint.ft);
+      expect(p.skidFt).toBeGreaterThanOrEqual(12);
+      expect(p.breakpoint.ft).toBeGreaterThanOrEqual(30);
+      expect(p.breakpoint.ft).toBeLessThanOrEqual(48);
+      expect(p.breakpoint.board).toBeGreaterThanOrEqual(2);
+      expect(p.breakpoint.board).toBeLessThanOrEqual(14);
+      expect(p.laydownBoard).toBeGreaterThanOrEqual(8);
+      expect(p.laydownBoard).toBeLessThanOrEqual(35);
+      expect(p.targetBoard).toBeGreaterThanOrEqual(4);
+    },
+  );
 });

@@ -4,14 +4,19 @@ import { housePattern, strokerBowler } from './fixtures';
 
 // Transition model tests: total oil conserved; repeated shots on a line widen a depleted track and build
 // oil beyond the pattern (carrydown). The amounts are documented assumptions (MOTION_CALIBRATION).
-const track = [{ ft: 0, board: 15 }, { ft: 40, board: 8 }, { ft: 60, board: 17.5 }];
+const track = [
+  { ft: 0, board: 15 },
+  { ft: 40, board: 8 },
+  { ft: 60, board: 17.5 },
+];
 const at = (m: ReturnType<typeof patternOilMap>, board: number, ft: number) => m.filmUm[Math.round(ft / m.ftStep) * m.cols + board];
 
 describe('transitionOilMap (the transition model)', () => {
   it('µL, 3 games on a house pattern: lane before = lane after + oil kept on the balls, to 1e-9 relative', () => {
     const fresh = patternOilMap(housePattern());
     const t = transitionOilMap(fresh, track, 3);
-    const before = oilVolumeUl(fresh), after = oilVolumeUl(t.map);
+    const before = oilVolumeUl(fresh),
+      after = oilVolumeUl(t.map);
     expect(Math.abs(before - (after + t.keptOnBallsUl)) / before).toBeLessThan(1e-9);
     expect(Math.abs(t.removedUl - t.carriedDownUl - t.keptOnBallsUl)).toBeLessThan(1e-9 * before);
     expect(t.removedUl).toBeGreaterThan(0);

@@ -24,13 +24,22 @@ describe('rankArsenal — warm-started line search', () => {
     for (const ball of balls) {
       const shot = prepareShot({ ball, bowler: typicalBowler, pattern: houseShot }, map);
       let n = 0;
-      const count = <A extends unknown[], R>(f: (...a: A) => R) => (...a: A): R => { n++; return f(...a); };
+      const count =
+        <A extends unknown[], R>(f: (...a: A) => R) =>
+        (...a: A): R => {
+          n++;
+          return f(...a);
+        };
       const first = solvePocketLine(count(shot.run), {}, {}, count(shot.preview!));
       const coldN = n;
       if (!first.settled) continue;
       n = 0;
       const again = solvePocketLine(count(shot.run), {}, first.settled, count(shot.preview!));
-      expect([again.laydownBoard, again.targetBoard, again.result.entryBoard]).toEqual([first.laydownBoard, first.targetBoard, first.result.entryBoard]);
+      expect([again.laydownBoard, again.targetBoard, again.result.entryBoard]).toEqual([
+        first.laydownBoard,
+        first.targetBoard,
+        first.result.entryBoard,
+      ]);
       expect(n).toBeLessThan(coldN);
       fewer++;
     }

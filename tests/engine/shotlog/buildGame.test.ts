@@ -18,14 +18,23 @@ const X = (frame: number, delivery = 1): LoggedDelivery => d(frame, delivery, []
  * the USBC playing rules on splits common split names) converted; F9 is a foul then 9 at the re-spotted rack.
  */
 const wbSheet: LoggedDelivery[] = [
-  X(1), X(2), X(3),
-  d(4, 1, [4, 7, 8]), d(4, 2, [8]),
-  d(5, 1, [3, 10]), d(5, 2, []),
-  d(6, 1, [1, 2, 3, 4, 5, 6], true), d(6, 2, [10]),
+  X(1),
+  X(2),
+  X(3),
+  d(4, 1, [4, 7, 8]),
+  d(4, 2, [8]),
+  d(5, 1, [3, 10]),
+  d(5, 2, []),
+  d(6, 1, [1, 2, 3, 4, 5, 6], true),
+  d(6, 2, [10]),
   X(7),
-  d(8, 1, [2, 4, 7]), d(8, 2, []),
-  d(9, 1, [10]), d(9, 2, [10]),
-  X(10, 1), X(10, 2), d(10, 3, [6, 10]),
+  d(8, 1, [2, 4, 7]),
+  d(8, 2, []),
+  d(9, 1, [10]),
+  d(9, 2, [10]),
+  X(10, 1),
+  X(10, 2),
+  d(10, 3, [6, 10]),
 ];
 
 describe('buildGame: worked examples', () => {
@@ -81,7 +90,14 @@ describe('buildGame: worked examples', () => {
   });
 
   it("the tenth frame: after a strike and a count the third ball is at the second ball's leave", () => {
-    const prior = [...Array.from({ length: 9 }, (_, i) => d(i + 1, 1, [1, 2, 3, 4, 5, 6, 7, 8, 9, 10])).flatMap((x) => [x, d(x.frame, 2, [1, 2, 3, 4, 5, 6, 7, 8, 9, 10])]), X(10, 1), d(10, 2, [3, 6, 10])];
+    const prior = [
+      ...Array.from({ length: 9 }, (_, i) => d(i + 1, 1, [1, 2, 3, 4, 5, 6, 7, 8, 9, 10])).flatMap((x) => [
+        x,
+        d(x.frame, 2, [1, 2, 3, 4, 5, 6, 7, 8, 9, 10]),
+      ]),
+      X(10, 1),
+      d(10, 2, [3, 6, 10]),
+    ];
     const g = buildGame(prior);
     expect(g.next).toEqual({ frame: 10, delivery: 3, pinsBefore: [3, 6, 10] });
     const done = buildGame([...prior, d(10, 3, [])]);
@@ -92,27 +108,55 @@ describe('buildGame: worked examples', () => {
 
 describe('buildGame and checkDelivery: impossible deliveries are refused with a reason', () => {
   const cases: [string, LoggedDelivery[], LoggedDelivery, string, string][] = [
-    ['a pin already down', [d(1, 1, [7, 10])], d(1, 2, [4, 7]), 'standing', 'pin 4 was already down before this delivery; only 7-10 were standing'],
-    ['more pins standing than before', [d(1, 1, [10])], d(1, 2, [6, 10]), 'standing', 'pin 6 was already down before this delivery; only 10 was standing'],
+    [
+      'a pin already down',
+      [d(1, 1, [7, 10])],
+      d(1, 2, [4, 7]),
+      'standing',
+      'pin 4 was already down before this delivery; only 7-10 were standing',
+    ],
+    [
+      'more pins standing than before',
+      [d(1, 1, [10])],
+      d(1, 2, [6, 10]),
+      'standing',
+      'pin 6 was already down before this delivery; only 10 was standing',
+    ],
     ['frame 3 delivery 3', [X(1), X(2)], d(3, 3, []), 'delivery', 'frame 3 has no delivery 3; frames 1 to 9 have at most 2'],
     ['frame 11', [], d(11, 1, []), 'frame', 'frame 11 cannot exist; a game has frames 1 to 10'],
     ['frame 0', [], d(0, 1, []), 'frame', 'frame 0 cannot exist; a game has frames 1 to 10'],
-    ['delivery 2 after a strike', [X(1), X(2), X(3)], d(3, 2, []), 'delivery', 'frame 3 has no delivery 2: its first delivery was a strike; the next delivery is frame 4, delivery 1'],
+    [
+      'delivery 2 after a strike',
+      [X(1), X(2), X(3)],
+      d(3, 2, []),
+      'delivery',
+      'frame 3 has no delivery 2: its first delivery was a strike; the next delivery is frame 4, delivery 1',
+    ],
     ['a skipped frame', [X(1), X(2), X(3)], d(6, 1, []), 'frame', 'the next delivery is frame 4, delivery 1'],
-    ['a repeated delivery', [d(1, 1, [5])], d(1, 1, [5]), 'delivery', 'frame 1, delivery 1 is already logged; the next delivery is frame 1, delivery 2'],
+    [
+      'a repeated delivery',
+      [d(1, 1, [5])],
+      d(1, 1, [5]),
+      'delivery',
+      'frame 1, delivery 1 is already logged; the next delivery is frame 1, delivery 2',
+    ],
     ['pin 11', [], d(1, 1, [11]), 'standing', 'pin 11 does not exist; pins are numbered 1 to 10'],
     ['a pin twice', [], d(1, 1, [4, 4]), 'standing', 'pin 4 is listed twice'],
   ];
   it.each(cases)('%s', (_, prior, next, field, reason) => {
     expect(checkDelivery(prior, next)).toEqual({ ok: false, field, reason });
-    expect(() => buildGame([...prior, next])).toThrow(new RangeError(`buildGame: delivery ${prior.length + 1} (frame ${next.frame}, delivery ${next.delivery}): ${reason}`));
+    expect(() => buildGame([...prior, next])).toThrow(
+      new RangeError(`buildGame: delivery ${prior.length + 1} (frame ${next.frame}, delivery ${next.delivery}): ${reason}`),
+    );
   });
 
   it('after the game is complete every delivery is refused; an open tenth frame has no third delivery', () => {
     expect(checkDelivery(wbSheet, X(10, 3))).toEqual({ ok: false, field: 'frame', reason: 'the game is already complete' });
     const open = Array.from({ length: 10 }, (_, i) => [d(i + 1, 1, [10]), d(i + 1, 2, [10])]).flat();
     expect(checkDelivery(open, d(10, 3, []))).toEqual({
-      ok: false, field: 'delivery', reason: 'frame 10 has no delivery 3: its first two deliveries made neither a strike nor a spare, so the game is already complete',
+      ok: false,
+      field: 'delivery',
+      reason: 'frame 10 has no delivery 3: its first two deliveries made neither a strike nor a spare, so the game is already complete',
     });
     expect(buildGame(open).total).toBe(90);
   });
@@ -120,20 +164,30 @@ describe('buildGame and checkDelivery: impossible deliveries are refused with a 
   it('the tenth frame rack is not re-set after a count: the reason says so', () => {
     const nine = Array.from({ length: 9 }, (_, i) => X(i + 1));
     const r = checkDelivery([...nine, X(10, 1), d(10, 2, [7])], d(10, 3, [7, 10]));
-    expect(r).toEqual({ ok: false, field: 'standing', reason: 'pin 10 was already down before this delivery; only 7 was standing (in the tenth frame the rack is re-set only after a strike or a spare)' });
+    expect(r).toEqual({
+      ok: false,
+      field: 'standing',
+      reason:
+        'pin 10 was already down before this delivery; only 7 was standing (in the tenth frame the rack is re-set only after a strike or a spare)',
+    });
   });
 
   it('wrong types are TypeErrors naming the function; an impossible prior a RangeError', () => {
     expect(() => buildGame('X' as unknown as LoggedDelivery[])).toThrow(new TypeError('buildGame: deliveries must be an array, got "X"'));
     expect(() => buildGame([{ frame: '1', delivery: 1, standing: [] } as unknown as LoggedDelivery])).toThrow(TypeError);
-    expect(() => checkDelivery([], { frame: 1, delivery: 1, standing: 'none' } as unknown as LoggedDelivery)).toThrow(/^checkDelivery: next.standing must be an array/);
+    expect(() => checkDelivery([], { frame: 1, delivery: 1, standing: 'none' } as unknown as LoggedDelivery)).toThrow(
+      /^checkDelivery: next.standing must be an array/,
+    );
     expect(() => checkDelivery([], { frame: 1, delivery: 1, standing: [], foul: 'yes' } as unknown as LoggedDelivery)).toThrow(TypeError);
-    expect(() => checkDelivery([d(1, 2, [])], X(2))).toThrow(new RangeError('checkDelivery: prior delivery 1 (frame 1, delivery 2): the next delivery is frame 1, delivery 1'));
+    expect(() => checkDelivery([d(1, 2, [])], X(2))).toThrow(
+      new RangeError('checkDelivery: prior delivery 1 (frame 1, delivery 2): the next delivery is frame 1, delivery 1'),
+    );
   });
 
   it('accepts a possible delivery with its view', () => {
     expect(checkDelivery([d(1, 1, [7, 10])], d(1, 2, [10]))).toEqual({
-      ok: true, view: { frame: 1, delivery: 2, pinsBefore: [7, 10], standing: [10], pins: 1, foul: false, symbol: '1', split: false, rackBall: 2 },
+      ok: true,
+      view: { frame: 1, delivery: 2, pinsBefore: [7, 10], standing: [10], pins: 1, foul: false, symbol: '1', split: false, rackBall: 2 },
     });
   });
 });
@@ -173,14 +227,20 @@ describe('buildGame: property tests against scoreGame / scorePartialGame (fast-c
           const r = checkDelivery(g.deliveries.slice(0, k), next);
           expect(r).toEqual({ ok: true, view: all[k] });
           const v = all[k];
-          const fullRackFirstBall = v.pinsBefore.length === 10 && (k === 0 || all[k - 1].frame !== v.frame || all[k - 1].symbol === 'X' || all[k - 1].symbol === '/');
+          const fullRackFirstBall =
+            v.pinsBefore.length === 10 &&
+            (k === 0 || all[k - 1].frame !== v.frame || all[k - 1].symbol === 'X' || all[k - 1].symbol === '/');
           expect(v.rackBall).toBe(fullRackFirstBall ? 1 : 2);
           if (v.foul) expect(v.symbol).toBe('F');
           else if (v.pins === v.pinsBefore.length) expect(v.symbol).toBe(fullRackFirstBall ? 'X' : '/');
           else expect(v.symbol).toBe(v.pins === 0 ? '-' : String(v.pins));
           expect(v.split).toBe(!v.foul && fullRackFirstBall && isSplit(v.standing));
         });
-        expect(checkDelivery(g.deliveries, g.deliveries[g.deliveries.length - 1])).toEqual({ ok: false, field: 'frame', reason: 'the game is already complete' });
+        expect(checkDelivery(g.deliveries, g.deliveries[g.deliveries.length - 1])).toEqual({
+          ok: false,
+          field: 'frame',
+          reason: 'the game is already complete',
+        });
       }),
       { numRuns: 200 },
     );

@@ -1,5 +1,13 @@
 import { describe, expect, it } from 'vitest';
-import { CALIBRATION, fitCalibration, rankArsenal, simulateShot, type ArsenalBall, type CalibrationObservation, type HitKind } from '../../../engine/index';
+import {
+  CALIBRATION,
+  fitCalibration,
+  rankArsenal,
+  simulateShot,
+  type ArsenalBall,
+  type CalibrationObservation,
+  type HitKind,
+} from '../../../engine/index';
 import { houseShot, polishedPearl, roughAsymSolid, typicalBowler } from '../fixtures';
 import { mulberry32 as prng } from '../../../shared/random';
 
@@ -10,7 +18,6 @@ import { mulberry32 as prng } from '../../../shared/random';
 // of scale on these lines, so the standard error is about 1/(6·√20) ≈ 0.04 at worst and ±0.08 is two
 // of them. Coverage study (CALIBRATION_STUDY=1, below): 16 fixed lines, 20 noise seeds — pearl at 1.2:
 // mean 1.2000, SD 0.038, interval held the truth 19/20; solid at 0.85: mean 0.8506, SD 0.018, 19/20.
-
 
 /** Box–Muller normal deviates from the PRNG. */
 function gauss(rnd: () => number): number {
@@ -23,7 +30,13 @@ const hitOf = (entryBoard: number): HitKind => {
 };
 
 /** `count` shots of `ball` on lines spread around its pocket line, simulated with `scale`. */
-function observe(ball: ArsenalBall, scale: number, count: number, seed: number, opts: { noise?: number; breakpoints?: boolean; hits?: boolean; spread?: number } = {}): CalibrationObservation[] {
+function observe(
+  ball: ArsenalBall,
+  scale: number,
+  count: number,
+  seed: number,
+  opts: { noise?: number; breakpoints?: boolean; hits?: boolean; spread?: number } = {},
+): CalibrationObservation[] {
   const rnd = prng(seed);
   const line = simulateShot({ ball, bowler: typicalBowler, pattern: houseShot });
   const spread = opts.spread ?? 3;
@@ -38,7 +51,7 @@ function observe(ball: ArsenalBall, scale: number, count: number, seed: number, 
   });
 }
 
-describe('fitCalibration: recovers a known friction scale from the model\'s own shots', () => {
+describe("fitCalibration: recovers a known friction scale from the model's own shots", () => {
   it('0.85 for a rough solid and 1.2 for a polished pearl, within ±0.08, each inside its 95 % interval', () => {
     const observations = [...observe(roughAsymSolid, 0.85, 20, 11), ...observe(polishedPearl, 1.2, 20, 12)];
     const c = fitCalibration({ bowler: typicalBowler, pattern: houseShot, observations });
@@ -49,7 +62,10 @@ describe('fitCalibration: recovers a known friction scale from the model\'s own 
     const pearl = c.perBall.find((p) => p.ballId === polishedPearl.id)!;
     expect(Math.abs(solid.frictionScale - 0.85)).toBeLessThan(0.08);
     expect(Math.abs(pearl.frictionScale - 1.2)).toBeLessThan(0.08);
-    for (const [p, truth] of [[solid, 0.85], [pearl, 1.2]] as const) {
+    for (const [p, truth] of [
+      [solid, 0.85],
+      [pearl, 1.2],
+    ] as const) {
       expect(p.low).toBeLessThan(truth);
       expect(p.high).toBeGreaterThan(truth);
       expect(p.high - p.low).toBeLessThan(0.3);
@@ -58,7 +74,9 @@ describe('fitCalibration: recovers a known friction scale from the model\'s own 
       expect(p.rmsBoardsAfter!).toBeLessThan(1.5); // the noise is 1 board
     }
     expect(c.rmsBoardsAfter!).toBeLessThan(c.rmsBoardsBefore!);
-    expect(c.note).toMatch(/^Friction multiplier fitted per ball from 40 logged shots; calibrated: 2 of 2 balls \(those with at least 12 shots\); model error \d+\.\d → \d+\.\d boards RMS\.$/);
+    expect(c.note).toMatch(
+      /^Friction multiplier fitted per ball from 40 logged shots; calibrated: 2 of 2 balls \(those with at least 12 shots\); model error \d+\.\d → \d+\.\d boards RMS\.$/,
+    );
   }, 120_000);
 
   it('from pocket results alone (no breakpoints, 24 shots on lines spread ±4 boards) 0.85 within ±0.05', () => {
@@ -78,7 +96,15 @@ describe('fitCalibration: recovers a known friction scale from the model\'s own 
       const gamesBowled = k % 3;
       const laydownBoard = line.laydownBoard + (rnd() * 2 - 1) * 3;
       const targetBoard = line.targetBoard + (rnd() * 2 - 1) * 1.8;
-      const p = simulateShot({ ball: roughAsymSolid, bowler: lefty, pattern: houseShot, laydownBoard, targetBoard, gamesBowled, frictionScale: 1.1 });
+      const p = simulateShot({
+        ball: roughAsymSolid,
+        bowler: lefty,
+        pattern: houseShot,
+        laydownBoard,
+        targetBoard,
+        gamesBowled,
+        frictionScale: 1.1,
+      });
       return { ball: roughAsymSolid, laydownBoard, targetBoard, gamesBowled, breakpointBoard: p.breakpoint.board + gauss(rnd) };
     });
     const c = fitCalibration({ bowler: lefty, pattern: houseShot, observations });
@@ -99,9 +125,20 @@ describe('fitCalibration: recovers a known friction scale from the model\'s own 
     });
     const own = fitCalibration({ bowler: typicalBowler, pattern: houseShot, observations });
     expect(Math.abs(own.perBall[0].frictionScale - 1)).toBeLessThan(0.08);
-    const oneSurface = fitCalibration({ bowler: typicalBowler, pattern: houseShot, observations: observations.map(({ lane: _lane, ...o }) => o), lane: { kind: 'synthetic', friction: 'high' } });
+    const oneSurface = fitCalibration({
+      bowler: typicalBowler,
+      pattern: houseShot,
+      observations: observations.map(({ lane: _lane, ...o }) => o),
+      lane: { kind: 'synthetic', friction: 'high' },
+    });
     expect(oneSurface.perBall[0].rmsBoardsAfter!).toBeGreaterThan(own.perBall[0].rmsBoardsAfter!);
-    expect(() => fitCalibration({ bowler: typicalBowler, pattern: houseShot, observations: [{ ...observations[0], lane: { kind: 'clay', friction: 'high' } as never }] })).toThrow(/fitCalibration/);
+    expect(() =>
+      fitCalibration({
+        bowler: typicalBowler,
+        pattern: houseShot,
+        observations: [{ ...observations[0], lane: { kind: 'clay', friction: 'high' } as never }],
+      }),
+    ).toThrow(/fitCalibration/);
   }, 120_000);
 
   it('too few shots: a fit with its interval, but not enough to apply', () => {
@@ -114,16 +151,26 @@ describe('fitCalibration: recovers a known friction scale from the model\'s own 
   }, 120_000);
 
   it('shots with neither a breakpoint nor a usable hit are not counted; no shots gives a note', () => {
-    const c = fitCalibration({ bowler: typicalBowler, pattern: houseShot, observations: [{ ball: roughAsymSolid, laydownBoard: 30, targetBoard: 20, hit: 'miss' }] });
+    const c = fitCalibration({
+      bowler: typicalBowler,
+      pattern: houseShot,
+      observations: [{ ball: roughAsymSolid, laydownBoard: 30, targetBoard: 20, hit: 'miss' }],
+    });
     expect(c).toMatchObject({ shots: 0, enough: false, perBall: [], rmsBoardsBefore: null, rmsBoardsAfter: null });
     expect(c.note).toMatch(/^No usable shots yet/);
   });
 
   it('refuses bad input naming the function', () => {
     const ok = { bowler: typicalBowler, pattern: houseShot, observations: [] as CalibrationObservation[] };
-    expect(() => fitCalibration({ ...ok, observations: 'x' as unknown as CalibrationObservation[] })).toThrow(new TypeError('fitCalibration: observations must be an array, got "x"'));
-    expect(() => fitCalibration({ ...ok, observations: [{ ball: roughAsymSolid, laydownBoard: 60, targetBoard: 20 }] })).toThrow(/^fitCalibration: observations\[0\].laydownBoard 60 is above the maximum 45/);
-    expect(() => fitCalibration({ ...ok, observations: [{ ball: { ...roughAsymSolid, id: '' }, laydownBoard: 30, targetBoard: 20 }] })).toThrow(TypeError);
+    expect(() => fitCalibration({ ...ok, observations: 'x' as unknown as CalibrationObservation[] })).toThrow(
+      new TypeError('fitCalibration: observations must be an array, got "x"'),
+    );
+    expect(() => fitCalibration({ ...ok, observations: [{ ball: roughAsymSolid, laydownBoard: 60, targetBoard: 20 }] })).toThrow(
+      /^fitCalibration: observations\[0\].laydownBoard 60 is above the maximum 45/,
+    );
+    expect(() =>
+      fitCalibration({ ...ok, observations: [{ ball: { ...roughAsymSolid, id: '' }, laydownBoard: 30, targetBoard: 20 }] }),
+    ).toThrow(TypeError);
     expect(() => fitCalibration({ ...ok, minShots: 0 })).toThrow(RangeError);
     expect(() => fitCalibration({ ...ok, bowler: { ...typicalBowler, hand: 'both' as 'left' } })).toThrow(/^fitCalibration/);
   });
@@ -137,50 +184,90 @@ describe('frictionScale in the motion model and rankArsenal', () => {
     expect(simulateShot({ ...base, frictionScale: 1.2 }).breakpoint.board).toBeGreaterThan(p1.breakpoint.board);
     expect(simulateShot({ ...base, frictionScale: 0.85 }).breakpoint.board).toBeLessThan(p1.breakpoint.board);
     expect(simulateShot({ ...base, frictionOverride: 0.1, frictionScale: 2 })).toEqual(simulateShot({ ...base, frictionOverride: 0.2 }));
-    expect(() => simulateShot({ ...base, frictionScale: 0 })).toThrow(/^simulateShot: prepareShot: frictionScale must be in \[0.1, 10\], got 0|^simulateShot: frictionScale must be in/);
+    expect(() => simulateShot({ ...base, frictionScale: 0 })).toThrow(
+      /^simulateShot: prepareShot: frictionScale must be in \[0.1, 10\], got 0|^simulateShot: frictionScale must be in/,
+    );
   });
 
-  it('rankArsenal applies a ball\'s scale only when the calibration (and that ball) has enough shots', () => {
+  it("rankArsenal applies a ball's scale only when the calibration (and that ball) has enough shots", () => {
     const balls = [roughAsymSolid, polishedPearl];
     const plain = rankArsenal({ balls, bowler: typicalBowler, pattern: houseShot });
     const perBall = [
-      { ballId: roughAsymSolid.id, frictionScale: 1.25, low: 1.2, high: 1.3, n: 14, enough: true, rmsBoardsBefore: 3, rmsBoardsAfter: 1, surfaces: ['500 grit'], keptReachable: false },
-      { ballId: polishedPearl.id, frictionScale: 0.8, low: 0.7, high: 0.9, n: 5, enough: false, rmsBoardsBefore: 3, rmsBoardsAfter: 1, surfaces: ['2000 grit polished'], keptReachable: false },
+      {
+        ballId: roughAsymSolid.id,
+        frictionScale: 1.25,
+        low: 1.2,
+        high: 1.3,
+        n: 14,
+        enough: true,
+        rmsBoardsBefore: 3,
+        rmsBoardsAfter: 1,
+        surfaces: ['500 grit'],
+        keptReachable: false,
+      },
+      {
+        ballId: polishedPearl.id,
+        frictionScale: 0.8,
+        low: 0.7,
+        high: 0.9,
+        n: 5,
+        enough: false,
+        rmsBoardsBefore: 3,
+        rmsBoardsAfter: 1,
+        surfaces: ['2000 grit polished'],
+        keptReachable: false,
+      },
     ];
     const calibration = { shots: 19, enough: true, minShots: 12, perBall, rmsBoardsBefore: 3, rmsBoardsAfter: 1, note: '' };
     const cal = rankArsenal({ balls, bowler: typicalBowler, pattern: houseShot, calibration });
     const solid = cal.find((r) => r.id === roughAsymSolid.id)!;
     const pearl = cal.find((r) => r.id === polishedPearl.id)!;
     expect(solid.frictionScale).toBe(1.25);
-    expect(solid.reasons.find((r) => r.rule === 'motion-calibration')?.text).toBe('The ball-motion model is calibrated to your logged shots with this ball: friction ×1.25 (25 % more than modelled).');
+    expect(solid.reasons.find((r) => r.rule === 'motion-calibration')?.text).toBe(
+      'The ball-motion model is calibrated to your logged shots with this ball: friction ×1.25 (25 % more than modelled).',
+    );
     expect(pearl.reasons.some((r) => r.rule === 'motion-calibration')).toBe(false);
     expect(solid.prediction).not.toEqual(plain.find((r) => r.id === roughAsymSolid.id)!.prediction);
     // the prediction is the model's own with that scale (the pocket line solved on the same oil map)
-    expect(solid.prediction).toEqual(simulateShot({ ball: roughAsymSolid, bowler: typicalBowler, pattern: houseShot, frictionScale: 1.25 }));
+    expect(solid.prediction).toEqual(
+      simulateShot({ ball: roughAsymSolid, bowler: typicalBowler, pattern: houseShot, frictionScale: 1.25 }),
+    );
     expect(pearl.frictionScale).toBeUndefined();
     expect(pearl.prediction).toEqual(plain.find((r) => r.id === polishedPearl.id)!.prediction);
     const notEnough = rankArsenal({ balls, bowler: typicalBowler, pattern: houseShot, calibration: { ...calibration, enough: false } });
     expect(notEnough.map((r) => r.frictionScale)).toEqual([undefined, undefined]);
-    expect(() => rankArsenal({ balls, bowler: typicalBowler, pattern: houseShot, calibration: { ...calibration, perBall: [{ ...perBall[0], frictionScale: 50 }] } })).toThrow(
-      new RangeError('rankArsenal: calibration.perBall[0].frictionScale must be in [0.1, 10], got 50'),
-    );
+    expect(() =>
+      rankArsenal({
+        balls,
+        bowler: typicalBowler,
+        pattern: houseShot,
+        calibration: { ...calibration, perBall: [{ ...perBall[0], frictionScale: 50 }] },
+      }),
+    ).toThrow(new RangeError('rankArsenal: calibration.perBall[0].frictionScale must be in [0.1, 10], got 50'));
   }, 60_000);
 });
 
 describe.runIf(process.env.CALIBRATION_STUDY === '1')('fitCalibration coverage study (CALIBRATION_STUDY=1; about a minute)', () => {
-  it.each([{ ball: polishedPearl, truth: 1.2 }, { ball: roughAsymSolid, truth: 0.85 }])('$ball.id at $truth: 20 noise seeds on 16 fixed lines', ({ ball, truth }) => {
-    const lines = observe(ball, truth, 16, 999, { noise: 0 });
-    const est: number[] = [];
-    let covered = 0;
-    for (let seed = 1; seed <= 20; seed++) {
-      const rnd = prng(seed * 7919);
-      const observations = lines.map((o) => ({ ...o, breakpointBoard: (o.breakpointBoard as number) + gauss(rnd) }));
-      const p = fitCalibration({ bowler: typicalBowler, pattern: houseShot, observations }).perBall[0];
-      est.push(p.frictionScale);
-      if (p.low <= truth && truth <= p.high) covered++;
-    }
-    const mean = est.reduce((a, b) => a + b, 0) / est.length;
-    expect(Math.abs(mean - truth)).toBeLessThan(0.02);
-    expect(covered).toBeGreaterThanOrEqual(17); // 95 % of 20 = 19; 17 allows for the binomial spread
-  }, 600_000);
+  it.each([
+    { ball: polishedPearl, truth: 1.2 },
+    { ball: roughAsymSolid, truth: 0.85 },
+  ])(
+    '$ball.id at $truth: 20 noise seeds on 16 fixed lines',
+    ({ ball, truth }) => {
+      const lines = observe(ball, truth, 16, 999, { noise: 0 });
+      const est: number[] = [];
+      let covered = 0;
+      for (let seed = 1; seed <= 20; seed++) {
+        const rnd = prng(seed * 7919);
+        const observations = lines.map((o) => ({ ...o, breakpointBoard: (o.breakpointBoard as number) + gauss(rnd) }));
+        const p = fitCalibration({ bowler: typicalBowler, pattern: houseShot, observations }).perBall[0];
+        est.push(p.frictionScale);
+        if (p.low <= truth && truth <= p.high) covered++;
+      }
+      const mean = est.reduce((a, b) => a + b, 0) / est.length;
+      expect(Math.abs(mean - truth)).toBeLessThan(0.02);
+      expect(covered).toBeGreaterThanOrEqual(17); // 95 % of 20 = 19; 17 allows for the binomial spread
+    },
+    600_000,
+  );
 });

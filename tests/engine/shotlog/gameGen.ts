@@ -14,7 +14,11 @@ export interface Choice {
 
 /** Strikes and spares often (mask 0 clears the rack), fouls about 1 in 15. */
 export const choiceArb: fc.Arbitrary<Choice> = fc.record({
-  mask: fc.oneof({ arbitrary: fc.constant(0), weight: 2 }, { arbitrary: fc.nat(1023), weight: 3 }, { arbitrary: fc.constantFrom(1 << 6, 1 << 9, (1 << 6) | (1 << 9)), weight: 1 }),
+  mask: fc.oneof(
+    { arbitrary: fc.constant(0), weight: 2 },
+    { arbitrary: fc.nat(1023), weight: 3 },
+    { arbitrary: fc.constantFrom(1 << 6, 1 << 9, (1 << 6) | (1 << 9)), weight: 1 },
+  ),
   foul: fc.nat(14).map((x) => x === 0),
 });
 

@@ -10,20 +10,42 @@ import { gameArb } from './gameGen';
 
 type Row = [frame: number, delivery: number, standing: number[], extra?: { foul?: boolean; hit?: HitKind }];
 const sheet: Row[] = [
-  [1, 1, [], { hit: 'pocket' }], [2, 1, [], { hit: 'pocket' }], [3, 1, [], { hit: 'high' }],
-  [4, 1, [4, 7, 8], { hit: 'light' }], [4, 2, [8]],
-  [5, 1, [3, 10], { hit: 'pocket' }], [5, 2, []],
-  [6, 1, [1, 2, 3, 4, 5, 6], { foul: true }], [6, 2, [10]],
+  [1, 1, [], { hit: 'pocket' }],
+  [2, 1, [], { hit: 'pocket' }],
+  [3, 1, [], { hit: 'high' }],
+  [4, 1, [4, 7, 8], { hit: 'light' }],
+  [4, 2, [8]],
+  [5, 1, [3, 10], { hit: 'pocket' }],
+  [5, 2, []],
+  [6, 1, [1, 2, 3, 4, 5, 6], { foul: true }],
+  [6, 2, [10]],
   [7, 1, [], { hit: 'brooklyn' }],
-  [8, 1, [2, 4, 7]], [8, 2, []],
-  [9, 1, [10]], [9, 2, [10]],
-  [10, 1, []], [10, 2, []], [10, 3, [6, 10]],
+  [8, 1, [2, 4, 7]],
+  [8, 2, []],
+  [9, 1, [10]],
+  [9, 2, [10]],
+  [10, 1, []],
+  [10, 2, []],
+  [10, 3, [6, 10]],
 ];
 
-function shots(rows: Row[], over: Partial<ShotRecord> = {}, ball: (r: Row) => string = (r: Row) => (r[1] === 1 || r[0] === 10 ? 'strike-ball' : 'spare-ball')): ShotRecord[] {
+function shots(
+  rows: Row[],
+  over: Partial<ShotRecord> = {},
+  ball: (r: Row) => string = (r: Row) => (r[1] === 1 || r[0] === 10 ? 'strike-ball' : 'spare-ball'),
+): ShotRecord[] {
   return rows.map((r) => ({
-    frame: r[0], delivery: r[1], standing: r[2], foul: r[3]?.foul ?? false, hit: r[3]?.hit ?? null,
-    sessionId: 's1', gameNumber: 1, date: '2026-11-20', ballId: ball(r), surfaceKey: '2000 grit', ...over,
+    frame: r[0],
+    delivery: r[1],
+    standing: r[2],
+    foul: r[3]?.foul ?? false,
+    hit: r[3]?.hit ?? null,
+    sessionId: 's1',
+    gameNumber: 1,
+    date: '2026-11-20',
+    ballId: ball(r),
+    surfaceKey: '2000 grit',
+    ...over,
   }));
 }
 
@@ -70,7 +92,10 @@ describe('shotStats on the World Bowling worked sheet', () => {
   });
 
   it('the same corner pin again and again comes first', () => {
-    const g2 = shots(sheet.map((r): Row => (r[0] === 8 && r[1] === 1 ? [8, 1, [10]] : r[0] === 8 && r[1] === 2 ? [8, 2, []] : r)), { gameNumber: 2 });
+    const g2 = shots(
+      sheet.map((r): Row => (r[0] === 8 && r[1] === 1 ? [8, 1, [10]] : r[0] === 8 && r[1] === 2 ? [8, 2, []] : r)),
+      { gameNumber: 2 },
+    );
     const st = shotStats([...shots(sheet), ...g2]);
     expect(st.leaves[0]).toMatchObject({ name: '10', count: 3 });
     expect(st.games).toBe(2);
@@ -130,7 +155,14 @@ describe('shotStats: property tests on generated games (fast-check)', () => {
   it('the average is scoreGame; strike chances, spare chances and first balls add up to the deliveries', () => {
     fc.assert(
       fc.property(gameArb, (g) => {
-        const recs: ShotRecord[] = g.deliveries.map((d) => ({ ...d, sessionId: 's', gameNumber: 1, date: '2026-01-01', ballId: 'b', surfaceKey: 'polished' }));
+        const recs: ShotRecord[] = g.deliveries.map((d) => ({
+          ...d,
+          sessionId: 's',
+          gameNumber: 1,
+          date: '2026-01-01',
+          ballId: 'b',
+          surfaceKey: 'polished',
+        }));
         const st = shotStats(recs);
         expect(st.average).toBe(scoreGame(g.rolls).total);
         expect(st.strike.n + st.spare.n).toBe(g.deliveries.length);
@@ -139,7 +171,9 @@ describe('shotStats: property tests on generated games (fast-check)', () => {
         const views = buildGame(g.deliveries).frames.flatMap((f) => f.deliveries);
         expect(st.strike.hits).toBe(views.filter((v) => v.symbol === 'X').length);
         expect(st.spare.hits).toBe(views.filter((v) => v.symbol === '/').length);
-        expect(st.leaves.reduce((a, l) => a + l.count, 0)).toBe(views.filter((v) => v.rackBall === 1 && !v.foul && v.symbol !== 'X').length);
+        expect(st.leaves.reduce((a, l) => a + l.count, 0)).toBe(
+          views.filter((v) => v.rackBall === 1 && !v.foul && v.symbol !== 'X').length,
+        );
         const mean = views.filter((v) => v.rackBall === 1).reduce((a, v) => a + v.pins, 0) / st.strike.n;
         expect(st.firstBallAverage.mean).toBeCloseTo(mean, 12);
       }),

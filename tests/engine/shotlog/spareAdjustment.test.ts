@@ -11,9 +11,11 @@ const at = (leave: number[], hand: 'right' | 'left' = 'right', feet = 15, target
 
 describe('spareAdjustment (3-6-9)', () => {
   it('the table: 2/8 → 3, 4 → 6, 7 → 9 boards right; 3/9 → 3, 6 → 6, 10 → 9 boards left; 1 and 5 from the strike line', () => {
-    expect(Object.entries(THREE_SIX_NINE).map(([p, r]) => `${p}:${r.boards}${r.side[0]}`).sort()).toEqual(
-      ['10:9r', '1:0c', '2:3l', '3:3r', '4:6l', '5:0c', '6:6r', '7:9l', '8:3l', '9:3r'],
-    );
+    expect(
+      Object.entries(THREE_SIX_NINE)
+        .map(([p, r]) => `${p}:${r.boards}${r.side[0]}`)
+        .sort(),
+    ).toEqual(['10:9r', '1:0c', '2:3l', '3:3r', '4:6l', '5:0c', '6:6r', '7:9l', '8:3l', '9:3r']);
   });
 
   it('right-hander, strike line 15 → 10: the 10 pin from board 24, the 7 pin from board 6, target kept', () => {
@@ -44,7 +46,9 @@ describe('spareAdjustment (3-6-9)', () => {
     const r = at([10], 'right', 35);
     expect(r).toMatchObject({ feetBoard: 39, feet: { direction: 'left', boards: 4 } });
     expect(r.detail).toMatch(/the approach ends at board 39, so the move is 4 boards instead of 9/);
-    expect(at([10]).detail).toBe('For the 10 the key pin is the 10: move your feet 9 boards left (board 24 instead of 15) and keep your strike target, board 10 at the arrows.');
+    expect(at([10]).detail).toBe(
+      'For the 10 the key pin is the 10: move your feet 9 boards left (board 24 instead of 15) and keep your strike target, board 10 at the arrows.',
+    );
     expect(at([10]).source).toMatch(/^3-6-9 spare system, common practice;/);
   });
 

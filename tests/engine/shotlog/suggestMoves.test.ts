@@ -6,14 +6,32 @@ import { suggestMoves, type HitKind, type ShotRecord } from '../../../engine/ind
 // moves left, light moves right; a left-hander the mirror. 3-6-9 for spares (common practice, C).
 // Thresholds are suggestMoves' own (MOVE_THRESHOLDS).
 
-interface F { hit?: HitKind | null; feet?: number | null; target?: number | null; bp?: number | null; ball?: string; leave?: number[]; spare?: number[]; session?: string }
+interface F {
+  hit?: HitKind | null;
+  feet?: number | null;
+  target?: number | null;
+  bp?: number | null;
+  ball?: string;
+  leave?: number[];
+  spare?: number[];
+  session?: string;
+}
 
 /** One game of frames; each frame a first ball leaving `leave` (default a strike) and, if it left pins, a second ball leaving `spare` (default none). */
 function game(frames: F[], gameNumber = 1, session = 's1', date = '2026-11-20'): ShotRecord[] {
   const out: ShotRecord[] = [];
   frames.forEach((f, i) => {
     const base = { sessionId: f.session ?? session, gameNumber, date, ballId: f.ball ?? 'b1', surfaceKey: '2000 grit' };
-    out.push({ ...base, frame: i + 1, delivery: 1, standing: f.leave ?? [], hit: f.hit ?? null, feetBoard: f.feet === undefined ? 20 : f.feet, targetBoard: f.target === undefined ? 10 : f.target, breakpointBoard: f.bp ?? null });
+    out.push({
+      ...base,
+      frame: i + 1,
+      delivery: 1,
+      standing: f.leave ?? [],
+      hit: f.hit ?? null,
+      feetBoard: f.feet === undefined ? 20 : f.feet,
+      targetBoard: f.target === undefined ? 10 : f.target,
+      breakpointBoard: f.bp ?? null,
+    });
     if ((f.leave ?? []).length > 0) out.push({ ...base, frame: i + 1, delivery: 2, standing: f.spare ?? [] });
   });
   return out;
@@ -24,7 +42,11 @@ describe('suggestMoves: 2-and-1', () => {
   it('right-hander, four high hits on one line: feet 2 and target 1 to the left, from board 20 to 22 and 10 to 11', () => {
     const moves = suggestMoves({ shots: game([{ hit: 'pocket' }, ...n(4, { hit: 'high' })]), hand: 'right' });
     expect(moves).toHaveLength(1);
-    expect(moves[0]).toMatchObject({ kind: 'two-and-one', feet: { direction: 'left', boards: 2 }, target: { direction: 'left', boards: 1 } });
+    expect(moves[0]).toMatchObject({
+      kind: 'two-and-one',
+      feet: { direction: 'left', boards: 2 },
+      target: { direction: 'left', boards: 1 },
+    });
     expect(moves[0].evidence).toBe('the last 4 first balls with a recorded hit on this line were high.');
     expect(moves[0].detail).toMatch(/from board 20 to 22 with the feet and from 10 to 11 at the arrows/);
     expect(moves[0].source).toMatch(/common practice/);
@@ -52,7 +74,9 @@ describe('suggestMoves: 2-and-1', () => {
 
   it('no move for two in a row, a broken streak, or a streak on an earlier line', () => {
     expect(suggestMoves({ shots: game(n(2, { hit: 'high' })), hand: 'right' })).toEqual([]);
-    expect(suggestMoves({ shots: game([{ hit: 'high' }, { hit: 'high' }, { hit: 'pocket' }, { hit: 'high' }]), hand: 'right' })).toEqual([]);
+    expect(suggestMoves({ shots: game([{ hit: 'high' }, { hit: 'high' }, { hit: 'pocket' }, { hit: 'high' }]), hand: 'right' })).toEqual(
+      [],
+    );
     expect(suggestMoves({ shots: game([...n(3, { hit: 'high' }), { hit: 'high', feet: 22, target: 11 }]), hand: 'right' })).toEqual([]);
     expect(suggestMoves({ shots: game([...n(3, { hit: 'high' }), { hit: 'high', ball: 'b2' }]), hand: 'right' })).toEqual([]);
     expect(suggestMoves({ shots: [], hand: 'right' })).toEqual([]);
@@ -69,11 +93,17 @@ describe('suggestMoves: 2-and-1', () => {
   });
 
   it('still high after moving 4 boards in with the same ball this session: suggests a weaker ball or smoother surface', () => {
-    const shots = game([...n(3, { hit: 'high' }), ...n(3, { hit: 'high', feet: 22, target: 11 }), ...n(3, { hit: 'high', feet: 24, target: 12 })]);
+    const shots = game([
+      ...n(3, { hit: 'high' }),
+      ...n(3, { hit: 'high', feet: 22, target: 11 }),
+      ...n(3, { hit: 'high', feet: 24, target: 12 }),
+    ]);
     const moves = suggestMoves({ shots, hand: 'right' });
     expect(moves.map((m) => m.kind)).toEqual(['two-and-one', 'ball-change']);
     expect(moves[1].title).toBe('Try a weaker ball or a smoother surface');
-    expect(moves[1].evidence).toBe('You have already moved 4 boards left with this ball this session (feet board 20 → 24) and the last 3 first balls were still high.');
+    expect(moves[1].evidence).toBe(
+      'You have already moved 4 boards left with this ball this session (feet board 20 → 24) and the last 3 first balls were still high.',
+    );
   });
 });
 
@@ -90,6 +120,8 @@ describe('suggestMoves: spares', () => {
 
   it('refuses bad input naming the function', () => {
     expect(() => suggestMoves({ shots: game([{}]), hand: 'middle' as 'left' })).toThrow(/^suggestMoves: hand must be one of right, left/);
-    expect(() => suggestMoves({ shots: 'x' as unknown as ShotRecord[], hand: 'right' })).toThrow(new TypeError('suggestMoves: shots must be an array, got "x"'));
+    expect(() => suggestMoves({ shots: 'x' as unknown as ShotRecord[], hand: 'right' })).toThrow(
+      new TypeError('suggestMoves: shots must be an array, got "x"'),
+    );
   });
 });

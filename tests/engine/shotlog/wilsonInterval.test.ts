@@ -30,4 +30,3 @@ describe('wilsonInterval (Wilson 1927)', () => {
     expect(() => wilsonInterval(3, 10, -1)).toThrow(new RangeError('wilsonInterval: z must be greater than 0, got -1'));
   });
 });
-
