@@ -2,6 +2,7 @@ import { z } from 'zod';
 import type { ArsenalCoverage, LayoutLabEntry, TrialComparison } from '../engine/index';
 import { engineValue } from './api';
 import { LayoutSchema, PinToPapTextSchema } from './balls';
+import { isSafeName, UNSAFE_NAME_MESSAGE } from './text';
 
 const id = (label: string) =>
   z
@@ -19,13 +20,25 @@ export const TrialArmInputSchema = z
   .object({
     ballId: id('ballId'),
     /** Only shots thrown on this surface ("2000 grit", "polished") count; any surface when left out. */
-    surfaceKey: z.string().trim().min(1, 'Name a surface or leave it out').max(40, 'At most 40 characters').nullable().optional(),
+    surfaceKey: z
+      .string()
+      .trim()
+      .min(1, 'Name a surface or leave it out')
+      .max(40, 'At most 40 characters')
+      .refine(isSafeName, UNSAFE_NAME_MESSAGE)
+      .nullable()
+      .optional(),
   })
   .strict();
 
 export const TrialCreateSchema = z
   .object({
-    name: z.string({ error: 'Give the trial a name' }).trim().min(1, 'Give the trial a name').max(80, 'At most 80 characters'),
+    name: z
+      .string({ error: 'Give the trial a name' })
+      .trim()
+      .min(1, 'Give the trial a name')
+      .max(80, 'At most 80 characters')
+      .refine(isSafeName, UNSAFE_NAME_MESSAGE),
     arms: z
       .array(TrialArmInputSchema, { error: 'Choose the balls to compare' })
       .min(2, 'A trial compares at least two balls')
@@ -81,7 +94,7 @@ export const LayoutLabSchema = z
       .array(
         z
           .object({
-            label: z.string().trim().min(1, 'Name the layout').max(60, 'At most 60 characters'),
+            label: z.string().trim().min(1, 'Name the layout').max(60, 'At most 60 characters').refine(isSafeName, UNSAFE_NAME_MESSAGE),
             pinToPapIn: PinToPapTextSchema,
             drillingAngleDeg: LayoutSchema.shape.drillingAngleDeg,
             valAngleDeg: LayoutSchema.shape.valAngleDeg,

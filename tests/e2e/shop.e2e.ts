@@ -386,7 +386,7 @@ describe('pro shop: a card that asks for authentication, a refund, and what anot
     const { page } = await open();
     await signIn(page, DEMO.lee);
     await page.goto('/orders');
-    await page.getByText(/^No orders yet\./).waitFor();
+    await page.getByText(/^\s*No orders yet\./).waitFor();
     await page.goto(`/orders/${flow.orderId}`);
     await page.getByText('This order does not exist or is not yours.').waitFor();
     expect(await page.getByText(SERVICE_NAME).count()).toBe(0);

@@ -41,6 +41,13 @@ describe('POST /api/trials', () => {
       .send({ name: ' ', arms: [{ ballId: mine.id }, { ballId: mine.id, surfaceKey: '4000 grit' }] });
     expect(unnamed.status).toBe(400);
     expect(errorOf(unnamed.body).fields).toHaveProperty(['body.name']);
+    // a NUL or a text-direction control is refused on its field (a JSONB column cannot even hold the NUL)
+    const nul = await api
+      .post('/api/trials')
+      .set(me.auth)
+      .send({ name: 'Layouts', arms: [{ ballId: mine.id }, { ballId: mine.id, surfaceKey: '\u0000' }] });
+    expect(nul.status).toBe(400);
+    expect(errorOf(nul.body).fields).toHaveProperty(['body.arms.1.surfaceKey']);
     const twice = await api
       .post('/api/trials')
       .set(me.auth)
