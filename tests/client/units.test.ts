@@ -125,7 +125,7 @@ describe('input fields in the bowler’s units (inputConverter)', () => {
     expect(m.in(41)).toBe(Number((41 * M_PER_FT).toFixed(2)));
     expect(Math.abs(m.out(m.in(41))! - 41)).toBeLessThanOrEqual(0.005 / M_PER_FT + 1e-9);
     expect(unitFormatter('metric').weightInput.unit).toBe('kg');
-    expect(unitFormatter('imperial').distanceInput.unit).toBe('ft');
+    expect(inputConverter('distance', 'imperial').in(41)).toBe(41);
   });
 });
 

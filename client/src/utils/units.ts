@@ -172,8 +172,6 @@ export function unitFormatter(units: Units) {
     lengthOut: (shown: number | null) => (shown === null ? null : metric ? Math.round((shown / CM_PER_IN) * 1000) / 1000 : shown),
     /** Weight fields (a ball's weight): pounds ↔ kilograms. */
     weightInput: inputConverter('weight', units),
-    /** Distance fields (down the lane): feet ↔ metres. */
-    distanceInput: inputConverter('distance', units),
   };
 }
 
