@@ -154,6 +154,25 @@ export type CatalogueQuery = z.infer<typeof CatalogueQuerySchema>;
 
 // ---- arsenal ---------------------------------------------------------------------------------------
 
+/** The columns of the arsenal CSV import (header row required, order free), in the order of the template the client offers. */
+export const ARSENAL_CSV_COLUMNS = [
+  'name',
+  'nickname',
+  'weightLb',
+  'coverType',
+  'coreType',
+  'rg',
+  'differential',
+  'intermediateDifferential',
+  'hardnessD',
+  'surfaceGrit',
+  'polished',
+  'pinToPapIn',
+  'drillingAngleDeg',
+  'valAngleDeg',
+  'gamesSinceResurface',
+] as const;
+
 const ballBase = {
   nickname: z.string().trim().max(60, 'At most 60 characters').refine(isSafeName, UNSAFE_NAME_MESSAGE).nullable().optional(),
   weightLb: num('Weight').min(6, 'At least 6 lb').max(18, 'At most 18 lb'),

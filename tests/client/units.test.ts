@@ -1,7 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { CM_PER_IN, KG_PER_LB, KMH_PER_MPH, M_PER_FT, unitFormatter } from '../../client/src/utils/units';
+import { ref } from 'vue';
+import { LENGTH_CLASS_FT } from '../../engine/index';
+import { CM_PER_IN, KG_PER_LB, KMH_PER_MPH, M_PER_FT, inputConverter, unitFormatter } from '../../client/src/utils/units';
 import { breakpointChange } from '../../client/src/utils/whatIf';
 import { layoutText } from '../../client/src/utils/balls';
+import { ballFormSchemas, emptyForm } from '../../client/src/utils/ballForm';
+import { formatLength, lengthClassLabel, patternNumberLines } from '../../client/src/utils/patternNumbers';
 
 /**
  * The display units every screen uses (useUnits → unitFormatter). Reference: the international definitions of the
@@ -78,5 +82,102 @@ describe('texts built with the formatter', () => {
       `${(4.5 * CM_PER_IN).toFixed(1)} cm pin-to-PAP, 50° drilling angle, 40° VAL angle`,
     );
     expect(layoutText(null, unitFormatter('metric'))).toBe('Not drilled yet');
+  });
+});
+
+describe('input fields in the bowler’s units (inputConverter)', () => {
+  const kg = inputConverter('weight', 'metric');
+  const lb = inputConverter('weight', 'imperial');
+  const m = inputConverter('distance', 'metric');
+
+  it('shows a stored weight in kg to 10 g and reads it back to the stored pound within that rounding', () => {
+    for (const pounds of [6, 10, 12, 14, 15, 16, 18]) {
+      const shown = kg.in(pounds)!;
+      expect(shown).toBe(Number((pounds * KG_PER_LB).toFixed(2)));
+      // 0.005 kg of display rounding is 0.011 lb; the stored value keeps two decimals of a pound.
+      expect(Math.abs(kg.out(shown)! - pounds)).toBeLessThanOrEqual(0.005 / KG_PER_LB + 0.005 + 1e-9);
+      // Shown again, the stored value gives the same field value: the field never drifts.
+      expect(kg.in(kg.out(shown))).toBe(shown);
+    }
+    expect(kg.unit).toBe('kg');
+    expect(kg.in(null)).toBeNull();
+    expect(kg.out(null)).toBeNull();
+    expect(kg.out(undefined)).toBeNull();
+  });
+
+  it('leaves pounds as they are for an imperial bowler', () => {
+    expect(lb.unit).toBe('lb');
+    expect(lb.in(15)).toBe(15);
+    expect(lb.out(15)).toBe(15);
+    expect(lb.bounds(6, 18)).toEqual({ min: 6, max: 18 });
+  });
+
+  it('turns a stored range into field limits that stay inside it once converted back', () => {
+    const { min, max } = kg.bounds(6, 18);
+    expect(min).toBe(Math.ceil(6 * KG_PER_LB * 100) / 100);
+    expect(max).toBe(Math.floor(18 * KG_PER_LB * 100) / 100);
+    expect(kg.out(min)!).toBeGreaterThanOrEqual(6);
+    expect(kg.out(max)!).toBeLessThanOrEqual(18);
+  });
+
+  it('converts distances down the lane between feet and metres', () => {
+    expect(m.unit).toBe('m');
+    expect(m.in(41)).toBe(Number((41 * M_PER_FT).toFixed(2)));
+    expect(Math.abs(m.out(m.in(41))! - 41)).toBeLessThanOrEqual(0.005 / M_PER_FT + 1e-9);
+    expect(unitFormatter('metric').weightInput.unit).toBe('kg');
+    expect(inputConverter('distance', 'imperial').in(41)).toBe(41);
+  });
+});
+
+describe('the ball form’s weight rule speaks the bowler’s unit', () => {
+  const form = (weightLb: number) => ({ ...emptyForm(), weightLb });
+
+  it('keeps the stored 6–18 lb rule and words its messages in lb or kg', () => {
+    const imperial = ballFormSchemas(ref(null)).CatalogueFormSchema;
+    const metric = ballFormSchemas(ref(null), inputConverter('weight', 'metric')).CatalogueFormSchema;
+    const message = (schema: typeof imperial, weightLb: number) => {
+      const r = schema.safeParse(form(weightLb));
+      return r.success ? null : r.error.issues.find((i) => i.path[0] === 'weightLb')?.message;
+    };
+    expect(message(imperial, 19)).toBe('At most 18 lb');
+    expect(message(imperial, 5)).toBe('At least 6 lb');
+    expect(message(metric, 19)).toBe(`At most ${Math.floor(18 * KG_PER_LB * 100) / 100} kg`);
+    expect(message(metric, 5)).toBe(`At least ${Math.ceil(6 * KG_PER_LB * 100) / 100} kg`);
+    expect(message(metric, 15)).toBeNull();
+  });
+});
+
+describe('pattern numbers in the bowler’s units', () => {
+  const numbers = {
+    lengthFt: 41,
+    volumeMl: 22.5,
+    forwardMl: 15,
+    reverseMl: 7.5,
+    ratio: 3,
+    lengthClass: 'medium',
+    volumeClass: 'medium',
+    ratioClass: 'challenge',
+  } as const;
+
+  it('gives the length and the length class limits in feet or metres, volumes and ratio unchanged', () => {
+    const metric = unitFormatter('metric');
+    expect(formatLength(41)).toBe('41.0 ft');
+    expect(formatLength(41, metric)).toBe(`${(41 * M_PER_FT).toFixed(1)} m`);
+    const { shortBelowFt, longFromFt } = LENGTH_CLASS_FT;
+    expect(lengthClassLabel('medium')).toBe(`Medium (${shortBelowFt} to under ${longFromFt} ft)`);
+    expect(lengthClassLabel('short', metric)).toBe(`Short (under ${(shortBelowFt * M_PER_FT).toFixed(1)} m)`);
+    expect(lengthClassLabel('medium', metric)).toBe(
+      `Medium (${(shortBelowFt * M_PER_FT).toFixed(1)} to under ${(longFromFt * M_PER_FT).toFixed(1)} m)`,
+    );
+    expect(lengthClassLabel('long', metric)).toBe(`Long (${(longFromFt * M_PER_FT).toFixed(1)} m and more)`);
+
+    const byKey = (units: 'metric' | 'imperial') =>
+      Object.fromEntries(patternNumberLines(numbers, unitFormatter(units)).map((l) => [l.key, l.value]));
+    const [imperialLines, metricLines] = [byKey('imperial'), byKey('metric')];
+    expect(metricLines.length).toBe(`${(41 * M_PER_FT).toFixed(1)} m`);
+    expect(metricLines.lengthClass).toBe(lengthClassLabel('medium', metric));
+    for (const key of ['volume', 'forward', 'reverse', 'ratio', 'volumeClass', 'ratioClass'])
+      expect(metricLines[key]).toBe(imperialLines[key]);
+    expect(Object.values(metricLines).join(' ')).not.toMatch(/\bft\b/);
   });
 });

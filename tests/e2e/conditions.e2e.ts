@@ -306,6 +306,8 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
 
     await page.getByRole('button', { name: 'Duplicate' }).click();
     await page.getByText('Pattern duplicated', { exact: true }).waitFor();
+    // The editor has loaded the copy (its sweeps replace the rows) before the rows are reordered.
+    await eventually(() => page.getByLabel('Pattern name').inputValue()).toBe(`${PATTERN_NAME} (copy)`);
     await expectNumber(page, 'volume', '18.00 mL');
 
     // Reordering with the keyboard: the moved row keeps the focus; the order does not change the numbers.

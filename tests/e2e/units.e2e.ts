@@ -4,7 +4,8 @@ import { apiToken, chooseOption, DEMO, DESKTOP, eventually, screenshot, signIn, 
 
 /**
  * The units preference reaches every screen: a bowler who chose metric on Profile sees km/h, kg, cm and m on the
- * Matchup, Ball, Session and Coach screens (the stored values stay in the trade's units; the page converts them).
+ * Matchup, Ball, Session, Coach, Catalogue and pattern editor screens, and types a ball's weight in kg (the stored
+ * values stay in the trade's units; the page converts them).
  * Expected figures are worked out here from the international definitions (NIST Handbook 44, appendix C):
  * 1 mile = 1.609344 km, 1 lb = 0.45359237 kg, 1 in = 2.54 cm, 1 ft = 0.3048 m.
  */
@@ -38,7 +39,7 @@ async function chooseUnits(email: string, units: 'metric' | 'imperial'): Promise
 const text = async (page: Page, selector: string) =>
   ((await page.locator(selector).first().textContent()) ?? '').replace(/\s+/g, ' ').trim();
 
-describe('units: a metric bowler sees km/h, kg, cm and m on Matchup, Ball, Session and Coach', () => {
+describe('units: a metric bowler sees km/h, kg, cm and m on Matchup, Ball, Session, Coach, Catalogue and the pattern editor', () => {
   it('Matchup: the pattern, the ranking, the lane view and the what-if in metric units', async () => {
     await chooseUnits(DEMO.dana, 'metric');
     const { page } = await open();
@@ -135,5 +136,92 @@ describe('units: a metric bowler sees km/h, kg, cm and m on Matchup, Ball, Sessi
     await page.getByText('Pin-to-PAP (cm)').first().waitFor();
     expect(await page.getByText(/\d\s*mph\b/).count()).toBe(0);
     await screenshot(page, 'units-coach-metric-desktop');
+  });
+
+  it('Catalogue: the ball dialog takes the weight in kg and saves the same pounds; RG and differentials stay in inches', async () => {
+    await chooseUnits(DEMO.dana, 'metric');
+    const token = await apiToken(baseUrl, DEMO.dana);
+    const { page } = await open();
+    await signIn(page, DEMO.dana);
+    await page.goto('/catalogue');
+    await page.getByRole('heading', { level: 1, name: 'Catalogue' }).waitFor();
+    await page
+      .getByTestId('catalogue-units')
+      .filter({ hasText: `${CM_PER_IN.toFixed(2)} cm to the inch` })
+      .waitFor();
+    expect(await text(page, '.catalogue__table thead')).toContain('RG (in)');
+
+    await page
+      .getByRole('button', { name: /^Add .+ to arsenal$/ })
+      .first()
+      .click();
+    const dialog = page.getByRole('dialog', { name: /to your arsenal$/ });
+    const weight = dialog.getByLabel('Weight (kg)');
+    // A new ball starts at 15 lb: 6.80 kg.
+    await eventually(() => weight.inputValue()).toBe((15 * KG_PER_LB).toFixed(2));
+    // The 18 lb limit in kg, kept inside the stored rule.
+    await weight.fill('9');
+    await dialog.getByRole('button', { name: 'Add to arsenal' }).click();
+    await dialog.getByText(`At most ${Math.floor(18 * KG_PER_LB * 100) / 100} kg`).waitFor();
+    // 16 lb typed as 7.26 kg.
+    await weight.fill('7.26');
+    await weight.press('Tab');
+    await dialog.getByLabel('Pin-to-PAP (in)').fill('4 1/2');
+    await dialog.getByLabel('Pin-to-PAP (in)').press('Tab');
+    await dialog
+      .getByTestId('pin-to-pap-metric')
+      .filter({ hasText: `${(4.5 * CM_PER_IN).toFixed(1)} cm` })
+      .waitFor();
+    const nickname = `Metric ${Date.now().toString(36)}`;
+    await dialog.getByLabel('Nickname (optional)').fill(nickname);
+    await screenshot(page, 'units-catalogue-dialog-metric-desktop');
+    await dialog.getByRole('button', { name: 'Add to arsenal' }).click();
+    await page.getByText(`${nickname} is in your arsenal.`).first().waitFor();
+
+    const { json } = await api<{ items: { id: number; nickname: string; weightLb: number }[] }>(
+      'GET',
+      `/arsenal?q=${encodeURIComponent(nickname)}`,
+      token,
+    );
+    const saved = json.items.find((b) => b.nickname === nickname);
+    expect(saved, 'the ball added in kg').toBeDefined();
+    // 7.26 kg is 16.006 lb: stored to 0.01 lb, within the field's 10 g of 16 lb.
+    expect(Math.abs(saved!.weightLb - 7.26 / KG_PER_LB)).toBeLessThanOrEqual(0.005 + 1e-9);
+    expect(Math.abs(saved!.weightLb - 16)).toBeLessThanOrEqual(0.005 / KG_PER_LB + 0.005);
+
+    // Opened again, the field shows the same kilograms.
+    await page.goto(`/arsenal/${saved!.id}`);
+    await page.getByRole('button', { name: 'Edit ball' }).click();
+    const edit = page.getByRole('dialog', { name: new RegExp(`^Edit ${nickname}$`) });
+    await eventually(() => edit.getByLabel('Weight (kg)').inputValue()).toBe('7.26');
+  });
+
+  it('Pattern editor: the length, the length class and the oil map in metres; boards stay boards', async () => {
+    await chooseUnits(DEMO.coach, 'metric');
+    const { page } = await open();
+    await signIn(page, DEMO.coach);
+    await page.goto('/patterns/new');
+    await page.getByRole('heading', { level: 1, name: 'New pattern' }).waitFor();
+    // The new pattern's one sweep runs 0–40 ft: 12.2 m of oil.
+    await page.locator('[data-number="length"] .pattern-numbers__value', { hasText: `${(40 * M_PER_FT).toFixed(1)} m` }).waitFor();
+    expect(await text(page, '[data-number="lengthClass"] .pattern-numbers__value')).toMatch(/^\w+ \(.*\d+\.\d m.*\)$/);
+    await page
+      .getByTestId('sweep-1-endFt-metres')
+      .filter({ hasText: `= ${(40 * M_PER_FT).toFixed(2)} m` })
+      .waitFor();
+
+    const map = page.locator('.lane-oil-map');
+    expect(await text(page, '.lane-oil-map__note.lw-muted')).toContain(
+      `Arrows at ${(15 * M_PER_FT).toFixed(1)} m, dots at ${(7 * M_PER_FT).toFixed(1)} m.`,
+    );
+    expect(await text(page, '.lane-oil-map__note:not(.lw-muted)')).toMatch(
+      new RegExp(`^Oil from the foul line to about ${(40 * M_PER_FT).toFixed(1)} m\\. .* on board \\d+ at \\d+\\.\\d m\\.$`),
+    );
+    await map.getByText('Oil map as a table').click();
+    const rowHeads = (await map.locator('tbody th[scope="row"]').allTextContents()).map((t) => t.trim());
+    expect(rowHeads[1]).toBe(`${(5 * M_PER_FT).toFixed(1)} m`);
+    expect(await text(page, '.lane-oil-map__table thead')).toContain('Board 20');
+    expect(await text(page, '.pattern-numbers')).not.toMatch(/\d\s*ft\b/);
+    await screenshot(page, 'units-pattern-editor-metric-desktop');
   });
 });

@@ -1,6 +1,7 @@
 import type { Ref } from 'vue';
 import { z } from 'zod';
 import { BALL_STATUSES, CoreSpecSchema, CoreTypeSchema, PinToPapTextSchema, SurfaceSchema, type Ball } from '@shared/balls';
+import { inputConverter, type InputConverter } from './units';
 
 /** The arsenal ball dialog's flat form (a ball entered by hand, added from the catalogue, or edited). */
 export interface BallForm {
@@ -44,12 +45,20 @@ export function emptyForm(): BallForm {
   };
 }
 
+/** A ball's weight limits in pounds (the shared `BallCreate` rule: a ball over the USBC limit can be kept, up to 18 lb). */
+const WEIGHT_LB = { min: 6, max: 18 } as const;
+
 /**
  * The dialog's validation: the shared schemas' rules on the flat form. `basePin` is the stored pin-to-PAP and the text
- * it was shown as, saved unchanged while that text is not edited.
+ * it was shown as, saved unchanged while that text is not edited. The form keeps the weight in pounds; `weight` is the
+ * bowler's weight field, whose unit the weight messages speak in ("At most 18 lb" or "At most 8.16 kg").
  */
-export function ballFormSchemas(basePin: Ref<{ text: string; inches: number } | null>) {
+export function ballFormSchemas(
+  basePin: Ref<{ text: string; inches: number } | null>,
+  weight: InputConverter = inputConverter('weight', 'imperial'),
+) {
   const req = (label: string) => `${label} is required`;
+  const shownWeight = weight.bounds(WEIGHT_LB.min, WEIGHT_LB.max);
   const layoutFields = {
     // Text as a pro shop writes it, read by the shared schema (the arsenal CSV reads it the same way); empty = undrilled.
     pinToPapIn: z.string().transform((text, ctx): number | null => {
@@ -68,8 +77,8 @@ export function ballFormSchemas(basePin: Ref<{ text: string; inches: number } | 
     nickname: z.string().trim().max(60, 'At most 60 characters'),
     weightLb: z
       .number({ error: req('Weight') })
-      .min(6, 'At least 6 lb')
-      .max(18, 'At most 18 lb'),
+      .min(WEIGHT_LB.min, `At least ${shownWeight.min} ${weight.unit}`)
+      .max(WEIGHT_LB.max, `At most ${shownWeight.max} ${weight.unit}`),
     surfaceGrit: SurfaceSchema.shape.surfaceGrit,
     polished: z.boolean(),
     gamesSinceResurface: z

@@ -1,11 +1,16 @@
 import { analyzePattern, LENGTH_CLASS_FT, RATIO_BOARDS, RATIO_CLASS, VOLUME_CLASS_ML } from '@engine/index';
 import type { LengthClass, PatternAnalysis, RatioClass, Sweep, VolumeClass } from '@engine/index';
+import { unitFormatter, type UnitFormatter } from './units';
 
 /**
  * The numbers of a pattern as the editor, the public condition page and the publish preview show them.
  * The numbers come from the engine's `analyzePattern`, the very function the server stores as `summary`;
- * this file only formats them.
+ * this file only formats them. Lengths are in the bowler's units (ft or m, `u` from `useUnits()`; feet when none is
+ * given); volumes in mL and ratios are the same for everyone.
  */
+
+type DistanceFormatter = Pick<UnitFormatter, 'units' | 'distance'>;
+const IMPERIAL = unitFormatter('imperial');
 
 /** A pattern's numbers with an unbounded ratio as `null` (the API's JSON-safe summary has the same shape). */
 export interface PatternNumbersInput {
@@ -48,11 +53,14 @@ export function boardRanges(boards: readonly number[]): string {
 /** Which boards the ratio compares, in words (the convention varies, so it is always shown). */
 export const RATIO_RULE = `mean oil per board on boards ${boardRanges(RATIO_BOARDS.middle)} ÷ boards ${boardRanges(RATIO_BOARDS.outside)}`;
 
-export const LENGTH_CLASS_LABELS: Readonly<Record<LengthClass, string>> = {
-  short: `Short (under ${LENGTH_CLASS_FT.shortBelowFt} ft)`,
-  medium: `Medium (${LENGTH_CLASS_FT.shortBelowFt} to under ${LENGTH_CLASS_FT.longFromFt} ft)`,
-  long: `Long (${LENGTH_CLASS_FT.longFromFt} ft and more)`,
-};
+/** A length class in words, its limits in the bowler's units: "Short (under 37 ft)" or "Short (under 11.3 m)". */
+export function lengthClassLabel(cls: LengthClass, u: DistanceFormatter = IMPERIAL): string {
+  const at = (ft: number) => u.distance(ft, u.units === 'metric' ? 1 : 0);
+  const { shortBelowFt, longFromFt } = LENGTH_CLASS_FT;
+  if (cls === 'short') return `Short (under ${at(shortBelowFt)})`;
+  if (cls === 'medium') return `Medium (${at(shortBelowFt).replace(/ \S+$/, '')} to under ${at(longFromFt)})`;
+  return `Long (${at(longFromFt)} and more)`;
+}
 
 export const VOLUME_CLASS_LABELS: Readonly<Record<VolumeClass, string>> = {
   light: `Light (under ${VOLUME_CLASS_ML.lightBelowMl} mL)`,
@@ -80,8 +88,9 @@ export const CLASS_SHORT: Readonly<Record<LengthClass | VolumeClass | RatioClass
 
 const fixed = (value: number, decimals: number): string => value.toFixed(decimals);
 
-export function formatLength(ft: number): string {
-  return `${fixed(ft, 1)} ft`;
+/** A pattern's length: "41.0 ft" or "12.5 m". */
+export function formatLength(ft: number, u: DistanceFormatter = IMPERIAL): string {
+  return u.distance(ft, 1);
 }
 
 export function formatVolume(ml: number): string {
@@ -109,14 +118,14 @@ export interface PatternNumberLine {
 }
 
 /** Every number the editor shows, formatted; the same list feeds the public page and the publish preview. */
-export function patternNumberLines(n: PatternNumbersInput): PatternNumberLine[] {
+export function patternNumberLines(n: PatternNumbersInput, u: DistanceFormatter = IMPERIAL): PatternNumberLine[] {
   return [
-    { key: 'length', term: 'Length', value: formatLength(n.lengthFt), note: 'where the applied oil ends' },
+    { key: 'length', term: 'Length', value: formatLength(n.lengthFt, u), note: 'where the applied oil ends' },
     { key: 'volume', term: 'Volume', value: formatVolume(n.volumeMl), note: formatSplit(n) },
     { key: 'forward', term: 'Forward', value: formatVolume(n.forwardMl) },
     { key: 'reverse', term: 'Reverse', value: formatVolume(n.reverseMl) },
     { key: 'ratio', term: 'Ratio', value: formatRatio(n.ratio), note: RATIO_RULE },
-    { key: 'lengthClass', term: 'Length class', value: LENGTH_CLASS_LABELS[n.lengthClass] },
+    { key: 'lengthClass', term: 'Length class', value: lengthClassLabel(n.lengthClass, u) },
     { key: 'volumeClass', term: 'Volume class', value: VOLUME_CLASS_LABELS[n.volumeClass] },
     { key: 'ratioClass', term: 'Ratio class', value: RATIO_CLASS_LABELS[n.ratioClass] },
   ];

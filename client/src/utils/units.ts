@@ -170,7 +170,42 @@ export function unitFormatter(units: Units) {
     /** An input's value in display units and back (pin-to-PAP fields): inches ↔ centimetres. */
     lengthIn: (inches: number | null) => (inches === null ? null : metric ? Math.round(inches * CM_PER_IN * 10) / 10 : inches),
     lengthOut: (shown: number | null) => (shown === null ? null : metric ? Math.round((shown / CM_PER_IN) * 1000) / 1000 : shown),
+    /** Weight fields (a ball's weight): pounds ↔ kilograms. */
+    weightInput: inputConverter('weight', units),
   };
 }
 
 export type UnitFormatter = ReturnType<typeof unitFormatter>;
+
+/* ---- input fields: a field shows and takes the bowler's unit, the form keeps the stored trade unit ---------------- */
+
+/** Decimals a field shows: 0.01 lb or 0.01 kg (10 g) for a weight, 0.01 ft or 0.01 m for a distance down the lane. */
+export const INPUT_DECIMALS = 2;
+
+/** Stored value → the number a field shows (rounded to the field's decimals, so the field never rewrites it). */
+function toShown(value: number | null, factor: number): number | null {
+  return value === null ? null : round(value * factor, INPUT_DECIMALS);
+}
+/** The number a field holds → the stored value (two decimals of the stored unit, as the API stores a typed value). */
+function fromShown(shown: number | null | undefined, factor: number): number | null {
+  return shown === null || shown === undefined || !Number.isFinite(shown) ? null : round(shown / factor, INPUT_DECIMALS);
+}
+
+/**
+ * The converters of one kind of quantity for input fields: `in(stored)` → shown, `out(shown)` → stored, and
+ * `bounds(min, max)`, a stored range as the field's limits kept inside it (so a shown limit never converts to a value
+ * the stored rule refuses).
+ */
+export function inputConverter(kind: 'weight' | 'distance', units: Units) {
+  const factor = units === 'imperial' ? 1 : kind === 'weight' ? KG_PER_LB : M_PER_FT;
+  const unit = DISPLAY_UNITS[units][kind];
+  const f = 10 ** INPUT_DECIMALS;
+  return {
+    unit,
+    in: (stored: number | null) => toShown(stored, factor),
+    out: (shown: number | null | undefined) => fromShown(shown, factor),
+    bounds: (min: number, max: number) => ({ min: Math.ceil(min * factor * f) / f, max: Math.floor(max * factor * f) / f }),
+  };
+}
+
+export type InputConverter = ReturnType<typeof inputConverter>;

@@ -23,25 +23,8 @@ const ArsenalCsvRowSchema = BallByHandSchema.extend({
   layout: LayoutSchema.extend({ pinToPapIn: PinToPapTextSchema }).nullable().optional(),
 });
 
-/** Lanewright's arsenal CSV columns (header row required; order free). */
-export const ARSENAL_CSV_COLUMNS = [
-  'name',
-  'maker',
-  'nickname',
-  'weightLb',
-  'coverType',
-  'coreType',
-  'rg',
-  'differential',
-  'intermediateDifferential',
-  'hardnessD',
-  'surfaceGrit',
-  'polished',
-  'pinToPapIn',
-  'drillingAngleDeg',
-  'valAngleDeg',
-  'gamesSinceResurface',
-] as const;
+/** Lanewright's arsenal CSV columns (header row required; order free): one list with the client's template. */
+export { ARSENAL_CSV_COLUMNS } from '../../../shared/balls';
 
 const notFound = () => AppError.notFound('Ball');
 

@@ -1,0 +1,83 @@
+import { ref, type Ref } from 'vue';
+import { ElNotification } from 'element-plus';
+import { errorMessage, isApiRequestError } from '@/api/client';
+import { patternsApi, type PatternFileFormat } from '@/api/patterns';
+import { routerPush } from '@/router';
+import { importErrorLines, patternFileName } from '@/utils/patternFiles';
+
+/**
+ * The pattern editor's file actions: duplicate the saved pattern, export it as JSON or CSV, and import a pattern file
+ * (its errors listed by line). Each reports its failure in `actionError`; `busy` names the action under way.
+ */
+export function usePatternFileActions(id: Readonly<Ref<number | null>>, name: Readonly<Ref<string>>) {
+  const busy = ref<'' | 'duplicate' | 'export' | 'import'>('');
+  const actionError = ref('');
+  const importErrors = ref<{ line: number; text: string }[]>([]);
+  const fileInput = ref<HTMLInputElement | null>(null);
+
+  async function duplicate(): Promise<void> {
+    if (id.value === null) return;
+    busy.value = 'duplicate';
+    actionError.value = '';
+    try {
+      const res = await patternsApi.duplicate(id.value);
+      ElNotification({ type: 'success', title: 'Pattern duplicated', message: `${res.item.name} is ready to edit.` });
+      await routerPush('pattern-edit', { params: { id: res.item.id } });
+    } catch (err) {
+      actionError.value = errorMessage(err, 'The pattern could not be duplicated.');
+    } finally {
+      busy.value = '';
+    }
+  }
+
+  async function exportAs(format: PatternFileFormat): Promise<void> {
+    if (id.value === null) return;
+    busy.value = 'export';
+    actionError.value = '';
+    try {
+      const blob = await patternsApi.exportFile(id.value, format);
+      const url = URL.createObjectURL(blob);
+      const a = document.createElement('a');
+      a.href = url;
+      a.download = patternFileName(name.value, format);
+      document.body.appendChild(a);
+      a.click();
+      a.remove();
+      setTimeout(() => URL.revokeObjectURL(url), 1000);
+    } catch (err) {
+      actionError.value = errorMessage(err, 'The pattern could not be exported.');
+    } finally {
+      busy.value = '';
+    }
+  }
+
+  function chooseFile(): void {
+    fileInput.value?.click();
+  }
+
+  async function onFile(event: Event): Promise<void> {
+    const input = event.target as HTMLInputElement;
+    const file = input.files?.[0];
+    input.value = '';
+    if (!file) return;
+    busy.value = 'import';
+    actionError.value = '';
+    importErrors.value = [];
+    try {
+      const res = await patternsApi.importFile(file);
+      ElNotification({ type: 'success', title: 'Pattern imported', message: `${res.item.name} was created from ${file.name}.` });
+      await routerPush('pattern-edit', { params: { id: res.item.id } });
+    } catch (err) {
+      if (isApiRequestError(err) && Object.keys(err.fields).some((k) => k.startsWith('lines.'))) {
+        importErrors.value = importErrorLines(err.fields);
+        actionError.value = `${file.name} was not imported: ${err.message}`;
+      } else {
+        actionError.value = `${file.name} was not imported: ${errorMessage(err, 'the file could not be read.')}`;
+      }
+    } finally {
+      busy.value = '';
+    }
+  }
+
+  return { busy, actionError, importErrors, fileInput, duplicate, exportAs, chooseFile, onFile };
+}
