@@ -1,5 +1,5 @@
 import type { LayerResult, Suggestion } from './types';
-import { clamp, finite } from './internal/checks';
+import { clamp, finite, list, record, show } from './internal/checks';
 
 /** One scoring layer's result for a ball and its weight in the combined score. */
 export interface WeightedLayer {
@@ -29,7 +29,13 @@ export function combineLayers(layers: WeightedLayer[]): LayerResult {
   if (!Array.isArray(layers) || layers.length === 0) throw new RangeError(`${fn}: at least one layer is needed`);
   let wSum = 0;
   let sSum = 0;
-  for (const l of layers) {
+  for (const [i, layer] of layers.entries()) {
+    const l = record(fn, `layer ${i + 1}`, layer) as unknown as WeightedLayer;
+    if (typeof l.name !== 'string') throw new TypeError(`${fn}: layer ${i + 1} needs a string name, got ${show(l.name)}`);
+    const result = record(fn, `result of layer ${l.name}`, l.result);
+    finite(fn, `score of layer ${l.name}`, result.score);
+    list(fn, `reasons of layer ${l.name}`, result.reasons);
+    list(fn, `suggestions of layer ${l.name}`, result.suggestions).forEach((s) => record(fn, `a suggestion of layer ${l.name}`, s));
     const w = finite(fn, `weight of layer ${l.name}`, l.weight);
     if (w <= 0) throw new RangeError(`${fn}: weight of layer ${l.name} must be greater than 0, got ${w}`);
     wSum += w;

@@ -1,4 +1,5 @@
 import type { BallSpec, LayerResult, MatchupContext } from './types';
+import { checkMatchup } from './internal/matchupChecks';
 import { strengthFit, type StrengthFit } from './strengthFit';
 import { suggestChanges } from './suggestChanges';
 
@@ -17,6 +18,7 @@ export const FIT_LAYER_WEIGHT = 0.6;
  * fitLayer(ball, matchupContext(bowler, pattern)).fit.verdict; // => 'suits'
  */
 export function fitLayer(ball: BallSpec, ctx: MatchupContext): LayerResult & { fit: StrengthFit } {
+  checkMatchup('fitLayer', ball, ctx);
   const fit = strengthFit(ball, ctx);
   return { score: fit.score, reasons: fit.reasons, suggestions: suggestChanges(ball, ctx, fit), fit };
 }
