@@ -9,7 +9,8 @@ import { houseShot, longHeavy, roughAsymSolid, typicalBowler } from '../fixtures
  * bowler, a ball, an arsenal, rolls, deliveries, shot records), the same samples with one field broken,
  * and malformed values of every type. engine/README.md's invalid-input policy is the property: a call
  * either returns a result without NaN in it, or throws a TypeError or RangeError whose message starts with
- * a function's name — never another error, never a hang.
+ * the called function's name and ': ' — never another error, never a hang. Every export is held to it, the
+ * building blocks as well as the entry points.
  */
 const REQUIRED_CASES = 10_000;
 /**
