@@ -3,7 +3,7 @@
  * delivery state, built with the 2/|q|² factor so it is exact for the non-unit quaternions of the RK4 stages.
  *
  * Source: the quaternion rotation matrix (rigid-body mechanics). Units: none. Edge cases: q must not be zero;
- * internal to the motion model, unchecked (it runs four times a step). Example: q = (1, 0, 0, 0) → the identity.
+ * internal to the motion model, unchecked (the invariants use it; newtonEulerRhs writes the same matrix out in locals). Example: q = (1, 0, 0, 0) → the identity.
  */
 export function bodyRotation(s: Float64Array, out: Float64Array): void {
   const qw = s[7],
