@@ -4,7 +4,7 @@ import { checkLegality } from './checkLegality';
 import { combineLayers } from './combineLayers';
 import { matchupContext } from './matchupContext';
 import { SCORING_LAYERS } from './scoringLayers';
-import { FIT_SCALE, strengthFit } from './strengthFit';
+import { FIT_SCALE, fitUnchecked } from './strengthFit';
 import { finite, list, oneOf, record, show } from './internal/checks';
 import { validateBallSpec } from './validateBallSpec';
 import { conditionOilMap } from './motion/conditionOilMap';
@@ -39,6 +39,17 @@ export interface RankedPlace {
 
 /** Checks one side of compareRanked: a standing rankArsenal gives, a finite score and a string id. */
 function placeOf(fn: string, name: string, value: unknown): void {
+  const q = value as Partial<RankedPlace> | null;
+  // the well-formed case without building a message (this runs for every comparison of a sort)
+  if (
+    q !== null &&
+    typeof q === 'object' &&
+    (q.standing === undefined || q.standing === 'strike' || q.standing === 'spare' || q.standing === 'illegal') &&
+    typeof q.score === 'number' &&
+    Number.isFinite(q.score) &&
+    typeof q.id === 'string'
+  )
+    return;
   const p = record(fn, name, value);
   if (p.standing !== undefined) oneOf(fn, `${name}.standing`, p.standing, ['strike', 'spare', 'illegal']);
   finite(fn, `${name}.score`, p.score);
@@ -144,7 +155,7 @@ export function rankArsenal(input: RankArsenalInput, options: RankArsenalOptions
         source: 'USBC equipment specifications',
       });
     }
-    const fit = strengthFit(ball, ctx);
+    const fit = fitUnchecked(ball, ctx); // the ball and the matchup were checked above
     const entry: RankedBallWithPrediction = {
       id: ball.id,
       score,

@@ -54,6 +54,11 @@ const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
  */
 export function strengthFit(ball: BallSpec, ctx: MatchupContext): StrengthFit {
   checkMatchup('strengthFit', ball, ctx);
+  return fitUnchecked(ball, ctx);
+}
+
+/** strengthFit without the input checks, for callers that have made them (fitLayer, rankArsenal). */
+export function fitUnchecked(ball: BallSpec, ctx: MatchupContext): StrengthFit {
   const reaction = reactionUnchecked(ball);
   const demand = ctx.demand;
   const gap = round1(reaction.total - demand.total);

@@ -63,6 +63,11 @@ const round1 = (x: number) => Math.round(x * 10) / 10;
 export function suggestChanges(ball: BallSpec, ctx: MatchupContext, fit: StrengthFit): Suggestion[] {
   checkMatchup('suggestChanges', ball, ctx);
   checkFit('suggestChanges', ball, fit);
+  return suggestionsUnchecked(ball, ctx, fit);
+}
+
+/** suggestChanges without the input checks, for callers that have made them (fitLayer). */
+export function suggestionsUnchecked(ball: BallSpec, ctx: MatchupContext, fit: StrengthFit): Suggestion[] {
   const out: Suggestion[] = [];
   if (ball.coverType === 'plastic') {
     out.push({

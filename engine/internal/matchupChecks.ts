@@ -3,9 +3,17 @@ import { validateBallSpec } from '../validateBallSpec';
 import { validateBowlerProfile } from '../validateBowlerProfile';
 import { finite, list, oneOf, record } from './checks';
 
-/** A list of factors (ballReaction's or conditionDemand's): records with a finite `points` each (at most a dozen). */
+/**
+ * A list of factors (ballReaction's or conditionDemand's): records with a finite `points` each (at most a dozen).
+ * The message is built only on a failure (this runs for every ball of a ranking).
+ */
 function factors(fn: string, name: string, value: unknown): void {
-  list(fn, name, value).forEach((f, i) => finite(fn, `${name}[${i}].points`, record(fn, `${name}[${i}]`, f).points));
+  const fs = list(fn, name, value);
+  for (let i = 0; i < fs.length; i++) {
+    const f = fs[i] as { points?: unknown } | null;
+    if (f === null || typeof f !== 'object' || typeof f.points !== 'number' || !Number.isFinite(f.points))
+      finite(fn, `${name}[${i}].points`, record(fn, `${name}[${i}]`, f).points);
+  }
 }
 
 /**

@@ -32,12 +32,26 @@ export function assertInertia(fn: string, inertia: unknown): BallInertia {
   const b = inertia as BallInertia;
   assertNumber(fn, 'inertia.massKg', b.massKg, 1e-6, 100);
   assertNumber(fn, 'inertia.radiusM', b.radiusM, 1e-4, 1);
-  for (const key of ['iLow', 'iHigh', 'iInt'] as const) assertNumber(fn, `inertia.${key}`, b[key], 1e-12, 100);
+  assertNumber(fn, 'inertia.iLow', b.iLow, 1e-12, 100);
+  assertNumber(fn, 'inertia.iHigh', b.iHigh, 1e-12, 100);
+  assertNumber(fn, 'inertia.iInt', b.iInt, 1e-12, 100);
   return b;
 }
 
 /** A pattern-board × foot grid's shape: ftStep > 0, whole rows ≥ 2, 41 columns, and a Float64Array of rows × cols. */
 function assertGrid(fn: string, name: string, ftStep: unknown, rows: unknown, cols: unknown, grid: unknown): void {
+  // the well-formed case without building a message (this runs for every delivery)
+  if (
+    typeof ftStep === 'number' &&
+    ftStep >= 1e-3 &&
+    ftStep <= 5 &&
+    Number.isInteger(rows) &&
+    (rows as number) >= 2 &&
+    cols === 41 &&
+    grid instanceof Float64Array &&
+    grid.length === (rows as number) * 41
+  )
+    return;
   assertNumber(fn, `${name}.ftStep`, ftStep, 1e-3, 5);
   if (!Number.isInteger(rows) || (rows as number) < 2)
     throw new RangeError(`${fn}: ${name}.rows must be a whole number ≥ 2, got ${String(rows)}`);

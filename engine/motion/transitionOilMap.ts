@@ -45,8 +45,11 @@ export function transitionOilMap(
   for (let i = 0; i < track.length; i++) {
     const p: unknown = track[i];
     if (p === null || typeof p !== 'object') throw new TypeError(`${fn}: track point ${i} must be an object, got ${String(p)}`);
-    assertNumber(fn, `track[${i}].ft`, track[i].ft, i === 0 ? -1000 : track[i - 1].ft, 1000);
-    assertNumber(fn, `track[${i}].board`, track[i].board, -100, 140);
+    const { ft, board } = track[i];
+    const minFt = i === 0 ? -1000 : track[i - 1].ft;
+    // the message is built only on a failure (a track has one point a foot)
+    if (!(typeof ft === 'number' && ft >= minFt && ft <= 1000)) assertNumber(fn, `track[${i}].ft`, ft, minFt, 1000);
+    if (!(typeof board === 'number' && board >= -100 && board <= 140)) assertNumber(fn, `track[${i}].board`, board, -100, 140);
   }
   if (options === null || typeof options !== 'object') throw new TypeError(`${fn}: options must be an object, got ${String(options)}`);
   const filmUm = Float64Array.from(map.filmUm);
