@@ -1,3 +1,6 @@
+import { finite, inRange, record, show } from './internal/checks';
+import { laneSurfaceOf } from './motion/laneSurfaceOf';
+import { validateBowlerProfile } from './validateBowlerProfile';
 import type { BowlerProfile, ConditionDemand, DemandFactor, LaneSurface, PatternAnalysis } from './types';
 
 export type { ConditionDemand, DemandFactor };
@@ -71,10 +74,18 @@ export function conditionDemand(input: {
   lane?: LaneSurface;
   gamesBowled?: number;
 }): ConditionDemand {
+  const fn = 'conditionDemand';
   const W = DEMAND_SCALE;
+  record(fn, 'input', input);
   const { analysis: a, bowler: b } = input;
-  const lane = input.lane ?? { kind: 'synthetic', friction: 'medium' };
-  const games = input.gamesBowled ?? 0;
+  const an = record(fn, 'analysis', a);
+  finite(fn, 'analysis.volumeMl', an.volumeMl);
+  finite(fn, 'analysis.lengthFt', an.lengthFt);
+  if (typeof an.ratio !== 'number' || Number.isNaN(an.ratio))
+    throw new TypeError(`${fn}: analysis.ratio must be a number, got ${show(an.ratio)}`);
+  validateBowlerProfile(b, fn);
+  const lane = laneSurfaceOf(fn, input.lane);
+  const games = input.gamesBowled === undefined ? 0 : inRange(fn, 'gamesBowled', input.gamesBowled, 0);
   const factors: DemandFactor[] = [];
   const add = (key: string, points: number, label: string, source: string) => {
     if (Math.abs(points) >= 0.05) factors.push({ key, points: round1(points), label, source });

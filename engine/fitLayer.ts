@@ -1,6 +1,7 @@
 import type { BallSpec, LayerResult, MatchupContext } from './types';
-import { strengthFit, type StrengthFit } from './strengthFit';
-import { suggestChanges } from './suggestChanges';
+import { checkMatchup } from './internal/matchupChecks';
+import { fitUnchecked, type StrengthFit } from './strengthFit';
+import { suggestionsUnchecked } from './suggestChanges';
 
 /** Weight of the fit layer in rankArsenal's combined score (the ball-motion layer has MOTION_LAYER_WEIGHT; Lanewright's choice). */
 export const FIT_LAYER_WEIGHT = 0.6;
@@ -17,6 +18,7 @@ export const FIT_LAYER_WEIGHT = 0.6;
  * fitLayer(ball, matchupContext(bowler, pattern)).fit.verdict; // => 'suits'
  */
 export function fitLayer(ball: BallSpec, ctx: MatchupContext): LayerResult & { fit: StrengthFit } {
-  const fit = strengthFit(ball, ctx);
-  return { score: fit.score, reasons: fit.reasons, suggestions: suggestChanges(ball, ctx, fit), fit };
+  checkMatchup('fitLayer', ball, ctx);
+  const fit = fitUnchecked(ball, ctx);
+  return { score: fit.score, reasons: fit.reasons, suggestions: suggestionsUnchecked(ball, ctx, fit), fit };
 }

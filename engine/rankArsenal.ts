@@ -4,8 +4,8 @@ import { checkLegality } from './checkLegality';
 import { combineLayers } from './combineLayers';
 import { matchupContext } from './matchupContext';
 import { SCORING_LAYERS } from './scoringLayers';
-import { FIT_SCALE, strengthFit } from './strengthFit';
-import { list, record } from './internal/checks';
+import { FIT_SCALE, fitUnchecked } from './strengthFit';
+import { finite, list, oneOf, record, show } from './internal/checks';
 import { validateBallSpec } from './validateBallSpec';
 import { conditionOilMap } from './motion/conditionOilMap';
 import { MOTION_LAYER_WEIGHT, motionLayer, type RankedBallWithPrediction } from './motion/motionLayer';
@@ -37,11 +37,32 @@ export interface RankedPlace {
   id: string;
 }
 
+/** Checks one side of compareRanked: a standing rankArsenal gives, a finite score and a string id. */
+function placeOf(fn: string, name: string, value: unknown): void {
+  const q = value as Partial<RankedPlace> | null;
+  // the well-formed case without building a message (this runs for every comparison of a sort)
+  if (
+    q !== null &&
+    typeof q === 'object' &&
+    (q.standing === undefined || q.standing === 'strike' || q.standing === 'spare' || q.standing === 'illegal') &&
+    typeof q.score === 'number' &&
+    Number.isFinite(q.score) &&
+    typeof q.id === 'string'
+  )
+    return;
+  const p = record(fn, name, value);
+  if (p.standing !== undefined) oneOf(fn, `${name}.standing`, p.standing, ['strike', 'spare', 'illegal']);
+  finite(fn, `${name}.score`, p.score);
+  if (typeof p.id !== 'string') throw new TypeError(`${fn}: ${name}.id must be a string, got ${show(p.id)}`);
+}
+
 /**
  * rankArsenal's order, for anyone who re-orders a ranking after changing one ball's score (the what-if): standing
  * (strike, spare, outside the limits), then score (highest first), then id.
  */
 export function compareRanked(a: RankedPlace, b: RankedPlace): number {
+  placeOf('compareRanked', 'a', a);
+  placeOf('compareRanked', 'b', b);
   const sa = STANDING_ORDER[a.standing ?? 'strike'],
     sb = STANDING_ORDER[b.standing ?? 'strike'];
   return sa - sb || b.score - a.score || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0);
@@ -134,7 +155,7 @@ export function rankArsenal(input: RankArsenalInput, options: RankArsenalOptions
         source: 'USBC equipment specifications',
       });
     }
-    const fit = strengthFit(ball, ctx);
+    const fit = fitUnchecked(ball, ctx); // the ball and the matchup were checked above
     const entry: RankedBallWithPrediction = {
       id: ball.id,
       score,

@@ -1,5 +1,5 @@
 import type { RankArsenalInput, RankedBall } from './types';
-import { list } from './internal/checks';
+import { list, namedErrors, record } from './internal/checks';
 import { rankArsenal } from './rankArsenal';
 
 /**
@@ -21,8 +21,12 @@ export function rankTransition(
   input: Omit<RankArsenalInput, 'gamesBowled'>,
   games: number[] = [0, 3, 6, 9],
 ): { gamesBowled: number; ranking: RankedBall[] }[] {
-  return list('rankTransition', 'games', games).map((g) => ({
-    gamesBowled: g as number,
-    ranking: rankArsenal({ ...input, gamesBowled: g as number }),
-  }));
+  const fn = 'rankTransition';
+  record(fn, 'input', input);
+  return namedErrors(fn, () =>
+    list(fn, 'games', games).map((g) => ({
+      gamesBowled: g as number,
+      ranking: rankArsenal({ ...input, gamesBowled: g as number }),
+    })),
+  );
 }

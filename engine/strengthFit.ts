@@ -1,4 +1,5 @@
 import type { BallSpec, MatchupContext, RuleResult } from './types';
+import { checkMatchup } from './internal/matchupChecks';
 import { reactionUnchecked, type BallReaction } from './ballReaction';
 
 /** How a ball's reaction meets the condition's demand. */
@@ -52,6 +53,12 @@ const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
  * strengthFit(strongSolid2000, houseContext).verdict; // => 'too-strong'
  */
 export function strengthFit(ball: BallSpec, ctx: MatchupContext): StrengthFit {
+  checkMatchup('strengthFit', ball, ctx);
+  return fitUnchecked(ball, ctx);
+}
+
+/** strengthFit without the input checks, for callers that have made them (fitLayer, rankArsenal). */
+export function fitUnchecked(ball: BallSpec, ctx: MatchupContext): StrengthFit {
   const reaction = reactionUnchecked(ball);
   const demand = ctx.demand;
   const gap = round1(reaction.total - demand.total);

@@ -1,5 +1,6 @@
 import type { BallSpec, MatchupContext, Suggestion } from './types';
 import { DEFAULT_BALL_DIAMETER_IN } from './constants';
+import { checkFit, checkMatchup } from './internal/matchupChecks';
 import { reactionUnchecked } from './ballReaction';
 import { DEMAND_SCALE } from './conditionDemand';
 import { FIT_SCALE, type StrengthFit } from './strengthFit';
@@ -60,6 +61,13 @@ const round1 = (x: number) => Math.round(x * 10) / 10;
  * suggestChanges(strongSolid2000, houseCtx, fit)[0]; // => { kind: 'surface', text: 'Go smoother — 4000 grit …', change: { surfaceGrit: 4000, polished: false } }
  */
 export function suggestChanges(ball: BallSpec, ctx: MatchupContext, fit: StrengthFit): Suggestion[] {
+  checkMatchup('suggestChanges', ball, ctx);
+  checkFit('suggestChanges', ball, fit);
+  return suggestionsUnchecked(ball, ctx, fit);
+}
+
+/** suggestChanges without the input checks, for callers that have made them (fitLayer). */
+export function suggestionsUnchecked(ball: BallSpec, ctx: MatchupContext, fit: StrengthFit): Suggestion[] {
   const out: Suggestion[] = [];
   if (ball.coverType === 'plastic') {
     out.push({

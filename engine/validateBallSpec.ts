@@ -1,6 +1,6 @@
 import type { BallSpec, CoverType } from './types';
 import { DEFAULT_BALL_DIAMETER_IN } from './constants';
-import { bool, inRange, oneOf, positive, record } from './internal/checks';
+import { bool, inRange, oneOf, positive, record, callerName } from './internal/checks';
 
 /** The cover types the engine knows, weakest-reading to strongest-reading in oil (common practice). */
 export const COVER_TYPES: readonly CoverType[] = ['plastic', 'urethane', 'reactive-pearl', 'reactive-hybrid', 'reactive-solid'];
@@ -28,6 +28,7 @@ export const COVER_TYPES: readonly CoverType[] = ['plastic', 'urethane', 'reacti
  *   coverType: 'reactive-solid', surfaceGrit: 2000, polished: false }); // passes
  */
 export function validateBallSpec(ball: unknown, fn = 'validateBallSpec'): asserts ball is BallSpec {
+  callerName('validateBallSpec', fn);
   const b = record(fn, 'ball', ball);
   positive(fn, 'weightLb', b.weightLb, 'lb');
   const diameter = b.diameterIn === undefined ? DEFAULT_BALL_DIAMETER_IN : positive(fn, 'diameterIn', b.diameterIn, 'in');

@@ -1,5 +1,5 @@
 import type { BowlerProfile } from './types';
-import { finite, inRange, oneOf, positive, record } from './internal/checks';
+import { finite, inRange, oneOf, positive, record, callerName } from './internal/checks';
 
 /**
  * Plausibility bounds of a bowler profile: speed in mph, rev rate in rpm, angles in degrees.
@@ -22,6 +22,7 @@ export const BOWLER_BOUNDS = { maxSpeedMph: 40, maxRevRpm: 1000, maxAxisDeg: 90 
  * validateBowlerProfile({ hand: 'right', speedMph: 17, revRpm: 350, axisRotationDeg: 45, axisTiltDeg: 15 });
  */
 export function validateBowlerProfile(bowler: unknown, fn = 'validateBowlerProfile'): asserts bowler is BowlerProfile {
+  callerName('validateBowlerProfile', fn);
   const b = record(fn, 'bowler', bowler);
   const B = BOWLER_BOUNDS;
   oneOf(fn, 'hand', b.hand, ['right', 'left'] as const);

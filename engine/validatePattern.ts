@@ -1,6 +1,6 @@
 import type { OilPattern } from './types';
 import { BOARD_COUNT, HEADPIN_FT } from './constants';
-import { inRange, integerInRange, list, oneOf, record } from './internal/checks';
+import { inRange, integerInRange, list, oneOf, record, callerName } from './internal/checks';
 
 /**
  * Checks that a value is a well-formed OilPattern and throws if it is not.
@@ -21,6 +21,7 @@ import { inRange, integerInRange, list, oneOf, record } from './internal/checks'
  * validatePattern({ name: 'Harrow Bay house', sweeps: [] }); // passes
  */
 export function validatePattern(pattern: unknown, fn = 'validatePattern'): asserts pattern is OilPattern {
+  callerName('validatePattern', fn);
   const p = record(fn, 'pattern', pattern);
   if (typeof p.name !== 'string') throw new TypeError(`${fn}: pattern name must be a string, got ${typeof p.name}`);
   const sweeps = list(fn, 'pattern sweeps', p.sweeps);

@@ -81,3 +81,33 @@ export function bool(fn: string, name: string, value: unknown): boolean {
 export function clamp(x: number, lo: number, hi: number): number {
   return x < lo ? lo : x > hi ? hi : x;
 }
+
+/** Throws a TypeError unless `value` is a function. */
+export function func(fn: string, name: string, value: unknown): (...args: never[]) => unknown {
+  if (typeof value !== 'function') throw new TypeError(`${fn}: ${name} must be a function, got ${show(value)}`);
+  return value as (...args: never[]) => unknown;
+}
+
+/**
+ * The caller's function name a shared check puts first in its messages (validateBallSpec's `fn`, …): an
+ * identifier, else a TypeError naming `own`, the function that was given it.
+ */
+export function callerName(own: string, fn: unknown): string {
+  if (typeof fn !== 'string' || !/^[A-Za-z_$][\w$]*$/.test(fn)) throw new TypeError(`${own}: fn must be a function name, got ${show(fn)}`);
+  return fn;
+}
+
+/**
+ * Runs `body` and names the public function `fn` first in any TypeError or RangeError it throws from the
+ * functions it calls (their message kept after it, the error type unchanged), so every message starts with the
+ * name of the function the caller called.
+ */
+export function namedErrors<T>(fn: string, body: () => T): T {
+  try {
+    return body();
+  } catch (e) {
+    if (e instanceof RangeError && !e.message.startsWith(`${fn}: `)) throw new RangeError(`${fn}: ${e.message}`);
+    if (e instanceof TypeError && !e.message.startsWith(`${fn}: `)) throw new TypeError(`${fn}: ${e.message}`);
+    throw e;
+  }
+}

@@ -1,3 +1,4 @@
+import { namedErrors } from '../internal/checks';
 import type { BallSpec, BowlerProfile, LaneSurface, OilPattern } from '../types';
 import { laneSurfaceOf } from './laneSurfaceOf';
 import { assertNumber } from './assertNumber';
@@ -24,12 +25,19 @@ import { transitionOilMap } from './transitionOilMap';
  * Example: `conditionOilMap(pattern, bowler, 3)`.
  */
 export function conditionOilMap(pattern: OilPattern, bowler: BowlerProfile, gamesBowled = 0, lane?: LaneSurface): LaneOilMap {
-  const games = assertNumber('conditionOilMap', 'gamesBowled', gamesBowled, 0, 50);
-  const surface = laneSurfaceOf('conditionOilMap', lane);
-  const fresh = patternOilMap(pattern);
+  const fn = 'conditionOilMap';
+  const games = assertNumber(fn, 'gamesBowled', gamesBowled, 0, 50);
+  const surface = laneSurfaceOf(fn, lane);
+  const fresh = namedErrors(fn, () => patternOilMap(pattern));
   if (games === 0) return fresh;
+  if (bowler === null || typeof bowler !== 'object') throw new TypeError(`${fn}: bowler must be an object, got ${String(bowler)}`);
+  const hand = handSign(bowler.hand, fn);
+  return namedErrors(fn, () => transitioned(fresh, bowler, hand, games, surface));
+}
+
+/** The fresh map after `games` on the pair's track (the reference ball's pocket line for this release). */
+function transitioned(fresh: LaneOilMap, bowler: BowlerProfile, hand: 1 | -1, games: number, surface: LaneSurface): LaneOilMap {
   const ref = K.transitionReferenceBall as BallSpec;
-  const hand = handSign(bowler.hand);
   const shot = shotOnField(ref, bowler, hand, ballInertia(ref), oilFrictionField(fresh, coverFriction(ref, surface)));
   const line = solvePocketLine(shot.run, {}, {}, shot.preview);
   const r = line.result;

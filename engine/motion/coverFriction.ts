@@ -43,6 +43,8 @@ export function coverFriction(
   lane: { friction?: LaneFriction } = {},
 ): CoverFriction {
   const fn = 'coverFriction';
+  if (ball === null || typeof ball !== 'object') throw new TypeError(`${fn}: ball must be an object, got ${String(ball)}`);
+  if (lane === null || typeof lane !== 'object') throw new TypeError(`${fn}: lane must be an object, got ${String(lane)}`);
   if (!COVERS.includes(ball.coverType)) throw new TypeError(`${fn}: unknown coverType ${String(ball.coverType)}`);
   const grit = assertNumber(fn, 'surfaceGrit', ball.surfaceGrit, 1, 1e6);
   if (typeof ball.polished !== 'boolean') throw new TypeError(`${fn}: polished must be a boolean, got ${String(ball.polished)}`);

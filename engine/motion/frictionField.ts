@@ -1,3 +1,4 @@
+import { assertOilMap } from './assertState';
 import type { CoverFriction } from './coverFriction';
 import type { LaneOilMap } from './laneOilMap';
 import { assertNumber } from './assertNumber';
@@ -67,6 +68,8 @@ export function sampledFrictionField(
   options: { ftStep?: number; maxFt?: number } = {},
 ): FrictionField {
   const fn = 'sampledFrictionField';
+  if (typeof mu !== 'function') throw new TypeError(`${fn}: mu must be a function (board, ft) => μ, got ${String(mu)}`);
+  if (options === null || typeof options !== 'object') throw new TypeError(`${fn}: options must be an object, got ${String(options)}`);
   const ftStep = assertNumber(fn, 'ftStep', options.ftStep ?? K.oilMapFtStep, 0.001, 5);
   const maxFt = assertNumber(fn, 'maxFt', options.maxFt ?? K.oilMapMaxFt, 1, 200);
   const rows = Math.floor(maxFt / ftStep + 1e-9) + 1;
@@ -110,7 +113,18 @@ export function oilFrictionField(
   cover: CoverFriction,
   options: { carriedOil?: boolean; frictionScale?: number } = {},
 ): FrictionField {
-  const scale = options.frictionScale === undefined ? 1 : assertNumber('oilFrictionField', 'frictionScale', options.frictionScale, 0.1, 10);
+  const fn = 'oilFrictionField';
+  assertOilMap(fn, map);
+  if (cover === null || typeof cover !== 'object') throw new TypeError(`${fn}: cover must be an object, got ${String(cover)}`);
+  assertNumber(fn, 'cover.muFilm', cover.muFilm, 0, 1);
+  assertNumber(fn, 'cover.muDry', cover.muDry, cover.muFilm, 1);
+  assertNumber(fn, 'cover.filmScaleUm', cover.filmScaleUm, 1e-9, 1e6);
+  if (typeof cover.absorptionTimeS !== 'number' || !(cover.absorptionTimeS > 0))
+    throw new RangeError(`${fn}: cover.absorptionTimeS must be a positive number of seconds, got ${String(cover.absorptionTimeS)}`);
+  if (options === null || typeof options !== 'object') throw new TypeError(`${fn}: options must be an object, got ${String(options)}`);
+  if (options.carriedOil !== undefined && typeof options.carriedOil !== 'boolean')
+    throw new TypeError(`${fn}: carriedOil must be a boolean, got ${String(options.carriedOil)}`);
+  const scale = options.frictionScale === undefined ? 1 : assertNumber(fn, 'frictionScale', options.frictionScale, 0.1, 10);
   const mu0 = cover.muFilm * scale;
   const dMu = (cover.muDry - cover.muFilm) * scale;
   return {

@@ -1,3 +1,5 @@
+import { func, record } from '../internal/checks';
+import { assertNumber } from './assertNumber';
 import type { DeliveryResult } from './integrateDelivery';
 import type { LineTrial } from './solvePocketLine';
 import { MOTION_CALIBRATION as K } from './motionCalibration';
@@ -39,6 +41,12 @@ export function missRoom(
   onLine?: DeliveryResult,
   preview?: (laydownBoard: number, targetBoard: number) => LineTrial,
 ): MissRoom {
+  const fn = 'missRoom';
+  func(fn, 'run', run);
+  assertNumber(fn, 'laydownBoard', laydownBoard, -5, 45);
+  assertNumber(fn, 'targetBoard', targetBoard, -5, 45);
+  if (onLine !== undefined) assertNumber(fn, 'onLine.entryBoard', record(fn, 'onLine', onLine).entryBoard, -1e6, 1e6);
+  if (preview !== undefined) func(fn, 'preview', preview);
   const w = K.pocketHalfWidthBoards;
   const here = onLine ?? run(laydownBoard, targetBoard);
   // With a preview, the misses are read from it, shifted by its offset from the full model on the line itself.

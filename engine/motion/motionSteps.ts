@@ -1,3 +1,4 @@
+import { assertNumber } from './assertNumber';
 import { MOTION_CALIBRATION as K } from './motionCalibration';
 
 /** The integrator's step settings: the step near rolling and the longest step while the ball slides fast, s. */
@@ -21,6 +22,10 @@ export function motionSteps(): MotionSteps {
  * Example: `withMotionSteps({ stepS: 0.001, maxStepS: 0.001 }, () => rankArsenal(input))`.
  */
 export function withMotionSteps<T>(steps: MotionSteps, fn: () => T): T {
+  if (steps === null || typeof steps !== 'object') throw new TypeError(`withMotionSteps: steps must be an object, got ${String(steps)}`);
+  assertNumber('withMotionSteps', 'stepS', steps.stepS, 1e-5, 0.02);
+  assertNumber('withMotionSteps', 'maxStepS', steps.maxStepS, steps.stepS, 0.05);
+  if (typeof fn !== 'function') throw new TypeError(`withMotionSteps: fn must be a function, got ${String(fn)}`);
   const previous = override;
   override = { stepS: steps.stepS, maxStepS: steps.maxStepS };
   try {

@@ -1,3 +1,4 @@
+import { assertOilMap } from './assertState';
 import type { LaneOilMap } from './laneOilMap';
 import { PHYSICAL_CONSTANTS as C } from './physicalConstants';
 
@@ -8,6 +9,7 @@ import { PHYSICAL_CONSTANTS as C } from './physicalConstants';
  * film (10 µL per board-foot) over 0–62 ft at 0.5 ft rows → 39 × 125 × 0.5 × 10 = 24 375 µL.
  */
 export function oilVolumeUl(map: LaneOilMap): number {
+  assertOilMap('oilVolumeUl', map);
   let sum = 0;
   for (let r = 0; r < map.rows; r++) for (let j = 1; j <= 39; j++) sum += map.filmUm[r * map.cols + j];
   return (sum * map.ftStep) / C.filmUmPerMicroliterBoardFt;

@@ -1,3 +1,4 @@
+import { validatePattern } from '../validatePattern';
 import type { OilPattern } from '../types';
 import { oilGrid } from '../oilGrid';
 import type { LaneOilMap } from './laneOilMap';
@@ -16,6 +17,7 @@ import { PHYSICAL_CONSTANTS as C } from './physicalConstants';
  */
 export function patternOilMap(pattern: OilPattern): LaneOilMap {
   const ftStep = K.oilMapFtStep;
+  validatePattern(pattern, 'patternOilMap');
   const grid = oilGrid(pattern, { boardStep: 1, ftStep, maxFt: K.oilMapMaxFt });
   const rows = grid.ft.length,
     cols = 41;

@@ -1,3 +1,4 @@
+import { namedErrors } from '../internal/checks';
 import type { BallSpec, BowlerProfile, LaneSurface, OilPattern } from '../types';
 import { laneSurfaceOf } from './laneSurfaceOf';
 import { assertNumber } from './assertNumber';
@@ -36,11 +37,15 @@ export function prepareShot(
   },
   oilMap?: LaneOilMap,
 ): PreparedShot {
+  return namedErrors('prepareShot', () => prepare(input, oilMap));
+}
+
+function prepare(input: Parameters<typeof prepareShot>[0], oilMap: LaneOilMap | undefined): PreparedShot {
   const fn = 'prepareShot';
   if (input === null || typeof input !== 'object') throw new TypeError(`${fn}: input must be an object, got ${String(input)}`);
   const { ball, bowler } = input;
   if (bowler === null || typeof bowler !== 'object') throw new TypeError(`${fn}: bowler must be an object, got ${String(bowler)}`);
-  const hand = handSign(bowler.hand);
+  const hand = handSign(bowler.hand, fn);
   const inertia = ballInertia(ball);
   const scale = input.frictionScale === undefined ? 1 : assertNumber(fn, 'frictionScale', input.frictionScale, 0.1, 10);
   const lane = laneSurfaceOf(fn, input.lane);

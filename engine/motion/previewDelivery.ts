@@ -1,5 +1,6 @@
 import type { BallInertia } from './ballInertia';
 import type { FrictionField } from './frictionField';
+import { bilinear } from './bilinear';
 import { MOTION_CALIBRATION as K } from './motionCalibration';
 import { PHYSICAL_CONSTANTS as C } from './physicalConstants';
 
@@ -14,25 +15,6 @@ export interface PreviewResult {
 }
 
 const invBw = 1 / C.boardWidthM;
-
-/** Bilinear lookup in a pattern-board × foot grid at lane position (x, y) in metres (as integrateDelivery's). */
-function bilinear(grid: Float64Array, rows: number, cols: number, invRowM: number, x: number, y: number): number {
-  let jf = y * invBw + 20;
-  if (jf < 0) jf = 0;
-  else if (jf > cols - 1) jf = cols - 1;
-  let rf = x * invRowM;
-  if (rf < 0) rf = 0;
-  else if (rf > rows - 1) rf = rows - 1;
-  let j0 = Math.floor(jf),
-    r0 = Math.floor(rf);
-  if (j0 > cols - 2) j0 = cols - 2;
-  if (r0 > rows - 2) r0 = rows - 2;
-  const fj = jf - j0,
-    fr = rf - r0;
-  const a = r0 * cols + j0,
-    b = a + cols;
-  return (1 - fr) * ((1 - fj) * grid[a] + fj * grid[a + 1]) + fr * ((1 - fj) * grid[b] + fj * grid[b + 1]);
-}
 
 /**
  * A fast preview of one delivery for the line search: the ball taken as isotropic (one radius of gyration, the

@@ -29,7 +29,7 @@ export const STATE = Object.freeze({ x: 0, y: 1, vx: 2, vy: 3, wx: 4, wy: 5, wz:
 export function releaseState(ball: BallSpec, bowler: BowlerProfile, laydownBoard: number, targetBoard: number): Float64Array {
   const fn = 'releaseState';
   if (bowler === null || typeof bowler !== 'object') throw new TypeError(`${fn}: bowler must be an object, got ${String(bowler)}`);
-  const h = handSign(bowler.hand);
+  const h = handSign(bowler.hand, fn);
   const V = assertNumber(fn, 'speedMph', bowler.speedMph, 3, 40) * C.mphMs;
   const rpm = assertNumber(fn, 'revRpm', bowler.revRpm, 0, 1000);
   const theta = (assertNumber(fn, 'axisRotationDeg', bowler.axisRotationDeg, 0, 90) * Math.PI) / 180;

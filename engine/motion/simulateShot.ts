@@ -1,3 +1,4 @@
+import { namedErrors } from '../internal/checks';
 import { assertNumber } from './assertNumber';
 import { prepareShot } from './prepareShot';
 import type { ShotPrediction, SimulateShotInput } from './shotPrediction';
@@ -21,14 +22,8 @@ import { toShotPrediction } from './toShotPrediction';
  * Example: `simulateShot({ ball, bowler, pattern }).entryAngleDeg` → about 4–6° for a 300-rpm stroker.
  */
 export function simulateShot(input: SimulateShotInput): ShotPrediction {
-  try {
-    return simulate(input);
-  } catch (e) {
-    // name the public function first, keep the inner function's message and the error type
-    if (e instanceof RangeError && !e.message.startsWith('simulateShot')) throw new RangeError(`simulateShot: ${e.message}`);
-    if (e instanceof TypeError && !e.message.startsWith('simulateShot')) throw new TypeError(`simulateShot: ${e.message}`);
-    throw e;
-  }
+  // name the public function first, keep the inner function's message and the error type
+  return namedErrors('simulateShot', () => simulate(input));
 }
 
 function simulate(input: SimulateShotInput): ShotPrediction {

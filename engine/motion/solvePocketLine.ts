@@ -1,3 +1,5 @@
+import { assertNumber } from './assertNumber';
+import { func, record } from '../internal/checks';
 import type { DeliveryResult } from './integrateDelivery';
 import { MOTION_CALIBRATION as K } from './motionCalibration';
 import { PHYSICAL_CONSTANTS as C } from './physicalConstants';
@@ -73,6 +75,15 @@ export function solvePocketLine(
   hint: PocketLineHint = {},
   preview?: (laydownBoard: number, targetBoard: number) => LineTrial,
 ): PocketLine {
+  const fn = 'solvePocketLine';
+  func(fn, 'run', run);
+  if (preview !== undefined) func(fn, 'preview', preview);
+  const g = record(fn, 'given', given);
+  if (g.laydownBoard !== undefined) assertNumber(fn, 'given.laydownBoard', g.laydownBoard, -5, 45);
+  if (g.targetBoard !== undefined) assertNumber(fn, 'given.targetBoard', g.targetBoard, -5, 45);
+  const hn = record(fn, 'hint', hint);
+  if (hn.launchBoards !== undefined) assertNumber(fn, 'hint.launchBoards', hn.launchBoards, -45, 45);
+  if (hn.targetBoard !== undefined) assertNumber(fn, 'hint.targetBoard', hn.targetBoard, -5, 45);
   if (preview === undefined || given.laydownBoard !== undefined || given.targetBoard !== undefined) return searchLine(run, given, hint);
   // Find the line with the preview, then put the full model's entry on the pocket by moving the laydown (each board
   // of laydown moves the entry about 3 boards); every number reported is the full model's.

@@ -1,3 +1,4 @@
+import { assertOilMap } from './assertState';
 import type { LaneOilMap } from './laneOilMap';
 import { assertNumber } from './assertNumber';
 import { MOTION_CALIBRATION as K } from './motionCalibration';
@@ -39,7 +40,18 @@ export function transitionOilMap(
 ): TransitionResult {
   const fn = 'transitionOilMap';
   assertNumber(fn, 'gamesBowled', gamesBowled, 0, 50);
+  assertOilMap(fn, map);
   if (!Array.isArray(track) || track.length < 2) throw new TypeError(`${fn}: track needs at least 2 points, got ${String(track?.length)}`);
+  for (let i = 0; i < track.length; i++) {
+    const p: unknown = track[i];
+    if (p === null || typeof p !== 'object') throw new TypeError(`${fn}: track point ${i} must be an object, got ${String(p)}`);
+    const { ft, board } = track[i];
+    const minFt = i === 0 ? -1000 : track[i - 1].ft;
+    // the message is built only on a failure (a track has one point a foot)
+    if (!(typeof ft === 'number' && ft >= minFt && ft <= 1000)) assertNumber(fn, `track[${i}].ft`, ft, minFt, 1000);
+    if (!(typeof board === 'number' && board >= -100 && board <= 140)) assertNumber(fn, `track[${i}].board`, board, -100, 140);
+  }
+  if (options === null || typeof options !== 'object') throw new TypeError(`${fn}: options must be an object, got ${String(options)}`);
   const filmUm = Float64Array.from(map.filmUm);
   const out: LaneOilMap = { ...map, filmUm };
   const shots = (gamesBowled * K.bowlersPerPair * K.strikeShotsPerBowlerPerGame) / 2;

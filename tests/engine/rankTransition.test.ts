@@ -22,7 +22,10 @@ describe('rankTransition', () => {
   });
 
   it('throws RangeError naming rankArsenal for a negative count, TypeError for games that are not an array', () => {
-    expect(() => rankTransition(input, [-1])).toThrow(/rankArsenal: gamesBowled must be 0 or more/);
+    expect(() => rankTransition(input, [-1])).toThrow(/^rankTransition: rankArsenal: gamesBowled must be 0 or more/);
+    expect(() => rankTransition({ ...input, balls: undefined as unknown as [] })).toThrow(
+      /^rankTransition: rankArsenal: balls must be an array/,
+    );
     expect(() => rankTransition(input, 3 as unknown as number[])).toThrow(TypeError);
   });
 });

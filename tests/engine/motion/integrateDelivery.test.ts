@@ -318,3 +318,29 @@ describe('integrateDelivery — invariants (rigid-body mechanics: the angular mo
     expect(w1Dev).toBeLessThan(1e-7); // ω₁ constant (rigid-body invariant)
   });
 });
+
+// engine/README.md's invalid-input policy for the kernel's building blocks: the shape of every input is checked
+// first (scalars and lengths), and the message names the function called.
+describe('integrateDelivery and the invariants — malformed input', () => {
+  const ball = asymmetricBall();
+  const s0 = releaseState(ball, referenceBowler(), 20, 12);
+  const inertia = ballInertia(ball);
+  const field = uniformFrictionField(0.2);
+
+  it('refuses a malformed inertia, field, hand or state with the function’s name first', () => {
+    expect(() => integrateDelivery(s0, { ...inertia, iLow: -1 }, field)).toThrow(/^integrateDelivery: inertia.iLow must be in/);
+    expect(() => integrateDelivery(s0, inertia, { ...field, kind: 'wet' as 'oil' })).toThrow(TypeError);
+    expect(() => integrateDelivery(s0, inertia, { ...field, kind: 'sampled' })).toThrow(/^integrateDelivery: field.rows must be/);
+    expect(() => integrateDelivery(s0, inertia, field, { hand: 2 as 1 })).toThrow(/^integrateDelivery: hand must be 1 or -1/);
+    const zeroQ = Float64Array.from(s0).fill(0, STATE.qw);
+    expect(() => integrateDelivery(zeroQ, inertia, field)).toThrow(RangeError);
+    expect(() => kineticEnergy(new Float64Array(3), inertia)).toThrow(/^kineticEnergy: state must be a Float64Array of length 11/);
+    expect(() => contactAngularMomentum(zeroQ, inertia)).toThrow(/^contactAngularMomentum: state's orientation quaternion is zero/);
+  });
+
+  it('passes a valid state through: sliding friction lowers the kinetic energy (energy balance of sliding friction)', () => {
+    const r = integrateDelivery(s0, inertia, field);
+    expect(kineticEnergy(r.finalState, inertia)).toBeLessThan(kineticEnergy(s0, inertia));
+    expect(contactAngularMomentum(s0, inertia).every(Number.isFinite)).toBe(true);
+  });
+});
