@@ -81,8 +81,8 @@ export function integrateDelivery(
     steps = 0;
   const hMin = h;
   while (t < maxT) {
-    h = rec.uPrev * slipStep;
-    if (h < hMin) h = hMin;
+    h = rec.uPrev * slipStep; // NaN when a rolling ball (u 0) meets a frictionless field (slipStep ∞): take hMin
+    if (!(h >= hMin)) h = hMin;
     else if (h > hMax) h = hMax;
     axis.beforeStep(k, h);
     const x0 = s[0],

@@ -273,6 +273,18 @@ describe('integrateDelivery — invariants (rigid-body mechanics: the angular mo
     expect(Math.abs(rL.entryAngleDeg - rR.entryAngleDeg)).toBeLessThan(1e-9);
   });
 
+  it('m/s, ball released rolling on a frictionless lane at the production steps: it keeps its speed and line (Newton’s first law) and every sample is a number', () => {
+    const I = ballInertia(isotropicBall(2.5));
+    const v0 = 25 * I.radiusM;
+    const s = slidingState(v0, 25); // rolling: ω_y R = v exactly, so the slip speed is 0
+    const r = integrateDelivery(s, I, uniformFrictionField(0));
+    expect(r.sampleCount).toBeGreaterThan(10);
+    for (let i = 0; i < r.sampleCount; i++) expect(Math.abs(r.sampleBoard[i] - r.sampleBoard[0])).toBeLessThan(1e-9);
+    expect(r.reachedPins).toBe(true);
+    expect(Math.abs(r.speedAtPinsMph * 0.44704 - v0)).toBeLessThan(1e-9);
+    expect(Math.abs(r.entryAngleDeg)).toBeLessThan(1e-9);
+  });
+
   it('rad/s, symmetric core 2.50/2.55 in on a frictionless lane, 300 rpm, pin 60° from the axis: ω precesses about the pin at 0.609959 rad/s (Euler’s equations: Ω = (1 − k_L²/k_H²)|ω| cos β)', () => {
     const ball = isotropicBall(2.5, { differential: 0.05, layout: { pinToPapIn: ((60 * Math.PI) / 180) * 4.25 } });
     const I = ballInertia(ball);
