@@ -1,5 +1,6 @@
 import { wrap, type Remote } from 'comlink';
 import type { RankArsenalInput, RankedBallWithPrediction } from '@engine/index';
+import { ballToArsenalBall, type Ball } from '@shared/balls';
 import type { EngineWorker } from '@/workers/engine.worker';
 
 let remote: Remote<EngineWorker> | null = null;
@@ -13,6 +14,15 @@ function engineWorker(): Remote<EngineWorker> {
 /** rankArsenal in the engine worker; the input is copied as plain data first (reactive proxies cannot cross to a worker). */
 export async function rankInWorker(input: RankArsenalInput): Promise<RankedBallWithPrediction[]> {
   return engineWorker().rankArsenal(JSON.parse(JSON.stringify(input)) as RankArsenalInput);
+}
+
+/**
+ * One ball ranked in the engine worker on the given condition, as the server's matchup ranks it (a ball's numbers
+ * never depend on the other balls ranked with it): the what-if and the coach's side by side both ask this way.
+ */
+export async function rankOneInWorker(ball: Ball, on: Omit<RankArsenalInput, 'balls'>): Promise<RankedBallWithPrediction | null> {
+  const [ranked] = await rankInWorker({ balls: [ballToArsenalBall(ball)], ...on });
+  return ranked ?? null;
 }
 
 /**

@@ -63,3 +63,16 @@ export function fitWords(fit: { gap: number; verdict: 'too-strong' | 'suits' | '
   if (fit.verdict === 'suits') return 'suits';
   return `${fit.verdict === 'too-strong' ? 'too strong' : 'too weak'} by ${f1(Math.abs(fit.gap))}`;
 }
+
+/** A rank as an English ordinal: 1st, 2nd, 3rd, 4th, 11th, 21st. */
+export function ordinal(n: number): string {
+  return `${n}${n % 10 === 1 && n % 100 !== 11 ? 'st' : n % 10 === 2 && n % 100 !== 12 ? 'nd' : n % 10 === 3 && n % 100 !== 13 ? 'rd' : 'th'}`;
+}
+
+/** The grits both what-ifs offer for a surface. */
+export const WHAT_IF_GRITS: readonly number[] = [360, 500, 800, 1000, 1500, 2000, 3000, 4000, 5000];
+
+/** The grits to offer for a variant: the usual steps, with the ball's own grit sorted in when it is not one of them. */
+export function gritChoices(current: number | null | undefined): readonly number[] {
+  return current && !WHAT_IF_GRITS.includes(current) ? [...WHAT_IF_GRITS, current].sort((m, n) => m - n) : WHAT_IF_GRITS;
+}
