@@ -3,6 +3,7 @@ import { analyzePattern } from '../../engine/index';
 import { DEMO_PATTERNS } from '../../seeders/patterns';
 import { usePatternDraft } from '../../client/src/composables/usePatternDraft';
 import { patternNumberLines } from '../../client/src/utils/patternNumbers';
+import { unitFormatter } from '../../client/src/utils/units';
 
 /**
  * The pattern editor's numbers are the engine's: the editor's draft (the composable the editor view uses,
@@ -29,7 +30,7 @@ describe('pattern editor numbers (usePatternDraft) vs analyzePattern', () => {
       const draft = usePatternDraft();
       draft.load({ id: 1, version: 0, name: demo.name, description: null, sweeps: demo.sweeps });
       const engine = analyzePattern({ name: demo.name, sweeps: demo.sweeps });
-      const lines = Object.fromEntries(patternNumberLines(draft.numbers.value).map((l) => [l.key, l.value]));
+      const lines = Object.fromEntries(patternNumberLines(draft.numbers.value, unitFormatter('imperial')).map((l) => [l.key, l.value]));
       expect(lines.length).toBe(`${engine.lengthFt.toFixed(1)} ft`);
       expect(lines.volume).toBe(`${engine.volumeMl.toFixed(2)} mL`);
       expect(lines.forward).toBe(`${engine.forwardMl.toFixed(2)} mL`);

@@ -161,10 +161,11 @@ describe('pattern numbers in the bowler’s units', () => {
 
   it('gives the length and the length class limits in feet or metres, volumes and ratio unchanged', () => {
     const metric = unitFormatter('metric');
-    expect(formatLength(41)).toBe('41.0 ft');
+    const imperial = unitFormatter('imperial');
+    expect(formatLength(41, imperial)).toBe('41.0 ft');
     expect(formatLength(41, metric)).toBe(`${(41 * M_PER_FT).toFixed(1)} m`);
     const { shortBelowFt, longFromFt } = LENGTH_CLASS_FT;
-    expect(lengthClassLabel('medium')).toBe(`Medium (${shortBelowFt} to under ${longFromFt} ft)`);
+    expect(lengthClassLabel('medium', imperial)).toBe(`Medium (${shortBelowFt} to under ${longFromFt} ft)`);
     expect(lengthClassLabel('short', metric)).toBe(`Short (under ${(shortBelowFt * M_PER_FT).toFixed(1)} m)`);
     expect(lengthClassLabel('medium', metric)).toBe(
       `Medium (${(shortBelowFt * M_PER_FT).toFixed(1)} to under ${(longFromFt * M_PER_FT).toFixed(1)} m)`,

@@ -1,16 +1,15 @@
 import { analyzePattern, LENGTH_CLASS_FT, RATIO_BOARDS, RATIO_CLASS, VOLUME_CLASS_ML } from '@engine/index';
 import type { LengthClass, PatternAnalysis, RatioClass, Sweep, VolumeClass } from '@engine/index';
-import { unitFormatter, type UnitFormatter } from './units';
+import type { UnitFormatter } from './units';
 
 /**
  * The numbers of a pattern as the editor, the public condition page and the publish preview show them.
  * The numbers come from the engine's `analyzePattern`, the very function the server stores as `summary`;
- * this file only formats them. Lengths are in the bowler's units (ft or m, `u` from `useUnits()`; feet when none is
- * given); volumes in mL and ratios are the same for everyone.
+ * this file only formats them. Lengths are in the bowler's units (ft or m, `u` from `useUnits()`, which every caller
+ * passes); volumes in mL and ratios are the same for everyone.
  */
 
 type DistanceFormatter = Pick<UnitFormatter, 'units' | 'distance'>;
-const IMPERIAL = unitFormatter('imperial');
 
 /** A pattern's numbers with an unbounded ratio as `null` (the API's JSON-safe summary has the same shape). */
 export interface PatternNumbersInput {
@@ -54,7 +53,7 @@ export function boardRanges(boards: readonly number[]): string {
 export const RATIO_RULE = `mean oil per board on boards ${boardRanges(RATIO_BOARDS.middle)} ÷ boards ${boardRanges(RATIO_BOARDS.outside)}`;
 
 /** A length class in words, its limits in the bowler's units: "Short (under 37 ft)" or "Short (under 11.3 m)". */
-export function lengthClassLabel(cls: LengthClass, u: DistanceFormatter = IMPERIAL): string {
+export function lengthClassLabel(cls: LengthClass, u: DistanceFormatter): string {
   const at = (ft: number) => u.distance(ft, u.units === 'metric' ? 1 : 0);
   const { shortBelowFt, longFromFt } = LENGTH_CLASS_FT;
   if (cls === 'short') return `Short (under ${at(shortBelowFt)})`;
@@ -89,7 +88,7 @@ export const CLASS_SHORT: Readonly<Record<LengthClass | VolumeClass | RatioClass
 const fixed = (value: number, decimals: number): string => value.toFixed(decimals);
 
 /** A pattern's length: "41.0 ft" or "12.5 m". */
-export function formatLength(ft: number, u: DistanceFormatter = IMPERIAL): string {
+export function formatLength(ft: number, u: DistanceFormatter): string {
   return u.distance(ft, 1);
 }
 
@@ -118,7 +117,7 @@ export interface PatternNumberLine {
 }
 
 /** Every number the editor shows, formatted; the same list feeds the public page and the publish preview. */
-export function patternNumberLines(n: PatternNumbersInput, u: DistanceFormatter = IMPERIAL): PatternNumberLine[] {
+export function patternNumberLines(n: PatternNumbersInput, u: DistanceFormatter): PatternNumberLine[] {
   return [
     { key: 'length', term: 'Length', value: formatLength(n.lengthFt, u), note: 'where the applied oil ends' },
     { key: 'volume', term: 'Volume', value: formatVolume(n.volumeMl), note: formatSplit(n) },
