@@ -1,4 +1,4 @@
-import { QueryTypes, type CreationAttributes, type InferAttributes, type Transaction } from 'sequelize';
+import { Op, QueryTypes, type CreationAttributes, type InferAttributes, type Transaction } from 'sequelize';
 import type { ArsenalQuery, Ball as BallDto, SurfaceEvent as SurfaceEventDto } from '../../../shared/balls';
 import { config } from '../../config/index';
 import { ScopedCache } from '../../lib/changeFeed';
@@ -170,5 +170,9 @@ export const arsenalRepository = {
   },
   addSurfaceEvent(data: CreationAttributes<SurfaceEvent>, transaction?: Transaction): Promise<SurfaceEvent> {
     return SurfaceEvent.create(data, { transaction });
+  },
+  /** The owner's balls of these ids, removed ones too (a logged shot or a trial still names them). */
+  findOwnedManyEvenRemoved(ownerId: number, ids: number[]): Promise<Ball[]> {
+    return Ball.findAll({ where: { ownerId, id: { [Op.in]: ids } }, paranoid: false });
   },
 };
