@@ -1,6 +1,7 @@
 import { Op, QueryTypes, type CreationAttributes, type Transaction } from 'sequelize';
 import type { CoachLink as CoachLinkDto, Plan as PlanDto, StudentSummary } from '../../../shared/coaching';
 import { Ball, CoachLink, Plan, sequelize, User } from '../../models/index';
+import { newestFirstPage } from '../../db/paging';
 
 type LinkWithPeople = CoachLink & { coach?: User | null; student?: User | null };
 type PlanWithRefs = Plan & { coach?: User | null; ball?: Ball | null };
@@ -67,12 +68,7 @@ export const coachingRepository = {
     return CoachLink.findAndCountAll({
       where: { status: { [Op.in]: ['pending', 'active'] }, [Op.or]: mine },
       include: PEOPLE,
-      order: [
-        ['createdAt', 'DESC'],
-        ['id', 'DESC'],
-      ],
-      limit: pageSize,
-      offset: (page - 1) * pageSize,
+      ...newestFirstPage(page, pageSize),
       distinct: true,
     }) as Promise<{ rows: LinkWithPeople[]; count: number }>;
   },
@@ -135,12 +131,7 @@ export const coachingRepository = {
     return Plan.findAndCountAll({
       where,
       include: PLAN_REFS,
-      order: [
-        ['createdAt', 'DESC'],
-        ['id', 'DESC'],
-      ],
-      limit: pageSize,
-      offset: (page - 1) * pageSize,
+      ...newestFirstPage(page, pageSize),
       distinct: true,
     }) as Promise<{
       rows: PlanWithRefs[];

@@ -1,5 +1,6 @@
 import { Op, type CreationAttributes } from 'sequelize';
 import { Ball, BallModel, Pattern, Trial } from '../../models/index';
+import { NEWEST_FIRST } from '../../db/paging';
 
 /** The rows the decisions read and write: trials, the balls a coverage weighs, the catalogue it suggests from, pattern names. */
 export const decisionsRepository = {
@@ -10,10 +11,7 @@ export const decisionsRepository = {
   trialsOf(userId: number, limit: number): Promise<Trial[]> {
     return Trial.findAll({
       where: { userId },
-      order: [
-        ['createdAt', 'DESC'],
-        ['id', 'DESC'],
-      ],
+      order: NEWEST_FIRST,
       limit,
     });
   },
