@@ -225,6 +225,24 @@ export const arsenalRepository = {
   addSurfaceEvent(data: CreationAttributes<SurfaceEvent>, transaction?: Transaction): Promise<SurfaceEvent> {
     return SurfaceEvent.create(data, { transaction });
   },
+  /** Adds a ball with its first surface event, which records the surface it starts on. */
+  async createWithFirstSurface(data: BallCreation, note: string | null, transaction?: Transaction): Promise<Ball> {
+    const ball = await Ball.create(data, { transaction });
+    await SurfaceEvent.create(
+      {
+        ballId: ball.id,
+        fromGrit: null,
+        fromPolished: null,
+        toGrit: ball.surfaceGrit,
+        toPolished: ball.polished,
+        at: new Date(),
+        byUserId: data.ownerId,
+        note,
+      },
+      { transaction },
+    );
+    return ball;
+  },
   /** The owner's balls of these ids, removed ones too (a logged shot or a trial still names them). */
   findOwnedManyEvenRemoved(ownerId: number, ids: number[]): Promise<Ball[]> {
     return Ball.findAll({ where: { ownerId, id: { [Op.in]: ids } }, paranoid: false });

@@ -88,7 +88,7 @@ export const arsenalService = {
       } else {
         data = handEnteredBall(ownerId, input);
       }
-      return toBallDto(await addWithFirstSurface(ownerId, data, 'Added to the arsenal', transaction));
+      return toBallDto(await arsenalRepository.createWithFirstSurface(data, 'Added to the arsenal', transaction));
     });
   },
 
@@ -235,33 +235,11 @@ export const arsenalService = {
     return sequelize.transaction(async (transaction) => {
       const items: BallDto[] = [];
       for (const input of rows) {
-        items.push(toBallDto(await addWithFirstSurface(ownerId, handEnteredBall(ownerId, input), 'Imported from CSV', transaction)));
+        items.push(
+          toBallDto(await arsenalRepository.createWithFirstSurface(handEnteredBall(ownerId, input), 'Imported from CSV', transaction)),
+        );
       }
       return { imported: items.length, items };
     });
   },
 };
-
-/** Adds a ball to the arsenal with its first surface event, which records the surface it starts on. */
-async function addWithFirstSurface(
-  ownerId: number,
-  data: Parameters<typeof arsenalRepository.create>[0],
-  note: string,
-  transaction: Parameters<typeof arsenalRepository.create>[1],
-) {
-  const ball = await arsenalRepository.create(data, transaction);
-  await arsenalRepository.addSurfaceEvent(
-    {
-      ballId: ball.id,
-      fromGrit: null,
-      fromPolished: null,
-      toGrit: ball.surfaceGrit,
-      toPolished: ball.polished,
-      at: new Date(),
-      byUserId: ownerId,
-      note,
-    },
-    transaction,
-  );
-  return ball;
-}
