@@ -3,6 +3,9 @@ import type { CoachLink as CoachLinkDto, Plan as PlanDto, StudentSummary } from 
 import { Ball, CoachLink, Plan, sequelize, User } from '../../models/index';
 import { newestFirstPage } from '../../db/paging';
 
+/** Advisory-lock namespace of the invitation counter (any constant unique to this use). */
+const INVITE_LOCK_NS = 7141;
+
 type LinkWithPeople = CoachLink & { coach?: User | null; student?: User | null };
 type PlanWithRefs = Plan & { coach?: User | null; ball?: Ball | null };
 
@@ -73,6 +76,10 @@ export const coachingRepository = {
     }) as Promise<{ rows: LinkWithPeople[]; count: number }>;
   },
   /** Invitations a coach sent since `since` (withdrawn ones included). */
+  /** Holds a coach's invitations for the rest of the transaction (a transaction-scoped advisory lock per coach). */
+  async lockInvitationsOf(coachId: number, transaction: Transaction): Promise<void> {
+    await sequelize.query('SELECT pg_advisory_xact_lock(:ns, :coachId)', { replacements: { ns: INVITE_LOCK_NS, coachId }, transaction });
+  },
   invitationsSince(coachId: number, since: Date, transaction: Transaction): Promise<number> {
     return CoachLink.count({ where: { coachId, createdAt: { [Op.gte]: since } }, transaction });
   },
