@@ -4,24 +4,14 @@
  * the same 40 shots as pocket results only. The bench name reports what the fit recovered.
  */
 import type { Bench } from './run';
-import { BENCH_BOWLER, BENCH_HOUSE_PATTERN } from './lib/benchHouse';
+import { BENCH_BOWLER, BENCH_HOUSE_PATTERN, BENCH_STRONG_SOLID } from './lib/benchHouse';
 import { fitCalibration, simulateShot } from '../engine/index';
 import type { ArsenalBall, CalibrationObservation } from '../engine/index';
 import { mulberry32 as prng } from '../shared/random';
 
 const pattern = BENCH_HOUSE_PATTERN;
 const bowler = BENCH_BOWLER;
-const solid: ArsenalBall = {
-  id: 'bench-solid',
-  weightLb: 15,
-  rg: 2.49,
-  differential: 0.052,
-  intermediateDifferential: 0.014,
-  coverType: 'reactive-solid',
-  surfaceGrit: 2000,
-  polished: false,
-  layout: { pinToPapIn: 3.4, valAngleDeg: 45 },
-};
+const solid: ArsenalBall = { id: 'bench-solid', ...BENCH_STRONG_SOLID };
 const pearl: ArsenalBall = {
   id: 'bench-pearl',
   weightLb: 15,

@@ -4,7 +4,7 @@
  * bench names, and rankArsenal for 15 balls including the pocket solver and miss room.
  */
 import type { Bench } from './run';
-import { BENCH_BOWLER, BENCH_HOUSE_PATTERN } from './lib/benchHouse';
+import { BENCH_BOWLER, BENCH_HOUSE_PATTERN, BENCH_STRONG_SOLID } from './lib/benchHouse';
 import {
   ballInertia,
   conditionOilMap,
@@ -20,16 +20,7 @@ import type { ArsenalBall, BallSpec, BowlerProfile } from '../engine/index';
 
 const pattern = BENCH_HOUSE_PATTERN;
 const bowler = BENCH_BOWLER;
-const strong: BallSpec = {
-  weightLb: 15,
-  rg: 2.49,
-  differential: 0.052,
-  intermediateDifferential: 0.014,
-  coverType: 'reactive-solid',
-  surfaceGrit: 2000,
-  polished: false,
-  layout: { pinToPapIn: 3.4, valAngleDeg: 45 },
-};
+const strong = BENCH_STRONG_SOLID;
 
 // One delivery: the oil map with the oil carried on the ball's track, the default step.
 const inertia = ballInertia(strong);
