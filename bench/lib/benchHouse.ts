@@ -1,4 +1,5 @@
 import type { BallSpec, BowlerProfile, OilPattern, Sweep } from '../../engine/index';
+import { strokerBowler, strongBall } from '../../tests/engine/motion/fixtures';
 
 /** A forward sweep from the foul line, 60 µL per board per crossing: [from board, to board, end ft, crossings]. */
 type Forward = readonly [fromBoard: number, toBoard: number, endFt: number, crossings: number];
@@ -20,17 +21,8 @@ export const BENCH_HOUSE_PATTERN: OilPattern = {
   ).map(forward),
 };
 
-/** The right-handed bowler of the motion and calibration benchmarks. */
-export const BENCH_BOWLER: BowlerProfile = { hand: 'right', speedMph: 17.5, revRpm: 320, axisRotationDeg: 45, axisTiltDeg: 12 };
+/** The right-handed stroker of the motion tests (tests/engine/motion/fixtures.ts), also the benchmarks' bowler. */
+export const BENCH_BOWLER: BowlerProfile = strokerBowler();
 
-/** The strong solid ball of the motion and calibration benchmarks. */
-export const BENCH_STRONG_SOLID: BallSpec = {
-  weightLb: 15,
-  rg: 2.49,
-  differential: 0.052,
-  intermediateDifferential: 0.014,
-  coverType: 'reactive-solid',
-  surfaceGrit: 2000,
-  polished: false,
-  layout: { pinToPapIn: 3.4, valAngleDeg: 45 },
-};
+/** The strong asymmetric solid of the motion tests, also the benchmarks' strong ball. */
+export const BENCH_STRONG_SOLID: BallSpec = strongBall();
