@@ -4,36 +4,14 @@
  * the same 40 shots as pocket results only. The bench name reports what the fit recovered.
  */
 import type { Bench } from './run';
+import { BENCH_BOWLER, BENCH_HOUSE_PATTERN, BENCH_STRONG_SOLID } from './lib/benchHouse';
 import { fitCalibration, simulateShot } from '../engine/index';
-import type { ArsenalBall, BowlerProfile, CalibrationObservation, OilPattern, Sweep } from '../engine/index';
+import type { ArsenalBall, CalibrationObservation } from '../engine/index';
 import { mulberry32 as prng } from '../shared/random';
 
-const sweep = (fromBoard: number, toBoard: number, endFt: number, crossings: number): Sweep => ({
-  direction: 'forward',
-  fromBoard,
-  toBoard,
-  startFt: 0,
-  endFt,
-  crossings,
-  microlitersPerBoard: 60,
-});
-/** The invented 40 ft house-style pattern of bench/motion.bench.ts. */
-const pattern: OilPattern = {
-  name: 'Bench House 40',
-  sweeps: [sweep(2, 38, 40, 2), sweep(8, 32, 38, 4), sweep(12, 28, 36, 6), sweep(15, 25, 32, 4)],
-};
-const bowler: BowlerProfile = { hand: 'right', speedMph: 17.5, revRpm: 320, axisRotationDeg: 45, axisTiltDeg: 12 };
-const solid: ArsenalBall = {
-  id: 'bench-solid',
-  weightLb: 15,
-  rg: 2.49,
-  differential: 0.052,
-  intermediateDifferential: 0.014,
-  coverType: 'reactive-solid',
-  surfaceGrit: 2000,
-  polished: false,
-  layout: { pinToPapIn: 3.4, valAngleDeg: 45 },
-};
+const pattern = BENCH_HOUSE_PATTERN;
+const bowler = BENCH_BOWLER;
+const solid: ArsenalBall = { id: 'bench-solid', ...BENCH_STRONG_SOLID };
 const pearl: ArsenalBall = {
   id: 'bench-pearl',
   weightLb: 15,

@@ -11,17 +11,12 @@
  * Distinct inputs (pattern × gamesBowled) keep the ranking cache from answering. Written to bench/results.json
  * under "engineLoad".
  */
-import { spawn, spawnSync } from 'node:child_process';
-import fs from 'node:fs';
+import type { ChildProcess } from 'node:child_process';
 import os from 'node:os';
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { migrateAndSeed, serverErrors, signIn, startServer, stopAll, throwawayCluster, writeResults } from './lib/benchServer';
 import { productionEnv } from './lib/productionEnv';
-import { freePort, makeTempClusterDir, startCluster, stopCluster } from '../scripts/lib/pg.mjs';
+import { freePort } from '../scripts/lib/pg.mjs';
 
-const here = path.dirname(fileURLToPath(import.meta.url));
-const root = path.resolve(here, '..');
-const bin = (b: string) => path.join(root, 'node_modules', '.bin', b);
 const IDLE_S = Number(process.env.BENCH_IDLE_S ?? 90);
 const DURATION_S = Number(process.env.BENCH_DURATION ?? 30);
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 50);
@@ -32,11 +27,6 @@ interface Answer {
   status: number; // 0 = network error, -1 = client timeout
   ms: number;
   retryAfter: string | null;
-}
-
-function run(cmd: string, args: string[], env: NodeJS.ProcessEnv): void {
-  const r = spawnSync(cmd, args, { cwd: root, env, encoding: 'utf8' });
-  if (r.status !== 0) throw new Error(`${cmd} ${args.join(' ')} failed:\n${r.stdout}\n${r.stderr}`);
 }
 
 async function send(url: string, init: RequestInit): Promise<Answer> {
@@ -89,35 +79,16 @@ function summary(answers: Answer[]) {
 }
 
 async function main(): Promise<void> {
-  const dir = makeTempClusterDir('lanewright-engine-load-');
-  let server: ReturnType<typeof spawn> | null = null;
+  const { dir, adminUrl: url } = await throwawayCluster('lanewright-engine-load-');
+  let server: ChildProcess | null = null;
   try {
-    const url = await startCluster({ dataDir: `${dir}/pg`, port: await freePort(), log: () => undefined });
     const port = await freePort();
     const env = productionEnv(url, `http://127.0.0.1:${port}`);
-    run(bin('tsx'), ['server/db/migrate.ts', 'up'], env);
-    run(bin('tsx'), ['seeders/index.ts'], { ...env, NODE_ENV: 'test' }); // the demo data, loaded as a test database would be
-    let out = '';
-    server = spawn(bin('tsx'), ['server/index.ts'], {
-      cwd: root,
-      env: { ...env, PORT: String(port), RATE_LIMIT_AUTH: '100000' },
-      stdio: ['ignore', 'pipe', 'pipe'],
-    });
-    server.stdout!.on('data', (d: Buffer) => (out += d.toString()));
-    server.stderr!.on('data', (d: Buffer) => (out += d.toString()));
-    const base = `http://127.0.0.1:${port}`;
-    for (let i = 0; i < 150; i++) {
-      if ((await send(`${base}/api/health`, {})).status === 200) break;
-      await new Promise((r) => setTimeout(r, 200));
-    }
-    const login = (await (
-      await fetch(`${base}/api/auth/login`, {
-        method: 'POST',
-        headers: { 'content-type': 'application/json' },
-        body: JSON.stringify({ email: 'dana@copperline.example', password: 'lanewright-demo' }),
-      })
-    ).json()) as { token: string };
-    const headers = { authorization: `Bearer ${login.token}`, 'content-type': 'application/json' };
+    migrateAndSeed(env);
+    const started = await startServer({ env: { ...env, RATE_LIMIT_AUTH: '100000' }, port, tries: 150, collect: true });
+    server = started.server;
+    const { base, output } = started;
+    const headers = await signIn(base, 'dana@copperline.example');
     const patterns = ((await (await fetch(`${base}/api/patterns`, { headers })).json()) as { items: { id: number }[] }).items.map(
       (p) => p.id,
     );
@@ -190,18 +161,9 @@ async function main(): Promise<void> {
         ? `NOT MET:\n  ${failures.join('\n  ')}`
         : 'targets met: no request past 10 s, refusals are 503 with Retry-After, health p95 < 200 ms',
     );
-    if (failures.length)
-      console.log(
-        out
-          .split('\n')
-          .filter((x) => x.includes('"level":50'))
-          .slice(0, 5)
-          .join('\n'),
-      );
+    if (failures.length) console.log(serverErrors(output()));
 
-    const file = path.join(here, 'results.json');
-    const prev = fs.existsSync(file) ? (JSON.parse(fs.readFileSync(file, 'utf8')) as Record<string, unknown>) : {};
-    const engineLoad = {
+    writeResults('engineLoad', {
       date: new Date().toISOString(),
       machine: { cpus: os.cpus().length, cpu: os.cpus()[0]?.model, node: process.version },
       idleS: IDLE_S,
@@ -212,15 +174,10 @@ async function main(): Promise<void> {
       sustained: load,
       health: healthFig,
       failures,
-    };
-    fs.writeFileSync(file, `${JSON.stringify({ ...prev, engineLoad }, null, 2)}\n`);
-    console.log('wrote bench/results.json (engineLoad)');
+    });
     if (failures.length) process.exitCode = 1;
   } finally {
-    server?.kill('SIGTERM');
-    await new Promise((r) => setTimeout(r, 1500));
-    stopCluster(`${dir}/pg`);
-    fs.rmSync(dir, { recursive: true, force: true });
+    await stopAll(server, dir, 1500);
   }
 }
 

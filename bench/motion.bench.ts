@@ -4,6 +4,7 @@
  * bench names, and rankArsenal for 15 balls including the pocket solver and miss room.
  */
 import type { Bench } from './run';
+import { BENCH_BOWLER, BENCH_HOUSE_PATTERN, BENCH_STRONG_SOLID } from './lib/benchHouse';
 import {
   ballInertia,
   conditionOilMap,
@@ -15,33 +16,11 @@ import {
   releaseState,
   uniformFrictionField,
 } from '../engine/index';
-import type { ArsenalBall, BallSpec, BowlerProfile, OilPattern, Sweep } from '../engine/index';
+import type { ArsenalBall, BallSpec, BowlerProfile } from '../engine/index';
 
-const sweep = (fromBoard: number, toBoard: number, endFt: number, crossings: number): Sweep => ({
-  direction: 'forward',
-  fromBoard,
-  toBoard,
-  startFt: 0,
-  endFt,
-  crossings,
-  microlitersPerBoard: 60,
-});
-/** An invented 40 ft house-style pattern (≈ 19 mL). */
-const pattern: OilPattern = {
-  name: 'Bench House 40',
-  sweeps: [sweep(2, 38, 40, 2), sweep(8, 32, 38, 4), sweep(12, 28, 36, 6), sweep(15, 25, 32, 4)],
-};
-const bowler: BowlerProfile = { hand: 'right', speedMph: 17.5, revRpm: 320, axisRotationDeg: 45, axisTiltDeg: 12 };
-const strong: BallSpec = {
-  weightLb: 15,
-  rg: 2.49,
-  differential: 0.052,
-  intermediateDifferential: 0.014,
-  coverType: 'reactive-solid',
-  surfaceGrit: 2000,
-  polished: false,
-  layout: { pinToPapIn: 3.4, valAngleDeg: 45 },
-};
+const pattern = BENCH_HOUSE_PATTERN;
+const bowler = BENCH_BOWLER;
+const strong = BENCH_STRONG_SOLID;
 
 // One delivery: the oil map with the oil carried on the ball's track, the default step.
 const inertia = ballInertia(strong);

@@ -14,24 +14,14 @@
  * Environment: BENCH_DURATION (s, default 30) and BENCH_CONNECTIONS (default 50).
  */
 import autocannon from 'autocannon';
-import { spawn, spawnSync } from 'node:child_process';
-import fs from 'node:fs';
+import type { ChildProcess } from 'node:child_process';
 import os from 'node:os';
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { migrateAndSeed, serverErrors, signIn, startServer, stopAll, throwawayCluster, writeResults } from './lib/benchServer';
 import { productionEnv } from './lib/productionEnv';
-import { freePort, makeTempClusterDir, startCluster, stopCluster } from '../scripts/lib/pg.mjs';
+import { freePort } from '../scripts/lib/pg.mjs';
 
-const here = path.dirname(fileURLToPath(import.meta.url));
-const root = path.resolve(here, '..');
-const bin = (b: string) => path.join(root, 'node_modules', '.bin', b);
 const DURATION = Number(process.env.BENCH_DURATION ?? 30);
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 50);
-
-function run(cmd: string, args: string[], env: NodeJS.ProcessEnv): void {
-  const r = spawnSync(cmd, args, { cwd: root, env, encoding: 'utf8' });
-  if (r.status !== 0) throw new Error(`${cmd} ${args.join(' ')} failed:\n${r.stdout}\n${r.stderr}`);
-}
 
 interface Load {
   name: string;
@@ -119,39 +109,16 @@ async function measure(load: Load): Promise<Figures> {
 }
 
 async function main(): Promise<void> {
-  const dir = makeTempClusterDir('lanewright-reliability-');
-  let server: ReturnType<typeof spawn> | null = null;
+  const { dir, adminUrl: url } = await throwawayCluster('lanewright-reliability-');
+  let server: ChildProcess | null = null;
   try {
-    const url = await startCluster({ dataDir: `${dir}/pg`, port: await freePort(), log: () => undefined });
     const env = productionEnv(url);
-    run(bin('tsx'), ['server/db/migrate.ts', 'up'], env);
-    run(bin('tsx'), ['seeders/index.ts'], { ...env, NODE_ENV: 'test' }); // the demo data, loaded as a test database would be (never into production)
+    migrateAndSeed(env);
     const port = await freePort();
-    let out = '';
-    server = spawn(bin('tsx'), ['server/index.ts'], {
-      cwd: root,
-      env: { ...env, PORT: String(port), RATE_LIMIT_AUTH: '100000' },
-      stdio: ['ignore', 'pipe', 'pipe'],
-    });
-    server.stdout!.on('data', (d: Buffer) => (out += d.toString()));
-    server.stderr!.on('data', (d: Buffer) => (out += d.toString()));
-    const base = `http://127.0.0.1:${port}`;
-    for (let i = 0; i < 150; i++) {
-      try {
-        if ((await fetch(`${base}/api/health`)).ok) break;
-      } catch {
-        /* not up yet */
-      }
-      await new Promise((r) => setTimeout(r, 200));
-    }
-    const login = (await (
-      await fetch(`${base}/api/auth/login`, {
-        method: 'POST',
-        headers: { 'content-type': 'application/json' },
-        body: JSON.stringify({ email: 'dana@copperline.example', password: 'lanewright-demo' }),
-      })
-    ).json()) as { token: string };
-    const auth = { authorization: `Bearer ${login.token}`, 'content-type': 'application/json' };
+    const started = await startServer({ env: { ...env, RATE_LIMIT_AUTH: '100000' }, port, tries: 150, collect: true });
+    server = started.server;
+    const { base, output } = started;
+    const auth = await signIn(base, 'dana@copperline.example');
     const centers = (await (await fetch(`${base}/api/centers`)).json()) as { items: { id: number; name: string }[] };
     const patterns = (await (await fetch(`${base}/api/patterns`, { headers: auth })).json()) as { items: { id: number; name: string }[] };
     const center = centers.items[0];
@@ -194,18 +161,9 @@ async function main(): Promise<void> {
       );
     }
     const bad = figures.reduce((a, f) => a + f.bad, 0);
-    if (bad)
-      console.log(
-        `answers outside 2xx/4xx, errors and timeouts: ${bad} (target 0)\n${out
-          .split('\n')
-          .filter((x) => x.includes('"level":50'))
-          .slice(0, 5)
-          .join('\n')}`,
-      );
+    if (bad) console.log(`answers outside 2xx/4xx, errors and timeouts: ${bad} (target 0)\n${serverErrors(output())}`);
 
-    const file = path.join(here, 'results.json');
-    const prev = fs.existsSync(file) ? (JSON.parse(fs.readFileSync(file, 'utf8')) as Record<string, unknown>) : {};
-    const reliability = {
+    writeResults('reliability', {
       date: new Date().toISOString(),
       machine: { cpus: os.cpus().length, cpu: os.cpus()[0]?.model, node: process.version },
       connections: CONNECTIONS,
@@ -213,15 +171,10 @@ async function main(): Promise<void> {
       target: '0 answers outside 2xx/4xx',
       bad,
       results: figures,
-    };
-    fs.writeFileSync(file, `${JSON.stringify({ ...prev, reliability }, null, 2)}\n`);
-    console.log('wrote bench/results.json (reliability)');
+    });
     if (bad) process.exitCode = 1;
   } finally {
-    server?.kill('SIGTERM');
-    await new Promise((r) => setTimeout(r, 1000));
-    stopCluster(`${dir}/pg`);
-    fs.rmSync(dir, { recursive: true, force: true });
+    await stopAll(server, dir, 1000);
   }
 }
 

@@ -1,4 +1,5 @@
 // Loads the demo data into an empty database: `npm run db:seed` (npm start runs it in development). Never in production.
+import { catalogueSpecsOf } from '../server/features/arsenal/arsenal.repository';
 import { summarize } from '../server/features/patterns/patterns.service';
 import crypto from 'node:crypto';
 import { Ball, BallModel, Center, Condition, Follow, Lane, Pattern, SurfaceEvent, sequelize, User } from '../server/models/index';
@@ -83,18 +84,9 @@ export async function seedDemo(): Promise<boolean> {
         const ball = await Ball.create(
           {
             ownerId: user.id,
-            ballModelId: m.id,
-            name: m.name,
-            maker: m.maker,
+            ...catalogueSpecsOf(m),
             nickname: d.nickname ?? null,
             weightLb: d.weightLb,
-            rg: m.rg,
-            differential: m.differential,
-            intermediateDifferential: m.intermediateDifferential,
-            coverType: m.coverType,
-            coreType: m.coreType,
-            hardnessD: m.hardnessD,
-            approvalYear: m.releaseYear,
             surfaceGrit: grit,
             polished,
             layout: d.layout,

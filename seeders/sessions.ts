@@ -3,7 +3,7 @@ import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { buildGame, CALIBRATION, LAYDOWN_OFFSET_BOARDS, simulateShot, surfaceWords } from '../engine/index';
 import type { BallSpec, BowlerProfile as EngineBowler, LaneSurface, OilPattern } from '../engine/types';
 import type { HitKind, LoggedDelivery } from '../engine/shotlog/types';
-import { specAsThrown } from '../server/features/stats/stats.service';
+import { specAsThrown } from '../server/features/stats/calibration.service';
 import { laneOf } from '../server/features/centers/centers.repository';
 import { sessionsRepository } from '../server/features/sessions/sessions.repository';
 import { requestCalibrationFit } from '../server/features/stats/calibrationJobs';

@@ -2,7 +2,7 @@ import { runAutoRefund } from '../features/shop/payments.service';
 import { z } from 'zod';
 import { DEFAULT_LANE_SURFACE, LANE_FRICTIONS, LANE_KINDS } from '../../shared/centers';
 import type { FitRequest } from '../features/stats/calibrationJobs';
-import { runCalibrationFit } from '../features/stats/stats.service';
+import { runCalibrationFit } from '../features/stats/calibration.service';
 import { superviseJobs, workQueue } from './jobs';
 import { startMailSender } from './outbox';
 

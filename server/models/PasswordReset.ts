@@ -1,27 +1,9 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import type { Sequelize } from 'sequelize';
+import { MailedToken, mailedTokenColumns } from './MailedToken';
 
-export class PasswordReset extends Model<InferAttributes<PasswordReset>, InferCreationAttributes<PasswordReset>> {
-  declare id: CreationOptional<number>;
-  declare userId: number;
-  /** SHA-256 of the token mailed to the user; the token itself is never stored. */
-  declare tokenHash: string;
-  declare expiresAt: Date;
-  declare usedAt: Date | null;
-  declare createdAt: CreationOptional<Date>;
-  declare updatedAt: CreationOptional<Date>;
-
+/** A mailed one-time token that lets the user set a new password (one open token per user). */
+export class PasswordReset extends MailedToken {
   static initModel(sequelize: Sequelize): void {
-    PasswordReset.init(
-      {
-        id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-        userId: { type: DataTypes.INTEGER, allowNull: false },
-        tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
-        expiresAt: { type: DataTypes.DATE, allowNull: false },
-        usedAt: { type: DataTypes.DATE, allowNull: true },
-        createdAt: DataTypes.DATE,
-        updatedAt: DataTypes.DATE,
-      },
-      { sequelize, tableName: 'password_resets' },
-    );
+    PasswordReset.init(mailedTokenColumns(), { sequelize, tableName: 'password_resets' });
   }
 }

@@ -1,7 +1,8 @@
 import type { Sweep } from '../../engine/types';
 import type { BallModelInput } from '../../shared/balls';
+import { arsenalRepository, catalogueSpecsOf } from '../../server/features/arsenal/arsenal.repository';
 import { summarize } from '../../server/features/patterns/patterns.service';
-import { Ball, BallModel, Center, Lane, Pattern, SurfaceEvent } from '../../server/models/index';
+import { Ball, BallModel, Center, Lane, Pattern } from '../../server/models/index';
 
 let n = 0;
 const uniq = () => `${process.pid}-${Date.now()}-${++n}`;
@@ -71,37 +72,20 @@ export async function createBall(
   over: Partial<{ surfaceGrit: number; polished: boolean; status: 'active' | 'retired' }> = {},
 ): Promise<Ball> {
   const m = await createModel(spec);
-  const ball = await Ball.create({
-    ownerId,
-    ballModelId: m.id,
-    name: m.name,
-    maker: m.maker,
-    nickname: null,
-    weightLb: 15,
-    rg: m.rg,
-    differential: m.differential,
-    intermediateDifferential: m.intermediateDifferential,
-    coverType: m.coverType,
-    coreType: m.coreType,
-    hardnessD: m.hardnessD,
-    approvalYear: m.releaseYear,
-    surfaceGrit: over.surfaceGrit ?? m.factoryGrit,
-    polished: over.polished ?? m.factoryPolished,
-    layout: { pinToPapIn: 4.5, drillingAngleDeg: 45 },
-    gamesSinceResurface: 10,
-    status: over.status ?? 'active',
-  });
-  await SurfaceEvent.create({
-    ballId: ball.id,
-    fromGrit: null,
-    fromPolished: null,
-    toGrit: ball.surfaceGrit,
-    toPolished: ball.polished,
-    at: new Date(),
-    byUserId: ownerId,
-    note: null,
-  });
-  return ball;
+  return arsenalRepository.createWithFirstSurface(
+    {
+      ownerId,
+      ...catalogueSpecsOf(m),
+      nickname: null,
+      weightLb: 15,
+      surfaceGrit: over.surfaceGrit ?? m.factoryGrit,
+      polished: over.polished ?? m.factoryPolished,
+      layout: { pinToPapIn: 4.5, drillingAngleDeg: 45 },
+      gamesSinceResurface: 10,
+      status: over.status ?? 'active',
+    },
+    null,
+  );
 }
 
 const sw = (

@@ -1,8 +1,9 @@
-import { QueryTypes, type CreationAttributes, type InferAttributes, type Transaction } from 'sequelize';
-import type { ArsenalQuery, Ball as BallDto, SurfaceEvent as SurfaceEventDto } from '../../../shared/balls';
+import { Op, QueryTypes, type CreationAttributes, type InferAttributes, type Transaction } from 'sequelize';
+import type { z } from 'zod';
+import type { ArsenalQuery, Ball as BallDto, BallByHandSchema, SurfaceEvent as SurfaceEventDto } from '../../../shared/balls';
 import { config } from '../../config/index';
 import { ScopedCache } from '../../lib/changeFeed';
-import { Ball, sequelize, SurfaceEvent, Upload } from '../../models/index';
+import { Ball, sequelize, SurfaceEvent, Upload, type BallModel } from '../../models/index';
 import { likeText } from '../catalogue/catalogue.repository';
 
 export function toSurfaceEventDto(e: SurfaceEvent): SurfaceEventDto {
@@ -52,6 +53,59 @@ export function toBallDto(b: BallRow): BallDto {
 }
 
 type BallCreation = CreationAttributes<Ball>;
+
+/** A ball's specs as copied from a catalogue model (the owner's own choices — weight, surface, layout — come apart). */
+export function catalogueSpecsOf(
+  m: BallModel,
+): Pick<
+  BallCreation,
+  | 'ballModelId'
+  | 'name'
+  | 'maker'
+  | 'rg'
+  | 'differential'
+  | 'intermediateDifferential'
+  | 'coverType'
+  | 'coreType'
+  | 'hardnessD'
+  | 'approvalYear'
+> {
+  return {
+    ballModelId: m.id,
+    name: m.name,
+    maker: m.maker,
+    rg: m.rg,
+    differential: m.differential,
+    intermediateDifferential: m.intermediateDifferential,
+    coverType: m.coverType,
+    coreType: m.coreType,
+    hardnessD: m.hardnessD,
+    approvalYear: m.releaseYear,
+  };
+}
+
+/** The row of a hand-entered ball (no catalogue model, no maker). */
+export function handEnteredBall(ownerId: number, input: z.infer<typeof BallByHandSchema>): BallCreation {
+  return {
+    ownerId,
+    ballModelId: null,
+    name: input.name,
+    maker: null,
+    nickname: input.nickname ?? null,
+    weightLb: input.weightLb,
+    rg: input.rg,
+    differential: input.differential,
+    intermediateDifferential: input.intermediateDifferential,
+    coverType: input.coverType,
+    coreType: input.coreType,
+    hardnessD: input.hardnessD ?? null,
+    surfaceGrit: input.surfaceGrit,
+    polished: input.polished,
+    layout: input.layout ?? null,
+    gamesSinceResurface: input.gamesSinceResurface,
+    status: input.status,
+  };
+}
 
 /** The columns toBallDto reads, named as the model's attributes. */
 const BALL_COLUMNS = [
@@ -170,5 +224,27 @@ export const arsenalRepository = {
   },
   addSurfaceEvent(data: CreationAttributes<SurfaceEvent>, transaction?: Transaction): Promise<SurfaceEvent> {
     return SurfaceEvent.create(data, { transaction });
+  },
+  /** Adds a ball with its first surface event, which records the surface it starts on. */
+  async createWithFirstSurface(data: BallCreation, note: string | null, transaction?: Transaction): Promise<Ball> {
+    const ball = await Ball.create(data, { transaction });
+    await SurfaceEvent.create(
+      {
+        ballId: ball.id,
+        fromGrit: null,
+        fromPolished: null,
+        toGrit: ball.surfaceGrit,
+        toPolished: ball.polished,
+        at: new Date(),
+        byUserId: data.ownerId,
+        note,
+      },
+      { transaction },
+    );
+    return ball;
+  },
+  /** The owner's balls of these ids, removed ones too (a logged shot or a trial still names them). */
+  findOwnedManyEvenRemoved(ownerId: number, ids: number[]): Promise<Ball[]> {
+    return Ball.findAll({ where: { ownerId, id: { [Op.in]: ids } }, paranoid: false });
   },
 };

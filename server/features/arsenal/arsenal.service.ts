@@ -16,7 +16,7 @@ import { decodeImage, storage } from '../../lib/storage';
 import { catalogueRepository } from '../catalogue/catalogue.repository';
 import { refitBowlerAfterCommit } from '../stats/calibrationJobs';
 import { hasReplicas } from '../../db/sequelize';
-import { arsenalPages, arsenalRepository, toBallDto } from './arsenal.repository';
+import { arsenalPages, arsenalRepository, catalogueSpecsOf, handEnteredBall, toBallDto } from './arsenal.repository';
 
 /** A row of the arsenal CSV: a hand-entered ball whose pin-to-PAP may be written as a pro shop writes it ("4 3/8", "4-3/8", "4.375"). */
 const ArsenalCsvRowSchema = BallByHandSchema.extend({
@@ -59,18 +59,9 @@ export const arsenalService = {
           });
         data = {
           ownerId,
-          ballModelId: m.id,
-          name: m.name,
-          maker: m.maker,
+          ...catalogueSpecsOf(m),
           nickname: input.nickname ?? null,
           weightLb: input.weightLb,
-          rg: m.rg,
-          differential: m.differential,
-          intermediateDifferential: m.intermediateDifferential,
-          coverType: m.coverType,
-          coreType: m.coreType,
-          hardnessD: m.hardnessD,
-          approvalYear: m.releaseYear,
           surfaceGrit: input.surfaceGrit ?? m.factoryGrit,
           polished: input.polished ?? m.factoryPolished,
           layout: input.layout ?? null,
@@ -78,41 +69,9 @@ export const arsenalService = {
           status: input.status,
         };
       } else {
-        data = {
-          ownerId,
-          ballModelId: null,
-          name: input.name,
-          maker: null,
-          nickname: input.nickname ?? null,
-          weightLb: input.weightLb,
-          rg: input.rg,
-          differential: input.differential,
-          intermediateDifferential: input.intermediateDifferential,
-          coverType: input.coverType,
-          coreType: input.coreType,
-          hardnessD: input.hardnessD ?? null,
-          surfaceGrit: input.surfaceGrit,
-          polished: input.polished,
-          layout: input.layout ?? null,
-          gamesSinceResurface: input.gamesSinceResurface,
-          status: input.status,
-        };
+        data = handEnteredBall(ownerId, input);
       }
-      const ball = await arsenalRepository.create(data, transaction);
-      await arsenalRepository.addSurfaceEvent(
-        {
-          ballId: ball.id,
-          fromGrit: null,
-          fromPolished: null,
-          toGrit: ball.surfaceGrit,
-          toPolished: ball.polished,
-          at: new Date(),
-          byUserId: ownerId,
-          note: 'Added to the arsenal',
-        },
-        transaction,
-      );
-      return toBallDto(ball);
+      return toBallDto(await arsenalRepository.createWithFirstSurface(data, 'Added to the arsenal', transaction));
     });
   },
 
@@ -259,42 +218,9 @@ export const arsenalService = {
     return sequelize.transaction(async (transaction) => {
       const items: BallDto[] = [];
       for (const input of rows) {
-        const ball = await arsenalRepository.create(
-          {
-            ownerId,
-            ballModelId: null,
-            name: input.name,
-            maker: null,
-            nickname: input.nickname ?? null,
-            weightLb: input.weightLb,
-            rg: input.rg,
-            differential: input.differential,
-            intermediateDifferential: input.intermediateDifferential,
-            coverType: input.coverType,
-            coreType: input.coreType,
-            hardnessD: input.hardnessD ?? null,
-            surfaceGrit: input.surfaceGrit,
-            polished: input.polished,
-            layout: input.layout ?? null,
-            gamesSinceResurface: input.gamesSinceResurface,
-            status: input.status,
-          },
-          transaction,
+        items.push(
+          toBallDto(await arsenalRepository.createWithFirstSurface(handEnteredBall(ownerId, input), 'Imported from CSV', transaction)),
         );
-        await arsenalRepository.addSurfaceEvent(
-          {
-            ballId: ball.id,
-            fromGrit: null,
-            fromPolished: null,
-            toGrit: ball.surfaceGrit,
-            toPolished: ball.polished,
-            at: new Date(),
-            byUserId: ownerId,
-            note: 'Imported from CSV',
-          },
-          transaction,
-        );
-        items.push(toBallDto(ball));
       }
       return { imported: items.length, items };
     });

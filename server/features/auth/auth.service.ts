@@ -1,6 +1,6 @@
 import bcrypt from 'bcryptjs';
 import crypto from 'node:crypto';
-import { QueryTypes, type Transaction } from 'sequelize';
+import type { Transaction } from 'sequelize';
 import type { AuthResponse, LoginInput, RegisterInput, RegisterResponse, User as UserDto } from '../../../shared/auth';
 import { config } from '../../config/index';
 import { AppError } from '../../lib/AppError';
@@ -45,30 +45,14 @@ const BACKOFF_MAX_MS = 15 * 60 * 1000;
 
 /** When the next attempt for this e-mail may be made (0: now). Kept in PostgreSQL (login_failures), shared by every process. */
 async function backoffUntil(email: string): Promise<number> {
-  const [f] = await sequelize.query<{ count: number; last_at: Date }>(
-    'SELECT count, last_at FROM login_failures WHERE email = :email AND last_at > now() - make_interval(secs => :window)',
-    {
-      replacements: { email, window: BACKOFF_WINDOW_MS / 1000 },
-      type: QueryTypes.SELECT,
-      useMaster: true,
-    },
-  );
+  const f = await userRepository.recentLoginFailures(email, BACKOFF_WINDOW_MS);
   if (!f || f.count < config.LOGIN_FAILURES_BEFORE_BACKOFF) return 0;
   return new Date(f.last_at).getTime() + Math.min(BACKOFF_MAX_MS, 1000 * 2 ** (f.count - config.LOGIN_FAILURES_BEFORE_BACKOFF));
 }
 
 /** One more failure within the window (a failure after the window starts a new count). */
-async function noteFailure(email: string): Promise<void> {
-  await sequelize.query(
-    `INSERT INTO login_failures (email, count, last_at) VALUES (:email, 1, now())
-     ON CONFLICT (email) DO UPDATE SET count = CASE WHEN login_failures.last_at <= now() - make_interval(secs => :window) THEN 1 ELSE login_failures.count + 1 END, last_at = now()`,
-    { replacements: { email, window: BACKOFF_WINDOW_MS / 1000 } },
-  );
-}
-
-async function clearFailures(email: string): Promise<void> {
-  await sequelize.query('DELETE FROM login_failures WHERE email = :email', { replacements: { email } });
-}
+const noteFailure = (email: string) => userRepository.noteLoginFailure(email, BACKOFF_WINDOW_MS);
+const clearFailures = (email: string) => userRepository.clearLoginFailures(email);
 
 async function enqueueVerification(user: { id: number; email: string; displayName: string }, transaction: Transaction): Promise<void> {
   const token = newToken();
@@ -191,7 +175,7 @@ export const authService = {
       user.emailVerifiedAt ??= new Date();
       await user.save({ transaction });
       await userRepository.closeResets(user.id, transaction);
-      await sequelize.query('DELETE FROM login_failures WHERE email = :email', { replacements: { email: user.email }, transaction });
+      await userRepository.clearLoginFailures(user.email, transaction);
     });
   },
 

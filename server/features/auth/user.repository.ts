@@ -14,6 +14,29 @@ export function toUserDto(u: User): UserDto {
 }
 
 export const userRepository = {
+  /** The failed sign-ins for an e-mail within the last `windowMs` (login_failures, read from the primary), or none. */
+  async recentLoginFailures(email: string, windowMs: number): Promise<{ count: number; last_at: Date } | undefined> {
+    const [f] = await sequelize.query<{ count: number; last_at: Date }>(
+      'SELECT count, last_at FROM login_failures WHERE email = :email AND last_at > now() - make_interval(secs => :window)',
+      {
+        replacements: { email, window: windowMs / 1000 },
+        type: QueryTypes.SELECT,
+        useMaster: true,
+      },
+    );
+    return f;
+  },
+  /** Counts one more failed sign-in for an e-mail (one older than `windowMs` starts the count again). */
+  async noteLoginFailure(email: string, windowMs: number): Promise<void> {
+    await sequelize.query(
+      `INSERT INTO login_failures (email, count, last_at) VALUES (:email, 1, now())
+     ON CONFLICT (email) DO UPDATE SET count = CASE WHEN login_failures.last_at <= now() - make_interval(secs => :window) THEN 1 ELSE login_failures.count + 1 END, last_at = now()`,
+      { replacements: { email, window: windowMs / 1000 } },
+    );
+  },
+  async clearLoginFailures(email: string, transaction?: Transaction): Promise<void> {
+    await sequelize.query('DELETE FROM login_failures WHERE email = :email', { replacements: { email }, transaction });
+  },
   findByEmail(email: string, transaction?: Transaction): Promise<User | null> {
     return User.findOne({ where: { email }, transaction });
   },

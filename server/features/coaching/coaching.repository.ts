@@ -1,6 +1,10 @@
 import { Op, QueryTypes, type CreationAttributes, type Transaction } from 'sequelize';
 import type { CoachLink as CoachLinkDto, Plan as PlanDto, StudentSummary } from '../../../shared/coaching';
 import { Ball, CoachLink, Plan, sequelize, User } from '../../models/index';
+import { newestFirstPage } from '../../db/paging';
+
+/** Advisory-lock namespace of the invitation counter (any constant unique to this use). */
+const INVITE_LOCK_NS = 7141;
 
 type LinkWithPeople = CoachLink & { coach?: User | null; student?: User | null };
 type PlanWithRefs = Plan & { coach?: User | null; ball?: Ball | null };
@@ -67,16 +71,15 @@ export const coachingRepository = {
     return CoachLink.findAndCountAll({
       where: { status: { [Op.in]: ['pending', 'active'] }, [Op.or]: mine },
       include: PEOPLE,
-      order: [
-        ['createdAt', 'DESC'],
-        ['id', 'DESC'],
-      ],
-      limit: pageSize,
-      offset: (page - 1) * pageSize,
+      ...newestFirstPage(page, pageSize),
       distinct: true,
     }) as Promise<{ rows: LinkWithPeople[]; count: number }>;
   },
   /** Invitations a coach sent since `since` (withdrawn ones included). */
+  /** Holds a coach's invitations for the rest of the transaction (a transaction-scoped advisory lock per coach). */
+  async lockInvitationsOf(coachId: number, transaction: Transaction): Promise<void> {
+    await sequelize.query('SELECT pg_advisory_xact_lock(:ns, :coachId)', { replacements: { ns: INVITE_LOCK_NS, coachId }, transaction });
+  },
   invitationsSince(coachId: number, since: Date, transaction: Transaction): Promise<number> {
     return CoachLink.count({ where: { coachId, createdAt: { [Op.gte]: since } }, transaction });
   },
@@ -135,12 +138,7 @@ export const coachingRepository = {
     return Plan.findAndCountAll({
       where,
       include: PLAN_REFS,
-      order: [
-        ['createdAt', 'DESC'],
-        ['id', 'DESC'],
-      ],
-      limit: pageSize,
-      offset: (page - 1) * pageSize,
+      ...newestFirstPage(page, pageSize),
       distinct: true,
     }) as Promise<{
       rows: PlanWithRefs[];

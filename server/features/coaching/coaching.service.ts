@@ -29,8 +29,6 @@ async function linkedStudent(coach: AuthUser, studentId: number): Promise<User> 
 }
 
 const DAY_MS = 24 * 60 * 60 * 1000;
-/** Advisory-lock namespace of the invitation counter (any constant unique to this use). */
-const INVITE_LOCK_NS = 7141;
 
 /** The invited user: the one the link is tied to, or (still pending) whoever holds the invited address. */
 const isInvitee = (user: AuthUser, l: CoachLink) =>
@@ -51,10 +49,7 @@ export const coachingService = {
     try {
       const id = await sequelize.transaction(async (transaction) => {
         // One coach's invitations are counted one at a time (a transaction-scoped lock per coach).
-        await sequelize.query('SELECT pg_advisory_xact_lock(:ns, :coachId)', {
-          replacements: { ns: INVITE_LOCK_NS, coachId: coach.id },
-          transaction,
-        });
+        await coachingRepository.lockInvitationsOf(coach.id, transaction);
         const recent = await coachingRepository.invitationsSince(coach.id, new Date(Date.now() - DAY_MS), transaction);
         if (recent >= config.INVITATIONS_PER_DAY) {
           throw new AppError(

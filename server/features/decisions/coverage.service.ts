@@ -1,14 +1,14 @@
-import { Op } from 'sequelize';
 import { arsenalCoverage, layoutLab, MOTION_CALIBRATION } from '../../../engine/index';
 import type { CatalogueCandidate, CoverageCondition } from '../../../engine/index';
 import { ballLabel, ballToArsenalBall } from '../../../shared/balls';
 import type { CoverageResult, LayoutLabRequest, LayoutLabResult } from '../../../shared/decisions';
 import { AppError } from '../../lib/AppError';
 import type { AuthUser } from '../../middleware/auth';
-import { Ball, BallModel } from '../../models/index';
+import { arsenalRepository } from '../arsenal/arsenal.repository';
 import { centersService } from '../centers/centers.service';
 import { readableBowlerId } from '../coaching/coaching.access';
-import { bowlerOf, engineCondition } from '../stats/stats.service';
+import { bowlerOf, engineCondition } from '../stats/engineInput.service';
+import { decisionsRepository } from './decisions.repository';
 
 const laneRange = (lanes: number[]) => {
   const sorted = [...lanes].sort((a, b) => a - b);
@@ -26,9 +26,9 @@ export const decisionsService = {
     const bowlerId = await readableBowlerId(user, studentId);
     const [bowler, balls, follows, models] = await Promise.all([
       bowlerOf(bowlerId),
-      Ball.findAll({ where: { ownerId: bowlerId, status: { [Op.ne]: 'retired' } }, order: [['id', 'ASC']] }),
+      decisionsRepository.activeBalls(bowlerId),
       centersService.follows({ id: bowlerId } as AuthUser),
-      BallModel.findAll({ order: [['id', 'ASC']] }),
+      decisionsRepository.catalogue(),
     ]);
     const conditions: (CoverageCondition & { centerName: string; lanes: number[] })[] = follows.flatMap((f) =>
       f.inForce.map(({ condition, lanes }) => ({
@@ -67,7 +67,7 @@ export const decisionsService = {
 
   /** The layout lab for one of the user's balls on a pattern or a published condition. */
   async layoutLab(user: AuthUser, req: LayoutLabRequest): Promise<LayoutLabResult> {
-    const ball = await Ball.findOne({ where: { id: req.ballId, ownerId: user.id } });
+    const ball = await arsenalRepository.findOwned(user.id, req.ballId);
     if (!ball) throw AppError.badRequest('Check the layout lab', { 'body.ballId': 'Not a ball in your arsenal' });
     const on = await engineCondition({ patternId: req.patternId, conditionId: req.conditionId });
     const bowler = await bowlerOf(user.id);

@@ -1,4 +1,3 @@
-import { Op } from 'sequelize';
 import { median } from 'simple-statistics';
 import { compareTrial, laydownBoardOf, simulateShot } from '../../../engine/index';
 import type { BowlerProfile, OilPattern } from '../../../engine/types';
@@ -6,11 +5,13 @@ import { ballLabel, ballToSpec } from '../../../shared/balls';
 import type { Trial as TrialDto, TrialCreate, TrialListQuery, TrialResult } from '../../../shared/decisions';
 import { AppError } from '../../lib/AppError';
 import type { AuthUser } from '../../middleware/auth';
-import { Ball, Pattern, Trial } from '../../models/index';
+import type { Ball, Trial } from '../../models/index';
+import { arsenalRepository } from '../arsenal/arsenal.repository';
 import { isLinkedCoach, readableBowlerId } from '../coaching/coaching.access';
 import { patternsService } from '../patterns/patterns.service';
 import { sessionsRepository, toShotRecord, type ShotRow } from '../sessions/sessions.repository';
-import { bowlerOf } from '../stats/stats.service';
+import { bowlerOf } from '../stats/engineInput.service';
+import { decisionsRepository } from './decisions.repository';
 
 const todayUtc = () => new Date().toISOString().slice(0, 10);
 
@@ -34,20 +35,17 @@ function toDto(t: Trial, balls: Map<number, Ball>, patternName: string | null): 
 
 async function ballsOf(userId: number, ids: number[]): Promise<Map<number, Ball>> {
   if (ids.length === 0) return new Map();
-  const rows = await Ball.findAll({ where: { ownerId: userId, id: { [Op.in]: ids } }, paranoid: false });
+  const rows = await arsenalRepository.findOwnedManyEvenRemoved(userId, ids);
   return new Map(rows.map((b) => [b.id, b]));
 }
 
-async function patternNames(ids: (number | null)[]): Promise<Map<number, string>> {
-  const wanted = [...new Set(ids.filter((x): x is number => x !== null))];
-  if (wanted.length === 0) return new Map();
-  const rows = await Pattern.findAll({ where: { id: { [Op.in]: wanted } }, attributes: ['id', 'name'] });
-  return new Map(rows.map((p) => [p.id, p.name]));
+function patternNames(ids: (number | null)[]): Promise<Map<number, string>> {
+  return decisionsRepository.patternNames([...new Set(ids.filter((x): x is number => x !== null))]);
 }
 
 /** The trial if the user may read it (its bowler or their linked coach); 404 otherwise. */
 async function readable(user: AuthUser, id: number): Promise<Trial> {
-  const t = await Trial.findByPk(id);
+  const t = await decisionsRepository.findTrial(id);
   if (!t || (t.userId !== user.id && !(await isLinkedCoach(user, t.userId)))) throw AppError.notFound('Trial');
   return t;
 }
@@ -71,14 +69,7 @@ function predictedBreakpoint(ball: Ball, rows: ShotRow[], bowler: BowlerProfile,
 export const trialsService = {
   async list(user: AuthUser, q: TrialListQuery): Promise<TrialDto[]> {
     const bowlerId = await readableBowlerId(user, q.studentId);
-    const trials = await Trial.findAll({
-      where: { userId: bowlerId },
-      order: [
-        ['createdAt', 'DESC'],
-        ['id', 'DESC'],
-      ],
-      limit: 100,
-    });
+    const trials = await decisionsRepository.trialsOf(bowlerId, 100);
     const balls = await ballsOf(bowlerId, [...new Set(trials.flatMap((t) => t.arms.map((a) => a.ballId)))]);
     const names = await patternNames(trials.map((t) => t.patternId));
     return trials.map((t) => toDto(t, balls, t.patternId ? (names.get(t.patternId) ?? null) : null));
@@ -96,12 +87,11 @@ export const trialsService = {
     });
     let patternName: string | null = null;
     if (input.patternId != null) {
-      const p = await Pattern.findByPk(input.patternId, { attributes: ['id', 'name'] });
-      if (!p) fields['body.patternId'] = 'No such pattern';
-      else patternName = p.name;
+      patternName = (await decisionsRepository.patternNames([input.patternId])).get(input.patternId) ?? null;
+      if (patternName === null) fields['body.patternId'] = 'No such pattern';
     }
     if (Object.keys(fields).length) throw AppError.badRequest('Check the trial', fields);
-    const t = await Trial.create({
+    const t = await decisionsRepository.createTrial({
       userId: bowlerId,
       createdBy: user.id,
       name: input.name,

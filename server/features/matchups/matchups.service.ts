@@ -13,7 +13,8 @@ import { logger } from '../../lib/logger';
 import type { AuthUser } from '../../middleware/auth';
 import { arsenalRepository, toBallDto } from '../arsenal/arsenal.repository';
 import { readableBowlerId } from '../coaching/coaching.access';
-import { bowlerOf, calibrationFor, engineCondition } from '../stats/stats.service';
+import { calibrationFor } from '../stats/calibration.service';
+import { bowlerOf, engineCondition } from '../stats/engineInput.service';
 
 export type { MatchupRanking, MatchupResult };
 

@@ -1,6 +1,7 @@
 import { Op, type CreationAttributes, type Transaction, type WhereOptions } from 'sequelize';
 import { SERVICE_KINDS, type Order as OrderDto, type OrderStatus, type ShopService as ShopServiceDto } from '../../../shared/shop';
 import { Center, Order, OrderEvent, Payment, PaymentEvent, sequelize, ShopService, User } from '../../models/index';
+import { NEWEST_FIRST, newestFirstPage } from '../../db/paging';
 
 export function toServiceDto(s: ShopService): ShopServiceDto {
   return {
@@ -91,22 +92,14 @@ export const shopRepository = {
       await Order.findAll({
         where,
         attributes: ['id'],
-        order: [
-          ['createdAt', 'DESC'],
-          ['id', 'DESC'],
-        ],
-        limit: pageSize,
-        offset: (page - 1) * pageSize,
+        ...newestFirstPage(page, pageSize),
       })
     ).map((o) => o.id);
     const rows = ids.length
       ? ((await Order.findAll({
           where: { id: ids },
           include: orderIncludes,
-          order: [
-            ['createdAt', 'DESC'],
-            ['id', 'DESC'],
-          ],
+          order: NEWEST_FIRST,
         })) as OrderRow[])
       : [];
     return { rows, count };

@@ -2,11 +2,11 @@ import type { Transaction } from 'sequelize';
 import type { LaneSurface } from '../../../engine/types';
 import { sendJob } from '../../lib/jobs';
 import { logger } from '../../lib/logger';
-import { CalibrationFit } from '../../models/index';
+import { statsRepository } from './stats.repository';
 
 /**
  * Requests for calibration fits (the `calibration` queue; the worker's side is runCalibrationFit in
- * stats.service.ts). Kept apart from the stats service so the features whose changes call for a refit (shots,
+ * calibration.service.ts). Kept apart from the stats service so the features whose changes call for a refit (shots,
  * balls, the release) can ask for one without importing it.
  */
 
@@ -45,11 +45,7 @@ export function requestCalibrationFitsAfterCommit(
 /** After a change to what a bowler's stored fits were made of (a ball's surface or specs, the release): a refit of each, once committed. */
 export function refitBowlerAfterCommit(bowlerId: number, transaction?: Transaction | null): void {
   requestCalibrationFitsAfterCommit(transaction, async () => {
-    const rows = await CalibrationFit.findAll({
-      where: { bowlerId },
-      attributes: ['patternId', 'laneKind', 'laneFriction', 'conditionId'],
-      useMaster: true,
-    });
+    const rows = await statsRepository.fitSubjectsOf(bowlerId);
     const seen = new Map<string, FitRequest>();
     for (const r of rows) {
       const req: FitRequest = r.conditionId

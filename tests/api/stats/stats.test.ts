@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
 import { scoreGame } from '../../../engine/index';
-import { calibrate, calibrationFor } from '../../../server/features/stats/stats.service';
+import { calibrate, calibrationFor } from '../../../server/features/stats/calibration.service';
 import { sequelize } from '../../../server/models/index';
 import { api, calibrationsIdle, createUser, errorOf } from '../../helpers/api';
 import { createBall, createCenter, createPattern, POLISHED_PEARL, SHORT_LIGHT } from '../../helpers/fixtures';
