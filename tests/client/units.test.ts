@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { ref } from 'vue';
-import { LENGTH_CLASS_FT } from '../../engine/index';
+import { checkLegality, LENGTH_CLASS_FT } from '../../engine/index';
+import { roughAsymSolid } from '../engine/fixtures';
 import { CM_PER_IN, KG_PER_LB, KMH_PER_MPH, M_PER_FT, inputConverter, unitFormatter } from '../../client/src/utils/units';
 import { breakpointChange } from '../../client/src/utils/whatIf';
 import { layoutText } from '../../client/src/utils/balls';
@@ -180,5 +181,26 @@ describe('pattern numbers in the bowler’s units', () => {
     for (const key of ['volume', 'forward', 'reverse', 'ratio', 'volumeClass', 'ratioClass'])
       expect(metricLines[key]).toBe(imperialLines[key]);
     expect(Object.values(metricLines).join(' ')).not.toMatch(/\bft\b/);
+  });
+});
+
+describe('the engine’s sentences in the bowler’s units (unitFormatter.text)', () => {
+  const metric = unitFormatter('metric');
+  const imperial = unitFormatter('imperial');
+
+  it('turns feet, mph and pounds into m, km/h and kg with at least one decimal; inches stay (the trade states RG and pin-to-PAP in inches)', () => {
+    const sentence = 'skids to 31.4 ft, about 1 mph more speed (17.5 mph), a 16 lb ball, a pin 4 1/2 in from your PAP, RG 2.480 in';
+    expect(metric.text(sentence)).toBe(
+      `skids to ${(31.4 * M_PER_FT).toFixed(1)} m, about ${KMH_PER_MPH.toFixed(1)} km/h more speed (${(17.5 * KMH_PER_MPH).toFixed(1)} km/h), ` +
+        `a ${(16 * KG_PER_LB).toFixed(1)} kg ball, a pin 4 1/2 in from your PAP, RG 2.480 in`,
+    );
+    expect(imperial.text(sentence)).toBe(sentence);
+  });
+
+  it('converts the limit the engine’s legality check writes for an overweight ball (USBC equipment specifications: 16 lb at most)', () => {
+    const result = checkLegality({ ...roughAsymSolid, weightLb: 17 });
+    const weight = result.violations.find((v) => v.field === 'weightLb');
+    expect(weight?.limit).toMatch(/\blb$/);
+    expect(metric.text(weight!.limit)).toBe(`≤ ${(16 * KG_PER_LB).toFixed(1)} kg`);
   });
 });

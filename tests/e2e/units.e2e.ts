@@ -69,6 +69,8 @@ describe('units: a metric bowler sees km/h, kg, cm and m on Matchup, Ball, Sessi
     const line = page.locator('.matchup-ranking-table__line').first();
     await line.waitFor();
     expect(((await line.textContent()) ?? '').replace(/\s+/g, ' ').trim()).toMatch(/ s at \d+\.\d km\/h\.$/);
+    // The engine's reasons and suggestions (written in feet, mph and pounds) read in metres, km/h and kg.
+    expect(await text(page, '.matchup-ranking-table__why')).not.toMatch(/\d\s*(mph|lb|ft)\b/);
 
     // The lane view's scale and table.
     const note = await text(page, '.matchup-lane-view__note');

@@ -141,6 +141,9 @@ function fixed(value: number, decimals: number): string {
   return Number(text) === 0 ? (0).toFixed(decimals) : text.replace('-', '−');
 }
 
+/** A number followed by a lane distance, a speed or a weight in the trade's units, as the engine writes them. */
+const TRADE_QUANTITY = /(\d+(?:\.\d+)?) (ft|mph|lb)\b/g;
+
 /**
  * Formatters for one choice of units: `speed(17)` → "17.0 mph" or "27.4 km/h"; `weight(15)` → "15 lb" or "6.8 kg";
  * `length(2.5)` → "2.500 in" or "6.35 cm"; `distance(41)` → "41.0 ft" or "12.5 m". The number-only variants (`…Number`)
@@ -172,6 +175,21 @@ export function unitFormatter(units: Units) {
     lengthOut: (shown: number | null) => (shown === null ? null : metric ? Math.round((shown / CM_PER_IN) * 1000) / 1000 : shown),
     /** Weight fields (a ball's weight): pounds ↔ kilograms. */
     weightInput: inputConverter('weight', units),
+    /**
+     * The engine's sentences (reasons, suggestions, legality) in these units: each "<number> ft|mph|lb" becomes metres,
+     * km/h or kg with at least one decimal. Inches stay: RG, differential and pin-to-PAP are stated in inches by the
+     * trade and the USBC specifications, and the metric bowler's own length fields say so.
+     */
+    text: (sentence: string) =>
+      metric
+        ? sentence.replace(TRADE_QUANTITY, (_m, n: string, unit: 'ft' | 'mph' | 'lb') => {
+            const decimals = Math.max(1, n.split('.')[1]?.length ?? 0);
+            const v = Number(n);
+            if (unit === 'ft') return `${distanceNumber(v, decimals)} ${u.distance}`;
+            if (unit === 'mph') return `${speedNumber(v, decimals)} ${u.speed}`;
+            return `${fixed(weightValue(v, units), decimals)} ${u.weight}`;
+          })
+        : sentence,
   };
 }
 
