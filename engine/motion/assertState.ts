@@ -1,5 +1,4 @@
 import type { BallInertia } from './ballInertia';
-import type { FrictionField } from './frictionField';
 import type { LaneOilMap } from './laneOilMap';
 import { assertNumber } from './assertNumber';
 import { STATE } from './releaseState';
@@ -22,7 +21,7 @@ export function assertState(fn: string, s: unknown): Float64Array {
   return s;
 }
 
-function assertObject(fn: string, name: string, value: unknown): void {
+export function assertObject(fn: string, name: string, value: unknown): void {
   if (value === null || typeof value !== 'object') throw new TypeError(`${fn}: ${name} must be an object, got ${String(value)}`);
 }
 
@@ -39,7 +38,7 @@ export function assertInertia(fn: string, inertia: unknown): BallInertia {
 }
 
 /** A pattern-board × foot grid's shape: ftStep > 0, whole rows ≥ 2, 41 columns, and a Float64Array of rows × cols. */
-function assertGrid(fn: string, name: string, ftStep: unknown, rows: unknown, cols: unknown, grid: unknown): void {
+export function assertGrid(fn: string, name: string, ftStep: unknown, rows: unknown, cols: unknown, grid: unknown): void {
   // the well-formed case without building a message (this runs for every delivery)
   if (
     typeof ftStep === 'number' &&
@@ -67,25 +66,4 @@ export function assertOilMap(fn: string, map: unknown): LaneOilMap {
   assertGrid(fn, 'map', m.ftStep, m.rows, m.cols, m.filmUm);
   assertNumber(fn, 'map.patternEndFt', m.patternEndFt, 0, 200);
   return m;
-}
-
-const KINDS = new Set(['uniform', 'sampled', 'oil']);
-
-/** A friction field (uniformFrictionField's, sampledFrictionField's or oilFrictionField's). */
-export function assertField(fn: string, field: unknown): FrictionField {
-  assertObject(fn, 'field', field);
-  const f = field as FrictionField;
-  if (!KINDS.has(f.kind)) throw new TypeError(`${fn}: field.kind must be 'uniform', 'sampled' or 'oil', got ${String(f.kind)}`);
-  assertNumber(fn, 'field.mu0', f.mu0, 0, 10);
-  assertNumber(fn, 'field.dMu', f.dMu, -10, 10);
-  assertNumber(fn, 'field.muMax', f.muMax, 0, 10);
-  if (f.kind === 'sampled') assertGrid(fn, 'field', f.ftStep, f.rows, f.cols, f.grid);
-  if (f.kind === 'oil') {
-    assertGrid(fn, 'field', f.ftStep, f.rows, f.cols, f.filmUm);
-    assertNumber(fn, 'field.filmScaleUm', f.filmScaleUm, 1e-9, 1e6);
-    if (typeof f.absorptionTimeS !== 'number' || !(f.absorptionTimeS > 0))
-      throw new RangeError(`${fn}: field.absorptionTimeS must be a positive number of seconds, got ${String(f.absorptionTimeS)}`);
-    if (typeof f.carriedOil !== 'boolean') throw new TypeError(`${fn}: field.carriedOil must be a boolean, got ${String(f.carriedOil)}`);
-  }
-  return f;
 }

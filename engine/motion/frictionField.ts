@@ -1,4 +1,4 @@
-import { assertOilMap } from './assertState';
+import { assertGrid, assertObject, assertOilMap } from './assertState';
 import type { CoverFriction } from './coverFriction';
 import type { LaneOilMap } from './laneOilMap';
 import { assertNumber } from './assertNumber';
@@ -141,4 +141,25 @@ export function oilFrictionField(
     carriedOil: options.carriedOil ?? true,
     muMax: mu0 + dMu,
   };
+}
+
+const KINDS = new Set(['uniform', 'sampled', 'oil']);
+
+/** A friction field (uniformFrictionField's, sampledFrictionField's or oilFrictionField's). */
+export function assertField(fn: string, field: unknown): FrictionField {
+  assertObject(fn, 'field', field);
+  const f = field as FrictionField;
+  if (!KINDS.has(f.kind)) throw new TypeError(`${fn}: field.kind must be 'uniform', 'sampled' or 'oil', got ${String(f.kind)}`);
+  assertNumber(fn, 'field.mu0', f.mu0, 0, 10);
+  assertNumber(fn, 'field.dMu', f.dMu, -10, 10);
+  assertNumber(fn, 'field.muMax', f.muMax, 0, 10);
+  if (f.kind === 'sampled') assertGrid(fn, 'field', f.ftStep, f.rows, f.cols, f.grid);
+  if (f.kind === 'oil') {
+    assertGrid(fn, 'field', f.ftStep, f.rows, f.cols, f.filmUm);
+    assertNumber(fn, 'field.filmScaleUm', f.filmScaleUm, 1e-9, 1e6);
+    if (typeof f.absorptionTimeS !== 'number' || !(f.absorptionTimeS > 0))
+      throw new RangeError(`${fn}: field.absorptionTimeS must be a positive number of seconds, got ${String(f.absorptionTimeS)}`);
+    if (typeof f.carriedOil !== 'boolean') throw new TypeError(`${fn}: field.carriedOil must be a boolean, got ${String(f.carriedOil)}`);
+  }
+  return f;
 }

@@ -1,8 +1,8 @@
 import type { BallInertia } from './ballInertia';
 import type { DeliveryResult, IntegrateOptions } from './deliveryResult';
-import type { FrictionField } from './frictionField';
 import { assertNumber } from './assertNumber';
-import { assertField, assertInertia, assertState } from './assertState';
+import { assertInertia, assertState } from './assertState';
+import { assertField, type FrictionField } from './frictionField';
 import { DeliveryRecorder } from './deliveryRecorder';
 import { MOTION_CALIBRATION as K } from './motionCalibration';
 import { motionSteps } from './motionSteps';
