@@ -38,12 +38,18 @@ export async function seedDemo(): Promise<boolean> {
     }
 
     // Copperline Bowl, Harrow Bay: 24 lanes, the house shot in force on 1–20 and the sport pattern on 21–24.
-    const center = await Center.create({ name: 'Copperline Bowl', town: 'Harrow Bay', laneCount: 24, ownerId: owner.id }, { transaction });
+    const center = await Center.create(
+      { name: 'Copperline Bowl', town: 'Harrow Bay', laneCount: 24, timeZone: 'America/Denver', ownerId: owner.id },
+      { transaction },
+    );
     await Lane.bulkCreate(
       Array.from({ length: 24 }, (_, i) => ({ centerId: center.id, number: i + 1, notes: null })),
       { transaction },
     );
-    await Center.create({ name: 'Gullwing Lanes', town: 'Stonereach', laneCount: 16, ownerId: null }, { transaction });
+    await Center.create(
+      { name: 'Gullwing Lanes', town: 'Stonereach', laneCount: 16, timeZone: 'America/Chicago', ownerId: null },
+      { transaction },
+    );
     await seedShop(center.id, transaction);
     const weekAgo = new Date(Date.now() - 7 * DAY_MS);
     const house = patterns[0];

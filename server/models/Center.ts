@@ -6,6 +6,8 @@ export class Center extends Model<InferAttributes<Center>, InferCreationAttribut
   declare name: string;
   declare town: string;
   declare laneCount: number;
+  /** IANA time zone name; the center's days (schedules, takings) are reckoned in it. */
+  declare timeZone: CreationOptional<string>;
   declare ownerId: number | null;
   declare version: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
@@ -18,6 +20,7 @@ export class Center extends Model<InferAttributes<Center>, InferCreationAttribut
         name: { type: DataTypes.STRING(80), allowNull: false },
         town: { type: DataTypes.STRING(80), allowNull: false },
         laneCount: { type: DataTypes.INTEGER, allowNull: false },
+        timeZone: { type: DataTypes.STRING(64), allowNull: false, defaultValue: 'UTC' },
         ownerId: { type: DataTypes.INTEGER, allowNull: true },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
