@@ -98,6 +98,8 @@ export { shotStats } from './shotlog/shotStats';
 export { statsBy, STATS_KEYS } from './shotlog/statsBy';
 export type { StatsKey } from './shotlog/statsBy';
 export { suggestMoves, MOVE_THRESHOLDS } from './shotlog/suggestMoves';
+export { moveFollowUp, FOLLOW_UP } from './shotlog/moveFollowUp';
+export { differenceInterval } from './shotlog/differenceInterval';
 export { spareAdjustment, THREE_SIX_NINE } from './shotlog/spareAdjustment';
 export { isCalibrationShot, LAYDOWN_OFFSET_BOARDS, laydownBoardOf } from './shotlog/observation';
 export type { LoggedLine } from './shotlog/observation';
