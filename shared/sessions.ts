@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import type { Calibration, GameView, HitKind, Move, ShotStats } from '../engine/shotlog/types';
+import type { Calibration, GameView, HitKind, Move, MoveFollowUp, ShotStats } from '../engine/shotlog/types';
 import { engineValue } from './api';
 import { PageQuerySchema } from './auth';
 import { LANE_FRICTIONS, LANE_KINDS, LaneSurfaceSchema } from './centers';
@@ -160,6 +160,7 @@ export type ShotCreated = z.infer<typeof ShotCreatedSchema>;
 const ShotStatsSchema = engineValue<ShotStats>("The engine's shot statistics");
 const MoveSchema = engineValue<Move>('A move the engine suggests from the logged shots');
 const CalibrationSchema = engineValue<Calibration>("The engine's ball-motion calibration");
+const FollowUpSchema = engineValue<MoveFollowUp>("A move the bowler made, with the shots before and after it (the engine's moveFollowUp)");
 
 /** A session with everything on it. `shots` is the list here (the count is `shotCount`); `games` stays the count, the frame sheets are `gameViews`. */
 export const SessionDetailSchema = SessionSchema.omit({ shots: true }).extend({
@@ -168,6 +169,8 @@ export const SessionDetailSchema = SessionSchema.omit({ shots: true }).extend({
   shots: z.array(ShotSchema),
   stats: ShotStatsSchema,
   moves: z.array(MoveSchema),
+  /** Every move made in this session, followed up: did the pocket and strike rates improve? */
+  followUps: z.array(FollowUpSchema),
   annotations: z.array(AnnotationSchema),
   owner: z.object({ id: z.number().int(), displayName: z.string() }),
 });

@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import { changedAfterCommit } from '../../lib/changeFeed';
 import { UniqueConstraintError, type Transaction } from 'sequelize';
-import { buildGame, checkDelivery, isCalibrationShot, shotStats, suggestMoves, surfaceWords } from '../../../engine/index';
+import { buildGame, checkDelivery, isCalibrationShot, moveFollowUp, shotStats, suggestMoves, surfaceWords } from '../../../engine/index';
 import type { LoggedDelivery } from '../../../engine/shotlog/types';
 import type { Page } from '../../../shared/auth';
 import { DEFAULT_LANE_SURFACE } from '../../../shared/centers';
@@ -149,6 +149,7 @@ export const sessionsService = {
       shots: shots.map(toShotDto),
       stats: shotStats(records),
       moves: suggestMoves({ shots: records, hand: profile.hand }),
+      followUps: moveFollowUp({ shots: records, hand: profile.hand }),
       annotations: annotations.map(toAnnotationDto),
       owner: { id: owner!.id, displayName: owner!.displayName },
     };
