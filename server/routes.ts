@@ -7,6 +7,7 @@ import { coachRoutes, plansRoutes } from './features/coaching/coaching.routes';
 import { coverageRoutes, layoutLabRoutes, trialsRoutes } from './features/decisions/decisions.routes';
 import { docsRoutes } from './features/docs/docs.routes';
 import { healthRoutes } from './features/health/health.routes';
+import { leaguesRoutes } from './features/leagues/leagues.routes';
 import { matchupsRoutes } from './features/matchups/matchups.routes';
 import { patternsRoutes } from './features/patterns/patterns.routes';
 import { profileRoutes } from './features/profile/profile.routes';
@@ -36,6 +37,7 @@ export const ROUTE_TABLE: readonly RouteGroup[] = [
   ordersRoutes,
   followsRoutes,
   sessionsRoutes,
+  leaguesRoutes,
   statsRoutes,
   calibrationRoutes,
   coachRoutes,

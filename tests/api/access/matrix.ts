@@ -353,6 +353,27 @@ export const MATRIX: Record<string, MatrixEntry> = {
   },
   'GET /api/plans': { req: () => ({ url: '/api/plans' }), expect: signedIn(200) },
 
+  // ── leagues (the bowler's own; anyone else 404) ───────────────────────────────────────────
+  'GET /api/leagues': { req: () => ({ url: '/api/leagues' }), expect: signedIn(200) },
+  'POST /api/leagues': {
+    req: () => ({
+      url: '/api/leagues',
+      body: { name: 'Matrix league', seasonStart: '2026-09-01', handicap: { basis: 220, percentage: 90 } },
+    }),
+    expect: signedIn(201),
+  },
+  'GET /api/leagues/:id': { req: async (f) => ({ url: `/api/leagues/${await f.freshLeague()}` }), expect: ownOnly(200) },
+  'PATCH /api/leagues/:id': {
+    req: async (f) => ({ url: `/api/leagues/${await f.freshLeague()}`, body: { enteringAverage: 180 } }),
+    expect: ownOnly(200),
+  },
+  'DELETE /api/leagues/:id': { req: async (f) => ({ url: `/api/leagues/${await f.freshLeague()}` }), expect: ownOnly(204) },
+  'GET /api/leagues/:id/standing': { req: async (f) => ({ url: `/api/leagues/${await f.freshLeague()}/standing` }), expect: ownOnly(200) },
+  'GET /api/leagues/:id/season.csv': {
+    req: async (f) => ({ url: `/api/leagues/${await f.freshLeague()}/season.csv` }),
+    expect: ownOnly(200),
+  },
+
   // ── decisions: trials (owner's; a linked coach reads), coverage, the layout lab ───────────────
   'GET /api/trials': { req: () => ({ url: '/api/trials' }), expect: signedIn(200) },
   'POST /api/trials': {
