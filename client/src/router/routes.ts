@@ -21,6 +21,7 @@ export const ROUTE_NAMES = [
   'center-admin',
   'sessions',
   'session',
+  'leagues',
   'stats',
   'coach',
   'decisions',
@@ -102,6 +103,7 @@ export const routes: AppRouteRecord[] = [
       { path: 'orders/:id(\\d+)', name: 'order', component: () => import('@/views/OrderView.vue'), meta: { title: 'Order' } },
       { path: 'sessions', name: 'sessions', component: () => import('@/views/SessionsView.vue'), meta: { title: 'Sessions' } },
       { path: 'sessions/:id(\\d+)', name: 'session', component: () => import('@/views/SessionView.vue'), meta: { title: 'Session' } },
+      { path: 'leagues', name: 'leagues', component: () => import('@/views/LeaguesView.vue'), meta: { title: 'Leagues' } },
       { path: 'stats', name: 'stats', component: () => import('@/views/StatsView.vue'), meta: { title: 'Stats' } },
       // Coaches and admins see their students; every bowler sees their coaches and invitations here.
       { path: 'coach', name: 'coach', component: () => import('@/views/CoachView.vue'), meta: { title: 'Coach' } },
