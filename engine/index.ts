@@ -99,6 +99,8 @@ export { statsBy, STATS_KEYS } from './shotlog/statsBy';
 export type { StatsKey } from './shotlog/statsBy';
 export { suggestMoves, MOVE_THRESHOLDS } from './shotlog/suggestMoves';
 export { moveFollowUp, FOLLOW_UP } from './shotlog/moveFollowUp';
+export { upkeepDue, UPKEEP_DEFAULTS } from './upkeep/upkeepDue';
+export type { UpkeepItem } from './upkeep/upkeepDue';
 export { leagueAverage } from './league/leagueAverage';
 export { handicapFor } from './league/handicapFor';
 export type { HandicapRule } from './league/handicapFor';

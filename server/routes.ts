@@ -8,6 +8,7 @@ import { coverageRoutes, layoutLabRoutes, trialsRoutes } from './features/decisi
 import { docsRoutes } from './features/docs/docs.routes';
 import { healthRoutes } from './features/health/health.routes';
 import { leaguesRoutes } from './features/leagues/leagues.routes';
+import { upkeepRoutes } from './features/upkeep/upkeep.routes';
 import { matchupsRoutes } from './features/matchups/matchups.routes';
 import { patternsRoutes } from './features/patterns/patterns.routes';
 import { profileRoutes } from './features/profile/profile.routes';
@@ -38,6 +39,7 @@ export const ROUTE_TABLE: readonly RouteGroup[] = [
   followsRoutes,
   sessionsRoutes,
   leaguesRoutes,
+  upkeepRoutes,
   statsRoutes,
   calibrationRoutes,
   coachRoutes,

@@ -171,7 +171,9 @@ export const ordersService = {
           ball.set({
             surfaceGrit: toGrit,
             polished: toPolished,
-            ...(order.serviceKind === 'oil-extraction' ? {} : { gamesSinceResurface: 0 }),
+            ...(order.serviceKind === 'oil-extraction'
+              ? { gamesSinceExtraction: 0, extractionCountedAt: now }
+              : { gamesSinceResurface: 0, resurfaceCountedAt: now }),
           });
           await ball.save({ transaction });
           refitBowlerAfterCommit(order.userId, transaction);

@@ -374,6 +374,10 @@ export const MATRIX: Record<string, MatrixEntry> = {
     expect: ownOnly(200),
   },
 
+  // ── ball upkeep (the bowler's own balls) ──────────────────────────────────────────────────
+  'GET /api/upkeep': { req: () => ({ url: '/api/upkeep' }), expect: signedIn(200) },
+  'PATCH /api/upkeep/:id': { req: (f) => ({ url: `/api/upkeep/${f.ball.id}`, body: { extractionGames: 40 } }), expect: ownOnly(200) },
+
   // ── decisions: trials (owner's; a linked coach reads), coverage, the layout lab ───────────────
   'GET /api/trials': { req: () => ({ url: '/api/trials' }), expect: signedIn(200) },
   'POST /api/trials': {
