@@ -215,6 +215,10 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
     const atShop = ballRow.getByRole('link', { name: `At the shop — order #${flow.orderId}` });
     await atShop.waitFor();
     expect(await ballRow.innerText()).not.toContain('In the bag');
+    await page.goto(`/arsenal/${flow.ballId}`);
+    await page.getByRole('heading', { level: 2, name: 'Specs' }).waitFor();
+    expect(await page.getByTestId('ball-at-shop').innerText()).toBe(`At the shop — order #${flow.orderId}`);
+    await page.goto('/arsenal');
     await atShop.click();
     await page.waitForURL(new RegExp(`/orders/${flow.orderId}$`));
   });
@@ -330,6 +334,8 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
     expect(await row.innerText()).toContain('Paid');
     const orderId = Number(/#(\d+)/.exec(await row.innerText())?.[1]);
     expect(orderId).toBeGreaterThan(0);
+    // Paid at the counter: no card refund is offered.
+    expect(await page.getByRole('button', { name: `Refund order ${orderId}` }).count()).toBe(0);
 
     await confirmMove(page, 'Mark in progress', orderId);
     await row.getByText('In progress').waitFor();
