@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { AuditEvent, Order, OrderEvent, ShopService } from '../../../server/models/index';
+import { AuditEvent, Order, OrderEvent, sequelize, ShopService } from '../../../server/models/index';
 import type { Order as OrderDto } from '../../../shared/shop';
 import { api, createUser, errorOf } from '../../helpers/api';
 import { createCenter } from '../../helpers/fixtures';
@@ -147,6 +147,21 @@ describe('takings by the center’s local day', () => {
     const bad = await api.get(`/api/centers/${center.id}/takings.csv`).query({ from: '2026-11-12', to: '2026-11-10' }).set(owner.auth);
     expect(bad.status).toBe(400);
     expect(errorOf(bad.body).fields).toHaveProperty(['query.to']);
+  });
+});
+
+describe('the orders board by day', () => {
+  it('filters by the center’s local day: an evening order in Denver is on that day, not the next UTC one', async () => {
+    const { owner, center, polish, bowler } = await shopWorld();
+    await center.update({ timeZone: 'America/Denver' });
+    const evening = await paidAt(center.id, bowler.user.id, polish, '2026-11-11T03:30:00Z');
+    const morning = await paidAt(center.id, bowler.user.id, polish, '2026-11-11T16:00:00Z');
+    for (const o of [evening, morning])
+      await sequelize.query('UPDATE orders SET created_at = paid_at WHERE id = :id', { replacements: { id: o.id } });
+    const ids = async (date: string) =>
+      (await api.get(`/api/centers/${center.id}/orders`).query({ date }).set(owner.auth)).body.items.map((x: OrderDto) => x.id);
+    expect(await ids('2026-11-10')).toEqual([evening.id]);
+    expect(await ids('2026-11-11')).toEqual([morning.id]);
   });
 });
 
