@@ -26,6 +26,7 @@ import { arsenalRepository } from '../arsenal/arsenal.repository';
 import { refitBowlerAfterCommit } from '../stats/calibrationJobs';
 import { freshOrder, ownedCenter, visibleOrder } from './shop.common';
 import { enqueueOrderMail } from './shop.mail';
+import { knownZone } from './takings.service';
 import { shopRepository, toOrderDto } from './shop.repository';
 
 /** Pro-shop orders: the bowler orders and cancels, the shop moves an order along its life. */
@@ -180,7 +181,7 @@ export const ordersService = {
     const where: Record<string | symbol, unknown> = { centerId, ...statusWhere(q) };
     if (q.date) {
       // The center's local day.
-      const bounds = await shopRepository.localDayBounds(q.date, center.timeZone || 'UTC');
+      const bounds = await shopRepository.localDayBounds(q.date, knownZone(center.timeZone));
       where.createdAt = { [Op.gte]: bounds.from, [Op.lt]: bounds.to };
     }
     const { rows, count } = await shopRepository.page(where as WhereOptions<Order>, q.page, q.pageSize);

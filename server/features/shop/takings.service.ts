@@ -14,6 +14,17 @@ export function localToday(timeZone: string, now = new Date()): string {
   }
 }
 
+/** The zone's own name when this runtime knows it, else UTC (a center's stored zone is never trusted into SQL unchecked). */
+export function knownZone(timeZone: string | null | undefined): string {
+  if (!timeZone) return 'UTC';
+  try {
+    new Intl.DateTimeFormat('en-US', { timeZone });
+    return timeZone;
+  } catch {
+    return 'UTC';
+  }
+}
+
 /** Every date from `from` to `to` (both included). */
 function datesBetween(from: string, to: string): string[] {
   const out: string[] = [];
@@ -39,7 +50,7 @@ export const takingsService = {
    */
   async takings(actor: AuthUser, centerId: number, query: TakingsQuery = {}): Promise<Takings> {
     const center = await ownedCenter(actor, centerId);
-    const timeZone = center.timeZone || 'UTC';
+    const timeZone = knownZone(center.timeZone);
     const from = query.from ?? query.date ?? localToday(timeZone);
     const to = query.to ?? from;
     const currency = ((await shopRepository.takingsCurrency(centerId)) ?? 'usd') as Currency;
