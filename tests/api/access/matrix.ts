@@ -1,5 +1,6 @@
 import type { Actor, Fixture } from './fixture';
 import { TINY_PNG } from './fixture';
+import { api } from '../../helpers/api';
 
 /** What one matrix cell sends. */
 export interface CellRequest {
@@ -435,6 +436,33 @@ export const MATRIX: Record<string, MatrixEntry> = {
   'GET /api/centers/:id/takings': {
     req: (f) => ({ url: `/api/centers/${f.center.id}/takings` }),
     expect: [401, 403, 403, 403, 403, 200, 403, 403],
+  },
+  'GET /api/centers/:id/takings.csv': {
+    req: (f) => ({ url: `/api/centers/${f.center.id}/takings.csv?from=2026-11-01&to=2026-11-07` }),
+    expect: [401, 403, 403, 403, 403, 200, 403, 403],
+  },
+  'POST /api/centers/:id/orders': {
+    req: (f) => ({
+      url: `/api/centers/${f.center.id}/orders`,
+      body: {
+        serviceId: f.serviceId,
+        customerName: 'Walk-in Customer',
+        customerContact: '555-0100',
+        ballDescription: 'Green solid, 14 lb',
+      },
+    }),
+    expect: [401, 403, 403, 403, 403, 201, 403, 403],
+    note: 'a walk-in order at the counter: the center’s proprietor only',
+  },
+  'POST /api/orders/:id/status/undo': {
+    req: async (f) => {
+      const id = await f.freshOrderId('card');
+      const moved = await api.patch(`/api/orders/${id}/status`).set(f.as('proprietorThis')).send({ status: 'in_progress' });
+      if (moved.status !== 200) throw new Error(`fixture: move answered ${moved.status}`);
+      return { url: `/api/orders/${id}/status/undo` };
+    },
+    expect: [401, 403, 404, 404, 404, 200, 404, 404],
+    note: 'undoes the proprietor’s own move just made',
   },
   'POST /api/orders': {
     req: async (f, actor) => ({ url: '/api/orders', body: { serviceId: f.serviceId, ballId: await f.ballOf(actor) } }),
