@@ -120,3 +120,32 @@ describe('a league night on a lane pair, followed up (375 px)', () => {
     await screenshot(page, 'season-league-375');
   });
 });
+
+describe('an upkeep reminder leads to a pro-shop order (375 px)', () => {
+  it('a spare ball at 200 games since its resurface shows as due on Home; the order dialog opens for that ball', async () => {
+    const token = await apiToken(baseUrl, DEMO.dana);
+    const auth = { Authorization: `Bearer ${token}` };
+    const balls = (await (await fetch(`${baseUrl}/api/arsenal`, { headers: auth })).json()) as {
+      items: { id: number; status: string; version: number; name: string; nickname: string | null }[];
+    };
+    const spare = balls.items.find((b) => b.status === 'active')!;
+    await call(token, 'PATCH', `/api/arsenal/${spare.id}`, { version: spare.version, gamesSinceResurface: 200 });
+    await call(token, 'PATCH', `/api/upkeep/${spare.id}`, { extractionDone: true });
+
+    const { page } = await open(MOBILE);
+    await signIn(page, DEMO.dana);
+    const card = page.locator('section.home-upkeep');
+    await card.getByRole('heading', { name: 'Ball upkeep' }).waitFor();
+    const item = card.locator('[data-upkeep]').filter({ hasText: spare.name }).first();
+    await expect.poll(() => item.textContent()).toMatch(/Due.*Resurface due: 200 games since \(every 60\)/s);
+    expect(await hasHorizontalScroll(page)).toBe(false);
+    await screenshot(page, 'season-upkeep-375');
+    await item.getByRole('button', { name: 'Order at the pro shop' }).click();
+    const dialog = page.getByRole('dialog', { name: /^Order a service for / });
+    await dialog.waitFor();
+    // the resurface is preselected from the center's price list (the ball's own grit when the shop offers it)
+    await expect
+      .poll(() => dialog.locator('.el-select__selected-item').allTextContents())
+      .toContainEqual(expect.stringMatching(/^Resurface to \d+ grit/));
+  });
+});
