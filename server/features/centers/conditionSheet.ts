@@ -18,8 +18,8 @@ const PAGE_BOTTOM = 842 - 48;
 const CELL_W = 6;
 const MAP_W = 39 * CELL_W;
 const MAP_H = 230;
-/** Target arrows: boards 5–35 in fives, the middle one furthest (about 16 ft) — common practice for the lane markings. */
-const ARROWS = [5, 10, 15, 20, 25, 30, 35].map((b) => ({ board: b, ft: 16 - Math.abs(b - 20) / 5 }));
+/** Target arrows on boards 5–35 in fives at about 15 ft, as the screen's oil map draws them — common practice. */
+const ARROWS = [5, 10, 15, 20, 25, 30, 35].map((b) => ({ board: b, ft: 15 }));
 /** Approach-side dots on the lane at about 7 ft — common practice. */
 const DOTS = [3, 5, 8, 11, 14, 26, 29, 32, 35, 37].map((b) => ({ board: b, ft: 7 }));
 
@@ -129,7 +129,7 @@ function legend(doc: Doc, x: number, y: number): void {
     .font('body')
     .fontSize(8.5)
     .fillColor(MUTED)
-    .text('Oil: light (little) to dark (heaviest)', x + 96, yy + 1, { lineBreak: false });
+    .text('Oil: light (little) to dark (most)', x + 96, yy + 1, { lineBreak: false });
   yy += 16;
   doc.rect(x, yy, 18, 10).fill('#fff');
   hatch(doc, x, yy, 18, 10);
@@ -137,7 +137,7 @@ function legend(doc: Doc, x: number, y: number): void {
   doc.fillColor(MUTED).text('Dry outside boards (hatched)', x + 24, yy + 1, { lineBreak: false });
   yy += 16;
   arrowMark(doc, x + 9, yy + 5);
-  doc.fillColor(MUTED).text('Arrows (about 13–16 ft)', x + 24, yy + 1, { lineBreak: false });
+  doc.fillColor(MUTED).text('Arrows (about 15 ft)', x + 24, yy + 1, { lineBreak: false });
   yy += 16;
   dotMark(doc, x + 9, yy + 5);
   doc.fillColor(MUTED).text('Dots (about 7 ft)', x + 24, yy + 1, { lineBreak: false });
