@@ -234,6 +234,11 @@ describe('follower e-mails and unsubscribing', () => {
     expect(unknown.status).toBe(404);
     expect((await api.post('/api/unsubscribe/undo').send({ token: 'x'.repeat(32) })).status).toBe(404);
     expect(errorOf((await api.post('/api/unsubscribe/undo').send({ token: 'short' })).body).fields).toHaveProperty(['body.token']);
+    // Following again in the app after an e-mail unsubscribe brings back the same follow and its link.
+    await api.post('/api/unsubscribe').send({ token }).expect(200);
+    await api.post(`/api/centers/${w.center.id}/follow`).set(fan.auth).expect(200);
+    const back = await Follow.findAll({ where: { centerId: w.center.id, userId: fan.user.id }, paranoid: false });
+    expect(back.map((f) => [f.unsubscribeToken, f.deletedAt])).toEqual([[token, null]]);
     // Unfollowing in the app ends the link for good: no undo.
     await api.delete(`/api/centers/${w.center.id}/follow`).set(fan.auth).expect(200);
     expect((await api.post('/api/unsubscribe/undo').send({ token })).status).toBe(404);
