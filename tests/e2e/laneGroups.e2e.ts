@@ -165,9 +165,22 @@ describe('lane groups: publish two groups, read both, follow the e-mail to the r
       await visitor.getByText('You follow Copperline Bowl again.').waitFor();
     }
 
-    // Dana still follows Copperline Bowl.
+    // Dana still follows Copperline Bowl: Home lists both lane groups, and the Matchup picker offers each under the center.
     await page.goto(`/centers/${centerId}/condition`);
     await page.getByText('You follow this center').waitFor();
+    await page.goto('/');
+    const today = page.getByRole('region', { name: "Today's condition" });
+    await today.getByText(`Lanes 1–12 — ${LEAGUE}`).waitFor();
+    await today.getByText(`Lanes 13–24 — ${OPEN_PLAY}`).waitFor();
+    await screenshot(page, 'lane-groups-home-desktop');
+    await page.goto('/matchup');
+    await page.getByRole('heading', { level: 1, name: 'Matchup' }).waitFor();
+    await page.getByRole('combobox', { name: 'Condition' }).focus();
+    await page.keyboard.press('Enter');
+    await page.getByText('Copperline Bowl today, by lane group', { exact: true }).waitFor();
+    await page.getByRole('option', { name: `Copperline Bowl today — ${LEAGUE}, lanes 1–12` }).waitFor();
+    await page.getByRole('option', { name: `Copperline Bowl today — ${OPEN_PLAY}, lanes 13–24` }).waitFor();
+    await screenshot(page, 'lane-groups-matchup-picker-desktop');
 
     // A link that is not valid says so in words, not in JSON.
     const bad = (await open(MOBILE)).page;
