@@ -6,6 +6,7 @@ export const ROUTE_NAMES = [
   'sign-up',
   'reset-password',
   'verify-email',
+  'unsubscribe',
   'home',
   'profile',
   'admin-users',
@@ -61,6 +62,13 @@ export const routes: AppRouteRecord[] = [
     name: 'verify-email',
     component: () => import('@/views/VerifyEmailView.vue'),
     meta: { title: 'Confirm your e-mail', public: true },
+  },
+  {
+    // The unsubscribe link of a follower e-mail: asks before it stops anything.
+    path: '/unsubscribe',
+    name: 'unsubscribe',
+    component: () => import('@/views/UnsubscribeView.vue'),
+    meta: { title: 'Condition e-mails', public: true },
   },
   {
     path: '/',

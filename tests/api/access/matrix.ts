@@ -254,6 +254,10 @@ export const MATRIX: Record<string, MatrixEntry> = {
     req: (f) => ({ url: `/api/centers/${f.center.id}/conditions/current.pdf` }),
     expect: all(200),
   },
+  'GET /api/centers/:id/conditions/lane-groups': {
+    req: (f) => ({ url: `/api/centers/${f.center.id}/conditions/lane-groups` }),
+    expect: all(200),
+  },
   'GET /api/centers/:id/conditions': { req: (f) => ({ url: `/api/centers/${f.center.id}/conditions` }), expect: all(200) },
   'POST /api/centers/:id/conditions': {
     req: (f) => ({ url: `/api/centers/${f.center.id}/conditions`, body: { patternId: f.pattern.id, lanes: [20], validFrom: today() } }),
@@ -265,6 +269,16 @@ export const MATRIX: Record<string, MatrixEntry> = {
   'GET /api/follows': { req: () => ({ url: '/api/follows' }), expect: signedIn(200) },
   'GET /api/unsubscribe': {
     req: async (f) => ({ url: `/api/unsubscribe?token=${await f.freshUnsubscribeToken()}` }),
+    expect: all(303),
+    note: 'the old e-mail link: sends everyone to the page that asks first, and changes nothing',
+  },
+  'GET /api/unsubscribe/info': {
+    req: async (f) => ({ url: `/api/unsubscribe/info?token=${await f.freshUnsubscribeToken()}` }),
+    expect: all(200),
+    note: 'the token in the e-mail is the credential',
+  },
+  'POST /api/unsubscribe/undo': {
+    req: async (f) => ({ url: '/api/unsubscribe/undo', body: { token: await f.freshUnsubscribeToken() } }),
     expect: all(200),
     note: 'the token in the e-mail is the credential',
   },
