@@ -81,8 +81,18 @@ export const PlanSchema = z.object({
   ballId: z.number().int().nullable(),
   ballName: z.string().nullable(),
   createdAt: z.string(),
+  /** The student's and the coach's answers, oldest first. */
+  replies: z.array(
+    z.object({ id: z.number().int(), authorId: z.number().int(), authorName: z.string(), text: z.string(), createdAt: z.string() }),
+  ),
 });
 export type Plan = z.infer<typeof PlanSchema>;
+export type PlanReply = Plan['replies'][number];
+
+export const PlanReplyCreateSchema = z
+  .object({ text: z.string({ error: 'Write your answer' }).trim().min(1, 'Write your answer').max(2000, 'At most 2000 characters') })
+  .strict();
+export type PlanReplyCreate = z.infer<typeof PlanReplyCreateSchema>;
 
 export const AnnotationSchema = z.object({
   id: z.number().int(),

@@ -26,6 +26,7 @@ import { Annotation } from './Annotation';
 import { BowlingSession } from './BowlingSession';
 import { CoachLink } from './CoachLink';
 import { Plan } from './Plan';
+import { PlanReply } from './PlanReply';
 import { Shot } from './Shot';
 
 // Every model is initialised and every association declared here, once.
@@ -55,6 +56,7 @@ BowlingSession.initModel(sequelize);
 Shot.initModel(sequelize);
 CoachLink.initModel(sequelize);
 Plan.initModel(sequelize);
+PlanReply.initModel(sequelize);
 Annotation.initModel(sequelize);
 CalibrationFit.initModel(sequelize);
 
@@ -99,6 +101,8 @@ CoachLink.belongsTo(User, { foreignKey: 'coachId', as: 'coach' });
 CoachLink.belongsTo(User, { foreignKey: 'studentId', as: 'student' });
 Plan.belongsTo(User, { foreignKey: 'coachId', as: 'coach' });
 Plan.belongsTo(Ball, { foreignKey: 'ballId', as: 'ball' });
+Plan.hasMany(PlanReply, { foreignKey: 'planId', as: 'replies' });
+PlanReply.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
 Annotation.belongsTo(User, { foreignKey: 'authorId', as: 'author' });
 BowlingSession.hasMany(Annotation, { foreignKey: 'sessionId', as: 'annotations' });
 
@@ -108,6 +112,7 @@ export {
   BowlingSession,
   CoachLink,
   Plan,
+  PlanReply,
   Shot,
   AuditEvent,
   Ball,

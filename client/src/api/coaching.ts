@@ -4,6 +4,7 @@ import {
   type Plan,
   type PlanCreate,
   type PlanKind,
+  type PlanReplyCreate,
   type PersonRef,
   type StudentDetail,
   type StudentSummary,
@@ -33,4 +34,6 @@ export const coachingApi = {
   sendPlan: (studentId: number, body: PlanInput) => api.post<{ item: Plan }>(`/coach/students/${studentId}/plans`, body),
   /** My plans as a student, newest first. */
   myPlans: (signal?: AbortSignal) => api.get<{ items: Plan[] }>('/plans', { signal }),
+  /** Answer a plan (its student or its coach). */
+  replyToPlan: (planId: number, body: PlanReplyCreate) => api.post<{ item: Plan }>(`/plans/${planId}/replies`, body),
 };

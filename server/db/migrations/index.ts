@@ -17,6 +17,7 @@ import * as m0013 from './20261230-0013-condition-schedules';
 import * as m0015 from './20261230-0015-shop-counter';
 import * as m0017 from './20261230-0017-leagues-and-lane-pairs';
 import * as m0018 from './20261230-0018-ball-upkeep';
+import * as m0019 from './20261230-0019-plan-replies';
 import type { QueryInterface } from 'sequelize';
 
 export interface MigrationModule {
@@ -43,4 +44,5 @@ export const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '20261230-0015-shop-counter.ts', module: m0015 },
   { name: '20261230-0017-leagues-and-lane-pairs.ts', module: m0017 },
   { name: '20261230-0018-ball-upkeep.ts', module: m0018 },
+  { name: '20261230-0019-plan-replies.ts', module: m0019 },
 ];

@@ -1,13 +1,13 @@
 import { Op, QueryTypes, type CreationAttributes, type Transaction } from 'sequelize';
 import type { CoachLink as CoachLinkDto, Plan as PlanDto, StudentSummary } from '../../../shared/coaching';
-import { Ball, CoachLink, Plan, sequelize, User } from '../../models/index';
+import { Ball, CoachLink, Plan, PlanReply, sequelize, User } from '../../models/index';
 import { newestFirstPage } from '../../db/paging';
 
 /** Advisory-lock namespace of the invitation counter (any constant unique to this use). */
 const INVITE_LOCK_NS = 7141;
 
 type LinkWithPeople = CoachLink & { coach?: User | null; student?: User | null };
-type PlanWithRefs = Plan & { coach?: User | null; ball?: Ball | null };
+type PlanWithRefs = Plan & { coach?: User | null; ball?: Ball | null; replies?: PlanReply[] };
 
 const person = (u: User) => ({ id: u.id, displayName: u.displayName, email: u.email });
 
@@ -36,6 +36,15 @@ export function toPlanDto(p: PlanWithRefs): PlanDto {
     ballId: p.ballId,
     ballName: p.ball ? p.ball.name : null,
     createdAt: p.createdAt.toISOString(),
+    replies: [...(p.replies ?? [])]
+      .sort((a, b) => a.createdAt.getTime() - b.createdAt.getTime() || a.id - b.id)
+      .map((r) => ({
+        id: r.id,
+        authorId: r.authorId,
+        authorName: r.author?.displayName ?? '',
+        text: r.text,
+        createdAt: r.createdAt.toISOString(),
+      })),
   };
 }
 
@@ -47,6 +56,14 @@ const PLAN_REFS = [
   { model: User, as: 'coach', attributes: ['id', 'displayName'] },
   // A plan keeps naming a ball the student later removed.
   { model: Ball, as: 'ball', attributes: ['id', 'name'], paranoid: false },
+  // The answers in a query of their own (separate), so a page of plans stays a page of plans.
+  {
+    model: PlanReply,
+    as: 'replies',
+    separate: true,
+    order: [['createdAt', 'ASC'] as [string, string]],
+    include: [{ model: User, as: 'author', attributes: ['id', 'displayName'] }],
+  },
 ];
 
 export const coachingRepository = {
@@ -144,6 +161,9 @@ export const coachingRepository = {
       rows: PlanWithRefs[];
       count: number;
     }>;
+  },
+  createReply(data: CreationAttributes<PlanReply>, transaction: Transaction): Promise<PlanReply> {
+    return PlanReply.create(data, { transaction });
   },
   findPlan(id: number, transaction?: Transaction): Promise<PlanWithRefs | null> {
     return Plan.findByPk(id, { include: PLAN_REFS, transaction }) as Promise<PlanWithRefs | null>;

@@ -1,7 +1,14 @@
 import esc from 'escape-html';
 import { UniqueConstraintError } from 'sequelize';
 import type { Page } from '../../../shared/auth';
-import type { CoachLink as CoachLinkDto, Plan as PlanDto, PlanCreate, StudentDetail, StudentSummary } from '../../../shared/coaching';
+import type {
+  CoachLink as CoachLinkDto,
+  Plan as PlanDto,
+  PlanCreate,
+  PlanReplyCreate,
+  StudentDetail,
+  StudentSummary,
+} from '../../../shared/coaching';
 import { config } from '../../config/index';
 import { publicUrl } from '../../lib/publicUrl';
 import { AppError } from '../../lib/AppError';
@@ -226,5 +233,46 @@ export const coachingService = {
   async myPlans(user: AuthUser, page: number, pageSize: number): Promise<Page<PlanDto>> {
     const { rows, count } = await coachingRepository.plans({ studentId: user.id }, page, pageSize);
     return { items: rows.map(toPlanDto), total: count, page, pageSize };
+  },
+
+  /**
+   * An answer to a plan, by its student or its coach (anyone else 404): stored, audited and mailed to the other side
+   * through the outbox, in one transaction.
+   */
+  async replyToPlan(user: AuthUser, planId: number, input: PlanReplyCreate): Promise<PlanDto> {
+    const plan = await coachingRepository.findPlan(planId);
+    if (!plan || (plan.studentId !== user.id && plan.coachId !== user.id)) throw AppError.notFound('Plan');
+    const otherId = plan.studentId === user.id ? plan.coachId : plan.studentId;
+    const other = await userRepository.findById(otherId);
+    const base = publicUrl();
+    await sequelize.transaction(async (transaction) => {
+      const r = await coachingRepository.createReply({ planId: plan.id, authorId: user.id, text: input.text }, transaction);
+      await audit(
+        { actorId: user.id, action: 'coach.plan_replied', subjectType: 'plan', subjectId: plan.id, details: { replyId: r.id } },
+        transaction,
+      );
+      if (other) {
+        const toCoach = other.id === plan.coachId;
+        const body = mailBody(
+          [`Hello ${other.displayName},`, '', `${user.displayName} answered the plan "${plan.title}":`, '', ...input.text.split('\n')],
+          toCoach
+            ? { href: `${base}/coach?student=${plan.studentId}`, label: 'See it under Coach' }
+            : { href: `${base}/`, label: 'See it on your Lanewright home' },
+        );
+        await enqueueMail(
+          [
+            {
+              to: other.email,
+              kind: 'coach_plan_reply',
+              ref: String(r.id),
+              subject: `${user.displayName} answered: ${plan.title}`.slice(0, 200),
+              ...body,
+            },
+          ],
+          transaction,
+        );
+      }
+    });
+    return toPlanDto((await coachingRepository.findPlan(plan.id))!);
   },
 };

@@ -153,8 +153,8 @@ export const sessionsRepository = {
   findShot(sessionId: number, id: number, transaction: Transaction): Promise<Shot | null> {
     return Shot.findOne({ where: { id, sessionId }, transaction });
   },
-  createAnnotation(data: CreationAttributes<Annotation>): Promise<Annotation> {
-    return Annotation.create(data);
+  createAnnotation(data: CreationAttributes<Annotation>, transaction?: Transaction): Promise<Annotation> {
+    return Annotation.create(data, { transaction });
   },
   /** One page of a bowler's sessions, newest first, and the total, in one statement. */
   async list(

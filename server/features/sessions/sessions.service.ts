@@ -1,4 +1,5 @@
 import { createHash } from 'node:crypto';
+import escapeHtml from 'escape-html';
 import { changedAfterCommit } from '../../lib/changeFeed';
 import { UniqueConstraintError, type Transaction } from 'sequelize';
 import { buildGame, checkDelivery, isCalibrationShot, moveFollowUp, shotStats, suggestMoves, surfaceWords } from '../../../engine/index';
@@ -17,6 +18,8 @@ import type {
   ShotCreated,
 } from '../../../shared/sessions';
 import { AppError } from '../../lib/AppError';
+import { enqueueMail } from '../../lib/outbox';
+import { publicUrl } from '../../lib/publicUrl';
 import type { AuthUser } from '../../middleware/auth';
 import { sequelize, type BowlingSession, type Shot, type User } from '../../models/index';
 import { arsenalRepository } from '../arsenal/arsenal.repository';
@@ -264,15 +267,41 @@ export const sessionsService = {
 
   /** A note on a session, by its bowler or their linked coach. */
   async annotate(user: AuthUser, sessionId: number, input: AnnotationCreate): Promise<AnnotationDto> {
-    await sessionFor(user, sessionId, 'read');
+    const s = await sessionFor(user, sessionId, 'read');
     if (input.frame != null && input.gameNumber == null)
       throw AppError.badRequest('Name the game of the frame', { 'body.gameNumber': 'Give the game the frame belongs to' });
-    const a = await sessionsRepository.createAnnotation({
-      sessionId,
-      authorId: user.id,
-      gameNumber: input.gameNumber ?? null,
-      frame: input.frame ?? null,
-      text: input.text,
+    const owner = s.userId === user.id ? null : await userRepository.findById(s.userId);
+    // A coach's note is mailed to the bowler (through the outbox, in the same transaction as the note).
+    const a = await sequelize.transaction(async (transaction) => {
+      const row = await sessionsRepository.createAnnotation(
+        { sessionId, authorId: user.id, gameNumber: input.gameNumber ?? null, frame: input.frame ?? null, text: input.text },
+        transaction,
+      );
+      if (owner) {
+        const where = input.gameNumber != null ? ` on game ${input.gameNumber}${input.frame != null ? `, frame ${input.frame}` : ''}` : '';
+        const href = `${publicUrl()}/sessions/${sessionId}`;
+        const lines = [
+          `Hello ${owner.displayName},`,
+          '',
+          `${user.displayName} left a note on your session of ${s.date}${where}:`,
+          '',
+          ...input.text.split('\n'),
+        ];
+        await enqueueMail(
+          [
+            {
+              to: owner.email,
+              kind: 'session_annotation',
+              ref: String(row.id),
+              subject: `A note from ${user.displayName} on your session of ${s.date}`.slice(0, 200),
+              text: [...lines, '', `Open the session: ${href}`].join('\n'),
+              html: `<p>${lines.map(escapeHtml).join('<br>')}</p><p><a href="${escapeHtml(href)}">Open the session</a></p>`,
+            },
+          ],
+          transaction,
+        );
+      }
+      return row;
     });
     return toAnnotationDto(Object.assign(a, { author: { displayName: user.displayName } as User }));
   },

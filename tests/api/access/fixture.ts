@@ -1,7 +1,7 @@
 import crypto from 'node:crypto';
 import { api, createUser } from '../../helpers/api';
 import { createBall, createCenter, createModel, createPattern } from '../../helpers/fixtures';
-import { Condition, EmailVerification, Follow, League, ShopService } from '../../../server/models/index';
+import { Condition, EmailVerification, Follow, League, Plan, ShopService } from '../../../server/models/index';
 import { event, getOrder, listenForWebhooks, signature, submitCard, waitFor } from '../shop/shopHelpers';
 import type { Ball, Center, Pattern, User } from '../../../server/models/index';
 
@@ -65,6 +65,8 @@ export interface Fixture {
   freshTrial(): Promise<number>;
   /** A new league of owner's (for routes that change or delete one). */
   freshLeague(): Promise<number>;
+  /** A new plan of coachLinked's for owner. */
+  freshPlan(): Promise<number>;
   /**
    * A new order of owner at center, unpaid or paid by card on the payment fake's page. Paid orders are always paid
    * through the fake, never by a made-up webhook alone: the payment service must know every payment in this
@@ -192,6 +194,17 @@ export async function buildFixture(): Promise<Fixture> {
         });
       if (r.status !== 201) throw new Error(`fixture: trial answered ${r.status} ${JSON.stringify(r.body)}`);
       return r.body.item.id as number;
+    },
+    async freshPlan() {
+      const p = await Plan.create({
+        coachId: coachLinked.user.id,
+        studentId: owner.user.id,
+        title: 'Matrix plan',
+        kind: 'line',
+        body: 'Two left with the feet.',
+        ballId: null,
+      });
+      return p.id;
     },
     async freshLeague() {
       const l = await League.create({

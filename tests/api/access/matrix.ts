@@ -367,6 +367,11 @@ export const MATRIX: Record<string, MatrixEntry> = {
     expect: (f) => [401, 404, 404, f.coachLinked ? 201 : 404, 404, 404, 404, 404],
   },
   'GET /api/plans': { req: () => ({ url: '/api/plans' }), expect: signedIn(200) },
+  'POST /api/plans/:id/replies': {
+    req: async (f) => ({ url: `/api/plans/${await f.freshPlan()}/replies`, body: { text: 'Tried it: lighter hits now.' } }),
+    expect: (f) => [401, 201, 404, f.coachLinked ? 201 : 404, 404, 404, 404, 404],
+    note: 'the plan of coachLinked for owner: its student and its coach answer; everyone else 404',
+  },
 
   // ── leagues (the bowler's own; anyone else 404) ───────────────────────────────────────────
   'GET /api/leagues': { req: () => ({ url: '/api/leagues' }), expect: signedIn(200) },
