@@ -31,6 +31,81 @@ const TWO_AND_ONE_SOURCE =
 /** Physical direction and boards → the bowler's own board count (+ toward the non-hand side). */
 const own = (m: BoardMove, hand: 'right' | 'left'): number => (m.direction === 'left' ? 1 : -1) * (hand === 'right' ? 1 : -1) * m.boards;
 
+/** The shots in the order suggestMoves reads them, and the first balls among them (internal). */
+function orderShots(a: ReturnType<typeof analyzeShots>): { ordered: ShotEntry[]; firsts: ShotEntry[] } {
+  const sessionOrder = new Map<string, number>();
+  a.entries.forEach((e) => {
+    if (!sessionOrder.has(e.shot.sessionId)) sessionOrder.set(e.shot.sessionId, sessionOrder.size);
+  });
+  const ordered = a.entries
+    .map((e, i) => ({ e, i }))
+    .sort((x, y) => {
+      const s = x.e.shot;
+      const t = y.e.shot;
+      return (
+        (s.date < t.date ? -1 : s.date > t.date ? 1 : 0) ||
+        (sessionOrder.get(s.sessionId) as number) - (sessionOrder.get(t.sessionId) as number) ||
+        s.gameNumber - t.gameNumber ||
+        s.frame - t.frame ||
+        s.delivery - t.delivery ||
+        x.i - y.i
+      );
+    })
+    .map((x) => x.e);
+  const firsts = ordered.filter(isFirst);
+  return { ordered, firsts };
+}
+
+const isFirst = (e: ShotEntry): boolean => (e.view ? e.view.rackBall === 1 : e.shot.delivery === 1);
+
+const sameLineAs =
+  (last: ShotEntry) =>
+  (e: ShotEntry): boolean =>
+    e.shot.ballId === last.shot.ballId &&
+    (e.shot.feetBoard ?? null) === (last.shot.feetBoard ?? null) &&
+    (e.shot.targetBoard ?? null) === (last.shot.targetBoard ?? null);
+
+/**
+ * Whether the latest shots of a bowler are enough for suggestMoves: true when suggestMoves of these shots equals
+ * suggestMoves of these shots with any earlier shots before them, because every window it reads lies within them —
+ * the current line begins among them (or holds MOVE_THRESHOLDS.window first balls with a recorded hit and
+ * driftWindow breakpoints), they hold spareWindow single-pin spare chances, and, when a spare is missed often enough
+ * to be shown, window first balls with feet and target boards. So a page reads the latest shots, not a season.
+ *
+ * @param shots the latest ShotRecords: whole sessions, the latest ones (later dates, and on one date the sessions
+ *   after the ones left out).
+ * @returns true when they suffice; false when earlier shots could change the moves.
+ * @throws as suggestMoves.
+ * @example
+ * recentShotsSuffice(lastSessions); // => true for a few hundred shots with a recent change of line
+ */
+export function recentShotsSuffice(shots: ShotRecord[]): boolean {
+  const T = MOVE_THRESHOLDS;
+  const { ordered, firsts } = orderShots(analyzeShots('recentShotsSuffice', shots));
+  const last = firsts[firsts.length - 1];
+  if (!last) return false;
+  const sameLine = sameLineAs(last);
+  let k = firsts.length - 1;
+  while (k >= 0 && sameLine(firsts[k])) k--;
+  if (k < 0) {
+    const line = firsts;
+    const withHit = line.filter((e) => e.shot.hit !== undefined && e.shot.hit !== null).length;
+    const bps = line.filter((e) => typeof e.shot.breakpointBoard === 'number').length;
+    if (withHit < T.window || bps < T.driftWindow) return false;
+  }
+  const spareChances = ordered.filter((e) => e.view !== null && e.view.rackBall === 2 && e.view.pinsBefore.length === 1 && !e.view.foul);
+  if (spareChances.length < T.spareWindow) return false;
+  const missed = new Map<number, number>();
+  for (const e of spareChances.slice(-T.spareWindow)) {
+    const pin = (e.view as NonNullable<ShotEntry['view']>).pinsBefore[0];
+    if (e.view?.symbol !== '/') missed.set(pin, (missed.get(pin) ?? 0) + 1);
+  }
+  const shown = [...missed.values()].some((n) => n >= T.spareMisses);
+  if (shown && firsts.filter((e) => typeof e.shot.feetBoard === 'number' && typeof e.shot.targetBoard === 'number').length < T.window)
+    return false;
+  return true;
+}
+
 /**
  * Suggests adjustments from the pattern in the most recent shots: the 2-and-1 move when the ball keeps
  * hitting high or light or its breakpoint drifts, a ball or surface change when moves have not cured
@@ -72,35 +147,12 @@ export function suggestMoves(input: { shots: ShotRecord[]; hand: 'right' | 'left
   const a = analyzeShots(fn, inp.shots);
   const T = MOVE_THRESHOLDS;
 
-  const sessionOrder = new Map<string, number>();
-  a.entries.forEach((e) => {
-    if (!sessionOrder.has(e.shot.sessionId)) sessionOrder.set(e.shot.sessionId, sessionOrder.size);
-  });
-  const ordered = a.entries
-    .map((e, i) => ({ e, i }))
-    .sort((x, y) => {
-      const s = x.e.shot;
-      const t = y.e.shot;
-      return (
-        (s.date < t.date ? -1 : s.date > t.date ? 1 : 0) ||
-        (sessionOrder.get(s.sessionId) as number) - (sessionOrder.get(t.sessionId) as number) ||
-        s.gameNumber - t.gameNumber ||
-        s.frame - t.frame ||
-        s.delivery - t.delivery ||
-        x.i - y.i
-      );
-    })
-    .map((x) => x.e);
-  const isFirst = (e: ShotEntry): boolean => (e.view ? e.view.rackBall === 1 : e.shot.delivery === 1);
-  const firsts = ordered.filter(isFirst);
+  const { ordered, firsts } = orderShots(a);
   const moves: Move[] = [];
   const last = firsts[firsts.length - 1];
 
   if (last) {
-    const sameLine = (e: ShotEntry): boolean =>
-      e.shot.ballId === last.shot.ballId &&
-      (e.shot.feetBoard ?? null) === (last.shot.feetBoard ?? null) &&
-      (e.shot.targetBoard ?? null) === (last.shot.targetBoard ?? null);
+    const sameLine = sameLineAs(last);
     // the current line: the run of first balls at the end with the same ball, feet and target
     const line: ShotEntry[] = [];
     for (let k = firsts.length - 1; k >= 0 && sameLine(firsts[k]); k--) line.unshift(firsts[k]);
