@@ -164,7 +164,7 @@ export function calibrateInWorker(input: Parameters<typeof fitCalibration>[0], s
 /**
  * Shot statistics run on a thread of their own, one task at a time, so they hold neither the event loop nor the ranking
  * threads: the statistics of summed counts and the moves of the latest shots (milliseconds), counting the games whose
- * shots changed (a season's first count: hundreds of milliseconds) and, rarely, the moves over every shot of a filter.
+ * shots changed (a season's first count: hundreds of milliseconds) and the moves of a longer run of latest shots.
  * Started on first use; it stays.
  */
 let statsPool: Piscina | null = null;
@@ -176,7 +176,8 @@ function statsTask<T>(name: 'stats' | 'countGames' | 'moves', task: unknown): Pr
 
 export const statsInWorker = (task: StatsTask): Promise<StatsParts> => statsTask('stats', task);
 export const countGamesInWorker = (records: ShotRecord[]): Promise<GameCountsRow[]> => statsTask('countGames', records);
-export const movesInWorker = (task: { shots: ShotRecord[]; hand: 'right' | 'left' }): Promise<Move[]> => statsTask('moves', task);
+export const movesInWorker = (task: { shots: ShotRecord[]; hand: 'right' | 'left'; complete: boolean }): Promise<Move[] | null> =>
+  statsTask('moves', task);
 
 /** The ids of the pool's threads (tests: a thread is never replaced after an aborted ranking). */
 export function engineThreadIds(): number[] {

@@ -77,9 +77,9 @@ export function countGames(records: ShotRecord[]): GameCountsRow[] {
   return gameCounts(records);
 }
 
-/** The moves over every filtered shot (when the latest sessions did not suffice). */
-export function moves(task: { shots: ShotRecord[]; hand: 'right' | 'left' }): Move[] {
-  return suggestMoves(task);
+/** The moves of the latest shots when they suffice (or are every filtered shot: `complete`), else null. */
+export function moves(task: { shots: ShotRecord[]; hand: 'right' | 'left'; complete: boolean }): Move[] | null {
+  return task.complete || recentShotsSuffice(task.shots) ? suggestMoves(task) : null;
 }
 
 export function calibrate(input: Parameters<typeof fitCalibration>[0]): Calibration {

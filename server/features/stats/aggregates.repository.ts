@@ -63,12 +63,18 @@ export interface TallyRow {
   n: number;
 }
 
-/** The WHERE of a filtered read of a bowler's (not deleted) sessions `s`; `alone` rows (one ball's shots) when a ball is named. */
-function filterOf(userId: number, f: StatsFilter, ballColumn: string) {
+/** The WHERE of a filtered read of a bowler's (not deleted) sessions `s` (the ball is filtered on the shots or rows); `alone` rows (one ball's shots) when a ball is named. */
+/**
+ * The bowler's session of each aggregate row, looked up by its key (OFFSET 0 keeps the planner from flattening it): one
+ * index probe per row whatever the planner's estimates (a freshly written season has no table statistics yet).
+ */
+const sessionOf = (where: string, cols = 's.date') =>
+  `CROSS JOIN LATERAL (SELECT ${cols} FROM sessions s WHERE s.id = a.session_id AND ${where} OFFSET 0) s`;
+
+function filterOf(userId: number, f: StatsFilter) {
   const where = ['s.user_id = :userId', 's.deleted_at IS NULL'];
   if (f.from) where.push('s.date >= :from');
   if (f.to) where.push('s.date <= :to');
-  if (f.ballId) where.push(`${ballColumn} = :ballId`);
   if (f.patternId) where.push('s.pattern_id = :patternId');
   return {
     where: where.join(' AND '),
@@ -169,7 +175,8 @@ export const aggregatesRepository = {
    * whole filter and per session, per ball, per ball and surface: engine gameCounts).
    */
   sums(userId: number, f: StatsFilter, opts: { fromPrimary?: boolean } = {}): Promise<SumRow[]> {
-    const { where, replacements } = filterOf(userId, f, 'a.ball_id');
+    const { where, replacements } = filterOf(userId, f);
+    const ballWhere = f.ballId ? ' AND a.ball_id = :ballId' : '';
     const whole = 'a.lead AND (NOT a.alone OR a.game_balls = 1)';
     return sequelize.query<SumRow>(
       `SELECT ${GROUPS}, MIN(s.date) AS first_date, MIN(b.name) AS ball_model_name, MIN(b.nickname) AS ball_nickname,
@@ -181,8 +188,8 @@ export const aggregatesRepository = {
          ${int('SUM(a.game_total) FILTER (WHERE a.lead AND a.game_balls = 1)')} AS ball_sum,
          COUNT(a.game_total) FILTER (WHERE a.lead AND a.game_balls = 1)::int AS ball_n,
          ${int('SUM(a.game_total) FILTER (WHERE a.game_rows = 1)')} AS row_sum, COUNT(a.game_total) FILTER (WHERE a.game_rows = 1)::int AS row_n
-       FROM shot_aggregates a JOIN sessions s ON s.id = a.session_id JOIN balls b ON b.id = a.ball_id
-       WHERE a.user_id = :userId AND a.alone = :alone AND ${where}
+       FROM shot_aggregates a ${sessionOf(where)} JOIN balls b ON b.id = a.ball_id
+       WHERE a.user_id = :userId AND a.alone = :alone${ballWhere}
        GROUP BY GROUPING SETS ((), (a.ball_id), (a.ball_id, a.surface_key), (a.session_id))`,
       { type: QueryTypes.SELECT, replacements, ...(opts.fromPrimary ? { useMaster: true } : {}) },
     );
@@ -190,11 +197,12 @@ export const aggregatesRepository = {
 
   /** The tallies (first balls by pins, leaves) summed for the same groups as sums. */
   tallies(userId: number, f: StatsFilter, opts: { fromPrimary?: boolean } = {}): Promise<TallyRow[]> {
-    const { where, replacements } = filterOf(userId, f, 'a.ball_id');
+    const { where, replacements } = filterOf(userId, f);
+    const ballWhere = f.ballId ? ' AND a.ball_id = :ballId' : '';
     return sequelize.query<TallyRow>(
       `SELECT ${GROUPS}, t.key, SUM(t.value::int)::int AS n
-       FROM shot_aggregates a JOIN sessions s ON s.id = a.session_id CROSS JOIN LATERAL jsonb_each_text(a.tallies) t
-       WHERE a.user_id = :userId AND a.alone = :alone AND ${where}
+       FROM shot_aggregates a ${sessionOf(where)} CROSS JOIN LATERAL jsonb_each_text(a.tallies) t
+       WHERE a.user_id = :userId AND a.alone = :alone${ballWhere}
        GROUP BY GROUPING SETS ((t.key), (a.ball_id, t.key), (a.ball_id, a.surface_key, t.key), (a.session_id, t.key))`,
       { type: QueryTypes.SELECT, replacements, ...(opts.fromPrimary ? { useMaster: true } : {}) },
     );
@@ -211,16 +219,18 @@ export const aggregatesRepository = {
     f: StatsFilter,
     opts: { limit: number | null; calibration: { patternId: number; perBall: number } | null; fromPrimary?: boolean },
   ): Promise<{ recent: ShotRow[]; calibration: ShotRow[] }> {
-    const { where, replacements } = filterOf(userId, f, 'sh.ball_id');
-    const aggWhere = filterOf(userId, f, 'a.ball_id').where;
+    const { where: sessionWhere, replacements } = filterOf(userId, f);
+    const where = `${sessionWhere}${f.ballId ? ' AND sh.ball_id = :ballId' : ''}`;
+    const aggWhere = filterOf(userId, f).where;
+    const ballWhere = f.ballId ? ' AND a.ball_id = :ballId' : '';
     const windowed =
       opts.limit === null
         ? ''
         : `AND sh.session_id IN (
             SELECT session_id FROM (
               SELECT session_id, SUM(n) OVER (ORDER BY date DESC, session_id DESC) - n AS before FROM (
-                SELECT a.session_id, s.date, SUM(a.shots) AS n FROM shot_aggregates a JOIN sessions s ON s.id = a.session_id
-                WHERE a.user_id = :userId AND a.alone = :alone AND ${aggWhere} GROUP BY a.session_id, s.date
+                SELECT a.session_id, s.date, SUM(a.shots) AS n FROM shot_aggregates a ${sessionOf(aggWhere)}
+                WHERE a.user_id = :userId AND a.alone = :alone${ballWhere} GROUP BY a.session_id, s.date
               ) per
             ) w WHERE before < :limit)`;
     const recent = `SELECT ${SHOT_COLUMNS}, s.date, s.pattern_id, 'recent' AS part FROM shots sh JOIN sessions s ON s.id = sh.session_id

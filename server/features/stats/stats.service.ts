@@ -29,9 +29,9 @@ const inFlight = new Map<
 
 /**
  * The filtered shots of the latest whole sessions read for the moves: enough for suggestMoves as a rule
- * (recentShotsSuffice decides; when they do not suffice, every filtered shot is read once more).
+ * (recentShotsSuffice decides; when they do not suffice, four times as many are read, and so on).
  */
-export const RECENT_SHOTS = 400;
+export const RECENT_SHOTS = 1000;
 
 const ZERO_COUNTS: Omit<ShotCounts, 'tallies'> = {
   shots: 0,
@@ -123,12 +123,12 @@ async function computeParts(
     complete: recent.length === overall.shots,
     hand,
   });
-  const moves =
-    computed.moves ??
-    (await movesInWorker({
-      shots: (await sessionsRepository.shotsForStats(bowlerId, f)).map((r) => toShotRecord(r, r.date!)),
-      hand,
-    }));
+  // The moves: when the latest sessions did not suffice, four times as many, until they do or hold every filtered shot.
+  let moves = computed.moves;
+  for (let limit = RECENT_SHOTS * 4; moves === null; limit *= 4) {
+    const more = (await aggregatesRepository.recentShots(bowlerId, f, { limit, calibration: null, fromPrimary })).recent;
+    moves = await movesInWorker({ shots: more.map((r) => toShotRecord(r, r.date!)), hand, complete: more.length === overall.shots });
+  }
   const names = new Map(
     byBall.map((x) => [x.key, shotBallName({ ball_model_name: x.row.ball_model_name!, ball_nickname: x.row.ball_nickname })]),
   );
@@ -165,10 +165,10 @@ async function computeParts(
 export const statsService = {
   /**
    * Statistics over the filtered shots, per ball, per ball and surface, per session, with moves and the calibration.
-   * At most one shot query per request, shared by the statistics and the calibration (the bowler's shots, filtered
-   * here); the statistics are computed on their own thread (statsInWorker: a season of shots takes hundreds of
-   * milliseconds) and kept per bowler, filter and hand until the bowler's shots, sessions or balls change, so a page
-   * shown again reads no shots at all.
+   * The figures come from the kept game counts summed in SQL (a page never replays a season: only games whose shots
+   * changed are counted again), the moves from the latest sessions and the calibration from each ball's newest
+   * calibration shots, both in one shot read; the little left to compute runs on the stats thread, and the answer is
+   * kept per bowler, filter and hand until the bowler's shots, sessions or balls change.
    */
   async stats(user: AuthUser, q: StatsQuery): Promise<StatsResult> {
     const bowlerId = await readableBowlerId(user, q.studentId);
