@@ -30,8 +30,9 @@ function cpuMs(pid: number): number {
   return ((Number(fields[11]) + Number(fields[12])) * 1000) / TICKS;
 }
 
-function peakRssMb(pid: number): number {
-  const m = /VmHWM:\s+(\d+) kB/.exec(fs.readFileSync(`/proc/${pid}/status`, 'utf8'));
+/** The peak (VmHWM) or current (VmRSS) resident memory of a process, MB. */
+function rssOf(pid: number, field: 'VmHWM' | 'VmRSS'): number {
+  const m = new RegExp(`${field}:\\s+(\\d+) kB`).exec(fs.readFileSync(`/proc/${pid}/status`, 'utf8'));
   return m ? Number(m[1]) / 1024 : NaN;
 }
 
@@ -64,6 +65,7 @@ async function main(): Promise<void> {
       await new Promise((r) => setTimeout(r, 200));
     }
     const pid = server.pid!;
+    const idleRssMb = rssOf(pid, 'VmRSS');
     const big = await signIn(base, 'lee@copperline.example');
     const other = await signIn(base, 'dana@copperline.example');
 
@@ -92,6 +94,7 @@ async function main(): Promise<void> {
     const cpuPerRequestMs = (cpuMs(pid) - cpuBefore) / SINGLE;
 
     // Ten at once, every request a new filter, with another route timed alongside; the peak RSS of that load alone.
+    const rssBeforeLoadMb = rssOf(pid, 'VmRSS');
     try {
       fs.writeFileSync(`/proc/${pid}/clear_refs`, '5');
     } catch {
@@ -105,7 +108,7 @@ async function main(): Promise<void> {
     });
     const beside = await load({ url: `${base}/api/arsenal`, headers: other, connections: 1, duration: 10 });
     const concurrent: Loaded = await concurrentLoad;
-    const rssMb = peakRssMb(pid);
+    const rssMb = rssOf(pid, 'VmHWM');
 
     const statsBody = await (await fetch(`${base}/api/stats`, { headers: big })).json();
     const floor = await bareFloor(statsBody);
@@ -185,6 +188,16 @@ async function main(): Promise<void> {
         floor: null,
         ratio: null,
         ok: rssMb < 400,
+      },
+      { name: 'server RSS once started', value: idleRssMb, unit: 'MB', target: null, floor: null, ratio: null, ok: null },
+      {
+        name: 'server RSS before the 10 concurrent (the season counted, 65 requests served)',
+        value: rssBeforeLoadMb,
+        unit: 'MB',
+        target: null,
+        floor: null,
+        ratio: null,
+        ok: null,
       },
     ];
     const loadAvg = os.loadavg().map((x) => Math.round(x * 100) / 100);

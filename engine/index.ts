@@ -97,7 +97,7 @@ export { wilsonInterval, WILSON_Z_95 } from './shotlog/wilsonInterval';
 export { shotStats } from './shotlog/shotStats';
 export { statsBy, STATS_KEYS } from './shotlog/statsBy';
 export type { StatsKey } from './shotlog/statsBy';
-export { suggestMoves, recentShotsSuffice, MOVE_THRESHOLDS } from './shotlog/suggestMoves';
+export { suggestMoves, recentShotsSuffice, movesOfRecentShots, MOVE_THRESHOLDS } from './shotlog/suggestMoves';
 export { countsOfShots, gameCounts, shotStatsOfCounts } from './shotlog/shotCounts';
 export type { GameCountsRow } from './shotlog/shotCounts';
 export { spareAdjustment, THREE_SIX_NINE } from './shotlog/spareAdjustment';

@@ -80,8 +80,32 @@ const sameLineAs =
  * recentShotsSuffice(lastSessions); // => true for a few hundred shots with a recent change of line
  */
 export function recentShotsSuffice(shots: ShotRecord[]): boolean {
+  return sufficeOf(analyzeShots('recentShotsSuffice', shots));
+}
+
+/**
+ * suggestMoves of the latest shots when they suffice (recentShotsSuffice) or are every shot there is (`complete`),
+ * else null; the shots are placed on their sheets once for both.
+ *
+ * @param input `shots` (the latest whole sessions, as recentShotsSuffice takes them), the bowler's `hand`, and
+ *   `complete` when no earlier shot exists.
+ * @returns the moves, or null when earlier shots could change them.
+ * @throws as suggestMoves.
+ * @example
+ * movesOfRecentShots({ shots: lastSessions, hand: 'right', complete: false }); // => Move[] or null
+ */
+export function movesOfRecentShots(input: { shots: ShotRecord[]; hand: 'right' | 'left'; complete: boolean }): Move[] | null {
+  const fn = 'movesOfRecentShots';
+  const inp = record(fn, 'input', input);
+  const hand = oneOf(fn, 'hand', inp.hand, ['right', 'left'] as const);
+  const a = analyzeShots(fn, inp.shots);
+  return inp.complete === true || sufficeOf(a) ? movesOf(a, hand) : null;
+}
+
+/** recentShotsSuffice over shots already placed on their sheets (internal). */
+function sufficeOf(a: ReturnType<typeof analyzeShots>): boolean {
   const T = MOVE_THRESHOLDS;
-  const { ordered, firsts } = orderShots(analyzeShots('recentShotsSuffice', shots));
+  const { ordered, firsts } = orderShots(a);
   const last = firsts[firsts.length - 1];
   if (!last) return false;
   const sameLine = sameLineAs(last);
@@ -144,7 +168,11 @@ export function suggestMoves(input: { shots: ShotRecord[]; hand: 'right' | 'left
   const fn = 'suggestMoves';
   const inp = record(fn, 'input', input);
   const hand = oneOf(fn, 'hand', inp.hand, ['right', 'left'] as const);
-  const a = analyzeShots(fn, inp.shots);
+  return movesOf(analyzeShots(fn, inp.shots), hand);
+}
+
+/** suggestMoves over shots already placed on their sheets (internal). */
+function movesOf(a: ReturnType<typeof analyzeShots>, hand: 'right' | 'left'): Move[] {
   const T = MOVE_THRESHOLDS;
 
   const { ordered, firsts } = orderShots(a);

@@ -1,7 +1,7 @@
 // Worker-thread entry for heavy engine calls (see enginePool.ts).
 import { createHash } from 'node:crypto';
 import { LRUCache } from 'lru-cache';
-import { fitCalibration, gameCounts, rankArsenal, recentShotsSuffice, shotStatsOfCounts, suggestMoves } from '../../engine/index';
+import { fitCalibration, gameCounts, movesOfRecentShots, rankArsenal, shotStatsOfCounts } from '../../engine/index';
 import type { GameCountsRow, PocketLineHint } from '../../engine/index';
 import type { Calibration, Move, ShotCounts, ShotRecord } from '../../engine/shotlog/types';
 import type { RankArsenalInput, RankedBall } from '../../engine/types';
@@ -52,6 +52,7 @@ export interface StatsTask {
   overall: ShotCounts;
   byBall: { key: string; counts: ShotCounts }[];
   bySurface: { key: string; counts: ShotCounts }[];
+  /** Without tallies: the trend shows each session's games, average, strike and spare rates only. */
   bySession: { key: string; counts: ShotCounts }[];
   /** The filtered shots of the latest sessions (`complete`: every filtered shot). */
   recent: ShotRecord[];
@@ -67,7 +68,7 @@ export function stats(task: StatsTask) {
     byBall: of(task.byBall),
     bySurface: of(task.bySurface),
     bySession: of(task.bySession),
-    moves: task.complete || recentShotsSuffice(task.recent) ? suggestMoves({ shots: task.recent, hand: task.hand }) : null,
+    moves: movesOfRecentShots({ shots: task.recent, hand: task.hand, complete: task.complete }),
   };
 }
 export type StatsParts = ReturnType<typeof stats>;
@@ -79,7 +80,7 @@ export function countGames(records: ShotRecord[]): GameCountsRow[] {
 
 /** The moves of the latest shots when they suffice (or are every filtered shot: `complete`), else null. */
 export function moves(task: { shots: ShotRecord[]; hand: 'right' | 'left'; complete: boolean }): Move[] | null {
-  return task.complete || recentShotsSuffice(task.shots) ? suggestMoves(task) : null;
+  return movesOfRecentShots(task);
 }
 
 export function calibrate(input: Parameters<typeof fitCalibration>[0]): Calibration {

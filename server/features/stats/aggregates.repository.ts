@@ -195,15 +195,16 @@ export const aggregatesRepository = {
     );
   },
 
-  /** The tallies (first balls by pins, leaves) summed for the same groups as sums. */
+  /** The tallies (first balls by pins, leaves) summed for the groups of sums but the sessions (the trend shows no tally). */
   tallies(userId: number, f: StatsFilter, opts: { fromPrimary?: boolean } = {}): Promise<TallyRow[]> {
     const { where, replacements } = filterOf(userId, f);
     const ballWhere = f.ballId ? ' AND a.ball_id = :ballId' : '';
     return sequelize.query<TallyRow>(
-      `SELECT ${GROUPS}, t.key, SUM(t.value::int)::int AS n
+      // the GROUPING bits of sums (7 overall, 3 per ball, 1 per ball and surface) with no session bit
+      `SELECT (GROUPING(a.ball_id, a.surface_key) * 2 + 1)::int AS g, a.ball_id, a.surface_key, NULL::int AS session_id, t.key, SUM(t.value::int)::int AS n
        FROM shot_aggregates a ${sessionOf(where)} CROSS JOIN LATERAL jsonb_each_text(a.tallies) t
        WHERE a.user_id = :userId AND a.alone = :alone${ballWhere}
-       GROUP BY GROUPING SETS ((t.key), (a.ball_id, t.key), (a.ball_id, a.surface_key, t.key), (a.session_id, t.key))`,
+       GROUP BY GROUPING SETS ((t.key), (a.ball_id, t.key), (a.ball_id, a.surface_key, t.key))`,
       { type: QueryTypes.SELECT, replacements, ...(opts.fromPrimary ? { useMaster: true } : {}) },
     );
   },
