@@ -63,6 +63,19 @@ export interface TallyRow {
   n: number;
 }
 
+/**
+ * The newest `:perBall` calibration shots of each ball of the bowler on a pattern (a first ball from known feet and
+ * target boards with its breakpoint or hit recorded: engine isCalibrationShot), over every session (not deleted).
+ */
+const calibrationSelect = `
+  SELECT ${SHOT_COLUMNS}, s.date, s.pattern_id, 'calibration' AS part FROM (
+    SELECT sh.id, ROW_NUMBER() OVER (PARTITION BY sh.ball_id ORDER BY s.date DESC, s.id DESC, sh.game_number DESC, sh.frame DESC, sh.delivery DESC) AS rn
+    FROM shots sh JOIN sessions s ON s.id = sh.session_id
+    WHERE s.user_id = :userId AND s.deleted_at IS NULL AND s.pattern_id = :calibrationPatternId AND sh.delivery = 1
+      AND sh.feet_board IS NOT NULL AND sh.target_board IS NOT NULL AND (sh.breakpoint_board IS NOT NULL OR sh.hit IS NOT NULL)
+  ) c JOIN shots sh ON sh.id = c.id JOIN sessions s ON s.id = sh.session_id JOIN balls b ON b.id = sh.ball_id
+  WHERE c.rn <= :perBall`;
+
 /** The WHERE of a filtered read of a bowler's (not deleted) sessions `s` (the ball is filtered on the shots or rows); `alone` rows (one ball's shots) when a ball is named. */
 /**
  * The bowler's session of each aggregate row, looked up by its key (OFFSET 0 keeps the planner from flattening it): one
@@ -209,6 +222,15 @@ export const aggregatesRepository = {
     );
   },
 
+  /** The newest `perBall` calibration shots of each ball on a pattern (calibrationSelect), in the order thrown. */
+  calibrationShots(userId: number, patternId: number, perBall: number, transaction?: Transaction): Promise<ShotRow[]> {
+    return sequelize.query<ShotRow>(`${calibrationSelect} ORDER BY date, session_id, game_number, frame, delivery`, {
+      type: QueryTypes.SELECT,
+      replacements: { userId, calibrationPatternId: patternId, perBall },
+      transaction,
+    });
+  },
+
   /**
    * One read of shots for a statistics page: `recent` the filtered shots of the latest whole sessions that hold at least
    * `limit` of them (null: every filtered shot), in the order thrown; with `calibration`, also `calibration` the
@@ -219,7 +241,7 @@ export const aggregatesRepository = {
     userId: number,
     f: StatsFilter,
     opts: { limit: number | null; calibration: { patternId: number; perBall: number } | null; fromPrimary?: boolean },
-  ): Promise<{ recent: ShotRow[]; calibration: ShotRow[] }> {
+  ): Promise<{ recent: ShotRow[]; calibration: ShotRow[]; calibrationRead: boolean }> {
     const { where: sessionWhere, replacements } = filterOf(userId, f);
     const where = `${sessionWhere}${f.ballId ? ' AND sh.ball_id = :ballId' : ''}`;
     const aggWhere = filterOf(userId, f).where;
@@ -236,16 +258,7 @@ export const aggregatesRepository = {
             ) w WHERE before < :limit)`;
     const recent = `SELECT ${SHOT_COLUMNS}, s.date, s.pattern_id, 'recent' AS part FROM shots sh JOIN sessions s ON s.id = sh.session_id
        JOIN balls b ON b.id = sh.ball_id WHERE ${where} ${windowed}`;
-    const calibration = opts.calibration
-      ? `UNION ALL
-         SELECT ${SHOT_COLUMNS}, s.date, s.pattern_id, 'calibration' AS part FROM (
-           SELECT sh.id, ROW_NUMBER() OVER (PARTITION BY sh.ball_id ORDER BY s.date DESC, s.id DESC, sh.game_number DESC, sh.frame DESC, sh.delivery DESC) AS rn
-           FROM shots sh JOIN sessions s ON s.id = sh.session_id
-           WHERE s.user_id = :userId AND s.deleted_at IS NULL AND s.pattern_id = :calibrationPatternId AND sh.delivery = 1
-             AND sh.feet_board IS NOT NULL AND sh.target_board IS NOT NULL AND (sh.breakpoint_board IS NOT NULL OR sh.hit IS NOT NULL)
-         ) c JOIN shots sh ON sh.id = c.id JOIN sessions s ON s.id = sh.session_id JOIN balls b ON b.id = sh.ball_id
-         WHERE c.rn <= :perBall`
-      : '';
+    const calibration = opts.calibration ? `UNION ALL ${calibrationSelect}` : '';
     const rows = await sequelize.query<ShotRow & { part: 'recent' | 'calibration' }>(
       `${recent} ${calibration} ORDER BY part DESC, date, session_id, game_number, frame, delivery`,
       {
@@ -259,6 +272,10 @@ export const aggregatesRepository = {
         ...(opts.fromPrimary ? { useMaster: true } : {}),
       },
     );
-    return { recent: rows.filter((r) => r.part === 'recent'), calibration: rows.filter((r) => r.part === 'calibration') };
+    return {
+      recent: rows.filter((r) => r.part === 'recent'),
+      calibration: rows.filter((r) => r.part === 'calibration'),
+      calibrationRead: opts.calibration !== null,
+    };
   },
 };

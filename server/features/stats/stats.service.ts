@@ -12,7 +12,7 @@ import { readableBowlerId } from '../coaching/coaching.access';
 import { sessionsRepository, shotBallName, toShotRecord, type ShotRow } from '../sessions/sessions.repository';
 import { aggregatesRepository, COUNT_COLUMNS, type SumRow } from './aggregates.repository';
 import { refreshShotAggregates } from './aggregates.service';
-import { CALIBRATION_SHOTS_PER_BALL, calibrationFor } from './calibration.service';
+import { CALIBRATION_SHOTS_PER_BALL, calibrationFor, observationsKept } from './calibration.service';
 import { bowlerOf, engineCondition } from './engineInput.service';
 
 /** The computed statistics of a bowler per filter and hand (dropped when their shots, sessions or balls change). */
@@ -92,7 +92,11 @@ async function computeParts(
     aggregatesRepository.tallies(bowlerId, f, { fromPrimary }),
     aggregatesRepository.recentShots(bowlerId, f, {
       limit: RECENT_SHOTS,
-      calibration: calibrationPatternId !== null ? { patternId: calibrationPatternId, perBall: CALIBRATION_SHOTS_PER_BALL } : null,
+      // the calibration's shots too, unless its observations are kept (a page shown with another filter)
+      calibration:
+        calibrationPatternId !== null && !observationsKept(bowlerId, calibrationPatternId)
+          ? { patternId: calibrationPatternId, perBall: CALIBRATION_SHOTS_PER_BALL }
+          : null,
       fromPrimary,
     }),
   ]);
@@ -158,7 +162,7 @@ async function computeParts(
   if (!hasReplicas) statsCache.set(ticket, key, parts);
   return {
     parts,
-    ...(calibrationPatternId !== null ? { rowsForCalibration: { rows: shots.calibration, ticket } } : {}),
+    ...(calibrationPatternId !== null && shots.calibrationRead ? { rowsForCalibration: { rows: shots.calibration, ticket } } : {}),
   };
 }
 

@@ -197,6 +197,8 @@ describe('GET /api/stats from the kept game counts', () => {
       const expected = observationsOf(every, balls);
       expect(expected.length).toBeGreaterThan(0);
       expect(observationsOf(calibration, balls)).toEqual(expected);
+      const alone = await aggregatesRepository.calibrationShots(me.user.id, p.id, CALIBRATION_SHOTS_PER_BALL);
+      expect(observationsOf(alone, balls)).toEqual(expected);
     }
   });
 });
