@@ -79,10 +79,11 @@ const calibrationSelect = `
 /** The WHERE of a filtered read of a bowler's (not deleted) sessions `s` (the ball is filtered on the shots or rows); `alone` rows (one ball's shots) when a ball is named. */
 /**
  * The bowler's session of each aggregate row, looked up by its key (OFFSET 0 keeps the planner from flattening it): one
- * index probe per row whatever the planner's estimates (a freshly written season has no table statistics yet).
+ * index probe per row whatever the planner's estimates (a freshly written season has no table statistics yet). The
+ * rows are the bowler's (`a.user_id`), so the session's owner is not checked again (that would invite the owner's index).
  */
 const sessionOf = (where: string, cols = 's.date') =>
-  `CROSS JOIN LATERAL (SELECT ${cols} FROM sessions s WHERE s.id = a.session_id AND ${where} OFFSET 0) s`;
+  `CROSS JOIN LATERAL (SELECT ${cols} FROM sessions s WHERE s.id = a.session_id AND ${where.replace('s.user_id = :userId AND ', '')} OFFSET 0) s`;
 
 function filterOf(userId: number, f: StatsFilter) {
   const where = ['s.user_id = :userId', 's.deleted_at IS NULL'];
