@@ -5,6 +5,9 @@ import { sequelize } from '../../models/index';
 import { toShotRecord } from '../sessions/sessions.repository';
 import { aggregatesRepository } from './aggregates.repository';
 
+/** Games counted per step of a refresh (about 4 000 shots). */
+export const GAMES_PER_STEP = 200;
+
 type Count = (records: ShotRecord[]) => Promise<GameCountsRow[]> | GameCountsRow[];
 
 /**
@@ -18,9 +21,13 @@ export async function refreshShotAggregates(userId: number, count: Count = count
   return sequelize.transaction(async (transaction) => {
     const games = await aggregatesRepository.claimChangedGames(userId, transaction);
     if (games.length === 0) return false;
-    const rows = await aggregatesRepository.gameShots(games, transaction);
-    const counted = rows.length ? await count(rows.map((r) => toShotRecord(r, r.date!))) : [];
-    await aggregatesRepository.replaceGames(userId, games, counted, transaction);
+    // A few hundred games at a time, so a season counted for the first time never holds all its shots at once.
+    for (let i = 0; i < games.length; i += GAMES_PER_STEP) {
+      const step = games.slice(i, i + GAMES_PER_STEP);
+      const rows = await aggregatesRepository.gameShots(step, transaction);
+      const counted = rows.length ? await count(rows.map((r) => toShotRecord(r, r.date!))) : [];
+      await aggregatesRepository.replaceGames(userId, step, counted, transaction);
+    }
     return true;
   });
 }
