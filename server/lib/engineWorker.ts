@@ -67,7 +67,11 @@ export function stats(task: StatsTask) {
     overall: shotStatsOfCounts(task.overall),
     byBall: of(task.byBall),
     bySurface: of(task.bySurface),
-    bySession: of(task.bySession),
+    // only what the trend shows (a season has hundreds of sessions: their full statistics would be copied back for nothing)
+    bySession: task.bySession.map((g) => {
+      const st = shotStatsOfCounts(g.counts);
+      return { key: g.key, games: st.games, average: st.average, strikePct: st.strike.pct, sparePct: st.spare.pct };
+    }),
     moves: movesOfRecentShots({ shots: task.recent, hand: task.hand, complete: task.complete }),
   };
 }

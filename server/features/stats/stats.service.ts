@@ -151,10 +151,10 @@ async function computeParts(
       .map((g) => ({
         sessionId: Number(g.key),
         date: dates.get(g.key)!,
-        games: g.stats.games,
-        average: g.stats.average,
-        strikePct: g.stats.strike.pct,
-        sparePct: g.stats.spare.pct,
+        games: g.games,
+        average: g.average,
+        strikePct: g.strikePct,
+        sparePct: g.sparePct,
       }))
       .sort((a, b) => a.date.localeCompare(b.date) || a.sessionId - b.sessionId),
     moves,
