@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import {
   countsOfShots,
   gameCounts,
+  movesOfRecentShots,
   recentShotsSuffice,
   shotStats,
   shotStatsOfCounts,
@@ -242,9 +243,14 @@ describe('recentShotsSuffice', () => {
         const inOrder = order.flatMap((id) => shots.filter((s) => s.sessionId === id));
         const latest = new Set(order.slice(Math.max(0, order.length - 1 - keep)));
         const recent = inOrder.filter((s) => latest.has(s.sessionId));
+        const all = suggestMoves({ shots: inOrder, hand });
+        expect(movesOfRecentShots({ shots: inOrder, hand, complete: true })).toEqual(all);
         if (recentShotsSuffice(recent)) {
           sufficed++;
-          expect(suggestMoves({ shots: recent, hand })).toEqual(suggestMoves({ shots: inOrder, hand }));
+          expect(suggestMoves({ shots: recent, hand })).toEqual(all);
+          expect(movesOfRecentShots({ shots: recent, hand, complete: false })).toEqual(all);
+        } else {
+          expect(movesOfRecentShots({ shots: recent, hand, complete: false })).toBeNull();
         }
       }),
       { numRuns: 60 },
