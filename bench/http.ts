@@ -7,8 +7,7 @@
  *    and cold, every input new (≤ 150 ms); the size of the answer (≤ 40 kB)
  *  - GET /api/arsenal: requests per second against bare Express answering the same body (≥ 0.5 ×), and for a
  *    bowler with 1 000 balls (≥ 0.3 ×); the load average is written beside the figures
- *  - GET /api/stats over 10 000 shots: the first request, 10 concurrent answered from what was kept and 10 concurrent
- *    each with a new filter (≤ 100 ms p95), GET /api/arsenal's p95 beside the latter (≤ 50 ms), the peak RSS (< 400 MB)
+ *  - the server's peak RSS over these loads (the statistics page under load is bench/stats.ts, on the production build)
  *  - the built client's initial JS (entry chunk + modulepreloads), kB gzip (target ≤ 350)
  */
 import type { ChildProcess } from 'node:child_process';
@@ -17,7 +16,7 @@ import nodeHttp from 'node:http';
 import path from 'node:path';
 import zlib from 'node:zlib';
 import { bin, migrateAndSeed, root, run, signIn as signInAt, startServer, stopAll, throwawayCluster } from './lib/benchServer';
-import { aThousandBalls, arsenalOfFifteen, tenThousandShots } from './lib/httpData';
+import { aThousandBalls, arsenalOfFifteen } from './lib/httpData';
 import { bareFloor, clientInitialJsGzipKb, load } from './lib/httpLoad';
 import { reportHttp } from './lib/httpReport';
 import { productionEnv } from './lib/productionEnv';
@@ -105,44 +104,10 @@ async function main(): Promise<void> {
     });
     const answerKb = wire.length / 1024;
     const answerJsonKb = zlib.gunzipSync(wire).length / 1024;
-    // Statistics over 10 000 logged shots (lee's: copies of a demo session's games, written straight to the database).
-    const statShots = await tenThousandShots(adminUrl);
     const peakRssMb = () => {
       const m = /VmHWM:\s+(\d+) kB/.exec(fs.readFileSync(`/proc/${server!.pid}/status`, 'utf8'));
       return m ? Number(m[1]) / 1024 : NaN;
     };
-    // Linux: writing 5 to clear_refs resets the peak (VmHWM), so the stats load's own peak is read apart.
-    const rssBeforeStatsMb = peakRssMb();
-    try {
-      fs.writeFileSync(`/proc/${server.pid}/clear_refs`, '5');
-    } catch {
-      /* not allowed here: the peak then covers the whole run */
-    }
-    // The first request computes (off the main thread); the ones after it are answered from what was kept.
-    const t0 = performance.now();
-    const firstStats = await fetch(`${base}/api/stats`, { headers: big });
-    const statsColdMs = performance.now() - t0;
-    if (!firstStats.ok) throw new Error(`GET /api/stats answered ${firstStats.status}`);
-    const statsWarm = await load({ url: `${base}/api/stats`, headers: big, connections: 10, duration: 10 });
-    // Every request a different filter (a later `to` date), so every one computes: another route timed alongside.
-    let day = 0;
-    const statsColdLoad = load({
-      url: `${base}/api/stats`,
-      connections: 10,
-      duration: 10,
-      requests: [
-        {
-          method: 'GET',
-          headers: big,
-          setupRequest: (req) => ({
-            ...req,
-            path: `/api/stats?to=${new Date(Date.UTC(2030, 0, 1) + day++ * 86400000).toISOString().slice(0, 10)}`,
-          }),
-        },
-      ],
-    });
-    const beside = await load({ url: `${base}/api/arsenal`, headers: auth, connections: 1, duration: 10 });
-    const statsCold = await statsColdLoad;
     const rssMb = peakRssMb();
 
     reportHttp({
@@ -156,13 +121,7 @@ async function main(): Promise<void> {
       listBig,
       listBalls: (listBody as { total: number }).total,
       bigBalls: bigBody.total,
-      statShots,
-      statsColdMs,
-      statsWarm,
-      statsCold,
-      beside,
       rssMb,
-      rssBeforeStatsMb,
       jsKb,
     });
   } finally {

@@ -11,6 +11,7 @@ import { DEMO_PASSWORD, DEMO_USERS, seedUsers, verifyDemoUsers } from './users';
 import { config } from '../server/config/index';
 import { requestDemoCalibrations, seedSessions } from './sessions';
 import { stopJobs } from '../server/lib/jobs';
+import { refreshAllShotAggregates } from '../server/features/stats/aggregates.service';
 
 const DAY_MS = 24 * 60 * 60 * 1000;
 
@@ -142,6 +143,8 @@ export async function seedDemo(): Promise<boolean> {
     }
     await seedSessions(users, transaction);
   });
+  // The demo shots' games counted for the statistics (shot_aggregates), as a first statistics read would count them.
+  await refreshAllShotAggregates();
   return true;
 }
 

@@ -15,22 +15,14 @@ export interface HttpMeasured {
   listBig: Loaded;
   listBalls: number;
   bigBalls: number;
-  statShots: number;
-  statsColdMs: number;
-  statsWarm: Loaded;
-  statsCold: Loaded;
-  beside: Loaded;
   rssMb: number;
-  rssBeforeStatsMb: number;
   jsKb: number;
 }
 
 /** Prints the figures beside their targets and writes them to bench/results.json. */
 export function reportHttp(m: HttpMeasured): void {
-  const { matchups, cold, answerKb, answerJsonKb, floor, floorBig, list, listBig, statShots, statsColdMs, statsWarm, statsCold, beside } =
-    m;
-  const { rssMb, rssBeforeStatsMb, jsKb } = m;
-  const errors = [matchups, list, listBig, cold, statsWarm, statsCold, beside].reduce((n, r) => n + r.non2xx + r.errors, 0);
+  const { matchups, cold, answerKb, answerJsonKb, floor, floorBig, list, listBig, rssMb, jsKb } = m;
+  const errors = [matchups, list, listBig, cold].reduce((n, r) => n + r.non2xx + r.errors, 0);
   const ratio = (x: number, f: number) => Math.round((x / f) * 1000) / 1000;
   const http = [
     {
@@ -106,62 +98,8 @@ export function reportHttp(m: HttpMeasured): void {
       ok: listBig.requests.average >= 0.3 * floorBig.rps,
     },
     {
-      name: `GET /api/stats (${statShots} shots), first request (computes)`,
-      value: statsColdMs,
-      unit: 'ms',
-      target: null,
-      floor: null,
-      ratio: null,
-      ok: null,
-    },
-    {
-      name: `GET /api/stats (${statShots} shots, 10 concurrent) p95, kept`,
-      value: statsWarm.p95,
-      unit: 'ms',
-      target: '≤ 100 ms',
-      floor: floor.p95,
-      ratio: null,
-      ok: statsWarm.p95 <= 100,
-    },
-    {
-      name: `GET /api/stats (${statShots} shots, 10 concurrent) p95, every filter new`,
-      value: statsCold.p95,
-      unit: 'ms',
-      target: '≤ 100 ms',
-      floor: floor.p95,
-      ratio: null,
-      ok: statsCold.p95 <= 100,
-    },
-    {
-      name: 'GET /api/stats every filter new: requests/s',
-      value: statsCold.requests.average,
-      unit: 'req/s',
-      target: null,
-      floor: null,
-      ratio: null,
-      ok: null,
-    },
-    {
-      name: 'GET /api/arsenal p95 beside 10 stats computing',
-      value: beside.p95,
-      unit: 'ms',
-      target: '≤ 50 ms',
-      floor: floor.p95,
-      ratio: null,
-      ok: beside.p95 <= 50,
-    },
-    {
-      name: 'server peak RSS (VmHWM) during the stats loads',
+      name: 'server peak RSS (VmHWM) over the lists and matchups',
       value: rssMb,
-      unit: 'MB',
-      target: '< 400 MB',
-      floor: null,
-      ratio: null,
-      ok: rssMb < 400,
-    },
-    {
-      name: 'server peak RSS (VmHWM) before them (lists, matchups)',
-      value: rssBeforeStatsMb,
       unit: 'MB',
       target: null,
       floor: null,

@@ -32,6 +32,84 @@ const TWO_AND_ONE_SOURCE =
 /** Physical direction and boards → the bowler's own board count (+ toward the non-hand side). */
 const own = (m: BoardMove, hand: 'right' | 'left'): number => (m.direction === 'left' ? 1 : -1) * (hand === 'right' ? 1 : -1) * m.boards;
 
+/** The shots in the order thrown and the first balls among them (the order's one home: internal/orderShots). */
+function orderedAndFirsts(a: ReturnType<typeof analyzeShots>): { ordered: ShotEntry[]; firsts: ShotEntry[] } {
+  const ordered = orderShots(a).map((x) => x.e);
+  return { ordered, firsts: ordered.filter(isFirstBall) };
+}
+
+const sameLineAs =
+  (last: ShotEntry) =>
+  (e: ShotEntry): boolean =>
+    e.shot.ballId === last.shot.ballId &&
+    (e.shot.feetBoard ?? null) === (last.shot.feetBoard ?? null) &&
+    (e.shot.targetBoard ?? null) === (last.shot.targetBoard ?? null);
+
+/**
+ * Whether the latest shots of a bowler are enough for suggestMoves: true when suggestMoves of these shots equals
+ * suggestMoves of these shots with any earlier shots before them, because every window it reads lies within them —
+ * the current line begins among them (or holds MOVE_THRESHOLDS.window first balls with a recorded hit and
+ * driftWindow breakpoints), they hold spareWindow single-pin spare chances, and, when a spare is missed often enough
+ * to be shown, window first balls with feet and target boards. So a page reads the latest shots, not a season.
+ *
+ * @param shots the latest ShotRecords: whole sessions, the latest ones (later dates, and on one date the sessions
+ *   after the ones left out).
+ * @returns true when they suffice; false when earlier shots could change the moves.
+ * @throws as suggestMoves.
+ * @example
+ * recentShotsSuffice(lastSessions); // => true for a few hundred shots with a recent change of line
+ */
+export function recentShotsSuffice(shots: ShotRecord[]): boolean {
+  return sufficeOf(analyzeShots('recentShotsSuffice', shots));
+}
+
+/**
+ * suggestMoves of the latest shots when they suffice (recentShotsSuffice) or are every shot there is (`complete`),
+ * else null; the shots are placed on their sheets once for both.
+ *
+ * @param input `shots` (the latest whole sessions, as recentShotsSuffice takes them), the bowler's `hand`, and
+ *   `complete` when no earlier shot exists.
+ * @returns the moves, or null when earlier shots could change them.
+ * @throws as suggestMoves.
+ * @example
+ * movesOfRecentShots({ shots: lastSessions, hand: 'right', complete: false }); // => Move[] or null
+ */
+export function movesOfRecentShots(input: { shots: ShotRecord[]; hand: 'right' | 'left'; complete: boolean }): Move[] | null {
+  const fn = 'movesOfRecentShots';
+  const inp = record(fn, 'input', input);
+  const hand = oneOf(fn, 'hand', inp.hand, ['right', 'left'] as const);
+  const a = analyzeShots(fn, inp.shots);
+  return inp.complete === true || sufficeOf(a) ? movesOf(a, hand) : null;
+}
+
+/** recentShotsSuffice over shots already placed on their sheets (internal). */
+function sufficeOf(a: ReturnType<typeof analyzeShots>): boolean {
+  const T = MOVE_THRESHOLDS;
+  const { ordered, firsts } = orderedAndFirsts(a);
+  const last = firsts[firsts.length - 1];
+  if (!last) return false;
+  const sameLine = sameLineAs(last);
+  let k = firsts.length - 1;
+  while (k >= 0 && sameLine(firsts[k])) k--;
+  if (k < 0) {
+    const line = firsts;
+    const withHit = line.filter((e) => e.shot.hit !== undefined && e.shot.hit !== null).length;
+    const bps = line.filter((e) => typeof e.shot.breakpointBoard === 'number').length;
+    if (withHit < T.window || bps < T.driftWindow) return false;
+  }
+  const spareChances = ordered.filter((e) => e.view !== null && e.view.rackBall === 2 && e.view.pinsBefore.length === 1 && !e.view.foul);
+  if (spareChances.length < T.spareWindow) return false;
+  const missed = new Map<number, number>();
+  for (const e of spareChances.slice(-T.spareWindow)) {
+    const pin = (e.view as NonNullable<ShotEntry['view']>).pinsBefore[0];
+    if (e.view?.symbol !== '/') missed.set(pin, (missed.get(pin) ?? 0) + 1);
+  }
+  const shown = [...missed.values()].some((n) => n >= T.spareMisses);
+  if (shown && firsts.filter((e) => typeof e.shot.feetBoard === 'number' && typeof e.shot.targetBoard === 'number').length < T.window)
+    return false;
+  return true;
+}
+
 /**
  * Suggests adjustments from the pattern in the most recent shots: the 2-and-1 move when the ball keeps
  * hitting high or light or its breakpoint drifts, a ball or surface change when moves have not cured
@@ -70,19 +148,19 @@ export function suggestMoves(input: { shots: ShotRecord[]; hand: 'right' | 'left
   const fn = 'suggestMoves';
   const inp = record(fn, 'input', input);
   const hand = oneOf(fn, 'hand', inp.hand, ['right', 'left'] as const);
-  const a = analyzeShots(fn, inp.shots);
+  return movesOf(analyzeShots(fn, inp.shots), hand);
+}
+
+/** suggestMoves over shots already placed on their sheets (internal). */
+function movesOf(a: ReturnType<typeof analyzeShots>, hand: 'right' | 'left'): Move[] {
   const T = MOVE_THRESHOLDS;
 
-  const ordered = orderShots(a).map((x) => x.e);
-  const firsts = ordered.filter(isFirstBall);
+  const { ordered, firsts } = orderedAndFirsts(a);
   const moves: Move[] = [];
   const last = firsts[firsts.length - 1];
 
   if (last) {
-    const sameLine = (e: ShotEntry): boolean =>
-      e.shot.ballId === last.shot.ballId &&
-      (e.shot.feetBoard ?? null) === (last.shot.feetBoard ?? null) &&
-      (e.shot.targetBoard ?? null) === (last.shot.targetBoard ?? null);
+    const sameLine = sameLineAs(last);
     // the current line: the run of first balls at the end with the same ball, feet and target
     const line: ShotEntry[] = [];
     for (let k = firsts.length - 1; k >= 0 && sameLine(firsts[k]); k--) line.unshift(firsts[k]);

@@ -136,6 +136,38 @@ export interface ShotStats {
   leaves: LeaveCount[];
 }
 
+/**
+ * The counts behind shotStats: every figure of ShotStats is a function of these (shotStatsOfCounts), and the counts
+ * of two disjoint sets of shots add up, so counts kept per game can be summed to any season, ball or session.
+ *
+ * - `shots`, `games`: shots and games (sessionId + gameNumber) counted;
+ * - `totalSum`, `completeGames`: the sum and the number of the complete games' scores behind `average`;
+ * - the hits and chances of each rate (`strikes`/`strikeN`, `spares`/`spareN`, `singleMade`/`singleN`,
+ *   `multiMade`/`multiN`, `splitMade`/`splitN`, `pocket`/`pocketN`, `carried` of `pocket`);
+ * - `tallies`: `fb:<pins>` the first balls at a full rack that credited that many pins (0–10), `leave:<pins>` the
+ *   leaves by their standing pins in ascending order joined by commas (`leave:7,10`).
+ */
+export interface ShotCounts {
+  shots: number;
+  games: number;
+  totalSum: number;
+  completeGames: number;
+  strikes: number;
+  strikeN: number;
+  spares: number;
+  spareN: number;
+  singleMade: number;
+  singleN: number;
+  multiMade: number;
+  multiN: number;
+  splitMade: number;
+  splitN: number;
+  pocket: number;
+  pocketN: number;
+  carried: number;
+  tallies: Record<string, number>;
+}
+
 /** A side-to-side move, as the bowler faces the pins. */
 export interface BoardMove {
   direction: 'left' | 'right';

@@ -5,8 +5,8 @@ import { cpus, tmpdir } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
-import type { fitCalibration } from '../../engine/index';
-import type { Calibration } from '../../engine/shotlog/types';
+import type { fitCalibration, GameCountsRow } from '../../engine/index';
+import type { Calibration, Move, ShotRecord } from '../../engine/shotlog/types';
 import type { RankArsenalInput, RankedBall } from '../../engine/types';
 import { config } from '../config/index';
 import { AppError } from './AppError';
@@ -162,15 +162,22 @@ export function calibrateInWorker(input: Parameters<typeof fitCalibration>[0], s
 }
 
 /**
- * Shot statistics over a season (thousands of shots: hundreds of milliseconds) run on a thread of their own, one at a
- * time, so they hold neither the event loop nor the ranking threads. Started on first use; it stays.
+ * Shot statistics run on a thread of their own, one task at a time, so they hold neither the event loop nor the ranking
+ * threads: the statistics of summed counts and the moves of the latest shots (milliseconds), counting the games whose
+ * shots changed (a season's first count: hundreds of milliseconds) and the moves of a longer run of latest shots.
+ * Started on first use; it stays.
  */
 let statsPool: Piscina | null = null;
 
-export function statsInWorker(task: StatsTask): Promise<StatsParts> {
+function statsTask<T>(name: 'stats' | 'countGames' | 'moves', task: unknown): Promise<T> {
   statsPool ??= new Piscina({ filename: workerFile(), minThreads: 1, maxThreads: 1, idleTimeout: Infinity });
-  return statsPool.run(task, { name: 'stats' }) as Promise<StatsParts>;
+  return statsPool.run(task, { name }) as Promise<T>;
 }
+
+export const statsInWorker = (task: StatsTask): Promise<StatsParts> => statsTask('stats', task);
+export const countGamesInWorker = (records: ShotRecord[]): Promise<GameCountsRow[]> => statsTask('countGames', records);
+export const movesInWorker = (task: { shots: ShotRecord[]; hand: 'right' | 'left'; complete: boolean }): Promise<Move[] | null> =>
+  statsTask('moves', task);
 
 /** The ids of the pool's threads (tests: a thread is never replaced after an aborted ranking). */
 export function engineThreadIds(): number[] {

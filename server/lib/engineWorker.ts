@@ -1,9 +1,9 @@
 // Worker-thread entry for heavy engine calls (see enginePool.ts).
 import { createHash } from 'node:crypto';
 import { LRUCache } from 'lru-cache';
-import { fitCalibration, rankArsenal, shotStats, statsBy, suggestMoves } from '../../engine/index';
-import type { PocketLineHint } from '../../engine/index';
-import type { Calibration, ShotRecord } from '../../engine/shotlog/types';
+import { fitCalibration, gameCounts, movesOfRecentShots, rankArsenal, shotStatsOfCounts } from '../../engine/index';
+import type { GameCountsRow, PocketLineHint } from '../../engine/index';
+import type { Calibration, Move, ShotCounts, ShotRecord } from '../../engine/shotlog/types';
 import type { RankArsenalInput, RankedBall } from '../../engine/types';
 
 /**
@@ -47,22 +47,45 @@ export function rank(task: RankTask): RankedBall[] {
   });
 }
 
-/** A season's shots and the bowler's hand: the statistics GET /api/stats shows. */
+/** The counts of the statistics page's groups (summed from the kept game counts) and the latest shots for the moves. */
 export interface StatsTask {
-  records: ShotRecord[];
+  overall: ShotCounts;
+  byBall: { key: string; counts: ShotCounts }[];
+  bySurface: { key: string; counts: ShotCounts }[];
+  /** Without tallies: the trend shows each session's games, average, strike and spare rates only. */
+  bySession: { key: string; counts: ShotCounts }[];
+  /** The filtered shots of the latest sessions (`complete`: every filtered shot). */
+  recent: ShotRecord[];
+  complete: boolean;
   hand: 'right' | 'left';
 }
 
-export function stats({ records, hand }: StatsTask) {
+/** The statistics of each group, and the moves when the latest shots suffice for them (else null: read every shot). */
+export function stats(task: StatsTask) {
+  const of = (gs: { key: string; counts: ShotCounts }[]) => gs.map((g) => ({ key: g.key, stats: shotStatsOfCounts(g.counts) }));
   return {
-    overall: shotStats(records),
-    byBall: statsBy(records, 'ballId'),
-    bySurface: statsBy(records, ['ballId', 'surfaceKey']),
-    bySession: statsBy(records, 'sessionId'),
-    moves: suggestMoves({ shots: records, hand }),
+    overall: shotStatsOfCounts(task.overall),
+    byBall: of(task.byBall),
+    bySurface: of(task.bySurface),
+    // only what the trend shows (a season has hundreds of sessions: their full statistics would be copied back for nothing)
+    bySession: task.bySession.map((g) => {
+      const st = shotStatsOfCounts(g.counts);
+      return { key: g.key, games: st.games, average: st.average, strikePct: st.strike.pct, sparePct: st.spare.pct };
+    }),
+    moves: movesOfRecentShots({ shots: task.recent, hand: task.hand, complete: task.complete }),
   };
 }
 export type StatsParts = ReturnType<typeof stats>;
+
+/** The kept counts of games whose shots changed (engine gameCounts). */
+export function countGames(records: ShotRecord[]): GameCountsRow[] {
+  return gameCounts(records);
+}
+
+/** The moves of the latest shots when they suffice (or are every filtered shot: `complete`), else null. */
+export function moves(task: { shots: ShotRecord[]; hand: 'right' | 'left'; complete: boolean }): Move[] | null {
+  return movesOfRecentShots(task);
+}
 
 export function calibrate(input: Parameters<typeof fitCalibration>[0]): Calibration {
   return fitCalibration(input);

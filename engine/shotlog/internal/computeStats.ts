@@ -1,6 +1,6 @@
-import { mean, sampleStandardDeviation } from 'simple-statistics';
+import { isSplit } from '../../isSplit';
 import { leaveName } from '../../leaveName';
-import type { LeaveCount, Rate, ShotStats } from '../types';
+import type { LeaveCount, Rate, ShotCounts, ShotStats } from '../types';
 import { wilsonInterval } from '../wilsonInterval';
 import type { AnalyzedShots } from './analyzeShots';
 
@@ -11,24 +11,31 @@ export function rate(hits: number, n: number): Rate {
   return { hits, n, pct: (100 * hits) / n, low: 100 * w.low, high: 100 * w.high };
 }
 
-/** The statistics of the entries whose indexes are in `include` (definitions: shotStats). */
-export function computeStats(a: AnalyzedShots, include: Set<number>): ShotStats {
-  let strikes = 0,
-    strikeN = 0,
-    spares = 0,
-    spareN = 0,
-    single = 0,
-    singleN = 0,
-    multi = 0,
-    multiN = 0;
-  let splitMade = 0,
-    splitN = 0,
-    pocket = 0,
-    pocketN = 0,
-    carried = 0;
-  const firstBallPins: number[] = [];
-  const leaves = new Map<string, LeaveCount>();
-  let leaveTotal = 0;
+/** The counts of the entries whose indexes are in `include` (definitions: shotStats; tallies: ShotCounts). */
+export function countsOf(a: AnalyzedShots, include: Set<number>): ShotCounts {
+  const c: ShotCounts = {
+    shots: include.size,
+    games: 0,
+    totalSum: 0,
+    completeGames: 0,
+    strikes: 0,
+    strikeN: 0,
+    spares: 0,
+    spareN: 0,
+    singleMade: 0,
+    singleN: 0,
+    multiMade: 0,
+    multiN: 0,
+    splitMade: 0,
+    splitN: 0,
+    pocket: 0,
+    pocketN: 0,
+    carried: 0,
+    tallies: {},
+  };
+  const tally = (key: string) => {
+    c.tallies[key] = (c.tallies[key] ?? 0) + 1;
+  };
   const games = new Set<string>();
   for (const i of include) {
     const e = a.entries[i];
@@ -36,63 +43,97 @@ export function computeStats(a: AnalyzedShots, include: Set<number>): ShotStats 
     const v = e.view;
     if (!v) continue;
     if (v.rackBall === 1) {
-      strikeN++;
+      c.strikeN++;
       const strike = v.symbol === 'X';
-      if (strike) strikes++;
-      firstBallPins.push(v.pins);
+      if (strike) c.strikes++;
+      tally(`fb:${v.pins}`);
       const hit = e.shot.hit;
       if (hit !== undefined && hit !== null) {
-        pocketN++;
+        c.pocketN++;
         if (hit === 'pocket') {
-          pocket++;
-          if (strike) carried++;
+          c.pocket++;
+          if (strike) c.carried++;
         }
       }
-      if (!v.foul && !strike) {
-        const name = leaveName(v.standing);
-        const c = leaves.get(name);
-        if (c) c.count++;
-        else leaves.set(name, { pins: v.standing.slice(), name, count: 1, share: 0, split: v.split });
-        leaveTotal++;
-      }
+      if (!v.foul && !strike) tally(`leave:${[...v.standing].sort((x, y) => x - y).join(',')}`);
     } else {
-      spareN++;
+      c.spareN++;
       const made = v.symbol === '/';
-      if (made) spares++;
+      if (made) c.spares++;
       if (v.pinsBefore.length === 1) {
-        singleN++;
-        if (made) single++;
+        c.singleN++;
+        if (made) c.singleMade++;
       } else {
-        multiN++;
-        if (made) multi++;
+        c.multiN++;
+        if (made) c.multiMade++;
       }
       if (e.rackFirst?.split) {
-        splitN++;
-        if (made) splitMade++;
+        c.splitN++;
+        if (made) c.splitMade++;
       }
     }
   }
-  const totals = a.games.filter((g) => g.total !== null && g.entries.every((i) => include.has(i))).map((g) => g.total as number);
-  const leaveList = [...leaves.values()]
-    .map((l) => ({ ...l, share: l.count / leaveTotal }))
+  c.games = games.size;
+  for (const g of a.games) {
+    if (g.total !== null && g.entries.every((i) => include.has(i))) {
+      c.totalSum += g.total;
+      c.completeGames++;
+    }
+  }
+  return c;
+}
+
+/**
+ * ShotStats from counts (definitions: shotStats). The first-ball mean is Σ k·n_k ÷ n and its sample standard deviation
+ * √(Σ n_k (k − mean)² ÷ (n − 1)), summed over k = 0…10 pins, so every figure depends on the counts alone (not on the
+ * order the shots were counted in). Leaves are named by leaveName and marked by isSplit.
+ */
+export function statsFromCounts(c: ShotCounts): ShotStats {
+  const firstBall = new Array<number>(11).fill(0);
+  const leaves: Omit<LeaveCount, 'share'>[] = [];
+  for (const [key, count] of Object.entries(c.tallies)) {
+    if (!count) continue;
+    if (key.startsWith('fb:')) firstBall[Number(key.slice(3))] += count;
+    else if (key.startsWith('leave:')) {
+      const pins = key
+        .slice(6)
+        .split(',')
+        .map(Number)
+        .sort((x, y) => x - y);
+      leaves.push({ pins, name: leaveName(pins), count, split: isSplit(pins) });
+    }
+  }
+  let n = 0;
+  let sum = 0;
+  firstBall.forEach((count, pins) => {
+    n += count;
+    sum += count * pins;
+  });
+  const fbMean = n > 0 ? sum / n : null;
+  let squares = 0;
+  if (fbMean !== null) firstBall.forEach((count, pins) => (squares += count * (pins - fbMean) * (pins - fbMean)));
+  const leaveTotal = leaves.reduce((t, l) => t + l.count, 0);
+  const leaveList: LeaveCount[] = leaves
+    .map((l) => ({ pins: l.pins, name: l.name, count: l.count, share: l.count / leaveTotal, split: l.split }))
     .sort((x, y) => y.count - x.count || (x.name < y.name ? -1 : x.name > y.name ? 1 : 0));
   return {
-    shots: include.size,
-    games: games.size,
-    average: totals.length > 0 ? mean(totals) : null,
-    completeGames: totals.length,
-    strike: rate(strikes, strikeN),
-    spare: rate(spares, spareN),
-    singlePinSpare: rate(single, singleN),
-    multiPinSpare: rate(multi, multiN),
-    splitConversion: rate(splitMade, splitN),
-    pocket: rate(pocket, pocketN),
-    carry: rate(carried, pocket),
-    firstBallAverage: {
-      mean: firstBallPins.length > 0 ? mean(firstBallPins) : null,
-      sd: firstBallPins.length > 1 ? sampleStandardDeviation(firstBallPins) : null,
-      n: firstBallPins.length,
-    },
+    shots: c.shots,
+    games: c.games,
+    average: c.completeGames > 0 ? c.totalSum / c.completeGames : null,
+    completeGames: c.completeGames,
+    strike: rate(c.strikes, c.strikeN),
+    spare: rate(c.spares, c.spareN),
+    singlePinSpare: rate(c.singleMade, c.singleN),
+    multiPinSpare: rate(c.multiMade, c.multiN),
+    splitConversion: rate(c.splitMade, c.splitN),
+    pocket: rate(c.pocket, c.pocketN),
+    carry: rate(c.carried, c.pocket),
+    firstBallAverage: { mean: fbMean, sd: n > 1 ? Math.sqrt(squares / (n - 1)) : null, n },
     leaves: leaveList,
   };
+}
+
+/** The statistics of the entries whose indexes are in `include` (definitions: shotStats): statsFromCounts of their counts. */
+export function computeStats(a: AnalyzedShots, include: Set<number>): ShotStats {
+  return statsFromCounts(countsOf(a, include));
 }

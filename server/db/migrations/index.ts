@@ -15,6 +15,7 @@ import * as m0011 from './20261222-0011-trials';
 import * as m0012 from './20261230-0012-center-time-zone';
 import * as m0013 from './20261230-0013-condition-schedules';
 import * as m0015 from './20261230-0015-shop-counter';
+import * as m0016 from './20261230-0016-shot-aggregates';
 import * as m0017 from './20261230-0017-leagues-and-lane-pairs';
 import * as m0018 from './20261230-0018-ball-upkeep';
 import * as m0019 from './20261230-0019-plan-replies';
@@ -42,6 +43,7 @@ export const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '20261230-0012-center-time-zone.ts', module: m0012 },
   { name: '20261230-0013-condition-schedules.ts', module: m0013 },
   { name: '20261230-0015-shop-counter.ts', module: m0015 },
+  { name: '20261230-0016-shot-aggregates.ts', module: m0016 },
   { name: '20261230-0017-leagues-and-lane-pairs.ts', module: m0017 },
   { name: '20261230-0018-ball-upkeep.ts', module: m0018 },
   { name: '20261230-0019-plan-replies.ts', module: m0019 },

@@ -127,7 +127,7 @@ export function toShotRecord(r: ShotRow, date: string): ShotRecord {
 export const shotBallName = (r: Pick<ShotRow, 'ball_model_name' | 'ball_nickname'>): string =>
   ballLabel({ name: r.ball_model_name, nickname: r.ball_nickname });
 
-const SHOT_COLUMNS = `sh.id, sh.session_id, sh.game_number, sh.frame, sh.delivery, sh.ball_id, b.name AS ball_model_name, b.nickname AS ball_nickname, sh.surface_key,
+export const SHOT_COLUMNS = `sh.id, sh.session_id, sh.game_number, sh.frame, sh.delivery, sh.ball_id, b.name AS ball_model_name, b.nickname AS ball_nickname, sh.surface_key,
   sh.feet_board, sh.target_board, sh.breakpoint_board, sh.standing, sh.foul, sh.hit, sh.note, sh.created_at, sh.surface_grit, sh.surface_polished`;
 
 export function toAnnotationDto(a: Annotation & { author?: User }): AnnotationDto {

@@ -13,7 +13,8 @@ import { calibrationFitSeconds } from '../../lib/metrics';
 import type { Ball } from '../../models/index';
 import { arsenalRepository } from '../arsenal/arsenal.repository';
 import { patternsService } from '../patterns/patterns.service';
-import { sessionsRepository, type ShotRow } from '../sessions/sessions.repository';
+import type { ShotRow } from '../sessions/sessions.repository';
+import { aggregatesRepository } from './aggregates.repository';
 import { requestCalibrationFit, type FitRequest } from './calibrationJobs';
 import { bowlerOf, engineCondition } from './engineInput.service';
 import { statsRepository } from './stats.repository';
@@ -106,7 +107,15 @@ function subjectOf(
  */
 const observationsCache = new ScopedCache<CalibrationObservation[]>(['shots', 'balls'], { ttlMs: config.CACHE_TTL_MS, maxIds: 5_000 });
 
-/** The observations of the bowler's shots on a pattern, from rows already read (`rows`) or read now. */
+/** Whether the observations of the bowler's shots on a pattern are kept (a statistics read then leaves them out). */
+export function observationsKept(bowlerId: number, patternId: number): boolean {
+  return observationsCache.get(bowlerId, String(patternId)) !== undefined;
+}
+
+/**
+ * The observations of the bowler's shots on a pattern, from rows already read (`rows`: at least the newest
+ * CALIBRATION_SHOTS_PER_BALL calibration shots of each ball) or read now (only those).
+ */
 async function observationsFor(
   bowlerId: number,
   patternId: number,
@@ -118,7 +127,7 @@ async function observationsFor(
     if (hit) return hit;
   }
   const ticket = rows?.ticket ?? observationsCache.ticket(bowlerId);
-  const shots = rows?.rows ?? (await sessionsRepository.shotsForStats(bowlerId, { patternId }));
+  const shots = rows?.rows ?? (await aggregatesRepository.calibrationShots(bowlerId, patternId, CALIBRATION_SHOTS_PER_BALL));
   const ids = [...new Set(shots.map((r) => r.ball_id))];
   const balls = new Map((ids.length ? await arsenalRepository.findOwnedManyEvenRemoved(bowlerId, ids) : []).map((b) => [b.id, b]));
   const observations = observationsOf(shots, balls);

@@ -1,5 +1,5 @@
 import pLimit from 'p-limit';
-import type { Calibration, ShotRecord } from '../../../engine/shotlog/types';
+import type { Calibration, ShotCounts } from '../../../engine/shotlog/types';
 import { DEFAULT_LANE_SURFACE } from '../../../shared/centers';
 import type { CalibrationQuery, StatsQuery, StatsResult } from '../../../shared/sessions';
 import type { AuthUser } from '../../middleware/auth';
@@ -7,17 +7,19 @@ import { AppError } from '../../lib/AppError';
 import { config } from '../../config/index';
 import { hasReplicas } from '../../db/sequelize';
 import { ScopedCache, type CacheTicket } from '../../lib/changeFeed';
-import { statsInWorker } from '../../lib/enginePool';
+import { movesInWorker, statsInWorker } from '../../lib/enginePool';
 import { readableBowlerId } from '../coaching/coaching.access';
 import { sessionsRepository, shotBallName, toShotRecord, type ShotRow } from '../sessions/sessions.repository';
-import { calibrationFor } from './calibration.service';
+import { aggregatesRepository, COUNT_COLUMNS, type SumRow } from './aggregates.repository';
+import { refreshShotAggregates } from './aggregates.service';
+import { CALIBRATION_SHOTS_PER_BALL, calibrationFor, observationsKept } from './calibration.service';
 import { bowlerOf, engineCondition } from './engineInput.service';
 
 /** The computed statistics of a bowler per filter and hand (dropped when their shots, sessions or balls change). */
 type StatsParts = Omit<StatsResult, 'calibration' | 'calibrationPatternId' | 'calibrationLane'>;
 const statsCache = new ScopedCache<StatsParts>(['shots', 'balls'], { ttlMs: config.CACHE_TTL_MS, maxIds: 2_000, maxPerId: 8 });
 
-/** Season computations running at once in this process (one reading its shots while one is on the stats thread). */
+/** Statistics computations running at once in this process (one reading while one is on the stats thread). */
 export const SEASONS_AT_ONCE = 2;
 const seasonLimit = pLimit(SEASONS_AT_ONCE);
 const inFlight = new Map<
@@ -26,8 +28,52 @@ const inFlight = new Map<
 >();
 
 /**
- * The statistics of the bowler's shots under a filter: the bowler's shots read once (shared with the calibration,
- * whose pattern's rows are handed back), computed on the stats thread, kept.
+ * The filtered shots of the latest whole sessions read for the moves: enough for suggestMoves as a rule
+ * (recentShotsSuffice decides; when they do not suffice, four times as many are read, and so on).
+ */
+export const RECENT_SHOTS = 1000;
+
+const ZERO_COUNTS: Omit<ShotCounts, 'tallies'> = {
+  shots: 0,
+  games: 0,
+  totalSum: 0,
+  completeGames: 0,
+  strikes: 0,
+  strikeN: 0,
+  spares: 0,
+  spareN: 0,
+  singleMade: 0,
+  singleN: 0,
+  multiMade: 0,
+  multiN: 0,
+  splitMade: 0,
+  splitN: 0,
+  pocket: 0,
+  pocketN: 0,
+  carried: 0,
+};
+
+/** The grouping key of a summed row (GROUPING bits: 7 overall, 3 per ball, 1 per ball and surface, 6 per session). */
+const groupKey = (r: { g: number; ball_id: number | null; surface_key: string | null; session_id: number | null }): string =>
+  r.g === 7 ? '' : r.g === 3 ? String(r.ball_id) : r.g === 1 ? `${r.ball_id} | ${r.surface_key}` : String(r.session_id);
+
+/** ShotCounts of a summed row: the complete games' scores as the group counts them (engine gameCounts). */
+function countsOfRow(r: SumRow, tallies: Record<string, number>): ShotCounts {
+  const [totalSum, completeGames] = r.g === 3 ? [r.ball_sum, r.ball_n] : r.g === 1 ? [r.row_sum, r.row_n] : [r.game_sum, r.game_n];
+  const c: ShotCounts = { ...ZERO_COUNTS, games: r.games, totalSum, completeGames, tallies };
+  for (const [col, name] of Object.entries(COUNT_COLUMNS)) c[name] = Number(r[col as keyof typeof COUNT_COLUMNS]);
+  return c;
+}
+
+/** statsBy's order of groups: earliest date, then key (as strings). */
+const byDateThenKey = (a: { date: string; key: string }, b: { date: string; key: string }) =>
+  a.date < b.date ? -1 : a.date > b.date ? 1 : a.key < b.key ? -1 : a.key > b.key ? 1 : 0;
+
+/**
+ * The statistics of the bowler's shots under a filter, from the kept game counts (shot_aggregates, counted again first
+ * where shots changed): the counts summed in SQL overall, per ball, per ball and surface and per session; one read of
+ * shots for the moves (the latest sessions) and the calibration (the newest calibration shots of each ball on its
+ * pattern); the statistics and the moves computed on the stats thread; kept.
  */
 async function computeParts(
   bowlerId: number,
@@ -39,56 +85,94 @@ async function computeParts(
 ) {
   const kept = statsCache.get(bowlerId, key); // a computation that finished while this one waited for its turn
   if (kept) return { parts: kept };
-  const all = await sessionsRepository.shotsForStats(bowlerId, {});
-  const rows = all.filter(
-    (r) =>
-      (!q.from || r.date! >= q.from) &&
-      (!q.to || r.date! <= q.to) &&
-      (!q.ballId || r.ball_id === q.ballId) &&
-      (!q.patternId || r.pattern_id === q.patternId),
+  const fromPrimary = (await refreshShotAggregates(bowlerId)) && hasReplicas;
+  const f = { from: q.from, to: q.to, ballId: q.ballId, patternId: q.patternId };
+  const [sums, tallyRows, shots] = await Promise.all([
+    aggregatesRepository.sums(bowlerId, f, { fromPrimary }),
+    aggregatesRepository.tallies(bowlerId, f, { fromPrimary }),
+    aggregatesRepository.recentShots(bowlerId, f, {
+      limit: RECENT_SHOTS,
+      // the calibration's shots too, unless its observations are kept (a page shown with another filter)
+      calibration:
+        calibrationPatternId !== null && !observationsKept(bowlerId, calibrationPatternId)
+          ? { patternId: calibrationPatternId, perBall: CALIBRATION_SHOTS_PER_BALL }
+          : null,
+      fromPrimary,
+    }),
+  ]);
+  const tallies = new Map<string, Record<string, number>>();
+  for (const t of tallyRows) {
+    const k = `${t.g}:${groupKey(t)}`;
+    const cur = tallies.get(k) ?? {};
+    cur[t.key] = Number(t.n);
+    tallies.set(k, cur);
+  }
+  const groups = sums.map((r) => ({ row: r, key: groupKey(r), counts: countsOfRow(r, tallies.get(`${r.g}:${groupKey(r)}`) ?? {}) }));
+  const ordered = (g: number) =>
+    groups
+      .filter((x) => x.row.g === g)
+      .map((x) => ({ ...x, date: x.row.first_date! }))
+      .sort(byDateThenKey);
+  const overall = groups.find((x) => x.row.g === 7)?.counts ?? { ...ZERO_COUNTS, tallies: {} };
+  const byBall = ordered(3);
+  const bySurface = ordered(1);
+  const bySession = ordered(6);
+  const recent = shots.recent.map((r) => toShotRecord(r, r.date!));
+  const computed = await statsInWorker({
+    overall,
+    byBall: byBall.map((x) => ({ key: x.key, counts: x.counts })),
+    bySurface: bySurface.map((x) => ({ key: x.key, counts: x.counts })),
+    bySession: bySession.map((x) => ({ key: x.key, counts: x.counts })),
+    recent,
+    complete: recent.length === overall.shots,
+    hand,
+  });
+  // The moves: when the latest sessions did not suffice, four times as many, until they do or hold every filtered shot.
+  let moves = computed.moves;
+  for (let limit = RECENT_SHOTS * 4; moves === null; limit *= 4) {
+    const more = (await aggregatesRepository.recentShots(bowlerId, f, { limit, calibration: null, fromPrimary })).recent;
+    moves = await movesInWorker({ shots: more.map((r) => toShotRecord(r, r.date!)), hand, complete: more.length === overall.shots });
+  }
+  const names = new Map(
+    byBall.map((x) => [x.key, shotBallName({ ball_model_name: x.row.ball_model_name!, ball_nickname: x.row.ball_nickname })]),
   );
-  const records: ShotRecord[] = rows.map((r) => toShotRecord(r, r.date!));
-  const computed = await statsInWorker({ records, hand });
-  const names = new Map(rows.map((r) => [String(r.ball_id), shotBallName(r)]));
-  const dates = new Map(rows.map((r) => [String(r.session_id), r.date!]));
+  const dates = new Map(bySession.map((x) => [x.key, x.date]));
   const parts: StatsParts = {
     overall: computed.overall,
     byBall: computed.byBall.map((g) => ({ ballId: Number(g.key), name: names.get(g.key) ?? '', stats: g.stats })),
-    // Grouped within each full game, so a spare thrown with another ball keeps its leave.
-    bySurface: computed.bySurface.map((g) => ({
-      ballId: Number(g.keys.ballId),
-      name: names.get(g.keys.ballId!) ?? '',
-      surfaceKey: g.keys.surfaceKey!,
+    // Counted within each full game, so a spare thrown with another ball keeps its leave.
+    bySurface: computed.bySurface.map((g, i) => ({
+      ballId: Number(bySurface[i].row.ball_id),
+      name: names.get(String(bySurface[i].row.ball_id)) ?? '',
+      surfaceKey: bySurface[i].row.surface_key!,
       stats: g.stats,
     })),
     trend: computed.bySession
       .map((g) => ({
         sessionId: Number(g.key),
         date: dates.get(g.key)!,
-        games: g.stats.games,
-        average: g.stats.average,
-        strikePct: g.stats.strike.pct,
-        sparePct: g.stats.spare.pct,
+        games: g.games,
+        average: g.average,
+        strikePct: g.strikePct,
+        sparePct: g.sparePct,
       }))
       .sort((a, b) => a.date.localeCompare(b.date) || a.sessionId - b.sessionId),
-    moves: computed.moves,
+    moves,
   };
   if (!hasReplicas) statsCache.set(ticket, key, parts);
   return {
     parts,
-    ...(calibrationPatternId !== null
-      ? { rowsForCalibration: { rows: all.filter((r) => r.pattern_id === calibrationPatternId), ticket } }
-      : {}),
+    ...(calibrationPatternId !== null && shots.calibrationRead ? { rowsForCalibration: { rows: shots.calibration, ticket } } : {}),
   };
 }
 
 export const statsService = {
   /**
    * Statistics over the filtered shots, per ball, per ball and surface, per session, with moves and the calibration.
-   * At most one shot query per request, shared by the statistics and the calibration (the bowler's shots, filtered
-   * here); the statistics are computed on their own thread (statsInWorker: a season of shots takes hundreds of
-   * milliseconds) and kept per bowler, filter and hand until the bowler's shots, sessions or balls change, so a page
-   * shown again reads no shots at all.
+   * The figures come from the kept game counts summed in SQL (a page never replays a season: only games whose shots
+   * changed are counted again), the moves from the latest sessions and the calibration from each ball's newest
+   * calibration shots, both in one shot read; the little left to compute runs on the stats thread, and the answer is
+   * kept per bowler, filter and hand until the bowler's shots, sessions or balls change.
    */
   async stats(user: AuthUser, q: StatsQuery): Promise<StatsResult> {
     const bowlerId = await readableBowlerId(user, q.studentId);
