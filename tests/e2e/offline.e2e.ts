@@ -126,9 +126,11 @@ describe('offline: the installable app opens and logs a game with no connection'
     await signIn(page, DEMO.dana);
     const sessionId = await startSession(page);
     await page.getByRole('heading', { level: 1, name: /^Practice · \d{4}-\d{2}-\d{2}$/ }).waitFor();
-    await entryHeading(page)
-      .filter({ hasText: headingOf(GAME[0]) })
-      .waitFor();
+    // One shot is logged (and stored) while the signal holds; it is taken back offline below.
+    await log(page, 0);
+    await syncStatus(page).filter({ hasText: 'All shots saved.' }).waitFor();
+    const first = (await storedSession(await page.evaluate(() => window.localStorage.getItem('lanewright.token')!), sessionId)).shots;
+    expect(first).toHaveLength(1);
     // The reads a bowler needs later are seen once online: the arsenal, the sessions list, today's conditions (Home).
     await page.goto('/arsenal');
     await page.getByRole('heading', { level: 1, name: 'Arsenal' }).waitFor();
@@ -137,8 +139,11 @@ describe('offline: the installable app opens and logs a game with no connection'
     await page.goto('/');
     await page.getByRole('heading', { level: 1, name: /^Welcome,/ }).waitFor();
     // The service worker is installed (its precache complete) and in control of the page.
-    expect(await page.evaluate(async () => (await navigator.serviceWorker.ready).active?.state)).toBe('activated');
-    await eventually(() => page.evaluate(() => navigator.serviceWorker.controller !== null)).toBe(true);
+    await eventually(() => page.evaluate(async () => (await navigator.serviceWorker.ready).active?.state)).toBe('activated');
+    // A worker waiting for its first clients takes the next navigation (no clients.claim with an update prompt).
+    await page.reload();
+    await page.getByRole('heading', { level: 1, name: /^Welcome,/ }).waitFor();
+    expect(await page.evaluate(() => navigator.serviceWorker.controller !== null)).toBe(true);
     const token = await page.evaluate(() => window.localStorage.getItem('lanewright.token'));
     expect(token).toBeTruthy();
 
@@ -160,7 +165,15 @@ describe('offline: the installable app opens and logs a game with no connection'
     await again.waitForURL(new RegExp(`/sessions/${sessionId}$`));
     await again.getByText('No connection: showing this session as it was last loaded.').waitFor();
 
-    // A whole game, one shot taken back and logged again, all with no connection.
+    // The stored shot is taken back with no connection: the undo waits on this device.
+    await entryHeading(again)
+      .filter({ hasText: headingOf(GAME[1]) })
+      .waitFor();
+    await again.getByRole('button', { name: 'Undo last shot' }).click();
+    await again.getByRole('dialog', { name: 'Undo the last shot?' }).getByRole('button', { name: 'Undo it' }).click();
+    await syncStatus(again).filter({ hasText: '1 undo waiting to sync' }).waitFor();
+
+    // A whole game, one queued shot taken back and logged again, all with no connection.
     for (let i = 0; i < GAME.length - 1; i++) await log(again, i);
     await again.getByRole('button', { name: 'Undo last shot' }).click();
     await again.getByRole('dialog', { name: 'Undo the last shot?' }).getByRole('button', { name: 'Undo it' }).click();
@@ -170,7 +183,7 @@ describe('offline: the installable app opens and logs a game with no connection'
     await log(again, GAME.length - 2);
     await log(again, GAME.length - 1);
     await syncStatus(again)
-      .filter({ hasText: `${GAME.length} shots waiting to sync` })
+      .filter({ hasText: `1 undo and ${GAME.length} shots waiting to sync` })
       .waitFor();
 
     // A note, kept on this device.
@@ -180,7 +193,7 @@ describe('offline: the installable app opens and logs a game with no connection'
     await again.getByRole('button', { name: 'Save notes' }).click();
     await again.getByText('Not sent yet: kept on this device').waitFor();
     await connection(again)
-      .filter({ hasText: `Waiting to send: ${GAME.length} shots and 1 note.` })
+      .filter({ hasText: `Waiting to send: 1 undo, ${GAME.length} shots and 1 note.` })
       .waitFor();
     const queued = await again.evaluate(
       (id) => JSON.parse(window.localStorage.getItem(`lanewright.shotQueue.${id}`) ?? '[]') as { key: string }[],
@@ -193,8 +206,8 @@ describe('offline: the installable app opens and logs a game with no connection'
     expect(Number(await sheet.locator('[data-game-total]').textContent())).toBe(expected.total);
     await screenshot(again, 'offline-session-mobile');
     expect(await hasHorizontalScroll(again)).toBe(false);
-    // Nothing reached the server while offline.
-    expect((await storedSession(token!, sessionId)).shots).toHaveLength(0);
+    // Nothing reached the server while offline: it still holds the first shot only.
+    expect((await storedSession(token!, sessionId)).shots.map((s) => s.id)).toEqual(first.map((s) => s.id));
 
     // The signal returns: the shots go in order, then the note.
     await context.setOffline(false);
@@ -205,7 +218,8 @@ describe('offline: the installable app opens and logs a game with no connection'
     const stored = await storedSession(token!, sessionId);
     expect(stored.notes).toBe(note);
     expect(stored.shots).toHaveLength(GAME.length);
-    // Once each, in the order logged: ids ascend with the game's order.
+    // The undo went first (the first stored shot is gone), then every shot once, in the order logged.
+    expect(stored.shots.some((s) => s.id === first[0].id)).toBe(false);
     const byId = [...stored.shots].sort((a, b) => a.id - b.id);
     expect(byId.map((s) => [s.gameNumber, s.frame, s.delivery, s.standing])).toEqual(GAME.map((t) => [1, t.frame, t.delivery, t.standing]));
     expect(Number(await sheet.locator('[data-game-total]').textContent())).toBe(expected.total);

@@ -18,7 +18,10 @@ export function useOfflineSync() {
   const notes = useNoteQueueStore();
   shots.queuedSessions();
 
+  shots.undoSessions();
+
   const waitingShots = computed(() => Object.values(shots.queues).reduce((n, q) => n + q.length, 0));
+  const waitingUndos = computed(() => Object.values(shots.undos).reduce((n, q) => n + q.length, 0));
   const waitingNotes = computed(() => notes.items.length);
   const sending = computed(() => Object.values(shots.sending).some(Boolean));
 
@@ -30,6 +33,7 @@ export function useOfflineSync() {
     })().finally(() => {
       syncing = null;
       shots.queuedSessions();
+      shots.undoSessions();
     });
     return syncing;
   }
@@ -38,12 +42,13 @@ export function useOfflineSync() {
   useEventListener(window, 'storage', (e: StorageEvent) => {
     if (e.key === null || e.key.startsWith('lanewright.')) {
       shots.queuedSessions();
+      shots.undoSessions();
       notes.refresh();
     }
   });
   useIntervalFn(() => {
-    if (online.value && (waitingShots.value > 0 || waitingNotes.value > 0)) void sync();
+    if (online.value && (waitingShots.value > 0 || waitingUndos.value > 0 || waitingNotes.value > 0)) void sync();
   }, OFFLINE_SYNC_MS);
 
-  return { online, waitingShots, waitingNotes, sending, offlineCopyShown, refusedNote: computed(() => notes.refused), sync };
+  return { online, waitingShots, waitingUndos, waitingNotes, sending, offlineCopyShown, refusedNote: computed(() => notes.refused), sync };
 }

@@ -5,7 +5,7 @@ import { queryClient } from '@/api/queries';
 import { useAuthStore } from './auth';
 import { useProfileStore } from './profile';
 import { NOTE_QUEUE_PREFIX, useNoteQueueStore } from './noteQueue';
-import { SHOT_QUEUE_PREFIX, useShotQueueStore } from './shotQueue';
+import { SHOT_QUEUE_PREFIX, UNDO_QUEUE_PREFIX, useShotQueueStore } from './shotQueue';
 
 /** The Session screen's copy of each session for a reload without a connection. */
 export const SESSION_CACHE_PREFIX = 'lanewright.session.';
@@ -40,7 +40,7 @@ export function clearUserData(pinia?: Pinia): void {
   forgetMemory(pinia);
   useShotQueueStore(pinia).clearAll();
   useNoteQueueStore(pinia).clearAll();
-  removeKeys([SHOT_QUEUE_PREFIX, NOTE_QUEUE_PREFIX, SESSION_CACHE_PREFIX, DEVICE_OWNER_KEY]);
+  removeKeys([SHOT_QUEUE_PREFIX, UNDO_QUEUE_PREFIX, NOTE_QUEUE_PREFIX, SESSION_CACHE_PREFIX, DEVICE_OWNER_KEY]);
 }
 
 /** Shots logged on this device and not yet sent (a sign-out asks before it removes them). */
