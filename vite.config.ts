@@ -3,13 +3,53 @@ import { defineConfig } from 'vitest/config';
 import vue from '@vitejs/plugin-vue';
 import Components from 'unplugin-vue-components/vite';
 import { ElementPlusResolver } from 'unplugin-vue-components/resolvers';
+import { VitePWA } from 'vite-plugin-pwa';
 
 const apiPort = process.env.PORT ?? '3000';
 
 export default defineConfig({
   root: fileURLToPath(new URL('./client', import.meta.url)),
   // Element Plus on demand: each view's chunk imports only the components (and their CSS) it uses.
-  plugins: [vue(), Components({ resolvers: [ElementPlusResolver({ importStyle: 'css' })], dts: false })],
+  plugins: [
+    vue(),
+    Components({ resolvers: [ElementPlusResolver({ importStyle: 'css' })], dts: false }),
+    // The installable app: a web app manifest and a Workbox service worker that precaches the built shell (HTML,
+    // scripts, styles, fonts, the engine worker, icons), so a reload with no connection opens the app. The API is
+    // never cached by the service worker (answers are per user): the client keeps its own per-user copies
+    // (client/src/api/offlineReads.ts). 'prompt': a new version waits until the bowler chooses to load it.
+    VitePWA({
+      registerType: 'prompt',
+      injectRegister: false,
+      manifestFilename: 'manifest.webmanifest',
+      includeAssets: ['apple-touch-icon.png'],
+      manifest: {
+        id: '/',
+        name: 'Lanewright',
+        short_name: 'Lanewright',
+        description: 'Lane-condition and ball-matchup advice for ten-pin bowlers, coaches and centers.',
+        lang: 'en',
+        start_url: '/',
+        scope: '/',
+        display: 'standalone',
+        background_color: '#ffffff',
+        theme_color: '#083f40',
+        icons: [
+          { src: '/icon-192.png', sizes: '192x192', type: 'image/png' },
+          { src: '/icon-512.png', sizes: '512x512', type: 'image/png' },
+          { src: '/icon-maskable-512.png', sizes: '512x512', type: 'image/png', purpose: 'maskable' },
+        ],
+      },
+      workbox: {
+        globPatterns: ['**/*.{js,css,html,woff,woff2,png,svg,webmanifest}'],
+        // The whole app, lazy views included, so every screen opens offline (the largest chunk is about 1.5 MB).
+        maximumFileSizeToCacheInBytes: 6 * 1024 * 1024,
+        navigateFallback: '/index.html',
+        navigateFallbackDenylist: [/^\/api\//],
+        cleanupOutdatedCaches: true,
+        // No runtimeCaching: nothing under /api/ ever enters the service worker's caches.
+      },
+    }),
+  ],
   resolve: {
     alias: {
       '@': fileURLToPath(new URL('./client/src', import.meta.url)),

@@ -1,6 +1,6 @@
 /**
- * `npm run bench`: every bench in turn — engine (run.ts), accuracy, HTTP, statistics, reliability, engine load, league night —
- * each to the end even when an earlier one misses a target or fails, so one run always writes every section of
+ * `npm run bench`: every bench in turn — engine (run.ts), accuracy, HTTP, statistics, reliability, engine load, league night,
+ * Lighthouse (accessibility, best practices, installability) — each to the end even when an earlier one misses a target or fails, so one run always writes every section of
  * bench/results.json. Prints which parts missed; exits 1 if any did. Arguments go to run.ts (its FILTER, --strict).
  */
 import { spawnSync } from 'node:child_process';
@@ -9,7 +9,7 @@ import { fileURLToPath } from 'node:url';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 const root = path.resolve(here, '..');
-const PARTS = ['run.ts', 'accuracy.ts', 'http.ts', 'stats.ts', 'reliability.ts', 'engineLoad.ts', 'leagueNight.ts'];
+const PARTS = ['run.ts', 'accuracy.ts', 'http.ts', 'stats.ts', 'reliability.ts', 'engineLoad.ts', 'leagueNight.ts', 'lighthouse.ts'];
 
 const missed: string[] = [];
 for (const part of PARTS) {

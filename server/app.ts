@@ -20,6 +20,9 @@ import { requestId } from './middleware/requestId';
  */
 const devTools = mailCaptureEnabled && config.NODE_ENV !== 'production' ? await import('./features/dev/dev.routes') : null;
 
+/** Files of the installable app that must never be served from the HTTP cache (vite-plugin-pwa's output). */
+const SERVICE_WORKER_FILES = /^(sw\.js|workbox-[\w-]+\.js|manifest\.webmanifest)$/;
+
 /** Builds the Express app: the API under /api and, when built, the client. Listening is index.ts's job. */
 export function createApp(): Express {
   const app = express();
@@ -42,6 +45,9 @@ export function createApp(): Express {
           'img-src': ["'self'", 'data:', 'blob:'],
           'font-src': ["'self'", 'data:'],
           'connect-src': ["'self'"],
+          // The service worker (sw.js), the engine's module worker and the web app manifest come from this origin only.
+          'worker-src': ["'self'"],
+          'manifest-src': ["'self'"],
           'object-src': ["'none'"],
           'frame-ancestors': ["'none'"],
           'upgrade-insecure-requests': null,
@@ -74,6 +80,9 @@ export function createApp(): Express {
         maxAge: '1h',
         setHeaders: (res, file) => {
           if (file.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+          // The service worker, its Workbox runtime and the manifest are checked on every visit, so a new version
+          // is found at once (the browser then offers it; the bowler decides when to load it).
+          else if (SERVICE_WORKER_FILES.test(path.basename(file))) res.setHeader('Cache-Control', 'no-cache');
         },
       }),
     );

@@ -1,5 +1,6 @@
 /// <reference types="vite/client" />
 /// <reference types="element-plus/global" />
+/// <reference types="vite-plugin-pwa/client" />
 
 import 'vue-router';
 import type { Role } from '@shared/auth';

@@ -18,6 +18,7 @@ import { queryClient } from './api/queries';
 import { router, routerReplace } from './router';
 import { useAuthStore } from './stores/auth';
 import { guardUserData } from './stores/userData';
+import { startAppUpdates } from './composables/useAppUpdate';
 
 const app = createApp(App);
 const pinia = createPinia();
@@ -44,3 +45,5 @@ configureApiClient({
 
 app.use(router);
 app.mount('#app');
+// The installable app's service worker: the shell opens with no connection; a new version is offered, never forced.
+startAppUpdates();

@@ -88,9 +88,29 @@ export async function chooseOption(
   await (opts.first ? item.first() : item).click();
 }
 
+export interface OpenOptions {
+  /**
+   * Let the app register its service worker (the installable, offline app: tests/e2e/offline.e2e.ts). Blocked
+   * otherwise, so the other files see every request of the page and no context spends time precaching the app.
+   */
+  serviceWorkers?: boolean;
+}
+
 /** A fresh context (no cookies, no localStorage) and one page at the given viewport. */
-export async function openSession(browser: Browser, baseURL: string, viewport: Viewport = DESKTOP): Promise<Session> {
-  const context = await browser.newContext({ baseURL, viewport, deviceScaleFactor: 1, locale: 'en-US', timezoneId: 'UTC' });
+export async function openSession(
+  browser: Browser,
+  baseURL: string,
+  viewport: Viewport = DESKTOP,
+  options: OpenOptions = {},
+): Promise<Session> {
+  const context = await browser.newContext({
+    baseURL,
+    viewport,
+    deviceScaleFactor: 1,
+    locale: 'en-US',
+    timezoneId: 'UTC',
+    serviceWorkers: options.serviceWorkers ? 'allow' : 'block',
+  });
   // Upper bounds for waiting on what the page shows: a healthy run sees it in milliseconds, a loaded 2-core machine
   // (another test run, `npm start` beside it) may take many seconds. Nothing waits for a fixed time.
   context.setDefaultTimeout(WAIT_MS);
@@ -106,7 +126,7 @@ export interface BrowserFixture {
   /** This file's own server (tests/helpers/e2eServer.ts). */
   baseUrl: string;
   /** A fresh context (no cookies, no localStorage) and page; closed after the test, its page errors checked. */
-  open: (viewport?: Viewport) => Promise<Session>;
+  open: (viewport?: Viewport, options?: OpenOptions) => Promise<Session>;
 }
 
 /**
@@ -132,9 +152,9 @@ export function useBrowser(defaultViewport: Viewport = DESKTOP): BrowserFixture 
     await browser?.close();
   });
 
-  async function open(viewport: Viewport = defaultViewport): Promise<Session> {
+  async function open(viewport: Viewport = defaultViewport, options: OpenOptions = {}): Promise<Session> {
     if (!browser) throw new Error('useBrowser(): open a session inside a test (the browser starts in beforeAll)');
-    const s = await openSession(browser, baseUrl, viewport);
+    const s = await openSession(browser, baseUrl, viewport, options);
     sessions.push(s);
     return s;
   }

@@ -75,7 +75,8 @@ describe('Content-Security-Policy', () => {
     const violations: string[] = [];
     let visited = 0;
     for (const [email, paths] of Object.entries(SCREENS)) {
-      const s = await openSession(browser, server.base);
+      // The service worker registers too: the policy allows it (worker-src, manifest-src).
+      const s = await openSession(browser, server.base, undefined, { serviceWorkers: true });
       await s.context.addInitScript(() => {
         document.addEventListener('securitypolicyviolation', (e) => {
           console.error(`CSP violation: ${e.violatedDirective} blocked ${e.blockedURI} (${e.sourceFile}:${e.lineNumber})`);

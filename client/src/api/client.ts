@@ -1,4 +1,5 @@
 import { ApiErrorSchema } from '@shared/errors';
+import { recallRead, rememberRead } from './offlineReads';
 
 /**
  * The one typed API client. Every request goes through `request()`:
@@ -102,9 +103,12 @@ export async function request<T>(method: HttpMethod, path: string, options: Requ
   const isForm = typeof FormData !== 'undefined' && options.body instanceof FormData;
   if (options.body !== undefined && !isForm) headers['Content-Type'] = 'application/json';
 
+  const url = buildUrl(path, options.query);
+  // The reads a bowler needs at the lane keep their last answer for this token (offlineReads.ts).
+  const offlinePath = method === 'GET' && token && !options.asBlob ? url.slice(API_BASE.length) : null;
   let res: Response;
   try {
-    res = await fetch(buildUrl(path, options.query), {
+    res = await fetch(url, {
       method,
       headers,
       body: options.body === undefined ? undefined : isForm ? (options.body as FormData) : JSON.stringify(options.body),
@@ -112,13 +116,20 @@ export async function request<T>(method: HttpMethod, path: string, options: Requ
     });
   } catch (err) {
     if (err instanceof DOMException && err.name === 'AbortError') throw err;
+    if (offlinePath && token) {
+      const copy = await recallRead(token, offlinePath);
+      if (copy !== undefined) return copy as T;
+    }
     throw new ApiRequestError(0, 'network_error', 'Lanewright could not be reached. Check your connection and try again.');
   }
 
   if (res.ok && method !== 'GET' && !options.readOnly) config.onWrite?.();
   if (res.ok && options.asBlob) return (await res.blob()) as T;
   const data = await readJson(res);
-  if (res.ok) return data as T;
+  if (res.ok) {
+    if (offlinePath && token) void rememberRead(token, offlinePath, data, () => config.getToken() === token);
+    return data as T;
+  }
 
   const parsed = ApiErrorSchema.safeParse(data);
   const error = parsed.success

@@ -2,6 +2,7 @@ import { computed, ref, shallowRef } from 'vue';
 import { errorMessage, isApiRequestError } from '@/api/client';
 import { sessionsApi, type Annotation, type SessionDetail, type Shot } from '@/api/sessions';
 import { useAuthStore } from '@/stores/auth';
+import { useShotQueueStore } from '@/stores/shotQueue';
 import { SESSION_CACHE_PREFIX } from '@/stores/userData';
 
 /**
@@ -10,6 +11,7 @@ import { SESSION_CACHE_PREFIX } from '@/stores/userData';
  */
 export function useSessionDetail(sessionId: number) {
   const auth = useAuthStore();
+  const queue = useShotQueueStore();
   const detail = shallowRef<SessionDetail | null>(null);
   const stored = shallowRef<Shot[]>([]);
   const annotations = shallowRef<Annotation[]>([]);
@@ -35,7 +37,9 @@ export function useSessionDetail(sessionId: number) {
 
   function apply(d: SessionDetail): void {
     detail.value = d;
-    stored.value = [...d.shots];
+    // Shots taken back on this device whose delete has not reached the server yet are not shown.
+    const undone = new Set(queue.readUndo(sessionId));
+    stored.value = d.shots.filter((s) => !undone.has(s.id));
     annotations.value = [...d.annotations];
   }
 
@@ -71,6 +75,7 @@ export function useSessionDetail(sessionId: number) {
 
   function removeStored(shotId: number): void {
     stored.value = stored.value.filter((s) => s.id !== shotId);
+    if (detail.value) cache({ ...detail.value, shots: stored.value });
   }
 
   /** The detail after an edit (the notes), kept in the copy too. */

@@ -61,8 +61,11 @@ export function useShotQueue(options: UseShotQueueOptions) {
   const { sessionId } = options;
   const store = useShotQueueStore();
   store.read(sessionId);
+  store.readUndo(sessionId);
   const items = computed<QueuedShot[]>(() => store.queues[sessionId] ?? []);
-  const state = ref<QueueState>(items.value.length ? 'waiting' : 'idle');
+  /** Stored shots taken back with no connection, waiting to be deleted on the server. */
+  const undoCount = computed(() => (store.undos[sessionId] ?? []).length);
+  const state = ref<QueueState>(items.value.length || undoCount.value ? 'waiting' : 'idle');
   const refused = shallowRef<RefusedShot | null>(null);
   /** Why the last attempt did not get through (for the status line), or ''. */
   const lastError = ref('');
@@ -80,6 +83,14 @@ export function useShotQueue(options: UseShotQueueOptions) {
     commit([...store.read(sessionId), shot]);
     if (state.value !== 'blocked') void flush();
     return shot;
+  }
+
+  /** Take a stored shot back with no connection: the delete waits here and is sent first. */
+  function queueUndo(shotId: number): boolean {
+    const ok = store.queueUndo(sessionId, shotId);
+    storageFailed.value = !ok;
+    state.value = 'waiting';
+    return ok;
   }
 
   /** Take the last queued shot back (undo before it was sent); null while a send is under way. */
@@ -119,7 +130,8 @@ export function useShotQueue(options: UseShotQueueOptions) {
       state.value = 'blocked';
       lastError.value = outcome.message;
     } else {
-      state.value = items.value.length ? 'waiting' : 'idle';
+      store.readUndo(sessionId);
+      state.value = items.value.length || undoCount.value ? 'waiting' : 'idle';
       lastError.value = outcome.kind === 'waiting' ? outcome.message : '';
     }
   }
@@ -127,7 +139,7 @@ export function useShotQueue(options: UseShotQueueOptions) {
   let stopListening: (() => void) | undefined;
   onMounted(() => {
     stopListening = store.onStored(sessionId, options.onStored);
-    if (items.value.length > 0 || store.isSending(sessionId)) void flush();
+    if (items.value.length > 0 || undoCount.value > 0 || store.isSending(sessionId)) void flush();
   });
   onBeforeUnmount(() => stopListening?.());
   // The listeners and the timer below end with the component (vueuse removes them when its scope is disposed).
@@ -137,8 +149,8 @@ export function useShotQueue(options: UseShotQueueOptions) {
     if (e.key === queueStorageKey(sessionId) && !store.isSending(sessionId)) store.read(sessionId);
   });
   useIntervalFn(() => {
-    if (items.value.length > 0 && state.value !== 'blocked') void flush();
+    if ((items.value.length > 0 || undoCount.value > 0) && state.value !== 'blocked') void flush();
   }, SYNC_INTERVAL_MS);
 
-  return { items, count, state, refused, lastError, storageFailed, enqueue, removeLast, discardRefused, flush };
+  return { items, count, undoCount, state, refused, lastError, storageFailed, enqueue, removeLast, queueUndo, discardRefused, flush };
 }

@@ -18,6 +18,8 @@ export type SendOutcome =
 export type StoredListener = (result: ShotCreated, shot: QueuedShot) => void;
 
 export const SHOT_QUEUE_PREFIX = 'lanewright.shotQueue.';
+/** Stored shots taken back (undo) with no connection, per session: their ids, sent before the session's queued shots. */
+export const UNDO_QUEUE_PREFIX = 'lanewright.undoQueue.';
 
 export function queueStorageKey(sessionId: number): string {
   return `${SHOT_QUEUE_PREFIX}${sessionId}`;
@@ -50,20 +52,40 @@ function writeStored(sessionId: number, items: readonly QueuedShot[]): boolean {
   }
 }
 
-/** Every session id with a queue in this browser's storage. */
-function storedSessionIds(): number[] {
-  const ids: number[] = [];
+function readUndos(sessionId: number): number[] {
+  try {
+    const parsed = JSON.parse(window.localStorage.getItem(UNDO_QUEUE_PREFIX + sessionId) ?? '[]') as unknown;
+    return Array.isArray(parsed) ? parsed.filter((x): x is number => Number.isInteger(x) && x > 0) : [];
+  } catch {
+    return [];
+  }
+}
+
+function writeUndos(sessionId: number, ids: readonly number[]): boolean {
+  try {
+    if (ids.length === 0) window.localStorage.removeItem(UNDO_QUEUE_PREFIX + sessionId);
+    else window.localStorage.setItem(UNDO_QUEUE_PREFIX + sessionId, JSON.stringify(ids));
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/** Every session id with a queue (shots, or undos of stored shots) in this browser's storage. */
+function storedSessionIds(prefixes: readonly string[] = [SHOT_QUEUE_PREFIX, UNDO_QUEUE_PREFIX]): number[] {
+  const ids = new Set<number>();
   try {
     for (let i = 0; i < window.localStorage.length; i++) {
       const key = window.localStorage.key(i);
-      if (!key?.startsWith(SHOT_QUEUE_PREFIX)) continue;
-      const id = Number(key.slice(SHOT_QUEUE_PREFIX.length));
-      if (Number.isInteger(id) && id > 0) ids.push(id);
+      const prefix = prefixes.find((p) => key?.startsWith(p));
+      if (!key || !prefix) continue;
+      const id = Number(key.slice(prefix.length));
+      if (Number.isInteger(id) && id > 0) ids.add(id);
     }
   } catch {
     // storage unavailable: nothing queued here
   }
-  return ids;
+  return [...ids];
 }
 
 /** A lost connection, a server that is down or busy: keep the shot and try again later. */
@@ -81,6 +103,10 @@ function isTransient(err: unknown): boolean {
 export const useShotQueueStore = defineStore('shotQueue', () => {
   /** The queued shots per session, as last read from or written to storage. */
   const queues = ref<Record<number, QueuedShot[]>>({});
+  /** Stored shots taken back with no connection, per session (their ids), as last read from or written to storage. */
+  const undos = ref<Record<number, number[]>>({});
+  /** Why the last queued undo was refused (the shot was no longer the last of its game), or ''. */
+  const undoRefused = ref('');
   /** Sessions whose queue is being sent right now. */
   const sending = ref<Record<number, boolean>>({});
   const runs = new Map<number, Promise<SendOutcome>>();
@@ -97,6 +123,23 @@ export const useShotQueueStore = defineStore('shotQueue', () => {
   function write(sessionId: number, items: QueuedShot[]): boolean {
     queues.value = { ...queues.value, [sessionId]: items };
     return writeStored(sessionId, items);
+  }
+
+  function readUndo(sessionId: number): number[] {
+    const ids = readUndos(sessionId);
+    undos.value = { ...undos.value, [sessionId]: ids };
+    return ids;
+  }
+
+  /**
+   * Takes back a stored shot with no connection: its delete waits on this device and is sent before the session's
+   * queued shots (an undo of a stored shot is only offered while nothing of the session is queued, so this keeps the
+   * order the bowler made). False when the browser would not store it.
+   */
+  function queueUndo(sessionId: number, shotId: number): boolean {
+    const ids = [...readUndo(sessionId).filter((x) => x !== shotId), shotId];
+    undos.value = { ...undos.value, [sessionId]: ids };
+    return writeUndos(sessionId, ids);
   }
 
   function isSending(sessionId: number): boolean {
@@ -119,6 +162,22 @@ export const useShotQueueStore = defineStore('shotQueue', () => {
     if (existing) return existing;
     sending.value = { ...sending.value, [sessionId]: true };
     const run = (async (): Promise<SendOutcome> => {
+      // Undos of stored shots first, in the order made; a delete whose shot is gone already (404) is done.
+      for (;;) {
+        const shotId = readUndo(sessionId)[0];
+        if (shotId === undefined) break;
+        try {
+          await sessionsApi.removeShot(sessionId, shotId);
+        } catch (err) {
+          if (isTransient(err)) return { kind: 'waiting', message: isApiRequestError(err) ? err.message : 'The undo could not be sent.' };
+          if (!isApiRequestError(err) || err.status !== 404) undoRefused.value = (err as Error).message;
+        }
+        writeUndos(
+          sessionId,
+          readUndos(sessionId).filter((x) => x !== shotId),
+        );
+        readUndo(sessionId);
+      }
       for (;;) {
         const first = read(sessionId)[0];
         if (!first) return { kind: 'done' };
@@ -147,22 +206,50 @@ export const useShotQueueStore = defineStore('shotQueue', () => {
 
   /** Every session with shots waiting on this device. */
   function queuedSessions(): { sessionId: number; count: number }[] {
-    return storedSessionIds()
+    return storedSessionIds([SHOT_QUEUE_PREFIX])
       .map((sessionId) => ({ sessionId, count: read(sessionId).length }))
       .filter((q) => q.count > 0)
       .sort((a, b) => a.sessionId - b.sessionId);
   }
 
+  /** Every session with undos of stored shots waiting on this device. */
+  function undoSessions(): { sessionId: number; count: number }[] {
+    return storedSessionIds([UNDO_QUEUE_PREFIX])
+      .map((sessionId) => ({ sessionId, count: readUndo(sessionId).length }))
+      .filter((q) => q.count > 0);
+  }
+
   /** Background sync from screens other than the session's own (e.g. the Sessions list): one session after another. */
   async function sendAll(): Promise<void> {
-    for (const { sessionId } of queuedSessions()) await send(sessionId);
+    for (const sessionId of storedSessionIds().sort((a, b) => a - b)) await send(sessionId);
   }
 
   /** Forgets every queue of this device (signing out on a shared device): storage and memory. */
   function clearAll(): void {
-    for (const id of storedSessionIds()) writeStored(id, []);
+    for (const id of storedSessionIds()) {
+      writeStored(id, []);
+      writeUndos(id, []);
+    }
     queues.value = {};
+    undos.value = {};
+    undoRefused.value = '';
   }
 
-  return { queues, sending, read, write, isSending, onStored, send, queuedSessions, sendAll, clearAll };
+  return {
+    queues,
+    undos,
+    undoRefused,
+    sending,
+    read,
+    write,
+    readUndo,
+    queueUndo,
+    isSending,
+    onStored,
+    send,
+    queuedSessions,
+    undoSessions,
+    sendAll,
+    clearAll,
+  };
 });

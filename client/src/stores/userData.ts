@@ -1,9 +1,11 @@
 import { watch } from 'vue';
 import type { Pinia } from 'pinia';
+import { forgetOfflineReads } from '@/api/offlineReads';
 import { queryClient } from '@/api/queries';
 import { useAuthStore } from './auth';
 import { useProfileStore } from './profile';
-import { SHOT_QUEUE_PREFIX, useShotQueueStore } from './shotQueue';
+import { NOTE_QUEUE_PREFIX, useNoteQueueStore } from './noteQueue';
+import { SHOT_QUEUE_PREFIX, UNDO_QUEUE_PREFIX, useShotQueueStore } from './shotQueue';
 
 /** The Session screen's copy of each session for a reload without a connection. */
 export const SESSION_CACHE_PREFIX = 'lanewright.session.';
@@ -23,20 +25,22 @@ function removeKeys(prefixes: readonly string[]): void {
   }
 }
 
-/** Forgets the answers held in memory: the query cache and the profile. */
+/** Forgets the answers held: the query cache, the profile and the offline copies of API answers. */
 function forgetMemory(pinia?: Pinia): void {
   queryClient.clear();
+  forgetOfflineReads();
   useProfileStore(pinia).$reset();
 }
 
 /**
  * Everything of the signed-in user this device holds, gone (signing out on a shared device): the query cache, the
- * profile, the shot queues and the session copies in localStorage. The token goes with `auth.signOut()`.
+ * profile, the offline copies of API answers, the shot and note queues and the session copies in localStorage. The token goes with `auth.signOut()`.
  */
 export function clearUserData(pinia?: Pinia): void {
   forgetMemory(pinia);
   useShotQueueStore(pinia).clearAll();
-  removeKeys([SHOT_QUEUE_PREFIX, SESSION_CACHE_PREFIX, DEVICE_OWNER_KEY]);
+  useNoteQueueStore(pinia).clearAll();
+  removeKeys([SHOT_QUEUE_PREFIX, UNDO_QUEUE_PREFIX, NOTE_QUEUE_PREFIX, SESSION_CACHE_PREFIX, DEVICE_OWNER_KEY]);
 }
 
 /** Shots logged on this device and not yet sent (a sign-out asks before it removes them). */
@@ -44,6 +48,11 @@ export function unsentShots(pinia?: Pinia): number {
   return useShotQueueStore(pinia)
     .queuedSessions()
     .reduce((n, q) => n + q.count, 0);
+}
+
+/** Session notes saved on this device and not yet sent. */
+export function unsentNotes(pinia?: Pinia): number {
+  return useNoteQueueStore(pinia).refresh().length;
 }
 
 /**
