@@ -114,6 +114,22 @@ export const ShotCreateSchema = z
     foul: z.boolean({ error: 'Foul is yes or no' }).optional(),
     hit: HitKindSchema.nullable().optional(),
     note: z.string().trim().max(500, 'At most 500 characters').optional(),
+    /** The shot's own ball speed, mph, as a center's display or a timer showed it (the profile's range). */
+    speedMph: z
+      .number({ error: 'Speed must be a number' })
+      .min(8, 'Speed: 8 to 30 mph')
+      .max(30, 'Speed: 8 to 30 mph')
+      .multipleOf(0.1, 'Speed: to a tenth of a mph')
+      .nullable()
+      .optional(),
+    /** The shot's own rev rate, rpm. */
+    revRpm: z
+      .number({ error: 'Rev rate must be a number' })
+      .int('Rev rate: whole rpm')
+      .min(0, 'Rev rate: 0 to 700 rpm')
+      .max(700, 'Rev rate: 0 to 700 rpm')
+      .nullable()
+      .optional(),
   })
   .strict();
 export type ShotCreate = z.infer<typeof ShotCreateSchema>;
@@ -156,6 +172,8 @@ export const ShotSchema = z.object({
   foul: z.boolean(),
   hit: z.enum(HIT_KINDS).nullable(),
   note: z.string(),
+  speedMph: z.number().nullable(),
+  revRpm: z.number().int().nullable(),
   createdAt: z.string(),
 });
 export type Shot = z.infer<typeof ShotSchema>;

@@ -1,6 +1,6 @@
 import { inRange, integerInRange, list, record, show } from '../internal/checks';
 import { validateBallSpec } from '../validateBallSpec';
-import { validateBowlerProfile } from '../validateBowlerProfile';
+import { BOWLER_BOUNDS, validateBowlerProfile } from '../validateBowlerProfile';
 import { validatePattern } from '../validatePattern';
 import { conditionOilMap } from '../motion/conditionOilMap';
 import type { LaneOilMap } from '../motion/laneOilMap';
@@ -47,6 +47,8 @@ interface Usable {
   obs: CalibrationObservation;
   spec: string;
   games: number;
+  /** The bowler as this shot was thrown: the profile, with the shot's own speed and revs where logged. */
+  release: BowlerProfile;
   lane: LaneSurface;
 }
 
@@ -125,13 +127,24 @@ export function fitCalibration(input: {
       throw new TypeError(`${fn}: ${name}.hit must be one of pocket, high, light, brooklyn, miss or null, got ${show(r.hit)}`);
     }
     const games = r.gamesBowled === undefined ? 0 : inRange(fn, `${name}.gamesBowled`, r.gamesBowled, 0, 50);
+    // a shot's own measured release, where logged, in the bowler profile's ranges (validateBowlerProfile)
+    const speed =
+      r.speedMph === undefined || r.speedMph === null
+        ? bowler.speedMph
+        : inRange(fn, `${name}.speedMph`, r.speedMph, 1, BOWLER_BOUNDS.maxSpeedMph, ' mph');
+    const revs =
+      r.revRpm === undefined || r.revRpm === null
+        ? bowler.revRpm
+        : inRange(fn, `${name}.revRpm`, r.revRpm, 0, BOWLER_BOUNDS.maxRevRpm, ' rpm');
+    const release: BowlerProfile =
+      speed === bowler.speedMph && revs === bowler.revRpm ? bowler : { ...bowler, speedMph: speed, revRpm: revs };
     const obsLane = r.lane === undefined || r.lane === null ? lane : laneSurfaceOf(`${fn}: ${name}`, r.lane as LaneSurface);
     const obs = o as CalibrationObservation;
     const usable = typeof obs.breakpointBoard === 'number' || (obs.hit !== undefined && obs.hit !== null && obs.hit !== 'miss');
     if (!usable) return;
     const { id, ...spec } = obs.ball;
     const list2 = byBall.get(id) ?? [];
-    list2.push({ obs, spec: JSON.stringify(spec), games, lane: obsLane });
+    list2.push({ obs, spec: JSON.stringify(spec), games, lane: obsLane, release });
     byBall.set(id, list2);
   });
 
@@ -155,10 +168,11 @@ export function fitCalibration(input: {
       const prepared = new Map<string, PreparedShot>();
       const out: number[] = [];
       for (const u of items) {
-        const key = `${u.spec}\u0000${u.games}\u0000${u.lane.kind}\u0000${u.lane.friction}`;
+        const key = `${u.spec}\u0000${u.games}\u0000${u.lane.kind}\u0000${u.lane.friction}\u0000${u.release.speedMph}\u0000${u.release.revRpm}`;
         let shot = prepared.get(key);
         if (!shot) {
-          shot = prepareShot({ ball: u.obs.ball, bowler, pattern, frictionScale: s, lane: u.lane }, mapFor(u.games, u.lane));
+          // the lane's oil map stays the bowler's usual one (it stands for the pair's wear); the shot is thrown with its own release
+          shot = prepareShot({ ball: u.obs.ball, bowler: u.release, pattern, frictionScale: s, lane: u.lane }, mapFor(u.games, u.lane));
           prepared.set(key, shot);
         }
         const r = shot.run(u.obs.laydownBoard, u.obs.targetBoard);

@@ -209,6 +209,10 @@ export interface CalibrationObservation {
   hit?: HitKind | null;
   /** Games bowled on the pattern before this shot (default 0). */
   gamesBowled?: number;
+  /** This shot's own ball speed at release, mph, when measured (default: the bowler's profile). */
+  speedMph?: number | null;
+  /** This shot's own rev rate, rpm, when measured (default: the bowler's profile). */
+  revRpm?: number | null;
   /** The lane surface this shot was thrown on (default: fitCalibration's `lane`). */
   lane?: LaneSurface;
 }

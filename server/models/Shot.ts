@@ -18,6 +18,9 @@ export class Shot extends Model<InferAttributes<Shot>, InferCreationAttributes<S
   declare foul: boolean;
   declare hit: 'pocket' | 'high' | 'light' | 'brooklyn' | 'miss' | null;
   declare note: string;
+  /** The shot's own measured release, when logged. */
+  declare speedMph: CreationOptional<number | null>;
+  declare revRpm: CreationOptional<number | null>;
   declare idempotencyKey: string;
   declare requestHash: string;
   declare response: CreationOptional<Record<string, unknown>>;
@@ -43,6 +46,8 @@ export class Shot extends Model<InferAttributes<Shot>, InferCreationAttributes<S
         foul: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         hit: { type: DataTypes.STRING(10), allowNull: true },
         note: { type: DataTypes.STRING(500), allowNull: false, defaultValue: '' },
+        speedMph: { type: DataTypes.REAL, allowNull: true },
+        revRpm: { type: DataTypes.INTEGER, allowNull: true },
         idempotencyKey: { type: DataTypes.STRING(100), allowNull: false },
         requestHash: { type: DataTypes.STRING(64), allowNull: false },
         response: { type: DataTypes.JSONB, allowNull: false, defaultValue: {} },

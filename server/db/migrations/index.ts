@@ -19,6 +19,7 @@ import * as m0016 from './20261230-0016-shot-aggregates';
 import * as m0017 from './20261230-0017-leagues-and-lane-pairs';
 import * as m0018 from './20261230-0018-ball-upkeep';
 import * as m0019 from './20261230-0019-plan-replies';
+import * as m0020 from './20261230-0020-shot-release';
 import type { QueryInterface } from 'sequelize';
 
 export interface MigrationModule {
@@ -47,4 +48,5 @@ export const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '20261230-0017-leagues-and-lane-pairs.ts', module: m0017 },
   { name: '20261230-0018-ball-upkeep.ts', module: m0018 },
   { name: '20261230-0019-plan-replies.ts', module: m0019 },
+  { name: '20261230-0020-shot-release.ts', module: m0020 },
 ];

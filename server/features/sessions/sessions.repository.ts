@@ -75,6 +75,8 @@ export interface ShotRow {
   foul: boolean;
   hit: ShotDto['hit'];
   note: string;
+  speed_mph?: number | null;
+  rev_rpm?: number | null;
   created_at: Date;
   // Joined for statistics and calibration.
   date?: string;
@@ -100,6 +102,8 @@ export function toShotDto(r: ShotRow): ShotDto {
     foul: r.foul,
     hit: r.hit,
     note: r.note,
+    speedMph: r.speed_mph ?? null,
+    revRpm: r.rev_rpm ?? null,
     createdAt: new Date(r.created_at).toISOString(),
   };
 }
@@ -128,7 +132,8 @@ export const shotBallName = (r: Pick<ShotRow, 'ball_model_name' | 'ball_nickname
   ballLabel({ name: r.ball_model_name, nickname: r.ball_nickname });
 
 export const SHOT_COLUMNS = `sh.id, sh.session_id, sh.game_number, sh.frame, sh.delivery, sh.ball_id, b.name AS ball_model_name, b.nickname AS ball_nickname, sh.surface_key,
-  sh.feet_board, sh.target_board, sh.breakpoint_board, sh.standing, sh.foul, sh.hit, sh.note, sh.created_at, sh.surface_grit, sh.surface_polished`;
+  sh.feet_board, sh.target_board, sh.breakpoint_board, sh.standing, sh.foul, sh.hit, sh.note, sh.created_at, sh.surface_grit, sh.surface_polished,
+  sh.speed_mph, sh.rev_rpm`;
 
 export function toAnnotationDto(a: Annotation & { author?: User }): AnnotationDto {
   return {

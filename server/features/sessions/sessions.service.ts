@@ -63,6 +63,9 @@ function requestHash(b: ShotCreate): string {
     foul: b.foul ?? false,
     hit: b.hit ?? null,
     note: b.note ?? '',
+    // added only when logged, so a shot stored before these existed hashes as it did then
+    ...(b.speedMph != null ? { speedMph: b.speedMph } : {}),
+    ...(b.revRpm != null ? { revRpm: b.revRpm } : {}),
   };
   return createHash('sha256').update(JSON.stringify(canonical)).digest('hex');
 }
@@ -334,6 +337,8 @@ async function insertShot(s: BowlingSession, key: string, hash: string, body: Sh
       foul: body.foul ?? false,
       hit: body.hit ?? null,
       note: body.note ?? '',
+      speedMph: body.speedMph ?? null,
+      revRpm: body.revRpm ?? null,
       idempotencyKey: key,
       requestHash: hash,
     },

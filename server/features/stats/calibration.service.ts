@@ -73,6 +73,8 @@ export function observationsOf(rows: ShotRow[], balls: Map<number, Ball>): Calib
       breakpointBoard: r.breakpoint_board,
       hit: r.hit,
       gamesBowled: r.game_number - 1,
+      speedMph: r.speed_mph ?? null,
+      revRpm: r.rev_rpm ?? null,
     });
   }
   return out.reverse();

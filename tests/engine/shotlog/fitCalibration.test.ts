@@ -271,3 +271,49 @@ describe.runIf(process.env.CALIBRATION_STUDY === '1')('fitCalibration coverage s
     600_000,
   );
 });
+
+describe('fitCalibration: a shot’s own measured speed and revs', () => {
+  // Physics: a faster or lower-rev release hooks later (the breakpoint sits farther down and nearer the gutter),
+  // so shots thrown at their own speeds, fitted as if all were at the profile's speed, leave residuals the friction
+  // scale cannot remove. With each shot's measured speed the model explains them again (the model's own shots,
+  // 0.5 board of noise; tolerances ours, as above).
+  it('shots at 15 and 20 mph: with their speeds logged the fit recovers the scale and explains them better than without', () => {
+    const rnd = prng(31);
+    const line = simulateShot({ ball: roughAsymSolid, bowler: typicalBowler, pattern: houseShot });
+    const shots = Array.from({ length: 24 }, (_, k) => {
+      const speedMph = k % 2 === 0 ? 15 : 20;
+      const revRpm = k % 2 === 0 ? 380 : 260;
+      const laydownBoard = line.laydownBoard + (rnd() * 2 - 1) * 2;
+      const targetBoard = line.targetBoard + (rnd() * 2 - 1) * 1.2;
+      const p = simulateShot({
+        ball: roughAsymSolid,
+        bowler: { ...typicalBowler, speedMph, revRpm },
+        pattern: houseShot,
+        laydownBoard,
+        targetBoard,
+        frictionScale: 0.9,
+      });
+      const breakpointBoard = Math.round((p.breakpoint.board + 0.5 * gauss(rnd)) * 2) / 2;
+      return { ball: roughAsymSolid, laydownBoard, targetBoard, breakpointBoard, speedMph, revRpm } satisfies CalibrationObservation;
+    });
+    const withRelease = fitCalibration({ bowler: typicalBowler, pattern: houseShot, observations: shots }).perBall[0];
+    const without = fitCalibration({
+      bowler: typicalBowler,
+      pattern: houseShot,
+      observations: shots.map(({ speedMph: _s, revRpm: _r, ...o }) => o),
+    }).perBall[0];
+    expect(Math.abs(withRelease.frictionScale - 0.9)).toBeLessThan(0.08);
+    expect(withRelease.rmsBoardsAfter!).toBeLessThan(1);
+    expect(withRelease.rmsBoardsAfter!).toBeLessThan(without.rmsBoardsAfter!);
+  }, 120_000);
+
+  it('refuses a logged speed above the profile bounds, naming the observation', () => {
+    expect(() =>
+      fitCalibration({
+        bowler: typicalBowler,
+        pattern: houseShot,
+        observations: [{ ball: roughAsymSolid, laydownBoard: 10, targetBoard: 10, breakpointBoard: 5, speedMph: 90 }],
+      }),
+    ).toThrow(/observations\[0\]\.speedMph/);
+  });
+});
