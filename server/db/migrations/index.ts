@@ -13,6 +13,7 @@ import * as m0009 from './20261220-0009-calibration-fits-by-lane';
 import * as m0010 from './20261222-0010-change-feed-and-list-indexes';
 import * as m0011 from './20261222-0011-trials';
 import * as m0012 from './20261230-0012-center-time-zone';
+import * as m0014 from './20261230-0014-roles-and-pattern-visibility';
 import type { QueryInterface } from 'sequelize';
 
 export interface MigrationModule {
@@ -35,4 +36,5 @@ export const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '20261222-0010-change-feed-and-list-indexes.ts', module: m0010 },
   { name: '20261222-0011-trials.ts', module: m0011 },
   { name: '20261230-0012-center-time-zone.ts', module: m0012 },
+  { name: '20261230-0014-roles-and-pattern-visibility.ts', module: m0014 },
 ];

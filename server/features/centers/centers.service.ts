@@ -1,6 +1,6 @@
 import esc from 'escape-html';
 import crypto from 'node:crypto';
-import type { Page } from '../../../shared/auth';
+import { holdsRole, type Page } from '../../../shared/auth';
 import {
   laneSurfaceText,
   type Center as CenterDto,
@@ -54,7 +54,7 @@ export const centersService = {
 
   /** A proprietor's own centers (an admin sees all). */
   async mine(user: AuthUser): Promise<CenterDto[]> {
-    const { rows } = await centersRepository.list({ ownerId: user.role === 'admin' ? undefined : user.id, limit: 500, offset: 0 });
+    const { rows } = await centersRepository.list({ ownerId: holdsRole(user, 'admin') ? undefined : user.id, limit: 500, offset: 0 });
     return rows.map((c) => toCenterDto(c));
   },
 
@@ -79,7 +79,7 @@ export const centersService = {
     return sequelize.transaction(async (transaction) => {
       const c = await centersRepository.findById(id, transaction);
       if (!c) throw AppError.notFound('Center');
-      if (actor.role !== 'admin') {
+      if (!holdsRole(actor, 'admin')) {
         if (c.ownerId !== actor.id) throw AppError.forbidden('Only this center’s proprietor can change it');
         if (patch.ownerId !== undefined || patch.laneCount !== undefined)
           throw AppError.forbidden('Only an admin assigns owners and lane counts');
@@ -259,6 +259,6 @@ export const centersService = {
 async function assertProprietor(userId: number): Promise<void> {
   const u = await userRepository.findById(userId);
   if (!u) throw AppError.badRequest('That user does not exist', { 'body.ownerId': 'Unknown user' });
-  if (u.role !== 'proprietor')
+  if (!holdsRole(u, 'proprietor'))
     throw AppError.badRequest('The owner must have the proprietor role', { 'body.ownerId': 'Grant the proprietor role first' });
 }
