@@ -18,6 +18,7 @@ import type { AuthUser } from '../../middleware/auth';
 import { sequelize, type Center, type Condition } from '../../models/index';
 import { userRepository } from '../auth/user.repository';
 import { patternsRepository } from '../patterns/patterns.repository';
+import { patternsService } from '../patterns/patterns.service';
 import { centersRepository, toCenterDto, toConditionDto } from './centers.repository';
 import { datesOverlap, laneRanges } from './lanes';
 
@@ -146,7 +147,8 @@ export const centersService = {
         'body.lanes': `${center.name} has lanes 1–${center.laneCount}; not ${bad.join(', ')}`,
       });
     const pattern = await patternsRepository.findById(input.patternId);
-    if (!pattern) throw AppError.badRequest('That pattern does not exist', { 'body.patternId': 'Unknown pattern' });
+    if (!pattern || !(await patternsService.canSee(actor, pattern)))
+      throw AppError.badRequest('That pattern does not exist', { 'body.patternId': 'Unknown pattern' });
     const base = publicUrl();
     return sequelize.transaction(async (transaction) => {
       const c = await centersRepository.createCondition(
