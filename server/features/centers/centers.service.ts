@@ -63,7 +63,13 @@ export const centersService = {
     return sequelize.transaction(async (transaction) => {
       if (input.ownerId) await assertProprietor(input.ownerId);
       const c = await centersRepository.create(
-        { name: input.name, town: input.town, laneCount: input.laneCount, ownerId: input.ownerId ?? null },
+        {
+          name: input.name,
+          town: input.town,
+          laneCount: input.laneCount,
+          ownerId: input.ownerId ?? null,
+          timeZone: input.timeZone ?? 'UTC',
+        },
         transaction,
       );
       await centersRepository.replaceLanes(c, transaction);
