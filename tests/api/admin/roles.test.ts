@@ -264,3 +264,18 @@ describe('GET /api/admin/audit', () => {
     expect((await api.get('/api/admin/audit/actions').set(b.auth)).status).toBe(403);
   });
 });
+
+describe('role and roles stay in step in the database', () => {
+  it('a role written the old way (raw SQL, another process) becomes the whole set; a new set decides the role', async () => {
+    const { user } = await createUser('coach');
+    await User.sequelize!.query("UPDATE users SET role = 'proprietor' WHERE id = $1", { bind: [user.id] });
+    let row = (await User.findByPk(user.id))!;
+    expect([row.role, row.roles]).toEqual(['proprietor', ['proprietor']]);
+    await User.sequelize!.query("UPDATE users SET roles = ARRAY['bowler','coach']::varchar(16)[] WHERE id = $1", { bind: [user.id] });
+    row = (await User.findByPk(user.id))!;
+    expect([row.role, [...row.roles].sort()]).toEqual(['coach', ['bowler', 'coach']]);
+    await expect(
+      User.sequelize!.query("UPDATE users SET roles = ARRAY['wizard']::varchar(16)[] WHERE id = $1", { bind: [user.id] }),
+    ).rejects.toThrow(/users_roles_known/);
+  });
+});
