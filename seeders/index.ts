@@ -37,7 +37,7 @@ export async function seedDemo(): Promise<boolean> {
       );
     }
 
-    // Copperline Bowl, Harrow Bay: 24 lanes, the house shot in force on 1–20 and the sport pattern on 21–24.
+    // Copperline Bowl, Harrow Bay: 24 lanes in two lane groups, the house shot on 1–16 and a sport pattern on 17–24.
     const center = await Center.create(
       { name: 'Copperline Bowl', town: 'Harrow Bay', laneCount: 24, timeZone: 'America/Denver', ownerId: owner.id },
       { transaction },
@@ -53,6 +53,26 @@ export async function seedDemo(): Promise<boolean> {
     await seedShop(center.id, transaction);
     const weekAgo = new Date(Date.now() - 7 * DAY_MS);
     const house = patterns[0];
+    const sport = patterns.find((p) => p.name === 'Long Haul 47')!;
+    // The sport lanes were published first (an hour earlier), so the house shot stays the newest publication.
+    await Condition.create(
+      {
+        centerId: center.id,
+        patternId: sport.id,
+        patternName: sport.name,
+        sweeps: sport.sweeps,
+        summary: sport.summary,
+        lanes: Array.from({ length: 8 }, (_, i) => i + 17),
+        validFrom: weekAgo.toISOString().slice(0, 10),
+        validTo: null,
+        notes: 'Sport lanes for the Thursday scratch league and practice; ask the desk for a pair.',
+        publishedAt: new Date(weekAgo.getTime() - 3600_000),
+        publishedBy: owner.id,
+        laneKind: 'synthetic',
+        laneFriction: 'high',
+      },
+      { transaction },
+    );
     await Condition.create(
       {
         centerId: center.id,
@@ -60,7 +80,7 @@ export async function seedDemo(): Promise<boolean> {
         patternName: house.name,
         sweeps: house.sweeps,
         summary: house.summary,
-        lanes: Array.from({ length: 24 }, (_, i) => i + 1),
+        lanes: Array.from({ length: 16 }, (_, i) => i + 1),
         validFrom: weekAgo.toISOString().slice(0, 10),
         validTo: null,
         notes: 'Lanes stripped and oiled every morning at 9. Approaches cleaned nightly.',

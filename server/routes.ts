@@ -7,6 +7,8 @@ import { coachRoutes, plansRoutes } from './features/coaching/coaching.routes';
 import { coverageRoutes, layoutLabRoutes, trialsRoutes } from './features/decisions/decisions.routes';
 import { docsRoutes } from './features/docs/docs.routes';
 import { healthRoutes } from './features/health/health.routes';
+import { leaguesRoutes } from './features/leagues/leagues.routes';
+import { upkeepRoutes } from './features/upkeep/upkeep.routes';
 import { matchupsRoutes } from './features/matchups/matchups.routes';
 import { patternsRoutes } from './features/patterns/patterns.routes';
 import { profileRoutes } from './features/profile/profile.routes';
@@ -36,6 +38,8 @@ export const ROUTE_TABLE: readonly RouteGroup[] = [
   ordersRoutes,
   followsRoutes,
   sessionsRoutes,
+  leaguesRoutes,
+  upkeepRoutes,
   statsRoutes,
   calibrationRoutes,
   coachRoutes,

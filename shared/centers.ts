@@ -45,6 +45,29 @@ export const TimeZoneSchema = z
     }
   }, 'Not a time zone name such as America/Denver');
 
+/** ISO 8601 day numbers: 1 Monday … 7 Sunday. */
+export const WEEKDAY_NAMES = ['Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday', 'Sunday'] as const;
+export const WeekdaysSchema = z
+  .array(
+    z
+      .number({ error: 'Days are numbers 1 (Monday) to 7 (Sunday)' })
+      .int()
+      .min(1, 'Days are 1 (Monday) to 7 (Sunday)')
+      .max(7, 'Days are 1 (Monday) to 7 (Sunday)'),
+    {
+      error: 'Give the days as a list of numbers 1 (Monday) to 7 (Sunday)',
+    },
+  )
+  .max(7, 'At most 7 days')
+  .refine((d) => new Set(d).size === d.length, 'Each day once');
+
+/** "Tuesdays and Thursdays" from [2, 4]; "" for every day. */
+export function weekdaysText(days: readonly number[] | null | undefined): string {
+  if (!days || days.length === 0 || days.length === 7) return '';
+  const names = [...days].sort((a, b) => a - b).map((d) => `${WEEKDAY_NAMES[d - 1]}s`);
+  return names.length === 1 ? names[0] : `${names.slice(0, -1).join(', ')} and ${names.at(-1)}`;
+}
+
 export const CenterInputSchema = z
   .object({
     name: z.string().trim().min(1, 'Name is required').max(80).refine(isSafeName, UNSAFE_NAME_MESSAGE),
@@ -84,6 +107,11 @@ export const PublishConditionSchema = z
     notes: z.string().trim().max(2000, 'At most 2000 characters').nullable().optional(),
     /** The lane surface of the lanes published for; default synthetic, medium friction. */
     lane: LaneSurfaceSchema.default({ ...DEFAULT_LANE_SURFACE }),
+    /**
+     * Recurring days (1 Monday … 7 Sunday, ISO 8601) on which the publication is in force, such as league nights;
+     * omitted or empty: every day between its dates. Dates and days are the center's own local days.
+     */
+    weekdays: WeekdaysSchema.nullable().optional(),
   })
   .strict()
   .refine((c) => !c.validTo || c.validTo >= c.validFrom, { path: ['validTo'], message: 'The end date is before the start date' });
@@ -113,8 +141,42 @@ export const ConditionSchema = z.object({
   lane: LaneSurfaceSchema,
   /** The same in words: "Synthetic lanes, high friction". */
   laneText: z.string(),
+  /** Recurring days (1 Monday … 7 Sunday) it is in force on; null: every day between its dates. */
+  weekdays: z.array(z.number().int()).nullable().optional(),
 });
 export type Condition = z.infer<typeof ConditionSchema>;
+
+/**
+ * Lanes that share what is on them: the publication in force now (null when none) and the one that follows it
+ * (null when none is scheduled), in the center's own time zone. `from`/`to` are the lowest and highest lane;
+ * `key` ("lanes-1-12") is the group's anchor on the public page.
+ */
+export const LaneGroupSchema = z.object({
+  key: z.string(),
+  lanes: z.array(z.number().int()),
+  from: z.number().int(),
+  to: z.number().int(),
+  current: ConditionSchema.nullable(),
+  /** The center's local day the current publication last applies before `next` (null: open-ended). */
+  currentUntil: z.string().nullable(),
+  next: z.object({ condition: ConditionSchema, from: z.string() }).nullable(),
+});
+export type LaneGroup = z.infer<typeof LaneGroupSchema>;
+
+export const LaneGroupsSchema = z.object({
+  center: CenterSchema,
+  /** The center's IANA time zone and its local date at the instant asked about. */
+  timeZone: z.string(),
+  today: z.string(),
+  at: z.string(),
+  groups: z.array(LaneGroupSchema),
+});
+export type LaneGroups = z.infer<typeof LaneGroupsSchema>;
+
+/** `?at=` an ISO instant ("2026-12-05T18:00:00Z"): what is in force at that instant (default: now). */
+export const AtQuerySchema = z
+  .object({ at: z.iso.datetime({ offset: true, error: 'Use an instant like 2026-12-05T18:00:00Z' }).optional() })
+  .strict();
 
 export const CurrentConditionSchema = z.object({
   center: CenterSchema,
@@ -128,6 +190,10 @@ export const CurrentConditionSchema = z.object({
   /** Same as condition.lane and condition.laneText. */
   lane: LaneSurfaceSchema,
   laneText: z.string(),
+  /** The center's time zone and local date; every lane group with what is on it now and what comes next. */
+  timeZone: z.string().optional(),
+  today: z.string().optional(),
+  groups: z.array(LaneGroupSchema).optional(),
 });
 export type CurrentCondition = z.infer<typeof CurrentConditionSchema>;
 
@@ -140,5 +206,12 @@ export const FollowedCenterSchema = z.object({
   center: CenterSchema,
   current: ConditionSchema.nullable(),
   inForce: z.array(z.object({ condition: ConditionSchema, lanes: z.array(z.number().int()) })),
+  /** Every lane group of the center (in its time zone), with what comes next. */
+  groups: z.array(LaneGroupSchema).optional(),
 });
 export type FollowedCenter = z.infer<typeof FollowedCenterSchema>;
+
+/** The e-mail link's token: confirm the unsubscribe, undo it, or look up what it is for. */
+export const UnsubscribeTokenSchema = z.object({ token: z.string().min(10, 'The link is incomplete').max(100) }).strict();
+export const UnsubscribeInfoSchema = z.object({ center: z.string(), subscribed: z.boolean() });
+export type UnsubscribeInfo = z.infer<typeof UnsubscribeInfoSchema>;

@@ -1,9 +1,10 @@
 import { z } from 'zod';
-import type { Calibration, GameView, HitKind, Move, ShotStats } from '../engine/shotlog/types';
+import type { Calibration, GameView, HitKind, Move, MoveFollowUp, ShotStats } from '../engine/shotlog/types';
 import { engineValue } from './api';
 import { PageQuerySchema } from './auth';
 import { LANE_FRICTIONS, LANE_KINDS, LaneSurfaceSchema } from './centers';
 import { AnnotationSchema } from './coaching';
+import { LanePairSchema } from './leagues';
 
 const isoDate = z.iso.date({ error: 'Use a date like 2026-12-01' });
 const id = (label: string) =>
@@ -29,9 +30,13 @@ export const SessionCreateSchema = z
     /** A published condition; its center and pattern are used when not given. */
     conditionId: id('conditionId').nullable().optional(),
     patternId: id('patternId').nullable().optional(),
+    /** The bowler's own league this session is a night of (kind 'league'). */
+    leagueId: id('leagueId').nullable().optional(),
+    lanePair: LanePairSchema.nullable().optional(),
     notes: z.string().trim().max(2000, 'At most 2000 characters').optional(),
   })
-  .strict();
+  .strict()
+  .refine((s) => !s.leagueId || s.kind === 'league', { path: ['kind'], message: 'A league night is a league session' });
 export type SessionCreate = z.infer<typeof SessionCreateSchema>;
 
 export const SessionPatchSchema = z
@@ -39,6 +44,8 @@ export const SessionPatchSchema = z
     notes: z.string().trim().max(2000, 'At most 2000 characters').optional(),
     kind: SessionKindSchema.optional(),
     date: isoDate.optional(),
+    leagueId: id('leagueId').nullable().optional(),
+    lanePair: LanePairSchema.nullable().optional(),
   })
   .strict();
 export type SessionPatch = z.infer<typeof SessionPatchSchema>;
@@ -121,6 +128,9 @@ export const SessionSchema = z.object({
   conditionId: z.number().int().nullable(),
   patternId: z.number().int().nullable(),
   patternName: z.string().nullable(),
+  leagueId: z.number().int().nullable(),
+  leagueName: z.string().nullable(),
+  lanePair: z.string().nullable(),
   notes: z.string(),
   /** How many games have at least one shot. */
   games: z.number().int(),
@@ -160,6 +170,7 @@ export type ShotCreated = z.infer<typeof ShotCreatedSchema>;
 const ShotStatsSchema = engineValue<ShotStats>("The engine's shot statistics");
 const MoveSchema = engineValue<Move>('A move the engine suggests from the logged shots');
 const CalibrationSchema = engineValue<Calibration>("The engine's ball-motion calibration");
+const FollowUpSchema = engineValue<MoveFollowUp>("A move the bowler made, with the shots before and after it (the engine's moveFollowUp)");
 
 /** A session with everything on it. `shots` is the list here (the count is `shotCount`); `games` stays the count, the frame sheets are `gameViews`. */
 export const SessionDetailSchema = SessionSchema.omit({ shots: true }).extend({
@@ -168,6 +179,8 @@ export const SessionDetailSchema = SessionSchema.omit({ shots: true }).extend({
   shots: z.array(ShotSchema),
   stats: ShotStatsSchema,
   moves: z.array(MoveSchema),
+  /** Every move made in this session, followed up: did the pocket and strike rates improve? */
+  followUps: z.array(FollowUpSchema),
   annotations: z.array(AnnotationSchema),
   owner: z.object({ id: z.number().int(), displayName: z.string() }),
 });

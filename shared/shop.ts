@@ -113,11 +113,64 @@ export type OrderCreate = z.infer<typeof OrderCreateSchema>;
 
 const isoDate = z.iso.date({ error: 'Use a date like 2026-12-01' });
 
-export const OrderListQuerySchema = PageQuerySchema.extend({ status: OrderStatusSchema.optional() });
+/** Statuses of an order whose ball is at the shop: ordered, not yet collected, cancelled or refunded. */
+export const OPEN_ORDER_STATUSES: readonly OrderStatus[] = ['ordered', 'paid', 'in_progress', 'ready'];
+
+export const OrderListQuerySchema = PageQuerySchema.extend({
+  status: OrderStatusSchema.optional(),
+  /** 1: only open orders (the ball is at the shop). */
+  open: z.enum(['0', '1', 'true', 'false'], { error: 'Use 1 or 0' }).optional(),
+});
 export type OrderListQuery = z.infer<typeof OrderListQuerySchema>;
 export const CenterOrderQuerySchema = OrderListQuerySchema.extend({ date: isoDate.optional() });
 export type CenterOrderQuery = z.infer<typeof CenterOrderQuerySchema>;
-export const TakingsQuerySchema = z.object({ date: isoDate.optional() });
+
+/** The longest takings range one request covers (about a quarter). */
+export const TAKINGS_MAX_DAYS = 92;
+const dayNumber = (iso: string) => Date.parse(`${iso}T00:00:00Z`) / 86400000;
+
+/**
+ * Takings of one day (`date`) or of a range of days (`from`–`to`, both included), as local dates of the center's
+ * time zone; neither: the center's today.
+ */
+export const TakingsQuerySchema = z
+  .object({ date: isoDate.optional(), from: isoDate.optional(), to: isoDate.optional() })
+  .superRefine((q, ctx) => {
+    if (q.date && (q.from || q.to)) ctx.addIssue({ code: 'custom', path: ['date'], message: 'Give a day or a range (from, to), not both' });
+    if (q.to && !q.from) ctx.addIssue({ code: 'custom', path: ['from'], message: 'A range needs its first day' });
+    if (q.from && q.to) {
+      const days = dayNumber(q.to) - dayNumber(q.from) + 1;
+      if (days < 1) ctx.addIssue({ code: 'custom', path: ['to'], message: 'The last day comes on or after the first' });
+      else if (days > TAKINGS_MAX_DAYS) ctx.addIssue({ code: 'custom', path: ['to'], message: `At most ${TAKINGS_MAX_DAYS} days at once` });
+    }
+  });
+export type TakingsQuery = z.infer<typeof TakingsQuerySchema>;
+
+/** Seconds during which the staff member who moved an order can undo that move. */
+export const SHOP_UNDO_SECONDS = 120;
+
+const customerText = (label: string, max: number) =>
+  z
+    .string({ error: `${label} is required` })
+    .trim()
+    .min(1, `${label} is required`)
+    .max(max, `At most ${max} characters`);
+
+/**
+ * A walk-in order taken at the counter for a customer without an account: who (name and a phone or e-mail), which
+ * service of the price list (its price), and the ball in words. It is paid at the counter when taken.
+ */
+export const WalkInOrderSchema = z
+  .object({
+    serviceId: z.number({ error: 'Choose a service' }).int().positive().max(2147483647),
+    customerName: customerText('The customer’s name', 80).refine(isSafeName, UNSAFE_NAME_MESSAGE),
+    customerContact: customerText('A phone number or e-mail', 120),
+    ballDescription: customerText('A description of the ball', 150),
+    notes: z.string().trim().max(1000, 'At most 1000 characters').nullable().optional(),
+    expectedAmountCents: z.number({ error: 'Must be a number of cents' }).int().min(0).max(100000000).optional(),
+  })
+  .strict();
+export type WalkInOrder = z.infer<typeof WalkInOrderSchema>;
 
 export const OrderHistoryEntrySchema = z.object({
   status: OrderStatusSchema,
@@ -152,6 +205,10 @@ export const OrderSchema = z.object({
   refundedAt: z.string().nullable(),
   cancelledAt: z.string().nullable(),
   history: z.array(OrderHistoryEntrySchema),
+  /** Taken at the counter for a customer without an account (userId and ballId are then 0). */
+  walkIn: z.boolean(),
+  /** A walk-in customer's phone or e-mail (shown to the shop only; null otherwise). */
+  customerContact: z.string().nullable(),
 });
 export type Order = z.infer<typeof OrderSchema>;
 
@@ -162,8 +219,26 @@ export const CheckoutStartSchema = z.object({
 });
 export type CheckoutStart = z.infer<typeof CheckoutStartSchema>;
 
-export const TakingsSchema = z.object({
+export const TakingsDaySchema = z.object({
+  /** A local date of the center's time zone. */
   date: z.string(),
+  orders: z.number().int(),
+  paidCents: z.number().int(),
+  refundedCents: z.number().int(),
+  netCents: z.number().int(),
+});
+export type TakingsDay = z.infer<typeof TakingsDaySchema>;
+
+export const TakingsSchema = z.object({
+  /** The day asked for (the first day of a range). */
+  date: z.string(),
+  /** The range's first and last day (equal for one day), local dates of the center's time zone. */
+  from: z.string(),
+  to: z.string(),
+  /** The center's IANA time zone its days are reckoned in. */
+  timeZone: z.string(),
+  /** Each day of the range, in order (days without takings included). */
+  days: z.array(TakingsDaySchema),
   currency: z.enum(CURRENCIES),
   /** Orders paid on the day. */
   orders: z.number().int(),

@@ -2,6 +2,7 @@ import { linearRegression, median } from 'simple-statistics';
 import { oneOf, record } from '../internal/checks';
 import { leaveName } from '../leaveName';
 import { analyzeShots, type ShotEntry } from './internal/analyzeShots';
+import { isFirstBall, orderShots } from './internal/orderShots';
 import { spareAdjustment } from './spareAdjustment';
 import type { BoardMove, Move, ShotRecord } from './types';
 
@@ -72,27 +73,8 @@ export function suggestMoves(input: { shots: ShotRecord[]; hand: 'right' | 'left
   const a = analyzeShots(fn, inp.shots);
   const T = MOVE_THRESHOLDS;
 
-  const sessionOrder = new Map<string, number>();
-  a.entries.forEach((e) => {
-    if (!sessionOrder.has(e.shot.sessionId)) sessionOrder.set(e.shot.sessionId, sessionOrder.size);
-  });
-  const ordered = a.entries
-    .map((e, i) => ({ e, i }))
-    .sort((x, y) => {
-      const s = x.e.shot;
-      const t = y.e.shot;
-      return (
-        (s.date < t.date ? -1 : s.date > t.date ? 1 : 0) ||
-        (sessionOrder.get(s.sessionId) as number) - (sessionOrder.get(t.sessionId) as number) ||
-        s.gameNumber - t.gameNumber ||
-        s.frame - t.frame ||
-        s.delivery - t.delivery ||
-        x.i - y.i
-      );
-    })
-    .map((x) => x.e);
-  const isFirst = (e: ShotEntry): boolean => (e.view ? e.view.rackBall === 1 : e.shot.delivery === 1);
-  const firsts = ordered.filter(isFirst);
+  const ordered = orderShots(a).map((x) => x.e);
+  const firsts = ordered.filter(isFirstBall);
   const moves: Move[] = [];
   const last = firsts[firsts.length - 1];
 

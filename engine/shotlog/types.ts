@@ -216,3 +216,37 @@ export interface Calibration {
   rmsBoardsAfter: number | null;
   note: string;
 }
+
+/** A change of a rate, after − before, in percentage points with its 95 % interval (nulls when a side has no shots). */
+export interface RateChange {
+  diff: number | null;
+  low: number | null;
+  high: number | null;
+}
+
+/** One side of a move: the first balls read and their strike and pocket rates. */
+export interface FollowUpSide {
+  firstBalls: number;
+  strike: Rate;
+  pocket: Rate;
+}
+
+/** moveFollowUp's answer for one move (definitions there). */
+export interface MoveFollowUp {
+  /** The first ball after the move. */
+  at: { sessionId: string; gameNumber: number; frame: number; date: string };
+  /** What changed, e.g. "feet 2 left, target 1 left". */
+  title: string;
+  feet?: BoardMove;
+  target?: BoardMove;
+  ball?: { from: string; to: string };
+  surface?: { from: string; to: string };
+  before: FollowUpSide;
+  after: FollowUpSide;
+  pocketChange: RateChange;
+  strikeChange: RateChange;
+  /** The rate the verdict reads: pocket when both sides have enough recorded hits, else strike. */
+  judgedBy: 'pocket' | 'strike';
+  verdict: 'better' | 'worse' | 'unclear' | 'too-soon';
+  summary: string;
+}

@@ -33,6 +33,13 @@ export class Ball extends Model<InferAttributes<Ball>, InferCreationAttributes<B
   declare layout: Layout | null;
   declare photoUploadId: CreationOptional<number | null>;
   declare gamesSinceResurface: CreationOptional<number>;
+  declare gamesSinceExtraction: CreationOptional<number>;
+  /** When gamesSinceResurface / gamesSinceExtraction were last set: games logged with the ball after it add to them. */
+  declare resurfaceCountedAt: CreationOptional<Date>;
+  declare extractionCountedAt: CreationOptional<Date>;
+  /** The bowler's own upkeep intervals for this ball, games (null: the defaults). */
+  declare upkeepResurfaceGames: CreationOptional<number | null>;
+  declare upkeepExtractionGames: CreationOptional<number | null>;
   declare status: CreationOptional<'active' | 'retired' | 'in-shop'>;
   declare version: CreationOptional<number>;
   declare deletedAt: CreationOptional<Date | null>;
@@ -62,13 +69,31 @@ export class Ball extends Model<InferAttributes<Ball>, InferCreationAttributes<B
         layout: { type: DataTypes.JSONB, allowNull: true },
         photoUploadId: { type: DataTypes.INTEGER, allowNull: true },
         gamesSinceResurface: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+        gamesSinceExtraction: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+        resurfaceCountedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
+        extractionCountedAt: { type: DataTypes.DATE, allowNull: false, defaultValue: DataTypes.NOW },
+        upkeepResurfaceGames: { type: DataTypes.INTEGER, allowNull: true },
+        upkeepExtractionGames: { type: DataTypes.INTEGER, allowNull: true },
         status: { type: DataTypes.STRING(10), allowNull: false, defaultValue: 'active' },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         deletedAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: 'balls', paranoid: true, version: true },
+      {
+        sequelize,
+        tableName: 'balls',
+        paranoid: true,
+        version: true,
+        hooks: {
+          // One home for the rule: whoever sets a games-since count (a resurface, an extraction, an edit) restarts
+          // the logged games added to it from now.
+          beforeSave: (b: Ball) => {
+            if (!b.isNewRecord && b.changed('gamesSinceResurface')) b.resurfaceCountedAt = new Date();
+            if (!b.isNewRecord && b.changed('gamesSinceExtraction')) b.extractionCountedAt = new Date();
+          },
+        },
+      },
     );
   }
 }

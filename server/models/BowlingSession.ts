@@ -12,6 +12,10 @@ export class BowlingSession extends Model<InferAttributes<BowlingSession>, Infer
   declare conditionId: number | null;
   declare patternId: number | null;
   declare patternName: string | null;
+  /** The league night this session is (the bowler's own league), if any. */
+  declare leagueId: CreationOptional<number | null>;
+  /** The lane pair bowled on, e.g. "13-14". */
+  declare lanePair: CreationOptional<string | null>;
   declare notes: CreationOptional<string>;
   declare version: CreationOptional<number>;
   declare deletedAt: CreationOptional<Date | null>;
@@ -29,6 +33,8 @@ export class BowlingSession extends Model<InferAttributes<BowlingSession>, Infer
         conditionId: { type: DataTypes.INTEGER, allowNull: true },
         patternId: { type: DataTypes.INTEGER, allowNull: true },
         patternName: { type: DataTypes.STRING(80), allowNull: true },
+        leagueId: { type: DataTypes.INTEGER, allowNull: true },
+        lanePair: { type: DataTypes.STRING(7), allowNull: true },
         notes: { type: DataTypes.STRING(2000), allowNull: false, defaultValue: '' },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         deletedAt: { type: DataTypes.DATE, allowNull: true },

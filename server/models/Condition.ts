@@ -17,6 +17,8 @@ export class Condition extends Model<InferAttributes<Condition>, InferCreationAt
   /** The lane surface the condition is bowled on (default synthetic, medium friction). */
   declare laneKind: CreationOptional<LaneSurface['kind']>;
   declare laneFriction: CreationOptional<LaneSurface['friction']>;
+  /** Recurring days it is in force on (ISO 8601: 1 Monday … 7 Sunday); null every day between its dates. */
+  declare weekdays: CreationOptional<number[] | null>;
   declare publishedAt: Date;
   declare publishedBy: number | null;
   declare createdAt: CreationOptional<Date>;
@@ -37,6 +39,7 @@ export class Condition extends Model<InferAttributes<Condition>, InferCreationAt
         notes: { type: DataTypes.STRING(2000), allowNull: true },
         laneKind: { type: DataTypes.STRING(10), allowNull: false, defaultValue: 'synthetic' },
         laneFriction: { type: DataTypes.STRING(6), allowNull: false, defaultValue: 'medium' },
+        weekdays: { type: DataTypes.ARRAY(DataTypes.INTEGER), allowNull: true },
         publishedAt: { type: DataTypes.DATE, allowNull: false },
         publishedBy: { type: DataTypes.INTEGER, allowNull: true },
         createdAt: DataTypes.DATE,

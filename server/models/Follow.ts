@@ -8,6 +8,8 @@ export class Follow extends Model<InferAttributes<Follow>, InferCreationAttribut
   declare unsubscribeToken: string;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
+  /** Set by an e-mail unsubscribe (kept so the same link can undo it); a follow removed in the app is deleted. */
+  declare deletedAt: CreationOptional<Date | null>;
 
   static initModel(sequelize: Sequelize): void {
     Follow.init(
@@ -18,8 +20,9 @@ export class Follow extends Model<InferAttributes<Follow>, InferCreationAttribut
         unsubscribeToken: { type: DataTypes.STRING(64), allowNull: false, unique: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
+        deletedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: 'follows' },
+      { sequelize, tableName: 'follows', paranoid: true },
     );
   }
 }

@@ -13,7 +13,11 @@ import type { OrderEvent } from './OrderEvent';
 /** A pro-shop order: the service, its price and the ball are copied when ordered (the price list may change later). */
 export class Order extends Model<InferAttributes<Order>, InferCreationAttributes<Order>> {
   declare id: CreationOptional<number>;
-  declare userId: number;
+  /** The bowler who ordered; null for a walk-in order taken at the counter. */
+  declare userId: number | null;
+  /** A walk-in customer's name and contact (no account). */
+  declare customerName: CreationOptional<string | null>;
+  declare customerContact: CreationOptional<string | null>;
   declare centerId: number;
   declare serviceId: number | null;
   declare ballId: number | null;
@@ -41,7 +45,9 @@ export class Order extends Model<InferAttributes<Order>, InferCreationAttributes
     Order.init(
       {
         id: { type: DataTypes.INTEGER, autoIncrement: true, primaryKey: true },
-        userId: { type: DataTypes.INTEGER, allowNull: false },
+        userId: { type: DataTypes.INTEGER, allowNull: true },
+        customerName: { type: DataTypes.STRING(80), allowNull: true },
+        customerContact: { type: DataTypes.STRING(120), allowNull: true },
         centerId: { type: DataTypes.INTEGER, allowNull: false },
         serviceId: { type: DataTypes.INTEGER, allowNull: true },
         ballId: { type: DataTypes.INTEGER, allowNull: true },

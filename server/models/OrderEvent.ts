@@ -10,6 +10,8 @@ export class OrderEvent extends Model<InferAttributes<OrderEvent>, InferCreation
   declare byUserId: number | null;
   declare byName: string | null;
   declare note: string | null;
+  /** The status a shop move left (so the move can be undone); null for other steps. */
+  declare fromStatus: CreationOptional<OrderStatus | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -23,6 +25,7 @@ export class OrderEvent extends Model<InferAttributes<OrderEvent>, InferCreation
         byUserId: { type: DataTypes.INTEGER, allowNull: true },
         byName: { type: DataTypes.STRING(80), allowNull: true },
         note: { type: DataTypes.STRING(300), allowNull: true },
+        fromStatus: { type: DataTypes.STRING(12), allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -10,6 +10,7 @@ import { Center } from './Center';
 import { Condition } from './Condition';
 import { Follow } from './Follow';
 import { Trial } from './Trial';
+import { League } from './League';
 import { Lane } from './Lane';
 import { MailOutbox } from './MailOutbox';
 import { EmailVerification } from './EmailVerification';
@@ -42,6 +43,7 @@ Lane.initModel(sequelize);
 Condition.initModel(sequelize);
 Follow.initModel(sequelize);
 Trial.initModel(sequelize);
+League.initModel(sequelize);
 MailOutbox.initModel(sequelize);
 Upload.initModel(sequelize);
 ShopService.initModel(sequelize);
@@ -115,6 +117,7 @@ export {
   Condition,
   Follow,
   Trial,
+  League,
   Lane,
   MailOutbox,
   EmailVerification,

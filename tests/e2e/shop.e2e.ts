@@ -1,3 +1,4 @@
+import fs from 'node:fs';
 import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
@@ -83,6 +84,15 @@ function orderTag(id: number): RegExp {
   return new RegExp(`#${id}(?!\\d)`);
 }
 
+/** Presses an order's move button on the board and confirms it in the dialog that asks first. */
+async function confirmMove(page: Page, label: 'Mark in progress' | 'Mark ready' | 'Mark collected', orderId: number): Promise<void> {
+  await page.getByRole('button', { name: `${label}: order ${orderId}` }).click();
+  const confirm = page.getByRole('dialog', { name: `${label}: order #${orderId}?` });
+  await confirm.waitFor();
+  await confirm.getByRole('button', { name: label, exact: true }).click();
+  await confirm.waitFor({ state: 'hidden' });
+}
+
 /** Fills the hosted card page (any future expiry, any CVC) and presses Pay. */
 async function payWithCard(page: Page, card: string, price = PRICE_TEXT): Promise<void> {
   await page.getByRole('form', { name: 'Card details' }).waitFor();
@@ -107,7 +117,18 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
     // Resurface is the default kind; its target grit starts at 4000.
     expect(await dialog.getByLabel('Target grit').inputValue()).toBe('4000');
     await dialog.getByLabel('Name on the price list').fill(SERVICE_NAME);
-    await dialog.getByLabel('Price (USD)').fill('38.75');
+    // A wrong price is refused with a message and left as typed, never corrected.
+    const price = dialog.getByLabel('Price (USD)');
+    await price.fill('-5');
+    await dialog.getByRole('button', { name: 'Add service' }).click();
+    await dialog.getByText('A price cannot be negative').waitFor();
+    expect(await price.inputValue()).toBe('-5');
+    await price.fill('38.755');
+    await dialog.getByRole('button', { name: 'Add service' }).click();
+    await dialog.getByText('At most two decimals (whole cents)').waitFor();
+    expect(await price.inputValue()).toBe('38.755');
+    await screenshot(page, 'shop-price-refused-desktop');
+    await price.fill('38.75');
     await dialog.getByRole('button', { name: 'Add service' }).click();
     await dialog.waitFor({ state: 'hidden' });
     const row = page.locator('.shop-price-list__table').getByRole('row').filter({ hasText: SERVICE_NAME });
@@ -184,6 +205,22 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
     await row.waitFor();
     expect(await row.innerText()).toContain('Paid');
     await screenshot(page, 'shop-my-orders-desktop');
+
+    // The arsenal shows the ball at the shop, with a link to its order, instead of "in the bag".
+    await page.goto('/arsenal');
+    const ballRow = page
+      .locator('.arsenal__table')
+      .getByRole('row')
+      .filter({ has: page.getByRole('link', { name: BALL, exact: true }) });
+    const atShop = ballRow.getByRole('link', { name: `At the shop — order #${flow.orderId}` });
+    await atShop.waitFor();
+    expect(await ballRow.innerText()).not.toContain('In the bag');
+    await page.goto(`/arsenal/${flow.ballId}`);
+    await page.getByRole('heading', { level: 2, name: 'Specs' }).waitFor();
+    expect(await page.getByTestId('ball-at-shop').innerText()).toBe(`At the shop — order #${flow.orderId}`);
+    await page.goto('/arsenal');
+    await atShop.click();
+    await page.waitForURL(new RegExp(`/orders/${flow.orderId}$`));
   });
 
   it('the proprietor marks it in progress, then ready, on the orders board and sees the day’s takings', async () => {
@@ -203,20 +240,116 @@ describe('pro shop: order, card payment, shop board, surface update', () => {
 
     // Back to every status, so the row stays in view as it moves on.
     await choose(page, page, 'Order status', 'Any status');
+    // A move asks first; "Not yet" changes nothing.
     await page.getByRole('button', { name: `Mark in progress: order ${flow.orderId}` }).click();
+    const ask = page.getByRole('dialog', { name: `Mark in progress: order #${flow.orderId}?` });
+    await ask.getByText(/You can undo this for 2 minutes/).waitFor();
+    await ask.getByRole('button', { name: 'Not yet' }).click();
+    await ask.waitFor({ state: 'hidden' });
+    expect(await row.innerText()).toContain('Paid');
+    await confirmMove(page, 'Mark in progress', flow.orderId);
+    await row.getByText('In progress').waitFor();
+    // The move can be undone for a short while.
+    const undo = page.getByTestId('order-undo');
+    await undo.getByText(`Order #${flow.orderId} marked in progress.`).waitFor();
+    await screenshot(page, 'shop-orders-board-undo-desktop');
+    await undo.getByRole('button', { name: 'Undo' }).click();
+    await row.getByText('Paid', { exact: true }).waitFor();
+    await page
+      .getByRole('status')
+      .filter({ hasText: `Undone: order ${flow.orderId} is paid again.` })
+      .waitFor();
+    await confirmMove(page, 'Mark in progress', flow.orderId);
     await row.getByText('In progress').waitFor();
     await page.getByRole('button', { name: `Mark ready: order ${flow.orderId}` }).click();
+    const ready = page.getByRole('dialog', { name: `Mark ready: order #${flow.orderId}?` });
+    await ready.getByText(/gets an e-mail to collect it\. .*This cannot be undone\./).waitFor();
+    await ready.getByRole('button', { name: 'Mark ready', exact: true }).click();
     await row.getByText('Ready to collect').waitFor();
     await page.getByRole('button', { name: `Mark collected: order ${flow.orderId}` }).waitFor();
+    expect(await page.getByTestId('order-undo').count()).toBe(0);
     await screenshot(page, 'shop-orders-board-ready-desktop');
 
-    // Today's takings include the payment, by service.
+    // Today's takings (the center's day, in its time zone) include the payment, by service.
     await page.getByRole('tab', { name: 'Takings' }).click();
     const byService = page.getByRole('table', { name: 'Takings by service' }).getByRole('row').filter({ hasText: SERVICE_NAME });
     await byService.waitFor();
     expect((await byService.innerText()).replace(/\s+/g, ' ')).toContain(`1 ${PRICE_TEXT}`);
     expect(Number(await page.getByTestId('takings-orders').innerText())).toBeGreaterThanOrEqual(1);
+    expect(await page.getByTestId('takings-zone').innerText()).toBe('America/Denver');
     await screenshot(page, 'shop-takings-desktop');
+
+    // A week up to today: the days with takings, the total, and the CSV of the same range.
+    const today = await page.getByLabel('Last day').inputValue();
+    const weekAgo = new Date(Date.parse(`${today}T00:00:00Z`) - 6 * 86400000).toISOString().slice(0, 10);
+    await page.getByLabel('First day').fill(weekAgo);
+    await page.getByLabel('First day').press('Enter');
+    const byDay = page.getByRole('table', { name: 'Takings by day' });
+    await byDay.locator(`time[datetime="${today}"]`).waitFor();
+    await screenshot(page, 'shop-takings-range-desktop');
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Download CSV' }).click()]);
+    expect(download.suggestedFilename()).toBe(`takings-${weekAgo}-to-${today}.csv`);
+    const csv = fs.readFileSync(await download.path(), 'utf8').split('\r\n');
+    expect(csv[0]).toBe('Date,Orders paid,Taken (USD),Refunded (USD),Net (USD)');
+    expect(csv.filter((l) => /^\d{4}-\d\d-\d\d,/.test(l))).toHaveLength(7);
+    const total = csv.find((l) => l.startsWith('Total,'))!.split(',');
+    expect(`$${total[2]}`).toBe(await page.getByTestId('takings-paid').innerText());
+    expect(csv).toContain('Time zone,America/Denver');
+
+    // The last day before the first is refused with a message, not swapped.
+    await page.getByLabel('First day').fill(today);
+    await page.getByLabel('First day').press('Enter');
+    await page.getByLabel('Last day').fill(weekAgo);
+    await page.getByLabel('Last day').press('Enter');
+    await page.getByRole('alert').filter({ hasText: 'The last day comes on or after the first.' }).waitFor();
+  });
+
+  it('the proprietor takes a walk-in order at the counter, moves it along, and undoes a collection made by mistake', async () => {
+    const { page } = await open();
+    await signIn(page, DEMO.proprietor);
+    await page.goto('/center-admin?tab=orders');
+    await page.getByRole('heading', { level: 2, name: 'Orders' }).waitFor();
+    await page.getByRole('button', { name: 'Take a walk-in order' }).click();
+    const dialog = page.getByRole('dialog', { name: 'Walk-in order' });
+    await dialog.waitFor();
+    await dialog.getByRole('button', { name: 'Take the order' }).click();
+    await dialog.getByText('Choose a service').first().waitFor();
+    await dialog.getByText('The customer’s name is required').waitFor();
+    await dialog.getByText('A phone number or e-mail is required').waitFor();
+    await page.waitForFunction(
+      () => document.querySelector('.shop-walk-in-dialog [aria-label="Service"]:not([aria-disabled="true"])') !== null,
+    );
+    await choose(page, dialog, 'Service', new RegExp(`^${SERVICE_NAME}`));
+    await dialog.getByTestId('walk-in-price').filter({ hasText: PRICE_TEXT }).waitFor();
+    const customer = `Walk-in Rowan ${RUN}`;
+    await dialog.getByLabel('Customer’s name').fill(customer);
+    await dialog.getByLabel('Phone or e-mail').fill('555-0199');
+    await dialog.getByLabel('The ball, in words').fill('Purple swirl, 15 lb, "R" on the thumb');
+    await screenshot(page, 'shop-walk-in-dialog-desktop');
+    await dialog.getByRole('button', { name: 'Take the order' }).click();
+    await dialog.waitFor({ state: 'hidden' });
+    const row = page.locator('.order-board__table').getByRole('row').filter({ hasText: customer });
+    await row.waitFor();
+    expect(await row.innerText()).toContain('Walk-in · 555-0199');
+    expect(await row.innerText()).toContain('Paid');
+    const orderId = Number(/#(\d+)/.exec(await row.innerText())?.[1]);
+    expect(orderId).toBeGreaterThan(0);
+    // Paid at the counter: no card refund is offered.
+    expect(await page.getByRole('button', { name: `Refund order ${orderId}` }).count()).toBe(0);
+
+    await confirmMove(page, 'Mark in progress', orderId);
+    await row.getByText('In progress').waitFor();
+    await page.getByRole('button', { name: `Mark ready: order ${orderId}` }).click();
+    const ready = page.getByRole('dialog', { name: `Mark ready: order #${orderId}?` });
+    await ready.getByText(`Let ${customer} (walk-in, 555-0199) know it is ready.`, { exact: false }).waitFor();
+    await ready.getByRole('button', { name: 'Mark ready', exact: true }).click();
+    await row.getByText('Ready to collect').waitFor();
+    await confirmMove(page, 'Mark collected', orderId);
+    await row.getByText('Collected', { exact: true }).waitFor();
+    await page.getByTestId('order-undo').getByRole('button', { name: 'Undo' }).click();
+    await row.getByText('Ready to collect').waitFor();
+    await page.getByRole('button', { name: `Mark collected: order ${orderId}` }).waitFor();
+    await screenshot(page, 'shop-walk-in-undone-desktop');
   });
 
   it('the Ball page shows the new surface in its history, and the matchup ranks the ball with it', async () => {
@@ -469,13 +602,34 @@ describe('pro shop at 375 px', () => {
     expect(await hasHorizontalScroll(owner.page)).toBe(false);
     await screenshot(owner.page, 'shop-orders-board-mobile');
     // The bowler collects the ball: the last step, from the phone.
-    await owner.page.getByRole('button', { name: `Mark collected: order ${flow.orderId}` }).click();
+    await confirmMove(owner.page, 'Mark collected', flow.orderId);
     await card.getByText('Collected', { exact: true }).waitFor();
+    await owner.page.getByTestId('order-undo').getByRole('button', { name: 'Undo' }).waitFor();
+    expect(await hasHorizontalScroll(owner.page)).toBe(false);
+    await screenshot(owner.page, 'shop-orders-board-undo-mobile');
     expect(await owner.page.getByRole('button', { name: `Refund order ${flow.orderId}` }).count()).toBe(0);
     await owner.page.getByRole('tab', { name: 'Takings' }).click();
     await owner.page.getByRole('table', { name: 'Takings by service' }).waitFor();
     expect(await hasHorizontalScroll(owner.page)).toBe(false);
     await screenshot(owner.page, 'shop-takings-mobile');
+    const today = await owner.page.getByLabel('Last day').inputValue();
+    const weekAgo = new Date(Date.parse(`${today}T00:00:00Z`) - 6 * 86400000).toISOString().slice(0, 10);
+    await owner.page.getByLabel('First day').fill(weekAgo);
+    await owner.page.getByLabel('First day').press('Enter');
+    await owner.page.getByRole('table', { name: 'Takings by day' }).locator(`time[datetime="${today}"]`).waitFor();
+    expect(await hasHorizontalScroll(owner.page)).toBe(false);
+    await screenshot(owner.page, 'shop-takings-range-mobile');
+
+    await owner.page.getByRole('tab', { name: 'Orders' }).click();
+    await owner.page.getByRole('button', { name: 'Take a walk-in order' }).click();
+    const walkIn = owner.page.getByRole('dialog', { name: 'Walk-in order' });
+    await walkIn.getByLabel('The ball, in words').waitFor();
+    expect(await hasHorizontalScroll(owner.page)).toBe(false);
+    const box2 = await walkIn.boundingBox();
+    expect(box2 && box2.x >= 0 && box2.x + box2.width <= MOBILE.width).toBe(true);
+    await screenshot(owner.page, 'shop-walk-in-dialog-mobile');
+    await walkIn.getByRole('button', { name: 'Cancel' }).click();
+    await walkIn.waitFor({ state: 'hidden' });
     await owner.page.getByRole('tab', { name: 'Price list' }).click();
     await owner.page.locator('.shop-price-list__table').getByRole('row').filter({ hasText: SERVICE_NAME }).waitFor();
     expect(await hasHorizontalScroll(owner.page)).toBe(false);

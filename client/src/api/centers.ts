@@ -1,5 +1,5 @@
 import type { Page } from '@shared/auth';
-import type { Center, Condition, CurrentCondition, FollowedCenter, PublishCondition } from '@shared/centers';
+import type { Center, Condition, CurrentCondition, FollowedCenter, LaneGroups, PublishCondition, UnsubscribeInfo } from '@shared/centers';
 import { api } from './client';
 
 export type { FollowedCenter };
@@ -14,6 +14,8 @@ export const centersApi = {
   get: (id: number, signal?: AbortSignal) => api.get<{ item: Center }>(`/centers/${id}`, { signal }),
   /** 404 with code `no_condition` when nothing is published. */
   current: (id: number, signal?: AbortSignal) => api.get<CurrentCondition>(`/centers/${id}/conditions/current`, { signal }),
+  /** Every lane group with what is on it now and next, in the center's time zone (200 with no groups when nothing is published). */
+  laneGroups: (id: number, signal?: AbortSignal) => api.get<LaneGroups>(`/centers/${id}/conditions/lane-groups`, { signal }),
   /** Newest first; a publication is never edited (corrections are new publications). */
   history: (id: number, params: { page?: number; pageSize?: number } = {}, signal?: AbortSignal) =>
     api.get<Page<Condition>>(`/centers/${id}/conditions`, { query: { ...params }, signal }),
@@ -24,6 +26,10 @@ export const centersApi = {
   follow: (id: number) => api.post<{ following: true }>(`/centers/${id}/follow`),
   unfollow: (id: number) => api.delete<{ following: false }>(`/centers/${id}/follow`),
   follows: (signal?: AbortSignal) => api.get<{ items: FollowedCenter[] }>('/follows', { signal }),
+  /** The e-mail link's page: what the link is for (404 when it is not valid any more), confirm, undo. */
+  unsubscribeInfo: (token: string, signal?: AbortSignal) => api.get<UnsubscribeInfo>('/unsubscribe/info', { query: { token }, signal }),
+  unsubscribe: (token: string) => api.post<{ ok: true; center: string }>('/unsubscribe', { token }),
+  undoUnsubscribe: (token: string) => api.post<{ ok: true; center: string }>('/unsubscribe/undo', { token }),
   /** A proprietor's own centers (admin: all). */
   mine: (signal?: AbortSignal) => api.get<{ items: Center[] }>('/centers/mine', { signal }),
 };

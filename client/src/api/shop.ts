@@ -28,9 +28,13 @@ import {
   type ShopMove,
   type ShopService,
   type Takings,
+  type TakingsDay,
+  type WalkInOrder,
+  SHOP_UNDO_SECONDS,
+  TAKINGS_MAX_DAYS,
 } from '@shared/shop';
 
-export { ORDER_STATUSES, SERVICE_KINDS, SURFACE_KINDS, cautionsFor };
+export { ORDER_STATUSES, SERVICE_KINDS, SURFACE_KINDS, SHOP_UNDO_SECONDS, TAKINGS_MAX_DAYS, cautionsFor };
 export type {
   CheckoutStart,
   Order,
@@ -44,6 +48,8 @@ export type {
   ShopMove,
   ShopService,
   Takings,
+  TakingsDay,
+  WalkInOrder,
 };
 
 /** The order's life (the shop's next move, refunds) and money formatting are the shared rules the server applies. */
@@ -73,8 +79,15 @@ export const shopApi = {
     api.get<Page<Order>>(`/centers/${centerId}/orders`, { query: { ...params }, signal }),
   setStatus: (orderId: number, status: ShopMove) => api.patch<{ item: Order }>(`/orders/${orderId}/status`, { status }),
   refund: (orderId: number) => api.post<{ item: Order }>(`/orders/${orderId}/refund`),
-  takings: (centerId: number, date: string, signal?: AbortSignal) =>
-    api.get<{ item: Takings }>(`/centers/${centerId}/takings`, { query: { date }, signal }),
+  /** A range of the center's local dates (both included); null: the center's today. */
+  takings: (centerId: number, range: { from: string; to: string } | null, signal?: AbortSignal) =>
+    api.get<{ item: Takings }>(`/centers/${centerId}/takings`, { query: { ...range }, signal }),
+  takingsCsv: (centerId: number, range: { from: string; to: string }) =>
+    api.get<Blob>(`/centers/${centerId}/takings.csv`, { query: { ...range }, asBlob: true }),
+  /** A walk-in order at the counter (paid there); the price is the price list's. */
+  createWalkIn: (centerId: number, body: WalkInOrder) => api.post<{ item: Order }>(`/centers/${centerId}/orders`, body),
+  /** Undo the shop's last move of an order (within SHOP_UNDO_SECONDS, by whoever made it). */
+  undoMove: (orderId: number) => api.post<{ item: Order }>(`/orders/${orderId}/status/undo`),
 };
 
 /* ---- wording shared by the shop screens ------------------------------------------------------------ */

@@ -1,12 +1,14 @@
 import { computed, type Ref } from 'vue';
 import {
   buildGame,
+  moveFollowUp,
   shotStats,
   suggestMoves,
   surfaceWords,
   type GameView,
   type LoggedDelivery,
   type Move,
+  type MoveFollowUp,
   type ShotRecord,
   type ShotStats,
 } from '@engine/index';
@@ -188,7 +190,30 @@ export function useSessionLog(input: SessionLogInput) {
     }
   });
 
-  return { entries, deliveriesOf, games, currentNumber, next, pinsBefore, fullRack, sheets, lastShot, lastStored, stats, moves };
+  const followUps = computed<MoveFollowUp[]>(() => {
+    if (!isOwner.value) return detail.value?.followUps ?? [];
+    try {
+      return moveFollowUp({ shots: records.value, hand: hand.value });
+    } catch {
+      return detail.value?.followUps ?? [];
+    }
+  });
+
+  return {
+    entries,
+    deliveriesOf,
+    games,
+    currentNumber,
+    next,
+    pinsBefore,
+    fullRack,
+    sheets,
+    lastShot,
+    lastStored,
+    stats,
+    moves,
+    followUps,
+  };
 }
 
 export type SessionLog = ReturnType<typeof useSessionLog>;

@@ -6,6 +6,7 @@ export const ROUTE_NAMES = [
   'sign-up',
   'reset-password',
   'verify-email',
+  'unsubscribe',
   'home',
   'profile',
   'admin-users',
@@ -24,6 +25,7 @@ export const ROUTE_NAMES = [
   'center-admin',
   'sessions',
   'session',
+  'leagues',
   'stats',
   'coach',
   'decisions',
@@ -63,6 +65,13 @@ export const routes: AppRouteRecord[] = [
     name: 'verify-email',
     component: () => import('@/views/VerifyEmailView.vue'),
     meta: { title: 'Confirm your e-mail', public: true },
+  },
+  {
+    // The unsubscribe link of a follower e-mail: asks before it stops anything.
+    path: '/unsubscribe',
+    name: 'unsubscribe',
+    component: () => import('@/views/UnsubscribeView.vue'),
+    meta: { title: 'Condition e-mails', public: true },
   },
   {
     path: '/',
@@ -105,6 +114,7 @@ export const routes: AppRouteRecord[] = [
       { path: 'orders/:id(\\d+)', name: 'order', component: () => import('@/views/OrderView.vue'), meta: { title: 'Order' } },
       { path: 'sessions', name: 'sessions', component: () => import('@/views/SessionsView.vue'), meta: { title: 'Sessions' } },
       { path: 'sessions/:id(\\d+)', name: 'session', component: () => import('@/views/SessionView.vue'), meta: { title: 'Session' } },
+      { path: 'leagues', name: 'leagues', component: () => import('@/views/LeaguesView.vue'), meta: { title: 'Leagues' } },
       { path: 'stats', name: 'stats', component: () => import('@/views/StatsView.vue'), meta: { title: 'Stats' } },
       // Coaches and admins see their students; every bowler sees their coaches and invitations here.
       { path: 'coach', name: 'coach', component: () => import('@/views/CoachView.vue'), meta: { title: 'Coach' } },

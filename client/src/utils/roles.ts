@@ -16,7 +16,7 @@ export const ROLE_PLURALS: Readonly<Record<Role, string>> = {
 
 /** What each role can do, in a sentence (shown on Home and in the role dialog). */
 export const ROLE_SUMMARIES: Readonly<Record<Role, string>> = {
-  bowler: 'Keep your release profile and, soon, your arsenal, shot logs and matchups.',
+  bowler: 'Keep your release profile, your arsenal and its upkeep, your sessions and leagues, and rank your balls for any condition.',
   coach: 'Everything a bowler can do, plus working with the students who accept your invitation.',
   proprietor: 'Run your centers: lanes, price list, oil patterns and the published house condition.',
   admin: 'Grant roles, look after the shared ball catalogue and read the audit log.',

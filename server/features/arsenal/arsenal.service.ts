@@ -122,7 +122,7 @@ export const arsenalService = {
         },
         transaction,
       );
-      b.set({ surfaceGrit: change.surfaceGrit, polished: change.polished, gamesSinceResurface: 0 });
+      b.set({ surfaceGrit: change.surfaceGrit, polished: change.polished, gamesSinceResurface: 0, resurfaceCountedAt: new Date() });
       await b.save({ transaction });
       refitBowlerAfterCommit(ownerId, transaction); // shots on the earlier surface are read without today's wear
       const withHistory = await arsenalRepository.findOwned(ownerId, id, { withHistory: true, transaction });

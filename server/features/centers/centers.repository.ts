@@ -34,6 +34,7 @@ export function toConditionDto(c: Condition, supersededBy: number | null = null)
     pattern: { id: c.patternId, name: c.patternName, sweeps: c.sweeps, summary: c.summary },
     lane,
     laneText: laneSurfaceText(lane),
+    weekdays: c.weekdays && c.weekdays.length ? [...c.weekdays].sort((a, b) => a - b) : null,
   };
 }
 
@@ -62,11 +63,15 @@ export const centersRepository = {
       transaction,
     }) as Promise<FollowWith<'user', User>[]>;
   },
+  /** Follows a center; a follow ended by an e-mail unsubscribe comes back (with its link). */
   async follow(userId: number, centerId: number, unsubscribeToken: string): Promise<void> {
-    await Follow.findOrCreate({ where: { userId, centerId }, defaults: { userId, centerId, unsubscribeToken } });
+    const old = await Follow.findOne({ where: { userId, centerId }, paranoid: false });
+    if (old?.deletedAt) await old.restore();
+    else if (!old) await Follow.findOrCreate({ where: { userId, centerId }, defaults: { userId, centerId, unsubscribeToken } });
   },
+  /** Unfollowing in the app removes the follow and its link for good. */
   async unfollow(userId: number, centerId: number): Promise<void> {
-    await Follow.destroy({ where: { userId, centerId } });
+    await Follow.destroy({ where: { userId, centerId }, force: true });
   },
   /** The user's follows with their centers, in the order followed. */
   followsOf(userId: number): Promise<FollowWith<'center', Center>[]> {
@@ -74,11 +79,14 @@ export const centersRepository = {
       FollowWith<'center', Center>[]
     >;
   },
-  followByToken(token: string): Promise<FollowWith<'center', Center> | null> {
-    return Follow.findOne({ where: { unsubscribeToken: token }, include: [{ model: Center, as: 'center' }] }) as Promise<FollowWith<
-      'center',
-      Center
-    > | null>;
+  /** The follow behind an e-mail link, also when that link already unsubscribed it (`deletedAt` set). */
+  followByToken(token: string, transaction?: Transaction): Promise<FollowWith<'center', Center> | null> {
+    return Follow.findOne({
+      where: { unsubscribeToken: token },
+      include: [{ model: Center, as: 'center' }],
+      paranoid: false,
+      transaction,
+    }) as Promise<FollowWith<'center', Center> | null>;
   },
   list(opts: { ownerId?: number; limit: number; offset: number }): Promise<{ rows: Center[]; count: number }> {
     return Center.findAndCountAll({
@@ -101,13 +109,16 @@ export const centersRepository = {
   findCondition(id: number): Promise<(Condition & { center: Center }) | null> {
     return Condition.findByPk(id, { include: [{ model: Center, as: 'center' }] }) as Promise<(Condition & { center: Center }) | null>;
   },
-  /** Publications in force on `day` (YYYY-MM-DD) at one center or several, newest publication first. */
-  inForce(centerId: number | number[], day: string): Promise<Condition[]> {
+  /**
+   * The publications of one center or several that may still be in force on or after `fromDay` (open-ended, or
+   * ending on or after it), oldest first.
+   */
+  scheduledFrom(centerId: number | number[], fromDay: string): Promise<Condition[]> {
     return Condition.findAll({
-      where: { centerId, validFrom: { [Op.lte]: day }, [Op.or]: [{ validTo: null }, { validTo: { [Op.gte]: day } }] },
+      where: { centerId, [Op.or]: [{ validTo: null }, { validTo: { [Op.gte]: fromDay } }] },
       order: [
-        ['publishedAt', 'DESC'],
-        ['id', 'DESC'],
+        ['publishedAt', 'ASC'],
+        ['id', 'ASC'],
       ],
     });
   },

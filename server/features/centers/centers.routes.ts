@@ -1,17 +1,21 @@
-import escapeHtml from 'escape-html';
 import { z } from 'zod';
 import { IdParamSchema, PageQuerySchema } from '../../../shared/auth';
 import { itemOf, itemsOf, pageOf } from '../../../shared/api';
 import {
+  AtQuerySchema,
   CenterInputSchema,
   CenterPatchSchema,
   CenterSchema,
   ConditionSchema,
   CurrentConditionSchema,
   FollowedCenterSchema,
+  LaneGroupsSchema,
   PublishConditionSchema,
+  UnsubscribeInfoSchema,
+  UnsubscribeTokenSchema,
 } from '../../../shared/centers';
 import { AppError } from '../../lib/AppError';
+import { linkTo } from '../../lib/publicUrl';
 import { route, type RouteGroup } from '../../http/route';
 import { centersService } from './centers.service';
 import { conditionSheetPdf } from './conditionSheet';
@@ -71,11 +75,22 @@ export const centersRoutes: RouteGroup = {
     route({
       method: 'get',
       path: '/:id/conditions/current',
-      summary: 'The condition in force today',
+      summary: 'The condition in force today (in the center’s time zone; `at` asks about another instant), every lane group',
       access: 'public',
       params: IdParamSchema,
+      query: AtQuerySchema,
       response: CurrentConditionSchema,
-      handler: ({ params }) => centersService.current(params.id),
+      handler: ({ params, query }) => centersService.current(params.id, atOf(query.at)),
+    }),
+    route({
+      method: 'get',
+      path: '/:id/conditions/lane-groups',
+      summary: 'Every lane group of the center with the publication in force and the next one (center’s time zone)',
+      access: 'public',
+      params: IdParamSchema,
+      query: AtQuerySchema,
+      response: LaneGroupsSchema,
+      handler: ({ params, query }) => centersService.laneGroups(params.id, atOf(query.at)),
     }),
     route({
       method: 'get',
@@ -83,10 +98,11 @@ export const centersRoutes: RouteGroup = {
       summary: 'The printable sheet of the condition in force',
       access: 'public',
       params: IdParamSchema,
-      response: { contentType: 'application/pdf', description: 'The condition sheet' },
-      handler: async ({ params, res }) => {
-        const cur = await centersService.current(params.id);
-        const pdf = await conditionSheetPdf(cur.center, cur.condition);
+      query: AtQuerySchema,
+      response: { contentType: 'application/pdf', description: 'The condition sheet: every lane group' },
+      handler: async ({ params, query, res }) => {
+        const cur = await centersService.current(params.id, atOf(query.at));
+        const pdf = await conditionSheetPdf(cur.center, cur.groups ?? [], { timeZone: cur.timeZone ?? 'UTC', today: cur.today ?? '' });
         res
           .type('application/pdf')
           .setHeader('Content-Disposition', `inline; filename="condition-${cur.center.id}-${cur.condition.id}.pdf"`);
@@ -155,30 +171,55 @@ export const followsRoutes: RouteGroup = {
   ],
 };
 
-const TokenQuery = z.object({ token: z.string().min(10, 'The link is incomplete').max(100) });
+const TokenQuery = UnsubscribeTokenSchema;
 
-/** The unsubscribe link of every follower e-mail: works without sign-in. */
+/** An instant from `?at=` (validated by AtQuerySchema), or now. */
+function atOf(at: string | undefined): Date {
+  return at ? new Date(at) : new Date();
+}
+
+/**
+ * The unsubscribe link of every follower e-mail works without sign-in. It opens the client's page
+ * (`/unsubscribe?token=…`), which asks before it POSTs; a GET never unsubscribes (mail scanners follow links).
+ */
 export const unsubscribeRoutes: RouteGroup = {
   prefix: '/unsubscribe',
   routes: [
     route({
       method: 'get',
       path: '/',
-      summary: 'Unsubscribe link of a follower e-mail (no sign-in)',
+      summary: 'Old unsubscribe link of follower e-mails: sends the browser to the page that asks first (changes nothing)',
       access: 'public',
       query: TokenQuery,
-      response: { contentType: 'text/html', description: 'A page saying the e-mails stopped (404 when the link is not valid)' },
-      handler: async ({ query, res }) => {
-        const name = await centersService.unsubscribe(query.token);
-        const msg = name
-          ? `You will no longer get condition e-mails from ${name}.`
-          : 'This link was already used or is not valid; you are not subscribed through it.';
-        res
-          .status(name ? 200 : 404)
-          .type('html')
-          .send(
-            `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>Lanewright — e-mails</title></head><body style="font-family:system-ui,sans-serif;margin:2rem"><main><h1>Lanewright</h1><p>${escapeHtml(msg)}</p><p><a href="/">Open Lanewright</a></p></main></body></html>`,
-          );
+      response: { contentType: 'text/html', description: 'A redirect (303) to the unsubscribe page' },
+      handler: ({ query, res }) => {
+        res.redirect(303, linkTo(`/unsubscribe?token=${encodeURIComponent(query.token)}`));
+      },
+    }),
+    route({
+      method: 'get',
+      path: '/info',
+      summary: 'What an unsubscribe link is for: the center and whether the e-mails are still on (no sign-in)',
+      access: 'public',
+      query: TokenQuery,
+      response: UnsubscribeInfoSchema,
+      handler: async ({ query }) => {
+        const info = await centersService.unsubscribeInfo(query.token);
+        if (!info) throw new AppError(404, 'not_found', 'This link is not valid any more');
+        return info;
+      },
+    }),
+    route({
+      method: 'post',
+      path: '/undo',
+      summary: 'Undo an unsubscribe from the same e-mail link (no sign-in)',
+      access: 'public',
+      body: TokenQuery.strict(),
+      response: z.object({ ok: z.literal(true), center: z.string() }),
+      handler: async ({ body }) => {
+        const name = await centersService.resubscribe(body.token);
+        if (!name) throw new AppError(404, 'not_found', 'This link is not valid any more');
+        return { ok: true as const, center: name };
       },
     }),
     route({

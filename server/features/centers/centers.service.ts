@@ -8,7 +8,10 @@ import {
   type Condition as ConditionDto,
   type CurrentCondition,
   type FollowedCenter,
+  type LaneGroup,
+  type LaneGroups,
   type PublishCondition,
+  weekdaysText,
 } from '../../../shared/centers';
 import { publicUrl } from '../../lib/publicUrl';
 import { AppError } from '../../lib/AppError';
@@ -20,18 +23,50 @@ import { userRepository } from '../auth/user.repository';
 import { patternsRepository } from '../patterns/patterns.repository';
 import { patternsService } from '../patterns/patterns.service';
 import { centersRepository, toCenterDto, toConditionDto } from './centers.repository';
-import { datesOverlap, laneRanges } from './lanes';
+import { laneRanges } from './lanes';
+import { addDays, laneGroups, localDay, replacedBy, type LaneGroupOf } from './laneGroups';
 
-/** Today's date in UTC (YYYY-MM-DD): conditions are in force by calendar day. */
+/** Today's date in UTC (YYYY-MM-DD). A center's own day is `localDay(at, center.timeZone)`. */
 export function todayUtc(now = new Date()): string {
   return now.toISOString().slice(0, 10);
 }
 
-function supersededBy(c: Condition, later: Condition[]): number | null {
-  const hit = later.find(
-    (l) => l.id !== c.id && l.publishedAt > c.publishedAt && l.lanes.some((n) => c.lanes.includes(n)) && datesOverlap(l, c),
-  );
-  return hit ? hit.id : null;
+/** How long an e-mail unsubscribe can be undone from the same link. */
+const UNDO_DAYS = 30;
+
+function toLaneGroupDto(g: LaneGroupOf<Condition>): LaneGroup {
+  return {
+    key: g.key,
+    lanes: g.lanes,
+    from: g.from,
+    to: g.to,
+    current: g.current ? toConditionDto(g.current) : null,
+    currentUntil: g.currentUntil,
+    next: g.next ? { condition: toConditionDto(g.next.publication), from: g.next.from } : null,
+  };
+}
+
+/** The center's lane groups at an instant, in its time zone, from its publications that may still be in force. */
+function groupsOf(center: Center, pubs: Condition[], at: Date): { today: string; groups: LaneGroup[] } {
+  const today = localDay(at, center.timeZone);
+  return { today, groups: laneGroups(pubs, center.laneCount, today).map(toLaneGroupDto) };
+}
+
+/** The newest of the publications in force now, over every lane group (null when none is). */
+function newestCurrent(groups: LaneGroup[]): ConditionDto | null {
+  let best: ConditionDto | null = null;
+  for (const g of groups)
+    if (
+      g.current &&
+      (!best || g.current.publishedAt > best.publishedAt || (g.current.publishedAt === best.publishedAt && g.current.id > best.id))
+    )
+      best = g.current;
+  return best;
+}
+
+/** The day before the earliest local day any time zone can be in at `at` (publications ending before it are over everywhere). */
+function earliestDay(at: Date): string {
+  return addDays(todayUtc(at), -2);
 }
 
 async function centerOr404(id: number): Promise<Center> {
@@ -113,13 +148,26 @@ export const centersService = {
     });
   },
 
-  /** The newest publication in force today (404 no_condition when there is none). */
-  async current(id: number): Promise<CurrentCondition> {
+  /** Every lane group of the center at an instant (default now), in the center's time zone. */
+  async laneGroups(id: number, at = new Date()): Promise<LaneGroups> {
     const center = await centerOr404(id);
-    const [c] = await centersRepository.inForce(id, todayUtc());
-    if (!c) throw new AppError(404, 'no_condition', `${center.name} has no condition in force today`);
-    const dto = toConditionDto(c);
+    const { today, groups } = groupsOf(center, await centersRepository.scheduledFrom(id, earliestDay(at)), at);
+    return { center: toCenterDto(center), timeZone: center.timeZone, today, at: at.toISOString(), groups };
+  },
+
+  /**
+   * The condition in force at an instant (default now) in the center's time zone: every lane group in `groups`, and
+   * the newest publication in force at the top level (404 no_condition when no lane has one).
+   */
+  async current(id: number, at = new Date()): Promise<CurrentCondition> {
+    const center = await centerOr404(id);
+    const { today, groups } = groupsOf(center, await centersRepository.scheduledFrom(id, earliestDay(at)), at);
+    const dto = newestCurrent(groups);
+    if (!dto) throw new AppError(404, 'no_condition', `${center.name} has no condition in force today`);
     return {
+      timeZone: center.timeZone,
+      today,
+      groups,
       center: toCenterDto(center),
       condition: dto,
       pattern: dto.pattern,
@@ -137,7 +185,7 @@ export const centersService = {
     const { rows, count } = await centersRepository.history(id, pageSize, (page - 1) * pageSize);
     const oldest = rows.at(-1);
     const later = oldest ? await centersRepository.publishedAfter(id, oldest.publishedAt) : [];
-    return { items: rows.map((c) => toConditionDto(c, supersededBy(c, later))), total: count, page, pageSize };
+    return { items: rows.map((c) => toConditionDto(c, replacedBy(c, later))), total: count, page, pageSize };
   },
 
   /**
@@ -168,6 +216,7 @@ export const centersService = {
           validFrom: input.validFrom,
           validTo: input.validTo ?? null,
           notes: input.notes ?? null,
+          weekdays: input.weekdays?.length ? [...new Set(input.weekdays)].sort((a, b) => a - b) : null,
           publishedAt: new Date(),
           publishedBy: actor.id,
           laneKind: input.lane.kind,
@@ -187,16 +236,18 @@ export const centersService = {
       );
       const follows = await centersRepository.followersOf(centerId, transaction);
       const s = pattern.summary;
-      const page = `${base}/centers/${centerId}/condition`;
+      // The public page has an anchor per lane group; the group of these lanes is `lanes-<first>-<last>`.
+      const page = `${base}/centers/${centerId}/condition#lanes-${c.lanes[0]}-${c.lanes.at(-1)}`;
+      const days = weekdaysText(c.weekdays);
       await enqueueMail(
         follows.map((f) => {
           const u = f.user;
-          const unsubscribe = `${base}/api/unsubscribe?token=${f.unsubscribeToken}`;
+          const unsubscribe = `${base}/unsubscribe?token=${encodeURIComponent(f.unsubscribeToken)}`;
           const lines = [
             `Hello ${u.displayName},`,
             '',
             `${center.name} has published a new lane condition: ${pattern.name}.`,
-            `Lanes ${laneRanges(c.lanes)}, from ${c.validFrom}${c.validTo ? ` to ${c.validTo}` : ''}.`,
+            `Lanes ${laneRanges(c.lanes)}, from ${c.validFrom}${c.validTo ? ` to ${c.validTo}` : ''}${days ? `, on ${days}` : ''} (${center.name}'s local days).`,
             `Length ${s.lengthFt} ft, volume ${s.volumeMl.toFixed(1)} mL, ratio ${s.ratio === null ? '—' : `${s.ratio.toFixed(1)}:1`} (${s.lengthClass}, ${s.volumeClass}, ${s.ratioClass}).`,
             `${laneSurfaceText(input.lane)}.`,
             ...(c.notes ? ['', c.notes] : []),
@@ -232,37 +283,62 @@ export const centersService = {
 
   async follows(user: AuthUser): Promise<FollowedCenter[]> {
     const centers = (await centersRepository.followsOf(user.id)).map((f) => f.center);
-    // One query for every followed center, newest publication first: the first row per center is its current
-    // condition; each older one still governs the lanes no newer publication has taken.
+    // One query for every followed center; each center's lane groups are worked out in its own time zone.
+    const at = new Date();
     const byCenter = new Map<number, Condition[]>();
     if (centers.length)
-      for (const c of await centersRepository.inForce(
+      for (const c of await centersRepository.scheduledFrom(
         centers.map((x) => x.id),
-        todayUtc(),
+        earliestDay(at),
       ))
         byCenter.set(c.centerId, [...(byCenter.get(c.centerId) ?? []), c]);
     return centers.map((center) => {
-      const list = byCenter.get(center.id) ?? [];
-      const taken = new Set<number>();
+      const { groups } = groupsOf(center, byCenter.get(center.id) ?? [], at);
+      // A publication in force on several groups (lanes with different next changes) is listed once with all its lanes.
       const inForce: FollowedCenter['inForce'] = [];
-      for (const c of list) {
-        const lanes = c.lanes.filter((n) => !taken.has(n));
-        for (const n of c.lanes) taken.add(n);
-        if (lanes.length) inForce.push({ condition: toConditionDto(c), lanes });
+      for (const g of groups) {
+        if (!g.current) continue;
+        const same = inForce.find((x) => x.condition.id === g.current!.id);
+        if (same) same.lanes = [...same.lanes, ...g.lanes].sort((a, b) => a - b);
+        else inForce.push({ condition: g.current, lanes: [...g.lanes] });
       }
-      return { center: toCenterDto(center, true), current: list[0] ? toConditionDto(list[0]) : null, inForce };
+      return { center: toCenterDto(center, true), current: newestCurrent(groups), inForce, groups };
     });
   },
 
-  /** Removes the follow behind an e-mail's unsubscribe link (no sign-in); returns the center's name, or null for an unknown token. */
+  /** What an e-mail link is for: the center, and whether the follow is still on (null: unknown or long-ended link). */
+  async unsubscribeInfo(token: string): Promise<{ center: string; subscribed: boolean } | null> {
+    const f = await centersRepository.followByToken(token);
+    if (!f || (f.deletedAt && !undoable(f.deletedAt))) return null;
+    return { center: f.center.name, subscribed: !f.deletedAt };
+  },
+
+  /**
+   * Ends the follow behind an e-mail's unsubscribe link (no sign-in; a POST, so a mail scanner's GET changes nothing);
+   * returns the center's name, or null for an unknown token or one already used. The follow is kept for the undo.
+   */
   async unsubscribe(token: string): Promise<string | null> {
     const f = await centersRepository.followByToken(token);
-    if (!f) return null;
-    const name = f.center.name;
+    if (!f || f.deletedAt) return null;
     await f.destroy();
-    return name;
+    return f.center.name;
+  },
+
+  /** Undoes an e-mail unsubscribe from the same link within UNDO_DAYS; the center's name, or null. */
+  async resubscribe(token: string): Promise<string | null> {
+    const f = await centersRepository.followByToken(token);
+    if (!f) return null;
+    if (f.deletedAt) {
+      if (!undoable(f.deletedAt)) return null;
+      await f.restore();
+    }
+    return f.center.name;
   },
 };
+
+function undoable(deletedAt: Date): boolean {
+  return Date.now() - deletedAt.getTime() < UNDO_DAYS * 86_400_000;
+}
 
 async function assertProprietor(userId: number): Promise<void> {
   const u = await userRepository.findById(userId);

@@ -10,8 +10,3 @@ export function laneRanges(lanes: number[]): string {
   }
   return parts.join(', ');
 }
-
-/** True when two date ranges (YYYY-MM-DD, open end = null) share a day. */
-export function datesOverlap(a: { validFrom: string; validTo: string | null }, b: { validFrom: string; validTo: string | null }): boolean {
-  return (a.validTo === null || b.validFrom <= a.validTo) && (b.validTo === null || a.validFrom <= b.validTo);
-}

@@ -16,6 +16,9 @@ interface SessionRow {
   condition_id: number | null;
   pattern_id: number | null;
   pattern_name: string | null;
+  league_id: number | null;
+  league_name: string | null;
+  lane_pair: string | null;
   notes: string;
   created_at: Date;
   games: string | number;
@@ -34,6 +37,9 @@ export function toSessionDto(r: SessionRow): SessionDto {
     conditionId: r.condition_id,
     patternId: r.pattern_id,
     patternName: r.pattern_name,
+    leagueId: r.league_id,
+    leagueName: r.league_name,
+    lanePair: r.lane_pair,
     notes: r.notes,
     games: Number(r.games),
     shots: Number(r.shots),
@@ -43,10 +49,12 @@ export function toSessionDto(r: SessionRow): SessionDto {
 
 /** Sessions with their center's name and shot/game counts, in one statement (the counts by a lateral join). */
 const SESSION_SELECT = `
-  SELECT s.id, s.user_id, s.date, s.kind, s.center_id, c.name AS center_name, s.condition_id, s.pattern_id, s.pattern_name, s.notes, s.created_at,
+  SELECT s.id, s.user_id, s.date, s.kind, s.center_id, c.name AS center_name, s.condition_id, s.pattern_id, s.pattern_name,
+         s.league_id, l.name AS league_name, s.lane_pair, s.notes, s.created_at,
          agg.games, agg.shots
   FROM sessions s
   LEFT JOIN centers c ON c.id = s.center_id
+  LEFT JOIN leagues l ON l.id = s.league_id
   LEFT JOIN LATERAL (SELECT COUNT(DISTINCT sh.game_number) AS games, COUNT(*) AS shots FROM shots sh WHERE sh.session_id = s.id) agg ON TRUE`;
 
 export interface ShotRow {

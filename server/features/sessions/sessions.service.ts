@@ -1,7 +1,7 @@
 import { createHash } from 'node:crypto';
 import { changedAfterCommit } from '../../lib/changeFeed';
 import { UniqueConstraintError, type Transaction } from 'sequelize';
-import { buildGame, checkDelivery, isCalibrationShot, shotStats, suggestMoves, surfaceWords } from '../../../engine/index';
+import { buildGame, checkDelivery, isCalibrationShot, moveFollowUp, shotStats, suggestMoves, surfaceWords } from '../../../engine/index';
 import type { LoggedDelivery } from '../../../engine/shotlog/types';
 import type { Page } from '../../../shared/auth';
 import { DEFAULT_LANE_SURFACE } from '../../../shared/centers';
@@ -22,6 +22,7 @@ import { sequelize, type BowlingSession, type Shot, type User } from '../../mode
 import { arsenalRepository } from '../arsenal/arsenal.repository';
 import { userRepository } from '../auth/user.repository';
 import { centersRepository } from '../centers/centers.repository';
+import { leaguesRepository } from '../leagues/leagues.repository';
 import { patternsRepository } from '../patterns/patterns.repository';
 import { isLinkedCoach, readableBowlerId } from '../coaching/coaching.access';
 import { profileService } from '../profile/profile.service';
@@ -85,6 +86,28 @@ export function gameViewsOf(shots: ShotRow[]): NumberedGame[] {
   return [...byGame.entries()].sort((a, b) => a[0] - b[0]).map(([number, list]) => ({ ...buildGame(list.map(delivered)), number }));
 }
 
+/** The league (the bowler's own) and lane pair of a session, checked: 400 naming the field otherwise. */
+async function leagueAndPair(
+  userId: number,
+  leagueId: number | null | undefined,
+  lanePair: string | null | undefined,
+  centerId: number | null,
+): Promise<void> {
+  if (leagueId) {
+    const league = await leaguesRepository.findById(leagueId);
+    if (!league || league.userId !== userId)
+      throw AppError.badRequest('That league is not one of yours', { 'body.leagueId': 'Choose one of your leagues' });
+  }
+  if (lanePair && centerId !== null) {
+    const center = await centersRepository.findById(centerId);
+    const last = Number(lanePair.split('-')[1]);
+    if (center && last > center.laneCount)
+      throw AppError.badRequest('That center has fewer lanes', {
+        'body.lanePair': `${center.name} has lanes 1–${center.laneCount}`,
+      });
+  }
+}
+
 export const sessionsService = {
   async create(user: AuthUser, input: SessionCreate): Promise<SessionDto> {
     let centerId = input.centerId ?? null;
@@ -113,10 +136,13 @@ export const sessionsService = {
       if (!p) throw AppError.badRequest('That pattern does not exist', { 'body.patternId': 'Unknown pattern' });
       patternName = p.name;
     }
+    await leagueAndPair(user.id, input.leagueId, input.lanePair, centerId);
     const s = await sessionsRepository.create({
       userId: user.id,
       date: input.date,
       kind: input.kind,
+      leagueId: input.leagueId ?? null,
+      lanePair: input.lanePair ?? null,
       centerId,
       conditionId,
       patternId,
@@ -149,6 +175,7 @@ export const sessionsService = {
       shots: shots.map(toShotDto),
       stats: shotStats(records),
       moves: suggestMoves({ shots: records, hand: profile.hand }),
+      followUps: moveFollowUp({ shots: records, hand: profile.hand }),
       annotations: annotations.map(toAnnotationDto),
       owner: { id: owner!.id, displayName: owner!.displayName },
     };
@@ -156,7 +183,12 @@ export const sessionsService = {
 
   async update(user: AuthUser, id: number, patch: SessionPatch): Promise<SessionDto> {
     const s = await sessionFor(user, id, 'write');
+    await leagueAndPair(s.userId, patch.leagueId, patch.lanePair, s.centerId);
+    if (patch.leagueId && (patch.kind ?? s.kind) !== 'league')
+      throw AppError.badRequest('A league night is a league session', { 'body.kind': 'A league night is a league session' });
     s.set({
+      ...(patch.leagueId !== undefined ? { leagueId: patch.leagueId } : {}),
+      ...(patch.lanePair !== undefined ? { lanePair: patch.lanePair } : {}),
       ...(patch.notes !== undefined ? { notes: patch.notes } : {}),
       ...(patch.kind ? { kind: patch.kind } : {}),
       ...(patch.date ? { date: patch.date } : {}),

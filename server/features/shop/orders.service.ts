@@ -11,6 +11,9 @@ import {
   type OrderListQuery,
   type OrderStatus,
   type ShopMove,
+  type WalkInOrder,
+  OPEN_ORDER_STATUSES,
+  SHOP_UNDO_SECONDS,
 } from '../../../shared/shop';
 import { AppError } from '../../lib/AppError';
 import { audit } from '../../lib/audit';
@@ -23,6 +26,7 @@ import { arsenalRepository } from '../arsenal/arsenal.repository';
 import { refitBowlerAfterCommit } from '../stats/calibrationJobs';
 import { freshOrder, ownedCenter, visibleOrder } from './shop.common';
 import { enqueueOrderMail } from './shop.mail';
+import { knownZone } from './takings.service';
 import { shopRepository, toOrderDto } from './shop.repository';
 
 /** Pro-shop orders: the bowler orders and cancels, the shop moves an order along its life. */
@@ -77,8 +81,61 @@ export const ordersService = {
     return freshOrder(id);
   },
 
+  /**
+   * A walk-in order taken at the counter by the center's proprietor for a customer without an account: the price
+   * comes from the price list, the ball is described in words, and it is paid at the counter when taken.
+   */
+  async createWalkIn(actor: AuthUser, centerId: number, input: WalkInOrder): Promise<OrderDto> {
+    await ownedCenter(actor, centerId);
+    const id = await sequelize.transaction(async (transaction) => {
+      const service = await shopRepository.service(input.serviceId, transaction);
+      if (!service || !service.active || service.centerId !== centerId)
+        throw AppError.badRequest('That service is not on this center’s price list', { 'body.serviceId': 'Not on the price list' });
+      if (input.expectedAmountCents !== undefined && input.expectedAmountCents !== service.priceCents)
+        throw new AppError(400, 'price_mismatch', `The price of ${service.name} is ${formatMoney(service.priceCents, service.currency)}`, {
+          'body.expectedAmountCents': `The price is now ${formatMoney(service.priceCents, service.currency)}`,
+        });
+      const now = new Date();
+      const o = await shopRepository.createOrder(
+        {
+          userId: null,
+          customerName: input.customerName,
+          customerContact: input.customerContact,
+          centerId,
+          serviceId: service.id,
+          ballId: null,
+          serviceKind: service.kind,
+          serviceName: service.name,
+          grit: service.grit,
+          ballName: input.ballDescription,
+          amountCents: service.priceCents,
+          currency: service.currency,
+          notes: input.notes ?? null,
+          status: 'paid',
+          paymentStatus: 'paid',
+          paidAt: now,
+        },
+        transaction,
+      );
+      await shopRepository.addEvent(o.id, 'ordered', actor, transaction, 'Walk-in order at the counter', now);
+      await shopRepository.addEvent(o.id, 'paid', actor, transaction, 'Paid at the counter', now);
+      await audit(
+        {
+          actorId: actor.id,
+          action: 'order.walk_in_created',
+          subjectType: 'order',
+          subjectId: o.id,
+          details: { centerId, serviceId: service.id, amountCents: o.amountCents, currency: o.currency },
+        },
+        transaction,
+      );
+      return o.id;
+    });
+    return freshOrder(id);
+  },
+
   async mine(user: AuthUser, q: OrderListQuery): Promise<Page<OrderDto>> {
-    const where: WhereOptions<Order> = { userId: user.id, ...(q.status ? { status: q.status } : {}) };
+    const where: WhereOptions<Order> = { userId: user.id, ...statusWhere(q) };
     const { rows, count } = await shopRepository.page(where, q.page, q.pageSize);
     return { items: rows.map(toOrderDto), total: count, page: q.page, pageSize: q.pageSize };
   },
@@ -120,11 +177,12 @@ export const ordersService = {
   },
 
   async centerOrders(actor: AuthUser, centerId: number, q: CenterOrderQuery): Promise<Page<OrderDto>> {
-    await ownedCenter(actor, centerId);
-    const where: Record<string | symbol, unknown> = { centerId, ...(q.status ? { status: q.status } : {}) };
+    const center = await ownedCenter(actor, centerId);
+    const where: Record<string | symbol, unknown> = { centerId, ...statusWhere(q) };
     if (q.date) {
-      const from = new Date(`${q.date}T00:00:00Z`);
-      where.createdAt = { [Op.gte]: from, [Op.lt]: new Date(from.getTime() + 86400000) };
+      // The center's local day.
+      const bounds = await shopRepository.localDayBounds(q.date, knownZone(center.timeZone));
+      where.createdAt = { [Op.gte]: bounds.from, [Op.lt]: bounds.to };
     }
     const { rows, count } = await shopRepository.page(where as WhereOptions<Order>, q.page, q.pageSize);
     return { items: rows.map(toOrderDto), total: count, page: q.page, pageSize: q.pageSize };
@@ -151,7 +209,7 @@ export const ordersService = {
       if (status === 'ready') order.readyAt = now;
       if (status === 'collected') order.collectedAt = now;
       if (status === 'ready' && SURFACE_KINDS.includes(order.serviceKind) && order.ballId) {
-        const ball = await arsenalRepository.lockOwnedEvenRemoved(order.userId, order.ballId, transaction);
+        const ball = order.userId ? await arsenalRepository.lockOwnedEvenRemoved(order.userId, order.ballId, transaction) : null;
         if (ball) {
           const toGrit = order.serviceKind === 'resurface' && order.grit ? order.grit : ball.surfaceGrit;
           const toPolished = order.serviceKind === 'polish' ? true : order.serviceKind === 'resurface' ? false : ball.polished;
@@ -171,20 +229,72 @@ export const ordersService = {
           ball.set({
             surfaceGrit: toGrit,
             polished: toPolished,
-            ...(order.serviceKind === 'oil-extraction' ? {} : { gamesSinceResurface: 0 }),
+            ...(order.serviceKind === 'oil-extraction'
+              ? { gamesSinceExtraction: 0, extractionCountedAt: now }
+              : { gamesSinceResurface: 0, resurfaceCountedAt: now }),
           });
           await ball.save({ transaction });
-          refitBowlerAfterCommit(order.userId, transaction);
+          refitBowlerAfterCommit(ball.ownerId, transaction);
         }
       }
       await order.save({ transaction });
-      await shopRepository.addEvent(order.id, status, actor, transaction);
+      await shopRepository.addEvent(order.id, status, actor, transaction, null, now, from);
       await audit(
         { actorId: actor.id, action: 'order.status_changed', subjectType: 'order', subjectId: order.id, details: { from, to: status } },
         transaction,
       );
-      if (status === 'ready') await enqueueOrderMail('ready', order, publicUrl(), transaction);
+      if (status === 'ready' && order.userId) await enqueueOrderMail('ready', order, publicUrl(), transaction);
+    });
+    return freshOrder(id);
+  },
+
+  /**
+   * Undoes the last move of an order within SHOP_UNDO_SECONDS, by the staff member who made it: in progress goes
+   * back to paid, collected back to ready. 'Ready' is not undone (the bowler has been e-mailed and the ball's
+   * surface recorded); nor is a move someone else made or one followed by another step.
+   */
+  async undoMove(actor: AuthUser, id: number): Promise<OrderDto> {
+    const o = await visibleOrder(actor, id);
+    if (o.center?.ownerId !== actor.id) throw AppError.forbidden('Only the shop moves an order along');
+    await sequelize.transaction(async (transaction) => {
+      const order = (await shopRepository.lockOrder(id, transaction))!;
+      const last = await shopRepository.lastEvent(order.id, transaction);
+      const undoable =
+        last && last.fromStatus && last.status === order.status && (last.status === 'in_progress' || last.status === 'collected');
+      if (!last || !undoable)
+        throw AppError.conflict(
+          'nothing_to_undo',
+          last?.status === 'ready' && last.fromStatus
+            ? 'Marking an order ready cannot be undone: the bowler has been told to collect it'
+            : 'This order has no move to undo',
+        );
+      if (last.byUserId !== actor.id) throw AppError.conflict('nothing_to_undo', 'Only the person who made the move can undo it');
+      if (Date.now() - last.at.getTime() > SHOP_UNDO_SECONDS * 1000)
+        throw AppError.conflict('undo_expired', `A move can be undone for ${SHOP_UNDO_SECONDS / 60} minutes; this one is older`);
+      const undone = last.status;
+      const back = last.fromStatus!;
+      order.status = back;
+      if (undone === 'collected') order.collectedAt = null;
+      await order.save({ transaction });
+      await shopRepository.addEvent(order.id, back, actor, transaction, `Undone: ${undone.replace('_', ' ')}`);
+      await audit(
+        {
+          actorId: actor.id,
+          action: 'order.status_undone',
+          subjectType: 'order',
+          subjectId: order.id,
+          details: { from: undone, to: back },
+        },
+        transaction,
+      );
     });
     return freshOrder(id);
   },
 };
+
+/** The status filter of an order list: one status, or the open ones (the ball is at the shop). */
+function statusWhere(q: OrderListQuery): WhereOptions<Order> {
+  if (q.status) return { status: q.status };
+  if (q.open === '1' || q.open === 'true') return { status: [...OPEN_ORDER_STATUSES] };
+  return {};
+}

@@ -24,8 +24,8 @@ export function toOrderDto(o: OrderRow): OrderDto {
   const iso = (d: Date | null | undefined) => (d ? d.toISOString() : null);
   return {
     id: o.id,
-    userId: o.userId,
-    bowlerName: o.bowler?.displayName ?? '',
+    userId: o.userId ?? 0,
+    bowlerName: o.bowler?.displayName ?? o.customerName ?? '',
     centerId: o.centerId,
     centerName: o.center?.name ?? '',
     serviceId: o.serviceId ?? 0,
@@ -49,6 +49,8 @@ export function toOrderDto(o: OrderRow): OrderDto {
     history: [...(o.events ?? [])]
       .sort((a, b) => a.at.getTime() - b.at.getTime() || a.id - b.id)
       .map((e) => ({ status: e.status, at: e.at.toISOString(), by: e.byName })),
+    walkIn: o.userId === null,
+    customerContact: o.customerContact,
   };
 }
 
@@ -111,8 +113,20 @@ export const shopRepository = {
     transaction: Transaction,
     note: string | null = null,
     at = new Date(),
+    fromStatus: OrderStatus | null = null,
   ): Promise<OrderEvent> {
-    return OrderEvent.create({ orderId, status, at, byUserId: by?.id ?? null, byName: by?.displayName ?? null, note }, { transaction });
+    return OrderEvent.create(
+      { orderId, status, at, byUserId: by?.id ?? null, byName: by?.displayName ?? null, note, fromStatus },
+      { transaction },
+    );
+  },
+  /** The newest step of an order's history, by when it was recorded (read inside the transaction that holds the order's lock). */
+  lastEvent(orderId: number, transaction: Transaction): Promise<OrderEvent | null> {
+    return OrderEvent.findOne({
+      where: { orderId },
+      order: [['id', 'DESC']],
+      transaction,
+    });
   },
   payments(orderId: number, transaction?: Transaction): Promise<Payment[]> {
     return Payment.findAll({ where: { orderId }, order: [['id', 'ASC']], transaction });
@@ -142,7 +156,10 @@ export const shopRepository = {
   },
   /** The bowler and the center of an order (its mails). */
   async orderParties(order: Pick<Order, 'userId' | 'centerId'>, transaction?: Transaction): Promise<[User | null, Center | null]> {
-    return Promise.all([User.findByPk(order.userId, { transaction }), Center.findByPk(order.centerId, { transaction })]);
+    return Promise.all([
+      order.userId === null ? null : User.findByPk(order.userId, { transaction }),
+      Center.findByPk(order.centerId, { transaction }),
+    ]);
   },
   /** Marks a checkout attempt expired if it is still open. */
   async expireOpenPayment(id: number): Promise<void> {
@@ -160,6 +177,92 @@ export const shopRepository = {
   /** Orders of a center paid during [from, to). */
   paidBetween(centerId: number, from: Date, to: Date): Promise<Order[]> {
     return Order.findAll({ where: { centerId, paidAt: { [Op.gte]: from, [Op.lt]: to } } });
+  },
+  /**
+   * A center's takings per local day of `timeZone` for the local dates [from, to] (both included), in one currency:
+   * orders paid and their amount, and refunds made, each on the local day it happened.
+   */
+  async takingsByDay(
+    centerId: number,
+    timeZone: string,
+    from: string,
+    to: string,
+    currency: string,
+  ): Promise<{ date: string; orders: number; paidCents: number; refundedCents: number }[]> {
+    const [rows] = await sequelize.query(
+      `WITH bounds AS (
+         SELECT (CAST(:from AS date)::timestamp AT TIME ZONE :tz) AS lo,
+                ((CAST(:to AS date) + 1)::timestamp AT TIME ZONE :tz) AS hi
+       ),
+       paid AS (
+         SELECT to_char((o.paid_at AT TIME ZONE :tz)::date, 'YYYY-MM-DD') AS day, count(*)::int AS orders, sum(o.amount_cents)::bigint AS cents
+           FROM orders o, bounds b
+          WHERE o.center_id = :centerId AND o.currency = :currency AND o.paid_at >= b.lo AND o.paid_at < b.hi
+          GROUP BY 1
+       ),
+       refunded AS (
+         SELECT to_char((o.refunded_at AT TIME ZONE :tz)::date, 'YYYY-MM-DD') AS day, sum(o.amount_cents)::bigint AS cents
+           FROM orders o, bounds b
+          WHERE o.center_id = :centerId AND o.currency = :currency AND o.paid_at IS NOT NULL
+            AND o.refunded_at >= b.lo AND o.refunded_at < b.hi
+          GROUP BY 1
+       )
+       SELECT coalesce(p.day, r.day) AS date, coalesce(p.orders, 0) AS orders,
+              coalesce(p.cents, 0)::text AS paid_cents, coalesce(r.cents, 0)::text AS refunded_cents
+         FROM paid p FULL OUTER JOIN refunded r ON r.day = p.day
+        ORDER BY 1`,
+      { replacements: { centerId, tz: timeZone, from, to, currency } },
+    );
+    return (rows as { date: string; orders: number; paid_cents: string; refunded_cents: string }[]).map((r) => ({
+      date: r.date,
+      orders: Number(r.orders),
+      paidCents: Number(r.paid_cents),
+      refundedCents: Number(r.refunded_cents),
+    }));
+  },
+  /** A center's takings by service over the local dates [from, to] of `timeZone`, in one currency. */
+  async takingsByService(
+    centerId: number,
+    timeZone: string,
+    from: string,
+    to: string,
+    currency: string,
+  ): Promise<{ serviceId: number; name: string; count: number; cents: number }[]> {
+    const [rows] = await sequelize.query(
+      `SELECT coalesce(o.service_id, 0) AS service_id, min(o.service_name) AS name, count(*)::int AS count, sum(o.amount_cents)::text AS cents
+         FROM orders o
+        WHERE o.center_id = :centerId AND o.currency = :currency
+          AND o.paid_at >= (CAST(:from AS date)::timestamp AT TIME ZONE :tz)
+          AND o.paid_at < ((CAST(:to AS date) + 1)::timestamp AT TIME ZONE :tz)
+        GROUP BY 1`,
+      { replacements: { centerId, tz: timeZone, from, to, currency } },
+    );
+    return (rows as { service_id: number; name: string; count: number; cents: string }[]).map((r) => ({
+      serviceId: Number(r.service_id),
+      name: r.name,
+      count: Number(r.count),
+      cents: Number(r.cents),
+    }));
+  },
+  /** The instants a local date of `timeZone` starts and ends at (PostgreSQL's time-zone rules). */
+  async localDayBounds(date: string, timeZone: string): Promise<{ from: Date; to: Date }> {
+    const [rows] = await sequelize.query(
+      `SELECT (CAST(:date AS date)::timestamp AT TIME ZONE :tz) AS "from", ((CAST(:date AS date) + 1)::timestamp AT TIME ZONE :tz) AS "to"`,
+      { replacements: { date, tz: timeZone } },
+    );
+    const r = (rows as { from: Date | string; to: Date | string }[])[0]!;
+    return { from: new Date(r.from), to: new Date(r.to) };
+  },
+  /** The currency a center's takings are counted in: that of its newest paid order, else of its price list. */
+  async takingsCurrency(centerId: number): Promise<string | null> {
+    const o = await Order.findOne({
+      where: { centerId, paidAt: { [Op.ne]: null } },
+      order: [['paidAt', 'DESC']],
+      attributes: ['currency'],
+    });
+    if (o) return o.currency;
+    const s = await ShopService.findOne({ where: { centerId }, order: [['id', 'ASC']], attributes: ['currency'] });
+    return s?.currency ?? null;
   },
   /** Refunds of a center's orders made during [from, to). */
   refundedBetween(centerId: number, from: Date, to: Date): Promise<Order[]> {

@@ -14,6 +14,7 @@ import {
   ShopServiceSchema,
   TakingsQuerySchema,
   TakingsSchema,
+  WalkInOrderSchema,
 } from '../../../shared/shop';
 import { requireAuth } from '../../middleware/auth';
 import { route, type RouteGroup } from '../../http/route';
@@ -74,12 +75,38 @@ export const shopCenterRoutes: RouteGroup = {
     route({
       method: 'get',
       path: '/:id/takings',
-      summary: 'The day’s card takings: paid, refunded, net, by service (its proprietor only)',
+      summary:
+        'Takings of a day (date) or a range (from, to; at most 92 days) in the center’s time zone: paid, refunded, net, each day and by service (its proprietor only)',
       access: 'signed-in',
       params: IdParamSchema,
       query: TakingsQuerySchema,
       response: itemOf(TakingsSchema),
-      handler: async ({ user, params, query }) => ({ item: await takingsService.takings(user, params.id, query.date) }),
+      handler: async ({ user, params, query }) => ({ item: await takingsService.takings(user, params.id, query) }),
+    }),
+    route({
+      method: 'get',
+      path: '/:id/takings.csv',
+      summary: 'The takings of a day or a range of days (from, to: the center’s local dates) as a CSV file (its proprietor only)',
+      access: 'signed-in',
+      params: IdParamSchema,
+      query: TakingsQuerySchema,
+      response: { contentType: 'text/csv', description: 'One line per day, a total line and the takings by service, as an attachment' },
+      handler: async ({ user, params, query, res }) => {
+        const f = await takingsService.takingsCsv(user, params.id, query);
+        res.type('text/csv; charset=utf-8').setHeader('Content-Disposition', `attachment; filename="${f.filename}"`);
+        res.send(f.csv);
+      },
+    }),
+    route({
+      method: 'post',
+      path: '/:id/orders',
+      status: 201,
+      summary: 'Take a walk-in order at the counter for a customer without an account (its proprietor; paid at the counter)',
+      access: 'signed-in',
+      params: IdParamSchema,
+      body: WalkInOrderSchema,
+      response: Order,
+      handler: async ({ user, params, body }) => ({ item: await ordersService.createWalkIn(user, params.id, body) }),
     }),
   ],
 };
@@ -145,6 +172,15 @@ export const ordersRoutes: RouteGroup = {
       body: OrderStatusChangeSchema,
       response: Order,
       handler: async ({ user, params, body }) => ({ item: await ordersService.setStatus(user, params.id, body.status) }),
+    }),
+    route({
+      method: 'post',
+      path: '/:id/status/undo',
+      access: 'signed-in',
+      summary: 'Undo the shop’s last move of an order (in progress or collected) within two minutes, by whoever made it',
+      params: IdParamSchema,
+      response: Order,
+      handler: async ({ user, params }) => ({ item: await ordersService.undoMove(user, params.id) }),
     }),
     route({
       method: 'post',

@@ -1,7 +1,7 @@
 import crypto from 'node:crypto';
 import { api, createUser } from '../../helpers/api';
 import { createBall, createCenter, createModel, createPattern } from '../../helpers/fixtures';
-import { Condition, EmailVerification, Follow, ShopService } from '../../../server/models/index';
+import { Condition, EmailVerification, Follow, League, ShopService } from '../../../server/models/index';
 import { event, getOrder, listenForWebhooks, signature, submitCard, waitFor } from '../shop/shopHelpers';
 import type { Ball, Center, Pattern, User } from '../../../server/models/index';
 
@@ -63,6 +63,8 @@ export interface Fixture {
   freshServiceId(): Promise<{ id: number; version: number }>;
   /** A new equipment trial of owner: one fresh ball on two surfaces. */
   freshTrial(): Promise<number>;
+  /** A new league of owner's (for routes that change or delete one). */
+  freshLeague(): Promise<number>;
   /**
    * A new order of owner at center, unpaid or paid by card on the payment fake's page. Paid orders are always paid
    * through the fake, never by a made-up webhook alone: the payment service must know every payment in this
@@ -190,6 +192,22 @@ export async function buildFixture(): Promise<Fixture> {
         });
       if (r.status !== 201) throw new Error(`fixture: trial answered ${r.status} ${JSON.stringify(r.body)}`);
       return r.body.item.id as number;
+    },
+    async freshLeague() {
+      const l = await League.create({
+        userId: owner.user.id,
+        name: `League ${crypto.randomUUID().slice(0, 8)}`,
+        centerId: null,
+        weekday: 2,
+        seasonStart: '2026-09-01',
+        seasonEnd: null,
+        gamesPerNight: 3,
+        handicapBasis: 220,
+        handicapPercent: 90,
+        handicapMax: null,
+        enteringAverage: null,
+      });
+      return l.id;
     },
     async freshServiceId() {
       const sv = await ShopService.create({

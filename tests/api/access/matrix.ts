@@ -1,5 +1,6 @@
 import type { Actor, Fixture } from './fixture';
 import { TINY_PNG } from './fixture';
+import { api } from '../../helpers/api';
 
 /** What one matrix cell sends. */
 export interface CellRequest {
@@ -258,6 +259,10 @@ export const MATRIX: Record<string, MatrixEntry> = {
     req: (f) => ({ url: `/api/centers/${f.center.id}/conditions/current.pdf` }),
     expect: all(200),
   },
+  'GET /api/centers/:id/conditions/lane-groups': {
+    req: (f) => ({ url: `/api/centers/${f.center.id}/conditions/lane-groups` }),
+    expect: all(200),
+  },
   'GET /api/centers/:id/conditions': { req: (f) => ({ url: `/api/centers/${f.center.id}/conditions` }), expect: all(200) },
   'POST /api/centers/:id/conditions': {
     req: (f) => ({ url: `/api/centers/${f.center.id}/conditions`, body: { patternId: f.pattern.id, lanes: [20], validFrom: today() } }),
@@ -269,6 +274,16 @@ export const MATRIX: Record<string, MatrixEntry> = {
   'GET /api/follows': { req: () => ({ url: '/api/follows' }), expect: signedIn(200) },
   'GET /api/unsubscribe': {
     req: async (f) => ({ url: `/api/unsubscribe?token=${await f.freshUnsubscribeToken()}` }),
+    expect: all(303),
+    note: 'the old e-mail link: sends everyone to the page that asks first, and changes nothing',
+  },
+  'GET /api/unsubscribe/info': {
+    req: async (f) => ({ url: `/api/unsubscribe/info?token=${await f.freshUnsubscribeToken()}` }),
+    expect: all(200),
+    note: 'the token in the e-mail is the credential',
+  },
+  'POST /api/unsubscribe/undo': {
+    req: async (f) => ({ url: '/api/unsubscribe/undo', body: { token: await f.freshUnsubscribeToken() } }),
     expect: all(200),
     note: 'the token in the e-mail is the credential',
   },
@@ -358,6 +373,31 @@ export const MATRIX: Record<string, MatrixEntry> = {
   },
   'GET /api/plans': { req: () => ({ url: '/api/plans' }), expect: signedIn(200) },
 
+  // ── leagues (the bowler's own; anyone else 404) ───────────────────────────────────────────
+  'GET /api/leagues': { req: () => ({ url: '/api/leagues' }), expect: signedIn(200) },
+  'POST /api/leagues': {
+    req: () => ({
+      url: '/api/leagues',
+      body: { name: 'Matrix league', seasonStart: '2026-09-01', handicap: { basis: 220, percentage: 90 } },
+    }),
+    expect: signedIn(201),
+  },
+  'GET /api/leagues/:id': { req: async (f) => ({ url: `/api/leagues/${await f.freshLeague()}` }), expect: ownOnly(200) },
+  'PATCH /api/leagues/:id': {
+    req: async (f) => ({ url: `/api/leagues/${await f.freshLeague()}`, body: { enteringAverage: 180 } }),
+    expect: ownOnly(200),
+  },
+  'DELETE /api/leagues/:id': { req: async (f) => ({ url: `/api/leagues/${await f.freshLeague()}` }), expect: ownOnly(204) },
+  'GET /api/leagues/:id/standing': { req: async (f) => ({ url: `/api/leagues/${await f.freshLeague()}/standing` }), expect: ownOnly(200) },
+  'GET /api/leagues/:id/season.csv': {
+    req: async (f) => ({ url: `/api/leagues/${await f.freshLeague()}/season.csv` }),
+    expect: ownOnly(200),
+  },
+
+  // ── ball upkeep (the bowler's own balls) ──────────────────────────────────────────────────
+  'GET /api/upkeep': { req: () => ({ url: '/api/upkeep' }), expect: signedIn(200) },
+  'PATCH /api/upkeep/:id': { req: (f) => ({ url: `/api/upkeep/${f.ball.id}`, body: { extractionGames: 40 } }), expect: ownOnly(200) },
+
   // ── decisions: trials (owner's; a linked coach reads), coverage, the layout lab ───────────────
   'GET /api/trials': { req: () => ({ url: '/api/trials' }), expect: signedIn(200) },
   'POST /api/trials': {
@@ -415,6 +455,33 @@ export const MATRIX: Record<string, MatrixEntry> = {
   'GET /api/centers/:id/takings': {
     req: (f) => ({ url: `/api/centers/${f.center.id}/takings` }),
     expect: [401, 403, 403, 403, 403, 200, 403, 403],
+  },
+  'GET /api/centers/:id/takings.csv': {
+    req: (f) => ({ url: `/api/centers/${f.center.id}/takings.csv?from=2026-11-01&to=2026-11-07` }),
+    expect: [401, 403, 403, 403, 403, 200, 403, 403],
+  },
+  'POST /api/centers/:id/orders': {
+    req: (f) => ({
+      url: `/api/centers/${f.center.id}/orders`,
+      body: {
+        serviceId: f.serviceId,
+        customerName: 'Walk-in Customer',
+        customerContact: '555-0100',
+        ballDescription: 'Green solid, 14 lb',
+      },
+    }),
+    expect: [401, 403, 403, 403, 403, 201, 403, 403],
+    note: 'a walk-in order at the counter: the center’s proprietor only',
+  },
+  'POST /api/orders/:id/status/undo': {
+    req: async (f) => {
+      const id = await f.freshOrderId('card');
+      const moved = await api.patch(`/api/orders/${id}/status`).set(f.as('proprietorThis')).send({ status: 'in_progress' });
+      if (moved.status !== 200) throw new Error(`fixture: move answered ${moved.status}`);
+      return { url: `/api/orders/${id}/status/undo` };
+    },
+    expect: [401, 403, 404, 404, 404, 200, 404, 404],
+    note: 'undoes the proprietor’s own move just made',
   },
   'POST /api/orders': {
     req: async (f, actor) => ({ url: '/api/orders', body: { serviceId: f.serviceId, ballId: await f.ballOf(actor) } }),

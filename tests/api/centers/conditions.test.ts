@@ -93,7 +93,7 @@ describe('publishing a condition', () => {
       await api
         .post(`/api/centers/${center.id}/conditions`)
         .set(owner.auth)
-        .send({ patternId: second.id, lanes: [2, 3], validFrom: today() })
+        .send({ patternId: second.id, lanes: [1, 2, 3], validFrom: today() })
     ).body.item;
     const history = await api.get(`/api/centers/${center.id}/conditions`);
     expect(history.status).toBe(200);
@@ -246,7 +246,7 @@ describe('the public current condition', () => {
     expect(flat).toContain(pattern.name);
     expect(flat).toContain(`${pattern.summary.lengthFt} ft`);
     expect(flat).toContain(`${pattern.summary.volumeMl.toFixed(2)} mL`);
-    expect(flat).toContain('Lanes: 1–12');
+    expect(flat).toContain('Lanes 1–12');
     expect(flat).toContain('Stripped nightly');
   });
 });
@@ -285,14 +285,16 @@ describe('followers', () => {
     expect(m1.text).toContain(pattern.name);
     expect(await MailOutbox.count({ where: { ref: `${pub.body.item.id}:${f1.user.id}`, status: 'sent' } })).toBe(1);
 
-    // The unsubscribe link works without sign-in, once.
-    const link = /\/api\/unsubscribe\?token=([\w-]+)/.exec(m1.text);
+    // The unsubscribe link opens a page that asks first; its POST works without sign-in, once.
+    const link = /\/unsubscribe\?token=([\w-]+)/.exec(m1.text);
     expect(link).not.toBeNull();
-    const un = await api.get(`/api/unsubscribe?token=${link![1]}`);
+    expect((await api.get(`/api/unsubscribe?token=${link![1]}`)).status).toBe(303);
+    expect(await Follow.count({ where: { centerId: center.id, userId: f1.user.id } })).toBe(1);
+    const un = await api.post('/api/unsubscribe').send({ token: link![1] });
     expect(un.status).toBe(200);
-    expect(un.text).toContain(center.name);
+    expect(un.body.center).toBe(center.name);
     expect(await Follow.count({ where: { centerId: center.id, userId: f1.user.id } })).toBe(0);
-    expect((await api.get(`/api/unsubscribe?token=${link![1]}`)).status).toBe(404);
+    expect((await api.post('/api/unsubscribe').send({ token: link![1] })).status).toBe(404);
   });
 
   it('lists my followed centers with their current condition, and unfollow removes one', async () => {

@@ -139,6 +139,10 @@ describe('the day’s takings', () => {
     expect(res.status).toBe(200);
     expect(res.body.item).toEqual({
       date: today,
+      from: today,
+      to: today,
+      timeZone: 'UTC',
+      days: [{ date: today, orders: 3, paidCents: 4500 + 4500 + 2500, refundedCents: 4500, netCents: 4500 + 2500 }],
       currency: 'usd',
       orders: 3,
       paidCents: 4500 + 4500 + 2500,
