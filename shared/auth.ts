@@ -5,6 +5,45 @@ export const ROLES = ['bowler', 'coach', 'proprietor', 'admin'] as const;
 export const RoleSchema = z.enum(ROLES);
 export type Role = z.infer<typeof RoleSchema>;
 
+/** Highest first: a user's `role` is the highest role they hold (the one existing screens and checks read). */
+export const ROLE_RANK: readonly Role[] = ['admin', 'proprietor', 'coach', 'bowler'];
+
+/** The highest role of a set (bowler for an empty one). */
+export function primaryRole(roles: readonly Role[]): Role {
+  return ROLE_RANK.find((r) => roles.includes(r)) ?? 'bowler';
+}
+
+/** Whether a user holds a role (any of their roles; `role` alone for a record without the set). */
+export function holdsRole(user: { role: Role; roles?: readonly Role[] }, ...wanted: Role[]): boolean {
+  const held = user.roles && user.roles.length ? user.roles : [user.role];
+  return wanted.some((r) => held.includes(r));
+}
+
+/**
+ * Which roles one account may hold together: a bowler, coach and proprietor may be any mix (a proprietor who bowls
+ * in the league, a coach who owns a center); an admin account holds admin alone, so the power to change every
+ * account is never mixed into a personal one (a second account bowls). Returns a message or null.
+ */
+export function roleSetProblem(roles: readonly Role[]): string | null {
+  if (roles.length === 0) return 'Choose at least one role';
+  if (new Set(roles).size !== roles.length) return 'A role is listed twice';
+  if (roles.includes('admin') && roles.length > 1)
+    return 'An admin account holds the admin role alone; use a second account to bowl, coach or run a center';
+  return null;
+}
+
+/** PUT /api/admin/users/:id/roles: the whole set of roles the user holds after the change. */
+export const RolesChangeSchema = z.object({
+  roles: z
+    .array(RoleSchema, { error: 'Roles must be a list' })
+    .max(ROLES.length, `At most ${ROLES.length} roles`)
+    .superRefine((roles, ctx) => {
+      const problem = roleSetProblem(roles);
+      if (problem) ctx.addIssue({ code: 'custom', message: problem });
+    }),
+});
+export type RolesChange = z.infer<typeof RolesChangeSchema>;
+
 export const PASSWORD_MIN_LENGTH = 10;
 
 export const EmailSchema = z
@@ -40,6 +79,8 @@ export const UserSchema = z.object({
   email: z.string(),
   displayName: z.string(),
   role: RoleSchema,
+  /** Every role the user holds (`role` is the highest of them). */
+  roles: z.array(RoleSchema),
   /** Whether the user has followed the verification link mailed to their address. */
   emailVerified: z.boolean(),
   createdAt: z.string(),
@@ -84,6 +125,10 @@ export interface Page<T> {
 export const AuditEventSchema = z.object({
   id: z.number().int(),
   actorId: z.number().int().nullable(),
+  /** The actor's display name (null for the system or a deleted user). */
+  actorName: z.string().nullable(),
+  /** A readable name of the subject where one is known (a user's or center's name, a ball's maker and name). */
+  subjectName: z.string().nullable(),
   action: z.string(),
   subjectType: z.string(),
   subjectId: z.string(),
@@ -91,6 +136,25 @@ export const AuditEventSchema = z.object({
   createdAt: z.string(),
 });
 export type AuditEvent = z.infer<typeof AuditEventSchema>;
+
+const isoDay = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'A date as YYYY-MM-DD');
+
+/** Filters of the audit log: who, which action, and days (inclusive, UTC). */
+export const AuditQuerySchema = PageQuerySchema.extend({
+  actorId: z.coerce.number({ error: 'Must be a number' }).int().positive().max(2147483647).optional(),
+  action: z
+    .string()
+    .trim()
+    .min(1)
+    .max(64)
+    .regex(/^[a-z_.]+$/, 'An action name such as user.roles_changed')
+    .optional(),
+  from: isoDay.optional(),
+  to: isoDay.optional(),
+}).refine((q) => !q.from || !q.to || q.from <= q.to, { path: ['to'], message: 'The end date must not be before the start date' });
+export type AuditQuery = z.infer<typeof AuditQuerySchema>;
+
+export const AuditActionsSchema = z.object({ items: z.array(z.string()) });
 
 export const ForgotSchema = z.object({ email: EmailSchema });
 export type ForgotInput = z.infer<typeof ForgotSchema>;

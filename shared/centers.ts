@@ -29,6 +29,22 @@ export function laneSurfaceText(lane: LaneSurface): string {
 
 const isoDate = z.iso.date({ error: 'Use a date like 2026-12-01' });
 
+/** An IANA time zone name the runtime knows (checked with Intl, so "Mars/Olympus" and "+05:00" are refused). */
+export const TimeZoneSchema = z
+  .string({ error: 'Choose a time zone' })
+  .trim()
+  .min(1, 'Choose a time zone')
+  .max(64)
+  .refine((tz) => {
+    if (!/^[A-Za-z_]+(\/[A-Za-z0-9_+-]+)*$/.test(tz)) return false;
+    try {
+      new Intl.DateTimeFormat('en', { timeZone: tz });
+      return true;
+    } catch {
+      return false;
+    }
+  }, 'Not a time zone name such as America/Denver');
+
 /** ISO 8601 day numbers: 1 Monday … 7 Sunday. */
 export const WEEKDAY_NAMES = ['Monday', 'Tuesday', 'Wednesday', 'Thursday', 'Friday', 'Saturday', 'Sunday'] as const;
 export const WeekdaysSchema = z
@@ -58,6 +74,8 @@ export const CenterInputSchema = z
     town: z.string().trim().min(1, 'Town is required').max(80).refine(isSafeName, UNSAFE_NAME_MESSAGE),
     laneCount: z.number({ error: 'Must be a number' }).int().min(1, 'At least 1 lane').max(120, 'At most 120 lanes'),
     ownerId: z.number().int().positive().nullable().optional(),
+    /** The center's IANA time zone ("America/Denver"); its days are reckoned in it. Default UTC. */
+    timeZone: TimeZoneSchema.optional(),
   })
   .strict();
 export type CenterInput = z.infer<typeof CenterInputSchema>;
@@ -69,6 +87,8 @@ export const CenterSchema = z.object({
   town: z.string(),
   laneCount: z.number().int(),
   ownerId: z.number().int().nullable(),
+  /** IANA time zone name. */
+  timeZone: z.string(),
   following: z.boolean().optional(),
 });
 export type Center = z.infer<typeof CenterSchema>;

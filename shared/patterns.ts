@@ -20,11 +20,24 @@ export const SweepSchema = z
   .strict()
   .refine((s) => s.endFt > s.startFt, { path: ['endFt'], message: 'End must be after start' }) satisfies z.ZodType<Sweep>;
 
+/**
+ * Who sees a pattern: `draft` its owner only; `shared` its owner and the staff of one center (`centerId`: its
+ * proprietor); `published` every user. Admins see every pattern. A condition published on the lanes keeps its own
+ * copy of the sweeps, so editing a pattern never changes what the lanes show.
+ */
+export const PATTERN_VISIBILITIES = ['draft', 'shared', 'published'] as const;
+export const PatternVisibilitySchema = z.enum(PATTERN_VISIBILITIES, { error: 'Draft, shared or published' });
+export type PatternVisibility = z.infer<typeof PatternVisibilitySchema>;
+
 export const PatternInputSchema = z
   .object({
     name: z.string().trim().min(1, 'Name is required').max(80).refine(isSafeName, UNSAFE_NAME_MESSAGE),
     description: z.string().trim().max(1000).nullable().optional(),
     sweeps: z.array(SweepSchema).min(1, 'At least one sweep').max(200, 'At most 200 sweeps'),
+    /** New patterns start as drafts. */
+    visibility: PatternVisibilitySchema.optional(),
+    /** The center whose staff see a shared pattern. */
+    centerId: z.number({ error: 'Choose a center' }).int().positive().nullable().optional(),
   })
   .strict();
 export type PatternInput = z.infer<typeof PatternInputSchema>;
@@ -32,11 +45,19 @@ export const PatternPatchSchema = PatternInputSchema.partial()
   .extend({ version: z.number().int().min(0) })
   .strict();
 
+/** What an import does when you already have a pattern of the file's name. */
+export const PatternImportConflictSchema = z.object({
+  onConflict: z.enum(['rename', 'replace'], { error: 'Rename or replace' }).optional(),
+});
+
 export const PatternQuerySchema = PageQuerySchema.extend({
   q: z.string().trim().max(100).optional(),
   lengthClass: z.enum(['short', 'medium', 'long']).optional(),
   volumeClass: z.enum(['light', 'medium', 'heavy']).optional(),
   ratioClass: z.enum(['sport', 'challenge', 'recreation']).optional(),
+  visibility: PatternVisibilitySchema.optional(),
+  /** Only the caller's own patterns. */
+  mine: z.enum(['true', 'false']).optional(),
   sort: z.enum(['name', 'createdAt', 'lengthFt', 'volumeMl']).default('name'),
   order: z.enum(['asc', 'desc']).default('asc'),
 });
@@ -63,6 +84,10 @@ export const PatternListItemSchema = z.object({
   name: z.string(),
   description: z.string().nullable(),
   ownerId: z.number().int().nullable(),
+  /** The owner's display name (null for the library's own patterns), so same-named patterns can be told apart. */
+  ownerName: z.string().nullable(),
+  visibility: PatternVisibilitySchema,
+  centerId: z.number().int().nullable(),
   summary: PatternSummarySchema,
   version: z.number().int(),
   createdAt: z.string(),

@@ -3,7 +3,7 @@ import type { NextFunction, Request, Response } from 'express';
 import jwt from 'jsonwebtoken';
 import passport from 'passport';
 import { ExtractJwt, Strategy as JwtStrategy } from 'passport-jwt';
-import type { Role } from '../../shared/auth';
+import { holdsRole, type Role } from '../../shared/auth';
 import { config } from '../config/index';
 import { AppError } from '../lib/AppError';
 import { ScopedCache } from '../lib/changeFeed';
@@ -16,7 +16,10 @@ export interface AuthUser {
   id: number;
   email: string;
   displayName: string;
+  /** The highest role held (as before roles became a set). */
   role: Role;
+  /** Every role held: authorisation checks read these (`holdsRole`). */
+  roles: Role[];
 }
 
 declare global {
@@ -67,6 +70,7 @@ interface AuthRow {
   email: string;
   display_name: string;
   role: Role;
+  roles: Role[];
   token_version: number;
   wrote_at: Date | null;
 }
@@ -78,7 +82,7 @@ async function authRow(id: number): Promise<AuthRow | null> {
   if (hit !== undefined) return hit;
   const ticket = authRows.ticket(id);
   const [u] = await sequelize.query<AuthRow>(
-    'SELECT u.id, u.email, u.display_name, u.role, u.token_version, w.at AS wrote_at FROM users u LEFT JOIN user_write_marks w ON w.user_id = u.id WHERE u.id = :id',
+    'SELECT u.id, u.email, u.display_name, u.role, u.roles, u.token_version, w.at AS wrote_at FROM users u LEFT JOIN user_write_marks w ON w.user_id = u.id WHERE u.id = :id',
     { replacements: { id }, type: QueryTypes.SELECT, useMaster: true },
   );
   // An unknown id is never cached (only a committed user row is); nor is anything with replicas, where the write mark
@@ -120,7 +124,7 @@ passport.use(
           if (!u || u.token_version !== payload.ver) return done(null, false);
           const ctx = requestContext.getStore();
           if (ctx && u.wrote_at && Date.now() - new Date(u.wrote_at).getTime() < config.READ_YOUR_WRITES_MS) ctx.replicaReads = false;
-          return done(null, { id: u.id, email: u.email, displayName: u.display_name, role: u.role });
+          return done(null, { id: u.id, email: u.email, displayName: u.display_name, role: u.role, roles: u.roles });
         })
         .catch((err: unknown) => done(err));
     },
@@ -152,7 +156,7 @@ export function requireAuth(req: Request, res: Response, next: NextFunction): vo
 export function requireRole(...roles: Role[]) {
   return (req: Request, _res: Response, next: NextFunction): void => {
     if (!req.user) return next(AppError.unauthorized());
-    if (!roles.includes(req.user.role)) return next(AppError.forbidden('Your role does not allow this'));
+    if (!holdsRole(req.user, ...roles)) return next(AppError.forbidden('Your role does not allow this'));
     next();
   };
 }

@@ -1,6 +1,14 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
+import {
+  DataTypes,
+  Model,
+  type NonAttribute,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize';
 import type { Sweep } from '../../engine/types';
-import type { PatternSummary } from '../../shared/patterns';
+import type { PatternSummary, PatternVisibility } from '../../shared/patterns';
 
 /** An oil pattern: its sweeps and the engine's summary of them, computed on every save. */
 export class Pattern extends Model<InferAttributes<Pattern>, InferCreationAttributes<Pattern>> {
@@ -10,6 +18,10 @@ export class Pattern extends Model<InferAttributes<Pattern>, InferCreationAttrib
   declare description: string | null;
   declare sweeps: Sweep[];
   declare summary: PatternSummary;
+  declare visibility: CreationOptional<PatternVisibility>;
+  declare centerId: CreationOptional<number | null>;
+  /** Loaded with `include: owner` where lists show the owner's name. */
+  declare owner?: NonAttribute<{ displayName: string } | null>;
   declare version: CreationOptional<number>;
   declare deletedAt: CreationOptional<Date | null>;
   declare createdAt: CreationOptional<Date>;
@@ -24,6 +36,8 @@ export class Pattern extends Model<InferAttributes<Pattern>, InferCreationAttrib
         description: { type: DataTypes.STRING(1000), allowNull: true },
         sweeps: { type: DataTypes.JSONB, allowNull: false },
         summary: { type: DataTypes.JSONB, allowNull: false },
+        visibility: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'published' },
+        centerId: { type: DataTypes.INTEGER, allowNull: true, defaultValue: null },
         version: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         deletedAt: { type: DataTypes.DATE, allowNull: true },
         createdAt: DataTypes.DATE,

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize';
-import type { Role } from '../../shared/auth';
+import { primaryRole, type Role } from '../../shared/auth';
 
 export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
   declare id: CreationOptional<number>;
@@ -7,6 +7,8 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare passwordHash: string;
   declare displayName: string;
   declare role: CreationOptional<Role>;
+  /** Every role held; `role` is the highest of them. */
+  declare roles: CreationOptional<Role[]>;
   /** Bumped to invalidate every token issued before (password reset). */
   declare tokenVersion: CreationOptional<number>;
   /** When the user proved they read their address (the mailed verification link); null until then. */
@@ -22,6 +24,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         passwordHash: { type: DataTypes.STRING(100), allowNull: false },
         displayName: { type: DataTypes.STRING(80), allowNull: false },
         role: { type: DataTypes.STRING(16), allowNull: false, defaultValue: 'bowler' },
+        roles: { type: DataTypes.ARRAY(DataTypes.STRING(16)), allowNull: false, defaultValue: ['bowler'] },
         tokenVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         emailVerifiedAt: { type: DataTypes.DATE, allowNull: true, defaultValue: null },
         createdAt: DataTypes.DATE,
@@ -29,5 +32,17 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
       },
       { sequelize, tableName: 'users' },
     );
+    // `role` and `roles` stay in step: a new set decides the highest role; a lone `role` written by older code
+    // (or a new user given only a role) becomes the whole set.
+    User.addHook('beforeSave', (u: User) => {
+      if (u.isNewRecord) {
+        const onlyDefault = !u.roles || (u.roles.length === 1 && u.roles[0] === 'bowler');
+        if (onlyDefault) u.roles = [u.role ?? 'bowler'];
+        else u.role = primaryRole(u.roles);
+        return;
+      }
+      if (u.changed('roles')) u.role = primaryRole(u.roles);
+      else if (u.changed('role')) u.roles = [u.role];
+    });
   }
 }

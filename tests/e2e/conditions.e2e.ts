@@ -300,14 +300,18 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
     await screenshot(page, 'pattern-import-errors-desktop');
 
     await page.getByLabel('Pattern file to import').setInputFiles({ name: 'tideline.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
-    await page.getByText(`${PATTERN_NAME} was created from tideline.csv.`).waitFor();
+    // Names are unique per owner: the import of a name in use asks to rename or replace.
+    const conflict = page.getByRole('dialog', { name: 'You already have a pattern of this name' });
+    await conflict.waitFor();
+    await conflict.getByRole('button', { name: `Import as “${PATTERN_NAME} (2)”` }).click();
+    await page.getByText(`${PATTERN_NAME} (2) was created from tideline.csv.`).waitFor();
     await page.waitForURL((url) => /\/patterns\/\d+\/edit$/.test(url.pathname) && url.href !== editUrl);
     await expectNumber(page, 'volume', '18.00 mL');
 
     await page.getByRole('button', { name: 'Duplicate' }).click();
     await page.getByText('Pattern duplicated', { exact: true }).waitFor();
     // The editor has loaded the copy (its sweeps replace the rows) before the rows are reordered.
-    await eventually(() => page.getByLabel('Pattern name').inputValue()).toBe(`${PATTERN_NAME} (copy)`);
+    await eventually(() => page.getByLabel('Pattern name').inputValue()).toBe(`${PATTERN_NAME} (2) (copy)`);
     await expectNumber(page, 'volume', '18.00 mL');
 
     // Reordering with the keyboard: the moved row keeps the focus; the order does not change the numbers.
@@ -317,5 +321,16 @@ describe('conditions: build a pattern, publish it, read it publicly and as a fol
     await eventually(() => page.evaluate(() => document.activeElement?.getAttribute('aria-label'))).toBe('Move sweep 3 up');
     await expectNumber(page, 'volume', '18.00 mL');
     await page.getByText('Unsaved changes').waitFor();
+
+    // An import over unsaved edits asks first; "Stay" keeps the edits and imports nothing.
+    const copyUrl = page.url();
+    await page.getByLabel('Pattern file to import').setInputFiles({ name: 'tideline.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+    const ask = page.getByRole('dialog', { name: 'Import and drop your changes?' });
+    await ask.getByRole('button', { name: 'Stay on this page' }).click();
+    await ask.waitFor({ state: 'hidden' });
+    expect(page.url()).toBe(copyUrl);
+    await page.getByText('Unsaved changes').waitFor();
+    expect(await page.getByLabel('Sweep 3 direction').inputValue()).toBe('reverse');
+    expect(await page.getByRole('dialog', { name: 'You already have a pattern of this name' }).count()).toBe(0);
   });
 });

@@ -20,9 +20,9 @@ export const patternsApi = {
   /** The pattern as a file in one of Lanewright's own formats. */
   exportFile: (id: number, format: PatternFileFormat) => api.get<Blob>(`/patterns/${id}/export`, { query: { format }, asBlob: true }),
   /** A .json or .csv file in Lanewright's formats; a bad file answers 400 with `fields` keyed `lines.<line>.<field>`. */
-  importFile: (file: File) => {
+  importFile: (file: File, onConflict?: 'rename' | 'replace') => {
     const form = new FormData();
     form.append('file', file, file.name);
-    return api.post<{ item: PatternDetail }>('/patterns/import', form);
+    return api.post<{ item: PatternDetail }>('/patterns/import', form, onConflict ? { query: { onConflict } } : undefined);
   },
 };

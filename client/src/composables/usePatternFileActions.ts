@@ -1,5 +1,5 @@
 import { ref, type Ref } from 'vue';
-import { ElNotification } from 'element-plus';
+import { ElMessageBox, ElNotification } from 'element-plus';
 import { errorMessage, isApiRequestError } from '@/api/client';
 import { patternsApi, type PatternFileFormat } from '@/api/patterns';
 import { routerPush } from '@/router';
@@ -9,7 +9,29 @@ import { importErrorLines, patternFileName } from '@/utils/patternFiles';
  * The pattern editor's file actions: duplicate the saved pattern, export it as JSON or CSV, and import a pattern file
  * (its errors listed by line). Each reports its failure in `actionError`; `busy` names the action under way.
  */
-export function usePatternFileActions(id: Readonly<Ref<number | null>>, name: Readonly<Ref<string>>) {
+export interface PatternFileHooks {
+  /** Asked before an import replaces the page: false keeps the page and its edits (nothing is sent). */
+  mayLeave?: () => Promise<boolean>;
+  /** Opens the imported pattern (the page's own leave check is already answered). */
+  open?: (id: number) => Promise<void>;
+}
+
+/** An import of a name you already use: import it under the free name, replace yours, or nothing (null). */
+async function askNameConflict(message: string, suggested: string): Promise<'rename' | 'replace' | null> {
+  try {
+    await ElMessageBox.confirm(message, 'You already have a pattern of this name', {
+      confirmButtonText: `Import as “${suggested}”`,
+      cancelButtonText: 'Replace my pattern',
+      distinguishCancelAndClose: true,
+      type: 'warning',
+    });
+    return 'rename';
+  } catch (action) {
+    return action === 'cancel' ? 'replace' : null;
+  }
+}
+
+export function usePatternFileActions(id: Readonly<Ref<number | null>>, name: Readonly<Ref<string>>, hooks: PatternFileHooks = {}) {
   const busy = ref<'' | 'duplicate' | 'export' | 'import'>('');
   const actionError = ref('');
   const importErrors = ref<{ line: number; text: string }[]>([]);
@@ -60,13 +82,28 @@ export function usePatternFileActions(id: Readonly<Ref<number | null>>, name: Re
     const file = input.files?.[0];
     input.value = '';
     if (!file) return;
+    // Unsaved edits: ask before anything is sent, so "Stay" keeps them and imports nothing.
+    if (hooks.mayLeave && !(await hooks.mayLeave())) return;
     busy.value = 'import';
     actionError.value = '';
     importErrors.value = [];
     try {
-      const res = await patternsApi.importFile(file);
-      ElNotification({ type: 'success', title: 'Pattern imported', message: `${res.item.name} was created from ${file.name}.` });
-      await routerPush('pattern-edit', { params: { id: res.item.id } });
+      let res;
+      try {
+        res = await patternsApi.importFile(file);
+      } catch (err) {
+        if (!(isApiRequestError(err) && err.code === 'name_taken' && err.fields.suggestedName)) throw err;
+        const choice = await askNameConflict(err.message, err.fields.suggestedName);
+        if (!choice) return;
+        res = await patternsApi.importFile(file, choice);
+      }
+      ElNotification({
+        type: 'success',
+        title: 'Pattern imported',
+        message: `${res.item.name} was ${res.item.id === id.value ? 'replaced' : 'created'} from ${file.name}.`,
+      });
+      if (hooks.open) await hooks.open(res.item.id);
+      else await routerPush('pattern-edit', { params: { id: res.item.id } });
     } catch (err) {
       if (isApiRequestError(err) && Object.keys(err.fields).some((k) => k.startsWith('lines.'))) {
         importErrors.value = importErrorLines(err.fields);

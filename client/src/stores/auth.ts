@@ -99,7 +99,8 @@ export const useAuthStore = defineStore('auth', () => {
 
   function hasRole(roles: readonly Role[] | undefined): boolean {
     if (!roles || roles.length === 0) return true;
-    return role.value !== null && roles.includes(role.value);
+    const held = user.value?.roles?.length ? user.value.roles : role.value ? [role.value] : [];
+    return roles.some((r) => held.includes(r));
   }
 
   return {

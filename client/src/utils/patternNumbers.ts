@@ -67,11 +67,26 @@ export const VOLUME_CLASS_LABELS: Readonly<Record<VolumeClass, string>> = {
   heavy: `Heavy (over ${VOLUME_CLASS_ML.heavyAboveMl} mL)`,
 };
 
+/**
+ * Ratio classes in Lanewright's own words. "Sport" is the governing body's name for its 3:1 limit (USBC sport
+ * bowling) and keeps it; the two classes above it are named for how much the pattern forgives a missed target.
+ * The API's values (`challenge`, `recreation`) are unchanged.
+ */
 export const RATIO_CLASS_LABELS: Readonly<Record<RatioClass, string>> = {
   sport: `Sport (${RATIO_CLASS.sportMax}:1 or less)`,
-  challenge: `Challenge (over ${RATIO_CLASS.sportMax}:1, under ${RATIO_CLASS.recreationFrom}:1)`,
-  recreation: `Recreation / house (${RATIO_CLASS.recreationFrom}:1 or more)`,
+  challenge: `Demanding (over ${RATIO_CLASS.sportMax}:1, under ${RATIO_CLASS.recreationFrom}:1)`,
+  recreation: `Forgiving (${RATIO_CLASS.recreationFrom}:1 or more)`,
 };
+
+/** What each class word measures, for the legend beside class names. */
+export const CLASS_WORD_MEANINGS = {
+  length: 'Length: how far down the lane the oil reaches from the foul line (short, medium, long).',
+  volume: 'Volume: how much oil the whole pattern lays, in millilitres (light, medium, heavy).',
+  ratio: `Ratio: oil in the middle of the lane against oil near the edges (${RATIO_RULE}). A low ratio punishes a missed target; a high one steers a stray ball back.`,
+  sport: `Sport: ${RATIO_CLASS.sportMax}:1 or less, the limit the governing body (USBC) sets for its sport-bowling patterns.`,
+  challenge: `Demanding: over ${RATIO_CLASS.sportMax}:1 and under ${RATIO_CLASS.recreationFrom}:1; some room for a miss, less than a typical league night.`,
+  recreation: `Forgiving: ${RATIO_CLASS.recreationFrom}:1 or more; much more oil in the middle, so a ball missed outside comes back.`,
+} as const;
 
 /** Short class names for tables and tags. */
 export const CLASS_SHORT: Readonly<Record<LengthClass | VolumeClass | RatioClass, string>> = {
@@ -81,8 +96,8 @@ export const CLASS_SHORT: Readonly<Record<LengthClass | VolumeClass | RatioClass
   light: 'Light',
   heavy: 'Heavy',
   sport: 'Sport',
-  challenge: 'Challenge',
-  recreation: 'Recreation',
+  challenge: 'Demanding',
+  recreation: 'Forgiving',
 };
 
 const fixed = (value: number, decimals: number): string => value.toFixed(decimals);

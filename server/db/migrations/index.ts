@@ -14,6 +14,7 @@ import * as m0010 from './20261222-0010-change-feed-and-list-indexes';
 import * as m0011 from './20261222-0011-trials';
 import * as m0012 from './20261230-0012-center-time-zone';
 import * as m0013 from './20261230-0013-condition-schedules';
+import * as m0014 from './20261230-0014-roles-and-pattern-visibility';
 import * as m0015 from './20261230-0015-shop-counter';
 import * as m0016 from './20261230-0016-shot-aggregates';
 import * as m0017 from './20261230-0017-leagues-and-lane-pairs';
@@ -43,6 +44,7 @@ export const MIGRATIONS: { name: string; module: MigrationModule }[] = [
   { name: '20261222-0011-trials.ts', module: m0011 },
   { name: '20261230-0012-center-time-zone.ts', module: m0012 },
   { name: '20261230-0013-condition-schedules.ts', module: m0013 },
+  { name: '20261230-0014-roles-and-pattern-visibility.ts', module: m0014 },
   { name: '20261230-0015-shop-counter.ts', module: m0015 },
   { name: '20261230-0016-shot-aggregates.ts', module: m0016 },
   { name: '20261230-0017-leagues-and-lane-pairs.ts', module: m0017 },

@@ -1,4 +1,13 @@
-import { AuditEventSchema, IdParamSchema, PageQuerySchema, RoleChangeSchema, UserListQuerySchema, UserSchema } from '../../../shared/auth';
+import {
+  AuditActionsSchema,
+  AuditEventSchema,
+  AuditQuerySchema,
+  IdParamSchema,
+  RoleChangeSchema,
+  RolesChangeSchema,
+  UserListQuerySchema,
+  UserSchema,
+} from '../../../shared/auth';
 import { pageOf } from '../../../shared/api';
 import { z } from 'zod';
 import { requireAuth, requireRole } from '../../middleware/auth';
@@ -32,13 +41,31 @@ export const adminRoutes: RouteGroup = {
       handler: async ({ user, params, body }) => ({ user: await adminService.setRole(user.id, params.id, body.role) }),
     }),
     route({
+      method: 'put',
+      path: '/users/:id/roles',
+      summary: 'Set every role a user holds (audited; admin is held alone)',
+      access: admin,
+      params: IdParamSchema,
+      body: RolesChangeSchema,
+      response: z.object({ user: UserSchema }),
+      handler: async ({ user, params, body }) => ({ user: await adminService.setRoles(user.id, params.id, body.roles) }),
+    }),
+    route({
+      method: 'get',
+      path: '/audit/actions',
+      summary: 'The action names the audit log holds (for its filter)',
+      access: admin,
+      response: AuditActionsSchema,
+      handler: async () => ({ items: await adminService.auditActions() }),
+    }),
+    route({
       method: 'get',
       path: '/audit',
-      summary: 'The audit log, newest first',
+      summary: 'The audit log, newest first, with names; filter by actor, action and days (UTC)',
       access: admin,
-      query: PageQuerySchema,
+      query: AuditQuerySchema,
       response: pageOf(AuditEventSchema),
-      handler: ({ query }) => adminService.listAudit(query.page, query.pageSize),
+      handler: ({ query }) => adminService.listAudit(query),
     }),
   ],
 };

@@ -8,6 +8,7 @@ export function toUserDto(u: User): UserDto {
     email: u.email,
     displayName: u.displayName,
     role: u.role,
+    roles: u.roles,
     emailVerified: u.emailVerifiedAt != null,
     createdAt: u.createdAt.toISOString(),
   };
@@ -61,7 +62,7 @@ export const userRepository = {
   },
   async list(q: UserListQuery): Promise<{ rows: User[]; count: number }> {
     const where: WhereOptions<User> = {};
-    if (q.role) Object.assign(where, { role: q.role });
+    if (q.role) Object.assign(where, { roles: { [Op.contains]: [q.role] } });
     if (q.q) {
       const like = `%${q.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
       Object.assign(where, { [Op.or]: [{ email: { [Op.iLike]: like } }, { displayName: { [Op.iLike]: like } }] });
@@ -79,6 +80,17 @@ export const userRepository = {
   async setRole(user: User, role: Role, transaction?: Transaction): Promise<User> {
     user.role = role;
     return user.save({ transaction });
+  },
+  /** Replaces the user's roles (the model's hook sets `role` to the highest). */
+  async setRoles(user: User, roles: Role[], transaction?: Transaction): Promise<User> {
+    user.roles = roles;
+    return user.save({ transaction });
+  },
+  /** Display names of users by id (for lists that show who did what). */
+  async namesByIds(ids: number[]): Promise<Map<number, string>> {
+    if (ids.length === 0) return new Map();
+    const rows = await User.findAll({ where: { id: ids }, attributes: ['id', 'displayName'] });
+    return new Map(rows.map((u) => [u.id, u.displayName]));
   },
   /** Closes every open reset token of the user (a newer one replaces them, or one was used). */
   closeResets(userId: number, transaction: Transaction): Promise<unknown> {

@@ -9,6 +9,7 @@ export function toCenterDto(c: Center, following?: boolean): CenterDto {
     town: c.town,
     laneCount: c.laneCount,
     ownerId: c.ownerId,
+    timeZone: c.timeZone,
     ...(following === undefined ? {} : { following }),
   };
 }

@@ -1,6 +1,6 @@
 import esc from 'escape-html';
 import crypto from 'node:crypto';
-import type { Page } from '../../../shared/auth';
+import { holdsRole, type Page } from '../../../shared/auth';
 import {
   laneSurfaceText,
   type Center as CenterDto,
@@ -21,6 +21,7 @@ import type { AuthUser } from '../../middleware/auth';
 import { sequelize, type Center, type Condition } from '../../models/index';
 import { userRepository } from '../auth/user.repository';
 import { patternsRepository } from '../patterns/patterns.repository';
+import { patternsService } from '../patterns/patterns.service';
 import { centersRepository, toCenterDto, toConditionDto } from './centers.repository';
 import { laneRanges } from './lanes';
 import { addDays, laneGroups, localDay, replacedBy, type LaneGroupOf } from './laneGroups';
@@ -89,7 +90,7 @@ export const centersService = {
 
   /** A proprietor's own centers (an admin sees all). */
   async mine(user: AuthUser): Promise<CenterDto[]> {
-    const { rows } = await centersRepository.list({ ownerId: user.role === 'admin' ? undefined : user.id, limit: 500, offset: 0 });
+    const { rows } = await centersRepository.list({ ownerId: holdsRole(user, 'admin') ? undefined : user.id, limit: 500, offset: 0 });
     return rows.map((c) => toCenterDto(c));
   },
 
@@ -97,7 +98,13 @@ export const centersService = {
     return sequelize.transaction(async (transaction) => {
       if (input.ownerId) await assertProprietor(input.ownerId);
       const c = await centersRepository.create(
-        { name: input.name, town: input.town, laneCount: input.laneCount, ownerId: input.ownerId ?? null },
+        {
+          name: input.name,
+          town: input.town,
+          laneCount: input.laneCount,
+          ownerId: input.ownerId ?? null,
+          timeZone: input.timeZone ?? 'UTC',
+        },
         transaction,
       );
       await centersRepository.replaceLanes(c, transaction);
@@ -114,7 +121,7 @@ export const centersService = {
     return sequelize.transaction(async (transaction) => {
       const c = await centersRepository.findById(id, transaction);
       if (!c) throw AppError.notFound('Center');
-      if (actor.role !== 'admin') {
+      if (!holdsRole(actor, 'admin')) {
         if (c.ownerId !== actor.id) throw AppError.forbidden('Only this center’s proprietor can change it');
         if (patch.ownerId !== undefined || patch.laneCount !== undefined)
           throw AppError.forbidden('Only an admin assigns owners and lane counts');
@@ -194,7 +201,8 @@ export const centersService = {
         'body.lanes': `${center.name} has lanes 1–${center.laneCount}; not ${bad.join(', ')}`,
       });
     const pattern = await patternsRepository.findById(input.patternId);
-    if (!pattern) throw AppError.badRequest('That pattern does not exist', { 'body.patternId': 'Unknown pattern' });
+    if (!pattern || !(await patternsService.canSee(actor, pattern)))
+      throw AppError.badRequest('That pattern does not exist', { 'body.patternId': 'Unknown pattern' });
     const base = publicUrl();
     return sequelize.transaction(async (transaction) => {
       const c = await centersRepository.createCondition(
@@ -335,6 +343,6 @@ function undoable(deletedAt: Date): boolean {
 async function assertProprietor(userId: number): Promise<void> {
   const u = await userRepository.findById(userId);
   if (!u) throw AppError.badRequest('That user does not exist', { 'body.ownerId': 'Unknown user' });
-  if (u.role !== 'proprietor')
+  if (!holdsRole(u, 'proprietor'))
     throw AppError.badRequest('The owner must have the proprietor role', { 'body.ownerId': 'Grant the proprietor role first' });
 }

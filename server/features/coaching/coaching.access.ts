@@ -1,4 +1,5 @@
 import type { Transaction } from 'sequelize';
+import { holdsRole } from '../../../shared/auth';
 import { AppError } from '../../lib/AppError';
 import type { AuthUser } from '../../middleware/auth';
 import { coachingRepository } from './coaching.repository';
@@ -8,7 +9,7 @@ import { coachingRepository } from './coaching.repository';
  * revoked. Anyone else gets 404, so a student's existence never leaks.
  */
 export async function isLinkedCoach(coach: AuthUser, studentId: number, transaction?: Transaction): Promise<boolean> {
-  if (coach.role !== 'coach') return false;
+  if (!holdsRole(coach, 'coach')) return false;
   const link = await coachingRepository.activeLink(coach.id, studentId, transaction);
   return link !== null;
 }

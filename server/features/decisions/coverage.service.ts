@@ -69,7 +69,7 @@ export const decisionsService = {
   async layoutLab(user: AuthUser, req: LayoutLabRequest): Promise<LayoutLabResult> {
     const ball = await arsenalRepository.findOwned(user.id, req.ballId);
     if (!ball) throw AppError.badRequest('Check the layout lab', { 'body.ballId': 'Not a ball in your arsenal' });
-    const on = await engineCondition({ patternId: req.patternId, conditionId: req.conditionId });
+    const on = await engineCondition({ patternId: req.patternId, conditionId: req.conditionId, viewer: user });
     const bowler = await bowlerOf(user.id);
     const spec = ballToArsenalBall(ball.get({ plain: true }));
     const items = layoutLab({

@@ -92,7 +92,7 @@ export const matchupsService = {
     const bowlerId = await readableBowlerId(user, req.studentId);
     // The condition, the release and the balls are independent reads: asked for together.
     const [on, bowler, rows] = await Promise.all([
-      engineCondition({ patternId: req.patternId, conditionId: req.conditionId, lane: req.lane }),
+      engineCondition({ patternId: req.patternId, conditionId: req.conditionId, lane: req.lane, viewer: user }),
       bowlerOf(bowlerId) as Promise<BowlerProfile>,
       arsenalRepository.findOwnedMany(bowlerId, req.ballIds),
     ]);

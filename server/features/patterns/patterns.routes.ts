@@ -3,6 +3,7 @@ import { itemOf, pageOf } from '../../../shared/api';
 import {
   PatternDetailSchema,
   PatternExportQuerySchema,
+  PatternImportConflictSchema,
   PatternInputSchema,
   PatternListItemSchema,
   PatternPatchSchema,
@@ -10,7 +11,7 @@ import {
 } from '../../../shared/patterns';
 import { patternFile, uploadedFile } from '../../lib/upload';
 import { requireAuth } from '../../middleware/auth';
-import { NO_CONTENT, route, type RouteGroup } from '../../http/route';
+import { NO_CONTENT, Reply, route, type RouteGroup } from '../../http/route';
 import { patternsService } from './patterns.service';
 
 const editors = ['coach', 'proprietor', 'admin'] as const;
@@ -28,19 +29,23 @@ export const patternsRoutes: RouteGroup = {
       access: 'signed-in',
       query: PatternQuerySchema,
       response: pageOf(PatternListItemSchema),
-      handler: ({ query }) => patternsService.list(query),
+      handler: ({ user, query }) => patternsService.list(user, query),
     }),
     route({
       method: 'post',
       path: '/import',
       status: 201,
-      summary: 'Create a pattern from a Lanewright JSON or CSV file (errors by line)',
+      summary:
+        'Create a draft pattern from a Lanewright JSON or CSV file (errors by line; a name you already use is 409 unless onConflict is rename or replace)',
       access: editors,
       upload: patternFile,
+      query: PatternImportConflictSchema,
       response: Item,
-      handler: async ({ user, req }) => {
+      alsoAnswers: { 200: 'Replaced your pattern of the same name (onConflict=replace)' },
+      handler: async ({ user, req, query }) => {
         const file = uploadedFile(req);
-        return { item: await patternsService.importFile(user, file.originalname, file.buffer) };
+        const out = await patternsService.importFile(user, file.originalname, file.buffer, query.onConflict);
+        return out.replaced ? new Reply(200, { item: out.item }) : { item: out.item };
       },
     }),
     route({
@@ -51,8 +56,8 @@ export const patternsRoutes: RouteGroup = {
       params: IdParamSchema,
       query: PatternExportQuerySchema,
       response: { contentType: 'application/json, text/csv', description: 'The pattern file, as an attachment' },
-      handler: async ({ params, query, res }) => {
-        const f = await patternsService.exportFile(params.id, query.format);
+      handler: async ({ user, params, query, res }) => {
+        const f = await patternsService.exportFile(user, params.id, query.format);
         res.type(f.type).setHeader('Content-Disposition', `attachment; filename="${f.filename}"`);
         res.send(f.body);
       },
@@ -74,7 +79,7 @@ export const patternsRoutes: RouteGroup = {
       access: 'signed-in',
       params: IdParamSchema,
       response: Item,
-      handler: async ({ params }) => ({ item: await patternsService.get(params.id) }),
+      handler: async ({ user, params }) => ({ item: await patternsService.get(user, params.id) }),
     }),
     route({
       method: 'post',

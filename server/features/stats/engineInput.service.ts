@@ -2,6 +2,7 @@ import type { BowlerProfile, LaneSurface, OilPattern } from '../../../engine/typ
 import { DEFAULT_LANE_SURFACE } from '../../../shared/centers';
 import type { PatternSummary } from '../../../shared/patterns';
 import { AppError } from '../../lib/AppError';
+import type { AuthUser } from '../../middleware/auth';
 import { centersRepository, laneOf } from '../centers/centers.repository';
 import { patternsService } from '../patterns/patterns.service';
 import { profileService } from '../profile/profile.service';
@@ -26,7 +27,13 @@ export async function bowlerOf(userId: number): Promise<BowlerProfile> {
  * (its pattern as published and its lane surface; the shots counted are those logged on the pattern it was
  * published from, none when that pattern is gone). 404 for an unknown pattern or condition.
  */
-export async function engineCondition(ref: { patternId?: number; conditionId?: number; lane?: LaneSurface }): Promise<{
+export async function engineCondition(ref: {
+  patternId?: number;
+  conditionId?: number;
+  lane?: LaneSurface;
+  /** Who asks: a plain pattern they may not see is 404 (conditions are public). */
+  viewer?: AuthUser;
+}): Promise<{
   patternId: number | null;
   name: string;
   pattern: OilPattern;
@@ -46,7 +53,7 @@ export async function engineCondition(ref: { patternId?: number; conditionId?: n
       condition: { id: c.id, centerId: c.centerId, centerName: c.center.name, lanes: c.lanes, validFrom: c.validFrom, validTo: c.validTo },
     };
   }
-  const { id, name, pattern, summary } = await patternsService.engineInput(ref.patternId!);
+  const { id, name, pattern, summary } = await patternsService.engineInput(ref.patternId!, ref.viewer);
   const lane = ref.lane ?? DEFAULT_LANE_SURFACE;
   return { patternId: id, name, pattern, summary, lane: { kind: lane.kind, friction: lane.friction }, condition: null };
 }

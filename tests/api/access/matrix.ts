@@ -104,6 +104,11 @@ export const MATRIX: Record<string, MatrixEntry> = {
     expect: adminOnly(200),
   },
   'GET /api/admin/audit': { req: () => ({ url: '/api/admin/audit' }), expect: adminOnly(200) },
+  'GET /api/admin/audit/actions': { req: () => ({ url: '/api/admin/audit/actions' }), expect: adminOnly(200) },
+  'PUT /api/admin/users/:id/roles': {
+    req: async (f) => ({ url: `/api/admin/users/${await f.freshUserId()}/roles`, body: { roles: ['bowler', 'coach'] } }),
+    expect: adminOnly(200),
+  },
 
   // ── catalogue ──────────────────────────────────────────────────────────────────────────────
   'GET /api/catalogue': { req: () => ({ url: '/api/catalogue' }), expect: signedIn(200) },

@@ -98,6 +98,7 @@ describe('GET /api/auth/me', () => {
         email: user.email,
         displayName: user.displayName,
         role: 'proprietor',
+        roles: ['proprietor'],
         emailVerified: true,
         createdAt: user.createdAt.toISOString(),
       },

@@ -16,10 +16,12 @@ describe('pattern files', () => {
     const coach = await createUser('coach');
     const p = await createPattern(coach.user.id, LONG_HEAVY);
     for (const format of ['json', 'csv'] as const) {
+      // Names are unique per owner, so another coach imports each file under the same name.
+      const second = await createUser('coach');
       const file = await api.get(`/api/patterns/${p.id}/export`).query({ format }).set(coach.auth);
       expect(file.status).toBe(200);
       expect(file.headers['content-disposition']).toMatch(/attachment; filename=".*\.lanewright\.(json|csv)"/);
-      const again = await upload(coach.auth, `back.${format}`, file.text);
+      const again = await upload(second.auth, `back.${format}`, file.text);
       expect(again.status).toBe(201);
       expect(again.body.item.sweeps).toEqual(LONG_HEAVY);
       expect(again.body.item.name).toBe(p.name);

@@ -156,6 +156,8 @@ describe('finding 12: deep JSON and malformed webhook events are 400s', () => {
 describe('finding 13: CSV export cells cannot be formulas', () => {
   it('names with formula starts and commas are exported as text cells and import back unchanged', async () => {
     const coach = await createUser('coach');
+    // Names are unique per owner: a second coach imports the files back under the same names.
+    const second = await createUser('coach');
     for (const name of ['=1+2', '@SUM(1)', 'House,=1+2', '+cmd', '-2+3', 'Quote "x",@A1']) {
       const p = await createPattern(coach.user.id, undefined, name);
       await Pattern.update({ description: `Notes,=HYPERLINK("x"),\t@B2` }, { where: { id: p.id } });
@@ -165,7 +167,7 @@ describe('finding 13: CSV export cells cannot be formulas', () => {
       for (const c of cells) expect(c, `cell of ${JSON.stringify(name)}`).not.toMatch(/^[=+\-@\t\r]/);
       const back = await api
         .post('/api/patterns/import')
-        .set(coach.auth)
+        .set(second.auth)
         .attach('file', Buffer.from(file.text), { filename: 'back.csv', contentType: 'text/csv' });
       expect(back.status).toBe(201);
       expect(back.body.item.name).toBe(name);
