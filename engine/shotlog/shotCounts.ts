@@ -1,6 +1,28 @@
+import { integerInRange, record } from '../internal/checks';
 import { analyzeShots } from './internal/analyzeShots';
 import { countsOf, statsFromCounts } from './internal/computeStats';
 import type { ShotCounts, ShotRecord, ShotStats } from './types';
+
+/** The counts every ShotCounts carries (checked by shotStatsOfCounts). */
+const COUNT_KEYS = [
+  'shots',
+  'games',
+  'totalSum',
+  'completeGames',
+  'strikes',
+  'strikeN',
+  'spares',
+  'spareN',
+  'singleMade',
+  'singleN',
+  'multiMade',
+  'multiN',
+  'splitMade',
+  'splitN',
+  'pocket',
+  'pocketN',
+  'carried',
+] as const satisfies readonly (keyof ShotCounts)[];
 
 /**
  * ShotStats from counts: the same definitions as shotStats (common scoresheet usage; Wilson 1927 intervals), the
@@ -9,11 +31,17 @@ import type { ShotCounts, ShotRecord, ShotStats } from './types';
  *
  * @param c ShotCounts (non-negative integers; a tally key other than `fb:` or `leave:` is ignored).
  * @returns the ShotStats those shots give: shotStatsOfCounts(countsOfShots(s)) equals shotStats(s).
- * @throws RangeError for a rate with more hits than chances (from wilsonInterval).
+ * @throws TypeError for a missing or non-numeric count or tally; RangeError for a negative or fractional count, or a
+ *   rate with more hits than chances (from wilsonInterval), naming shotStatsOfCounts.
  * @example
  * shotStatsOfCounts({ ...zero, strikes: 4, strikeN: 11 }).strike; // => { hits: 4, n: 11, pct: 36.36…, low: 15.2…, high: 64.6… }
  */
 export function shotStatsOfCounts(c: ShotCounts): ShotStats {
+  const fn = 'shotStatsOfCounts';
+  const r = record(fn, 'counts', c);
+  for (const k of COUNT_KEYS) integerInRange(fn, `counts.${k}`, r[k], 0, Number.MAX_SAFE_INTEGER);
+  const tallies = record(fn, 'counts.tallies', r.tallies);
+  for (const [k, v] of Object.entries(tallies)) integerInRange(fn, `counts.tallies.${k}`, v, 0, Number.MAX_SAFE_INTEGER);
   return statsFromCounts(c);
 }
 

@@ -1,4 +1,5 @@
-import { computed, reactive, ref, watch } from 'vue';
+import { computed, nextTick, reactive, ref, watch } from 'vue';
+import { ElMessageBox } from 'element-plus';
 import type { z } from 'zod';
 import type { BallSpec } from '@engine/index';
 import { ballToSpec, formatEighths, parsePinToPapIn, type Ball, type BallModel, type BallPatch } from '@shared/balls';
@@ -184,7 +185,12 @@ export function useBallDialog(props: BallDialogProps, on: BallDialogEvents) {
     staleNotice.value = '';
     const { CatalogueFormSchema, SpecFormSchema } = schemas.value;
     const v = validate(mode.value === 'catalogue' ? CatalogueFormSchema : SpecFormSchema, { ...form, nickname: form.nickname });
-    if (!v) return;
+    if (!v) {
+      await showFirstError();
+      return;
+    }
+    if (mode.value !== 'edit' && !(await confirmNotDuplicate(mode.value === 'catalogue' && props.model ? props.model.name : form.name)))
+      return;
     saving.value = true;
     try {
       if (mode.value === 'catalogue' && props.model) {
@@ -214,8 +220,42 @@ export function useBallDialog(props: BallDialogProps, on: BallDialogEvents) {
     } catch (err) {
       if (isApiRequestError(err) && err.status === 409 && props.ball) await reloadAfterStale(props.ball.id);
       else applyApiError(err, 'The ball could not be saved. Please try again.');
+      await showFirstError();
     } finally {
       saving.value = false;
+    }
+  }
+
+  /** The first field with an error (or the form's message) scrolled into view: a long dialog may be scrolled far from it. */
+  async function showFirstError(): Promise<void> {
+    await nextTick();
+    const el = document.querySelector('.el-dialog .el-form-item.is-error, .el-dialog .el-alert--error');
+    el?.scrollIntoView({ block: 'center', behavior: 'smooth' });
+    el?.querySelector<HTMLElement>('input, textarea, select')?.focus({ preventScroll: true });
+  }
+
+  /** Adding a ball the bag already holds (same name, not retired) asks first: a second copy is allowed, by intent only. */
+  async function confirmNotDuplicate(name: string | undefined): Promise<boolean> {
+    const wanted = (name ?? '').trim().toLowerCase();
+    if (!wanted) return true;
+    let same: Ball | undefined;
+    try {
+      same = (await arsenalApi.list({ q: name, pageSize: 50 })).items.find(
+        (b) => b.name.trim().toLowerCase() === wanted && b.status !== 'retired',
+      );
+    } catch {
+      return true; // the server still stores the ball; the check is a courtesy
+    }
+    if (!same) return true;
+    try {
+      await ElMessageBox.confirm(
+        `${same.nickname ? `${same.nickname} (${same.name})` : same.name} is already in your bag. Add another one?`,
+        'Add this ball again?',
+        { confirmButtonText: 'Add another', cancelButtonText: 'Don’t add', type: 'warning' },
+      );
+      return true;
+    } catch {
+      return false;
     }
   }
 

@@ -60,7 +60,14 @@ const groupKey = (r: { g: number; ball_id: number | null; surface_key: string | 
 /** ShotCounts of a summed row: the complete games' scores as the group counts them (engine gameCounts). */
 function countsOfRow(r: SumRow, tallies: Record<string, number>): ShotCounts {
   const [totalSum, completeGames] = r.g === 3 ? [r.ball_sum, r.ball_n] : r.g === 1 ? [r.row_sum, r.row_n] : [r.game_sum, r.game_n];
-  const c: ShotCounts = { ...ZERO_COUNTS, games: r.games, totalSum, completeGames, tallies };
+  // PostgreSQL sums and counts may arrive as strings (bigint, numeric): the engine checks for numbers
+  const c: ShotCounts = {
+    ...ZERO_COUNTS,
+    games: Number(r.games),
+    totalSum: Number(totalSum),
+    completeGames: Number(completeGames),
+    tallies: Object.fromEntries(Object.entries(tallies).map(([k, v]) => [k, Number(v)])),
+  };
   for (const [col, name] of Object.entries(COUNT_COLUMNS)) c[name] = Number(r[col as keyof typeof COUNT_COLUMNS]);
   return c;
 }
