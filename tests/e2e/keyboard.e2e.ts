@@ -59,8 +59,8 @@ describe('keyboard only', () => {
       .filter({ hasText: /^Game 1 · frame 1, ball 1$/ })
       .waitFor();
 
-    // The target board's + button, pressed with Enter: the new board is announced (focus stays on the button).
-    await tabTo(page, page.getByRole('button', { name: 'Target board: one board higher' }));
+    // The target board's Left button (a higher board for Dana, a right-hander), pressed with Enter: the new board is announced (focus stays on the button).
+    await tabTo(page, page.getByRole('button', { name: 'Target board: left one board' }));
     await page.keyboard.press('Enter');
     const target = await page.getByLabel('Target board', { exact: true }).inputValue();
     expect(target).toMatch(/^\d+$/);

@@ -90,6 +90,14 @@ describe('a league night on a lane pair, followed up (375 px)', () => {
     await page.goto(`/sessions/${sid}`);
     await page.getByText('lanes 13-14').first().waitFor();
 
+    // the steppers in the bowler's own sense: for Lee, a left-hander, Left is toward the hand-side gutter (a lower board)
+    const feet = page.getByLabel('Feet board', { exact: true });
+    await expect.poll(() => feet.inputValue()).toBe('22');
+    await page.getByRole('button', { name: 'Feet board: left one board' }).click();
+    await expect.poll(() => feet.inputValue()).toBe('21');
+    await page.getByRole('button', { name: 'Feet board: right one board' }).click();
+    await expect.poll(() => feet.inputValue()).toBe('22');
+
     // the follow-up: 0 of 5 pocket before the move, 7 of 7 after (the 2 of game 2 record no hit)
     const followUp = page.getByRole('region', { name: 'Did the move work?' }).or(page.locator('section.follow-up'));
     await followUp.getByRole('heading', { name: 'Did the move work?' }).waitFor();

@@ -174,7 +174,7 @@ describe('sessions: shot entry on a phone', () => {
     // The line: feet and target boards with the steppers, a breakpoint and a pocket hit on the first ball.
     await page.getByLabel('Feet board', { exact: true }).fill('25');
     await page.getByLabel('Feet board', { exact: true }).press('Tab');
-    await page.getByRole('button', { name: 'Target board: one board higher' }).click();
+    await page.getByRole('button', { name: 'Target board: left one board' }).click();
     expect(await page.getByLabel('Target board', { exact: true }).inputValue()).not.toBe('');
     await page.getByText('Breakpoint seen').click();
     await page.getByLabel('Breakpoint board', { exact: true }).fill('8');
