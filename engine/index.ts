@@ -98,7 +98,7 @@ export { shotStats } from './shotlog/shotStats';
 export { statsBy, STATS_KEYS } from './shotlog/statsBy';
 export type { StatsKey } from './shotlog/statsBy';
 export { suggestMoves, recentShotsSuffice, movesOfRecentShots, MOVE_THRESHOLDS } from './shotlog/suggestMoves';
-export { countsOfShots, gameCounts, shotStatsOfCounts } from './shotlog/shotCounts';
+export { countsOfShots, emptyShotCounts, gameCounts, shotStatsOfCounts } from './shotlog/shotCounts';
 export type { GameCountsRow } from './shotlog/shotCounts';
 export { moveFollowUp, FOLLOW_UP } from './shotlog/moveFollowUp';
 export { upkeepDue, UPKEEP_DEFAULTS } from './upkeep/upkeepDue';

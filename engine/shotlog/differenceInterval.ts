@@ -1,4 +1,4 @@
-import { integerInRange } from '../internal/checks';
+import { integerInRange, record } from '../internal/checks';
 import { wilsonInterval } from './wilsonInterval';
 
 /**
@@ -15,7 +15,8 @@ import { wilsonInterval } from './wilsonInterval';
  * @param after `{ hits, n }` of the later sample (n ≥ 1).
  * @param before `{ hits, n }` of the earlier sample (n ≥ 1).
  * @returns `{ diff, low, high }` with −1 ≤ low ≤ diff ≤ high ≤ 1.
- * @throws RangeError for n < 1 or hits outside 0…n (as wilsonInterval), naming differenceInterval.
+ * @throws TypeError for a missing sample or a non-number; RangeError for n < 1 or hits outside 0…n (as wilsonInterval),
+ *   naming differenceInterval.
  * @example
  * differenceInterval({ hits: 56, n: 70 }, { hits: 48, n: 80 }); // => { diff: 0.2, low: 0.0524…, high: 0.3339… }
  */
@@ -24,10 +25,12 @@ export function differenceInterval(
   before: { hits: number; n: number },
 ): { diff: number; low: number; high: number } {
   const fn = 'differenceInterval';
-  const n1 = integerInRange(fn, 'after.n', after.n, 1, Number.MAX_SAFE_INTEGER);
-  const h1 = integerInRange(fn, 'after.hits', after.hits, 0, n1);
-  const n2 = integerInRange(fn, 'before.n', before.n, 1, Number.MAX_SAFE_INTEGER);
-  const h2 = integerInRange(fn, 'before.hits', before.hits, 0, n2);
+  const a = record(fn, 'after', after);
+  const b = record(fn, 'before', before);
+  const n1 = integerInRange(fn, 'after.n', a.n, 1, Number.MAX_SAFE_INTEGER);
+  const h1 = integerInRange(fn, 'after.hits', a.hits, 0, n1);
+  const n2 = integerInRange(fn, 'before.n', b.n, 1, Number.MAX_SAFE_INTEGER);
+  const h2 = integerInRange(fn, 'before.hits', b.hits, 0, n2);
   const p1 = h1 / n1;
   const p2 = h2 / n2;
   const w1 = wilsonInterval(h1, n1);

@@ -1,28 +1,8 @@
 import { integerInRange, record } from '../internal/checks';
 import { analyzeShots } from './internal/analyzeShots';
+import { COUNT_KEYS, zeroCounts } from './internal/countKeys';
 import { countsOf, statsFromCounts } from './internal/computeStats';
 import type { ShotCounts, ShotRecord, ShotStats } from './types';
-
-/** The counts every ShotCounts carries (checked by shotStatsOfCounts). */
-const COUNT_KEYS = [
-  'shots',
-  'games',
-  'totalSum',
-  'completeGames',
-  'strikes',
-  'strikeN',
-  'spares',
-  'spareN',
-  'singleMade',
-  'singleN',
-  'multiMade',
-  'multiN',
-  'splitMade',
-  'splitN',
-  'pocket',
-  'pocketN',
-  'carried',
-] as const satisfies readonly (keyof ShotCounts)[];
 
 /**
  * ShotStats from counts: the same definitions as shotStats (common scoresheet usage; Wilson 1927 intervals), the
@@ -140,4 +120,13 @@ export function gameCounts(shots: ShotRecord[]): GameCountsRow[] {
     }
   }
   return out;
+}
+
+/**
+ * The counts of no shots (every count 0, no tallies): the start of a sum of ShotCounts.
+ * @example
+ * shotStatsOfCounts(emptyShotCounts()).strike; // => { hits: 0, n: 0, pct: null, low: null, high: null }
+ */
+export function emptyShotCounts(): ShotCounts {
+  return zeroCounts();
 }

@@ -3,6 +3,7 @@ import { leaveName } from '../../leaveName';
 import type { LeaveCount, Rate, ShotCounts, ShotStats } from '../types';
 import { wilsonInterval } from '../wilsonInterval';
 import type { AnalyzedShots } from './analyzeShots';
+import { zeroCounts } from './countKeys';
 
 /** A Rate in percent with its Wilson 95 % interval (null values when n is 0). */
 export function rate(hits: number, n: number): Rate {
@@ -13,26 +14,7 @@ export function rate(hits: number, n: number): Rate {
 
 /** The counts of the entries whose indexes are in `include` (definitions: shotStats; tallies: ShotCounts). */
 export function countsOf(a: AnalyzedShots, include: Set<number>): ShotCounts {
-  const c: ShotCounts = {
-    shots: include.size,
-    games: 0,
-    totalSum: 0,
-    completeGames: 0,
-    strikes: 0,
-    strikeN: 0,
-    spares: 0,
-    spareN: 0,
-    singleMade: 0,
-    singleN: 0,
-    multiMade: 0,
-    multiN: 0,
-    splitMade: 0,
-    splitN: 0,
-    pocket: 0,
-    pocketN: 0,
-    carried: 0,
-    tallies: {},
-  };
+  const c: ShotCounts = { ...zeroCounts(), shots: include.size };
   const tally = (key: string) => {
     c.tallies[key] = (c.tallies[key] ?? 0) + 1;
   };

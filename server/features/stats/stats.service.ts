@@ -1,4 +1,5 @@
 import pLimit from 'p-limit';
+import { emptyShotCounts } from '../../../engine/index';
 import type { Calibration, ShotCounts } from '../../../engine/shotlog/types';
 import { DEFAULT_LANE_SURFACE } from '../../../shared/centers';
 import type { CalibrationQuery, StatsQuery, StatsResult } from '../../../shared/sessions';
@@ -33,26 +34,6 @@ const inFlight = new Map<
  */
 export const RECENT_SHOTS = 1000;
 
-const ZERO_COUNTS: Omit<ShotCounts, 'tallies'> = {
-  shots: 0,
-  games: 0,
-  totalSum: 0,
-  completeGames: 0,
-  strikes: 0,
-  strikeN: 0,
-  spares: 0,
-  spareN: 0,
-  singleMade: 0,
-  singleN: 0,
-  multiMade: 0,
-  multiN: 0,
-  splitMade: 0,
-  splitN: 0,
-  pocket: 0,
-  pocketN: 0,
-  carried: 0,
-};
-
 /** The grouping key of a summed row (GROUPING bits: 7 overall, 3 per ball, 1 per ball and surface, 6 per session). */
 const groupKey = (r: { g: number; ball_id: number | null; surface_key: string | null; session_id: number | null }): string =>
   r.g === 7 ? '' : r.g === 3 ? String(r.ball_id) : r.g === 1 ? `${r.ball_id} | ${r.surface_key}` : String(r.session_id);
@@ -62,7 +43,7 @@ function countsOfRow(r: SumRow, tallies: Record<string, number>): ShotCounts {
   const [totalSum, completeGames] = r.g === 3 ? [r.ball_sum, r.ball_n] : r.g === 1 ? [r.row_sum, r.row_n] : [r.game_sum, r.game_n];
   // PostgreSQL sums and counts may arrive as strings (bigint, numeric): the engine checks for numbers
   const c: ShotCounts = {
-    ...ZERO_COUNTS,
+    ...emptyShotCounts(),
     games: Number(r.games),
     totalSum: Number(totalSum),
     completeGames: Number(completeGames),
@@ -120,7 +101,7 @@ async function computeParts(
       .filter((x) => x.row.g === g)
       .map((x) => ({ ...x, date: x.row.first_date! }))
       .sort(byDateThenKey);
-  const overall = groups.find((x) => x.row.g === 7)?.counts ?? { ...ZERO_COUNTS, tallies: {} };
+  const overall = groups.find((x) => x.row.g === 7)?.counts ?? emptyShotCounts();
   const byBall = ordered(3);
   const bySurface = ordered(1);
   const bySession = ordered(6);

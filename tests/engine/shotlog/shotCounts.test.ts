@@ -1,6 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import {
+  emptyShotCounts,
   countsOfShots,
   gameCounts,
   movesOfRecentShots,
@@ -273,5 +274,15 @@ describe('recentShotsSuffice', () => {
     }));
     expect(recentShotsSuffice(shots)).toBe(false);
     expect(recentShotsSuffice([])).toBe(false);
+  });
+});
+
+describe('emptyShotCounts', () => {
+  it('is the counts of no shots: its statistics are those of an empty log, and it is a fresh object each time', () => {
+    expect(emptyShotCounts()).toEqual(countsOfShots([]));
+    expect(shotStatsOfCounts(emptyShotCounts())).toEqual(shotStats([]));
+    const a = emptyShotCounts();
+    a.strikes = 3;
+    expect(emptyShotCounts().strikes).toBe(0);
   });
 });
