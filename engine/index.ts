@@ -37,6 +37,8 @@ export type { ScoringLayer } from './scoringLayers';
 export { rankArsenal, compareRanked } from './rankArsenal';
 export type { RankArsenalOptions, RankedPlace } from './rankArsenal';
 export { rankTransition } from './rankTransition';
+export { pairAdvice, PAIR_ADVICE } from './pairAdvice';
+export type { PairAdvice } from './pairAdvice';
 export {
   BOARD_COUNT,
   LANE_WIDTH_IN,

@@ -103,7 +103,7 @@ describe('coach: invitations, plans and the side-by-side what-if at 375 px', () 
     await signIn(page, DEMO.coach);
     await page.goto('/coach');
     await page.getByRole('button', { name: 'Open Dana Holloway' }).click();
-    await page.getByRole('heading', { level: 3, name: 'Side by side: two versions of one ball' }).waitFor();
+    await page.getByRole('heading', { level: 3, name: 'Side by side: two balls, or two versions of one' }).waitFor();
     await choose(page, 'Ball to compare', /^Big Red/);
     await choose(page, 'Condition to compare on', 'Long Haul 47');
     await choose(page, 'Version B grit', '4000 grit');
@@ -115,6 +115,26 @@ describe('coach: invitations, plans and the side-by-side what-if at 375 px', () 
     await eventually(() => page.locator('svg path[data-ball="a"]').count()).toBe(1);
     await eventually(() => page.locator('svg path[data-ball="b"]').count()).toBe(1);
     await screenshot(page, 'coach-what-if-mobile');
+    expect(await hasHorizontalScroll(page)).toBe(false);
+
+    // Two different balls of the student's, late in the pattern's life (25 games), with the student's calibration named.
+    await choose(page, 'Ball B', /^Backend/);
+    await page.getByRole('spinbutton', { name: 'Games bowled on the pattern' }).fill('25');
+    await page.getByRole('spinbutton', { name: 'Games bowled on the pattern' }).press('Tab');
+    await expect.poll(() => page.getByRole('spinbutton', { name: 'Games bowled on the pattern' }).inputValue()).toBe('25');
+    await eventually(async () => {
+      const names = await page.locator('svg [data-ball]').evaluateAll((els) => els.map((e) => e.getAttribute('data-ball')));
+      return names.includes('a') && names.includes('b');
+    }).toBe(true);
+    const legend = page.getByRole('list', { name: 'Legend' });
+    await legend.getByText(/B: Backend \(Skylark Arc\) — /).waitFor();
+    await legend.getByText(/A: Big Red/).waitFor();
+    await page.getByTestId('coach-calibration').waitFor();
+    await page
+      .getByRole('status')
+      .filter({ hasText: /^From A to B: / })
+      .waitFor({ timeout: 60000 });
+    await screenshot(page, 'coach-two-balls-mobile');
     expect(await hasHorizontalScroll(page)).toBe(false);
 
     // The student's stats, read by the coach.

@@ -228,7 +228,7 @@ describe('matchup: the demo house condition, its lane surface, and the same numb
     const cp = coach.page;
     await cp.goto(`${baseUrl}/coach`);
     await cp.getByRole('button', { name: 'Open Dana Holloway' }).click();
-    await cp.getByRole('heading', { level: 3, name: 'Side by side: two versions of one ball' }).waitFor();
+    await cp.getByRole('heading', { level: 3, name: 'Side by side: two balls, or two versions of one' }).waitFor();
     await choose(cp, 'Ball to compare', BIG_RED);
     await choose(cp, 'Condition to compare on', HOUSE);
     await choose(cp, 'Version B grit', `${grit} grit`);

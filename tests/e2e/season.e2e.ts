@@ -157,3 +157,49 @@ describe('an upkeep reminder leads to a pro-shop order (375 px)', () => {
       .toContainEqual(expect.stringMatching(/^Resurface to \d+ grit/));
   });
 });
+
+describe('the pair after a game (375 px)', () => {
+  it('a session on a pattern shows how the model ranks the bag for the pair after the games bowled, with the ball in use', async () => {
+    const token = await apiToken(baseUrl, DEMO.dana);
+    const auth = { Authorization: `Bearer ${token}` };
+    const patterns = (await (await fetch(`${baseUrl}/api/patterns?pageSize=100`, { headers: auth })).json()) as {
+      items: { id: number; name: string }[];
+    };
+    const house = patterns.items.find((p) => p.name === 'Copperline House 40')!;
+    const balls = (await (await fetch(`${baseUrl}/api/arsenal`, { headers: auth })).json()) as {
+      items: { id: number; status: string; name: string }[];
+    };
+    const ball = balls.items.find((b) => b.status === 'active')!;
+    const session = await call(token, 'POST', '/api/sessions', {
+      date: '2026-09-04',
+      kind: 'practice',
+      patternId: house.id,
+      lanePair: '5-6',
+    });
+    // one complete game: 9 and a spare every frame, 9 on the fill ball
+    for (let frame = 1; frame <= 10; frame++) {
+      const throws = frame < 10 ? [[10], []] : [[10], [], [10]];
+      for (const [i, standing] of throws.entries())
+        await call(
+          token,
+          'POST',
+          `/api/sessions/${session.item.id}/shots`,
+          { gameNumber: 1, frame, delivery: i + 1, standing, ballId: ball.id },
+          { 'Idempotency-Key': randomUUID() },
+        );
+    }
+
+    const { page } = await open(MOBILE);
+    await signIn(page, DEMO.dana);
+    await page.goto(`/sessions/${session.item.id}`);
+    const panel = page.locator('[data-pair-advice]');
+    await panel.getByRole('heading', { name: 'Lanes 5-6 after 1 game' }).waitFor();
+    await expect
+      .poll(() => panel.getByRole('status').textContent(), { timeout: 30000 })
+      .toMatch(
+        /After 1 game on this pair .+(is still the model's first choice|first .+ time to think about changing balls|within the model's precision)/,
+      );
+    expect(await hasHorizontalScroll(page)).toBe(false);
+    await screenshot(page, 'season-pair-375');
+  });
+});

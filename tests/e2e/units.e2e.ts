@@ -133,7 +133,7 @@ describe('units: a metric bowler sees km/h, kg, cm and m on Matchup, Ball, Sessi
     await page.getByRole('button', { name: 'Open Dana Holloway' }).click();
     const kmh = `${(dana.speedMph * 1.609344).toFixed(1)} km/h`;
     await page.getByText(new RegExp(`-handed, ${kmh.replace('/', '\\/')}, \\d+ rpm`)).waitFor();
-    await page.getByRole('heading', { level: 3, name: 'Side by side: two versions of one ball' }).waitFor();
+    await page.getByRole('heading', { level: 3, name: 'Side by side: two balls, or two versions of one' }).waitFor();
     await page.locator('.coach-what-if').getByText(`release: ${kmh},`, { exact: false }).waitFor();
     await page.getByText('Pin-to-PAP (cm)').first().waitFor();
     expect(await page.getByText(/\d\s*mph\b/).count()).toBe(0);

@@ -1,5 +1,5 @@
 import { wrap, type Remote } from 'comlink';
-import type { RankArsenalInput, RankedBallWithPrediction } from '@engine/index';
+import type { PairAdvice, RankArsenalInput, RankedBallWithPrediction } from '@engine/index';
 import { ballToArsenalBall, type Ball } from '@shared/balls';
 import type { EngineWorker } from '@/workers/engine.worker';
 
@@ -14,6 +14,13 @@ function engineWorker(): Remote<EngineWorker> {
 /** rankArsenal in the engine worker; the input is copied as plain data first (reactive proxies cannot cross to a worker). */
 export async function rankInWorker(input: RankArsenalInput): Promise<RankedBallWithPrediction[]> {
   return engineWorker().rankArsenal(JSON.parse(JSON.stringify(input)) as RankArsenalInput);
+}
+
+/** pairAdvice in the engine worker (plain data across, as rankInWorker). */
+export async function pairAdviceInWorker(
+  input: Omit<RankArsenalInput, 'gamesBowled'> & { gamesBowled: number; ballInUse: string },
+): Promise<PairAdvice> {
+  return engineWorker().pairAdvice(JSON.parse(JSON.stringify(input)) as typeof input);
 }
 
 /**
