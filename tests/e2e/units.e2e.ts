@@ -178,7 +178,11 @@ describe('units: a metric bowler sees km/h, kg, cm and m on Matchup, Ball, Sessi
     await dialog.getByLabel('Nickname (optional)').fill(nickname);
     await screenshot(page, 'units-catalogue-dialog-metric-desktop');
     await dialog.getByRole('button', { name: 'Add to arsenal' }).click();
-    await page.getByText(`${nickname} is in your arsenal.`).first().waitFor();
+    // A model already in the bag asks first (the duplicate warning): a second copy is added on purpose here.
+    const again = page.getByRole('dialog', { name: 'Add this ball again?' });
+    const added = page.getByText(`${nickname} is in your arsenal.`).first();
+    await Promise.race([added.waitFor(), again.waitFor().then(() => again.getByRole('button', { name: 'Add another' }).click())]);
+    await added.waitFor();
 
     const { json } = await api<{ items: { id: number; nickname: string; weightLb: number }[] }>(
       'GET',

@@ -85,6 +85,7 @@ describe('SIGTERM during requests', () => {
       token: coach.token,
       body: {
         name: 'Shutdown Long 45',
+        visibility: 'published', // the bowler ranks on it: a draft is the coach's own
         sweeps: [{ direction: 'forward', fromBoard: 2, toBoard: 38, startFt: 0, endFt: 45, crossings: 4, microlitersPerBoard: 70 }],
       },
     });

@@ -166,11 +166,17 @@ export async function leagueNight(d: Deployment, opts: NightOptions): Promise<Ni
     { direction: 'forward', fromBoard: 2, toBoard: 38, startFt: 0, endFt: len, crossings: 4, microlitersPerBoard: 60 },
   ];
   const house = must(
-    await lb.call('setup', 'POST', '/api/patterns', { token: owner.token, body: { name: `Night House 41 ${tag}`, sweeps: sweeps(41) } }),
+    await lb.call('setup', 'POST', '/api/patterns', {
+      token: owner.token,
+      body: { name: `Night House 41 ${tag}`, sweeps: sweeps(41), visibility: 'published' },
+    }),
     'pattern',
   ).item;
   const sport = must(
-    await lb.call('setup', 'POST', '/api/patterns', { token: owner.token, body: { name: `Night Sport 44 ${tag}`, sweeps: sweeps(44) } }),
+    await lb.call('setup', 'POST', '/api/patterns', {
+      token: owner.token,
+      body: { name: `Night Sport 44 ${tag}`, sweeps: sweeps(44), visibility: 'published' },
+    }),
     'pattern',
   ).item;
   const allLanes = Array.from({ length: opts.lanes }, (_, i) => i + 1);
