@@ -43,7 +43,9 @@ export class Pattern extends Model<InferAttributes<Pattern>, InferCreationAttrib
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },
-      { sequelize, tableName: 'patterns', paranoid: true, version: true },
+      // modelName fixed: the lists' sort expressions name the table alias "Pattern", which must not follow the class
+      // name (the production bundle may rename the class)
+      { sequelize, modelName: 'Pattern', tableName: 'patterns', paranoid: true, version: true },
     );
   }
 }

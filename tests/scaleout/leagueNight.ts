@@ -179,6 +179,8 @@ export async function leagueNight(d: Deployment, opts: NightOptions): Promise<Ni
     }),
     'pattern',
   ).item;
+  // the pattern list, sorted by name, from the production build (its sort names the model's table alias)
+  must(await lb.call('setup', 'GET', '/api/patterns?sort=name', { token: owner.token }), 'pattern list');
   const allLanes = Array.from({ length: opts.lanes }, (_, i) => i + 1);
   must(
     await lb.call('setup', 'POST', `/api/centers/${center.id}/conditions`, {
