@@ -13,6 +13,20 @@ export const COVER_TYPES = [
 export const CoverTypeSchema = z.enum(COVER_TYPES, { error: 'Choose a cover type' });
 export const CORE_TYPES = ['symmetric', 'asymmetric'] as const;
 export const CoreTypeSchema = z.enum(CORE_TYPES, { error: 'Choose symmetric or asymmetric' });
+/** The columns of a catalogue CSV import, in the order the server reads them (its template and the admin screen's). */
+export const CATALOGUE_CSV_COLUMNS = [
+  'maker',
+  'name',
+  'coverType',
+  'coreType',
+  'rg',
+  'differential',
+  'intermediateDifferential',
+  'factoryGrit',
+  'factoryPolished',
+  'hardnessD',
+  'releaseYear',
+] as const;
 export const BALL_STATUSES = ['active', 'retired', 'in-shop'] as const;
 
 const num = (label: string) => z.number({ error: `${label} must be a number` });

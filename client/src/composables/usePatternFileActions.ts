@@ -1,3 +1,4 @@
+import { saveFile } from '@/utils/saveFile';
 import { ref, type Ref } from 'vue';
 import { ElMessageBox, ElNotification } from 'element-plus';
 import { errorMessage, isApiRequestError } from '@/api/client';
@@ -58,14 +59,7 @@ export function usePatternFileActions(id: Readonly<Ref<number | null>>, name: Re
     actionError.value = '';
     try {
       const blob = await patternsApi.exportFile(id.value, format);
-      const url = URL.createObjectURL(blob);
-      const a = document.createElement('a');
-      a.href = url;
-      a.download = patternFileName(name.value, format);
-      document.body.appendChild(a);
-      a.click();
-      a.remove();
-      setTimeout(() => URL.revokeObjectURL(url), 1000);
+      saveFile(blob, patternFileName(name.value, format));
     } catch (err) {
       actionError.value = errorMessage(err, 'The pattern could not be exported.');
     } finally {

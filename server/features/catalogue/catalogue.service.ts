@@ -14,21 +14,6 @@ const duplicate = () =>
     'body.name': 'Already in the catalogue',
   });
 
-/** CSV columns of a catalogue import, in Lanewright's own order. */
-export const CATALOGUE_CSV_COLUMNS = [
-  'maker',
-  'name',
-  'coverType',
-  'coreType',
-  'rg',
-  'differential',
-  'intermediateDifferential',
-  'factoryGrit',
-  'factoryPolished',
-  'hardnessD',
-  'releaseYear',
-] as const;
-
 export const catalogueService = {
   async list(q: CatalogueQuery): Promise<Page<BallModelDto>> {
     const { rows, count } = await catalogueRepository.list(q);
